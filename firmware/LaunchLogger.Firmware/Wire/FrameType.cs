@@ -1,0 +1,24 @@
+namespace LaunchLogger.Firmware.Wire
+{
+    /// <summary>The type byte that opens every frame payload (see LOG-FORMAT.md, section 3).</summary>
+    public enum FrameType : byte
+    {
+        /// <summary>Everything needed to decode a run; the first frame of every run.</summary>
+        Configuration = 0x01,
+
+        /// <summary>A batch of pulse observations of one channel.</summary>
+        Pulses = 0x02,
+
+        /// <summary>One burst (or part of one) of accelerometer samples.</summary>
+        Acceleration = 0x03,
+
+        /// <summary>A timed event: staging, motion, rollout, stop, brake switch, mark, gap.</summary>
+        Event = 0x04,
+
+        /// <summary>Counters of everything that went wrong since power-up.</summary>
+        Health = 0x05,
+
+        /// <summary>The last frame of every run.</summary>
+        Summary = 0x06,
+    }
+}
