@@ -1,0 +1,166 @@
+using LaunchLogger.Firmware.Clock;
+using LaunchLogger.Firmware.Hardware;
+using LaunchLogger.Firmware.Run;
+
+namespace LaunchLogger.Firmware
+{
+    /// <summary>One pass of the box's main loop: drain pulse observations, read the
+    /// accelerometer when due, watch the inputs, tick the recorder, show the phase.</summary>
+    /// <remarks>Device glue builds one of these from its hardware and calls <see cref="Step"/>
+    /// as often as it can. Optional parts (accelerometer, inputs, indicator) may be null.</remarks>
+    public sealed class CaptureLoop
+    {
+        /// <summary>The most observations taken from the pulse source in one step, so that the
+        /// accelerometer is never starved.</summary>
+        public const int MaxObservationsPerStep = 64;
+
+        private readonly MonotonicClock clock;
+        private readonly IPulseSource pulses;
+        private readonly IAccelerometer accelerometer;
+        private readonly IDigitalInput brakeSwitch;
+        private readonly IDigitalInput markButton;
+        private readonly IStatusIndicator indicator;
+        private readonly RunRecorder recorder;
+        private readonly HealthCounters health;
+        private readonly short[] burst;
+        private readonly int burstCapacity;
+        private readonly long accelIntervalMicros;
+        private readonly long samplesPerSecondMilli;
+        private long nextAccelMicros;
+        private long lastAccelReadMicros;
+        private long sampleIndex;
+        private bool markWasActive;
+        private bool phaseShown;
+        private RunPhase shownPhase;
+
+        /// <summary>Wires the loop together.</summary>
+        /// <param name="clock">The box's monotonic clock.</param>
+        /// <param name="pulses">Where pulse observations come from.</param>
+        /// <param name="accelerometer">The accelerometer, or null.</param>
+        /// <param name="brakeSwitch">The brake switch input, or null.</param>
+        /// <param name="markButton">The manual mark button, or null.</param>
+        /// <param name="indicator">The status LED or buzzer, or null.</param>
+        /// <param name="recorder">The run recorder to feed.</param>
+        /// <param name="burstCapacity">The most samples read from the FIFO at once.</param>
+        /// <param name="accelIntervalMicros">How often to read the FIFO (µs).</param>
+        public CaptureLoop(
+            MonotonicClock clock,
+            IPulseSource pulses,
+            IAccelerometer accelerometer,
+            IDigitalInput brakeSwitch,
+            IDigitalInput markButton,
+            IStatusIndicator indicator,
+            RunRecorder recorder,
+            int burstCapacity,
+            int accelIntervalMicros)
+        {
+            if (clock == null || pulses == null || recorder == null)
+            {
+                throw new System.ArgumentNullException(clock == null ? "clock" : pulses == null ? "pulses" : "recorder");
+            }
+
+            if (burstCapacity < 1)
+            {
+                throw new System.ArgumentOutOfRangeException("burstCapacity");
+            }
+
+            this.clock = clock;
+            this.pulses = pulses;
+            this.accelerometer = accelerometer;
+            this.brakeSwitch = brakeSwitch;
+            this.markButton = markButton;
+            this.indicator = indicator;
+            this.recorder = recorder;
+            health = recorder.Health;
+            this.burstCapacity = burstCapacity;
+            burst = new short[burstCapacity * 3];
+            this.accelIntervalMicros = accelIntervalMicros;
+            samplesPerSecondMilli = accelerometer == null ? 0 : accelerometer.OutputDataRateMilliHz;
+            lastAccelReadMicros = clock.NowMicros();
+        }
+
+        /// <summary>One pass of the loop.</summary>
+        public void Step()
+        {
+            PulseObservationDrain();
+            long now = clock.NowMicros();
+            if (accelerometer != null && now >= nextAccelMicros)
+            {
+                ReadAccelerometer();
+                nextAccelMicros = now + accelIntervalMicros;
+            }
+
+            if (brakeSwitch != null)
+            {
+                recorder.OnBrakeSwitch(brakeSwitch.IsActive(), now);
+            }
+
+            if (markButton != null)
+            {
+                bool active = markButton.IsActive();
+                if (active && !markWasActive)
+                {
+                    recorder.OnManualMark(now);
+                }
+
+                markWasActive = active;
+            }
+
+            recorder.Tick(clock.NowMicros());
+            RunPhase phase = recorder.Phase;
+            if (indicator != null && (!phaseShown || phase != shownPhase))
+            {
+                indicator.Show(phase);
+                shownPhase = phase;
+                phaseShown = true;
+            }
+        }
+
+        private void PulseObservationDrain()
+        {
+            for (int i = 0; i < MaxObservationsPerStep; i++)
+            {
+                Capture.PulseObservation observation;
+                if (!pulses.TryRead(out observation))
+                {
+                    return;
+                }
+
+                recorder.OnPulseObservation(observation);
+            }
+        }
+
+        private void ReadAccelerometer()
+        {
+            bool overflowed;
+            int n = accelerometer.ReadBurst(burst, burstCapacity, out overflowed);
+            long readMicros = clock.NowMicros();
+            if (n < 0)
+            {
+                health.AccelReadFailures++;
+                lastAccelReadMicros = readMicros;
+                return;
+            }
+
+            if (overflowed)
+            {
+                health.AccelFifoOverflows++;
+                long expected = (readMicros - lastAccelReadMicros) * samplesPerSecondMilli / 1000000000L;
+                long lost = expected - n;
+                if (lost > 0)
+                {
+                    sampleIndex += lost;
+                }
+
+                recorder.OnAccelGap(lost, readMicros);
+            }
+
+            lastAccelReadMicros = readMicros;
+            if (n > 0)
+            {
+                recorder.OnAccelBurst(burst, n, sampleIndex, readMicros);
+                sampleIndex += n;
+            }
+        }
+    }
+}

@@ -1,0 +1,739 @@
+using LaunchLogger.Firmware.Capture;
+using LaunchLogger.Firmware.Hardware;
+using LaunchLogger.Firmware.Wire;
+
+namespace LaunchLogger.Firmware.Run
+{
+    /// <summary>The run state machine and the log it writes: idle → staged → moving → rolled out
+    /// → stopped. Fed with pulse observations, accelerometer bursts, inputs and clock ticks; every
+    /// buffer is made in the constructor, so feeding it allocates nothing.</summary>
+    /// <remarks>
+    /// Staging: with an accelerometer, every axis stays inside <see cref="LoggerSettings.StillBandMilliG"/>
+    /// and no pulse arrives for <see cref="LoggerSettings.StageHoldMicros"/>; the mean of that
+    /// window is the resting gravity vector. Without one, no pulse for that time.
+    /// Motion: while staged, the distance channel's count changes, or the forward acceleration
+    /// (minus its resting value) averaged over <see cref="LoggerSettings.MotionConfirmSamples"/>
+    /// passes <see cref="LoggerSettings.MotionThresholdMilliG"/>. A car that rolls
+    /// <see cref="LoggerSettings.UnstagedOpenMicrometres"/> without being staged opens a rolling run.
+    /// Rollout: the distance channel's count reaches the rollout distance; the time is
+    /// interpolated linearly, in integer arithmetic, between the bracket midpoints on either side.
+    /// Stop: no pulse for <see cref="LoggerSettings.StopHoldMicros"/>.
+    /// </remarks>
+    public sealed class RunRecorder
+    {
+        /// <summary>The most samples one acceleration frame carries.</summary>
+        public const int MaxSamplesPerAccelFrame = 100;
+
+        private readonly LoggerSettings settings;
+        private readonly FrameWriter writer;
+        private readonly HealthCounters health;
+        private readonly AccelPreTriggerRing ring;
+        private readonly PulseBatch[] batches;
+        private readonly long[] lastCount;
+        private readonly bool[] countKnown;
+        private readonly long[] originCount;
+        private readonly int[] onsetWindow;
+        private readonly long samplePeriodNanos;
+        private readonly long rolloutScaled;
+        private readonly int circumference;
+        private readonly int pulsesPerRevolution;
+
+        private RunPhase phase;
+        private bool runOpen;
+        private bool runStaged;
+        private bool rolloutReached;
+        private bool brakeApplied;
+
+        // Stillness window (accelerometer): min/max per axis, sums for the mean.
+        private bool stillOpen;
+        private long stillSinceMicros;
+        private int minX, maxX, minY, maxY, minZ, maxZ;
+        private long sumX, sumY, sumZ;
+        private int stillSamples;
+
+        // Resting state while staged.
+        private long stagedSinceMicros;
+        private int restX, restY, restZ;
+        private int restSamples;
+        private int onsetFill;
+        private int onsetPos;
+        private long onsetSum;
+
+        private long lastPulseChangeMicros;
+        private long idleRollStartCount;
+        private bool idleRolling;
+
+        // The open run.
+        private long runOpenedMicros;
+        private long motionMicros;
+        private long rolloutMicros;
+        private long lastPulseHiMicros;
+        private long prevRelCount;
+        private long prevMidMicros;
+        private long observationsWritten;
+        private long accelSamplesWritten;
+        private long framesAtRunStart;
+        private long nextHealthMicros;
+
+        /// <summary>Checks the settings and allocates every buffer.</summary>
+        /// <exception cref="System.ArgumentException">The settings are unusable; the message says why.</exception>
+        public RunRecorder(LoggerSettings settings, IByteSink sink, HealthCounters health)
+        {
+            if (settings == null)
+            {
+                throw new System.ArgumentNullException("settings");
+            }
+
+            string problem = settings.Validate();
+            if (problem != null)
+            {
+                throw new System.ArgumentException(problem);
+            }
+
+            this.settings = settings;
+            this.health = health == null ? new HealthCounters() : health;
+            writer = new FrameWriter(sink, this.health);
+            int channels = settings.ChannelCount;
+            batches = new PulseBatch[channels];
+            for (int c = 0; c < channels; c++)
+            {
+                batches[c] = new PulseBatch(c);
+            }
+
+            lastCount = new long[channels];
+            countKnown = new bool[channels];
+            originCount = new long[channels];
+            ring = settings.AccelPresent
+                ? new AccelPreTriggerRing(settings.PreTriggerSamples, settings.PreTriggerBursts)
+                : null;
+            onsetWindow = new int[settings.MotionConfirmSamples];
+            samplePeriodNanos = settings.AccelPresent ? 1000000000000L / settings.AccelOutputDataRateMilliHz : 0;
+            circumference = settings.CircumferenceMicrometres;
+            pulsesPerRevolution = settings.PulsesPerRevolution;
+            rolloutScaled = (long)settings.RolloutMicrometres * pulsesPerRevolution;
+            phase = RunPhase.Idle;
+        }
+
+        /// <summary>Where the state machine stands.</summary>
+        public RunPhase Phase
+        {
+            get { return phase; }
+        }
+
+        /// <summary>Runs opened since power-up; the open run's number while one is open.</summary>
+        public int RunNumber { get; private set; }
+
+        /// <summary>The health counters this recorder writes.</summary>
+        public HealthCounters Health
+        {
+            get { return health; }
+        }
+
+        /// <summary>Frames written since power-up.</summary>
+        public long FramesWritten
+        {
+            get { return writer.FramesWritten; }
+        }
+
+        /// <summary>The last run's first-motion time (µs), 0 before any run.</summary>
+        public long MotionMicros
+        {
+            get { return motionMicros; }
+        }
+
+        /// <summary>The last run's rollout mark (µs), 0 when not reached.</summary>
+        public long RolloutMicros
+        {
+            get { return rolloutMicros; }
+        }
+
+        /// <summary>The resting gravity vector recorded at staging (mg).</summary>
+        public int RestX
+        {
+            get { return restX; }
+        }
+
+        /// <summary>The resting gravity vector recorded at staging (mg).</summary>
+        public int RestY
+        {
+            get { return restY; }
+        }
+
+        /// <summary>The resting gravity vector recorded at staging (mg).</summary>
+        public int RestZ
+        {
+            get { return restZ; }
+        }
+
+        /// <summary>Takes one pulse observation.</summary>
+        public void OnPulseObservation(PulseObservation observation)
+        {
+            int channel = observation.Channel;
+            if (channel < 0 || channel >= lastCount.Length)
+            {
+                throw new System.ArgumentOutOfRangeException("observation", "no such pulse channel");
+            }
+
+            long width = observation.HiMicros - observation.LoMicros;
+            if (width > settings.BracketLimitMicros)
+            {
+                health.WideBrackets++;
+            }
+
+            if (width > health.WidestBracketMicros)
+            {
+                health.WidestBracketMicros = width;
+            }
+
+            if (!countKnown[channel])
+            {
+                // The first reading only tells where the counter stands.
+                countKnown[channel] = true;
+                lastCount[channel] = observation.Count;
+                return;
+            }
+
+            long before = lastCount[channel];
+            if (observation.Count <= before)
+            {
+                if (observation.Count < before)
+                {
+                    health.CountsWentBackwards++;
+                }
+
+                return;
+            }
+
+            if (channel == 0)
+            {
+                OnDistancePulse(observation, before);
+            }
+            else if (runOpen)
+            {
+                AddToBatch(channel, observation);
+            }
+
+            lastCount[channel] = observation.Count;
+        }
+
+        /// <summary>Tells the recorder where a channel's counter stands before any edge, so that
+        /// the first edge after power-up already counts as a change.</summary>
+        public void SetCounterOrigin(int channel, long count)
+        {
+            countKnown[channel] = true;
+            lastCount[channel] = count;
+        }
+
+        /// <summary>Takes one burst of accelerometer samples, read from the FIFO at
+        /// <paramref name="readMicros"/>; <paramref name="firstIndex"/> numbers its first sample.</summary>
+        public void OnAccelBurst(short[] xyzMilliG, int count, long firstIndex, long readMicros)
+        {
+            if (ring == null || count <= 0)
+            {
+                return;
+            }
+
+            int fullScale = settings.AccelFullScaleMilliG;
+            for (int i = 0; i < count; i++)
+            {
+                int at = i * 3;
+                if (IsClipped(xyzMilliG[at], fullScale) || IsClipped(xyzMilliG[at + 1], fullScale) || IsClipped(xyzMilliG[at + 2], fullScale))
+                {
+                    health.AccelSamplesClipped++;
+                }
+            }
+
+            if (runOpen)
+            {
+                WriteAccel(xyzMilliG, 0, count, firstIndex, readMicros);
+                return;
+            }
+
+            ring.Add(xyzMilliG, count, firstIndex, readMicros);
+            for (int i = 0; i < count && !runOpen; i++)
+            {
+                long sampleMicros = readMicros - ((count - 1 - i) * samplePeriodNanos / 1000);
+                int at = i * 3;
+                OnStillnessSample(xyzMilliG[at], xyzMilliG[at + 1], xyzMilliG[at + 2], sampleMicros);
+                if (phase == RunPhase.Staged)
+                {
+                    OnOnsetSample(xyzMilliG[at + settings.ForwardAxis], sampleMicros, readMicros);
+                }
+            }
+        }
+
+        /// <summary>The accelerometer's FIFO overflowed and about <paramref name="lostSamples"/>
+        /// samples were lost before <paramref name="readMicros"/>.</summary>
+        public void OnAccelGap(long lostSamples, long readMicros)
+        {
+            if (runOpen)
+            {
+                WriteEvent(EventKind.AccelGap, readMicros);
+                writer.PutVarint(lostSamples < 0 ? 0 : lostSamples);
+                writer.End();
+            }
+
+            // Samples are missing: stillness cannot be vouched for across the gap.
+            stillOpen = false;
+        }
+
+        /// <summary>The brake switch changed state.</summary>
+        public void OnBrakeSwitch(bool applied, long timeMicros)
+        {
+            if (applied == brakeApplied)
+            {
+                return;
+            }
+
+            brakeApplied = applied;
+            if (runOpen)
+            {
+                WriteEvent(applied ? EventKind.BrakeOn : EventKind.BrakeOff, timeMicros);
+                writer.End();
+            }
+        }
+
+        /// <summary>The manual mark button was pressed.</summary>
+        public void OnManualMark(long timeMicros)
+        {
+            if (runOpen)
+            {
+                WriteEvent(EventKind.Mark, timeMicros);
+                writer.End();
+            }
+        }
+
+        /// <summary>Advances the time-driven parts: pulse-only staging, batch age, health
+        /// frames and the stop.</summary>
+        public void Tick(long nowMicros)
+        {
+            if (!runOpen)
+            {
+                if (!settings.AccelPresent && (phase == RunPhase.Idle || phase == RunPhase.Stopped)
+                    && nowMicros - lastPulseChangeMicros >= settings.StageHoldMicros)
+                {
+                    restSamples = 0;
+                    EnterStaged(lastPulseChangeMicros);
+                }
+
+                return;
+            }
+
+            for (int c = 0; c < batches.Length; c++)
+            {
+                if (!batches[c].IsEmpty && nowMicros - batches[c].FirstHiMicros >= settings.PulseFrameMaxAgeMicros)
+                {
+                    batches[c].Flush(writer);
+                }
+            }
+
+            if (nowMicros >= nextHealthMicros)
+            {
+                WriteHealth(nowMicros);
+                nextHealthMicros = nowMicros + settings.HealthIntervalMicros;
+            }
+
+            if (nowMicros - lastPulseHiMicros >= settings.StopHoldMicros)
+            {
+                CloseRun(nowMicros, true);
+            }
+        }
+
+        /// <summary>Closes an open run without a stop (power going down, user request).</summary>
+        public void Shutdown(long nowMicros)
+        {
+            if (runOpen)
+            {
+                CloseRun(nowMicros, false);
+            }
+        }
+
+        private static bool IsClipped(short value, int fullScale)
+        {
+            return value >= fullScale || value <= -fullScale;
+        }
+
+        private void OnDistancePulse(PulseObservation observation, long before)
+        {
+            lastPulseChangeMicros = observation.HiMicros;
+            stillOpen = false;
+            switch (phase)
+            {
+                case RunPhase.Staged:
+                    OpenRun(true, MotionCause.PulseCount, observation.LoMicros, observation.HiMicros);
+                    break;
+                case RunPhase.Idle:
+                case RunPhase.Stopped:
+                    if (!idleRolling)
+                    {
+                        idleRolling = true;
+                        idleRollStartCount = before;
+                    }
+
+                    if ((observation.Count - idleRollStartCount) * circumference >= (long)settings.UnstagedOpenMicrometres * pulsesPerRevolution)
+                    {
+                        OpenRun(false, MotionCause.RollingDistance, observation.LoMicros, observation.HiMicros);
+                    }
+
+                    break;
+            }
+
+            if (runOpen)
+            {
+                AddToBatch(0, observation);
+                if (!rolloutReached)
+                {
+                    CheckRollout(observation);
+                }
+            }
+        }
+
+        private void CheckRollout(PulseObservation observation)
+        {
+            long rel = observation.Count - originCount[0];
+            long mid = observation.LoMicros + ((observation.HiMicros - observation.LoMicros) / 2);
+            if (rel * circumference >= rolloutScaled)
+            {
+                long span = mid - prevMidMicros;
+                long pulses = rel - prevRelCount;
+                long num = rolloutScaled - (prevRelCount * circumference);
+                long den = pulses * circumference;
+                rolloutMicros = prevMidMicros + (span * num / den);
+                long speedMillimetresPerSecond = span > 0 ? pulses * circumference * 1000 / pulsesPerRevolution / span : 0;
+                rolloutReached = true;
+                phase = RunPhase.RolledOut;
+                WriteEvent(EventKind.Rollout, rolloutMicros);
+                writer.PutVarint(speedMillimetresPerSecond);
+                writer.End();
+            }
+
+            prevRelCount = rel;
+            prevMidMicros = mid;
+        }
+
+        private void OnStillnessSample(short x, short y, short z, long sampleMicros)
+        {
+            if (!stillOpen || WidensPastBand(x, y, z))
+            {
+                StartStillWindow(x, y, z, sampleMicros);
+            }
+            else
+            {
+                Widen(x, y, z);
+            }
+
+            if (phase != RunPhase.Idle && phase != RunPhase.Stopped)
+            {
+                if (phase == RunPhase.Staged && sampleMicros - stillSinceMicros >= settings.StageHoldMicros)
+                {
+                    // Still for longer: refine the resting vector with the longer window.
+                    SetRestFromWindow();
+                }
+
+                return;
+            }
+
+            if (sampleMicros - stillSinceMicros >= settings.StageHoldMicros && lastPulseChangeMicros <= stillSinceMicros)
+            {
+                SetRestFromWindow();
+                EnterStaged(stillSinceMicros);
+            }
+        }
+
+        private bool WidensPastBand(short x, short y, short z)
+        {
+            int band = settings.StillBandMilliG;
+            return Spread(minX, maxX, x) > band || Spread(minY, maxY, y) > band || Spread(minZ, maxZ, z) > band;
+        }
+
+        private static int Spread(int min, int max, int value)
+        {
+            if (value < min)
+            {
+                return max - value;
+            }
+
+            return value > max ? value - min : max - min;
+        }
+
+        private void StartStillWindow(short x, short y, short z, long sampleMicros)
+        {
+            stillOpen = true;
+            stillSinceMicros = sampleMicros;
+            minX = maxX = x;
+            minY = maxY = y;
+            minZ = maxZ = z;
+            sumX = x;
+            sumY = y;
+            sumZ = z;
+            stillSamples = 1;
+        }
+
+        private void Widen(short x, short y, short z)
+        {
+            if (x < minX) minX = x;
+            if (x > maxX) maxX = x;
+            if (y < minY) minY = y;
+            if (y > maxY) maxY = y;
+            if (z < minZ) minZ = z;
+            if (z > maxZ) maxZ = z;
+            sumX += x;
+            sumY += y;
+            sumZ += z;
+            stillSamples++;
+        }
+
+        private void SetRestFromWindow()
+        {
+            restX = (int)DivideRounded(sumX, stillSamples);
+            restY = (int)DivideRounded(sumY, stillSamples);
+            restZ = (int)DivideRounded(sumZ, stillSamples);
+            restSamples = stillSamples;
+        }
+
+        private static long DivideRounded(long sum, int count)
+        {
+            return sum >= 0 ? (sum + (count / 2)) / count : -((-sum + (count / 2)) / count);
+        }
+
+        private void EnterStaged(long sinceMicros)
+        {
+            phase = RunPhase.Staged;
+            stagedSinceMicros = sinceMicros;
+            idleRolling = false;
+            onsetFill = 0;
+            onsetPos = 0;
+            onsetSum = 0;
+        }
+
+        private void OnOnsetSample(short forwardRaw, long sampleMicros, long readMicros)
+        {
+            int rest = settings.ForwardAxis == 0 ? restX : settings.ForwardAxis == 1 ? restY : restZ;
+            int deviation = forwardRaw - rest;
+            if (settings.ForwardAxisReversed)
+            {
+                deviation = -deviation;
+            }
+
+            int n = onsetWindow.Length;
+            if (onsetFill == n)
+            {
+                onsetSum -= onsetWindow[onsetPos];
+            }
+            else
+            {
+                onsetFill++;
+            }
+
+            onsetWindow[onsetPos] = deviation;
+            onsetSum += deviation;
+            onsetPos = (onsetPos + 1) % n;
+            if (onsetFill == n && onsetSum >= (long)settings.MotionThresholdMilliG * n)
+            {
+                // The window's first sample is the firmware's estimate of onset.
+                long onsetMicros = sampleMicros - ((n - 1) * samplePeriodNanos / 1000);
+                OpenRun(true, MotionCause.AccelOnset, onsetMicros, readMicros);
+            }
+        }
+
+        private void OpenRun(bool staged, MotionCause cause, long firstMotionMicros, long openedMicros)
+        {
+            RunNumber++;
+            runOpen = true;
+            runStaged = staged;
+            rolloutReached = false;
+            phase = RunPhase.Moving;
+            runOpenedMicros = openedMicros;
+            motionMicros = firstMotionMicros;
+            rolloutMicros = 0;
+            lastPulseHiMicros = openedMicros;
+            prevRelCount = 0;
+            prevMidMicros = firstMotionMicros;
+            observationsWritten = 0;
+            accelSamplesWritten = 0;
+            framesAtRunStart = writer.FramesWritten;
+            nextHealthMicros = openedMicros + settings.HealthIntervalMicros;
+            idleRolling = false;
+            stillOpen = false;
+            for (int c = 0; c < lastCount.Length; c++)
+            {
+                originCount[c] = lastCount[c];
+                batches[c].Reset();
+            }
+
+            WriteConfiguration();
+            if (staged && settings.AccelPresent)
+            {
+                WriteEvent(EventKind.Staged, stagedSinceMicros);
+                writer.PutSignedVarint(restX);
+                writer.PutSignedVarint(restY);
+                writer.PutSignedVarint(restZ);
+                writer.PutVarint(restSamples);
+                writer.End();
+            }
+            else if (staged)
+            {
+                WriteEvent(EventKind.Staged, stagedSinceMicros);
+                writer.PutSignedVarint(0);
+                writer.PutSignedVarint(0);
+                writer.PutSignedVarint(0);
+                writer.PutVarint(0);
+                writer.End();
+            }
+
+            if (ring != null)
+            {
+                accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame);
+            }
+
+            WriteEvent(EventKind.Motion, firstMotionMicros);
+            writer.PutByte((byte)cause);
+            writer.End();
+            if (brakeApplied)
+            {
+                WriteEvent(EventKind.BrakeOn, openedMicros);
+                writer.End();
+            }
+        }
+
+        private void CloseRun(long nowMicros, bool byStop)
+        {
+            for (int c = 0; c < batches.Length; c++)
+            {
+                batches[c].Flush(writer);
+            }
+
+            if (byStop)
+            {
+                WriteEvent(EventKind.Stopped, lastPulseHiMicros);
+                writer.End();
+            }
+
+            WriteHealth(nowMicros);
+            writer.Begin(FrameType.Summary);
+            writer.PutVarint(RunNumber);
+            writer.PutVarint(runOpenedMicros);
+            writer.PutVarint(motionMicros);
+            writer.PutVarint(rolloutReached ? rolloutMicros : 0);
+            writer.PutVarint(byStop ? lastPulseHiMicros : 0);
+            writer.PutVarint(lastCount[0] - originCount[0]);
+            writer.PutVarint(lastCount.Length > 1 ? lastCount[1] - originCount[1] : 0);
+            writer.PutVarint(observationsWritten);
+            writer.PutVarint(accelSamplesWritten);
+            writer.PutVarint(writer.FramesWritten - framesAtRunStart + 1);
+            byte flags = 0;
+            if (runStaged) flags |= LogFormat.SummaryFlagStaged;
+            if (rolloutReached) flags |= LogFormat.SummaryFlagRolloutReached;
+            if (byStop) flags |= LogFormat.SummaryFlagClosedByStop;
+            writer.PutByte(flags);
+            writer.End();
+            runOpen = false;
+            phase = RunPhase.Stopped;
+            stillOpen = false;
+            lastPulseChangeMicros = byStop ? lastPulseHiMicros : nowMicros;
+        }
+
+        private void AddToBatch(int channel, PulseObservation observation)
+        {
+            PulseBatch batch = batches[channel];
+            batch.Add(observation.Count - originCount[channel], observation.LoMicros, observation.HiMicros);
+            observationsWritten++;
+            if (channel == 0 && observation.HiMicros > lastPulseHiMicros)
+            {
+                lastPulseHiMicros = observation.HiMicros;
+            }
+
+            if (batch.IsFull)
+            {
+                batch.Flush(writer);
+            }
+        }
+
+        private void WriteAccel(short[] xyzMilliG, int start, int count, long firstIndex, long readMicros)
+        {
+            int done = 0;
+            while (done < count)
+            {
+                int n = count - done;
+                if (n > MaxSamplesPerAccelFrame)
+                {
+                    n = MaxSamplesPerAccelFrame;
+                }
+
+                writer.Begin(FrameType.Acceleration);
+                writer.PutVarint(readMicros);
+                writer.PutVarint(firstIndex + done);
+                writer.PutVarint(n);
+                int at = (start + done) * 3;
+                int end = at + (n * 3);
+                for (int i = at; i < end; i++)
+                {
+                    writer.PutInt16(xyzMilliG[i]);
+                }
+
+                writer.End();
+                done += n;
+            }
+
+            accelSamplesWritten += count;
+        }
+
+        private void WriteEvent(EventKind kind, long timeMicros)
+        {
+            writer.Begin(FrameType.Event);
+            writer.PutByte((byte)kind);
+            writer.PutVarint(timeMicros < 0 ? 0 : timeMicros);
+        }
+
+        private void WriteHealth(long nowMicros)
+        {
+            writer.Begin(FrameType.Health);
+            writer.PutVarint(nowMicros);
+            writer.PutVarint(LogFormat.HealthCounterCount);
+            for (int i = 0; i < LogFormat.HealthCounterCount; i++)
+            {
+                writer.PutVarint(health.Get(i));
+            }
+
+            writer.End();
+        }
+
+        private void WriteConfiguration()
+        {
+            writer.Begin(FrameType.Configuration);
+            writer.PutByte(LogFormat.Version);
+            writer.PutByte(FirmwareVersion.Major);
+            writer.PutByte(FirmwareVersion.Minor);
+            writer.PutByte(FirmwareVersion.Patch);
+            writer.PutVarint(RunNumber);
+            writer.PutVarint(runOpenedMicros);
+            writer.PutVarint(originCount[0] < 0 ? 0 : originCount[0]);
+            byte flags = 0;
+            if (settings.AccelPresent) flags |= LogFormat.ConfigFlagAccelerometer;
+            if (settings.SecondChannelEnabled) flags |= LogFormat.ConfigFlagSecondChannel;
+            if (runStaged) flags |= LogFormat.ConfigFlagStaged;
+            writer.PutByte(flags);
+            writer.PutVarint(settings.PulsesPerRevolution);
+            writer.PutVarint(settings.CircumferenceMicrometres);
+            if (settings.SecondChannelEnabled)
+            {
+                writer.PutVarint(settings.SecondPulsesPerRevolution);
+                writer.PutVarint(settings.SecondCircumferenceMicrometres);
+            }
+
+            writer.PutVarint(settings.RolloutMicrometres);
+            writer.PutVarint(settings.AccelPresent ? settings.AccelOutputDataRateMilliHz : 0);
+            writer.PutVarint(settings.AccelPresent ? settings.AccelFullScaleMilliG : 0);
+            writer.PutByte((byte)settings.ForwardAxis);
+            writer.PutByte(settings.ForwardAxisReversed ? (byte)1 : (byte)0);
+            writer.PutVarint(settings.AccelPresent ? settings.PreTriggerSamples : 0);
+            writer.PutVarint(settings.StageHoldMicros);
+            writer.PutVarint(settings.StillBandMilliG);
+            writer.PutVarint(settings.MotionThresholdMilliG);
+            writer.PutVarint(settings.MotionConfirmSamples);
+            writer.PutVarint(settings.StopHoldMicros);
+            writer.PutVarint(settings.BracketLimitMicros);
+            writer.End();
+        }
+    }
+}
