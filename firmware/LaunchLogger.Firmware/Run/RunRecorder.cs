@@ -528,10 +528,21 @@ namespace LaunchLogger.Firmware.Run
             onsetWindow[onsetPos] = deviation;
             onsetSum += deviation;
             onsetPos = (onsetPos + 1) % n;
-            if (onsetFill == n && onsetSum >= (long)settings.MotionThresholdMilliG * n)
+            int threshold = settings.MotionThresholdMilliG;
+            if (onsetFill == n && onsetSum >= (long)threshold * n)
             {
-                // The window's first sample is the firmware's estimate of onset.
-                long onsetMicros = sampleMicros - ((n - 1) * samplePeriodNanos / 1000);
+                // Onset estimate: the oldest sample in the window that alone passes the threshold.
+                int first = n - 1;
+                for (int k = 0; k < n; k++)
+                {
+                    if (onsetWindow[(onsetPos + k) % n] >= threshold)
+                    {
+                        first = k;
+                        break;
+                    }
+                }
+
+                long onsetMicros = sampleMicros - ((n - 1 - first) * samplePeriodNanos / 1000);
                 OpenRun(true, MotionCause.AccelOnset, onsetMicros, readMicros);
             }
         }

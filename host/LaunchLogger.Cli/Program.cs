@@ -1,0 +1,15 @@
+using System.CommandLine;
+using LaunchLogger.Cli;
+using LaunchLogger.Cli.Verbs;
+
+// Composes the verbs; each lives in Verbs/ with its own factory and handler.
+SafetyNotice.ShowOnFirstRun(Console.Error);
+var root = new RootCommand(
+    "LaunchLogger: decode a launch logger's runs and report acceleration and braking figures " +
+    "both from true standstill and after the 1-ft rollout, each with its uncertainty.")
+{
+    SafetyCommand.Create(),
+    SelfCheckCommand.Create(),
+    BenchCommand.Create(),
+};
+return await root.Parse(args).InvokeAsync(new InvocationConfiguration { Output = Console.Out, Error = Console.Error });

@@ -1,0 +1,10 @@
+using LaunchLogger.Firmware.Wire;
+
+namespace LaunchLogger.Decoding.Runs;
+
+/// <summary>An event frame of the log, on the input's time axis.</summary>
+/// <param name="Kind">What happened.</param>
+/// <param name="TimeS">When, seconds.</param>
+/// <param name="Values">The kind's extra fields in log order (LOG-FORMAT.md, frame 0x04):
+/// Staged: rest x, y, z (milli-g), samples; Motion: cause; Rollout: speed (mm/s); AccelGap: lost samples.</param>
+public sealed record RunEvent(EventKind Kind, double TimeS, long[] Values);
