@@ -1,0 +1,51 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>Distance, speed and acceleration of the car along its path, sampled on a time grid,
+/// with 1-σ uncertainties. The hand-over from reconstruction (or from the simulator's truth) to
+/// the figures: every figure is computed from one of these by the same code.</summary>
+/// <remarks>Times ascend and are on the input's own axis. Distance is measured from the car's
+/// standstill position (0 at first motion). All arrays have the same length.</remarks>
+public sealed class Trajectory
+{
+    /// <summary>Sample times, seconds, ascending.</summary>
+    public required double[] TimeS { get; init; }
+
+    /// <summary>Distance from the standstill position, metres.</summary>
+    public required double[] DistanceM { get; init; }
+
+    /// <summary>Speed, m/s.</summary>
+    public required double[] SpeedMps { get; init; }
+
+    /// <summary>Longitudinal acceleration (not specific force: gravity and tilt removed), m/s².</summary>
+    public required double[] AccelMps2 { get; init; }
+
+    /// <summary>1-σ of <see cref="DistanceM"/>, metres; null when exact (truth).</summary>
+    public double[]? DistanceSigmaM { get; init; }
+
+    /// <summary>1-σ of <see cref="SpeedMps"/>, m/s; null when exact (truth).</summary>
+    public double[]? SpeedSigmaMps { get; init; }
+
+    /// <summary>Number of samples.</summary>
+    public int Count => TimeS.Length;
+
+    /// <summary>Checks the arrays agree in length and the times ascend.</summary>
+    /// <exception cref="ArgumentException">They do not.</exception>
+    public void Validate()
+    {
+        int n = TimeS.Length;
+        if (DistanceM.Length != n || SpeedMps.Length != n || AccelMps2.Length != n
+            || (DistanceSigmaM != null && DistanceSigmaM.Length != n)
+            || (SpeedSigmaMps != null && SpeedSigmaMps.Length != n))
+        {
+            throw new ArgumentException("trajectory arrays differ in length");
+        }
+
+        for (int i = 1; i < n; i++)
+        {
+            if (!(TimeS[i] > TimeS[i - 1]))
+            {
+                throw new ArgumentException($"trajectory times do not ascend at sample {i}");
+            }
+        }
+    }
+}
