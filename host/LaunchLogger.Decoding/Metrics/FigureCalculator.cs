@@ -1,0 +1,197 @@
+using LaunchLogger.Decoding.Reconstruction;
+
+namespace LaunchLogger.Decoding.Metrics;
+
+/// <summary>Computes every acceleration figure from a trajectory. The same code serves the
+/// decoder (on reconstructed trajectories), the naive method and the simulator's truth, so the
+/// three can be compared figure by figure.</summary>
+/// <remarks>
+/// Crossing times are found by linear interpolation between trajectory samples, at the first
+/// crossing after first motion. Conventions: "from standstill" times standing intervals and
+/// distance marks from first motion; "from rollout" times them from the moment the car has moved
+/// <see cref="FigureSet.RolloutDistanceM"/> (one foot by default), as a drag strip's clock does.
+/// Distances are always measured from the standstill position.
+/// Uncertainties: a crossing's 1-σ is the trajectory's σ at the crossing divided by the slope
+/// there (σ_v / a for a speed, σ_d / v for a distance), combined root-sum-square with the σ of the
+/// start time. Errors of neighbouring estimates are correlated, so this is an approximation.
+/// </remarks>
+public static class FigureCalculator
+{
+    private const double MinimumSlope = 1e-3;
+
+    /// <summary>Computes the figures.</summary>
+    /// <param name="trajectory">Distance 0 at first motion; times on the input's axis.</param>
+    /// <param name="firstMotionS">First motion, s, with its σ.</param>
+    /// <param name="rolloutDistanceM">The rollout distance, m (0.3048 by default).</param>
+    /// <param name="request">Which figures; <see cref="FigureRequest.Standard"/> when null.</param>
+    /// <exception cref="ArgumentException">The trajectory is malformed.</exception>
+    public static FigureSet Compute(Trajectory trajectory, Estimate firstMotionS, double rolloutDistanceM = Units.RolloutM, FigureRequest? request = null)
+    {
+        ArgumentNullException.ThrowIfNull(trajectory);
+        trajectory.Validate();
+        request ??= FigureRequest.Standard;
+        int start = FirstIndexAtOrAfter(trajectory.TimeS, firstMotionS.Value);
+        Estimate? rollout = DistanceCrossing(trajectory, start, rolloutDistanceM);
+        Estimate? rolloutSpeed = rollout is { } r ? At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, r.Value) : null;
+
+        var intervals = new List<IntervalFigure>(request.SpeedIntervals.Count);
+        foreach (SpeedInterval interval in request.SpeedIntervals)
+        {
+            intervals.Add(TimeInterval(trajectory, start, firstMotionS, rollout, interval));
+        }
+
+        var marks = new List<MarkFigure>(request.DistanceMarks.Count);
+        foreach (DistanceMark mark in request.DistanceMarks)
+        {
+            marks.Add(TimeMark(trajectory, start, firstMotionS, rollout, mark));
+        }
+
+        double peak = 0;
+        double maxSpeed = 0;
+        for (int i = start; i < trajectory.Count; i++)
+        {
+            peak = Math.Max(peak, trajectory.AccelMps2[i]);
+            maxSpeed = Math.Max(maxSpeed, trajectory.SpeedMps[i]);
+        }
+
+        double? zeroTo60 = TimeInterval(trajectory, start, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS;
+        return new FigureSet
+        {
+            FirstMotionS = firstMotionS,
+            RolloutTimeS = rollout,
+            RolloutSpeedMps = rolloutSpeed,
+            RolloutDistanceM = rolloutDistanceM,
+            SpeedIntervals = intervals,
+            DistanceMarks = marks,
+            PeakAccelMps2 = peak,
+            MeanAccel0To60Mps2 = zeroTo60 is > 0 ? 60 * Units.MpsPerMph / zeroTo60.Value : null,
+            MaxSpeedMps = maxSpeed,
+            DistanceM = trajectory.Count > 0 ? trajectory.DistanceM[^1] : 0,
+        };
+    }
+
+    /// <summary>The first time after sample <paramref name="start"/> at which the speed reaches
+    /// <paramref name="speedMps"/>, with its σ; null when it never does.</summary>
+    public static Estimate? SpeedCrossing(Trajectory trajectory, int start, double speedMps) =>
+        Crossing(trajectory, start, trajectory.SpeedMps, trajectory.SpeedSigmaMps, trajectory.AccelMps2, speedMps);
+
+    /// <summary>The first time after sample <paramref name="start"/> at which the distance
+    /// reaches <paramref name="distanceM"/>, with its σ; null when it never does.</summary>
+    public static Estimate? DistanceCrossing(Trajectory trajectory, int start, double distanceM) =>
+        Crossing(trajectory, start, trajectory.DistanceM, trajectory.DistanceSigmaM, trajectory.SpeedMps, distanceM);
+
+    /// <summary>Index of the first sample at or after <paramref name="timeS"/> (the last sample
+    /// when none is).</summary>
+    public static int FirstIndexAtOrAfter(double[] timeS, double t)
+    {
+        int i = Array.BinarySearch(timeS, t);
+        if (i < 0)
+        {
+            i = ~i;
+        }
+
+        return Math.Min(i, Math.Max(0, timeS.Length - 1));
+    }
+
+    private static IntervalFigure TimeInterval(Trajectory trajectory, int start, Estimate firstMotion, Estimate? rollout, SpeedInterval interval)
+    {
+        Estimate? end = SpeedCrossing(trajectory, start, interval.ToMps);
+        if (end is not { } e)
+        {
+            return new IntervalFigure(interval, null, null, null, null);
+        }
+
+        if (!interval.IsStanding)
+        {
+            Estimate? begin = SpeedCrossing(trajectory, start, interval.FromMps);
+            if (begin is not { } b)
+            {
+                return new IntervalFigure(interval, null, null, null, null);
+            }
+
+            double duration = e.Value - b.Value;
+            double sigma = Hypot(e.Sigma, b.Sigma);
+            return new IntervalFigure(interval, duration, duration, sigma, sigma);
+        }
+
+        double fromStandstill = e.Value - firstMotion.Value;
+        double? fromRollout = rollout is { } r ? e.Value - r.Value : null;
+        double? rolloutSigma = rollout is { } r2 ? Hypot(e.Sigma, r2.Sigma) : null;
+        return new IntervalFigure(interval, fromStandstill, fromRollout, Hypot(e.Sigma, firstMotion.Sigma), rolloutSigma);
+    }
+
+    private static MarkFigure TimeMark(Trajectory trajectory, int start, Estimate firstMotion, Estimate? rollout, DistanceMark mark)
+    {
+        Estimate? at = DistanceCrossing(trajectory, start, mark.DistanceM);
+        if (at is not { } a)
+        {
+            return new MarkFigure(mark, null, null, null, null, null, null, null);
+        }
+
+        Estimate speed = At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, a.Value);
+        double? trap = null;
+        double? trapSigma = null;
+        if (mark.TrapLengthM is { } length && DistanceCrossing(trajectory, start, mark.DistanceM - length) is { } trapStart && a.Value > trapStart.Value)
+        {
+            trap = length / (a.Value - trapStart.Value);
+            Estimate speedAtStart = At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, trapStart.Value);
+
+            // The trap speed is the mean speed over the trap; its error follows the speed errors
+            // at both ends, which a smoother makes strongly correlated: take their mean.
+            trapSigma = 0.5 * (speed.Sigma + speedAtStart.Sigma);
+        }
+
+        return new MarkFigure(
+            mark,
+            a.Value - firstMotion.Value,
+            rollout is { } r ? a.Value - r.Value : null,
+            Hypot(a.Sigma, firstMotion.Sigma),
+            rollout is { } r2 ? Hypot(a.Sigma, r2.Sigma) : null,
+            speed.Value,
+            trap,
+            trapSigma);
+    }
+
+    private static Estimate? Crossing(Trajectory trajectory, int start, double[] values, double[]? sigmas, double[] slopes, double target)
+    {
+        double[] t = trajectory.TimeS;
+        for (int i = Math.Max(start, 1); i < values.Length; i++)
+        {
+            if (values[i] < target)
+            {
+                continue;
+            }
+
+            if (values[i - 1] >= target || i == start)
+            {
+                // Already at or past the target at the first sample considered.
+                return new Estimate(t[i], sigmas is null ? 0 : sigmas[i] / Math.Max(Math.Abs(slopes[i]), MinimumSlope));
+            }
+
+            double f = (target - values[i - 1]) / (values[i] - values[i - 1]);
+            double time = t[i - 1] + (f * (t[i] - t[i - 1]));
+            double slope = slopes[i - 1] + (f * (slopes[i] - slopes[i - 1]));
+            double sigma = sigmas is null ? 0 : (sigmas[i - 1] + (f * (sigmas[i] - sigmas[i - 1]))) / Math.Max(Math.Abs(slope), MinimumSlope);
+            return new Estimate(time, sigma);
+        }
+
+        return null;
+    }
+
+    private static Estimate At(Trajectory trajectory, double[] values, double[]? sigmas, double time)
+    {
+        double[] t = trajectory.TimeS;
+        int i = FirstIndexAtOrAfter(t, time);
+        if (i == 0 || t[i] <= time)
+        {
+            return new Estimate(values[i], sigmas?[i] ?? 0);
+        }
+
+        double f = (time - t[i - 1]) / (t[i] - t[i - 1]);
+        double value = values[i - 1] + (f * (values[i] - values[i - 1]));
+        double sigma = sigmas is null ? 0 : sigmas[i - 1] + (f * (sigmas[i] - sigmas[i - 1]));
+        return new Estimate(value, sigma);
+    }
+
+    private static double Hypot(double a, double b) => Math.Sqrt((a * a) + (b * b));
+}
