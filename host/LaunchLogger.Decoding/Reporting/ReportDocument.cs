@@ -1,0 +1,157 @@
+using System.Text.Json.Serialization;
+
+namespace LaunchLogger.Decoding.Reporting;
+
+// The stable JSON document `launchlogger report --json` writes. Documented in
+// host/LaunchLogger.Decoding/Reporting/REPORT-JSON.md; names are snake_case, units SI (s, m, m/s,
+// m/s²). Add fields freely; never rename or remove one without raising Version.
+
+/// <summary>The whole report: one entry per run.</summary>
+public sealed record ReportDocument
+{
+    /// <summary>Identifies the document kind.</summary>
+    public string Format { get; init; } = "launchlogger-report";
+
+    /// <summary>Document version; raised when a field changes meaning or goes away.</summary>
+    public int Version { get; init; } = 1;
+
+    /// <summary>The tool version that wrote it.</summary>
+    public required string ToolVersion { get; init; }
+
+    /// <summary>The input(s) read.</summary>
+    public required string Source { get; init; }
+
+    /// <summary>Reader statistics for log inputs (null for plain-text inputs).</summary>
+    public ReaderReport? Reader { get; init; }
+
+    /// <summary>Runs in input order.</summary>
+    public required IReadOnlyList<RunReport> Runs { get; init; }
+}
+
+/// <summary>What the frame reader met.</summary>
+public sealed record ReaderReport(long Bytes, long Frames, long CrcErrors, long BytesSkipped, long FramesLost, long UnknownFrames);
+
+/// <summary>One run's figures under both conventions.</summary>
+public sealed record RunReport
+{
+    /// <summary>Run number (1-based, as the box numbered it).</summary>
+    public required int Run { get; init; }
+
+    /// <summary>How the motion was reconstructed: "pulses and accelerometer", "pulses only", "accelerometer only".</summary>
+    public required string Method { get; init; }
+
+    /// <summary>True when the run opened from standstill after staging.</summary>
+    public required bool Staged { get; init; }
+
+    /// <summary>First motion on the input's own time axis, s.</summary>
+    public required double FirstMotionS { get; init; }
+
+    /// <summary>1-σ of <see cref="FirstMotionS"/>, s.</summary>
+    public required double FirstMotionUncertaintyS { get; init; }
+
+    /// <summary>The rollout mark.</summary>
+    public required RolloutReport Rollout { get; init; }
+
+    /// <summary>Timed speed intervals.</summary>
+    public required IReadOnlyList<SpeedIntervalReport> SpeedIntervals { get; init; }
+
+    /// <summary>Timed distance marks.</summary>
+    public required IReadOnlyList<DistanceMarkReport> DistanceMarks { get; init; }
+
+    /// <summary>Highest longitudinal acceleration after first motion, m/s².</summary>
+    public required double PeakAccelMps2 { get; init; }
+
+    /// <summary>Mean acceleration 0–60 mph, m/s²; null when 60 mph was not reached.</summary>
+    public double? MeanAccel0To60Mps2 { get; init; }
+
+    /// <summary>Highest speed, m/s.</summary>
+    public required double MaxSpeedMps { get; init; }
+
+    /// <summary>Distance from standstill to the end of the run, m.</summary>
+    public required double DistanceM { get; init; }
+
+    /// <summary>Everything the reader, importer and reconstruction noticed.</summary>
+    public required IReadOnlyList<string> Warnings { get; init; }
+}
+
+/// <summary>The rollout mark: where the car has moved the rollout distance.</summary>
+public sealed record RolloutReport
+{
+    /// <summary>The rollout distance, m.</summary>
+    public required double DistanceM { get; init; }
+
+    /// <summary>When it was reached on the input's time axis, s; null when never.</summary>
+    public double? TimeS { get; init; }
+
+    /// <summary>1-σ of <see cref="TimeS"/>, s.</summary>
+    public double? TimeUncertaintyS { get; init; }
+
+    /// <summary>Time from first motion to the mark, s.</summary>
+    public double? AfterFirstMotionS { get; init; }
+
+    /// <summary>Speed at the mark, m/s.</summary>
+    public double? SpeedMps { get; init; }
+
+    /// <summary>1-σ of <see cref="SpeedMps"/>, m/s.</summary>
+    public double? SpeedUncertaintyMps { get; init; }
+
+    /// <summary>The box's own mark, s, when the log has one.</summary>
+    public double? FirmwareTimeS { get; init; }
+}
+
+/// <summary>One speed interval.</summary>
+public sealed record SpeedIntervalReport
+{
+    /// <summary>E.g. "0-60 mph".</summary>
+    public required string Label { get; init; }
+
+    /// <summary>Start speed, m/s.</summary>
+    public required double FromMps { get; init; }
+
+    /// <summary>End speed, m/s.</summary>
+    public required double ToMps { get; init; }
+
+    /// <summary>Duration timed from standstill (or from the start speed), s.</summary>
+    public double? FromStandstillS { get; init; }
+
+    /// <summary>Duration timed from the rollout mark, s (same as from standstill for rolling intervals).</summary>
+    public double? FromRolloutS { get; init; }
+
+    /// <summary>1-σ of <see cref="FromStandstillS"/>, s.</summary>
+    public double? UncertaintyS { get; init; }
+
+    /// <summary>1-σ of <see cref="FromRolloutS"/>, s.</summary>
+    public double? FromRolloutUncertaintyS { get; init; }
+}
+
+/// <summary>One distance mark.</summary>
+public sealed record DistanceMarkReport
+{
+    /// <summary>E.g. "60 ft".</summary>
+    public required string Label { get; init; }
+
+    /// <summary>Distance from the standstill position, m.</summary>
+    public required double DistanceM { get; init; }
+
+    /// <summary>Elapsed time from standstill, s.</summary>
+    public double? FromStandstillS { get; init; }
+
+    /// <summary>Elapsed time from the rollout mark, s.</summary>
+    public double? FromRolloutS { get; init; }
+
+    /// <summary>1-σ of <see cref="FromStandstillS"/>, s.</summary>
+    public double? UncertaintyS { get; init; }
+
+    /// <summary>1-σ of <see cref="FromRolloutS"/>, s.</summary>
+    public double? FromRolloutUncertaintyS { get; init; }
+
+    /// <summary>Speed at the mark, m/s.</summary>
+    public double? SpeedMps { get; init; }
+
+    /// <summary>Trap speed over the 66 ft before the mark, m/s; null where the mark has no trap.</summary>
+    [JsonIgnore(Condition = JsonIgnoreCondition.Never)]
+    public double? TrapSpeedMps { get; init; }
+
+    /// <summary>1-σ of <see cref="TrapSpeedMps"/>, m/s.</summary>
+    public double? TrapSpeedUncertaintyMps { get; init; }
+}
