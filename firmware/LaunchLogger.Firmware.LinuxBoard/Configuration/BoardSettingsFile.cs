@@ -1,0 +1,238 @@
+using System.Text.Json;
+using LaunchLogger.Firmware.LinuxBoard.GpioLineEvents;
+using LaunchLogger.Firmware.Run;
+
+namespace LaunchLogger.Firmware.LinuxBoard.Configuration;
+
+/// <summary>Reads and checks the board's JSON settings file.</summary>
+public static class BoardSettingsFile
+{
+    private static readonly JsonSerializerOptions Options = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
+        ReadCommentHandling = JsonCommentHandling.Skip,
+        AllowTrailingCommas = true,
+        UnmappedMemberHandling = System.Text.Json.Serialization.JsonUnmappedMemberHandling.Disallow,
+    };
+
+    /// <summary>Reads <paramref name="path"/> and checks every value.</summary>
+    /// <exception cref="BoardSettingsException">The file is missing, is not valid JSON, has an
+    /// unknown or missing key, or a value out of range; the message names the file, the key and
+    /// what is allowed.</exception>
+    public static BoardSettings Load(string path)
+    {
+        string text;
+        try
+        {
+            text = File.ReadAllText(path);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new BoardSettingsException(path + ": cannot read the settings file (" + e.Message + ")");
+        }
+
+        return Parse(text, path);
+    }
+
+    /// <summary>Parses settings text; <paramref name="source"/> names it in error messages.</summary>
+    /// <exception cref="BoardSettingsException">As for <see cref="Load"/>.</exception>
+    public static BoardSettings Parse(string json, string source)
+    {
+        BoardSettings? settings;
+        try
+        {
+            settings = JsonSerializer.Deserialize<BoardSettings>(json, Options);
+        }
+        catch (JsonException e)
+        {
+            string where = e.LineNumber.HasValue ? " line " + (e.LineNumber.Value + 1) : "";
+            string key = string.IsNullOrEmpty(e.Path) ? "" : " at " + e.Path;
+            throw new BoardSettingsException(source + ":" + where + key + ": " + FirstSentence(e.Message));
+        }
+
+        if (settings == null)
+        {
+            throw new BoardSettingsException(source + ": the file holds no settings object");
+        }
+
+        string? problem = Check(settings);
+        if (problem != null)
+        {
+            throw new BoardSettingsException(source + ": " + problem);
+        }
+
+        return settings;
+    }
+
+    /// <summary>The core's settings for this board, the accelerometer's true rate and range
+    /// filled in by the caller once the chip is set up.</summary>
+    public static LoggerSettings ToLoggerSettings(BoardSettings board)
+    {
+        var logger = new LoggerSettings
+        {
+            PulsesPerRevolution = board.Car.PulsesPerRevolution,
+            CircumferenceMicrometres = Micrometres(board.Car.CircumferenceMillimetres),
+            RolloutMicrometres = Micrometres(board.Car.RolloutMillimetres),
+            SecondChannelEnabled = board.Pulses.SecondLine.HasValue,
+            AccelPresent = board.Accelerometer != null,
+        };
+        if (board.Pulses.SecondLine.HasValue)
+        {
+            logger.SecondPulsesPerRevolution = board.Car.SecondPulsesPerRevolution ?? board.Car.PulsesPerRevolution;
+            logger.SecondCircumferenceMicrometres = Micrometres(board.Car.SecondCircumferenceMillimetres ?? board.Car.CircumferenceMillimetres);
+        }
+
+        if (board.Accelerometer != null)
+        {
+            logger.AccelOutputDataRateMilliHz = board.Accelerometer.RateHz * 1000;
+            logger.AccelFullScaleMilliG = board.Accelerometer.RangeG * 1000;
+            logger.ForwardAxis = AxisIndex(board.Accelerometer.ForwardAxis);
+            logger.ForwardAxisReversed = board.Accelerometer.ForwardAxisReversed;
+        }
+
+        return logger;
+    }
+
+    /// <summary>The edge selection named in the file.</summary>
+    public static EdgeSelection ParseEdges(string text)
+    {
+        return text switch
+        {
+            "rising" => EdgeSelection.Rising,
+            "falling" => EdgeSelection.Falling,
+            "both" => EdgeSelection.Both,
+            _ => throw new BoardSettingsException("pulses.edges must be \"rising\", \"falling\" or \"both\" (was \"" + text + "\")"),
+        };
+    }
+
+    /// <summary>The line bias named in the file.</summary>
+    public static LineBias ParseBias(string text)
+    {
+        return text switch
+        {
+            "as-is" => LineBias.AsIs,
+            "pull-up" => LineBias.PullUp,
+            "pull-down" => LineBias.PullDown,
+            "disabled" => LineBias.Disabled,
+            _ => throw new BoardSettingsException("pulses.bias must be \"as-is\", \"pull-up\", \"pull-down\" or \"disabled\" (was \"" + text + "\")"),
+        };
+    }
+
+    private static string? Check(BoardSettings s)
+    {
+        if (s.Car.CircumferenceMillimetres < 100 || s.Car.CircumferenceMillimetres > 10000)
+        {
+            return "car.circumferenceMillimetres must be from 100 to 10000 (was " + s.Car.CircumferenceMillimetres + ")";
+        }
+
+        if (s.Pulses.Line < 0)
+        {
+            return "pulses.line must be a line offset, 0 or more (was " + s.Pulses.Line + ")";
+        }
+
+        if (s.Pulses.SecondLine.HasValue && (s.Pulses.SecondLine.Value < 0 || s.Pulses.SecondLine.Value == s.Pulses.Line))
+        {
+            return "pulses.secondLine must be another line offset than pulses.line (was " + s.Pulses.SecondLine.Value + ")";
+        }
+
+        if (s.Pulses.KernelEventBuffer < 16 || s.Pulses.KernelEventBuffer > 65536)
+        {
+            return "pulses.kernelEventBuffer must be from 16 to 65536 (was " + s.Pulses.KernelEventBuffer + ")";
+        }
+
+        try
+        {
+            ParseEdges(s.Pulses.Edges);
+            ParseBias(s.Pulses.Bias);
+        }
+        catch (BoardSettingsException e)
+        {
+            return e.Message;
+        }
+
+        if (s.Accelerometer is { } a)
+        {
+            if (a.Chip != "lis3dh")
+            {
+                return "accelerometer.chip must be \"lis3dh\" (was \"" + a.Chip + "\")";
+            }
+
+            if (a.I2cAddress != 0x18 && a.I2cAddress != 0x19)
+            {
+                return "accelerometer.i2cAddress must be 24 (0x18) or 25 (0x19) for a LIS3DH (was " + a.I2cAddress + ")";
+            }
+
+            if (a.I2cBus < 0)
+            {
+                return "accelerometer.i2cBus must be 0 or more (was " + a.I2cBus + ")";
+            }
+
+            if (a.RateHz != 400 && a.RateHz != 1344)
+            {
+                return "accelerometer.rateHz must be 400 or 1344 for a LIS3DH (was " + a.RateHz + ")";
+            }
+
+            if (a.RangeG != 2 && a.RangeG != 4 && a.RangeG != 8 && a.RangeG != 16)
+            {
+                return "accelerometer.rangeG must be 2, 4, 8 or 16 (was " + a.RangeG + ")";
+            }
+
+            if (AxisIndex(a.ForwardAxis) < 0)
+            {
+                return "accelerometer.forwardAxis must be \"x\", \"y\" or \"z\" (was \"" + a.ForwardAxis + "\")";
+            }
+        }
+
+        if (s.Inputs is { } i && (i.DebounceMs < 0 || i.DebounceMs > 1000))
+        {
+            return "inputs.debounceMs must be from 0 to 1000 (was " + i.DebounceMs + ")";
+        }
+
+        if (string.IsNullOrWhiteSpace(s.Log.Folder))
+        {
+            return "log.folder must name a folder";
+        }
+
+        if (s.Log.FlushIntervalMs < 0 || s.Log.FsyncIntervalMs < 0)
+        {
+            return "log.flushIntervalMs and log.fsyncIntervalMs must be 0 or more";
+        }
+
+        if (s.Serial is { } serial)
+        {
+            if (string.IsNullOrWhiteSpace(serial.Port))
+            {
+                return "serial.port must name a device such as /dev/ttyGS0";
+            }
+
+            if (serial.WriteTimeoutMs < 1 || serial.WriteTimeoutMs > 10000)
+            {
+                return "serial.writeTimeoutMs must be from 1 to 10000 (was " + serial.WriteTimeoutMs + ")";
+            }
+        }
+
+        return ToLoggerSettings(s).Validate();
+    }
+
+    private static int AxisIndex(string axis)
+    {
+        return axis switch
+        {
+            "x" => 0,
+            "y" => 1,
+            "z" => 2,
+            _ => -1,
+        };
+    }
+
+    private static int Micrometres(double millimetres)
+    {
+        return (int)Math.Clamp(Math.Round(millimetres * 1000.0), int.MinValue, int.MaxValue);
+    }
+
+    private static string FirstSentence(string message)
+    {
+        int cut = message.IndexOf(" Path:", StringComparison.Ordinal);
+        return cut > 0 ? message.Substring(0, cut) : message;
+    }
+}
