@@ -48,6 +48,12 @@ namespace LaunchLogger.Firmware.Wire
             while (i < end && shift < 64)
             {
                 byte b = buffer[i++];
+                if (shift == 63 && b > 1)
+                {
+                    // The tenth group may hold only bit 63.
+                    break;
+                }
+
                 value |= (ulong)(b & 0x7F) << shift;
                 if ((b & 0x80) == 0)
                 {
