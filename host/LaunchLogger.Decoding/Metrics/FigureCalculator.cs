@@ -178,20 +178,8 @@ public static class FigureCalculator
         return null;
     }
 
-    private static Estimate At(Trajectory trajectory, double[] values, double[]? sigmas, double time)
-    {
-        double[] t = trajectory.TimeS;
-        int i = FirstIndexAtOrAfter(t, time);
-        if (i == 0 || t[i] <= time)
-        {
-            return new Estimate(values[i], sigmas?[i] ?? 0);
-        }
-
-        double f = (time - t[i - 1]) / (t[i] - t[i - 1]);
-        double value = values[i - 1] + (f * (values[i] - values[i - 1]));
-        double sigma = sigmas is null ? 0 : sigmas[i - 1] + (f * (sigmas[i] - sigmas[i - 1]));
-        return new Estimate(value, sigma);
-    }
+    private static Estimate At(Trajectory trajectory, double[] values, double[]? sigmas, double time) =>
+        new(trajectory.ValueAt(values, time), sigmas is null ? 0 : trajectory.ValueAt(sigmas, time));
 
     private static double Hypot(double a, double b) => Math.Sqrt((a * a) + (b * b));
 }

@@ -28,6 +28,32 @@ public sealed class Trajectory
     /// <summary>Number of samples.</summary>
     public int Count => TimeS.Length;
 
+    /// <summary>The value of one of this trajectory's series (or any array on its time grid) at
+    /// <paramref name="timeS"/>, interpolated linearly; held at the ends.</summary>
+    public double ValueAt(double[] series, double timeS)
+    {
+        double[] t = TimeS;
+        int i = Array.BinarySearch(t, timeS);
+        if (i >= 0)
+        {
+            return series[i];
+        }
+
+        i = ~i;
+        if (i == 0)
+        {
+            return series[0];
+        }
+
+        if (i >= t.Length)
+        {
+            return series[^1];
+        }
+
+        double f = (timeS - t[i - 1]) / (t[i] - t[i - 1]);
+        return series[i - 1] + (f * (series[i] - series[i - 1]));
+    }
+
     /// <summary>Checks the arrays agree in length and the times ascend.</summary>
     /// <exception cref="ArgumentException">They do not.</exception>
     public void Validate()

@@ -1,0 +1,226 @@
+using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Decoding.Reconstruction;
+
+namespace LaunchLogger.Decoding.Braking;
+
+/// <summary>Finds the final stop of a trajectory and measures it.</summary>
+/// <remarks>
+/// The stop is the fall from the highest speed to standstill at the end of the run. Onset is the
+/// brake switch's closing where the box had one wired (SAE J299 measures stopping distance from
+/// the first movement of the brake control; the switch closes within a few millimetres of pedal
+/// travel). Otherwise it is estimated from the deceleration: a straight line fitted to the rise
+/// of deceleration between 20 % and 80 % of its peak, extrapolated back to zero deceleration.
+/// </remarks>
+public static class BrakingAnalyzer
+{
+    /// <summary>Below this speed the car counts as standing, m/s.</summary>
+    public const double StandstillMps = 0.05;
+
+    /// <summary>A stop must lose at least this much speed to count, m/s (about 11 mph).</summary>
+    public const double MinimumStopSpeedMps = 5.0;
+
+    /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
+    public const double CorrectionTolerance = 0.10;
+
+    /// <summary>Measures the final stop, or returns null when the trajectory does not end with one.</summary>
+    /// <param name="trajectory">The run.</param>
+    /// <param name="brakeSwitchOnS">Times the brake switch closed, when wired.</param>
+    /// <param name="nominalSpeedsMps">Extra nominal speeds to correct to (60 mph and 100 km/h are always included).</param>
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<double>? brakeSwitchOnS = null, IReadOnlyList<double>? nominalSpeedsMps = null)
+    {
+        ArgumentNullException.ThrowIfNull(trajectory);
+        double[] t = trajectory.TimeS;
+        double[] v = trajectory.SpeedMps;
+        double[] a = trajectory.AccelMps2;
+        int n = trajectory.Count;
+        if (n < 3)
+        {
+            return null;
+        }
+
+        int stop = -1;
+        for (int i = n - 1; i >= 0 && v[i] <= StandstillMps; i--)
+        {
+            stop = i;
+        }
+
+        if (stop <= 0)
+        {
+            return null;
+        }
+
+        int peak = 0;
+        for (int i = 0; i < stop; i++)
+        {
+            if (v[i] > v[peak])
+            {
+                peak = i;
+            }
+        }
+
+        if (v[peak] < MinimumStopSpeedMps)
+        {
+            return null;
+        }
+
+        double standstillS = t[stop - 1] + ((t[stop] - t[stop - 1]) * (v[stop - 1] - StandstillMps) / Math.Max(v[stop - 1] - v[stop], 1e-9));
+        double peakDecel = 0;
+        for (int i = peak; i <= stop; i++)
+        {
+            peakDecel = Math.Max(peakDecel, -a[i]);
+        }
+
+        double? switchOn = brakeSwitchOnS?.Where(s => s >= t[peak] - 0.5 && s < standstillS).Select(s => (double?)s).LastOrDefault();
+        Estimate onset;
+        string onsetMethod;
+        if (switchOn is { } sw)
+        {
+            onset = new Estimate(sw, 0.001);
+            onsetMethod = "brake switch";
+        }
+        else
+        {
+            onset = DecelerationOnset(trajectory, peak, stop, peakDecel);
+            onsetMethod = "deceleration onset";
+        }
+
+        double fromMps = trajectory.ValueAt(v, onset.Value);
+        double fromDistance = trajectory.ValueAt(trajectory.DistanceM, onset.Value);
+        double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance;
+        double distanceSigma = trajectory.DistanceSigmaM is { } ds
+            ? Math.Sqrt(Math.Pow(trajectory.ValueAt(ds, onset.Value), 2) + Math.Pow(trajectory.ValueAt(ds, standstillS), 2) + Math.Pow(fromMps * onset.Sigma, 2))
+            : fromMps * onset.Sigma;
+        double meanDecel = BrakingFormulas.MeanDecelerationMps2(fromMps, stopDistance);
+
+        return new BrakingResult
+        {
+            FromMps = fromMps,
+            OnsetS = onset,
+            OnsetMethod = onsetMethod,
+            StandstillS = standstillS,
+            StoppingDistanceM = new Estimate(stopDistance, distanceSigma),
+            MeanDecelMps2 = meanDecel,
+            PeakDecelMps2 = peakDecel,
+            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop),
+            CorrectedStops = CorrectedStops(stopDistance, fromMps, nominalSpeedsMps),
+            TractionBound0To60S = BrakingFormulas.TractionBoundS(60 * Units.MpsPerMph, meanDecel),
+            TractionBound0To100KmhS = BrakingFormulas.TractionBoundS(100 * Units.MpsPerKmh, meanDecel),
+        };
+    }
+
+    private static Estimate DecelerationOnset(Trajectory trajectory, int peak, int stop, double peakDecel)
+    {
+        double[] t = trajectory.TimeS;
+        double[] a = trajectory.AccelMps2;
+
+        // The first time after the speed peak that the deceleration reaches 80 % of its peak,
+        // then back to where it was last below 20 %: the rising edge of the brake application.
+        int hi = peak;
+        while (hi < stop && -a[hi] < 0.8 * peakDecel)
+        {
+            hi++;
+        }
+
+        int lo = hi;
+        while (lo > peak && -a[lo] > 0.2 * peakDecel)
+        {
+            lo--;
+        }
+
+        if (hi - lo < 2)
+        {
+            double step = hi > 0 ? t[hi] - t[hi - 1] : 0.001;
+            return new Estimate(t[Math.Max(lo, 0)], step);
+        }
+
+        // Least-squares line through (t, decel) on the rising edge; onset where it crosses zero.
+        double st = 0, sa = 0, stt = 0, sta = 0;
+        int m = hi - lo + 1;
+        for (int i = lo; i <= hi; i++)
+        {
+            st += t[i];
+            sa += -a[i];
+            stt += t[i] * t[i];
+            sta += t[i] * -a[i];
+        }
+
+        double slope = ((m * sta) - (st * sa)) / ((m * stt) - (st * st));
+        double intercept = (sa - (slope * st)) / m;
+        if (!(slope > 0))
+        {
+            return new Estimate(t[lo], t[hi] - t[lo]);
+        }
+
+        double onsetS = -intercept / slope;
+        double residual = 0;
+        for (int i = lo; i <= hi; i++)
+        {
+            double r = -a[i] - (intercept + (slope * t[i]));
+            residual += r * r;
+        }
+
+        // σ of the zero crossing from the fit's residual scatter, plus the grid step.
+        double scatter = Math.Sqrt(residual / Math.Max(m - 2, 1));
+        double gridStep = t[lo + 1] - t[lo];
+        double sigma = Math.Sqrt(Math.Pow(scatter / slope, 2) + (gridStep * gridStep / 12));
+        return new Estimate(Math.Clamp(onsetS, t[peak], t[hi]), sigma);
+    }
+
+    private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop)
+    {
+        int start = FigureCalculator.FirstIndexAtOrAfter(trajectory.TimeS, onsetS);
+        double? tb = FallCrossing(trajectory, start, stop, 0.8 * fromMps);
+        double? te = FallCrossing(trajectory, start, stop, 0.1 * fromMps);
+        if (tb is not { } b || te is not { } e || e <= b)
+        {
+            return null;
+        }
+
+        double sb = trajectory.ValueAt(trajectory.DistanceM, b) - fromDistance;
+        double se = trajectory.ValueAt(trajectory.DistanceM, e) - fromDistance;
+        return BrakingFormulas.Mfdd(fromMps / Units.MpsPerKmh, sb, se);
+    }
+
+    private static double? FallCrossing(Trajectory trajectory, int start, int stop, double speed)
+    {
+        double[] t = trajectory.TimeS;
+        double[] v = trajectory.SpeedMps;
+        for (int i = Math.Max(start, 1); i <= stop; i++)
+        {
+            if (v[i] <= speed && v[i - 1] > speed)
+            {
+                return t[i - 1] + ((t[i] - t[i - 1]) * (v[i - 1] - speed) / (v[i - 1] - v[i]));
+            }
+        }
+
+        return null;
+    }
+
+    private static List<CorrectedStop> CorrectedStops(double distance, double fromMps, IReadOnlyList<double>? extra)
+    {
+        var nominals = new List<(string Label, double Mps)>
+        {
+            ("60-0 mph", 60 * Units.MpsPerMph),
+            ("100-0 km/h", 100 * Units.MpsPerKmh),
+        };
+        foreach (double mps in extra ?? [])
+        {
+            nominals.Add((FormattableString.Invariant($"{mps / Units.MpsPerMph:0.#}-0 mph ({mps / Units.MpsPerKmh:0.#}-0 km/h)"), mps));
+        }
+
+        var result = new List<CorrectedStop>(nominals.Count);
+        foreach ((string label, double nominal) in nominals)
+        {
+            bool close = Math.Abs(fromMps - nominal) <= CorrectionTolerance * nominal;
+            result.Add(new CorrectedStop(
+                label,
+                nominal,
+                close ? BrakingFormulas.CorrectToNominalSpeed(distance, fromMps, nominal) : null,
+                close
+                    ? "distance × (nominal ÷ actual speed at onset)², exact for constant deceleration without dead time"
+                    : FormattableString.Invariant($"not corrected: onset speed {fromMps:0.0} m/s is more than {CorrectionTolerance:P0} from {nominal:0.0} m/s")));
+        }
+
+        return result;
+    }
+}

@@ -1,0 +1,119 @@
+using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Reconstruction;
+
+namespace LaunchLogger.Decoding.Tests.Braking;
+
+public class BrakingAnalyzerTests
+{
+    private const double V100 = 100 / 3.6; // 100 km/h in m/s
+
+    [Fact]
+    public void ConstantDecelerationAfterDeadTimeFromTheBrakeSwitch()
+    {
+        // UN R13 worked check (shared REFERENCES.md): 100 km/h, 0.3 s dead time then 8 m/s² →
+        // MFDD 8.0000. Stopping distance by kinematics: v·0.3 + v²/(2·8) = 8.3333 + 48.2253 m.
+        Trajectory trajectory = Stop(V100, switchAtS: 1.0, deadTimeS: 0.3, rampS: 0, decel: 8);
+        BrakingResult result = BrakingAnalyzer.Analyze(trajectory, brakeSwitchOnS: [1.0])!;
+
+        Assert.Equal("brake switch", result.OnsetMethod);
+        Assert.Equal(V100, result.FromMps, 6);
+        Assert.Equal((V100 * 0.3) + (V100 * V100 / 16), result.StoppingDistanceM.Value, 2);
+        Assert.Equal(8.0, result.MfddMps2!.Value, 2);
+        Assert.Equal(V100 * V100 / (2 * result.StoppingDistanceM.Value), result.MeanDecelMps2, 9);
+        Assert.Equal(8.0, result.PeakDecelMps2, 6);
+    }
+
+    [Fact]
+    public void WithoutASwitchTheOnsetIsBackExtrapolatedFromTheDecelerationRise()
+    {
+        // A linear rise of deceleration from 0 at 1.3 s to 8 m/s² at 1.5 s: the fitted line
+        // crosses zero where the rise began.
+        Trajectory trajectory = Stop(V100, switchAtS: 1.0, deadTimeS: 0.3, rampS: 0.2, decel: 8);
+        BrakingResult result = BrakingAnalyzer.Analyze(trajectory)!;
+        Assert.Equal("deceleration onset", result.OnsetMethod);
+        Assert.Equal(1.3, result.OnsetS.Value, 3);
+        Assert.True(result.OnsetS.Sigma < 0.002);
+    }
+
+    [Fact]
+    public void StopsNearTheNominalSpeedAreCorrectedAndOthersAreNot()
+    {
+        // 101.5 km/h is within 10 % of 100 km/h and of 60 mph (96.56 km/h); 130 km/h is not.
+        Trajectory near = Stop(101.5 / 3.6, switchAtS: 1.0, deadTimeS: 0, rampS: 0, decel: 9);
+        BrakingResult nearResult = BrakingAnalyzer.Analyze(near, [1.0])!;
+        CorrectedStop to100 = nearResult.CorrectedStops.Single(c => c.Label == "100-0 km/h");
+        // Common practice (v_nom/v_act)² scaling.
+        Assert.Equal(nearResult.StoppingDistanceM.Value * Math.Pow(100 / 101.5, 2), to100.CorrectedDistanceM!.Value, 6);
+        Assert.Contains("(nominal ÷ actual speed at onset)²", to100.Method);
+
+        Trajectory far = Stop(130 / 3.6, switchAtS: 1.0, deadTimeS: 0, rampS: 0, decel: 9);
+        CorrectedStop farTo100 = BrakingAnalyzer.Analyze(far, [1.0])!.CorrectedStops.Single(c => c.Label == "100-0 km/h");
+        Assert.Null(farTo100.CorrectedDistanceM);
+        Assert.Contains("not corrected", farTo100.Method);
+    }
+
+    [Fact]
+    public void TractionBoundFollowsTheMeanDeceleration()
+    {
+        // Kinematics: a stop with mean deceleration a bounds 0–v at v/a.
+        Trajectory trajectory = Stop(60 * 0.44704, switchAtS: 1.0, deadTimeS: 0, rampS: 0, decel: 11.8019);
+        BrakingResult result = BrakingAnalyzer.Analyze(trajectory, [1.0])!;
+        Assert.Equal(60 * 0.44704 / result.MeanDecelMps2, result.TractionBound0To60S, 9);
+        Assert.Equal(2.2727, result.TractionBound0To60S, 3); // shared REFERENCES.md: 100 ft from 60 mph
+    }
+
+    [Fact]
+    public void ARunThatDoesNotEndStandingHasNoStop()
+    {
+        Trajectory rolling = Stop(V100, switchAtS: 1.0, deadTimeS: 0, rampS: 0, decel: 8, endEarlyS: 1.2);
+        Assert.Null(BrakingAnalyzer.Analyze(rolling, [1.0]));
+    }
+
+    /// <summary>Cruise at <paramref name="v0"/>, brake switch at <paramref name="switchAtS"/>, dead
+    /// time, a linear rise of deceleration over <paramref name="rampS"/>, then constant
+    /// deceleration to standstill and 1 s standing. Closed form per phase (kinematics, any
+    /// textbook), sampled every 0.5 ms.</summary>
+    private static Trajectory Stop(double v0, double switchAtS, double deadTimeS, double rampS, double decel, double endEarlyS = 0)
+    {
+        const double Step = 0.0005;
+        double t1 = switchAtS + deadTimeS;
+        double t2 = t1 + rampS;
+        double d1 = v0 * t1;
+        double v2 = v0 - (decel * rampS / 2);
+        double d2 = d1 + (v0 * rampS) - (decel * rampS * rampS / 6);
+        double tStop = t2 + (v2 / decel);
+        double dStop = d2 + (v2 * v2 / (2 * decel));
+        double end = endEarlyS > 0 ? switchAtS + endEarlyS : tStop + 1;
+        int n = (int)(end / Step) + 1;
+        var t = new double[n];
+        var d = new double[n];
+        var v = new double[n];
+        var a = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            double time = i * Step;
+            t[i] = time;
+            if (time < t1)
+            {
+                (d[i], v[i], a[i]) = (v0 * time, v0, 0);
+            }
+            else if (time < t2)
+            {
+                double s = time - t1;
+                double k = decel / rampS;
+                (d[i], v[i], a[i]) = (d1 + (v0 * s) - (k * s * s * s / 6), v0 - (k * s * s / 2), -k * s);
+            }
+            else if (time < tStop)
+            {
+                double s = time - t2;
+                (d[i], v[i], a[i]) = (d2 + (v2 * s) - (decel * s * s / 2), v2 - (decel * s), -decel);
+            }
+            else
+            {
+                (d[i], v[i], a[i]) = (dStop, 0, 0);
+            }
+        }
+
+        return new Trajectory { TimeS = t, DistanceM = d, SpeedMps = v, AccelMps2 = a };
+    }
+}
