@@ -34,6 +34,7 @@ public sealed class SerialByteSink : IByteSink, IDisposable
     private int head;
     private int count;
     private volatile bool stopping;
+    private bool disposed;
 
     /// <summary>Opens the port and starts the writer thread.</summary>
     /// <param name="portName">Device path, e.g. <c>/dev/ttyGS0</c> or <c>/dev/ttyAMA0</c>.</param>
@@ -92,6 +93,12 @@ public sealed class SerialByteSink : IByteSink, IDisposable
     /// stops the writer thread and closes the port.</summary>
     public void Dispose()
     {
+        if (disposed)
+        {
+            return;
+        }
+
+        disposed = true;
         stopping = true;
         dataReady.Set();
         writer.Join();

@@ -15,12 +15,13 @@ namespace LaunchLogger.Firmware.LinuxBoard.Accelerometers.Lis3dh;
 /// reads it itself through the same <see cref="I2cDevice"/>: FIFO_SRC_REG for the fill level,
 /// then six output bytes per sample (one I2C transfer per sample, the access the datasheet
 /// describes for the output registers).</para>
-/// <para>Scaling matches the binding's <see cref="Lis3Dh.Acceleration"/> exactly, so both paths
-/// give the same numbers: a left-justified 16-bit reading times full scale / 2^15, with the
-/// binding's measured divisor for ±16 g (it reads 24 g / 2^15 per count there; the datasheet's
-/// typical 12 mg/digit at ±16 g agrees within 2.5 %). Other ranges differ from the datasheet's
-/// rounded typical sensitivity (1 mg/digit at ±2 g) by 2.4 %; the host corrects gain from the
-/// resting 1 g vector in any case.</para>
+/// <para>Scaling matches the binding's <see cref="Lis3Dh.Acceleration"/>, so both paths give the
+/// same numbers: a left-justified 16-bit reading divided by counts per g = 2^15 / full scale
+/// (16384, 8192, 4096), and for ±16 g the binding's measured divisor 2^15 / 24, which its integer
+/// arithmetic truncates to 1365 (the datasheet's typical 12 mg/digit at ±16 g, i.e. 1333 counts
+/// per g, agrees within 2.5 %). The other ranges differ from the datasheet's rounded typical
+/// sensitivity (1 mg/digit at ±2 g) by 2.4 %; the host corrects gain from the resting 1 g vector
+/// in any case.</para>
 /// <para>Binding quirk to mind: <c>Lis3Dh.SecondaryI2cAddress</c> is 0x18 in 4.2.0, the same as
 /// the default; with SDO/SA0 high the chip answers at 0x19, so pass the address explicitly
 /// (<see cref="SecondaryI2cAddress"/>).</para>
@@ -51,7 +52,7 @@ public sealed class Lis3dhFifoAccelerometer : IAccelerometer, IDisposable
 
     private readonly Lis3Dh binding;
     private readonly I2cDevice device;
-    private readonly int milliGPerFullScaleCount;
+    private readonly int countsPerG;
     private readonly byte[] address = new byte[1];
     private readonly byte[] one = new byte[1];
     private readonly byte[] sample = new byte[6];
@@ -87,8 +88,8 @@ public sealed class Lis3dhFifoAccelerometer : IAccelerometer, IDisposable
             throw new IOException("no LIS3DH at I2C address 0x" + device.ConnectionSettings.DeviceAddress.ToString("X2") + ": WHO_AM_I reads 0x" + id.ToString("X2") + ", expected 0x33");
         }
 
-        // Scale per full-scale count, as the binding divides (see remarks).
-        milliGPerFullScaleCount = rangeG == 16 ? 24000 : rangeG * 1000;
+        // Counts per g, as the binding divides (see remarks).
+        countsPerG = rangeG == 16 ? 32768 / 24 : 32768 / rangeG;
         binding = Lis3Dh.Create(device, dataRate, OperatingMode.HighResolutionMode, scale);
         OutputDataRateMilliHz = rateHz * 1000;
         FullScaleMilliG = ToMilliG(LargestRaw);
@@ -111,8 +112,9 @@ public sealed class Lis3dhFifoAccelerometer : IAccelerometer, IDisposable
     /// <summary>Converts one left-justified 16-bit output to milli-g, rounded to nearest.</summary>
     public int ToMilliG(short raw)
     {
-        long scaled = (long)raw * milliGPerFullScaleCount;
-        return (int)(scaled >= 0 ? (scaled + 16384) >> 15 : -((-scaled + 16384) >> 15));
+        long scaled = (long)raw * 1000;
+        long half = countsPerG / 2;
+        return (int)(scaled >= 0 ? (scaled + half) / countsPerG : -((-scaled + half) / countsPerG));
     }
 
     /// <inheritdoc/>

@@ -1,0 +1,157 @@
+using LaunchLogger.Firmware.Capture;
+using LaunchLogger.Firmware.LinuxBoard.Accelerometers.Lis3dh;
+using LaunchLogger.Firmware.LinuxBoard.Configuration;
+using LaunchLogger.Firmware.LinuxBoard.GpioLineEvents;
+using LaunchLogger.Firmware.LinuxBoard.Sinks;
+using LaunchLogger.Firmware.LinuxBoard.Tests.Fakes;
+using LaunchLogger.Firmware.LinuxBoard.Timing;
+using LaunchLogger.Firmware.Run;
+using LaunchLogger.Firmware.Wire;
+
+namespace LaunchLogger.Firmware.LinuxBoard.Tests;
+
+/// <summary>The whole program loop on emulated hardware: kernel line-event records through the
+/// parser and tracker, an emulated LIS3DH through the real binding and FIFO reader, the real file
+/// sink; stopped as Ctrl+C would stop it, in the middle of a run.</summary>
+public sealed class BoardAppTests : IDisposable
+{
+    private const int PickupLine = 17;
+    private const double G0 = 9.80665; // m/s², standard gravity (3rd CGPM, 1901)
+    private const double AccelerationMps2 = 0.5 * G0;
+    private const long LaunchMicros = 2_000_000;
+    private const long PulsesEndMicros = 4_500_000;
+    private const long CtrlCMicros = 5_000_000;
+    private const double OdrHz = 1344;
+
+    private readonly string folder = Path.Combine(Path.GetTempPath(), "llboard-app-" + Guid.NewGuid().ToString("N"));
+
+    public void Dispose()
+    {
+        if (Directory.Exists(folder))
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void A_run_stopped_by_ctrl_c_leaves_a_log_whose_frames_all_verify()
+    {
+        BoardSettings settings = BoardSettingsFile.Parse(
+            """
+            {
+              "car": { "pulsesPerRevolution": 48, "circumferenceMillimetres": 1960 },
+              "pulses": { "line": 17 },
+              "accelerometer": { "chip": "lis3dh", "rateHz": 1344, "rangeG": 8, "forwardAxis": "x" },
+              "log": { "folder": "unused" }
+            }
+            """,
+            "test");
+        var counter = new ManualMicrosecondCounter();
+        var chip = new EmulatedLis3dh();
+        string logPath = Path.Combine(folder, "run.llog");
+        Directory.CreateDirectory(folder);
+        LineEdgeTracker? tracker = null;
+        using var stop = new CancellationTokenSource();
+        var output = new StringWriter();
+        long samplesMade = 0;
+        uint edges = 0;
+        double metresPerPulse = 1.960 / 48;
+
+        int exit = BoardApp.Run(
+            settings,
+            health =>
+            {
+                var queue = new EdgeObservationQueue(4096, health);
+                tracker = new LineEdgeTracker(new[] { PickupLine }, new MonotonicMicrosecondCounter(originMicros: 0), queue, health, requestedAtMicros: 0);
+                var hardware = new BoardHardware
+                {
+                    Counter = counter,
+                    Pulses = queue,
+                    Accelerometer = new Lis3dhFifoAccelerometer(chip, 1344, 8),
+                    AccelFifoDepth = Lis3dhFifoAccelerometer.FifoDepth,
+                    Sink = new FileByteSink(logPath),
+                };
+                hardware.Own((Lis3dhFifoAccelerometer)hardware.Accelerometer);
+                hardware.Own((FileByteSink)hardware.Sink);
+                return hardware;
+            },
+            stop.Token,
+            output,
+            betweenSteps: () =>
+            {
+                long now = counter.NowMicros + 1000;
+                counter.NowMicros = now;
+
+                // The sensor samples at its own rate: 1 g down, and 0.5 g forward once launched.
+                while ((long)((samplesMade + 1) * 1e6 / OdrHz) <= now)
+                {
+                    samplesMade++;
+                    long t = (long)(samplesMade * 1e6 / OdrHz);
+                    bool launched = t >= LaunchMicros && t < PulsesEndMicros;
+                    chip.Produce(Raw8g(launched ? 500 : 0), 0, Raw8g(1000));
+                }
+
+                // Wheel edges of constant acceleration, as kernel records read from the line fd.
+                while (true)
+                {
+                    long edgeMicros = LaunchMicros + (long)(Math.Sqrt(2 * (edges + 1) * metresPerPulse / AccelerationMps2) * 1e6);
+                    if (edgeMicros > now || edgeMicros > PulsesEndMicros)
+                    {
+                        break;
+                    }
+
+                    edges++;
+                    byte[] record = LineEventRecords.Build((ulong)((edgeMicros * 1000) - 250), GpioLineEvent.RisingEdge, PickupLine, edges, edges);
+                    tracker!.OnEvent(GpioLineEventParser.Parse(record));
+                }
+
+                if (now >= CtrlCMicros)
+                {
+                    stop.Cancel();
+                }
+            });
+
+        Assert.Equal(BoardApp.ExitOk, exit);
+        Assert.Contains("stopped after 1 run(s)", output.ToString());
+        byte[] log = File.ReadAllBytes(logPath);
+        List<LogFrames.Frame> frames = LogFrames.Decode(log);
+
+        Assert.Equal(0, LogFrames.TrailingBytes(log));
+        Assert.NotEmpty(frames);
+        Assert.All(frames, f => Assert.True(f.CrcOk));
+        Assert.Equal(Enumerable.Range(0, frames.Count), frames.Select(f => f.Sequence));
+        Assert.Single(frames, f => f.Type == FrameType.Configuration);
+        Assert.Single(frames, f => f.Type == FrameType.Summary);
+        Assert.Equal(FrameType.Configuration, frames[0].Type);
+        Assert.Equal(FrameType.Summary, frames[^1].Type);
+        Assert.Contains(frames, f => f.Type == FrameType.Pulses);
+        Assert.Contains(frames, f => f.Type == FrameType.Acceleration);
+
+        // Summary flags (LOG-FORMAT.md 0x06, last byte before the CRC): staged start, rollout
+        // reached, and not closed by a stop — Ctrl+C came while the car was still rolling.
+        byte flags = frames[^1].Payload[^5];
+        Assert.Equal(LogFormat.SummaryFlagStaged | LogFormat.SummaryFlagRolloutReached, flags);
+        Assert.Equal(0, chip.SamplesLost);
+        Assert.True(edges > 300);
+    }
+
+    [Fact]
+    public void A_device_that_cannot_be_opened_is_reported_with_its_own_message()
+    {
+        BoardSettings settings = BoardSettingsFile.Parse(
+            """{ "car": { "pulsesPerRevolution": 48, "circumferenceMillimetres": 1960 }, "pulses": { "line": 17 }, "log": { "folder": "x" } }""",
+            "test");
+        var output = new StringWriter();
+
+        int exit = BoardApp.Run(settings, _ => throw new IOException("cannot open /dev/gpiochip9: No such file or directory (errno 2)"), CancellationToken.None, output);
+
+        Assert.Equal(BoardApp.ExitHardware, exit);
+        Assert.Contains("/dev/gpiochip9", output.ToString());
+    }
+
+    private static short Raw8g(int milliG)
+    {
+        // ±8 g: 4096 counts per g, 12-bit data left-justified (low 4 bits zero).
+        return (short)((milliG * 4096 / 1000) & ~0xF);
+    }
+}

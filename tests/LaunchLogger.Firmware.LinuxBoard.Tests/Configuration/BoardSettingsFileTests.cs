@@ -1,0 +1,95 @@
+using LaunchLogger.Firmware.LinuxBoard.Configuration;
+using LaunchLogger.Firmware.Run;
+
+namespace LaunchLogger.Firmware.LinuxBoard.Tests.Configuration;
+
+public class BoardSettingsFileTests
+{
+    private const string Minimal = """
+        {
+          "car": { "pulsesPerRevolution": 48, "circumferenceMillimetres": 1960 },
+          "pulses": { "line": 17 },
+          "log": { "folder": "/tmp/ll" }
+        }
+        """;
+
+    [Fact]
+    public void The_shipped_example_file_loads()
+    {
+        string path = Path.Combine(AppContext.BaseDirectory, "launchlogger-board.example.json");
+
+        BoardSettings s = BoardSettingsFile.Load(path);
+
+        Assert.Equal(48, s.Car.PulsesPerRevolution);
+        Assert.Equal("/dev/gpiochip0", s.Pulses.Chip);
+        Assert.Equal("lis3dh", s.Accelerometer!.Chip);
+        Assert.Equal("/dev/ttyGS0", s.Serial!.Port);
+        Assert.Null(s.Pulses.SecondLine);
+    }
+
+    [Fact]
+    public void Millimetres_become_the_cores_micrometres_and_rollout_defaults_to_one_foot()
+    {
+        LoggerSettings logger = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(Minimal, "test"));
+
+        Assert.Equal(1_960_000, logger.CircumferenceMicrometres);
+        // 1 ft = 0.3048 m exactly (international yard and pound agreement, 1959).
+        Assert.Equal(304_800, logger.RolloutMicrometres);
+        Assert.False(logger.AccelPresent);
+        Assert.False(logger.SecondChannelEnabled);
+        Assert.Null(logger.Validate());
+    }
+
+    [Fact]
+    public void A_second_line_enables_the_second_channel_with_the_cars_values()
+    {
+        string json = Minimal.Replace("\"line\": 17", "\"line\": 17, \"secondLine\": 18");
+        LoggerSettings logger = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(json, "test"));
+
+        Assert.True(logger.SecondChannelEnabled);
+        Assert.Equal(48, logger.SecondPulsesPerRevolution);
+        Assert.Equal(1_960_000, logger.SecondCircumferenceMicrometres);
+    }
+
+    [Theory]
+    [InlineData("unknown key", "\"line\": 17", "\"line\": 17, \"lien\": 3", "lien")]
+    [InlineData("missing required key", "\"pulses\": { \"line\": 17 },", "", "pulses")]
+    [InlineData("circumference out of range", "1960", "19600", "car.circumferenceMillimetres")]
+    [InlineData("bad edge name", "\"line\": 17", "\"line\": 17, \"edges\": \"up\"", "pulses.edges")]
+    [InlineData("same line twice", "\"line\": 17", "\"line\": 17, \"secondLine\": 17", "pulses.secondLine")]
+    [InlineData("wrong type", "48", "\"forty-eight\"", "pulsesPerRevolution")]
+    [InlineData("core range", "48", "0", "PulsesPerRevolution")]
+    public void Problems_are_reported_with_the_key_that_has_them(string name, string find, string replace, string expectedInMessage)
+    {
+        _ = name;
+        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse(Minimal.Replace(find, replace), "settings.json"));
+        Assert.StartsWith("settings.json", e.Message);
+        Assert.Contains(expectedInMessage, e.Message, StringComparison.OrdinalIgnoreCase);
+    }
+
+    [Fact]
+    public void Broken_json_gives_the_line()
+    {
+        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse("{\n  \"car\": {\n    \"pulsesPerRevolution\": 48,,\n", "s.json"));
+        Assert.Contains("line 3", e.Message);
+    }
+
+    [Fact]
+    public void A_missing_file_is_a_settings_error()
+    {
+        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Load("/nonexistent/launchlogger.json"));
+        Assert.Contains("/nonexistent/launchlogger.json", e.Message);
+    }
+
+    [Theory]
+    [InlineData("i2cAddress", "36", "accelerometer.i2cAddress")]
+    [InlineData("rateHz", "1000", "accelerometer.rateHz")]
+    [InlineData("rangeG", "6", "accelerometer.rangeG")]
+    [InlineData("forwardAxis", "\"w\"", "accelerometer.forwardAxis")]
+    public void Accelerometer_values_are_checked(string key, string value, string expected)
+    {
+        string json = Minimal.Replace("\"log\"", "\"accelerometer\": { \"" + key + "\": " + value + " }, \"log\"");
+        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse(json, "s.json"));
+        Assert.Contains(expected, e.Message);
+    }
+}
