@@ -39,25 +39,39 @@ internal sealed partial class SocatPtyPair : IDisposable
         }
 
         var names = new List<string>();
-        while (names.Count < 2)
+        try
         {
-            string? line = process.StandardError.ReadLine();
-            if (line == null)
+            while (names.Count < 2)
             {
-                process.Dispose();
-                throw new InvalidOperationException("socat exited before opening two pseudo-terminals");
+                string? line = process.StandardError.ReadLine();
+                if (line == null)
+                {
+                    throw new InvalidOperationException("socat exited before opening two pseudo-terminals");
+                }
+
+                Match m = PtyLine().Match(line);
+                if (m.Success)
+                {
+                    names.Add(m.Groups[1].Value);
+                }
             }
 
-            Match m = PtyLine().Match(line);
-            if (m.Success)
+            // Keep draining socat's log so it never blocks on a full pipe.
+            StreamReader log = process.StandardError;
+            _ = Task.Run(() => log.ReadToEnd());
+        }
+        catch
+        {
+            // Never leave a socat behind when set-up fails.
+            if (!process.HasExited)
             {
-                names.Add(m.Groups[1].Value);
+                process.Kill(entireProcessTree: true);
             }
+
+            process.Dispose();
+            throw;
         }
 
-        // Keep draining socat's log so it never blocks on a full pipe.
-        StreamReader log = process.StandardError;
-        _ = Task.Run(() => log.ReadToEnd());
         return new SocatPtyPair(process, names[0], names[1]);
     }
 
@@ -65,7 +79,7 @@ internal sealed partial class SocatPtyPair : IDisposable
     {
         if (!process.HasExited)
         {
-            process.Kill();
+            process.Kill(entireProcessTree: true);
             process.WaitForExit();
         }
 
