@@ -537,6 +537,64 @@ public class RunRecorderTests
         Assert.All(sink.Frames.OfType<SummaryFrame>(), s => Assert.Equal(20, s.Channel0Count));
     }
 
+    [Fact]
+    public void ASecondLaunchAfterAStopIsAFreshRunWithItsOwnStagingAndPreTrigger()
+    {
+        var settings = new LoggerSettings();
+        var (recorder, sink, _) = ScriptedRun.NewRecorder(settings);
+        var profile = new MotionProfile(0, (2.5005, HalfG), (4.0, -BrakeDecel), (10.0005, HalfG));
+        var run = new ScriptedRun(recorder, settings, profile);
+        run.RunUntil(11_000_000);
+        recorder.Shutdown(11_000_000);
+
+        IReadOnlyList<Frame> frames = sink.Frames;
+        var configs = frames.OfType<ConfigurationFrame>().ToList();
+        Assert.Equal(new long[] { 1, 2 }, configs.Select(c => c.RunNumber));
+        var summaries = frames.OfType<SummaryFrame>().ToList();
+        Assert.Equal(2, summaries.Count);
+        Assert.Equal(summaries[0].Channel0Count, configs[1].OriginCount);
+
+        int secondAt = frames.IndexOf(f => f is ConfigurationFrame { RunNumber: 2 });
+        var second = frames.Skip(secondAt).ToList();
+        Assert.Equal(EventKind.Staged, Assert.IsType<EventFrame>(second[1]).Kind);
+        int motionAt = second.IndexOf(f => f is EventFrame { Kind: EventKind.Motion });
+        EventFrame motion = (EventFrame)second[motionAt];
+        Assert.Equal(MotionCause.AccelOnset, motion.Cause);
+        Assert.Equal(10_001_000, motion.TimeMicros);
+
+        // The second pre-trigger starts after the last sample written in the first run.
+        long lastOfFirstRun = frames.Take(secondAt).OfType<AccelerationFrame>().Max(a => a.FirstIndex + a.Samples.Count - 1);
+        var preTrigger = second.Skip(2).Take(motionAt - 2).Cast<AccelerationFrame>().ToList();
+        Assert.True(preTrigger[0].FirstIndex > lastOfFirstRun);
+        Assert.Equal(settings.PreTriggerSamples, preTrigger.Sum(a => a.Samples.Count));
+        Assert.Equal(second.OfType<PulsesFrame>().Sum(p => p.Observations.Count), summaries[1].ObservationsWritten);
+        Assert.Equal(run.Fed[^1].Count - configs[1].OriginCount, summaries[1].Channel0Count);
+    }
+
+    [Fact]
+    public void ABurstLargerThanOneFrameIsSplitSharingItsReadTime()
+    {
+        var settings = new LoggerSettings();
+        var (recorder, sink, _) = ScriptedRun.NewRecorder(settings);
+        var run = new ScriptedRun(recorder, settings, MotionProfile.Launch(2.5005, HalfG));
+        run.RunUntil(3_000_000);
+        int before = sink.Frames.Count;
+
+        short[] big = new short[250 * 3];
+        for (int i = 0; i < 250; i++)
+        {
+            big[i * 3] = (short)i;
+            big[(i * 3) + 2] = 1000;
+        }
+
+        recorder.OnAccelBurst(big, 250, 150_000, 3_250_000);
+        var split = sink.Frames.Skip(before).Cast<AccelerationFrame>().ToList();
+        Assert.Equal(new[] { 100, 100, 50 }, split.Select(a => a.Samples.Count));
+        Assert.Equal(new long[] { 150_000, 150_100, 150_200 }, split.Select(a => a.FirstIndex));
+        Assert.All(split, a => Assert.Equal(3_250_000, a.ReadMicros));
+        Assert.Equal(Enumerable.Range(0, 250).Select(i => (short)i), split.SelectMany(a => a.Samples).Select(x => x.X));
+    }
+
     private static PulseObservation Obs(int channel, long count, long lo, long hi) =>
         new() { Channel = channel, Count = count, LoMicros = lo, HiMicros = hi };
 }
