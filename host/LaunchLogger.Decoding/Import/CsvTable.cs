@@ -1,0 +1,179 @@
+using System.Globalization;
+using CsvHelper;
+
+namespace LaunchLogger.Decoding.Import;
+
+/// <summary>One plain-text input table: comma separated, header required, '#' comment lines and
+/// blank lines allowed, numbers in the invariant culture. Every problem becomes an
+/// <see cref="InputException"/> naming the file and line.</summary>
+/// <remarks>Tokenising is CsvHelper's (quoting, trimming, comments, byte order marks and line
+/// counting that includes comment and blank lines); cell checks are ours, so that each message can
+/// name the column and say exactly what is wrong.</remarks>
+internal sealed class CsvTable : IDisposable
+{
+    private static readonly CsvReaderOptions Options = CsvReaderOptions.Default with
+    {
+        Separator = ',',
+        HasHeader = true,
+        CommentPrefix = '#',
+        SkipEmptyLines = true,
+        TrimWhitespace = true,
+        TrackLineNumbers = true,
+        MalformedData = CsvMalformedDataHandling.Throw,
+        FormatProvider = CultureInfo.InvariantCulture,
+    };
+
+    private readonly CsvReader reader;
+
+    private CsvTable(CsvReader reader, string file, IReadOnlyList<string> columns, int headerLine)
+    {
+        this.reader = reader;
+        File = file;
+        Columns = columns;
+        HeaderLine = headerLine;
+    }
+
+    /// <summary>The file as the user named it.</summary>
+    public string File { get; }
+
+    /// <summary>The header's column names, as the file spells them.</summary>
+    public IReadOnlyList<string> Columns { get; }
+
+    /// <summary>The header's line.</summary>
+    public int HeaderLine { get; }
+
+    /// <summary>The current row's line.</summary>
+    public int Line => (int)reader.LineNumber;
+
+    /// <summary>Data rows read so far.</summary>
+    public int Rows { get; private set; }
+
+    /// <summary>Opens a table and checks its header against the accepted forms (matched ignoring
+    /// case and spaces around names).</summary>
+    /// <exception cref="InputException">No header, or not one of the accepted forms.</exception>
+    public static CsvTable Open(TextReader text, string file, params string[][] acceptedHeaders)
+    {
+        CsvReader reader = CsvReader.Create(text, Options, leaveOpen: false);
+        try
+        {
+            Wrap(file, () => reader.ReadHeader());
+            IReadOnlyList<string> header = reader.Headers;
+            string expected = string.Join(" or ", acceptedHeaders.Select(h => "'" + string.Join(',', h) + "'"));
+            if (header.Count == 0)
+            {
+                throw new InputException(file, 0, $"no header line: expected {expected}");
+            }
+
+            bool matches = acceptedHeaders.Any(h => h.Length == header.Count
+                && h.Zip(header).All(p => string.Equals(p.First, p.Second.Trim(), StringComparison.OrdinalIgnoreCase)));
+            if (!matches)
+            {
+                throw new InputException(file, (int)reader.LineNumber, $"wrong header '{string.Join(',', header)}': expected {expected}");
+            }
+
+            return new CsvTable(reader, file, header.Select(h => h.Trim().ToLowerInvariant()).ToArray(), (int)reader.LineNumber);
+        }
+        catch
+        {
+            reader.Dispose();
+            throw;
+        }
+    }
+
+    /// <summary>Moves to the next data row and checks it has one cell per column.</summary>
+    /// <exception cref="InputException">Malformed quoting or a wrong number of cells.</exception>
+    public bool Read()
+    {
+        bool more = false;
+        Wrap(File, () => more = reader.Read());
+        if (!more)
+        {
+            return false;
+        }
+
+        Rows++;
+        if (reader.FieldCount != Columns.Count)
+        {
+            throw Error($"expected {Columns.Count} cell(s) ({string.Join(',', Columns)}), found {reader.FieldCount}");
+        }
+
+        return true;
+    }
+
+    /// <summary>The cell of <paramref name="column"/> as a finite number.</summary>
+    /// <exception cref="InputException">Empty, not a number, or not finite.</exception>
+    public double Number(int column)
+    {
+        string text = Cell(column);
+        if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double value))
+        {
+            throw Error($"column '{Columns[column]}': '{text}' is not a number");
+        }
+
+        if (!double.IsFinite(value))
+        {
+            throw Error($"column '{Columns[column]}': '{text}' is not a finite number");
+        }
+
+        return value;
+    }
+
+    /// <summary>The cell of <paramref name="column"/> as a whole number.</summary>
+    /// <exception cref="InputException">Empty or not a whole number.</exception>
+    public long WholeNumber(int column)
+    {
+        string text = Cell(column);
+        if (!long.TryParse(text, NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out long value))
+        {
+            throw Error($"column '{Columns[column]}': '{text}' is not a whole number");
+        }
+
+        return value;
+    }
+
+    /// <summary>An exception for the current row.</summary>
+    public InputException Error(string detail) => new(File, Line, detail);
+
+    /// <summary>Fails unless at least <paramref name="minimum"/> data rows were read.</summary>
+    /// <exception cref="InputException">Too few rows.</exception>
+    public void RequireRows(int minimum)
+    {
+        if (Rows < minimum)
+        {
+            throw new InputException(File, HeaderLine, $"too few rows: at least {minimum} data rows are needed after the header, found {Rows}");
+        }
+    }
+
+    /// <inheritdoc/>
+    public void Dispose() => reader.Dispose();
+
+    private string Cell(int column)
+    {
+        string text = reader.GetString(column);
+        if (text.Length == 0)
+        {
+            throw Error($"column '{Columns[column]}' is empty");
+        }
+
+        return text;
+    }
+
+    private static string FirstSentence(string message)
+    {
+        int colon = message.IndexOf("): ", StringComparison.Ordinal);
+        return colon >= 0 ? message[(colon + 3)..] : message;
+    }
+
+    private static void Wrap(string file, Action action)
+    {
+        try
+        {
+            action();
+        }
+        catch (CsvFormatException e)
+        {
+            // CsvHelper counts lines as we do (comments and blank lines included); 0 = unknown.
+            throw new InputException(file, (int)Math.Max(0, e.LineNumber), "bad quoting: " + FirstSentence(e.Message), e);
+        }
+    }
+}
