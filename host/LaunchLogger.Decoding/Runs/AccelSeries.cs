@@ -27,6 +27,12 @@ public sealed class AccelSeries
     /// <summary>1-σ uncertainty of <see cref="SamplePeriodS"/>, seconds (0 when given).</summary>
     public double SamplePeriodUncertaintyS { get; init; }
 
+    /// <summary>The sensor's index of each sample (logs only; null for plain-text inputs).</summary>
+    public long[]? SampleIndex { get; init; }
+
+    /// <summary>Which sensor axes became forward, lateral and vertical (logs only).</summary>
+    public AxisMapping? Axes { get; init; }
+
     /// <summary>Number of samples.</summary>
     public int Count => TimeS.Length;
 }

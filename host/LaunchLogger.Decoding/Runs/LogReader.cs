@@ -1,0 +1,92 @@
+using System.Buffers;
+using LaunchLogger.Decoding.Import;
+using LaunchLogger.Decoding.Reading;
+using LaunchLogger.Firmware.Wire;
+
+namespace LaunchLogger.Decoding.Runs;
+
+/// <summary>Reads a whole log — bytes in memory, a stream or a file — into runs: the entry point
+/// that joins <see cref="FrameReader"/> and <see cref="RunAssembler"/>.</summary>
+/// <remarks>Damaged or cut-off input never throws: it shows in the result's counters and
+/// warnings. A stream is read in blocks and never buffered whole.</remarks>
+public static class LogReader
+{
+    private const int StreamBlockBytes = 64 * 1024;
+
+    /// <summary>Reads a log held in memory.</summary>
+    /// <param name="bytes">The whole log.</param>
+    /// <param name="sourceName">Its name, used in run sources and messages.</param>
+    /// <exception cref="ArgumentNullException"><paramref name="sourceName"/> is null.</exception>
+    public static LogReadResult Read(ReadOnlySpan<byte> bytes, string sourceName)
+    {
+        var assembler = new RunAssembler(sourceName);
+        var reader = default(FrameReader);
+        Span<byte> payload = stackalloc byte[LogFormat.MaxPayloadBytes];
+        Pump(ref reader, bytes, isFinalBlock: true, payload, assembler);
+        return assembler.Complete(reader.Stats);
+    }
+
+    /// <summary>Reads a log from a stream to its end (a file, a captured serial stream).</summary>
+    /// <param name="stream">A readable stream; it is not closed.</param>
+    /// <param name="sourceName">Its name, used in run sources and messages.</param>
+    /// <param name="cancellationToken">Stops reading between blocks.</param>
+    /// <exception cref="ArgumentNullException">An argument is null.</exception>
+    /// <exception cref="OperationCanceledException">Cancelled.</exception>
+    /// <exception cref="IOException">The stream failed.</exception>
+    public static LogReadResult Read(Stream stream, string sourceName, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        var assembler = new RunAssembler(sourceName);
+        var reader = default(FrameReader);
+        byte[] payload = new byte[LogFormat.MaxPayloadBytes];
+        byte[] block = new byte[StreamBlockBytes];
+        int filled = 0;
+        while (true)
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            int got = stream.Read(block, filled, block.Length - filled);
+            filled += got;
+            bool final = got == 0;
+            int used = Pump(ref reader, block.AsSpan(0, filled), final, payload, assembler);
+
+            // The reader leaves at most one unfinished frame (≤ MaxEncodedFrameBytes) unconsumed.
+            block.AsSpan(used, filled - used).CopyTo(block);
+            filled -= used;
+            if (final)
+            {
+                return assembler.Complete(reader.Stats);
+            }
+        }
+    }
+
+    /// <summary>Reads a log file.</summary>
+    /// <param name="path">The file.</param>
+    /// <param name="cancellationToken">Stops reading between blocks.</param>
+    /// <exception cref="InputException">The file is missing or cannot be opened.</exception>
+    /// <exception cref="OperationCanceledException">Cancelled.</exception>
+    public static LogReadResult ReadFile(string path, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        using FileStream stream = InputFiles.Open(path);
+        return Read(stream, Path.GetFileName(path), cancellationToken);
+    }
+
+    /// <summary>Reads every frame the input holds into the assembler; returns the bytes used.</summary>
+    private static int Pump(ref FrameReader reader, ReadOnlySpan<byte> input, bool isFinalBlock, Span<byte> payload, RunAssembler assembler)
+    {
+        int offset = 0;
+        while (true)
+        {
+            OperationStatus status = reader.TryReadFrame(input[offset..], payload, isFinalBlock, out int used, out Frame frame);
+            offset += used;
+            if (status == OperationStatus.Done)
+            {
+                assembler.Add(frame, reader.Stats);
+            }
+            else if (status == OperationStatus.NeedMoreData)
+            {
+                return offset;
+            }
+        }
+    }
+}
