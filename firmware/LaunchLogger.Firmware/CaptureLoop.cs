@@ -41,7 +41,8 @@ namespace LaunchLogger.Firmware
         /// <param name="markButton">The manual mark button, or null.</param>
         /// <param name="indicator">The status LED or buzzer, or null.</param>
         /// <param name="recorder">The run recorder to feed.</param>
-        /// <param name="burstCapacity">The most samples read from the FIFO at once.</param>
+        /// <param name="burstCapacity">The most samples read from the FIFO at once: at least the FIFO's
+        /// depth, so that one read drains it (the loss estimated after an overflow assumes that).</param>
         /// <param name="accelIntervalMicros">How often to read the FIFO (µs).</param>
         public CaptureLoop(
             MonotonicClock clock,
