@@ -11,5 +11,6 @@ var root = new RootCommand(
     SafetyCommand.Create(),
     SelfCheckCommand.Create(),
     BenchCommand.Create(),
+    SimulateCommand.Create(),
 };
 return await root.Parse(args).InvokeAsync(new InvocationConfiguration { Output = Console.Out, Error = Console.Error });
