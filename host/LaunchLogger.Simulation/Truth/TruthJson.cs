@@ -85,13 +85,13 @@ public static class TruthJson
         };
     }
 
-    private static object Figures(FigureSet f) => new
+    private static Dictionary<string, object?> Figures(FigureSet f) => new()
     {
-        FirstMotionS = f.FirstMotionS.Value,
-        RolloutS = f.RolloutTimeS?.Value,
-        RolloutSpeedMps = f.RolloutSpeedMps?.Value,
-        f.RolloutDistanceM,
-        SpeedIntervals = f.SpeedIntervals.Select(i => new
+        ["first_motion_s"] = f.FirstMotionS.Value,
+        ["rollout_s"] = f.RolloutTimeS?.Value,
+        ["rollout_speed_mps"] = f.RolloutSpeedMps?.Value,
+        ["rollout_distance_m"] = f.RolloutDistanceM,
+        ["speed_intervals"] = f.SpeedIntervals.Select(i => new
         {
             i.Interval.Label,
             i.Interval.FromMps,
@@ -99,7 +99,7 @@ public static class TruthJson
             i.FromStandstillS,
             i.FromRolloutS,
         }).ToArray(),
-        DistanceMarks = f.DistanceMarks.Select(m => new
+        ["distance_marks"] = f.DistanceMarks.Select(m => new
         {
             m.Mark.Label,
             m.Mark.DistanceM,
@@ -108,10 +108,10 @@ public static class TruthJson
             m.SpeedAtMarkMps,
             m.TrapSpeedMps,
         }).ToArray(),
-        f.PeakAccelMps2,
-        f.MeanAccel0To60Mps2,
-        f.MaxSpeedMps,
-        f.DistanceM,
+        ["peak_accel_mps2"] = f.PeakAccelMps2,
+        ["mean_accel_0_to_60_mph_mps2"] = f.MeanAccel0To60Mps2,
+        ["max_speed_mps"] = f.MaxSpeedMps,
+        ["distance_m"] = f.DistanceM,
     };
 
     /// <summary>Writes doubles to 0.1 µs / 0.1 µm precision: the truth is far more exact than

@@ -79,6 +79,23 @@ public sealed class AccelerometerModelTests
     }
 
     [Fact]
+    public void Body_pitch_tilts_the_reading()
+    {
+        double pitch = 0.02;
+        var model = new AccelerometerModel(Quiet, 0, new Random(1));
+        for (int i = 0; i < 1000; i++)
+        {
+            model.Advance(i * 1e-4, (i + 1) * 1e-4, 3.0, pitch, pitch);
+        }
+
+        // Rotation geometry: a body pitched nose up by φ while accelerating at a reads
+        // x = a·cos φ + g·sin φ and z = −a·sin φ + g·cos φ (specific force in body axes).
+        const double G0 = 9.80665;
+        Assert.Equal(Math.Round(((3.0 * Math.Cos(pitch)) + (G0 * Math.Sin(pitch))) / G0 * 1000), model.SamplesMilliG[0]);
+        Assert.Equal(Math.Round(((-3.0 * Math.Sin(pitch)) + (G0 * Math.Cos(pitch))) / G0 * 1000), model.SamplesMilliG[2]);
+    }
+
+    [Fact]
     public void Readings_clip_at_full_scale()
     {
         var model = new AccelerometerModel(Quiet with { FullScaleG = 2 }, 0, new Random(1));

@@ -23,6 +23,7 @@ public sealed class TruthJsonTests
         JsonElement zeroTo60 = root.GetProperty("figures").GetProperty("speed_intervals").EnumerateArray()
             .Single(i => i.GetProperty("label").GetString() == "0-60 mph");
         Assert.True(zeroTo60.GetProperty("from_standstill_s").GetDouble() > zeroTo60.GetProperty("from_rollout_s").GetDouble());
+        Assert.True(root.GetProperty("figures").GetProperty("mean_accel_0_to_60_mph_mps2").GetDouble() > 0);
 
         JsonElement series = root.GetProperty("series");
         int n = series.GetProperty("time_s").GetArrayLength();
