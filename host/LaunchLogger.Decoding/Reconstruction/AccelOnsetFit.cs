@@ -1,0 +1,395 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>Where the accelerometer says the car began to move.</summary>
+/// <param name="TimeS">Onset, seconds.</param>
+/// <param name="SigmaS">Its 1 σ, seconds.</param>
+/// <param name="Shape">The onset shape that fitted best.</param>
+/// <param name="DetectedS">When the smoothed acceleration first clearly rose, seconds.</param>
+internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS);
+
+/// <summary>Shapes of the acceleration just after first motion (τ = t − t₀ ≥ 0).</summary>
+internal enum OnsetShape
+{
+    /// <summary>c₁·τ: a linear rise (a torque ramp, a clutch taking up).</summary>
+    Ramp,
+
+    /// <summary>c₂·τ²: a smooth rise.</summary>
+    Quadratic,
+
+    /// <summary>c₁·τ + c₂·τ².</summary>
+    RampQuadratic,
+
+    /// <summary>c₀ + c₁·τ: a jump (a dropped clutch, a released brake).</summary>
+    Jump,
+}
+
+/// <summary>Finds the onset of acceleration as a change point: zero before t₀, one of the
+/// <see cref="OnsetShape"/>s after it, fitted by least squares over a window that ends where the
+/// rise has reached a quarter of its early height, with t₀ on a grid of a quarter sample. The shape is
+/// chosen by the Bayesian information criterion; the σ of t₀ is the half-width of the profile
+/// where the residual sum of squares stays within one noise variance of its minimum, widened by
+/// the spread of the shapes that fit almost as well.</summary>
+/// <remarks>Change-point estimation by least squares with a profile over the change time:
+/// D. V. Hinkley (1970), "Inference about the change-point in a sequence of random variables",
+/// Biometrika 57(1); segmented regression with a continuous join: D. J. Hudson (1966), "Fitting
+/// segmented curves whose join points have to be estimated", JASA 61; the information criterion:
+/// G. Schwarz (1978), "Estimating the dimension of a model", Ann. Statist. 6(2).</remarks>
+internal static class AccelOnsetFit
+{
+    private const int Shapes = 4;
+
+    /// <summary>Finds the onset in <paramref name="y"/> (forward acceleration minus the resting
+    /// level) between samples <paramref name="from"/> and <paramref name="to"/>.</summary>
+    /// <param name="t">Sample times.</param>
+    /// <param name="y">Acceleration above the resting level, m/s².</param>
+    /// <param name="sigma">Per-sample noise, m/s².</param>
+    /// <param name="correlation">Widening for correlated noise (1 for white).</param>
+    /// <param name="period">Sample period, s.</param>
+    /// <param name="from">First sample that may be before the onset.</param>
+    /// <param name="to">End of the search (exclusive): the onset lies before it.</param>
+    /// <param name="lastRise">True to take the last rise before <paramref name="to"/> (the pulses
+    /// say motion has begun by then); false to take the first sustained rise after <paramref name="from"/>.</param>
+    public static AccelOnset? Find(double[] t, double[] y, double sigma, double correlation, double period, int from, int to, bool lastRise)
+    {
+        int n = t.Length;
+        from = Math.Max(0, from);
+        to = Math.Min(n, to);
+        if (to - from < 8)
+        {
+            return null;
+        }
+
+        int half = Math.Max(1, (int)Math.Round(0.005 / period));
+        int width = (2 * half) + 1;
+        int limit = Math.Min(n, to + (int)Math.Round(0.5 / period));
+        int baseIndex = Math.Max(0, from - width);
+        int top = Math.Min(n, limit + width);
+        var prefix = new double[top - baseIndex + 1];
+        for (int i = baseIndex; i < top; i++)
+        {
+            prefix[i - baseIndex + 1] = prefix[i - baseIndex] + y[i];
+        }
+
+        double Smoothed(int i)
+        {
+            int a = Math.Max(baseIndex, i - half);
+            int b = Math.Min(top, i + half + 1);
+            return (prefix[b - baseIndex] - prefix[a - baseIndex]) / (b - a);
+        }
+
+        double threshold = Math.Max(4.5 * sigma * correlation / Math.Sqrt(width), 0.005);
+        int cross = lastRise ? LastRise(from, to, limit, threshold, Smoothed) : FirstSustainedRise(from, to, period, threshold, Smoothed);
+        if (cross < 0)
+        {
+            return null;
+        }
+
+        double tCross = t[cross];
+        int start = Math.Max(from, IndexAtOrAfter(t, tCross - 0.15));
+
+        // The window ends where the rise has reached a quarter of its height over the next 0.2 s,
+        // between 15 and 100 ms after the crossing: long enough to pin the shape down, short
+        // enough to stay on the rise.
+        double early = 0;
+        for (int i = cross; i < top && t[i] <= tCross + 0.2; i++)
+        {
+            early = Math.Max(early, Smoothed(i));
+        }
+
+        int end = cross;
+        while (end + 1 < top && t[end + 1] <= tCross + 0.1 && (t[end] < tCross + 0.015 || Smoothed(end) < 0.25 * early))
+        {
+            end++;
+        }
+
+        if (cross - start < 4 || end - cross < 3)
+        {
+            return null;
+        }
+
+        double total = 0;
+        for (int i = start; i <= end; i++)
+        {
+            total += y[i] * y[i];
+        }
+
+        // Coarse pass at one sample; the centred mean rises up to half its width before the
+        // onset, so the search runs that far beyond the crossing.
+        double first = t[start] + (2 * period);
+        int coarseCount = (int)((tCross + ((half + 2) * period) - first) / period) + 1;
+        if (coarseCount < 3)
+        {
+            return null;
+        }
+
+        var coarse = new double[Shapes][];
+        for (int m = 0; m < Shapes; m++)
+        {
+            coarse[m] = new double[coarseCount];
+        }
+
+        Span<double> reduction = stackalloc double[Shapes];
+        for (int c = 0; c < coarseCount; c++)
+        {
+            Reductions(t, y, start, end, first + (c * period), reduction);
+            for (int m = 0; m < Shapes; m++)
+            {
+                coarse[m][c] = total - reduction[m];
+            }
+        }
+
+        double noiseVar = sigma * sigma;
+        double logN = Math.Log(Math.Max(end - start + 1, 2));
+        Span<double> bic = stackalloc double[Shapes];
+        int bestShape = 0;
+        for (int m = 0; m < Shapes; m++)
+        {
+            int parameters = m is (int)OnsetShape.Ramp or (int)OnsetShape.Quadratic ? 2 : 3;
+            bic[m] = (coarse[m][ArgMin(coarse[m])] / noiseVar) + (parameters * logN);
+            if (bic[m] < bic[bestShape])
+            {
+                bestShape = m;
+            }
+        }
+
+        int dof = Math.Max(end - start + 1 - 3, 1);
+        double scale = Math.Max(1, coarse[bestShape][ArgMin(coarse[bestShape])] / (noiseVar * dof));
+        double rise = noiseVar * correlation * correlation * scale;
+        Fine best = Refine(t, y, start, end, total, first, period, coarse[bestShape], bestShape, rise);
+
+        // Shapes that fit almost as well widen the answer by their spread.
+        double spread = 0;
+        for (int m = 0; m < Shapes; m++)
+        {
+            if (m != bestShape && bic[m] <= bic[bestShape] + 2)
+            {
+                Fine other = Refine(t, y, start, end, total, first, period, coarse[m], m, rise);
+                spread = Math.Max(spread, Math.Abs(other.TimeS - best.TimeS));
+            }
+        }
+
+        // What lies below the noise cannot be seen: the longer the fitted onset stays under the
+        // detection level, the more the unseen part of its shape matters.
+        double hidden = 0.25 * Math.Max(0, tCross - best.TimeS);
+        double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + (0.25 * spread * spread) + (hidden * hidden) + (period * period / 192));
+        return new AccelOnset(best.TimeS, sigmaT, (OnsetShape)bestShape, tCross);
+    }
+
+    private readonly record struct Fine(double TimeS, double HalfWidthS);
+
+    /// <summary>Quarter-sample profile of one shape around its coarse minimum.</summary>
+    private static Fine Refine(double[] t, double[] y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise)
+    {
+        int coarseBest = ArgMin(coarse);
+        int lo = coarseBest;
+        while (lo > 0 && coarse[lo - 1] <= coarse[coarseBest] + (2 * rise))
+        {
+            lo--;
+        }
+
+        int hi = coarseBest;
+        while (hi < coarse.Length - 1 && coarse[hi + 1] <= coarse[coarseBest] + (2 * rise))
+        {
+            hi++;
+        }
+
+        lo = Math.Max(0, lo - 1);
+        hi = Math.Min(coarse.Length - 1, hi + 1);
+        double step = period / 4;
+        double fineFirst = first + (lo * period);
+        int candidates = ((hi - lo) * 4) + 1;
+        var sse = new double[candidates];
+        Span<double> reduction = stackalloc double[Shapes];
+        for (int c = 0; c < candidates; c++)
+        {
+            Reductions(t, y, start, end, fineFirst + (c * step), reduction);
+            sse[c] = total - reduction[shape];
+        }
+
+        int best = ArgMin(sse);
+        double limitSse = sse[best] + rise;
+        int left = best;
+        while (left > 0 && sse[left - 1] <= limitSse)
+        {
+            left--;
+        }
+
+        int right = best;
+        while (right < candidates - 1 && sse[right + 1] <= limitSse)
+        {
+            right++;
+        }
+
+        double refined = fineFirst + (best * step);
+        if (best > 0 && best < candidates - 1)
+        {
+            double a = sse[best - 1];
+            double b = sse[best];
+            double c2 = sse[best + 1];
+            double curvature = a - (2 * b) + c2;
+            if (curvature > 0)
+            {
+                refined += step * Math.Clamp(0.5 * (a - c2) / curvature, -0.5, 0.5);
+            }
+        }
+
+        return new Fine(refined, 0.5 * (right - left + 1) * step);
+    }
+
+    private static int LastRise(int from, int to, int limit, double threshold, Func<int, double> smoothed)
+    {
+        // Last quiet sample before the end, then the first clear rise after it.
+        int quiet = -1;
+        for (int i = to - 1; i >= from; i--)
+        {
+            if (smoothed(i) <= 0.5 * threshold)
+            {
+                quiet = i;
+                break;
+            }
+        }
+
+        if (quiet < 0)
+        {
+            return -1;
+        }
+
+        for (int i = quiet + 1; i < limit; i++)
+        {
+            if (smoothed(i) > threshold)
+            {
+                return i;
+            }
+        }
+
+        return -1;
+    }
+
+    private static int FirstSustainedRise(int from, int to, double period, double threshold, Func<int, double> smoothed)
+    {
+        int hold = (int)Math.Round(0.03 / period);
+        for (int i = from; i < to - hold; i++)
+        {
+            if (smoothed(i) <= threshold)
+            {
+                continue;
+            }
+
+            bool sustained = true;
+            for (int k = i + 1; k <= i + hold; k++)
+            {
+                if (smoothed(k) <= 0.5 * threshold)
+                {
+                    sustained = false;
+                    break;
+                }
+            }
+
+            if (sustained)
+            {
+                return i;
+            }
+        }
+
+        return -1;
+    }
+
+    /// <summary>Sum-of-squares reductions of each shape with the change at <paramref name="t0"/>;
+    /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit.</summary>
+    private static void Reductions(double[] t, double[] y, int start, int end, double t0, Span<double> reduction)
+    {
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, y0 = 0, y1 = 0, y2 = 0;
+        double tauEnd = 0;
+        for (int i = start; i <= end; i++)
+        {
+            double tau = t[i] - t0;
+            if (tau <= 0)
+            {
+                continue;
+            }
+
+            double tau2 = tau * tau;
+            double yi = y[i];
+            s0 += 1;
+            s1 += tau;
+            s2 += tau2;
+            s3 += tau2 * tau;
+            s4 += tau2 * tau2;
+            y0 += yi;
+            y1 += yi * tau;
+            y2 += yi * tau2;
+            tauEnd = tau;
+        }
+
+        reduction.Clear();
+        if (s0 < 3)
+        {
+            return;
+        }
+
+        reduction[(int)OnsetShape.Ramp] = y1 > 0 ? y1 * y1 / s2 : 0;
+        reduction[(int)OnsetShape.Quadratic] = y2 > 0 ? y2 * y2 / s4 : 0;
+
+        double det = (s2 * s4) - (s3 * s3);
+        if (det > 0)
+        {
+            double c1 = ((y1 * s4) - (y2 * s3)) / det;
+            double c2 = ((s2 * y2) - (s3 * y1)) / det;
+            bool valid = c1 >= 0 && c1 + (c2 * tauEnd) >= 0;
+            reduction[(int)OnsetShape.RampQuadratic] = valid
+                ? (c1 * y1) + (c2 * y2)
+                : Math.Max(reduction[(int)OnsetShape.Ramp], reduction[(int)OnsetShape.Quadratic]);
+        }
+
+        det = (s0 * s2) - (s1 * s1);
+        if (det > 0)
+        {
+            double c0 = ((y0 * s2) - (y1 * s1)) / det;
+            double c1 = ((s0 * y1) - (s1 * y0)) / det;
+            bool valid = c0 >= 0 && c0 + (c1 * tauEnd) >= 0;
+            reduction[(int)OnsetShape.Jump] = valid ? (c0 * y0) + (c1 * y1) : reduction[(int)OnsetShape.Ramp];
+        }
+    }
+
+    /// <summary>Solves [[a00, a01, a02], [a01, a11, a12], [a02, a12, a22]]·x = r by Cramer's rule.</summary>
+    internal static bool SolveSymmetric3(double a00, double a01, double a02, double a11, double a12, double a22, double r0, double r1, double r2, out double x0, out double x1, out double x2)
+    {
+        double c00 = (a11 * a22) - (a12 * a12);
+        double c01 = (a02 * a12) - (a01 * a22);
+        double c02 = (a01 * a12) - (a02 * a11);
+        double det = (a00 * c00) + (a01 * c01) + (a02 * c02);
+        if (!(Math.Abs(det) > 1e-300))
+        {
+            x0 = x1 = x2 = 0;
+            return false;
+        }
+
+        double c11 = (a00 * a22) - (a02 * a02);
+        double c12 = (a01 * a02) - (a00 * a12);
+        double c22 = (a00 * a11) - (a01 * a01);
+        x0 = ((c00 * r0) + (c01 * r1) + (c02 * r2)) / det;
+        x1 = ((c01 * r0) + (c11 * r1) + (c12 * r2)) / det;
+        x2 = ((c02 * r0) + (c12 * r1) + (c22 * r2)) / det;
+        return true;
+    }
+
+    private static int ArgMin(double[] values)
+    {
+        int best = 0;
+        for (int i = 1; i < values.Length; i++)
+        {
+            if (values[i] < values[best])
+            {
+                best = i;
+            }
+        }
+
+        return best;
+    }
+
+    private static int IndexAtOrAfter(double[] t, double value)
+    {
+        int i = Array.BinarySearch(t, value);
+        return i >= 0 ? i : ~i;
+    }
+}

@@ -1,0 +1,608 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>What the third state of <see cref="FusionSmoother"/> means.</summary>
+internal enum FusionMode
+{
+    /// <summary>The accelerometer drives the motion; the third state is its bias (m/s²).</summary>
+    Accelerometer,
+
+    /// <summary>No accelerometer: the third state is the acceleration itself, a random walk
+    /// driven by white jerk.</summary>
+    Kinematic,
+}
+
+/// <summary>Everything <see cref="FusionSmoother.Run"/> needs.</summary>
+internal sealed class FusionSettings
+{
+    public required FusionMode Mode { get; init; }
+
+    /// <summary>Grid times, ascending, seconds.</summary>
+    public required double[] GridS { get; init; }
+
+    /// <summary>Speed gained from the accelerometer input over step k → k+1, m/s (zeros in kinematic mode).</summary>
+    public required double[] StepSpeedM { get; init; }
+
+    /// <summary>Distance gained from the accelerometer input over step k → k+1 beyond v·Δt, m.</summary>
+    public required double[] StepDistanceM { get; init; }
+
+    /// <summary>True for steps the accelerometer does not cover (gaps, beyond its end).</summary>
+    public bool[]? NoInput { get; init; }
+
+    /// <summary>First motion: distance and speed are exactly 0 here.</summary>
+    public required double StartS { get; init; }
+
+    /// <summary>Input speed and distance gained from <see cref="StartS"/> to the first grid time after it.</summary>
+    public double StartSpeedM { get; init; }
+
+    public double StartDistanceM { get; init; }
+
+    /// <summary>Speed at the start, m/s, and its σ (0 from standstill).</summary>
+    public double InitialSpeedMps { get; init; }
+
+    public double InitialSpeedSigma { get; init; }
+
+    /// <summary>Third state at the start: bias or acceleration, m/s², and its σ.</summary>
+    public double ThirdMean { get; init; }
+
+    public double ThirdSigma { get; init; }
+
+    /// <summary>Pulse phase φ (count N is reached at distance N·m − φ), metres, and its σ.</summary>
+    public double PhaseMean { get; init; }
+
+    public double PhaseSigma { get; init; }
+
+    /// <summary>White acceleration noise density of the input, m²/s³.</summary>
+    public double InputDensity { get; init; }
+
+    /// <summary>Acceleration noise density where the accelerometer has no samples, m²/s³.</summary>
+    public double GapInputDensity { get; init; } = 5;
+
+    /// <summary>Random-walk density of the third state (bias wander or jerk), m²/s⁵.</summary>
+    public double ThirdDensity { get; init; }
+
+    /// <summary>From this grid index on the car is at rest (zero-velocity updates).</summary>
+    public int StopIndex { get; init; } = int.MaxValue;
+
+    public PulseChannel? Pulses { get; init; }
+
+    public double MetresPerPulse { get; init; }
+
+    public double ToothSigmaM { get; init; }
+
+    public double EdgeJitterS { get; init; }
+
+    /// <summary>Pulses inside these windows are ignored, and the phase may jump at their start.</summary>
+    public TimeWindow[] SpinWindows { get; init; } = [];
+
+    /// <summary>Variance added to the phase at the start of each spin window, m².</summary>
+    public double SpinPhaseVariance { get; init; }
+}
+
+/// <summary>The smoothed states on the grid (zeros before first motion).</summary>
+internal sealed class FusionResult
+{
+    public required double[] DistanceM { get; init; }
+
+    public required double[] SpeedMps { get; init; }
+
+    public required double[] DistanceSigmaM { get; init; }
+
+    public required double[] SpeedSigmaMps { get; init; }
+
+    /// <summary>Smoothed third state (bias or acceleration) and its σ.</summary>
+    public required double[] Third { get; init; }
+
+    public required double[] ThirdSigma { get; init; }
+
+    public required Estimate PhaseM { get; init; }
+
+    public int PulsesUsed { get; init; }
+
+    public int Outliers { get; init; }
+}
+
+/// <summary>A linear Kalman filter with a Rauch–Tung–Striebel smoother over the state
+/// [distance, speed, third, pulse phase], its 4×4 algebra written out as straight-line code so
+/// that a step allocates nothing. Distance and speed start exactly at 0 at first motion.</summary>
+/// <remarks>
+/// Filter and smoother: R. E. Kalman (1960), "A new approach to linear filtering and prediction
+/// problems"; H. E. Rauch, F. Tung, C. T. Striebel (1965), "Maximum likelihood estimates of linear
+/// dynamic systems", AIAA J. 3(8). Process noise of integrated white noise as in Bar-Shalom, Li,
+/// Kirubarajan, "Estimation with Applications to Tracking and Navigation" (2001), §6.2–6.3.
+/// A pulse observation "count N reached in (lo, hi]" becomes the measurement d(t) + φ = N·m at
+/// the bracket's midpoint, with variance v²·w²/12 for a bracket of width w (a uniform time error)
+/// plus the ring's tooth-position spread. When several counts landed in one bracket, the last
+/// edge cannot be earlier than (count rise − 1) pulse times after its start nor more than one
+/// pulse time before its end, which narrows the bracket at speed.
+/// </remarks>
+internal static class FusionSmoother
+{
+    public static FusionResult Run(FusionSettings s)
+    {
+        double[] grid = s.GridS;
+        int n = grid.Length;
+        int k0 = FirstIndexAfter(grid, s.StartS);
+        int m = Math.Max(n - k0, 0);
+        var xf = new Vec4[m];
+        var pf = new Sym4[m];
+        bool[] jump = SpinJumps(s, grid, k0);
+
+        var x = new Vec4 { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean };
+        var p = new Sym4
+        {
+            P11 = s.InitialSpeedSigma * s.InitialSpeedSigma,
+            P22 = s.ThirdSigma * s.ThirdSigma,
+            P33 = s.PhaseSigma * s.PhaseSigma,
+        };
+
+        int used = 0;
+        int outliers = 0;
+        if (m > 0)
+        {
+            Predict(s, ref x, ref p, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, jump: false);
+        }
+
+        PulseChannel? pulses = s.Pulses;
+        int ip = 0;
+        if (pulses != null)
+        {
+            while (ip < pulses.Length && pulses.MidS(ip) <= s.StartS)
+            {
+                ip++;
+            }
+        }
+
+        double mpp = s.MetresPerPulse;
+        double toothVar = s.ToothSigmaM * s.ToothSigmaM;
+        double jitterVar = s.EdgeJitterS * s.EdgeJitterS;
+        bool accelMode = s.Mode == FusionMode.Accelerometer;
+        for (int k = k0; k < n; k++)
+        {
+            double tk = grid[k];
+            double tNext = k + 1 < n ? grid[k + 1] : double.PositiveInfinity;
+            double meanInput = k + 1 < n && accelMode ? s.StepSpeedM[k] / (tNext - tk) : 0;
+            bool frozen = k >= s.StopIndex;
+            while (pulses != null && ip < pulses.Length && pulses.MidS(ip) < tNext)
+            {
+                double mid = pulses.MidS(ip);
+                if (!frozen && !InSpin(s.SpinWindows, mid))
+                {
+                    double speed = Math.Max(x.V, 0);
+                    double lo = pulses.LoS[ip];
+                    double hi = pulses.HiS[ip];
+                    if (speed > 0 && mpp > 0)
+                    {
+                        double pulseTime = mpp / speed;
+                        long rise = pulses.Increment(ip);
+                        double earliest = Math.Max(lo + ((rise - 1) * 0.8 * pulseTime), hi - (1.25 * pulseTime));
+                        lo = Math.Min(Math.Max(lo, earliest), hi);
+                    }
+
+                    double delta = (0.5 * (lo + hi)) - tk;
+                    double w = hi - lo;
+                    double z = pulses.Counts[ip] * mpp;
+                    double h2 = 0.5 * delta * delta;
+                    if (accelMode)
+                    {
+                        z -= meanInput * h2;
+                        h2 = -h2;
+                    }
+
+                    double r = toothVar + (speed * speed * ((w * w / 12) + jitterVar)) + 1e-12;
+                    Update(ref x, ref p, 1, delta, h2, 1, z, r, out _, out _, gate: used >= 6, out bool ok);
+                    if (ok)
+                    {
+                        used++;
+                    }
+                    else
+                    {
+                        outliers++;
+                    }
+                }
+
+                ip++;
+            }
+
+            if (frozen)
+            {
+                Update(ref x, ref p, 0, 1, 0, 0, 0, 1e-8, out _, out _, gate: false, out _);
+            }
+
+            xf[k - k0] = x;
+            pf[k - k0] = p;
+            if (k + 1 < n)
+            {
+                bool noInput = s.NoInput != null && s.NoInput[k];
+                Predict(s, ref x, ref p, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k]);
+            }
+        }
+
+        return Smooth(s, grid, k0, xf, pf, jump, used, outliers);
+    }
+
+    private static FusionResult Smooth(FusionSettings s, double[] grid, int k0, Vec4[] xf, Sym4[] pf, bool[] jump, int used, int outliers)
+    {
+        int n = grid.Length;
+        var d = new double[n];
+        var v = new double[n];
+        var sd = new double[n];
+        var sv = new double[n];
+        var third = new double[n];
+        var sthird = new double[n];
+        for (int k = 0; k < Math.Min(k0, n); k++)
+        {
+            third[k] = s.Mode == FusionMode.Accelerometer ? s.ThirdMean : 0;
+        }
+
+        if (k0 >= n)
+        {
+            return new FusionResult
+            {
+                DistanceM = d, SpeedMps = v, DistanceSigmaM = sd, SpeedSigmaMps = sv, Third = third, ThirdSigma = sthird,
+                PhaseM = new Estimate(s.PhaseMean, s.PhaseSigma), PulsesUsed = used, Outliers = outliers,
+            };
+        }
+
+        Vec4 xs = xf[n - 1 - k0];
+        Sym4 ps = pf[n - 1 - k0];
+        Emit(n - 1, xs, ps, d, v, sd, sv, third, sthird);
+        for (int k = n - 2; k >= k0; k--)
+        {
+            int j = k - k0;
+            bool frozen = k >= s.StopIndex;
+            bool noInput = s.NoInput != null && s.NoInput[k];
+            double dt = grid[k + 1] - grid[k];
+            Vec4 xp = xf[j];
+            Sym4 pp = pf[j];
+            Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k]);
+            Transition(s.Mode, dt, frozen, out double f01, out double f02, out double f12);
+            SmoothStep(xf[j], pf[j], xp, pp, f01, f02, f12, ref xs, ref ps);
+            Emit(k, xs, ps, d, v, sd, sv, third, sthird);
+        }
+
+        return new FusionResult
+        {
+            DistanceM = d, SpeedMps = v, DistanceSigmaM = sd, SpeedSigmaMps = sv, Third = third, ThirdSigma = sthird,
+            PhaseM = new Estimate(xs.F, Math.Sqrt(Math.Max(ps.P33, 0))), PulsesUsed = used, Outliers = outliers,
+        };
+    }
+
+    private static void Emit(int k, in Vec4 x, in Sym4 p, double[] d, double[] v, double[] sd, double[] sv, double[] third, double[] sthird)
+    {
+        d[k] = x.D;
+        v[k] = x.V;
+        third[k] = x.T;
+        sd[k] = Math.Sqrt(Math.Max(p.P00, 0));
+        sv[k] = Math.Sqrt(Math.Max(p.P11, 0));
+        sthird[k] = Math.Sqrt(Math.Max(p.P22, 0));
+    }
+
+    private static void Transition(FusionMode mode, double dt, bool frozen, out double f01, out double f02, out double f12)
+    {
+        f01 = dt;
+        if (frozen)
+        {
+            f02 = 0;
+            f12 = 0;
+        }
+        else if (mode == FusionMode.Accelerometer)
+        {
+            f02 = -0.5 * dt * dt;
+            f12 = -dt;
+        }
+        else
+        {
+            f02 = 0.5 * dt * dt;
+            f12 = dt;
+        }
+    }
+
+    /// <summary>x ← F·x + input, P ← F·P·Fᵀ + Q over one step of <paramref name="dt"/>.</summary>
+    private static void Predict(FusionSettings s, ref Vec4 x, ref Sym4 p, double dt, double inputSpeed, double inputDistance, bool frozen, bool noInput, bool jump)
+    {
+        Transition(s.Mode, dt, frozen, out double f01, out double f02, out double f12);
+        if (frozen)
+        {
+            x.D += x.V * dt;
+        }
+        else if (s.Mode == FusionMode.Accelerometer)
+        {
+            x.D += (x.V * dt) + inputDistance - (0.5 * x.T * dt * dt);
+            x.V += inputSpeed - (x.T * dt);
+        }
+        else
+        {
+            x.D += (x.V * dt) + (0.5 * x.T * dt * dt);
+            x.V += x.T * dt;
+        }
+
+        Propagate(ref p, f01, f02, f12);
+
+        // Integrated white noise: input acceleration (accelerometer mode) and the third state's
+        // random walk, with tiny floors that keep the predicted covariance invertible.
+        double dt2 = dt * dt;
+        double dt3 = dt2 * dt;
+        double q3 = s.ThirdDensity;
+        p.P00 += 1e-14;
+        p.P11 += 1e-12;
+        p.P33 += 1e-16 + (jump ? s.SpinPhaseVariance : 0);
+        if (frozen)
+        {
+            p.P22 += (q3 * dt) + 1e-16;
+            return;
+        }
+
+        if (s.Mode == FusionMode.Accelerometer)
+        {
+            double qa = noInput ? s.GapInputDensity : s.InputDensity;
+            p.P00 += qa * dt3 / 3;
+            p.P01 += qa * dt2 / 2;
+            p.P11 += qa * dt;
+        }
+
+        double sign = s.Mode == FusionMode.Accelerometer ? -1 : 1;
+        p.P00 += q3 * dt3 * dt2 / 20;
+        p.P01 += q3 * dt2 * dt2 / 8;
+        p.P02 += sign * q3 * dt3 / 6;
+        p.P11 += q3 * dt3 / 3;
+        p.P12 += sign * q3 * dt2 / 2;
+        p.P22 += (q3 * dt) + 1e-16;
+    }
+
+    /// <summary>One Rauch–Tung–Striebel step: from the smoothed state at k+1 (in <paramref name="xs"/>,
+    /// <paramref name="ps"/>) to the smoothed state at k, with gain C = Pk·Fᵀ·Pp⁻¹.</summary>
+    private static void SmoothStep(in Vec4 xk, in Sym4 pk, in Vec4 xp, in Sym4 pp, double f01, double f02, double f12, ref Vec4 xs, ref Sym4 ps)
+    {
+        double a00 = pk.P00 + (f01 * pk.P01) + (f02 * pk.P02);
+        double a10 = pk.P01 + (f12 * pk.P02);
+        double a20 = pk.P02;
+        double a30 = pk.P03;
+        double a01 = pk.P01 + (f01 * pk.P11) + (f02 * pk.P12);
+        double a11 = pk.P11 + (f12 * pk.P12);
+        double a21 = pk.P12;
+        double a31 = pk.P13;
+        double a02 = pk.P02 + (f01 * pk.P12) + (f02 * pk.P22);
+        double a12 = pk.P12 + (f12 * pk.P22);
+        double a22 = pk.P22;
+        double a32 = pk.P23;
+        double a03 = pk.P03 + (f01 * pk.P13) + (f02 * pk.P23);
+        double a13 = pk.P13 + (f12 * pk.P23);
+        double a23 = pk.P23;
+        double a33 = pk.P33;
+        // Cholesky factor of the predicted covariance, pivots floored so a nearly singular one still factors.
+        double d0 = pp.P00;
+        double l00 = Math.Sqrt(Math.Max(d0, Math.Max(1e-12 * pp.P00, 1e-300)));
+        double l10 = (pp.P01) / l00;
+        double l20 = (pp.P02) / l00;
+        double l30 = (pp.P03) / l00;
+        double d1 = pp.P11 - (l10 * l10);
+        double l11 = Math.Sqrt(Math.Max(d1, Math.Max(1e-12 * pp.P11, 1e-300)));
+        double l21 = (pp.P12 - (l20 * l10)) / l11;
+        double l31 = (pp.P13 - (l30 * l10)) / l11;
+        double d2 = pp.P22 - (l20 * l20) - (l21 * l21);
+        double l22 = Math.Sqrt(Math.Max(d2, Math.Max(1e-12 * pp.P22, 1e-300)));
+        double l32 = (pp.P23 - (l30 * l20) - (l31 * l21)) / l22;
+        double d3 = pp.P33 - (l30 * l30) - (l31 * l31) - (l32 * l32);
+        double l33 = Math.Sqrt(Math.Max(d3, Math.Max(1e-12 * pp.P33, 1e-300)));
+        double m00 = 1 / l00;
+        double m11 = 1 / l11;
+        double m22 = 1 / l22;
+        double m33 = 1 / l33;
+        double m10 = -((l10 * m00)) / l11;
+        double m21 = -((l21 * m11)) / l22;
+        double m20 = -((l20 * m00) + (l21 * m10)) / l22;
+        double m32 = -((l32 * m22)) / l33;
+        double m31 = -((l31 * m11) + (l32 * m21)) / l33;
+        double m30 = -((l30 * m00) + (l31 * m10) + (l32 * m20)) / l33;
+        double q00 = (m00 * m00) + (m10 * m10) + (m20 * m20) + (m30 * m30);
+        double q01 = (m10 * m11) + (m20 * m21) + (m30 * m31);
+        double q02 = (m20 * m22) + (m30 * m32);
+        double q03 = (m30 * m33);
+        double q11 = (m11 * m11) + (m21 * m21) + (m31 * m31);
+        double q12 = (m21 * m22) + (m31 * m32);
+        double q13 = (m31 * m33);
+        double q22 = (m22 * m22) + (m32 * m32);
+        double q23 = (m32 * m33);
+        double q33 = (m33 * m33);
+        double c00 = (a00 * q00) + (a10 * q01) + (a20 * q02) + (a30 * q03);
+        double c01 = (a00 * q01) + (a10 * q11) + (a20 * q12) + (a30 * q13);
+        double c02 = (a00 * q02) + (a10 * q12) + (a20 * q22) + (a30 * q23);
+        double c03 = (a00 * q03) + (a10 * q13) + (a20 * q23) + (a30 * q33);
+        double c10 = (a01 * q00) + (a11 * q01) + (a21 * q02) + (a31 * q03);
+        double c11 = (a01 * q01) + (a11 * q11) + (a21 * q12) + (a31 * q13);
+        double c12 = (a01 * q02) + (a11 * q12) + (a21 * q22) + (a31 * q23);
+        double c13 = (a01 * q03) + (a11 * q13) + (a21 * q23) + (a31 * q33);
+        double c20 = (a02 * q00) + (a12 * q01) + (a22 * q02) + (a32 * q03);
+        double c21 = (a02 * q01) + (a12 * q11) + (a22 * q12) + (a32 * q13);
+        double c22 = (a02 * q02) + (a12 * q12) + (a22 * q22) + (a32 * q23);
+        double c23 = (a02 * q03) + (a12 * q13) + (a22 * q23) + (a32 * q33);
+        double c30 = (a03 * q00) + (a13 * q01) + (a23 * q02) + (a33 * q03);
+        double c31 = (a03 * q01) + (a13 * q11) + (a23 * q12) + (a33 * q13);
+        double c32 = (a03 * q02) + (a13 * q12) + (a23 * q22) + (a33 * q23);
+        double c33 = (a03 * q03) + (a13 * q13) + (a23 * q23) + (a33 * q33);
+        double e0 = xs.D - xp.D;
+        double e1 = xs.V - xp.V;
+        double e2 = xs.T - xp.T;
+        double e3 = xs.F - xp.F;
+        xs.D = xk.D + (c00 * e0) + (c01 * e1) + (c02 * e2) + (c03 * e3);
+        xs.V = xk.V + (c10 * e0) + (c11 * e1) + (c12 * e2) + (c13 * e3);
+        xs.T = xk.T + (c20 * e0) + (c21 * e1) + (c22 * e2) + (c23 * e3);
+        xs.F = xk.F + (c30 * e0) + (c31 * e1) + (c32 * e2) + (c33 * e3);
+        double g00 = ps.P00 - pp.P00;
+        double g01 = ps.P01 - pp.P01;
+        double g02 = ps.P02 - pp.P02;
+        double g03 = ps.P03 - pp.P03;
+        double g11 = ps.P11 - pp.P11;
+        double g12 = ps.P12 - pp.P12;
+        double g13 = ps.P13 - pp.P13;
+        double g22 = ps.P22 - pp.P22;
+        double g23 = ps.P23 - pp.P23;
+        double g33 = ps.P33 - pp.P33;
+        double t00 = (c00 * g00) + (c01 * g01) + (c02 * g02) + (c03 * g03);
+        double t01 = (c00 * g01) + (c01 * g11) + (c02 * g12) + (c03 * g13);
+        double t02 = (c00 * g02) + (c01 * g12) + (c02 * g22) + (c03 * g23);
+        double t03 = (c00 * g03) + (c01 * g13) + (c02 * g23) + (c03 * g33);
+        double t10 = (c10 * g00) + (c11 * g01) + (c12 * g02) + (c13 * g03);
+        double t11 = (c10 * g01) + (c11 * g11) + (c12 * g12) + (c13 * g13);
+        double t12 = (c10 * g02) + (c11 * g12) + (c12 * g22) + (c13 * g23);
+        double t13 = (c10 * g03) + (c11 * g13) + (c12 * g23) + (c13 * g33);
+        double t20 = (c20 * g00) + (c21 * g01) + (c22 * g02) + (c23 * g03);
+        double t21 = (c20 * g01) + (c21 * g11) + (c22 * g12) + (c23 * g13);
+        double t22 = (c20 * g02) + (c21 * g12) + (c22 * g22) + (c23 * g23);
+        double t23 = (c20 * g03) + (c21 * g13) + (c22 * g23) + (c23 * g33);
+        double t30 = (c30 * g00) + (c31 * g01) + (c32 * g02) + (c33 * g03);
+        double t31 = (c30 * g01) + (c31 * g11) + (c32 * g12) + (c33 * g13);
+        double t32 = (c30 * g02) + (c31 * g12) + (c32 * g22) + (c33 * g23);
+        double t33 = (c30 * g03) + (c31 * g13) + (c32 * g23) + (c33 * g33);
+        ps.P00 = pk.P00 + (t00 * c00) + (t01 * c01) + (t02 * c02) + (t03 * c03);
+        ps.P01 = pk.P01 + (t00 * c10) + (t01 * c11) + (t02 * c12) + (t03 * c13);
+        ps.P02 = pk.P02 + (t00 * c20) + (t01 * c21) + (t02 * c22) + (t03 * c23);
+        ps.P03 = pk.P03 + (t00 * c30) + (t01 * c31) + (t02 * c32) + (t03 * c33);
+        ps.P11 = pk.P11 + (t10 * c10) + (t11 * c11) + (t12 * c12) + (t13 * c13);
+        ps.P12 = pk.P12 + (t10 * c20) + (t11 * c21) + (t12 * c22) + (t13 * c23);
+        ps.P13 = pk.P13 + (t10 * c30) + (t11 * c31) + (t12 * c32) + (t13 * c33);
+        ps.P22 = pk.P22 + (t20 * c20) + (t21 * c21) + (t22 * c22) + (t23 * c23);
+        ps.P23 = pk.P23 + (t20 * c30) + (t21 * c31) + (t22 * c32) + (t23 * c33);
+        ps.P33 = pk.P33 + (t30 * c30) + (t31 * c31) + (t32 * c32) + (t33 * c33);
+    }
+
+    /// <summary>Scalar measurement z = h·x + noise of variance r; the innovation and its variance come back.</summary>
+    private static void Update(ref Vec4 x, ref Sym4 p, double h0, double h1, double h2, double h3, double z, double r, out double innovation, out double variance, bool gate, out bool used)
+    {
+        double ph0 = (p.P00 * h0) + (p.P01 * h1) + (p.P02 * h2) + (p.P03 * h3);
+        double ph1 = (p.P01 * h0) + (p.P11 * h1) + (p.P12 * h2) + (p.P13 * h3);
+        double ph2 = (p.P02 * h0) + (p.P12 * h1) + (p.P22 * h2) + (p.P23 * h3);
+        double ph3 = (p.P03 * h0) + (p.P13 * h1) + (p.P23 * h2) + (p.P33 * h3);
+        innovation = z - ((h0 * x.D) + (h1 * x.V) + (h2 * x.T) + (h3 * x.F));
+        variance = r + (h0 * ph0) + (h1 * ph1) + (h2 * ph2) + (h3 * ph3);
+        double nis = innovation * innovation / variance;
+        used = true;
+        if (gate && nis > 100)
+        {
+            used = false;
+            return;
+        }
+
+        // A far-out observation counts as a 5-σ one.
+        double sv = gate && nis > 25 ? variance * nis / 25 : variance;
+        double k = innovation / sv;
+        x.D += ph0 * k;
+        x.V += ph1 * k;
+        x.T += ph2 * k;
+        x.F += ph3 * k;
+        p.P00 -= ph0 * ph0 / sv;
+        p.P01 -= ph0 * ph1 / sv;
+        p.P02 -= ph0 * ph2 / sv;
+        p.P03 -= ph0 * ph3 / sv;
+        p.P11 -= ph1 * ph1 / sv;
+        p.P12 -= ph1 * ph2 / sv;
+        p.P13 -= ph1 * ph3 / sv;
+        p.P22 -= ph2 * ph2 / sv;
+        p.P23 -= ph2 * ph3 / sv;
+        p.P33 -= ph3 * ph3 / sv;
+    }
+
+    /// <summary>P ← F·P·Fᵀ for F = I + f01·e₀e₁ᵀ + f02·e₀e₂ᵀ + f12·e₁e₂ᵀ.</summary>
+    private static void Propagate(ref Sym4 p, double f01, double f02, double f12)
+    {
+        double a00 = p.P00 + (f01 * p.P01) + (f02 * p.P02);
+        double a10 = p.P01 + (f12 * p.P02);
+        double a20 = p.P02;
+        double a30 = p.P03;
+        double a01 = p.P01 + (f01 * p.P11) + (f02 * p.P12);
+        double a11 = p.P11 + (f12 * p.P12);
+        double a21 = p.P12;
+        double a31 = p.P13;
+        double a02 = p.P02 + (f01 * p.P12) + (f02 * p.P22);
+        double a12 = p.P12 + (f12 * p.P22);
+        double a22 = p.P22;
+        double a32 = p.P23;
+        double a03 = p.P03 + (f01 * p.P13) + (f02 * p.P23);
+        double a13 = p.P13 + (f12 * p.P23);
+        double a23 = p.P23;
+        double a33 = p.P33;
+        p.P00 = a00 + (f01 * a01) + (f02 * a02);
+        p.P01 = a01 + (f12 * a02);
+        p.P02 = a02;
+        p.P03 = a03;
+        p.P11 = a11 + (f12 * a12);
+        p.P12 = a12;
+        p.P13 = a13;
+        p.P22 = a22;
+        p.P23 = a23;
+        p.P33 = a33;
+    }
+
+    private static bool InSpin(TimeWindow[] windows, double t)
+    {
+        foreach (TimeWindow w in windows)
+        {
+            if (w.Contains(t))
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
+    private static bool[] SpinJumps(FusionSettings s, double[] grid, int k0)
+    {
+        var jump = new bool[grid.Length];
+        foreach (TimeWindow w in s.SpinWindows)
+        {
+            int k = Math.Max(FirstIndexAfter(grid, w.StartS) - 1, k0);
+            if (k < grid.Length)
+            {
+                jump[k] = true;
+            }
+        }
+
+        return jump;
+    }
+
+    /// <summary>Index of the first grid time strictly after <paramref name="t"/> (the length when none).</summary>
+    public static int FirstIndexAfter(double[] grid, double t)
+    {
+        int lo = 0;
+        int hi = grid.Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (grid[mid] > t)
+            {
+                hi = mid;
+            }
+            else
+            {
+                lo = mid + 1;
+            }
+        }
+
+        return lo;
+    }
+
+    /// <summary>Distance, speed, third state, phase.</summary>
+    private struct Vec4
+    {
+        public double D;
+        public double V;
+        public double T;
+        public double F;
+    }
+
+    /// <summary>Upper triangle of a symmetric 4×4 matrix.</summary>
+    private struct Sym4
+    {
+        public double P00;
+        public double P01;
+        public double P02;
+        public double P03;
+        public double P11;
+        public double P12;
+        public double P13;
+        public double P22;
+        public double P23;
+        public double P33;
+    }
+}

@@ -1,0 +1,269 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>First motion as the early pulses imply it.</summary>
+/// <param name="TimeS">Back-extrapolated start, seconds.</param>
+/// <param name="SigmaS">Its 1 σ, seconds, covering every onset ramp the pulses cannot rule out.</param>
+/// <param name="AccelMps2">Plateau acceleration of the best fit, m/s².</param>
+/// <param name="RampS">Ramp length of the best fit, seconds.</param>
+/// <param name="PhaseM">Pulse phase φ (count N at distance N·m − φ), metres, middle of the plausible range.</param>
+/// <param name="PhaseSigmaM">Its σ, metres.</param>
+internal readonly record struct KinematicStart(double TimeS, double SigmaS, double AccelMps2, double RampS, double PhaseM, double PhaseSigmaM);
+
+/// <summary>Back-extrapolates the first pulse observations to zero distance.</summary>
+/// <remarks>
+/// <para>The early acceleration is modelled as a ramp of length T up to a plateau A:
+/// a(τ) = A·min(τ/T, 1), τ = t − t₀, so d(τ) = A·τ³/(6T) on the ramp and
+/// A·((τ − T/2)²/2 + T²/24) after it (kinematics, any textbook: constant jerk, then constant
+/// acceleration). T = 0 is a jump to constant acceleration. The count N is reached at
+/// d = N·m − φ with the pickup's phase φ unknown and uniform over one pulse (prior mean m/2,
+/// σ m/√12). For each T on a grid and each trial t₀ the model is linear in (A, φ) and solved by
+/// weighted least squares; t₀ is the minimum of the profile.</para>
+/// <para>After the ramp the motion looks exactly like constant acceleration from t₀ + T/2, so
+/// pulses that all come after the ramp cannot tell a long ramp from a late jump. The answer
+/// averages over T (uniform prior up to 0.3 s, about the longest a clutch or motor takes to
+/// build up drive; common practice), each ramp weighted by its likelihood
+/// exp(−Δχ²/2), χ² scaled by the reduced χ² when the fit is worse than its noise; its σ combines
+/// the spread of the start times so weighted with the profile widths (Δχ² = 1) of the fits.</para>
+/// </remarks>
+internal static class KinematicStartFit
+{
+    private const double FitLengthS = 0.3;
+    private const double RampStepS = 0.01;
+    private const double LongestRampS = 0.3;
+
+    public static KinematicStart? Fit(PulseChannel pulses, double mpp, double toothSigma, double jitterS, double earliestS)
+    {
+        if (pulses.Length < 3 || mpp <= 0)
+        {
+            return null;
+        }
+
+        double firstS = pulses.MidS(0);
+
+        // A car reaching its first edge (at most count·m out) at no less than 0.3 m/s² on average
+        // takes at most √(2·count·m / 0.3); four gaps to the second edge bound it from the other side.
+        double reach = Math.Sqrt(2 * pulses.Counts[0] * mpp / 0.3);
+        double span = pulses.Length > 1 ? 4 * (pulses.MidS(1) - firstS) : reach;
+        earliestS = Math.Max(earliestS, firstS - Math.Min(3.0, Math.Max(reach, span)));
+
+        int count = 0;
+        while (count < pulses.Length && count < 40 && (count < 5 || pulses.MidS(count) <= firstS + FitLengthS))
+        {
+            count++;
+        }
+
+        Data data = Prepare(pulses, count, mpp, toothSigma, jitterS);
+        var fits = new List<Profile>();
+        for (double ramp = 0; ramp <= LongestRampS + 1e-9; ramp += RampStepS)
+        {
+            if (ProfileFit(data, mpp, ramp, earliestS, firstS) is { } fit)
+            {
+                fits.Add(fit);
+            }
+        }
+
+        if (fits.Count == 0)
+        {
+            return null;
+        }
+
+        // Average over the ramp length (uniform prior on the grid), each weighted by its likelihood.
+        Profile best = fits.MinBy(f => f.Chi2);
+        int dof = Math.Max(1, count + 1 - 3);
+        double scale = Math.Max(1, best.Chi2 / dof);
+        double total = 0, t0Sum = 0, phiSum = 0;
+        foreach (Profile f in fits)
+        {
+            double w = Math.Exp(-(f.Chi2 - best.Chi2) / (2 * scale));
+            total += w;
+            t0Sum += w * f.T0;
+            phiSum += w * f.Phi;
+        }
+
+        double mean = t0Sum / total;
+        double phiMean = phiSum / total;
+        double t0Var = 0, phiVar = 0, statVar = 0, phiStatVar = 0;
+        foreach (Profile f in fits)
+        {
+            double w = Math.Exp(-(f.Chi2 - best.Chi2) / (2 * scale)) / total;
+            t0Var += w * (f.T0 - mean) * (f.T0 - mean);
+            phiVar += w * (f.Phi - phiMean) * (f.Phi - phiMean);
+            statVar += w * f.Sigma * f.Sigma * scale;
+            phiStatVar += w * f.PhiSigma * f.PhiSigma * scale;
+        }
+
+        double lead = firstS - mean;
+        double sigma = Math.Sqrt(t0Var + statVar + (0.03 * lead * 0.03 * lead));
+        return new KinematicStart(mean, sigma, best.A, best.Ramp, phiMean, Math.Sqrt(phiVar + phiStatVar));
+    }
+
+    private sealed record Data(double[] T, double[] Y, double[] W);
+
+    private readonly record struct Profile(double Ramp, double T0, double Sigma, double Chi2, double A, double Phi, double PhiSigma);
+
+    private static Data Prepare(PulseChannel pulses, int count, double mpp, double toothSigma, double jitterS)
+    {
+        var t = new double[count];
+        var y = new double[count];
+        var w = new double[count];
+        for (int i = 0; i < count; i++)
+        {
+            t[i] = pulses.MidS(i);
+            y[i] = pulses.Counts[i] * mpp;
+        }
+
+        for (int i = 0; i < count; i++)
+        {
+            int a = Math.Max(0, i - 1);
+            int b = Math.Min(count - 1, i + 1);
+            double speed = b > a && t[b] > t[a] ? (y[b] - y[a]) / (t[b] - t[a]) : 0;
+            double width = pulses.HiS[i] - pulses.LoS[i];
+            double variance = (toothSigma * toothSigma) + (speed * speed * ((width * width / 12) + (jitterS * jitterS))) + 1e-12;
+            w[i] = 1 / variance;
+        }
+
+        return new Data(t, y, w);
+    }
+
+    /// <summary>Profile over t₀ for one ramp length.</summary>
+    private static Profile? ProfileFit(Data data, double mpp, double ramp, double earliest, double firstS)
+    {
+        double latest = firstS - 1e-5;
+        if (latest <= earliest)
+        {
+            return null;
+        }
+
+        double coarse = Math.Max(0.001, (latest - earliest) / 120);
+        int steps = (int)((latest - earliest) / coarse) + 1;
+        double bestChi = double.PositiveInfinity;
+        double bestT = double.NaN;
+        for (int s = 0; s <= steps; s++)
+        {
+            double t0 = Math.Min(latest, earliest + (s * coarse));
+            if (Solve(data, mpp, ramp, t0, out double chi, out _, out _, out _) && chi < bestChi)
+            {
+                bestChi = chi;
+                bestT = t0;
+            }
+        }
+
+        if (double.IsNaN(bestT))
+        {
+            return null;
+        }
+
+        double fine = coarse / 20;
+        double from = Math.Max(earliest, bestT - coarse);
+        double to = Math.Min(latest, bestT + coarse);
+        for (double t0 = from; t0 <= to; t0 += fine)
+        {
+            if (Solve(data, mpp, ramp, t0, out double chi, out _, out _, out _) && chi < bestChi)
+            {
+                bestChi = chi;
+                bestT = t0;
+            }
+        }
+
+        Solve(data, mpp, ramp, bestT, out _, out double a, out double phi, out double phiSigma);
+        int dof = Math.Max(1, data.T.Length + 1 - 3);
+        double limit = bestChi + Math.Max(1, bestChi / dof);
+
+        // Walk out from the minimum to where χ² has risen by one (scaled) unit.
+        double Edge(double direction)
+        {
+            double stepS = fine;
+            double t = bestT;
+            for (int i = 0; i < 400; i++)
+            {
+                double next = t + (direction * stepS);
+                if (next < earliest || next > latest)
+                {
+                    return Math.Abs(t - bestT);
+                }
+
+                if (!Solve(data, mpp, ramp, next, out double chi, out _, out _, out _) || chi > limit)
+                {
+                    return Math.Abs(next - bestT);
+                }
+
+                t = next;
+                stepS = Math.Min(stepS * 1.25, 0.005);
+            }
+
+            return Math.Abs(t - bestT);
+        }
+
+        double sigma = 0.5 * (Edge(-1) + Edge(1)) / Math.Sqrt(Math.Max(1, bestChi / dof));
+        return new Profile(ramp, bestT, sigma, bestChi, a, phi, phiSigma);
+    }
+
+    /// <summary>Distance covered τ after the start under a(τ) = min(τ/T, 1) (unit plateau).</summary>
+    private static double UnitDistance(double tau, double ramp)
+    {
+        if (tau <= 0)
+        {
+            return 0;
+        }
+
+        if (tau <= ramp)
+        {
+            return tau * tau * tau / (6 * ramp);
+        }
+
+        double shifted = tau - (0.5 * ramp);
+        return (0.5 * shifted * shifted) + (ramp * ramp / 24);
+    }
+
+    /// <summary>Weighted least squares of count·m = φ + A·D(τ) at fixed t₀ and ramp with the
+    /// phase prior; false when t₀ is not before every observation or A would be negative.</summary>
+    private static bool Solve(Data data, double mpp, double ramp, double t0, out double chi2, out double a, out double phi, out double phiSigma)
+    {
+        chi2 = double.PositiveInfinity;
+        a = phi = phiSigma = 0;
+        double phiMean = 0.5 * mpp;
+        double phiVar = mpp * mpp / 12;
+        double s00 = 1 / phiVar, s01 = 0, s11 = 0;
+        double r0 = phiMean / phiVar, r1 = 0;
+        double[] t = data.T;
+        for (int i = 0; i < t.Length; i++)
+        {
+            double tau = t[i] - t0;
+            if (tau <= 0)
+            {
+                return false;
+            }
+
+            double w = data.W[i];
+            double c = UnitDistance(tau, ramp);
+            s00 += w;
+            s01 += w * c;
+            s11 += w * c * c;
+            r0 += w * data.Y[i];
+            r1 += w * c * data.Y[i];
+        }
+
+        double det = (s00 * s11) - (s01 * s01);
+        if (!(det > 0))
+        {
+            return false;
+        }
+
+        phi = ((r0 * s11) - (s01 * r1)) / det;
+        a = ((s00 * r1) - (s01 * r0)) / det;
+        if (a < 0)
+        {
+            return false;
+        }
+
+        phiSigma = Math.Sqrt(s11 / det);
+        chi2 = (phi - phiMean) * (phi - phiMean) / phiVar;
+        for (int i = 0; i < t.Length; i++)
+        {
+            double e = data.Y[i] - (phi + (a * UnitDistance(t[i] - t0, ramp)));
+            chi2 += data.W[i] * e * e;
+        }
+
+        return true;
+    }
+}

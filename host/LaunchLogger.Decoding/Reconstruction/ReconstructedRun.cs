@@ -1,0 +1,60 @@
+using LaunchLogger.Decoding.Runs;
+
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>One run after reconstruction: the car's trajectory from just before first motion to
+/// the end of the run, first motion and the rollout mark with their uncertainties, and what the
+/// reconstruction had to assume or noticed on the way.</summary>
+/// <remarks>Times are on the input's own axis. <see cref="Trajectory"/> distances start at 0 at
+/// <see cref="FirstMotionS"/>; its σ columns are conditional on that time (figures timed from
+/// standstill add <see cref="FirstMotionS"/>'s σ themselves).</remarks>
+public sealed class ReconstructedRun
+{
+    /// <summary>The input.</summary>
+    public required DecodedRun Source { get; init; }
+
+    /// <summary>Distance, speed and acceleration with 1-σ columns.</summary>
+    public required Trajectory Trajectory { get; init; }
+
+    /// <summary>First motion, seconds on the input's axis, with its 1 σ.</summary>
+    public required Estimate FirstMotionS { get; init; }
+
+    /// <summary>When the distance from standstill reached <see cref="RolloutM"/>, seconds, with
+    /// its 1 σ; null when the run never got that far.</summary>
+    public Estimate? RolloutTimeS { get; init; }
+
+    /// <summary>Speed at the rollout mark, m/s, with its 1 σ; null with <see cref="RolloutTimeS"/>.</summary>
+    public Estimate? RolloutSpeedMps { get; init; }
+
+    /// <summary>The rollout distance used, metres.</summary>
+    public required double RolloutM { get; init; }
+
+    /// <summary>How the run was reconstructed: one of the <see cref="ReconstructionMethod"/> names.</summary>
+    public required string Method { get; init; }
+
+    /// <summary>What the reader should know about this reconstruction, one sentence each.</summary>
+    public required IReadOnlyList<string> Warnings { get; init; }
+
+    /// <summary>Forward accelerometer bias left after removing the resting level, averaged over
+    /// the moving part of the run, m/s²; null without an accelerometer.</summary>
+    public Estimate? AccelBiasMps2 { get; init; }
+
+    /// <summary>The resting pitch used to remove gravity from the forward axis, radians (nose
+    /// up positive); null without an accelerometer.</summary>
+    public Estimate? RestingPitchRad { get; init; }
+
+    /// <summary>The forward axis' resting reading removed as gravity leakage, m/s²; null without
+    /// an accelerometer.</summary>
+    public Estimate? RestingForwardMps2 { get; init; }
+
+    /// <summary>Distance from standstill at which the pulse count first reached 1, metres (the
+    /// pickup's unknown starting phase, estimated); null without pulses.</summary>
+    public Estimate? FirstPulseDistanceM { get; init; }
+
+    /// <summary>When the car came to rest at the end, seconds; null when the run has no known stop.</summary>
+    public double? StopS { get; init; }
+
+    /// <summary>Stretches where the pulses ran ahead of the accelerometer (wheelspin) and were
+    /// not trusted for distance.</summary>
+    public IReadOnlyList<TimeWindow> WheelspinWindows { get; init; } = [];
+}

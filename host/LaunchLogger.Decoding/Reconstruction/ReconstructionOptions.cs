@@ -1,0 +1,74 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>Knobs of the reconstruction. The defaults suit the box and typical cars; every
+/// property says its unit.</summary>
+public sealed record ReconstructionOptions
+{
+    /// <summary>The defaults.</summary>
+    public static ReconstructionOptions Default { get; } = new();
+
+    /// <summary>Rollout distance, metres; null for the run's configured one.</summary>
+    public double? RolloutM { get; init; }
+
+    /// <summary>Use the accelerometer when the run has one.</summary>
+    public bool UseAccelerometer { get; init; } = true;
+
+    /// <summary>Use the pulses when the run has them.</summary>
+    public bool UsePulses { get; init; } = true;
+
+    /// <summary>How long before first motion the trajectory starts, seconds.</summary>
+    public double PreRollS { get; init; } = 0.1;
+
+    /// <summary>Step of the trajectory's time grid, seconds. With an accelerometer the grid falls
+    /// on every n-th sample (n ≈ step × rate); the acceleration between grid points is integrated
+    /// exactly, so the step only sets how finely the result is reported.</summary>
+    public double GridStepS { get; init; } = 0.002;
+
+    /// <summary>1-σ error of each edge's position around the pulse ring as a fraction of the
+    /// pulse pitch (machining and sensor threshold spread; about 1 % is common practice).</summary>
+    public double ToothSpacingErrorFraction { get; init; } = 0.01;
+
+    /// <summary>1-σ timing jitter of an edge time beyond its bracket, seconds.</summary>
+    public double EdgeJitterS { get; init; } = 5e-6;
+
+    /// <summary>Accelerometer noise per sample, m/s²; null to measure it from the resting samples.</summary>
+    public double? AccelNoiseMps2 { get; init; }
+
+    /// <summary>How fast the accelerometer's error (bias, body pitch, scale) may wander, as the
+    /// spectral density of its random walk, m²/s⁵.</summary>
+    public double BiasWanderDensity { get; init; } = 0.05;
+
+    /// <summary>Extra white acceleration noise the accelerometer model allows (vibration, cross
+    /// axis), spectral density m²/s³.</summary>
+    public double AccelModelNoiseDensity { get; init; } = 2e-4;
+
+    /// <summary>Spectral density of the jerk the pulses-only model allows, m²/s⁵.</summary>
+    public double JerkDensity { get; init; } = 200;
+
+    /// <summary>1-σ of the accelerometer bias left after removing the resting level, m/s² (sensor
+    /// drift since staging).</summary>
+    public double BiasPriorMps2 { get; init; } = 0.02;
+
+    /// <summary>Look for wheelspin (pulses ahead of the accelerometer) and stop trusting the
+    /// pulses there.</summary>
+    public bool DetectWheelspin { get; init; } = true;
+
+    /// <summary>The smallest excess of pulse speed over accelerometer speed that counts as
+    /// wheelspin, m/s; it also has to pass <see cref="WheelspinFraction"/> of the speed.</summary>
+    public double WheelspinMinExcessMps { get; init; } = 0.25;
+
+    /// <summary>The smallest excess that counts as wheelspin, as a fraction of the speed.</summary>
+    public double WheelspinFraction { get; init; } = 0.04;
+
+    /// <summary>The firmware's rollout mark may differ from ours by this much plus three σ and
+    /// one pulse's worth of time before a warning, seconds.</summary>
+    public double FirmwareRolloutToleranceS { get; init; } = 0.005;
+
+    /// <summary>Bracket width above which an observation counts as wide, seconds; null for the
+    /// run's configured limit (2 ms when it has none).</summary>
+    public double? WideBracketS { get; init; }
+
+    /// <summary>Acceleration-only runs: the run counts as stopped when the last this many seconds
+    /// of samples rest at the resting level, seconds.</summary>
+    public double StillAtEndS { get; init; } = 1.0;
+}

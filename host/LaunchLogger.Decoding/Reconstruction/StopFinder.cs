@@ -1,0 +1,112 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>When the car came to rest after its last pulse. The next edge never came, so the car
+/// covered less than one pulse pitch after the last one: with the speed and deceleration of the
+/// last pulses (or the accelerometer), it stopped within v/|a|, and within 2·m/v at most (the
+/// distance covered braking uniformly from v to rest is v·t/2; kinematics, any textbook).</summary>
+internal static class StopFinder
+{
+    /// <summary>The time the car came to rest, seconds.</summary>
+    /// <param name="pulses">Observations; at least one.</param>
+    /// <param name="mpp">Metres per pulse.</param>
+    /// <param name="accelT">Accelerometer sample times, or null.</param>
+    /// <param name="accelInput">Forward acceleration minus its resting level at those times, or null.</param>
+    /// <param name="endS">End of the data, seconds; the answer is never later.</param>
+    public static double Find(PulseChannel pulses, double mpp, double[]? accelT, double[]? accelInput, double endS)
+    {
+        int last = pulses.Length - 1;
+        double tLast = pulses.MidS(last);
+        EndMotion(pulses, mpp, out double speed, out double decel);
+        double bound = speed > 1e-3 ? 2 * mpp / speed : 1.0;
+        double stop;
+        if (accelT != null && accelInput != null && speed > 1e-3)
+        {
+            // Integrate the accelerometer forward from the last pulse until the speed reaches 0 or
+            // the car would have reached the next edge.
+            int i = Array.BinarySearch(accelT, tLast);
+            i = i >= 0 ? i : ~i;
+            double v = speed;
+            double covered = 0;
+            double t = tLast;
+            stop = tLast + Math.Min(bound, 1.0);
+            for (; i < accelT.Length && accelT[i] < tLast + 3; i++)
+            {
+                double dt = accelT[i] - t;
+                double vNext = v + (accelInput[i] * dt);
+                if (vNext <= 0)
+                {
+                    stop = t + (v / Math.Max(v - vNext, 1e-12) * dt);
+                    break;
+                }
+
+                covered += 0.5 * (v + vNext) * dt;
+                if (covered >= mpp)
+                {
+                    stop = accelT[i];
+                    break;
+                }
+
+                v = vNext;
+                t = accelT[i];
+            }
+        }
+        else if (decel > 0.05 && speed > 1e-3)
+        {
+            stop = tLast + Math.Min(speed / decel, bound);
+        }
+        else
+        {
+            stop = tLast + Math.Min(0.5 * bound, 1.0);
+        }
+
+        return Math.Min(stop, Math.Max(endS, tLast));
+    }
+
+    /// <summary>Speed and deceleration at the last pulse from a quadratic through the pulses of
+    /// its last 0.3 s (at least three, at most eight).</summary>
+    public static void EndMotion(PulseChannel pulses, double mpp, out double speed, out double decel)
+    {
+        int last = pulses.Length - 1;
+        double tLast = pulses.MidS(last);
+        int first = last;
+        while (first > 0 && last - first < 7 && (last - first < 2 || pulses.MidS(first - 1) >= tLast - 0.3))
+        {
+            first--;
+        }
+
+        speed = 0;
+        decel = 0;
+        int count = last - first + 1;
+        if (count < 2)
+        {
+            return;
+        }
+
+        if (count == 2)
+        {
+            speed = (pulses.Counts[last] - pulses.Counts[first]) * mpp / Math.Max(tLast - pulses.MidS(first), 1e-6);
+            return;
+        }
+
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, y0 = 0, y1 = 0, y2 = 0;
+        for (int i = first; i <= last; i++)
+        {
+            double x = pulses.MidS(i) - tLast;
+            double y = (pulses.Counts[i] - pulses.Counts[last]) * mpp;
+            s0 += 1;
+            s1 += x;
+            s2 += x * x;
+            s3 += x * x * x;
+            s4 += x * x * x * x;
+            y0 += y;
+            y1 += x * y;
+            y2 += x * x * y;
+        }
+
+        if (AccelOnsetFit.SolveSymmetric3(s0, s1, s2, s2, s3, s4, y0, y1, y2, out _, out double c1, out double c2))
+        {
+            speed = Math.Max(c1, 0);
+            decel = Math.Max(-2 * c2, 0);
+        }
+    }
+}

@@ -1,0 +1,218 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>Finds stretches where the pulses run ahead of the accelerometer: a driven wheel
+/// spinning faster than the car moves.</summary>
+/// <remarks>Over windows of about 40 ms the mean speed from the pulses is compared with the mean
+/// speed from integrating the accelerometer. Without spin their difference is smooth: an offset,
+/// a drift (accelerometer bias) and a share of the speed (scale errors). That baseline is fitted
+/// robustly — iteratively reweighted least squares with Tukey's biweight (P. J. Huber, "Robust
+/// Statistics", 1981; Holland &amp; Welsch 1977) — and windows standing well above it are spin.</remarks>
+internal static class WheelspinDetector
+{
+    private const double WindowS = 0.04;
+
+    public static List<TimeWindow> Find(
+        PulseChannel pulses, double mpp, double[] accelT, double[] input, double startS, double endS,
+        double minExcessMps, double fraction, out double largestFraction)
+    {
+        largestFraction = 0;
+        var found = new List<TimeWindow>();
+        double[] distance = IntegrateTwice(accelT, input, startS);
+
+        // Window statistics.
+        var mids = new List<double>();
+        var speeds = new List<double>();
+        var accelSpeeds = new List<double>();
+        var starts = new List<double>();
+        var ends = new List<double>();
+        int i = 0;
+        while (i < pulses.Length)
+        {
+            double ti = pulses.MidS(i);
+            int j = i + 1;
+            while (j < pulses.Length && pulses.MidS(j) < ti + WindowS)
+            {
+                j++;
+            }
+
+            if (j >= pulses.Length)
+            {
+                break;
+            }
+
+            double tj = pulses.MidS(j);
+            if (tj > endS)
+            {
+                break;
+            }
+
+            if (ti > startS)
+            {
+                double span = tj - ti;
+                double vp = (pulses.Counts[j] - pulses.Counts[i]) * mpp / span;
+                double va = (At(accelT, distance, tj) - At(accelT, distance, ti)) / span;
+                if (vp >= 1.0)
+                {
+                    mids.Add(0.5 * (ti + tj));
+                    speeds.Add(vp);
+                    accelSpeeds.Add(va);
+                    starts.Add(ti);
+                    ends.Add(tj);
+                }
+            }
+
+            i = j;
+        }
+
+        int n = mids.Count;
+        if (n < 8)
+        {
+            return found;
+        }
+
+        // Robust baseline r = c0 + c1·(t − start) + c2·va.
+        var r = new double[n];
+        var weights = new double[n];
+        for (int k = 0; k < n; k++)
+        {
+            r[k] = speeds[k] - accelSpeeds[k];
+            weights[k] = 1;
+        }
+
+        var residual = new double[n];
+        double scale = 0;
+        for (int iteration = 0; iteration < 8; iteration++)
+        {
+            double s00 = 0, s01 = 0, s02 = 0, s11 = 0, s12 = 0, s22 = 0, q0 = 0, q1 = 0, q2 = 0;
+            for (int k = 0; k < n; k++)
+            {
+                double w = weights[k];
+                double x1 = mids[k] - startS;
+                double x2 = accelSpeeds[k];
+                s00 += w;
+                s01 += w * x1;
+                s02 += w * x2;
+                s11 += w * x1 * x1;
+                s12 += w * x1 * x2;
+                s22 += w * x2 * x2;
+                q0 += w * r[k];
+                q1 += w * x1 * r[k];
+                q2 += w * x2 * r[k];
+            }
+
+            if (!AccelOnsetFit.SolveSymmetric3(s00 + 1e-9, s01, s02, s11 + 1e-9, s12, s22 + 1e-9, q0, q1, q2, out double c0, out double c1, out double c2))
+            {
+                return found;
+            }
+
+            var absolute = new double[n];
+            for (int k = 0; k < n; k++)
+            {
+                residual[k] = r[k] - (c0 + (c1 * (mids[k] - startS)) + (c2 * accelSpeeds[k]));
+                absolute[k] = Math.Abs(residual[k]);
+            }
+
+            Array.Sort(absolute);
+            scale = Math.Max(1.4826 * absolute[n / 2], 1e-3);
+            for (int k = 0; k < n; k++)
+            {
+                double u = residual[k] / (4.685 * scale);
+                weights[k] = Math.Abs(u) < 1 ? (1 - (u * u)) * (1 - (u * u)) : 0;
+            }
+        }
+
+        var spin = new bool[n];
+        for (int k = 0; k < n; k++)
+        {
+            double limit = Math.Max(Math.Max(minExcessMps, fraction * Math.Max(accelSpeeds[k], 0)), 4 * scale);
+            spin[k] = residual[k] > limit;
+            if (spin[k])
+            {
+                largestFraction = Math.Max(largestFraction, residual[k] / Math.Max(accelSpeeds[k], 1));
+            }
+        }
+
+        // Group flagged windows (bridging single unflagged ones), widened by a window each side;
+        // spin reaching back to the first window reaches back to first motion.
+        int a = 0;
+        while (a < n)
+        {
+            if (!spin[a])
+            {
+                a++;
+                continue;
+            }
+
+            int b = a;
+            while (b + 1 < n && (spin[b + 1] || (b + 2 < n && spin[b + 2])))
+            {
+                b++;
+            }
+
+            double from = a == 0 ? startS : starts[a - 1];
+            double to = b + 1 < n ? ends[b + 1] : ends[b];
+            if (found.Count > 0 && from <= found[^1].EndS)
+            {
+                found[^1] = new TimeWindow(found[^1].StartS, to);
+            }
+            else
+            {
+                found.Add(new TimeWindow(from, to));
+            }
+
+            a = b + 1;
+        }
+
+        return found;
+    }
+
+    /// <summary>Distance from integrating <paramref name="input"/> twice from rest at <paramref name="startS"/>.</summary>
+    private static double[] IntegrateTwice(double[] t, double[] input, double startS)
+    {
+        var d = new double[t.Length];
+        double v = 0;
+        double dist = 0;
+        double prevT = startS;
+        double prevU = 0;
+        for (int i = 0; i < t.Length; i++)
+        {
+            if (t[i] <= startS)
+            {
+                continue;
+            }
+
+            double dt = t[i] - prevT;
+            double vNext = v + (0.5 * (prevU + input[i]) * dt);
+            dist += 0.5 * (v + vNext) * dt;
+            v = vNext;
+            d[i] = dist;
+            prevT = t[i];
+            prevU = input[i];
+        }
+
+        return d;
+    }
+
+    private static double At(double[] t, double[] values, double time)
+    {
+        int i = Array.BinarySearch(t, time);
+        if (i >= 0)
+        {
+            return values[i];
+        }
+
+        i = ~i;
+        if (i == 0)
+        {
+            return values[0];
+        }
+
+        if (i >= t.Length)
+        {
+            return values[^1];
+        }
+
+        double f = (time - t[i - 1]) / (t[i] - t[i - 1]);
+        return values[i - 1] + (f * (values[i] - values[i - 1]));
+    }
+}
