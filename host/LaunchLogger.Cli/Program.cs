@@ -9,7 +9,9 @@ var root = new RootCommand(
     "both from true standstill and after the 1-ft rollout, each with its uncertainty.")
 {
     SafetyCommand.Create(),
+    DemoCommand.Create(),
     SelfCheckCommand.Create(),
+    ReportCommand.Create(),
     BenchCommand.Create(),
     SimulateCommand.Create(),
 };

@@ -20,9 +20,9 @@ public static class ReportTableWriter
             Interactive = InteractionSupport.No,
         });
         console.Profile.Width = 110;
-        if (document.Reader is { } reader && (reader.CrcErrors > 0 || reader.FramesLost > 0 || reader.BytesSkipped > 0))
+        if (document.Reader is { HasDamage: true } reader)
         {
-            console.MarkupLine($"[yellow]Log damage:[/] {reader.CrcErrors} CRC errors, {reader.FramesLost} frames lost, {reader.BytesSkipped} bytes skipped");
+            console.MarkupLine($"[yellow]Log damage:[/] {reader.CrcErrors} CRC errors, {reader.MalformedFrames} malformed frames, {reader.FramesLost} frames lost, {reader.BytesSkipped} bytes skipped, {reader.TruncatedBytes} bytes cut off at the end");
         }
 
         foreach (RunReport run in document.Runs)

@@ -12,6 +12,7 @@ public static class BenchCommand
         return new Command("bench", "Measure speed, memory and accuracy.")
         {
             BenchCoreCommand.Create(),
+            BenchAccuracyCommand.Create(),
         };
     }
 }

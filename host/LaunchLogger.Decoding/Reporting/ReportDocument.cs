@@ -28,8 +28,49 @@ public sealed record ReportDocument
     public required IReadOnlyList<RunReport> Runs { get; init; }
 }
 
-/// <summary>What the frame reader met.</summary>
-public sealed record ReaderReport(long Bytes, long Frames, long CrcErrors, long BytesSkipped, long FramesLost, long UnknownFrames);
+/// <summary>What the frame reader met, summed over every log read.</summary>
+/// <param name="Bytes">Bytes read.</param>
+/// <param name="Frames">Whole frames that passed their CRC.</param>
+/// <param name="CrcErrors">Frames whose CRC did not match.</param>
+/// <param name="MalformedFrames">Frames too long, too short or badly stuffed.</param>
+/// <param name="BytesSkipped">Bytes thrown away while resynchronising.</param>
+/// <param name="TruncatedBytes">Bytes of an unfinished frame at the end (a log cut off).</param>
+/// <param name="FramesLost">Frames missing by their sequence numbers.</param>
+/// <param name="Restarts">Times the box restarted within a log.</param>
+/// <param name="UnknownFrames">Frames of a type this reader does not know (skipped).</param>
+/// <param name="CorruptBodies">Frames that passed their CRC but whose body did not parse.</param>
+public sealed record ReaderReport(
+    long Bytes,
+    long Frames,
+    long CrcErrors,
+    long MalformedFrames,
+    long BytesSkipped,
+    long TruncatedBytes,
+    long FramesLost,
+    long Restarts,
+    long UnknownFrames,
+    long CorruptBodies)
+{
+    /// <summary>True when anything was damaged or lost.</summary>
+    public bool HasDamage => CrcErrors + MalformedFrames + TruncatedBytes + FramesLost + CorruptBodies + BytesSkipped > 0;
+
+    /// <summary>The report of one reader's counters.</summary>
+    public static ReaderReport From(LaunchLogger.Decoding.Reading.ReaderStats s) =>
+        new(s.Bytes, s.Frames, s.CrcErrors, s.MalformedFrames, s.BytesSkipped, s.TruncatedBytes, s.FramesLost, s.Restarts, s.UnknownFrameTypes, s.CorruptBodies);
+
+    /// <summary>Adds two reports (null counts as nothing).</summary>
+    public static ReaderReport? Sum(ReaderReport? a, ReaderReport? b) => a is null ? b : b is null ? a : new(
+        a.Bytes + b.Bytes,
+        a.Frames + b.Frames,
+        a.CrcErrors + b.CrcErrors,
+        a.MalformedFrames + b.MalformedFrames,
+        a.BytesSkipped + b.BytesSkipped,
+        a.TruncatedBytes + b.TruncatedBytes,
+        a.FramesLost + b.FramesLost,
+        a.Restarts + b.Restarts,
+        a.UnknownFrames + b.UnknownFrames,
+        a.CorruptBodies + b.CorruptBodies);
+}
 
 /// <summary>One run's figures under both conventions.</summary>
 public sealed record RunReport
@@ -62,6 +103,7 @@ public sealed record RunReport
     public required double PeakAccelMps2 { get; init; }
 
     /// <summary>Mean acceleration 0–60 mph, m/s²; null when 60 mph was not reached.</summary>
+    [JsonPropertyName("mean_accel_0_60_mps2")]
     public double? MeanAccel0To60Mps2 { get; init; }
 
     /// <summary>Highest speed, m/s.</summary>
@@ -70,9 +112,68 @@ public sealed record RunReport
     /// <summary>Distance from standstill to the end of the run, m.</summary>
     public required double DistanceM { get; init; }
 
+    /// <summary>The stop at the end of the run; null when the run does not end with one.</summary>
+    public BrakingReport? Braking { get; init; }
+
     /// <summary>Everything the reader, importer and reconstruction noticed.</summary>
     public required IReadOnlyList<string> Warnings { get; init; }
 }
+
+/// <summary>A stop to standstill.</summary>
+public sealed record BrakingReport
+{
+    /// <summary>Speed at brake onset, m/s.</summary>
+    public required double FromMps { get; init; }
+
+    /// <summary>Brake onset on the input's time axis, s.</summary>
+    public required double OnsetS { get; init; }
+
+    /// <summary>1-σ of <see cref="OnsetS"/>, s.</summary>
+    public required double OnsetUncertaintyS { get; init; }
+
+    /// <summary>"brake switch" or "deceleration onset".</summary>
+    public required string OnsetMethod { get; init; }
+
+    /// <summary>Distance from onset to standstill, m.</summary>
+    public required double StoppingDistanceM { get; init; }
+
+    /// <summary>1-σ of <see cref="StoppingDistanceM"/>, m.</summary>
+    public required double StoppingDistanceUncertaintyM { get; init; }
+
+    /// <summary>The stopping distance corrected to the nearer of 60 mph and 100 km/h, m; null
+    /// when the onset speed is not within 10 % of either.</summary>
+    public double? CorrectedDistanceM { get; init; }
+
+    /// <summary>Which nominal speed <see cref="CorrectedDistanceM"/> is for, and how.</summary>
+    public string? CorrectedTo { get; init; }
+
+    /// <summary>Every nominal-speed correction.</summary>
+    public required IReadOnlyList<CorrectedStopReport> CorrectedStops { get; init; }
+
+    /// <summary>from_mps² / (2 · stopping distance), m/s².</summary>
+    public required double MeanDecelMps2 { get; init; }
+
+    /// <summary>Highest deceleration, m/s².</summary>
+    public required double PeakDecelMps2 { get; init; }
+
+    /// <summary>Mean fully developed deceleration (UN R13 / R13-H), m/s².</summary>
+    public double? MfddMps2 { get; init; }
+
+    /// <summary>Best 0–60 mph the braking grip would allow, s.</summary>
+    [JsonPropertyName("traction_bound_0_60_s")]
+    public required double TractionBound060S { get; init; }
+
+    /// <summary>Best 0–100 km/h the braking grip would allow, s.</summary>
+    [JsonPropertyName("traction_bound_0_100_kmh_s")]
+    public required double TractionBound0100KmhS { get; init; }
+}
+
+/// <summary>A stopping distance corrected to a nominal initial speed.</summary>
+/// <param name="Label">E.g. "60-0 mph".</param>
+/// <param name="NominalMps">Nominal initial speed, m/s.</param>
+/// <param name="CorrectedDistanceM">Corrected distance, m; null when not corrected.</param>
+/// <param name="Method">How, or why not.</param>
+public sealed record CorrectedStopReport(string Label, double NominalMps, double? CorrectedDistanceM, string Method);
 
 /// <summary>The rollout mark: where the car has moved the rollout distance.</summary>
 public sealed record RolloutReport

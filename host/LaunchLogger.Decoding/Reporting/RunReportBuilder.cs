@@ -1,3 +1,5 @@
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Metrics;
 
 namespace LaunchLogger.Decoding.Reporting;
@@ -5,6 +7,47 @@ namespace LaunchLogger.Decoding.Reporting;
 /// <summary>Turns a run's figures into its report entry.</summary>
 public static class RunReportBuilder
 {
+    /// <summary>Builds the entry for an analysed run.</summary>
+    public static RunReport Build(RunAnalysis analysis)
+    {
+        ArgumentNullException.ThrowIfNull(analysis);
+        RunReport report = Build(
+            analysis.Run.Configuration.RunNumber,
+            analysis.Reconstruction.Method,
+            analysis.Run.Configuration.Staged,
+            analysis.Figures,
+            analysis.Run.FirmwareRolloutS,
+            analysis.Warnings);
+        return report with { Braking = analysis.Braking is { } b ? Braking(b) : null };
+    }
+
+    /// <summary>The report of a stop.</summary>
+    public static BrakingReport Braking(BrakingResult b)
+    {
+        CorrectedStop? nearest = b.CorrectedStops
+            .Take(2)
+            .Where(c => c.CorrectedDistanceM is not null)
+            .OrderBy(c => Math.Abs(c.NominalMps - b.FromMps))
+            .FirstOrDefault();
+        return new BrakingReport
+        {
+            FromMps = b.FromMps,
+            OnsetS = b.OnsetS.Value,
+            OnsetUncertaintyS = b.OnsetS.Sigma,
+            OnsetMethod = b.OnsetMethod,
+            StoppingDistanceM = b.StoppingDistanceM.Value,
+            StoppingDistanceUncertaintyM = b.StoppingDistanceM.Sigma,
+            CorrectedDistanceM = nearest?.CorrectedDistanceM,
+            CorrectedTo = nearest is null ? null : $"{nearest.Label}: {nearest.Method}",
+            CorrectedStops = b.CorrectedStops.Select(c => new CorrectedStopReport(c.Label, c.NominalMps, c.CorrectedDistanceM, c.Method)).ToList(),
+            MeanDecelMps2 = b.MeanDecelMps2,
+            PeakDecelMps2 = b.PeakDecelMps2,
+            MfddMps2 = b.MfddMps2,
+            TractionBound060S = b.TractionBound0To60S,
+            TractionBound0100KmhS = b.TractionBound0To100KmhS,
+        };
+    }
+
     /// <summary>Builds the entry.</summary>
     /// <param name="runNumber">The run's number.</param>
     /// <param name="method">How it was reconstructed.</param>

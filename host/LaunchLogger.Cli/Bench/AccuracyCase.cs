@@ -1,0 +1,85 @@
+using LaunchLogger.Simulation.Scenarios;
+
+namespace LaunchLogger.Cli.Bench;
+
+/// <summary>One simulated run of the accuracy benchmark: a built-in car with its sensors varied.</summary>
+/// <param name="Index">Position in the benchmark.</param>
+/// <param name="Seed">Seed for the simulation's noise.</param>
+/// <param name="Scenario">The varied scenario.</param>
+/// <param name="Summary">The variation in a few words, for the per-run listing.</param>
+public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string Summary)
+{
+    /// <summary>True when the accelerometer is fitted.</summary>
+    public bool HasAccelerometer => Scenario.Accelerometer.Present;
+
+    /// <summary>True when the pickup turns with a driven wheel (so it sees wheelspin and the
+    /// tyre's drive slip); always so on an all-wheel-drive car.</summary>
+    public bool DrivenPickup => Scenario.Vehicle.DrivenAxle == DrivenAxle.All
+        || (Scenario.Vehicle.DrivenAxle == DrivenAxle.Front) == (Scenario.Pickup.Axle == Axle.Front);
+
+    /// <summary>Builds the benchmark's cases from one seed: the acceleration scenarios in turn,
+    /// with 12–100 teeth, exact edge timestamps or a polled counter, accelerometer noise and
+    /// mounting tilt, a pickup on a driven wheel now and then (wheelspin), and one run in five
+    /// without an accelerometer. Every run goes a quarter mile and then stops. The tyre is taken
+    /// as calibrated (no growth with speed): its growth is a calibration error, not the
+    /// estimator's, and would otherwise dominate the quarter-mile figures.</summary>
+    public static IReadOnlyList<AccuracyCase> Build(int runs, int seed)
+    {
+        int[] teeth = [12, 16, 24, 36, 48, 60, 80, 100];
+        string[] cars = BuiltInScenarios.Names.Where(n => !n.Contains("brake", StringComparison.OrdinalIgnoreCase)).ToArray();
+        var cases = new List<AccuracyCase>(runs);
+        var random = new Random(seed);
+        for (int i = 0; i < runs; i++)
+        {
+            Scenario baseline = BuiltInScenarios.Get(cars[i % cars.Length]);
+            int toothCount = teeth[random.Next(teeth.Length)];
+            bool exact = random.NextDouble() < 0.5;
+            double loopMicros = 100 + (random.NextDouble() * 900);
+            bool accel = random.NextDouble() >= 0.2;
+            bool driven = random.NextDouble() < 0.3;
+            double pitch = (random.NextDouble() * 6) - 3;
+            double roll = (random.NextDouble() * 4) - 2;
+            double yaw = (random.NextDouble() * 6) - 3;
+            double noise = 100 + (random.NextDouble() * 200);
+            Axle pickupAxle = driven ? DrivenAxleOf(baseline) : UndrivenAxleOf(baseline);
+            Scenario scenario = baseline with
+            {
+                Name = $"{baseline.Name}-bench-{i}",
+                Tyre = baseline.Tyre with { RadiusGrowthAt30Mps = 0 },
+                Plan = baseline.Plan with { TargetSpeedMps = null, TargetDistanceM = 420, BrakeToStop = true },
+                Pickup = baseline.Pickup with { Teeth = toothCount, Axle = pickupAxle },
+                Capture = baseline.Capture with
+                {
+                    Kind = exact ? CaptureKind.ExactEdges : CaptureKind.PolledCounter,
+                    LoopPeriodMicros = loopMicros,
+                },
+                Accelerometer = baseline.Accelerometer with
+                {
+                    Present = accel,
+                    MountPitchDeg = pitch,
+                    MountRollDeg = roll,
+                    MountYawDeg = yaw,
+                    NoiseDensityMicroGPerRootHz = noise,
+                },
+            };
+            string summary = FormattableString.Invariant(
+                $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°)" : "no accelerometer")}");
+            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary));
+        }
+
+        return cases;
+    }
+
+    private static Axle DrivenAxleOf(Scenario s) => s.Vehicle.DrivenAxle switch
+    {
+        DrivenAxle.Front => Axle.Front,
+        _ => Axle.Rear,
+    };
+
+    // An all-wheel-drive car has no undriven axle: its pickup always sees drive slip.
+    private static Axle UndrivenAxleOf(Scenario s) => s.Vehicle.DrivenAxle switch
+    {
+        DrivenAxle.Front => Axle.Rear,
+        _ => Axle.Front,
+    };
+}

@@ -1,0 +1,40 @@
+using LaunchLogger.Cli.Output;
+
+namespace LaunchLogger.Cli.Verbs;
+
+/// <summary>What <c>launchlogger report</c> was asked, typed.</summary>
+public sealed record ReportRequest
+{
+    /// <summary>Log files.</summary>
+    public IReadOnlyList<FileInfo> Logs { get; init; } = [];
+
+    /// <summary>Plain-text pulse edge times.</summary>
+    public FileInfo? Edges { get; init; }
+
+    /// <summary>Plain-text counter readings.</summary>
+    public FileInfo? Counts { get; init; }
+
+    /// <summary>Plain-text accelerometer samples.</summary>
+    public FileInfo? Accel { get; init; }
+
+    /// <summary>Distance per pulse, m.</summary>
+    public double? MetresPerPulse { get; init; }
+
+    /// <summary>Pulses per wheel revolution.</summary>
+    public int? PulsesPerRevolution { get; init; }
+
+    /// <summary>Rolling circumference, m.</summary>
+    public double? CircumferenceM { get; init; }
+
+    /// <summary>True for JSON output.</summary>
+    public bool Json { get; init; }
+
+    /// <summary>Units for tables.</summary>
+    public DisplayUnits Units { get; init; } = DisplayUnits.Imperial;
+
+    /// <summary>Extra speed intervals as typed.</summary>
+    public IReadOnlyList<string> Intervals { get; init; } = [];
+
+    /// <summary>Rollout distance override, m.</summary>
+    public double? RolloutM { get; init; }
+}

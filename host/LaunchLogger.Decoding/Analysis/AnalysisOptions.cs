@@ -1,0 +1,23 @@
+using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Decoding.Reconstruction;
+
+namespace LaunchLogger.Decoding.Analysis;
+
+/// <summary>Everything a user can ask of the analysis of a run.</summary>
+public sealed record AnalysisOptions
+{
+    /// <summary>The defaults.</summary>
+    public static AnalysisOptions Default { get; } = new();
+
+    /// <summary>Which figures to time.</summary>
+    public FigureRequest Figures { get; init; } = FigureRequest.Standard;
+
+    /// <summary>Reconstruction settings.</summary>
+    public ReconstructionOptions Reconstruction { get; init; } = ReconstructionOptions.Default;
+
+    /// <summary>Rollout distance override, m; null takes the run's configured one.</summary>
+    public double? RolloutM { get; init; }
+
+    /// <summary>Extra nominal speeds to correct stops to, m/s (60 mph and 100 km/h always).</summary>
+    public IReadOnlyList<double> StopFromMps { get; init; } = [];
+}

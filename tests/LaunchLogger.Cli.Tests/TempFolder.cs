@@ -1,0 +1,33 @@
+namespace LaunchLogger.Cli.Tests;
+
+/// <summary>A scratch folder removed when the test ends.</summary>
+internal sealed class TempFolder : IDisposable
+{
+    public TempFolder()
+    {
+        Path = System.IO.Path.Combine(System.IO.Path.GetTempPath(), "launchlogger-tests-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(Path);
+    }
+
+    public string Path { get; }
+
+    public string File(string name) => System.IO.Path.Combine(Path, name);
+
+    public string Write(string name, string text)
+    {
+        string path = File(name);
+        System.IO.File.WriteAllText(path, text);
+        return path;
+    }
+
+    public void Dispose()
+    {
+        try
+        {
+            Directory.Delete(Path, recursive: true);
+        }
+        catch (IOException)
+        {
+        }
+    }
+}
