@@ -1,4 +1,5 @@
 using System.Buffers;
+using System.Runtime.CompilerServices;
 using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Reading;
 using LaunchLogger.Firmware.Wire;
@@ -72,6 +73,9 @@ public static class LogReader
     }
 
     /// <summary>Reads every frame the input holds into the assembler; returns the bytes used.</summary>
+    /// <remarks>Fully optimised from the first call: a whole log in memory is one long call,
+    /// which tiered compilation would otherwise run in its less optimised on-stack-replacement code.</remarks>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static int Pump(ref FrameReader reader, ReadOnlySpan<byte> input, bool isFinalBlock, Span<byte> payload, RunAssembler assembler)
     {
         int offset = 0;

@@ -277,14 +277,15 @@ internal sealed class RunBuilder
             }
         }
 
-        var time = new List<double>(accelSampleCount);
-        var index = new List<long>(accelSampleCount);
-        var forward = new List<double>(accelSampleCount);
-        var lateral = new List<double>(accelSampleCount);
-        var vertical = new List<double>(accelSampleCount);
+        int n = accelSampleCount;
+        var time = new double[n];
+        var index = new long[n];
+        var forward = new double[n];
+        var lateral = new double[n];
+        var vertical = new double[n];
+        int kept = 0;
         long lastIndex = long.MinValue;
         double lastTime = double.NegativeInfinity;
-        int outOfOrder = 0;
         for (int f = 0; f < accelFrames.Count; f++)
         {
             AccelFrameInfo frame = accelFrames[f];
@@ -295,36 +296,41 @@ internal sealed class RunBuilder
                 double t = clock.TimeOf(sampleIndex, segment);
                 if (sampleIndex <= lastIndex || !(t > lastTime))
                 {
-                    outOfOrder++;
                     continue;
                 }
 
                 int at = (frame.Offset + i) * 3;
-                forward.Add(axes.ForwardSign * LogUnits.Mps2(accelValues[at + axes.ForwardAxis]));
-                lateral.Add(axes.LateralSign * LogUnits.Mps2(accelValues[at + axes.LateralAxis]));
-                vertical.Add(axes.VerticalSign * LogUnits.Mps2(accelValues[at + axes.VerticalAxis]));
-                time.Add(t);
-                index.Add(sampleIndex);
+                forward[kept] = axes.ForwardSign * LogUnits.Mps2(accelValues[at + axes.ForwardAxis]);
+                lateral[kept] = axes.LateralSign * LogUnits.Mps2(accelValues[at + axes.LateralAxis]);
+                vertical[kept] = axes.VerticalSign * LogUnits.Mps2(accelValues[at + axes.VerticalAxis]);
+                time[kept] = t;
+                index[kept] = sampleIndex;
+                kept++;
                 lastIndex = sampleIndex;
                 lastTime = t;
             }
         }
 
-        if (outOfOrder > 0)
+        if (kept < n)
         {
-            Warn(Invariant($"{outOfOrder} accelerometer sample(s) repeated or out of order were dropped"));
+            Warn(Invariant($"{n - kept} accelerometer sample(s) repeated or out of order were dropped"));
+            Array.Resize(ref time, kept);
+            Array.Resize(ref index, kept);
+            Array.Resize(ref forward, kept);
+            Array.Resize(ref lateral, kept);
+            Array.Resize(ref vertical, kept);
         }
 
         return new AccelSeries
         {
-            TimeS = time.ToArray(),
-            ForwardMps2 = forward.ToArray(),
-            LateralMps2 = lateral.ToArray(),
-            VerticalMps2 = vertical.ToArray(),
+            TimeS = time,
+            ForwardMps2 = forward,
+            LateralMps2 = lateral,
+            VerticalMps2 = vertical,
             HasAllAxes = true,
             SamplePeriodS = clock.PeriodS,
             SamplePeriodUncertaintyS = clock.PeriodSigmaS,
-            SampleIndex = index.ToArray(),
+            SampleIndex = index,
             Axes = axes,
         };
     }
