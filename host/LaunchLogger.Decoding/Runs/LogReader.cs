@@ -65,6 +65,7 @@ public static class LogReader
     /// <param name="cancellationToken">Stops reading between blocks.</param>
     /// <exception cref="InputException">The file is missing or cannot be opened.</exception>
     /// <exception cref="OperationCanceledException">Cancelled.</exception>
+    /// <exception cref="IOException">Reading failed after the file was opened.</exception>
     public static LogReadResult ReadFile(string path, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(path);

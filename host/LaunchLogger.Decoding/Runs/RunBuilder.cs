@@ -77,7 +77,7 @@ internal sealed class RunBuilder
 
     /// <summary>Builds the run.</summary>
     /// <param name="healthBaseline">Counters to difference the run's last health frame against
-    /// (all zeros for the first run after power-up).</param>
+    /// (null: from zero, for the first run after power-up).</param>
     public DecodedRun Build(long[]? healthBaseline)
     {
         ConfigurationBody c = Configuration;
