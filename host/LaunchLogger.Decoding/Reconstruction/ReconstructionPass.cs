@@ -624,10 +624,12 @@ internal sealed class ReconstructionPass
         double previous = 0;
         for (int k = k0; k < n; k++)
         {
-            double d = Math.Max(fused.DistanceM[k], previous);
+            bool atRest = grid[k] >= stop;
+
+            // Distance never goes back, and stands still once the car is at rest.
+            double d = atRest && k > k0 && grid[k - 1] >= stop ? previous : Math.Max(fused.DistanceM[k], previous);
             previous = d;
             distance[k] = d;
-            bool atRest = grid[k] >= stop;
             speed[k] = atRest ? 0 : Math.Max(fused.SpeedMps[k], 0);
             sd[k] = fused.DistanceSigmaM[k];
             sv[k] = atRest ? 0 : fused.SpeedSigmaMps[k];

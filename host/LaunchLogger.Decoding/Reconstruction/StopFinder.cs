@@ -21,21 +21,23 @@ internal static class StopFinder
         double stop;
         if (accelT != null && accelInput != null && speed > 1e-3)
         {
-            // Integrate the accelerometer forward from the last pulse until the speed reaches 0 or
-            // the car would have reached the next edge.
+            // Integrate the accelerometer forward from the last pulse until the speed is all but
+            // gone (a few cm/s: sampling and offset errors leave a residue that would otherwise
+            // linger) or the car would have reached the next edge.
             int i = Array.BinarySearch(accelT, tLast);
             i = i >= 0 ? i : ~i;
             double v = speed;
             double covered = 0;
             double t = tLast;
             stop = tLast + Math.Min(bound, 1.0);
+            double rest = Math.Max(0.02, 0.05 * speed);
             for (; i < accelT.Length && accelT[i] < tLast + 3; i++)
             {
                 double dt = accelT[i] - t;
                 double vNext = v + (accelInput[i] * dt);
-                if (vNext <= 0)
+                if (vNext <= rest)
                 {
-                    stop = t + (v / Math.Max(v - vNext, 1e-12) * dt);
+                    stop = t + ((v - rest) / Math.Max(v - vNext, 1e-12) * dt);
                     break;
                 }
 

@@ -1,0 +1,285 @@
+using LaunchLogger.Decoding.Reconstruction;
+using LaunchLogger.Decoding.Runs;
+
+namespace LaunchLogger.Decoding.Tests.Reconstruction;
+
+/// <summary>Reconstruction of runs built from closed-form motions (kinematics, any textbook; see
+/// <see cref="Motion"/>): the answers are compared with the motion that made the data.</summary>
+/// <remarks>Unless a test says otherwise the data have 48 pulses per 1.96 m, exact edges with
+/// 0.5 % tooth spread, and a 1 kHz accelerometer with 0.04 m/s² noise, 1-mg steps, a 0.1 m/s²
+/// offset, 0.02 rad resting pitch and 1 mrad of squat per m/s² (<see cref="SyntheticRun"/>).
+/// Tolerances are the product's accuracy goals (first motion and 0–60 mph within 5 ms, rollout
+/// within 2 ms, trap speed within 0.05 m/s at the 95th percentile) unless a comment says why a
+/// case is held tighter or looser.</remarks>
+public class ReconstructorTests
+{
+    private const double G0 = 9.80665; // standard gravity, ISO 80000-3
+    private const double StartS = 5.0;
+
+    private static Motion HalfGToSixtyAndStop() => Motion.FromRestAt(StartS).Accelerate(0.5 * G0, 6).BrakeToStop(6);
+
+    /// <summary>A drag-strip style launch: drive torque building up at a constant jerk to the
+    /// traction limit, held there, then power-limited (F = P/v), then braking to rest.</summary>
+    private static Motion QuarterMileLaunch() =>
+        Motion.FromRestAt(StartS).Jerk(35, 5.0 / 35).Accelerate(5.0, 1.5).ConstantPower(85, 14).BrakeToStop(6);
+
+    [Fact]
+    public void FusedRunReportsItsMethodAndAValidTrajectory()
+    {
+        DecodedRun input = new SyntheticRun { Motion = HalfGToSixtyAndStop() }.Build();
+        ReconstructedRun run = Reconstructor.Reconstruct(input);
+
+        Assert.Same(input, run.Source);
+        Assert.Equal(ReconstructionMethod.PulsesAndAccelerometer, run.Method);
+        run.Trajectory.Validate();
+        Assert.NotNull(run.Trajectory.DistanceSigmaM);
+        Assert.NotNull(run.Trajectory.SpeedSigmaMps);
+        Assert.True(run.Trajectory.TimeS[0] < run.FirstMotionS.Value, "the grid starts before first motion");
+        Assert.Equal(0, TrajectoryProbe.DistanceAt(run.Trajectory, run.FirstMotionS.Value - 0.05));
+        Assert.Equal(0.3048, run.RolloutM);
+        Assert.Empty(run.WheelspinWindows);
+    }
+
+    [Theory]
+    [InlineData("exact edges", null)]
+    [InlineData("polled 250 µs", 250e-6)]
+    [InlineData("polled 1 ms", 1e-3)]
+    public void FirstMotionRolloutAndSixtyAreWithinTheGoals(string capture, double? pollS)
+    {
+        _ = capture;
+        Motion motion = QuarterMileLaunch();
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 5, PollPeriodS = pollS, PollJitterS = 40e-6 }.Build());
+
+        double rolloutTruth = motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
+        double sixtyTruth = motion.TimeAtSpeed(60 * TrajectoryProbe.Mph)!.Value;
+        Assert.InRange(run.FirstMotionS.Value - StartS, -0.005, 0.005);
+        Assert.InRange(run.RolloutTimeS!.Value.Value - rolloutTruth, -0.002, 0.002);
+        Assert.InRange(TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.FirstMotionS.Value) - (sixtyTruth - StartS), -0.005, 0.005);
+    }
+
+    [Fact]
+    public void QuarterMileTimeAndTrapSpeedAreWithinTheGoals()
+    {
+        Motion motion = QuarterMileLaunch();
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 8, PollPeriodS = 250e-6, PollJitterS = 40e-6 }.Build());
+
+        // Trap: mean speed over the 66 ft ending at the quarter-mile line (common practice).
+        double trapStart = TrajectoryProbe.QuarterMile - (66 * TrajectoryProbe.Foot);
+        double end = motion.TimeAtDistance(TrajectoryProbe.QuarterMile)!.Value;
+        double trapTruth = 66 * TrajectoryProbe.Foot / (end - motion.TimeAtDistance(trapStart)!.Value);
+        double ours = TrajectoryProbe.TimeToDistance(run, TrajectoryProbe.QuarterMile, 0);
+        double oursTrap = 66 * TrajectoryProbe.Foot / (ours - TrajectoryProbe.TimeToDistance(run, trapStart, 0));
+
+        Assert.InRange((ours - run.FirstMotionS.Value) - (end - StartS), -0.005, 0.005);
+        Assert.InRange(oursTrap - trapTruth, -0.05, 0.05);
+    }
+
+    [Theory]
+    [InlineData(12)]
+    [InlineData(48)]
+    [InlineData(100)]
+    public void AnyPickupFrom12To100PulsesWorks(int teeth)
+    {
+        Motion motion = QuarterMileLaunch();
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 2, Teeth = teeth }.Build());
+
+        Assert.InRange(run.FirstMotionS.Value - StartS, -0.005, 0.005);
+        Assert.InRange(run.RolloutTimeS!.Value.Value - motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value, -0.002, 0.002);
+        Assert.NotNull(run.FirstPulseDistanceM);
+    }
+
+    [Fact]
+    public void SpeedBetweenPulsesFollowsTheMotion()
+    {
+        // Constant acceleration then constant speed (kinematics, any textbook).
+        Motion motion = Motion.FromRestAt(StartS).Accelerate(3.0, 4).Cruise(3).BrakeToStop(5);
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 4, Teeth = 12 }.Build());
+
+        // 0.02 m/s: the goal for trap speed, which is a mean speed; observed errors are below 0.005 m/s.
+        foreach (double t in new[] { 0.3, 1.0, 2.5, 4.0, 5.0, 6.5 })
+        {
+            Assert.InRange(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + t) - motion.At(StartS + t).V, -0.02, 0.02);
+        }
+    }
+
+    [Fact]
+    public void PowerLimitedSpeedFollowsTheClosedForm()
+    {
+        // Under constant power per mass p the kinetic energy rises linearly: v = √(v₀² + 2·p·τ).
+        Motion motion = Motion.FromRestAt(StartS).Accelerate(4.0, 2.0).ConstantPower(60, 8).BrakeToStop(6);
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 6 }.Build());
+
+        foreach (double tau in new[] { 0.5, 2.0, 4.0, 7.9 })
+        {
+            double expected = Math.Sqrt((8.0 * 8.0) + (2 * 60 * tau));
+            Assert.Equal(expected, motion.At(StartS + 2.0 + tau).V, 9);
+            Assert.InRange(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + 2.0 + tau) - expected, -0.02, 0.02);
+        }
+    }
+
+    [Fact]
+    public void SpeedIsZeroFromTheStopOn()
+    {
+        // Braking at a constant 6 m/s² from 29.4 m/s stops the car 4.9 s later, d = v²/(2a) further on.
+        Motion motion = HalfGToSixtyAndStop();
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 9 }.Build());
+
+        Assert.NotNull(run.StopS);
+        Assert.InRange(run.StopS!.Value - motion.EndS, -0.05, 0.05);
+        Trajectory trajectory = run.Trajectory;
+        Assert.True(trajectory.TimeS[^1] > motion.EndS + 1, "the trajectory runs on past the stop");
+        for (int k = 0; k < trajectory.Count; k++)
+        {
+            if (trajectory.TimeS[k] >= run.StopS.Value)
+            {
+                Assert.Equal(0, trajectory.SpeedMps[k]);
+                Assert.Equal(trajectory.DistanceM[^1], trajectory.DistanceM[k], 9);
+            }
+        }
+
+        // Half a second before the stop: v = 6 × 0.5 = 3 m/s. The whole distance within 5 cm.
+        Assert.InRange(TrajectoryProbe.SpeedAt(trajectory, motion.EndS - 0.5) - 3.0, -0.03, 0.03);
+        Assert.InRange(trajectory.DistanceM[^1] - motion.At(motion.EndS).D, -0.05, 0.05);
+    }
+
+    [Fact]
+    public void PulsesOnlyBackExtrapolatesWithAnHonestUncertainty()
+    {
+        Motion motion = QuarterMileLaunch();
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 3, WithAccelerometer = false }.Build());
+        ReconstructedRun naive = NaiveReconstruction.Reconstruct(new SyntheticRun { Motion = motion, Seed = 3, WithAccelerometer = false }.Build());
+
+        Assert.Equal(ReconstructionMethod.PulsesOnly, run.Method);
+        Assert.Contains(run.Warnings, w => w.Contains("no accelerometer"));
+        Assert.Null(run.AccelBiasMps2);
+
+        // Nothing is seen before the first pulse, so the σ is tens of milliseconds; the truth
+        // lies within 2 σ, and the answer still beats the first-edge start.
+        double error = run.FirstMotionS.Value - StartS;
+        Assert.InRange(run.FirstMotionS.Sigma, 0.005, 0.1);
+        Assert.InRange(Math.Abs(error), 0, 2 * run.FirstMotionS.Sigma);
+        Assert.True(Math.Abs(error) < Math.Abs(naive.FirstMotionS.Value - StartS));
+        double rolloutError = run.RolloutTimeS!.Value.Value - motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
+        Assert.InRange(Math.Abs(rolloutError), 0, 2 * run.RolloutTimeS!.Value.Sigma);
+
+        // Once the pulses come thick and fast the speed is as good as with an accelerometer.
+        Assert.InRange(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + 5) - motion.At(StartS + 5).V, -0.03, 0.03);
+    }
+
+    [Fact]
+    public void AccelerometerOnlyIntegratesAndWarnsOfDrift()
+    {
+        Motion motion = Motion.FromRestAt(StartS).Jerk(35, 5.0 / 35).Accelerate(5.0, 2.0).BrakeToStop(5);
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 10, WithPulses = false }.Build());
+
+        Assert.Equal(ReconstructionMethod.AccelerometerOnly, run.Method);
+        Assert.Contains(run.Warnings, w => w.Contains("drift"));
+        Assert.Null(run.FirstPulseDistanceM);
+        Assert.InRange(run.FirstMotionS.Value - StartS, -0.005, 0.005);
+
+        // The car stands still after the stop, which pins the drift down: zero speed there, and
+        // in between the error stays within its own 3 σ.
+        Assert.NotNull(run.StopS);
+        Assert.Equal(0, run.Trajectory.SpeedMps[^1]);
+        foreach (double t in new[] { 0.5, 1.5, 3.0 })
+        {
+            double sigma = TrajectoryProbe.At(run.Trajectory, run.Trajectory.SpeedSigmaMps!, StartS + t);
+            Assert.InRange(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + t) - motion.At(StartS + t).V, -3 * sigma - 0.01, 3 * sigma + 0.01);
+        }
+    }
+
+    [Fact]
+    public void WheelspinIsFoundAndDoesNotInflateTheDistance()
+    {
+        // A driven-wheel pickup: the wheel spins up to 1.5 m/s faster than the car for 0.6 s,
+        // adding 1.5 × 0.6 / 2 = 0.45 m of pulses the car never covered.
+        Motion motion = QuarterMileLaunch();
+        var synthetic = new SyntheticRun { Motion = motion, Seed = 12, SpinPeakMps = 1.5, SpinStartS = StartS + 0.5, SpinLengthS = 0.6 };
+        ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
+
+        Assert.NotEmpty(run.WheelspinWindows);
+        Assert.Contains(run.WheelspinWindows, w => w.StartS < StartS + 1.1 && w.EndS > StartS + 0.5);
+        Assert.Contains(run.Warnings, w => w.Contains("wheelspin"));
+
+        // 60 ft and the quarter mile measured on the car, not on the spinning wheel: 0.45 m at
+        // 60 ft is about 50 ms, so a 5-ms tolerance shows the spin was taken out.
+        double sixtyFeet = 60 * TrajectoryProbe.Foot;
+        Assert.InRange(TrajectoryProbe.TimeToDistance(run, sixtyFeet, 0) - motion.TimeAtDistance(sixtyFeet)!.Value, -0.005, 0.005);
+        Assert.InRange(TrajectoryProbe.TimeToDistance(run, TrajectoryProbe.QuarterMile, 0) - motion.TimeAtDistance(TrajectoryProbe.QuarterMile)!.Value, -0.005, 0.005);
+    }
+
+    [Fact]
+    public void RestingLevelAndPitchComeFromTheStillSamples()
+    {
+        var synthetic = new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 13 };
+        ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
+
+        // At rest the forward axis reads g·sin(pitch) plus its offset (specific force, level ground).
+        double expectedLevel = (G0 * Math.Sin(synthetic.PitchRad)) + synthetic.AccelBiasMps2;
+        Assert.InRange(run.RestingForwardMps2!.Value.Value - expectedLevel, -0.005, 0.005);
+        Assert.InRange(run.RestingPitchRad!.Value.Value - Math.Asin(expectedLevel / G0), -0.001, 0.001);
+        Assert.NotNull(run.AccelBiasMps2);
+    }
+
+    [Fact]
+    public void WideBracketsAreReported()
+    {
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 14, PollPeriodS = 0.003 }.Build());
+
+        Assert.Contains(run.Warnings, w => w.Contains("wider than 2.0 ms"));
+        Assert.InRange(run.RolloutTimeS!.Value.Value - (StartS + 0.35260), -0.003, 0.003);
+    }
+
+    [Fact]
+    public void AFirmwareRolloutMarkFarFromOursIsReported()
+    {
+        Motion motion = HalfGToSixtyAndStop();
+        ReconstructedRun close = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 15, FirmwareRolloutS = StartS + 0.3526 }.Build());
+        ReconstructedRun far = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 15, FirmwareRolloutS = StartS + 0.45 }.Build());
+
+        Assert.DoesNotContain(close.Warnings, w => w.Contains("rollout mark"));
+        Assert.Contains(far.Warnings, w => w.Contains("rollout mark"));
+    }
+
+    [Fact]
+    public void ARunOpenedWhileRollingCountsFromItsFirstPulse()
+    {
+        Motion motion = Motion.FromRestAt(StartS).Accelerate(3, 3).Cruise(2);
+        DecodedRun input = new SyntheticRun { Motion = motion, Seed = 16, Staged = false } .Build();
+        ReconstructedRun run = Reconstructor.Reconstruct(input);
+
+        Assert.Equal(input.Pulses[0].MidS, run.FirstMotionS.Value, 6);
+        Assert.Contains(run.Warnings, w => w.Contains("rolling"));
+        Assert.InRange(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + 4) - 9.0, -0.03, 0.03);
+    }
+
+    [Fact]
+    public void NoDataGivesAWarningNotAnException()
+    {
+        var empty = new DecodedRun { Source = "empty", Configuration = new RunConfiguration { OpenedS = 2.0 }, Pulses = [] };
+        ReconstructedRun run = Reconstructor.Reconstruct(empty);
+
+        Assert.Single(run.Warnings);
+        Assert.Equal(2.0, run.FirstMotionS.Value);
+        Assert.Null(run.RolloutTimeS);
+    }
+
+    [Fact]
+    public void ThrowsOnANullRun()
+    {
+        Assert.Throws<ArgumentNullException>(() => Reconstructor.Reconstruct(null!));
+    }
+
+    [Fact]
+    public void OptionsCanSwitchTheAccelerometerOffAndMoveTheRollout()
+    {
+        DecodedRun input = new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 17 }.Build();
+        ReconstructedRun run = Reconstructor.Reconstruct(input, new ReconstructionOptions { UseAccelerometer = false, RolloutM = 1.0 });
+
+        Assert.Equal(ReconstructionMethod.PulsesOnly, run.Method);
+        Assert.Equal(1.0, run.RolloutM);
+
+        // d = a·t²/2 = 1 m after √(2/4.903325) = 0.63866 s; the pulses-only σ sets the tolerance.
+        Assert.InRange(run.RolloutTimeS!.Value.Value - (StartS + 0.63866), -3 * run.RolloutTimeS.Value.Sigma, 3 * run.RolloutTimeS.Value.Sigma);
+    }
+}
