@@ -25,16 +25,39 @@ public static class ReportTableWriter
             console.MarkupLine($"[yellow]Log damage:[/] {reader.CrcErrors} CRC errors, {reader.MalformedFrames} malformed frames, {reader.FramesLost} frames lost, {reader.BytesSkipped} bytes skipped, {reader.TruncatedBytes} bytes cut off at the end");
         }
 
+        if (document.Weather is { } w)
+        {
+            console.MarkupLine(Markup.Escape(FormattableString.Invariant(
+                $"Weather: {w.TemperatureC:0.0} °C, {w.PressureHpa:0.0} hPa, {w.RelativeHumidityPct:0} % RH → air {w.DensityKgPerM3:0.000} kg/m³, density altitude {Format.Distance(w.DensityAltitudeM, units)}, SAE J1349 CF {w.CorrectionFactor:0.000}")));
+        }
+
         foreach (RunReport run in document.Runs)
         {
-            WriteRun(console, document.Source, run, units);
+            WriteRun(console, run, units);
+        }
+
+        foreach (PairReport pair in document.Pairs)
+        {
+            console.WriteLine();
+            console.Write(new Rule($"[bold]Runs {pair.Runs[0]} and {pair.Runs[1]}, averaged[/] · {Markup.Escape(pair.Method)}").LeftJustified());
+            console.Write(FigureTables.Intervals(pair.SpeedIntervals));
+            console.Write(FigureTables.Marks(pair.DistanceMarks, units));
+        }
+
+        if (document.TractionBound is { } b)
+        {
+            console.WriteLine();
+            console.MarkupLine(Markup.Escape(FormattableString.Invariant(
+                $"Braking grip bound: the best stop ({b.Source}, mean {Format.Accel(b.MeanDecelMps2)}) allows 0-60 mph in no less than {b.Bound060S:0.000} s and 0-100 km/h in no less than {b.Bound0100KmhS:0.000} s.")));
+            console.MarkupLine("[dim]" + Markup.Escape("Caveats: " + b.Caveats + ".") + "[/]");
         }
     }
 
-    private static void WriteRun(IAnsiConsole console, string source, RunReport run, DisplayUnits units)
+    private static void WriteRun(IAnsiConsole console, RunReport run, DisplayUnits units)
     {
         console.WriteLine();
-        console.Write(new Rule($"[bold]Run {run.Run}[/] · {Markup.Escape(Path.GetFileName(source))} · {Markup.Escape(run.Method)}{(run.Staged ? "" : " · rolling start")}").LeftJustified());
+        string verdictMark = run.Verdict is { } v ? $" · {VerdictMarkup(v.Level)}" : "";
+        console.Write(new Rule($"[bold]#{run.Index}: run {run.Run}[/] · {Markup.Escape(Path.GetFileName(run.Source))} · {Markup.Escape(run.Method)}{(run.Staged ? "" : " · rolling start")}{verdictMark}").LeftJustified());
         var facts = new Grid().AddColumn().AddColumn();
         facts.AddRow("First motion", $"{Format.SecondsWithSigma(run.FirstMotionS, run.FirstMotionUncertaintyS)} on the input's clock");
         RolloutReport r = run.Rollout;
@@ -45,42 +68,63 @@ public static class ReportTableWriter
                 : "not reached");
         facts.AddRow("Peak acceleration", Format.Accel(run.PeakAccelMps2));
         facts.AddRow("Top speed, distance", $"{Format.Speed(run.MaxSpeedMps, units)}, {Format.Distance(run.DistanceM, units)}");
+        if (run.Grade is { } g)
+        {
+            facts.AddRow("Grade at staging", FormattableString.Invariant($"{g.Percent:+0.00;-0.00} % ± {g.UncertaintyPercent:0.00} %{(g.MountingCalibrated ? "" : " (box mounting not calibrated)")}"));
+        }
+
         console.Write(facts);
 
-        var intervals = new Table().Border(TableBorder.Simple)
-            .AddColumn("Speed interval")
-            .AddColumn(new TableColumn("From standstill").RightAligned())
-            .AddColumn(new TableColumn("After rollout").RightAligned());
-        foreach (SpeedIntervalReport i in run.SpeedIntervals)
+        console.Write(FigureTables.Intervals(run.SpeedIntervals));
+        console.Write(FigureTables.Marks(run.DistanceMarks, units));
+        foreach (CorrectedFiguresReport correction in run.Corrections)
         {
-            bool standing = i.FromMps == 0;
-            intervals.AddRow(
-                new Text(i.Label),
-                new Text(Format.SecondsWithSigma(i.FromStandstillS, i.UncertaintyS)),
-                standing ? new Text(Format.SecondsWithSigma(i.FromRolloutS, i.FromRolloutUncertaintyS)) : new Text("same", new Style(decoration: Decoration.Dim)));
+            string title = correction.Kind == "level" ? "Corrected to level ground" : "Corrected to standard air (SAE J1349)";
+            console.MarkupLine($"[bold]{title}[/] [dim]({Markup.Escape(correction.Method)})[/]");
+            console.Write(FigureTables.Intervals(correction.SpeedIntervals.Where(i => i.FromMps == 0).ToList()));
         }
 
-        var marks = new Table().Border(TableBorder.Simple)
-            .AddColumn("Distance")
-            .AddColumn(new TableColumn("From standstill").RightAligned())
-            .AddColumn(new TableColumn("After rollout").RightAligned())
-            .AddColumn(new TableColumn("Speed").RightAligned())
-            .AddColumn(new TableColumn("Trap speed").RightAligned());
-        foreach (DistanceMarkReport m in run.DistanceMarks)
+        if (run.Braking is { } brake)
         {
-            marks.AddRow(
-                m.Label,
-                Format.SecondsWithSigma(m.FromStandstillS, m.UncertaintyS),
-                Format.SecondsWithSigma(m.FromRolloutS, m.FromRolloutUncertaintyS),
-                Format.Speed(m.SpeedMps, units),
-                m.TrapSpeedMps is { } trap ? $"{Format.Speed(trap, units)} {Format.SpeedSigma(m.TrapSpeedUncertaintyMps, units)}" : "");
+            WriteBraking(console, brake, units);
         }
 
-        console.Write(intervals);
-        console.Write(marks);
+        if (run.Verdict is { Reasons.Count: > 0 } verdict)
+        {
+            foreach (VerdictReasonReport reason in verdict.Reasons)
+            {
+                console.MarkupLine($"{VerdictMarkup(reason.Level)}: {Markup.Escape(reason.Text)} [dim]({reason.Code})[/]");
+            }
+        }
+
         foreach (string warning in run.Warnings)
         {
             console.MarkupLine($"[yellow]warning:[/] {Markup.Escape(warning)}");
         }
     }
+
+    private static void WriteBraking(IAnsiConsole console, BrakingReport b, DisplayUnits units)
+    {
+        console.MarkupLine("[bold]Stop[/]");
+        var grid = new Grid().AddColumn().AddColumn();
+        grid.AddRow("Brake onset", FormattableString.Invariant($"{Format.SecondsWithSigma(b.OnsetS, b.OnsetUncertaintyS)} on the input's clock, from {Format.Speed(b.FromMps, units)} ({b.OnsetMethod})"));
+        grid.AddRow("Stopping distance", FormattableString.Invariant($"{Format.Distance(b.StoppingDistanceM, units)} ± {Format.Distance(b.StoppingDistanceUncertaintyM, units)}"));
+        foreach (CorrectedStopReport c in b.CorrectedStops)
+        {
+            grid.AddRow($"  {c.Label}", c.CorrectedDistanceM is { } d ? $"{Format.Distance(d, units)} [dim](scaled by (nominal/actual speed)²)[/]" : $"[dim]{Markup.Escape(c.Method)}[/]");
+        }
+
+        grid.AddRow("Mean deceleration", Format.Accel(b.MeanDecelMps2));
+        grid.AddRow("MFDD (UN R13)", Format.Accel(b.MfddMps2));
+        grid.AddRow("Peak deceleration", Format.Accel(b.PeakDecelMps2));
+        grid.AddRow("Grip bound", FormattableString.Invariant($"0-60 mph ≥ {b.TractionBound060S:0.000} s, 0-100 km/h ≥ {b.TractionBound0100KmhS:0.000} s"));
+        console.Write(grid);
+    }
+
+    private static string VerdictMarkup(string level) => level switch
+    {
+        "valid" => "[green]valid[/]",
+        "doubtful" => "[yellow]doubtful[/]",
+        _ => "[red]invalid[/]",
+    };
 }

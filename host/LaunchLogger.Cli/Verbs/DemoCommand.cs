@@ -47,32 +47,19 @@ public static class DemoCommand
         output.WriteLine($"Simulating '{scenario.Name}' (seed {seed}) through the firmware core…");
         SimulationResult simulation = Simulator.Run(scenario, seed);
         LogReadResult log = LogReader.Read(simulation.LogBytes, scenario.Name + ".log");
-        var analyses = new List<RunAnalysis>();
-        foreach (DecodedRun run in log.Runs)
+        SessionAnalysis session = SessionAnalyzer.Analyze(log.Runs);
+        foreach (string failure in session.Failures)
         {
-            try
-            {
-                analyses.Add(RunAnalyzer.Analyze(run));
-            }
-            catch (AnalysisException e)
-            {
-                error.WriteLine($"launchlogger demo: {e.Message}");
-            }
+            error.WriteLine($"launchlogger demo: {failure}");
         }
 
-        if (analyses.Count == 0)
+        if (session.Runs.Count == 0)
         {
             error.WriteLine("launchlogger demo: the simulated log held no run that could be analysed");
             return ExitCode.CheckFailed;
         }
 
-        var document = new ReportDocument
-        {
-            ToolVersion = ToolInfo.Version,
-            Source = log.Source,
-            Reader = ReaderReport.From(log.Stats),
-            Runs = analyses.Select(RunReportBuilder.Build).ToList(),
-        };
+        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, log.Source, ReaderReport.From(log.Stats), weather: null, pairs: []);
         var table = new StringWriter(CultureInfo.InvariantCulture);
         ReportTableWriter.Write(document, table, units);
         string stem = Path.Combine(outDir, scenario.Name);
@@ -93,7 +80,7 @@ public static class DemoCommand
         }
 
         ReportTableWriter.Write(document, output, units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
-        WriteTruthComparison(simulation, analyses[0], output);
+        WriteTruthComparison(simulation, session.Runs[0], output);
         output.WriteLine();
         output.WriteLine($"Wrote {stem}.log, {stem}-truth.json, {stem}-report.json and {stem}-report.txt");
         output.WriteLine($"Decode the log yourself: launchlogger report {stem}.log");

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using LaunchLogger.Cli.Output;
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reporting;
@@ -26,9 +27,13 @@ public static class ReportCommand
         var units = new Option<DisplayUnits>("--units") { Description = "Units for tables: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var interval = new Option<string[]>("--interval") { Description = "Extra speed interval to time, e.g. 40-80mph or 0-150kmh (repeatable).", AllowMultipleArgumentsPerToken = false };
         var rollout = new Option<double?>("--rollout-m") { Description = "Rollout distance, m (default: the box's setting, normally 0.3048)." };
+        var weather = new Option<string?>("--weather") { Description = "Weather during the runs: T_C,P_hPa,RH_pct (station pressure), e.g. 18.5,1008,62; adds figures corrected to standard air." };
+        var pair = new Option<string[]>("--pair") { Description = "Two runs driven in opposite directions, by their index in this report, e.g. 1,2 (repeatable); adds their mean." };
+        var brakeReference = new Option<FileInfo?>("--brake-reference") { Description = "A log with a stop whose braking grip bounds every launch (default: the best stop among the runs reported)." };
+        var stopFrom = new Option<string[]>("--stop-from") { Description = "Extra nominal speed to correct stopping distances to, e.g. 50mph (repeatable; 60 mph and 100 km/h always)." };
         var command = new Command("report", "Rebuild each run and report its figures from standstill and after the rollout.")
         {
-            logs, edges, counts, accel, metresPerPulse, pulsesPerRev, circumference, json, units, interval, rollout,
+            logs, edges, counts, accel, metresPerPulse, pulsesPerRev, circumference, json, units, interval, rollout, weather, pair, brakeReference, stopFrom,
         };
         command.SetAction((parse, cancel) => Task.FromResult((int)Run(
             new ReportRequest
@@ -44,6 +49,10 @@ public static class ReportCommand
                 Units = parse.GetValue(units),
                 Intervals = parse.GetValue(interval) ?? [],
                 RolloutM = parse.GetValue(rollout),
+                Weather = parse.GetValue(weather),
+                Pairs = parse.GetValue(pair) ?? [],
+                BrakeReference = parse.GetValue(brakeReference),
+                StopFrom = parse.GetValue(stopFrom) ?? [],
             },
             parse.InvocationConfiguration.Output,
             parse.InvocationConfiguration.Error,
@@ -55,12 +64,16 @@ public static class ReportCommand
     public static ExitCode Run(ReportRequest request, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
         AnalysisOptions options;
+        Weather? weather;
         try
         {
+            weather = request.Weather is { } w ? Weather.Parse(w) : null;
             options = new AnalysisOptions
             {
                 Figures = FigureRequest.Standard.With(request.Intervals.Select(SpeedInterval.Parse)),
                 RolloutM = request.RolloutM,
+                Weather = weather,
+                StopFromMps = request.StopFrom.Select(SpeedInterval.ParseSpeedMps).ToList(),
             };
         }
         catch (FormatException e)
@@ -76,9 +89,18 @@ public static class ReportCommand
         }
 
         List<RunInputs.Input> inputs;
+        List<DecodedRun> referenceRuns = [];
         try
         {
             inputs = RunInputs.Load(request, cancel);
+            if (request.BrakeReference is { } reference)
+            {
+                referenceRuns = [.. LogReader.ReadFile(reference.FullName, cancel).Runs];
+                if (referenceRuns.Count == 0)
+                {
+                    throw new InputException(reference.FullName, 0, "the braking reference holds no run");
+                }
+            }
         }
         catch (InputException e)
         {
@@ -91,9 +113,8 @@ public static class ReportCommand
             return ExitCode.Usage;
         }
 
-        var reports = new List<RunReport>();
-        var failures = new List<string>();
         ReaderReport? reader = null;
+        var failures = new List<string>();
         foreach (RunInputs.Input input in inputs)
         {
             reader = ReaderReport.Sum(reader, input.Reader);
@@ -106,38 +127,32 @@ public static class ReportCommand
             {
                 failures.Add($"{input.Source}: no runs in the input");
             }
-
-            foreach (DecodedRun run in input.Runs)
-            {
-                cancel.ThrowIfCancellationRequested();
-                try
-                {
-                    reports.Add(RunReportBuilder.Build(RunAnalyzer.Analyze(run, options)));
-                }
-                catch (AnalysisException e)
-                {
-                    failures.Add(e.Message);
-                }
-            }
         }
 
+        SessionAnalysis session = SessionAnalyzer.Analyze(inputs.SelectMany(i => i.Runs), options, referenceRuns, cancel);
+        failures.AddRange(session.Failures);
         foreach (string failure in failures)
         {
             error.WriteLine($"launchlogger report: {failure}");
         }
 
-        if (reports.Count == 0)
+        if (session.Runs.Count == 0)
         {
             return ExitCode.BadInput;
         }
 
-        var document = new ReportDocument
+        List<(int A, int B)> pairs;
+        try
         {
-            ToolVersion = ToolInfo.Version,
-            Source = string.Join(", ", inputs.Select(i => i.Source)),
-            Reader = reader,
-            Runs = reports,
-        };
+            pairs = request.Pairs.Select(p => ParsePair(p, session.Runs.Count)).ToList();
+        }
+        catch (UsageException e)
+        {
+            error.WriteLine($"launchlogger report: {e.Message}");
+            return ExitCode.Usage;
+        }
+
+        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, string.Join(", ", inputs.Select(i => i.Source)), reader, weather, pairs);
         if (request.Json)
         {
             output.WriteLine(ReportJson.Serialize(document));
@@ -148,5 +163,21 @@ public static class ReportCommand
         }
 
         return failures.Count == 0 ? ExitCode.Ok : ExitCode.Partial;
+    }
+
+    private static (int A, int B) ParsePair(string text, int runs)
+    {
+        string[] parts = text.Split(',');
+        if (parts.Length != 2 || !int.TryParse(parts[0], out int a) || !int.TryParse(parts[1], out int b))
+        {
+            throw new UsageException($"--pair '{text}' must be two run indexes, e.g. 1,2");
+        }
+
+        if (a < 1 || b < 1 || a > runs || b > runs || a == b)
+        {
+            throw new UsageException($"--pair '{text}' must name two different runs from 1 to {runs}");
+        }
+
+        return (a, b);
     }
 }

@@ -37,4 +37,16 @@ public sealed record ReportRequest
 
     /// <summary>Rollout distance override, m.</summary>
     public double? RolloutM { get; init; }
+
+    /// <summary>Weather as typed: "T_C,P_hPa,RH_pct".</summary>
+    public string? Weather { get; init; }
+
+    /// <summary>Pairs of runs in opposite directions, as typed: "A,B" (report indexes).</summary>
+    public IReadOnlyList<string> Pairs { get; init; } = [];
+
+    /// <summary>A log whose stops bound every launch.</summary>
+    public FileInfo? BrakeReference { get; init; }
+
+    /// <summary>Extra nominal speeds to correct stops to, as typed, e.g. "50mph".</summary>
+    public IReadOnlyList<string> StopFrom { get; init; } = [];
 }

@@ -1,5 +1,8 @@
+using LaunchLogger.Decoding.Calibration;
+using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reconstruction;
+using LaunchLogger.Decoding.Verdicts;
 
 namespace LaunchLogger.Decoding.Analysis;
 
@@ -20,4 +23,13 @@ public sealed record AnalysisOptions
 
     /// <summary>Extra nominal speeds to correct stops to, m/s (60 mph and 100 km/h always).</summary>
     public IReadOnlyList<double> StopFromMps { get; init; } = [];
+
+    /// <summary>Calibration of the car and box, when the user has one.</summary>
+    public CalibrationSettings? Calibration { get; init; }
+
+    /// <summary>Weather during the runs, when given: figures are also shown corrected to standard air.</summary>
+    public Weather? Weather { get; init; }
+
+    /// <summary>Verdict thresholds.</summary>
+    public VerdictLimits Limits { get; init; } = VerdictLimits.Default;
 }

@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
@@ -31,6 +32,15 @@ public static class RunAnalyzer
         FigureSet figures = FigureCalculator.Compute(reconstruction.Trajectory, reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures);
         double[] brakeOn = run.Events.Where(e => e.Kind == EventKind.BrakeOn).Select(e => e.TimeS).ToArray();
         BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps);
+        GradeEstimate? grade = reconstruction.RestingPitchRad is { } pitch && run.Configuration.Staged
+            ? GradeEstimate.FromRest(pitch, options.Calibration?.MountingPitchDeg * Math.PI / 180, (options.Calibration?.MountingPitchSigmaDeg ?? 0) * Math.PI / 180)
+            : null;
+        // Level-corrected figures only from a calibrated mounting: an uncalibrated box's pitch is
+        // mostly its own tilt and bias, and "correcting" for it would move figures by seconds.
+        FigureSet? level = grade is { MountingCalibrated: true } g
+            ? FigureCalculator.Compute(LevelCorrection.ToLevel(reconstruction.Trajectory, reconstruction.FirstMotionS.Value, g.AngleRad), reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures)
+            : null;
+        FigureSet? standardAir = options.Weather is { } w ? WeatherCorrection.Apply(figures, w.CorrectionFactor) : null;
         return new RunAnalysis
         {
             Run = run,
@@ -38,6 +48,9 @@ public static class RunAnalyzer
             Figures = figures,
             Braking = braking,
             Warnings = run.Warnings.Concat(reconstruction.Warnings).Distinct().ToList(),
+            Grade = grade,
+            LevelFigures = level,
+            StandardAirFigures = standardAir,
         };
     }
 }

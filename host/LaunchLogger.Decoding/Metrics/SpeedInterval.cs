@@ -24,15 +24,8 @@ public sealed record SpeedInterval(string Label, double FromMps, double ToMps)
     /// <exception cref="FormatException">The text is not such an interval; the message says why.</exception>
     public static SpeedInterval Parse(string text)
     {
-        string s = text.Trim().ToLowerInvariant().Replace(" ", "");
-        bool mph = s.EndsWith("mph", StringComparison.Ordinal);
-        string unit = mph ? "mph" : s.EndsWith("km/h", StringComparison.Ordinal) ? "km/h" : s.EndsWith("kmh", StringComparison.Ordinal) ? "kmh" : s.EndsWith("kph", StringComparison.Ordinal) ? "kph" : "";
-        if (unit.Length == 0)
-        {
-            throw new FormatException($"interval '{text}' needs a unit: mph or km/h (e.g. 40-80mph)");
-        }
-
-        string[] parts = s[..^unit.Length].Split('-');
+        (string numbers, bool mph) = SplitUnit(text, "interval", "40-80mph");
+        string[] parts = numbers.Split('-');
         if (parts.Length != 2
             || !double.TryParse(parts[0], NumberStyles.Float, CultureInfo.InvariantCulture, out double from)
             || !double.TryParse(parts[1], NumberStyles.Float, CultureInfo.InvariantCulture, out double to))
@@ -46,6 +39,33 @@ public sealed record SpeedInterval(string Label, double FromMps, double ToMps)
         }
 
         return mph ? Mph(from, to) : Kmh(from, to);
+    }
+
+    /// <summary>Parses one speed with its unit, e.g. "50mph" or "80 km/h", into m/s.</summary>
+    /// <exception cref="FormatException">Not a positive speed with mph or km/h.</exception>
+    public static double ParseSpeedMps(string text)
+    {
+        (string number, bool mph) = SplitUnit(text, "speed", "50mph");
+        if (!double.TryParse(number, NumberStyles.Float, CultureInfo.InvariantCulture, out double value) || !(value > 0))
+        {
+            throw new FormatException($"speed '{text}' is not a positive number with a unit (e.g. 50mph)");
+        }
+
+        return value * (mph ? Units.MpsPerMph : Units.MpsPerKmh);
+    }
+
+    private static (string Numbers, bool Mph) SplitUnit(string text, string what, string example)
+    {
+        string s = text.Trim().ToLowerInvariant().Replace(" ", "");
+        foreach ((string unit, bool mph) in new[] { ("mph", true), ("km/h", false), ("kmh", false), ("kph", false) })
+        {
+            if (s.EndsWith(unit, StringComparison.Ordinal))
+            {
+                return (s[..^unit.Length], mph);
+            }
+        }
+
+        throw new FormatException($"{what} '{text}' needs a unit: mph or km/h (e.g. {example})");
     }
 
     private static string Format(double from, double to, string unit) =>

@@ -26,6 +26,122 @@ public sealed record ReportDocument
 
     /// <summary>Runs in input order.</summary>
     public required IReadOnlyList<RunReport> Runs { get; init; }
+
+    /// <summary>The braking bound every launch was held against; null when no stop was seen.</summary>
+    public TractionBoundReport? TractionBound { get; init; }
+
+    /// <summary>The weather given, and what follows from it; null when none was given.</summary>
+    public WeatherReport? Weather { get; init; }
+
+    /// <summary>Runs paired in opposite directions, and their means.</summary>
+    public IReadOnlyList<PairReport> Pairs { get; init; } = [];
+}
+
+/// <summary>The best 0–60 mph the braking grip shown would allow.</summary>
+public sealed record TractionBoundReport
+{
+    /// <summary>Which stop (log and run).</summary>
+    public required string Source { get; init; }
+
+    /// <summary>That stop's mean deceleration, m/s².</summary>
+    public required double MeanDecelMps2 { get; init; }
+
+    /// <summary>The bound on 0–60 mph, s.</summary>
+    [JsonPropertyName("bound_0_60_s")]
+    public required double Bound060S { get; init; }
+
+    /// <summary>The bound on 0–100 km/h, s.</summary>
+    [JsonPropertyName("bound_0_100_kmh_s")]
+    public required double Bound0100KmhS { get; init; }
+
+    /// <summary>What the bound does not account for.</summary>
+    public required string Caveats { get; init; }
+}
+
+/// <summary>The weather and its consequences.</summary>
+public sealed record WeatherReport
+{
+    /// <summary>Air temperature, °C.</summary>
+    public required double TemperatureC { get; init; }
+
+    /// <summary>Station pressure, hPa.</summary>
+    public required double PressureHpa { get; init; }
+
+    /// <summary>Relative humidity, %.</summary>
+    public required double RelativeHumidityPct { get; init; }
+
+    /// <summary>Humid-air density, kg/m³.</summary>
+    public required double DensityKgPerM3 { get; init; }
+
+    /// <summary>Density altitude (ISA), m.</summary>
+    public required double DensityAltitudeM { get; init; }
+
+    /// <summary>SAE J1349 correction factor.</summary>
+    public required double CorrectionFactor { get; init; }
+
+    /// <summary>How figures were corrected.</summary>
+    public required string Method { get; init; }
+}
+
+/// <summary>Two runs in opposite directions and their mean figures.</summary>
+public sealed record PairReport
+{
+    /// <summary>The two runs' indexes in this report.</summary>
+    public required IReadOnlyList<int> Runs { get; init; }
+
+    /// <summary>How they were combined.</summary>
+    public required string Method { get; init; }
+
+    /// <summary>Mean speed intervals.</summary>
+    public required IReadOnlyList<SpeedIntervalReport> SpeedIntervals { get; init; }
+
+    /// <summary>Mean distance marks.</summary>
+    public required IReadOnlyList<DistanceMarkReport> DistanceMarks { get; init; }
+}
+
+/// <summary>A run's figures after a correction.</summary>
+public sealed record CorrectedFiguresReport
+{
+    /// <summary>"level" (grade removed) or "standard_air" (weather removed).</summary>
+    public required string Kind { get; init; }
+
+    /// <summary>How, in words.</summary>
+    public required string Method { get; init; }
+
+    /// <summary>Corrected speed intervals.</summary>
+    public required IReadOnlyList<SpeedIntervalReport> SpeedIntervals { get; init; }
+
+    /// <summary>Corrected distance marks.</summary>
+    public required IReadOnlyList<DistanceMarkReport> DistanceMarks { get; init; }
+}
+
+/// <summary>A run's verdict.</summary>
+public sealed record VerdictReport
+{
+    /// <summary>"valid", "doubtful" or "invalid".</summary>
+    public required string Level { get; init; }
+
+    /// <summary>Why, worst first.</summary>
+    public required IReadOnlyList<VerdictReasonReport> Reasons { get; init; }
+}
+
+/// <summary>One reason behind a verdict.</summary>
+/// <param name="Level">"doubtful" or "invalid".</param>
+/// <param name="Code">Stable snake_case name, e.g. "wheelspin".</param>
+/// <param name="Text">For people.</param>
+public sealed record VerdictReasonReport(string Level, string Code, string Text);
+
+/// <summary>The road's grade at staging.</summary>
+public sealed record GradeReport
+{
+    /// <summary>Grade, %, uphill positive.</summary>
+    public required double Percent { get; init; }
+
+    /// <summary>1-σ, %.</summary>
+    public required double UncertaintyPercent { get; init; }
+
+    /// <summary>True when the box's mounting pitch was calibrated.</summary>
+    public required bool MountingCalibrated { get; init; }
 }
 
 /// <summary>What the frame reader met, summed over every log read.</summary>
@@ -75,8 +191,17 @@ public sealed record ReaderReport(
 /// <summary>One run's figures under both conventions.</summary>
 public sealed record RunReport
 {
+    /// <summary>Position in this report, 1-based (what --pair refers to).</summary>
+    public int Index { get; init; }
+
+    /// <summary>The log or file the run came from.</summary>
+    public string Source { get; init; } = "";
+
     /// <summary>Run number (1-based, as the box numbered it).</summary>
     public required int Run { get; init; }
+
+    /// <summary>Whether the figures can be quoted, and why not.</summary>
+    public VerdictReport? Verdict { get; init; }
 
     /// <summary>How the motion was reconstructed: "pulses and accelerometer", "pulses only", "accelerometer only".</summary>
     public required string Method { get; init; }
@@ -114,6 +239,12 @@ public sealed record RunReport
 
     /// <summary>The stop at the end of the run; null when the run does not end with one.</summary>
     public BrakingReport? Braking { get; init; }
+
+    /// <summary>The road's grade at staging; null without an accelerometer.</summary>
+    public GradeReport? Grade { get; init; }
+
+    /// <summary>The figures corrected to level ground and to standard air, where known.</summary>
+    public IReadOnlyList<CorrectedFiguresReport> Corrections { get; init; } = [];
 
     /// <summary>Everything the reader, importer and reconstruction noticed.</summary>
     public required IReadOnlyList<string> Warnings { get; init; }

@@ -1,14 +1,16 @@
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Decoding.Verdicts;
 
 namespace LaunchLogger.Decoding.Reporting;
 
 /// <summary>Turns a run's figures into its report entry.</summary>
 public static class RunReportBuilder
 {
-    /// <summary>Builds the entry for an analysed run.</summary>
-    public static RunReport Build(RunAnalysis analysis)
+    /// <summary>Builds the entry for an analysed run at position <paramref name="index"/> (1-based).</summary>
+    public static RunReport Build(RunAnalysis analysis, int index = 1)
     {
         ArgumentNullException.ThrowIfNull(analysis);
         RunReport report = Build(
@@ -18,8 +20,80 @@ public static class RunReportBuilder
             analysis.Figures,
             analysis.Run.FirmwareRolloutS,
             analysis.Warnings);
-        return report with { Braking = analysis.Braking is { } b ? Braking(b) : null };
+        var corrections = new List<CorrectedFiguresReport>();
+        if (analysis.LevelFigures is { } level)
+        {
+            corrections.Add(Corrected("level", LevelCorrection.Method, level));
+        }
+
+        if (analysis.StandardAirFigures is { } air)
+        {
+            corrections.Add(Corrected("standard_air", WeatherCorrection.Method, air));
+        }
+
+        return report with
+        {
+            Index = index,
+            Source = analysis.Run.Source,
+            Braking = analysis.Braking is { } b ? Braking(b) : null,
+            Verdict = analysis.Verdict is { } v ? Verdict(v) : null,
+            Grade = analysis.Grade is { } g ? new GradeReport { Percent = g.Percent, UncertaintyPercent = Math.Tan(g.SigmaRad) * 100, MountingCalibrated = g.MountingCalibrated } : null,
+            Corrections = corrections,
+        };
     }
+
+    /// <summary>The report of a whole session.</summary>
+    public static ReportDocument Document(SessionAnalysis session, string toolVersion, string source, ReaderReport? reader, Weather? weather, IReadOnlyList<(int A, int B)> pairs)
+    {
+        ArgumentNullException.ThrowIfNull(session);
+        return new ReportDocument
+        {
+            ToolVersion = toolVersion,
+            Source = source,
+            Reader = reader,
+            Runs = session.Runs.Select((a, i) => Build(a, i + 1)).ToList(),
+            TractionBound = session.Bound is { } b ? new TractionBoundReport
+            {
+                Source = b.Source,
+                MeanDecelMps2 = b.MeanDecelMps2,
+                Bound060S = b.Bound0To60S,
+                Bound0100KmhS = b.Bound0To100KmhS,
+                Caveats = TractionBound.Caveats,
+            } : null,
+            Weather = weather is null ? null : new WeatherReport
+            {
+                TemperatureC = weather.TemperatureC,
+                PressureHpa = weather.PressureHPa,
+                RelativeHumidityPct = weather.RelativeHumidityPct,
+                DensityKgPerM3 = weather.DensityKgPerM3,
+                DensityAltitudeM = weather.DensityAltitudeM,
+                CorrectionFactor = weather.CorrectionFactor,
+                Method = WeatherCorrection.Method,
+            },
+            Pairs = pairs.Select(p =>
+            {
+                FigureSet mean = PairAverage.Mean(session.Runs[p.A - 1].Figures, session.Runs[p.B - 1].Figures);
+                return new PairReport { Runs = [p.A, p.B], Method = PairAverage.Method, SpeedIntervals = Intervals(mean), DistanceMarks = Marks(mean) };
+            }).ToList(),
+        };
+    }
+
+    /// <summary>The report of a verdict.</summary>
+    public static VerdictReport Verdict(Verdict verdict) => new()
+    {
+        Level = LevelName(verdict.Level),
+        Reasons = verdict.Reasons.Select(r => new VerdictReasonReport(LevelName(r.Level), r.Code, r.Text)).ToList(),
+    };
+
+    private static string LevelName(VerdictLevel level) => level.ToString().ToLowerInvariant();
+
+    private static CorrectedFiguresReport Corrected(string kind, string method, FigureSet figures) => new()
+    {
+        Kind = kind,
+        Method = method,
+        SpeedIntervals = Intervals(figures),
+        DistanceMarks = Marks(figures),
+    };
 
     /// <summary>The report of a stop.</summary>
     public static BrakingReport Braking(BrakingResult b)
@@ -75,28 +149,8 @@ public static class RunReportBuilder
                 SpeedUncertaintyMps = figures.RolloutSpeedMps?.Sigma,
                 FirmwareTimeS = firmwareRolloutS,
             },
-            SpeedIntervals = figures.SpeedIntervals.Select(f => new SpeedIntervalReport
-            {
-                Label = f.Interval.Label,
-                FromMps = f.Interval.FromMps,
-                ToMps = f.Interval.ToMps,
-                FromStandstillS = f.FromStandstillS,
-                FromRolloutS = f.FromRolloutS,
-                UncertaintyS = f.UncertaintyS,
-                FromRolloutUncertaintyS = f.FromRolloutUncertaintyS,
-            }).ToList(),
-            DistanceMarks = figures.DistanceMarks.Select(m => new DistanceMarkReport
-            {
-                Label = m.Mark.Label,
-                DistanceM = m.Mark.DistanceM,
-                FromStandstillS = m.FromStandstillS,
-                FromRolloutS = m.FromRolloutS,
-                UncertaintyS = m.UncertaintyS,
-                FromRolloutUncertaintyS = m.FromRolloutUncertaintyS,
-                SpeedMps = m.SpeedAtMarkMps,
-                TrapSpeedMps = m.TrapSpeedMps,
-                TrapSpeedUncertaintyMps = m.TrapSpeedUncertaintyMps,
-            }).ToList(),
+            SpeedIntervals = Intervals(figures),
+            DistanceMarks = Marks(figures),
             PeakAccelMps2 = figures.PeakAccelMps2,
             MeanAccel0To60Mps2 = figures.MeanAccel0To60Mps2,
             MaxSpeedMps = figures.MaxSpeedMps,
@@ -104,4 +158,28 @@ public static class RunReportBuilder
             Warnings = warnings.ToList(),
         };
     }
+
+    private static List<SpeedIntervalReport> Intervals(FigureSet figures) => figures.SpeedIntervals.Select(f => new SpeedIntervalReport
+    {
+        Label = f.Interval.Label,
+        FromMps = f.Interval.FromMps,
+        ToMps = f.Interval.ToMps,
+        FromStandstillS = f.FromStandstillS,
+        FromRolloutS = f.FromRolloutS,
+        UncertaintyS = f.UncertaintyS,
+        FromRolloutUncertaintyS = f.FromRolloutUncertaintyS,
+    }).ToList();
+
+    private static List<DistanceMarkReport> Marks(FigureSet figures) => figures.DistanceMarks.Select(m => new DistanceMarkReport
+    {
+        Label = m.Mark.Label,
+        DistanceM = m.Mark.DistanceM,
+        FromStandstillS = m.FromStandstillS,
+        FromRolloutS = m.FromRolloutS,
+        UncertaintyS = m.UncertaintyS,
+        FromRolloutUncertaintyS = m.FromRolloutUncertaintyS,
+        SpeedMps = m.SpeedAtMarkMps,
+        TrapSpeedMps = m.TrapSpeedMps,
+        TrapSpeedUncertaintyMps = m.TrapSpeedUncertaintyMps,
+    }).ToList();
 }

@@ -1,0 +1,28 @@
+namespace LaunchLogger.Decoding.Corrections;
+
+/// <summary>The road's slope along the car at staging.</summary>
+/// <param name="AngleRad">Slope angle, radians, uphill positive.</param>
+/// <param name="SigmaRad">1-σ of the angle, radians.</param>
+/// <param name="MountingCalibrated">True when a calibrated mounting pitch was subtracted; false
+/// when the box was taken as mounted level (the estimate then carries the mounting error).</param>
+public sealed record GradeEstimate(double AngleRad, double SigmaRad, bool MountingCalibrated)
+{
+    /// <summary>Slope in percent (rise over run × 100), uphill positive.</summary>
+    public double Percent => Math.Tan(AngleRad) * 100;
+
+    /// <summary>Slope in degrees, uphill positive.</summary>
+    public double Degrees => AngleRad * 180 / Math.PI;
+
+    /// <summary>Grade from the resting pitch at staging minus the box's calibrated mounting pitch.</summary>
+    /// <param name="restingPitchRad">Pitch of the box at rest (nose up positive), with its σ.</param>
+    /// <param name="mountingPitchRad">Calibrated mounting pitch, or null to take the box as level.</param>
+    /// <param name="mountingPitchSigmaRad">σ of the calibrated mounting pitch.</param>
+    /// <param name="uncalibratedSigmaRad">σ assumed for an uncalibrated mounting (default 1°).</param>
+    public static GradeEstimate FromRest(Estimate restingPitchRad, double? mountingPitchRad, double mountingPitchSigmaRad = 0, double uncalibratedSigmaRad = Math.PI / 180)
+    {
+        bool calibrated = mountingPitchRad is not null;
+        double angle = restingPitchRad.Value - (mountingPitchRad ?? 0);
+        double mountingSigma = calibrated ? mountingPitchSigmaRad : uncalibratedSigmaRad;
+        return new GradeEstimate(angle, Math.Sqrt((restingPitchRad.Sigma * restingPitchRad.Sigma) + (mountingSigma * mountingSigma)), calibrated);
+    }
+}

@@ -1,0 +1,116 @@
+using System.Globalization;
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Corrections;
+using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Decoding.Reconstruction;
+using LaunchLogger.Decoding.Runs;
+
+namespace LaunchLogger.Decoding.Verdicts;
+
+/// <summary>Decides whether a run's figures can be quoted, and says why not.</summary>
+public static class RunJudge
+{
+    /// <summary>Judges one analysed run.</summary>
+    /// <param name="analysis">The run.</param>
+    /// <param name="grade">Its grade, when known.</param>
+    /// <param name="bound">A braking bound to hold its acceleration against, when one is known.</param>
+    /// <param name="limits">Thresholds; <see cref="VerdictLimits.Default"/> when null.</param>
+    public static Verdict Judge(RunAnalysis analysis, GradeEstimate? grade, TractionBound? bound, VerdictLimits? limits = null)
+    {
+        ArgumentNullException.ThrowIfNull(analysis);
+        limits ??= VerdictLimits.Default;
+        var reasons = new List<VerdictReason>();
+        DecodedRun run = analysis.Run;
+        ReconstructedRun rec = analysis.Reconstruction;
+        FigureSet figures = analysis.Figures;
+
+        if (!run.Configuration.Staged)
+        {
+            reasons.Add(new(VerdictLevel.Invalid, "rolling_start", "the run opened while already rolling: standing-start figures have no true standstill"));
+        }
+
+        if (!run.Complete)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "incomplete_log", "the log ends before the run's summary (power loss or cut-off)"));
+        }
+
+        Count(HealthCounterNames.PulseObservationsDropped, VerdictLevel.Invalid, "pulses_dropped", "pulse observations were dropped by the box: distance is missing pulses");
+        Count(HealthCounterNames.CountsWentBackwards, VerdictLevel.Doubtful, "counts_backwards", "the pulse counter went backwards (wiring or counter fault)");
+        Count(HealthCounterNames.AccelFifoOverflows, VerdictLevel.Doubtful, "accel_overflow", "the accelerometer's FIFO overflowed: samples are missing");
+        Count(HealthCounterNames.AccelReadFailures, VerdictLevel.Doubtful, "accel_read_failures", "accelerometer reads failed");
+        Count(HealthCounterNames.FramesRefused, VerdictLevel.Doubtful, "frames_refused", "the box's storage or serial link refused frames");
+        Count(HealthCounterNames.AccelSamplesClipped, VerdictLevel.Doubtful, "accel_clipped", "accelerometer samples reached full scale (clipped)");
+
+        if (run.Health.TryGetValue(HealthCounterNames.WideBrackets, out long wide) && run.Pulses.Count > 0
+            && (double)wide / run.Pulses.Count > limits.WideBracketFraction)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "wide_brackets", Invariant($"{wide} of {run.Pulses.Count} pulse observations have wide time brackets")));
+        }
+
+        if (run.Warnings.Any(w => w.Contains("lost", StringComparison.OrdinalIgnoreCase) && w.Contains("frame", StringComparison.OrdinalIgnoreCase)))
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "frames_lost", "frames of this run were lost or damaged in the log"));
+        }
+
+        double spin = rec.WheelspinWindows.Sum(w => w.EndS - w.StartS);
+        if (spin > limits.WheelspinS)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel spun faster than the car moved for {spin:0.00} s: distance and speed there lean on the accelerometer")));
+        }
+
+        if (grade is { MountingCalibrated: true } g)
+        {
+            // Judge the grade by what it at least is (|grade| − 1σ), so noise alone never condemns a run.
+            double pct = Math.Abs(g.Percent);
+            double sigmaPct = Math.Tan(g.SigmaRad) * 100;
+            double atLeast = pct - sigmaPct;
+            string where = Invariant($"grade {g.Percent:+0.0;-0.0} % (± {sigmaPct:0.0} %)");
+            if (atLeast > limits.InvalidGradePercent)
+            {
+                reasons.Add(new(VerdictLevel.Invalid, "grade", $"{where} is beyond {limits.InvalidGradePercent.ToString(CultureInfo.InvariantCulture)} %"));
+            }
+            else if (atLeast > limits.DoubtfulGradePercent)
+            {
+                reasons.Add(new(VerdictLevel.Doubtful, "grade", $"{where} is beyond {limits.DoubtfulGradePercent.ToString(CultureInfo.InvariantCulture)} %: quote the level-corrected figures or pair with a run the other way"));
+            }
+        }
+
+        if (figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph") is { FromStandstillS: null } && figures.MaxSpeedMps > 5)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "target_not_reached", Invariant($"60 mph was not reached (top speed {figures.MaxSpeedMps / Units.MpsPerMph:0.0} mph)")));
+        }
+
+        // The box interpolates linearly between pulses, so its mark can be off by the time it
+        // takes to cover one pulse at the rollout speed; only a larger difference means trouble.
+        double markTolerance = figures.RolloutSpeedMps is { Value: > 0 } vr
+            ? Math.Max(limits.RolloutDisagreementS, run.Configuration.MetresPerPulse / vr.Value)
+            : limits.RolloutDisagreementS;
+        if (run.FirmwareRolloutS is { } boxMark && figures.RolloutTimeS is { } ours && Math.Abs(boxMark - ours.Value) > markTolerance)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "rollout_marks_disagree", Invariant($"the box's rollout mark and ours differ by {(boxMark - ours.Value) * 1000:+0.0;-0.0} ms")));
+        }
+
+        if (rec.Method == ReconstructionMethod.AccelerometerOnly)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "accelerometer_only", "no pulses: distance and speed come from the accelerometer alone and drift"));
+        }
+
+        if (bound is { } b && figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph")?.FromStandstillS is { } zeroTo60 && zeroTo60 < b.Bound0To60S)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "beats_braking_grip", Invariant($"0-60 mph in {zeroTo60:0.000} s is faster than the braking grip allows ({b.Bound0To60S:0.000} s from {b.Source}): check calibration, slope, wheel size")));
+        }
+
+        reasons.Sort((x, y) => y.Level.CompareTo(x.Level));
+        return new Verdict(reasons);
+
+        void Count(string name, VerdictLevel level, string code, string text)
+        {
+            if (run.Health.TryGetValue(name, out long n) && n > 0)
+            {
+                reasons.Add(new(level, code, Invariant($"{text} ({n})")));
+            }
+        }
+    }
+
+    private static string Invariant(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,74 @@
+using LaunchLogger.Decoding.Corrections;
+using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Decoding.Tests.Metrics;
+
+namespace LaunchLogger.Decoding.Tests.Corrections;
+
+public class CorrectionTests
+{
+    private const double G0 = 9.80665; // standard gravity (3rd CGPM, 1901)
+
+    [Fact]
+    public void LevelCorrectionRestoresTheLevelRunOfAConstantForce()
+    {
+        // Kinematics on a slope (any textbook): a constant drive force gives a0 on the level and
+        // a0 − g0·sin θ uphill. Re-timing the uphill run must give the level run's figures.
+        const double A0 = 5.0;
+        double theta = Math.Atan(0.03); // 3 % uphill
+        var uphill = ClosedFormTrajectory.ConstantAcceleration(A0 - (G0 * Math.Sin(theta)), t0: 1.0, endS: 30);
+        FigureSet level = FigureCalculator.Compute(LevelCorrection.ToLevel(uphill, 1.0, theta), new Estimate(1.0, 0));
+        double v60 = 60 * Units.MpsPerMph;
+        Assert.Equal(v60 / A0, level.SpeedIntervals.Single(i => i.Interval.Label == "0-60 mph").FromStandstillS!.Value, 4);
+        Assert.Equal(Math.Sqrt(2 * 402.336 / A0), level.DistanceMarks.Single(m => m.Mark.Label.StartsWith("1320", StringComparison.Ordinal)).FromStandstillS!.Value, 3);
+    }
+
+    [Fact]
+    public void WeatherCorrectionScalesByConstantPowerExponents()
+    {
+        // Constant-power kinematics (½·m·v² = P·t): time to a speed ∝ 1/P; time to a distance ∝ P^(−1/3).
+        var trajectory = ClosedFormTrajectory.ConstantAcceleration(5.0, t0: 0, endS: 30);
+        FigureSet measured = FigureCalculator.Compute(trajectory, new Estimate(0, 0));
+        FigureSet identity = WeatherCorrection.Apply(measured, 1.0);
+        Assert.Equal(Zero60(measured), Zero60(identity), 12);
+
+        FigureSet corrected = WeatherCorrection.Apply(measured, 1.1);
+        Assert.Equal(Zero60(measured) / 1.1, Zero60(corrected), 9);
+        Assert.Equal(Quarter(measured).FromStandstillS!.Value * Math.Pow(1.1, -1.0 / 3), Quarter(corrected).FromStandstillS!.Value, 9);
+        Assert.Equal(Quarter(measured).TrapSpeedMps!.Value * Math.Pow(1.1, 1.0 / 3), Quarter(corrected).TrapSpeedMps!.Value, 9);
+    }
+
+    [Fact]
+    public void APairInOppositeDirectionsCancelsAGradeToFirstOrder()
+    {
+        // A slope adds −g0·sin θ one way and +g0·sin θ the other; the mean of the two 0–60 times
+        // equals the level time to first order (common practice in vehicle testing). For constant
+        // acceleration the mean is exactly (v/a)·1/(1 − (δ/a)²): only a second-order term remains.
+        const double A0 = 5.0;
+        double theta = Math.Atan(0.005);
+        double delta = G0 * Math.Sin(theta);
+        FigureSet up = FigureCalculator.Compute(ClosedFormTrajectory.ConstantAcceleration(A0 - delta, 0, 30), new Estimate(0, 0));
+        FigureSet down = FigureCalculator.Compute(ClosedFormTrajectory.ConstantAcceleration(A0 + delta, 0, 30), new Estimate(0, 0));
+        FigureSet mean = PairAverage.Mean(up, down);
+        double level = 60 * Units.MpsPerMph / A0;
+        Assert.Equal(level / (1 - ((delta / A0) * (delta / A0))), Zero60(mean), 6);
+        Assert.True(Math.Abs(Zero60(mean) - level) < Math.Abs(Zero60(up) - level) / 20, "the pair must do far better than either run");
+    }
+
+    [Fact]
+    public void GradeIsTheRestingPitchLessTheCalibratedMounting()
+    {
+        GradeEstimate g = GradeEstimate.FromRest(new Estimate(0.030, 0.001), mountingPitchRad: 0.020, mountingPitchSigmaRad: 0.002);
+        Assert.Equal(0.010, g.AngleRad, 12);
+        Assert.Equal(Math.Sqrt(0.001 * 0.001 + 0.002 * 0.002), g.SigmaRad, 12);
+        Assert.True(g.MountingCalibrated);
+        Assert.Equal(Math.Tan(0.010) * 100, g.Percent, 12);
+
+        GradeEstimate uncalibrated = GradeEstimate.FromRest(new Estimate(0.030, 0.001), mountingPitchRad: null);
+        Assert.False(uncalibrated.MountingCalibrated);
+        Assert.True(uncalibrated.SigmaRad > 0.015, "an uncalibrated mounting must widen the grade's uncertainty");
+    }
+
+    private static double Zero60(FigureSet f) => f.SpeedIntervals.Single(i => i.Interval.Label == "0-60 mph").FromStandstillS!.Value;
+
+    private static MarkFigure Quarter(FigureSet f) => f.DistanceMarks.Single(m => m.Mark.Label.StartsWith("1320", StringComparison.Ordinal));
+}

@@ -1,0 +1,75 @@
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Calibration;
+using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Verdicts;
+using LaunchLogger.Simulation;
+using LaunchLogger.Simulation.Scenarios;
+
+namespace LaunchLogger.Decoding.Tests.Verdicts;
+
+/// <summary>Verdicts on simulated runs whose truth is known.</summary>
+public class SessionJudgementTests
+{
+    [Fact]
+    public void ALaunchFasterThanTheBrakingGripIsFlagged()
+    {
+        // A doctored launch: the box was told a wheel 2.5 times larger than it is, so the car seems
+        // to reach 60 mph 2.5 times sooner. A proper stop of the same car bounds it (t = v/a_brake).
+        Scenario launch = BuiltInScenarios.Default;
+        SimulationResult honest = Simulator.Run(launch, seed: 5);
+        Scenario doctoredScenario = launch with { Box = launch.Box with { ConfiguredCircumferenceM = honest.Sensors.TrueCircumferenceM * 2.5 } };
+        DecodedRun doctored = LogReader.Read(Simulator.Run(doctoredScenario, seed: 5).LogBytes, "doctored.log").Runs.Single();
+        DecodedRun stop = LogReader.Read(Simulator.Run(BuiltInScenarios.Get("brake-test-60"), seed: 5).LogBytes, "brake.log").Runs.Single();
+
+        SessionAnalysis session = SessionAnalyzer.Analyze([doctored], referenceStops: [stop]);
+
+        Assert.NotNull(session.Bound);
+        Verdict verdict = session.Runs.Single().Verdict!;
+        Assert.Contains(verdict.Reasons, r => r.Code == "beats_braking_grip");
+        Assert.NotEqual(VerdictLevel.Valid, verdict.Level);
+
+        SessionAnalysis honestSession = SessionAnalyzer.Analyze(LogReader.Read(honest.LogBytes, "honest.log").Runs, referenceStops: [stop]);
+        Assert.DoesNotContain(honestSession.Runs.Single().Verdict!.Reasons, r => r.Code == "beats_braking_grip");
+    }
+
+    [Fact]
+    public void ASteepCalibratedGradeMakesARunInvalidAndLevelCorrectionBringsItBack()
+    {
+        // Calibration the way users do it: the box's resting pitch on level ground is its mounting pitch.
+        Scenario level = BuiltInScenarios.Default;
+        RunAnalysis levelRun = Analyze(level, seed: 7, calibration: null);
+        var calibration = new CalibrationSettings
+        {
+            MountingPitchDeg = levelRun.Reconstruction.RestingPitchRad!.Value.Value * 180 / Math.PI,
+            MountingPitchSigmaDeg = 0.02,
+        };
+
+        Scenario uphill = level with { Environment = level.Environment with { GradePercent = 4 } };
+        SimulationResult uphillSimulation = Simulator.Run(uphill, seed: 7);
+        RunAnalysis uphillRun = SessionAnalyzer.Analyze(LogReader.Read(uphillSimulation.LogBytes, "uphill.log").Runs, new AnalysisOptions { Calibration = calibration }).Runs.Single();
+
+        Assert.NotNull(uphillRun.Grade);
+        Assert.Equal(4.0, uphillRun.Grade!.Percent, 0); // within ±0.5 %
+        Assert.Contains(uphillRun.Verdict!.Reasons, r => r.Code == "grade" && r.Level == VerdictLevel.Invalid);
+
+        double measured = Zero60(uphillRun.Figures);
+        double corrected = Zero60(uphillRun.LevelFigures!);
+        double truthLevel = Zero60(Simulator.Run(level, seed: 7).Figures!);
+        Assert.True(Math.Abs(corrected - truthLevel) < Math.Abs(measured - truthLevel) / 2, $"level-corrected {corrected:F3} s should be much nearer the level run's {truthLevel:F3} s than the uphill {measured:F3} s");
+    }
+
+    [Fact]
+    public void AnUncalibratedMountingGivesNoLevelCorrectionAndNoGradeVerdict()
+    {
+        RunAnalysis run = SessionAnalyzer.Analyze(LogReader.Read(Simulator.Run(BuiltInScenarios.Default, seed: 2).LogBytes, "run.log").Runs).Runs.Single();
+        Assert.NotNull(run.Grade);
+        Assert.False(run.Grade!.MountingCalibrated);
+        Assert.Null(run.LevelFigures);
+        Assert.DoesNotContain(run.Verdict!.Reasons, r => r.Code == "grade");
+    }
+
+    private static RunAnalysis Analyze(Scenario scenario, int seed, CalibrationSettings? calibration) =>
+        SessionAnalyzer.Analyze(LogReader.Read(Simulator.Run(scenario, seed).LogBytes, scenario.Name).Runs, new AnalysisOptions { Calibration = calibration }).Runs.Single();
+
+    private static double Zero60(LaunchLogger.Decoding.Metrics.FigureSet f) => f.SpeedIntervals.Single(i => i.Interval.Label == "0-60 mph").FromStandstillS!.Value;
+}
