@@ -13,6 +13,7 @@ public static class BenchCommand
         {
             BenchCoreCommand.Create(),
             BenchAccuracyCommand.Create(),
+            BenchDecodeCommand.Create(),
         };
     }
 }

@@ -1,0 +1,115 @@
+using System.Buffers;
+using System.CommandLine;
+using System.Diagnostics;
+using System.Globalization;
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Reading;
+using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Firmware.Wire;
+using LaunchLogger.Simulation;
+using LaunchLogger.Simulation.Scenarios;
+
+namespace LaunchLogger.Cli.Verbs;
+
+/// <summary><c>launchlogger bench decode</c>: log throughput of the frame reader and of the
+/// whole reader, and the time to reconstruct and time one 30-s run with a 1 kHz accelerometer.</summary>
+public static class BenchDecodeCommand
+{
+    /// <summary>Builds the verb.</summary>
+    public static Command Create()
+    {
+        var megabytes = new Option<int>("--megabytes") { Description = "Size of the log to read, MB.", DefaultValueFactory = _ => 256 };
+        var repeats = new Option<int>("--repeats") { Description = "Reconstructions to time.", DefaultValueFactory = _ => 30 };
+        var command = new Command("decode", "Log throughput and reconstruction time per run.") { megabytes, repeats };
+        command.SetAction(parse => (int)Run(parse.GetValue(megabytes), parse.GetValue(repeats), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error));
+        return command;
+    }
+
+    /// <summary>Runs the benchmark.</summary>
+    public static ExitCode Run(int megabytes, int repeats, TextWriter output, TextWriter error)
+    {
+        if (megabytes < 1 || megabytes > 4096 || repeats < 1 || repeats > 10_000)
+        {
+            error.WriteLine("launchlogger bench decode: --megabytes must be 1 to 4096 and --repeats 1 to 10000");
+            return ExitCode.Usage;
+        }
+
+        // A 30-s run with a 1 kHz accelerometer: the default car, its sensor sampling at 1000 Hz,
+        // driven 900 m, stopped and left standing.
+        Scenario baseline = BuiltInScenarios.Default;
+        Scenario scenario = baseline with
+        {
+            Accelerometer = baseline.Accelerometer with { OutputDataRateHz = 1000 },
+            Plan = baseline.Plan with { TargetSpeedMps = null, TargetDistanceM = 900 },
+        };
+        error.WriteLine("bench decode: simulating the test log…");
+        SimulationResult simulation = Simulator.Run(scenario, seed: 1);
+        byte[] one = simulation.LogBytes;
+        byte[] log = new byte[(long)megabytes * 1_000_000 / one.Length * one.Length];
+        for (int at = 0; at < log.Length; at += one.Length)
+        {
+            one.CopyTo(log, at);
+        }
+
+        // Best of three passes: the first also warms the code up.
+        (double frameSeconds, long frames) = TimeFrames(log);
+        for (int pass = 0; pass < 2; pass++)
+        {
+            (double s, long f) = TimeFrames(log);
+            (frameSeconds, frames) = s < frameSeconds ? (s, f) : (frameSeconds, frames);
+        }
+
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        var clock = Stopwatch.StartNew();
+        LogReadResult read = LogReader.Read(log, "bench.log");
+        clock.Stop();
+        long readAllocated = GC.GetAllocatedBytesForCurrentThread() - before;
+        double fullSeconds = clock.Elapsed.TotalSeconds;
+
+        DecodedRun run = LogReader.Read(one, "one.log").Runs.Single();
+        RunAnalyzer.Analyze(run);
+        var times = new double[repeats];
+        for (int i = 0; i < repeats; i++)
+        {
+            clock.Restart();
+            RunAnalyzer.Analyze(run);
+            clock.Stop();
+            times[i] = clock.Elapsed.TotalMilliseconds;
+        }
+
+        Array.Sort(times);
+        double runSeconds = run.Accel is { Count: > 0 } a ? a.TimeS[^1] - a.TimeS[0] : run.Pulses[^1].HiS - run.Configuration.OpenedS;
+        output.WriteLine("bench decode: one core, this machine");
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  log                      {log.Length / 1e6,10:0.0} MB, {frames:N0} frames ({one.Length:N0}-byte run repeated)"));
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  frame reader             {log.Length / 1e6 / frameSeconds,10:0} MB/s   (goal ≥ 400 MB/s; frames checked and unstuffed, bodies not parsed)"));
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  whole reader into runs   {log.Length / 1e6 / fullSeconds,10:0} MB/s   ({read.Runs.Count:N0} runs; {readAllocated / 1e6:0} MB allocated for their arrays)"));
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  one run                  {runSeconds,10:0.0} s logged, {run.Pulses.Count:N0} pulse observations, {run.Accel?.Count ?? 0:N0} accelerometer samples at {1 / (run.Accel?.SamplePeriodS ?? double.NaN):0} Hz"));
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  reconstruction + figures {times[times.Length / 2],10:0.0} ms median, {times[0]:0.0} ms best, {times[^1]:0.0} ms worst of {repeats}   (goal ≤ 20 ms per 30-s run)"));
+        return ExitCode.Ok;
+    }
+
+    private static (double Seconds, long Frames) TimeFrames(byte[] log)
+    {
+        var reader = default(FrameReader);
+        byte[] payload = new byte[LogFormat.MaxPayloadBytes];
+        long frames = 0;
+        int offset = 0;
+        var clock = Stopwatch.StartNew();
+        while (true)
+        {
+            OperationStatus status = reader.TryReadFrame(log.AsSpan(offset), payload, isFinalBlock: true, out int consumed, out Frame frame);
+            offset += consumed;
+            if (status == OperationStatus.Done)
+            {
+                frames++;
+            }
+            else if (status == OperationStatus.NeedMoreData)
+            {
+                break;
+            }
+        }
+
+        clock.Stop();
+        return (clock.Elapsed.TotalSeconds, frames);
+    }
+}
