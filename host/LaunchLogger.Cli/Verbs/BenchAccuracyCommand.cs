@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using System.CommandLine;
 using System.Globalization;
 using LaunchLogger.Cli.Bench;
@@ -30,23 +29,10 @@ public static class BenchAccuracyCommand
         }
 
         IReadOnlyList<AccuracyCase> cases = AccuracyCase.Build(runs, seed);
-        var outcomes = new ConcurrentBag<CaseOutcome>();
-        int done = 0;
-        int step = Math.Max(1, runs / 10);
+        List<CaseOutcome> all;
         try
         {
-            Parallel.ForEach(cases, new ParallelOptions { CancellationToken = cancel, MaxDegreeOfParallelism = Environment.ProcessorCount }, c =>
-            {
-                outcomes.Add(AccuracyBenchmark.Run(c, cancel));
-                int n = Interlocked.Increment(ref done);
-                if (n % step == 0 || n == runs)
-                {
-                    lock (error)
-                    {
-                        error.WriteLine($"bench accuracy: {n}/{runs} runs simulated and decoded");
-                    }
-                }
-            });
+            all = ParallelCases.Run(cases, AccuracyBenchmark.Run, "bench accuracy: runs simulated and decoded", error, cancel);
         }
         catch (OperationCanceledException)
         {
@@ -54,7 +40,6 @@ public static class BenchAccuracyCommand
             return ExitCode.Cancelled;
         }
 
-        List<CaseOutcome> all = outcomes.OrderBy(o => o.Case.Index).ToList();
         output.WriteLine($"bench accuracy: {runs} simulated runs, seed {seed}; error = estimate − truth; tyre taken as calibrated");
         foreach (CaseOutcome failed in all.Where(o => o.Failure != null))
         {
@@ -87,14 +72,14 @@ public static class BenchAccuracyCommand
         for (int m = 0; m < AccuracyBenchmark.Metrics.Count; m++)
         {
             Metric metric = AccuracyBenchmark.Metrics[m];
-            double[] ours = Abs(group.Select(o => o.Ours[m]), metric.Scale);
-            double[] naive = Abs(group.Select(o => o.Naive[m]), metric.Scale);
+            double[] ours = Percentiles.AbsSorted(group.Select(o => o.Ours[m]), metric.Scale);
+            double[] naive = Percentiles.AbsSorted(group.Select(o => o.Naive[m]), metric.Scale);
             int covered = group.Count(o => o.Ours[m] is { } e && o.OurSigmas[m] is { } s && Math.Abs(e) <= 2 * s);
             int withSigma = group.Count(o => o.Ours[m] is not null && o.OurSigmas[m] is not null);
-            double oursP95 = Percentile(ours, 0.95);
-            double naiveP95 = Percentile(naive, 0.95);
+            double oursP95 = Percentiles.Of(ours, 0.95);
+            double naiveP95 = Percentiles.Of(naive, 0.95);
             output.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"  {metric.Name,-27} {metric.Unit,4} | {Percentile(ours, 0.5),9:0.000} {oursP95,6:0.000} {Max(ours),6:0.000} | {Percentile(naive, 0.5),9:0.000} {naiveP95,6:0.000} {Max(naive),6:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {(withSigma > 0 ? 100.0 * covered / withSigma : double.NaN),8:0.0} %"));
+                $"  {metric.Name,-27} {metric.Unit,4} | {Percentiles.Of(ours, 0.5),9:0.000} {oursP95,6:0.000} {Percentiles.Max(ours),6:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,6:0.000} {Percentiles.Max(naive),6:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {(withSigma > 0 ? 100.0 * covered / withSigma : double.NaN),8:0.0} %"));
         }
 
         if (withGoals)
@@ -120,8 +105,8 @@ public static class BenchAccuracyCommand
     private static void Goal(List<CaseOutcome> group, int m, double limit, string text, bool tenfold, TextWriter output)
     {
         Metric metric = AccuracyBenchmark.Metrics[m];
-        double oursP95 = Percentile(Abs(group.Select(o => o.Ours[m]), metric.Scale), 0.95);
-        double naiveP95 = Percentile(Abs(group.Select(o => o.Naive[m]), metric.Scale), 0.95);
+        double oursP95 = Percentiles.Of(Percentiles.AbsSorted(group.Select(o => o.Ours[m]), metric.Scale), 0.95);
+        double naiveP95 = Percentiles.Of(Percentiles.AbsSorted(group.Select(o => o.Naive[m]), metric.Scale), 0.95);
         bool met = oursP95 <= limit && (!tenfold || naiveP95 >= 10 * oursP95);
         string ratio = tenfold ? string.Create(CultureInfo.InvariantCulture, $", naive {naiveP95 / oursP95:0.0}×") : "";
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"    {text}: {oursP95:0.000} {metric.Unit}{ratio} — {(met ? "met" : "NOT met")}"));
@@ -143,13 +128,4 @@ public static class BenchAccuracyCommand
             output.WriteLine($"  {o.Case.Index,4} {string.Join("  ", cells)}  {o.Case.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
         }
     }
-
-    private static double[] Abs(IEnumerable<double?> errors, double scale) =>
-        errors.Where(e => e is not null && double.IsFinite(e.Value)).Select(e => Math.Abs(e!.Value) * scale).OrderBy(x => x).ToArray();
-
-    private static double Max(double[] sorted) => sorted.Length == 0 ? double.NaN : sorted[^1];
-
-    /// <summary>Nearest-rank percentile of an ascending array.</summary>
-    private static double Percentile(double[] sorted, double p) =>
-        sorted.Length == 0 ? double.NaN : sorted[Math.Clamp((int)Math.Ceiling(p * sorted.Length) - 1, 0, sorted.Length - 1)];
 }

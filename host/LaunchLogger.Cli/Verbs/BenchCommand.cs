@@ -14,6 +14,7 @@ public static class BenchCommand
             BenchCoreCommand.Create(),
             BenchAccuracyCommand.Create(),
             BenchDecodeCommand.Create(),
+            BenchBrakingCommand.Create(),
         };
     }
 }

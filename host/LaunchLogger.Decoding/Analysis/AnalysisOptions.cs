@@ -30,6 +30,10 @@ public sealed record AnalysisOptions
     /// <summary>Weather during the runs, when given: figures are also shown corrected to standard air.</summary>
     public Weather? Weather { get; init; }
 
+    /// <summary>How long the brake switch takes to close after the pedal starts to move, s
+    /// (measured on the bench or by calibration); subtracted from the switch's time.</summary>
+    public double BrakeSwitchDelayS { get; init; }
+
     /// <summary>Verdict thresholds.</summary>
     public VerdictLimits Limits { get; init; } = VerdictLimits.Default;
 }

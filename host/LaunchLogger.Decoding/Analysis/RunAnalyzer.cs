@@ -30,7 +30,7 @@ public static class RunAnalyzer
         }
 
         FigureSet figures = FigureCalculator.Compute(reconstruction.Trajectory, reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures);
-        double[] brakeOn = run.Events.Where(e => e.Kind == EventKind.BrakeOn).Select(e => e.TimeS).ToArray();
+        double[] brakeOn = run.Events.Where(e => e.Kind == EventKind.BrakeOn).Select(e => e.TimeS - options.BrakeSwitchDelayS).ToArray();
         BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps);
         GradeEstimate? grade = reconstruction.RestingPitchRad is { } pitch && run.Configuration.Staged
             ? GradeEstimate.FromRest(pitch, options.Calibration?.MountingPitchDeg * Math.PI / 180, (options.Calibration?.MountingPitchSigmaDeg ?? 0) * Math.PI / 180)

@@ -1,0 +1,93 @@
+using System.CommandLine;
+using System.Globalization;
+using LaunchLogger.Cli.Bench;
+
+namespace LaunchLogger.Cli.Verbs;
+
+/// <summary><c>launchlogger bench braking</c>: stopping distance, brake onset and grade against
+/// simulated truth over many stops from 60 mph.</summary>
+public static class BenchBrakingCommand
+{
+    /// <summary>Builds the verb.</summary>
+    public static Command Create()
+    {
+        var runs = new Option<int>("--runs") { Description = "Simulated stops.", DefaultValueFactory = _ => 120 };
+        var seed = new Option<int>("--seed") { Description = "Seed for the variations and the noise.", DefaultValueFactory = _ => 1 };
+        var list = new Option<bool>("--list") { Description = "Also print every stop's errors." };
+        var command = new Command("braking", "Stopping distance, brake onset and grade errors against simulated truth.") { runs, seed, list };
+        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel)));
+        return command;
+    }
+
+    /// <summary>Runs the benchmark.</summary>
+    public static ExitCode Run(int runs, int seed, bool list, TextWriter output, TextWriter error, CancellationToken cancel = default)
+    {
+        if (runs < 1 || runs > 100_000)
+        {
+            error.WriteLine("launchlogger bench braking: --runs must be from 1 to 100000");
+            return ExitCode.Usage;
+        }
+
+        List<BrakingOutcome> all;
+        try
+        {
+            all = ParallelCases.Run(BrakingCase.Build(runs, seed), BrakingBenchmark.Run, "bench braking: stops simulated and decoded", error, cancel);
+        }
+        catch (OperationCanceledException)
+        {
+            error.WriteLine("bench braking: cancelled");
+            return ExitCode.Cancelled;
+        }
+
+        output.WriteLine($"bench braking: {runs} simulated stops from just above 60 mph, seed {seed}; error = estimate − truth; mounting calibrated on level ground");
+        foreach (BrakingOutcome failed in all.Where(o => o.Failure != null))
+        {
+            output.WriteLine($"  stop {failed.Case.Index} failed: {failed.Failure} ({failed.Case.Summary})");
+        }
+
+        List<BrakingOutcome> ok = all.Where(o => o.Failure == null).ToList();
+        Group("With a brake switch (delay calibrated)", ok.Where(o => o.Case.HasSwitch).ToList(), output);
+        Group("Without a switch (onset from the deceleration)", ok.Where(o => !o.Case.HasSwitch).ToList(), output);
+        Group("All stops", ok, output);
+        double[] distance = Percentiles.AbsSorted(ok.Select(o => o.DistanceErrorM));
+        double[] onset = Percentiles.AbsSorted(ok.Select(o => o.OnsetErrorS), 1000);
+        double[] grade = Percentiles.AbsSorted(ok.Select(o => o.GradeErrorDeg));
+        output.WriteLine();
+        output.WriteLine("  goals (all stops):");
+        Goal(output, "stopping distance p95 ≤ 0.15 m", Percentiles.Of(distance, 0.95), 0.15, "m");
+        Goal(output, "brake onset p95 ≤ 10 ms", Percentiles.Of(onset, 0.95), 10, "ms");
+        Goal(output, "grade p95 ≤ 0.1°", Percentiles.Of(grade, 0.95), 0.1, "°");
+        if (list)
+        {
+            output.WriteLine();
+            foreach (BrakingOutcome o in all)
+            {
+                output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {o.Case.Index,4} distance {o.DistanceErrorM,8:+0.000;-0.000} m  onset {o.OnsetErrorS * 1000,7:+0.0;-0.0} ms  grade {o.GradeErrorDeg,7:+0.000;-0.000}°  {o.Case.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}"));
+            }
+        }
+
+        return ExitCode.Ok;
+    }
+
+    private static void Group(string title, List<BrakingOutcome> group, TextWriter output)
+    {
+        output.WriteLine();
+        output.WriteLine($"{title}: {group.Count} stops");
+        if (group.Count == 0)
+        {
+            return;
+        }
+
+        output.WriteLine("  figure                 unit |    p50     p95     max");
+        Row("stopping distance", "m", Percentiles.AbsSorted(group.Select(o => o.DistanceErrorM)));
+        Row("brake onset", "ms", Percentiles.AbsSorted(group.Select(o => o.OnsetErrorS), 1000));
+        Row("MFDD", "m/s²", Percentiles.AbsSorted(group.Select(o => o.MfddErrorMps2)));
+        Row("grade", "°", Percentiles.AbsSorted(group.Select(o => o.GradeErrorDeg)));
+
+        void Row(string name, string unit, double[] sorted) =>
+            output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {name,-22} {unit,4} | {Percentiles.Of(sorted, 0.5),7:0.000} {Percentiles.Of(sorted, 0.95),7:0.000} {Percentiles.Max(sorted),7:0.000}"));
+    }
+
+    private static void Goal(TextWriter output, string text, double value, double limit, string unit) =>
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"    {text}: {value:0.000} {unit} — {(value <= limit ? "met" : "NOT met")}"));
+}
