@@ -31,7 +31,8 @@ public static class RunAnalyzer
 
         FigureSet figures = FigureCalculator.Compute(reconstruction.Trajectory, reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures);
         double[] brakeOn = run.Events.Where(e => e.Kind == EventKind.BrakeOn).Select(e => e.TimeS - options.BrakeSwitchDelayS).ToArray();
-        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps);
+        (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
+        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel);
         GradeEstimate? grade = reconstruction.RestingPitchRad is { } pitch && run.Configuration.Staged
             ? GradeEstimate.FromRest(pitch, options.Calibration?.MountingPitchDeg * Math.PI / 180, (options.Calibration?.MountingPitchSigmaDeg ?? 0) * Math.PI / 180)
             : null;

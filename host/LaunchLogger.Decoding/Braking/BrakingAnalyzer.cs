@@ -26,7 +26,10 @@ public static class BrakingAnalyzer
     /// <param name="trajectory">The run.</param>
     /// <param name="brakeSwitchOnS">Times the brake switch closed, when wired.</param>
     /// <param name="nominalSpeedsMps">Extra nominal speeds to correct to (60 mph and 100 km/h are always included).</param>
-    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<double>? brakeSwitchOnS = null, IReadOnlyList<double>? nominalSpeedsMps = null)
+    /// <param name="rawAccel">The accelerometer's own longitudinal samples (time, m/s²), when there
+    /// are any: the onset fit then uses them rather than the trajectory's smoothed acceleration,
+    /// whose smoothing would spread the rise and move the onset early.</param>
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<double>? brakeSwitchOnS = null, IReadOnlyList<double>? nominalSpeedsMps = null, (double[] TimeS, double[] AccelMps2)? rawAccel = null)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         double[] t = trajectory.TimeS;
@@ -71,6 +74,7 @@ public static class BrakingAnalyzer
         }
 
         double? switchOn = brakeSwitchOnS?.Where(s => s >= t[peak] - 0.5 && s < standstillS).Select(s => (double?)s).LastOrDefault();
+
         Estimate onset;
         string onsetMethod;
         if (switchOn is { } sw)
@@ -80,7 +84,9 @@ public static class BrakingAnalyzer
         }
         else
         {
-            onset = DecelerationOnset(trajectory, peak, stop, peakDecel);
+            onset = rawAccel is { } raw && raw.TimeS.Length > 10
+                ? DecelerationOnset(raw.TimeS, raw.AccelMps2, t[peak], standstillS)
+                : DecelerationOnset(t, a, t[peak], standstillS);
             onsetMethod = "deceleration onset";
         }
 
@@ -108,62 +114,94 @@ public static class BrakingAnalyzer
         };
     }
 
-    private static Estimate DecelerationOnset(Trajectory trajectory, int peak, int stop, double peakDecel)
+    /// <summary>Onset of the deceleration that ends the run, found on samples (t, a) between
+    /// the speed peak and standstill. Deceleration is measured from its level just before the
+    /// rise (coasting drag and slope: the mean over 0.3 s to 0.05 s before the rise first passes
+    /// 20 % of the full deceleration); a straight line is fitted to the rise between 20 % and 80 %
+    /// of the full deceleration (a robust high value, the 90th percentile over the stop), and the
+    /// onset is where that line crosses the level before it.</summary>
+    private static Estimate DecelerationOnset(double[] t, double[] a, double peakS, double standstillS)
     {
-        double[] t = trajectory.TimeS;
-        double[] a = trajectory.AccelMps2;
-
-        // The first time after the speed peak that the deceleration reaches 80 % of its peak,
-        // then back to where it was last below 20 %: the rising edge of the brake application.
-        int hi = peak;
-        while (hi < stop && -a[hi] < 0.8 * peakDecel)
+        int peak = FigureCalculator.FirstIndexAtOrAfter(t, peakS);
+        int stop = FigureCalculator.FirstIndexAtOrAfter(t, standstillS);
+        if (stop - peak < 5)
         {
-            hi++;
+            return new Estimate(peakS, 0.05);
         }
 
-        int lo = hi;
-        while (lo > peak && -a[lo] > 0.2 * peakDecel)
+        double[] sorted = new double[stop - peak];
+        for (int i = peak; i < stop; i++)
         {
-            lo--;
+            sorted[i - peak] = -a[i];
         }
 
-        if (hi - lo < 2)
+        Array.Sort(sorted);
+        double full = sorted[(int)(0.9 * (sorted.Length - 1))];
+        double baseline = 0;
+        int lo = 0, hi = 0;
+        for (int pass = 0; pass < 2; pass++)
         {
-            double step = hi > 0 ? t[hi] - t[hi - 1] : 0.001;
-            return new Estimate(t[Math.Max(lo, 0)], step);
+            // The last sample below 20 % before the first one at 80 %: the rising edge.
+            double span = full + baseline;
+            hi = peak;
+            while (hi < stop - 1 && (baseline - a[hi]) < 0.8 * span)
+            {
+                hi++;
+            }
+
+            lo = hi;
+            while (lo > peak && (baseline - a[lo]) > 0.2 * span)
+            {
+                lo--;
+            }
+
+            int from = FigureCalculator.FirstIndexAtOrAfter(t, t[lo] - 0.3);
+            int to = FigureCalculator.FirstIndexAtOrAfter(t, t[lo] - 0.05);
+            baseline = 0;
+            for (int i = from; i < to; i++)
+            {
+                baseline += a[i];
+            }
+
+            baseline = to > from ? baseline / (to - from) : 0;
         }
 
-        // Least-squares line through (t, decel) on the rising edge; onset where it crosses zero.
-        double st = 0, sa = 0, stt = 0, sta = 0;
+        double gridStep = t[Math.Min(peak + 1, t.Length - 1)] - t[peak];
+        if (hi - lo < 3)
+        {
+            return new Estimate(t[lo], Math.Max(gridStep, 0.002));
+        }
+
+        // Least-squares line through (t, deceleration above the level) on the rising edge.
+        double st = 0, sd = 0, stt = 0, std = 0;
         int m = hi - lo + 1;
         for (int i = lo; i <= hi; i++)
         {
+            double d = baseline - a[i];
             st += t[i];
-            sa += -a[i];
+            sd += d;
             stt += t[i] * t[i];
-            sta += t[i] * -a[i];
+            std += t[i] * d;
         }
 
-        double slope = ((m * sta) - (st * sa)) / ((m * stt) - (st * st));
-        double intercept = (sa - (slope * st)) / m;
+        double slope = ((m * std) - (st * sd)) / ((m * stt) - (st * st));
+        double intercept = (sd - (slope * st)) / m;
         if (!(slope > 0))
         {
             return new Estimate(t[lo], t[hi] - t[lo]);
         }
 
-        double onsetS = -intercept / slope;
         double residual = 0;
         for (int i = lo; i <= hi; i++)
         {
-            double r = -a[i] - (intercept + (slope * t[i]));
+            double r = baseline - a[i] - (intercept + (slope * t[i]));
             residual += r * r;
         }
 
-        // σ of the zero crossing from the fit's residual scatter, plus the grid step.
-        double scatter = Math.Sqrt(residual / Math.Max(m - 2, 1));
-        double gridStep = t[lo + 1] - t[lo];
+        // σ of the crossing: the fit's scatter over the slope, and the sample step.
+        double scatter = Math.Sqrt(residual / Math.Max(m - 2, 1) / m);
         double sigma = Math.Sqrt(Math.Pow(scatter / slope, 2) + (gridStep * gridStep / 12));
-        return new Estimate(Math.Clamp(onsetS, t[peak], t[hi]), sigma);
+        return new Estimate(Math.Clamp(-intercept / slope, t[peak], t[hi]), sigma);
     }
 
     private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop)
