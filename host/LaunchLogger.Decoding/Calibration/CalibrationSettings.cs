@@ -1,12 +1,20 @@
+using System.Text.Json.Serialization;
+
 namespace LaunchLogger.Decoding.Calibration;
 
 /// <summary>What calibration found out about one car and box, saved in a small JSON settings
 /// file (see <see cref="CalibrationFile"/>) that <c>launchlogger report --settings</c> applies.
 /// Every value is optional: what is absent is taken from the log.</summary>
+/// <remarks>The <c>launchlogger calibrate</c> verbs each set their own fields and keep the rest
+/// of an existing file. What <see cref="CalibrationApplier"/> applies to a run, and what not yet,
+/// is described there.</remarks>
 public sealed record CalibrationSettings
 {
+    /// <summary>The settings format version this code writes.</summary>
+    public const int CurrentVersion = 1;
+
     /// <summary>Settings format version.</summary>
-    public int Version { get; init; } = 1;
+    public int Version { get; init; } = CurrentVersion;
 
     /// <summary>Free text: which car, which tyres and pressures, where and when.</summary>
     public string? Notes { get; init; }
@@ -30,7 +38,29 @@ public sealed record CalibrationSettings
     /// the left).</summary>
     public double? MountingYawDeg { get; init; }
 
+    /// <summary>1-σ of <see cref="MountingYawDeg"/>, degrees.</summary>
+    public double? MountingYawSigmaDeg { get; init; }
+
     /// <summary>Relative length of each tooth gap of the distance channel, in pulse order from
     /// a reference tooth (mean 1.0); null when not mapped.</summary>
+    /// <remarks>Entry k is the gap that ends at the edge where the box's hardware pulse counter
+    /// reaches a value ≡ k (mod pulses per revolution). The counter keeps that relation to the
+    /// ring only while the box stays powered and no pulse is lost or doubled.</remarks>
     public IReadOnlyList<double>? ToothSpacing { get; init; }
+
+    /// <summary>1-σ of each entry of <see cref="ToothSpacing"/>.</summary>
+    public IReadOnlyList<double>? ToothSpacingSigma { get; init; }
+
+    /// <summary><see cref="MountingPitchDeg"/> in radians, for the grade estimate; null when not
+    /// calibrated.</summary>
+    [JsonIgnore]
+    public double? MountingPitchRad => MountingPitchDeg * (Math.PI / 180);
+
+    /// <summary><see cref="MountingPitchSigmaDeg"/> in radians; null when not given.</summary>
+    [JsonIgnore]
+    public double? MountingPitchSigmaRad => MountingPitchSigmaDeg * (Math.PI / 180);
+
+    /// <summary><see cref="MountingYawDeg"/> in radians; null when not calibrated.</summary>
+    [JsonIgnore]
+    public double? MountingYawRad => MountingYawDeg * (Math.PI / 180);
 }

@@ -1,0 +1,76 @@
+using LaunchLogger.Decoding.Runs;
+using static System.FormattableString;
+
+namespace LaunchLogger.Decoding.Calibration;
+
+/// <summary>Applies calibration settings to a decoded run before reconstruction: a pure
+/// transformation that returns a new run and leaves the input as it was.</summary>
+/// <remarks>
+/// <para>Applied: the rolling circumference, which replaces the configured one and with it the
+/// distance per pulse of the distance channel (the second channel, on another wheel, keeps its
+/// own). A note in the run's warnings says what changed.</para>
+/// <para>Not applied here: the mounting pitch, which the grade estimate subtracts from the
+/// resting pitch (<see cref="CalibrationSettings.MountingPitchRad"/>), and the yaw. The
+/// tooth-spacing map is not applied yet: the run's pulse records carry counts only, so per-pulse
+/// distances would need the reconstruction to take them; distances keep the mean pulse spacing,
+/// which the map does not change (it averages 1), and the run's warnings say so. The box's own
+/// first-motion and rollout marks stay as the box logged them, with its configured circumference.</para>
+/// </remarks>
+public static class CalibrationApplier
+{
+    /// <summary>The run with <paramref name="settings"/> applied; the same instance when the
+    /// settings hold nothing that applies to runs.</summary>
+    public static DecodedRun Apply(DecodedRun run, CalibrationSettings settings)
+    {
+        ArgumentNullException.ThrowIfNull(run);
+        ArgumentNullException.ThrowIfNull(settings);
+        RunConfiguration configuration = run.Configuration;
+        var notes = new List<string>();
+        if (settings.CircumferenceM is { } circumference)
+        {
+            if (configuration.PulsesPerRevolution > 0)
+            {
+                double old = configuration.CircumferenceM;
+                string change = old > 0 ? Invariant($" ({(circumference / old) - 1:+0.00%;-0.00%;0.00%})") : "";
+                notes.Add(Invariant($"calibration: rolling circumference {circumference:0.00000} m from the settings replaces the configured {old:0.00000} m{change}"));
+                configuration = configuration with
+                {
+                    CircumferenceM = circumference,
+                    MetresPerPulse = circumference / configuration.PulsesPerRevolution,
+                };
+            }
+            else
+            {
+                notes.Add("calibration: the settings' circumference was not applied: the input does not say how many pulses make a revolution (give --pulses-per-rev)");
+            }
+        }
+
+        if (settings.ToothSpacing is { } map)
+        {
+            notes.Add(map.Count == configuration.PulsesPerRevolution
+                ? "calibration: the settings' tooth-spacing map is not applied to distances yet; they use the mean pulse spacing"
+                : Invariant($"calibration: the settings' tooth-spacing map has {map.Count} entries but the run has {configuration.PulsesPerRevolution} pulses per revolution; it does not belong to this pickup"));
+        }
+
+        if (notes.Count == 0)
+        {
+            return run;
+        }
+
+        return new DecodedRun
+        {
+            Source = run.Source,
+            Configuration = configuration,
+            Pulses = run.Pulses,
+            SecondPulses = run.SecondPulses,
+            Accel = run.Accel,
+            Events = run.Events,
+            RestGravityMilliG = run.RestGravityMilliG,
+            FirmwareMotionS = run.FirmwareMotionS,
+            FirmwareRolloutS = run.FirmwareRolloutS,
+            Health = run.Health,
+            Complete = run.Complete,
+            Warnings = [.. run.Warnings, .. notes],
+        };
+    }
+}

@@ -1,0 +1,88 @@
+using System.Reflection;
+using LaunchLogger.Decoding.Calibration;
+using LaunchLogger.Decoding.Runs;
+
+namespace LaunchLogger.Decoding.Tests.Calibration;
+
+public class CalibrationApplierTests
+{
+    private static DecodedRun Run() => CalibrationRuns.Launch((0.2, 0, 9.8), seed: 3);
+
+    [Fact]
+    public void TheCircumferenceReplacesTheConfiguredOneAndTheDistancePerPulse()
+    {
+        DecodedRun run = Run();
+
+        DecodedRun applied = CalibrationApplier.Apply(run, new CalibrationSettings { CircumferenceM = 1.92 });
+
+        Assert.Equal(1.92, applied.Configuration.CircumferenceM);
+        Assert.Equal(1.92 / 48, applied.Configuration.MetresPerPulse, 15);
+        Assert.Equal(48, applied.Configuration.PulsesPerRevolution);
+        Assert.Contains(applied.Warnings, w => w.Contains("1.92000 m", StringComparison.Ordinal) && w.Contains("1.96000 m", StringComparison.Ordinal));
+
+        // A pure transformation: the input is as it was.
+        Assert.Equal(1.96, run.Configuration.CircumferenceM);
+        Assert.Empty(run.Warnings);
+    }
+
+    [Fact]
+    public void EverythingElseIsCarriedOverUnchanged()
+    {
+        DecodedRun run = Run();
+
+        DecodedRun applied = CalibrationApplier.Apply(run, new CalibrationSettings { CircumferenceM = 1.92 });
+
+        // Every property, including any added to DecodedRun later, must be copied.
+        foreach (PropertyInfo property in typeof(DecodedRun).GetProperties())
+        {
+            if (property.Name is nameof(DecodedRun.Configuration) or nameof(DecodedRun.Warnings))
+            {
+                continue;
+            }
+
+            Assert.True(Equals(property.GetValue(run), property.GetValue(applied)), $"{property.Name} was not carried over");
+        }
+    }
+
+    [Fact]
+    public void SettingsWithNothingForRunsLeaveTheRunAsItIs()
+    {
+        DecodedRun run = Run();
+
+        DecodedRun applied = CalibrationApplier.Apply(run, new CalibrationSettings { MountingPitchDeg = 1.2, MountingYawDeg = 0.5, Notes = "red car" });
+
+        Assert.Same(run, applied);
+    }
+
+    [Fact]
+    public void TheToothMapIsNotAppliedAndTheRunSaysSo()
+    {
+        DecodedRun run = Run();
+        double[] map = Enumerable.Range(0, 48).Select(k => k % 2 == 0 ? 1.01 : 0.99).ToArray();
+
+        DecodedRun applied = CalibrationApplier.Apply(run, new CalibrationSettings { ToothSpacing = map });
+        DecodedRun wrongPickup = CalibrationApplier.Apply(run, new CalibrationSettings { ToothSpacing = map[..12] });
+
+        Assert.Same(run.Pulses, applied.Pulses);
+        Assert.Equal(run.Configuration, applied.Configuration);
+        Assert.Contains(applied.Warnings, w => w.Contains("not applied", StringComparison.Ordinal));
+        Assert.Contains(wrongPickup.Warnings, w => w.Contains("12 entries", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void APlainTextInputWithoutPulsesPerRevolutionKeepsItsDistancePerPulse()
+    {
+        DecodedRun run = Run();
+        var text = new DecodedRun
+        {
+            Source = "edges.csv",
+            Configuration = run.Configuration with { PulsesPerRevolution = 0, CircumferenceM = 0, MetresPerPulse = 0.04 },
+            Pulses = run.Pulses,
+        };
+
+        DecodedRun applied = CalibrationApplier.Apply(text, new CalibrationSettings { CircumferenceM = 1.92 });
+
+        Assert.Equal(0.04, applied.Configuration.MetresPerPulse);
+        Assert.Contains(applied.Warnings, w => w.Contains("--pulses-per-rev", StringComparison.Ordinal));
+    }
+}
