@@ -461,6 +461,7 @@ public static class Simulator
                 PulsesPerRevolution = pickups[0].PulsesPerRevolution,
                 TrueCircumferenceM = 2 * Math.PI * scenario.Tyre.RollingRadiusM,
                 ConfiguredCircumferenceM = settings.CircumferenceMicrometres * 1e-6,
+                EdgePositionsRev = pickups[0].EdgePositionsFromFirstRev,
                 PickupOnDrivenWheel = pickupDriven,
                 Pulses = pulsesAtFirstMotion < 0 ? 0 : pickups[0].EdgeTimesS.Count - pulsesAtFirstMotion,
                 SecondPulsesPerRevolution = pickups.Length > 1 ? pickups[1].PulsesPerRevolution : null,

@@ -51,7 +51,17 @@ internal sealed class PulsePickup
                 break;
             }
         }
+
+        EdgePositionsFromFirstRev = new double[edgeFractions.Length];
+        for (int j = 0; j < edgeFractions.Length; j++)
+        {
+            EdgePositionsFromFirstRev[j] = edgeFractions[(nextIndex + j) % edgeFractions.Length];
+        }
     }
+
+    /// <summary>Each edge's position around the ring, revolutions in [0, 1), in the order the
+    /// edges pass the sensor, starting with the first edge counted.</summary>
+    internal double[] EdgePositionsFromFirstRev { get; }
 
     internal PulsePickupSpec Spec { get; }
 

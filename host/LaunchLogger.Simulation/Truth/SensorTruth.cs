@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace LaunchLogger.Simulation.Truth;
 
 /// <summary>What the sensors really were, for judging calibrations and estimators.</summary>
@@ -11,6 +13,12 @@ public sealed record SensorTruth
 
     /// <summary>The circumference configured in the box, m.</summary>
     public double ConfiguredCircumferenceM { get; init; }
+
+    /// <summary>Positions of channel 0's edges around its ring, revolutions in [0, 1), in the
+    /// order they pass the sensor, starting with the edge counted first (hardware count
+    /// <c>box.counter_start</c> + 1): the gaps between them are the true tooth spacing.</summary>
+    [JsonIgnore]
+    public IReadOnlyList<double> EdgePositionsRev { get; init; } = [];
 
     /// <summary>True metres per pulse at low speed without slip.</summary>
     public double TrueMetresPerPulse => TrueCircumferenceM / PulsesPerRevolution;
