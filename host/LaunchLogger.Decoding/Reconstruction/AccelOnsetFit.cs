@@ -38,10 +38,11 @@ internal static class AccelOnsetFit
 {
     private const int Shapes = 4;
 
-    /// <summary>Finds the onset in <paramref name="y"/> (forward acceleration minus the resting
+    /// <summary>Finds the onset in the readings less the level (forward acceleration minus the resting
     /// level) between samples <paramref name="from"/> and <paramref name="to"/>.</summary>
     /// <param name="t">Sample times.</param>
-    /// <param name="y">Acceleration above the resting level, m/s².</param>
+    /// <param name="reading">Forward readings, m/s².</param>
+    /// <param name="level">The resting level subtracted from them, m/s².</param>
     /// <param name="sigma">Per-sample noise, m/s².</param>
     /// <param name="correlation">Widening for correlated noise (1 for white).</param>
     /// <param name="period">Sample period, s.</param>
@@ -49,8 +50,9 @@ internal static class AccelOnsetFit
     /// <param name="to">End of the search (exclusive): the onset lies before it.</param>
     /// <param name="lastRise">True to take the last rise before <paramref name="to"/> (the pulses
     /// say motion has begun by then); false to take the first sustained rise after <paramref name="from"/>.</param>
-    public static AccelOnset? Find(double[] t, double[] y, double sigma, double correlation, double period, int from, int to, bool lastRise)
+    public static AccelOnset? Find(double[] t, double[] reading, double level, double sigma, double correlation, double period, int from, int to, bool lastRise)
     {
+        var y = new Shifted(reading, level);
         int n = t.Length;
         from = Math.Max(0, from);
         to = Math.Min(n, to);
@@ -178,7 +180,7 @@ internal static class AccelOnsetFit
     private readonly record struct Fine(double TimeS, double HalfWidthS);
 
     /// <summary>Quarter-sample profile of one shape around its coarse minimum.</summary>
-    private static Fine Refine(double[] t, double[] y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise)
+    private static Fine Refine(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise)
     {
         int coarseBest = ArgMin(coarse);
         int lo = coarseBest;
@@ -296,7 +298,7 @@ internal static class AccelOnsetFit
 
     /// <summary>Sum-of-squares reductions of each shape with the change at <paramref name="t0"/>;
     /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit.</summary>
-    private static void Reductions(double[] t, double[] y, int start, int end, double t0, Span<double> reduction)
+    private static void Reductions(double[] t, Shifted y, int start, int end, double t0, Span<double> reduction)
     {
         double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, y0 = 0, y1 = 0, y2 = 0;
         double tauEnd = 0;
@@ -349,6 +351,12 @@ internal static class AccelOnsetFit
             bool valid = c0 >= 0 && c0 + (c1 * tauEnd) >= 0;
             reduction[(int)OnsetShape.Jump] = valid ? (c0 * y0) + (c1 * y1) : reduction[(int)OnsetShape.Ramp];
         }
+    }
+
+    /// <summary>Readings less a level, read as if they were an array.</summary>
+    private readonly struct Shifted(double[] values, double level)
+    {
+        public double this[int i] => values[i] - level;
     }
 
     /// <summary>Solves [[a00, a01, a02], [a01, a11, a12], [a02, a12, a22]]·x = r by Cramer's rule.</summary>

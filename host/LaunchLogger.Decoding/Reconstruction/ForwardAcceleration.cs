@@ -7,12 +7,19 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// it is there.</summary>
 internal sealed class ForwardAcceleration
 {
-    private ForwardAcceleration(double[] timeS, double[] forwardMps2, double periodS)
+    private ForwardAcceleration(double[] timeS, double[] forwardMps2, double[]? verticalMps2, double periodS)
     {
         TimeS = timeS;
         ForwardMps2 = forwardMps2;
+        VerticalMps2 = verticalMps2;
         PeriodS = periodS;
     }
+
+    /// <summary>Vertical specific force as read, m/s², when all axes were measured.</summary>
+    public double[]? VerticalMps2 { get; }
+
+    /// <summary>Mean vertical reading at rest, m/s² (0 without a vertical axis).</summary>
+    public double RestVerticalMps2 { get; private set; }
 
     public double[] TimeS { get; }
 
@@ -54,7 +61,8 @@ internal sealed class ForwardAcceleration
             period = (series.TimeS[^1] - series.TimeS[0]) / (series.Count - 1);
         }
 
-        return period > 0 ? new ForwardAcceleration(series.TimeS, series.ForwardMps2, period) : null;
+        double[]? vertical = series.HasAllAxes && series.VerticalMps2.Length == series.Count ? series.VerticalMps2 : null;
+        return period > 0 ? new ForwardAcceleration(series.TimeS, series.ForwardMps2, vertical, period) : null;
     }
 
     /// <summary>Index of the first sample at or after <paramref name="t"/>.</summary>
@@ -114,6 +122,17 @@ internal sealed class ForwardAcceleration
         }
 
         double rho = c0 > 0 ? Math.Clamp(c1 / c0, 0, 0.8) : 0;
+        if (VerticalMps2 != null)
+        {
+            double vertical = 0;
+            for (int i = from; i < to; i++)
+            {
+                vertical += VerticalMps2[i];
+            }
+
+            RestVerticalMps2 = vertical / (to - from);
+        }
+
         CorrelationFactor = Math.Sqrt((1 + rho) / (1 - rho));
         RestLevelMps2 = mean;
         NoiseMps2 = sigma;
@@ -133,6 +152,115 @@ internal sealed class ForwardAcceleration
         CorrelationFactor = 1;
     }
 
+    /// <summary>Forward acceleration with the resting level removed and, when the vertical axis
+    /// was measured, the body's pitch under load taken out.</summary>
+    /// <remarks>
+    /// <para>In the frame of the resting reading (turned by the resting pitch θ so that gravity is
+    /// straight down), a body pitched a further δ by squat or dive reads, forward and up,
+    /// p = a·cos δ + g·sin δ and q = −a·sin δ − g·(1 − cos δ) (specific force rotated by δ;
+    /// rigid-body kinematics, any textbook). Gravity leaks into p as g·δ — several per cent of a
+    /// under hard acceleration, and proportional to it — while q shows δ directly: δ ≈ −q/p.
+    /// A forward-axis offset makes the resting reading lean by ε, which adds −ε to −q/p; as squat
+    /// and dive vanish with the acceleration, ε is the intercept of −q/p against p over the run.
+    /// Over 0.1-s means of p and q (body pitch moves at 1–2 Hz), δ = (−q·p − ε·p²)/(p² + p₀²) with p₀ = 0.5 m/s² keeps the
+    /// estimate quiet when there is too little acceleration to see it; a = p − g·sin δ.</para>
+    /// <para>Not separated: the body's vertical acceleration (heave), which reads as pitch for a
+    /// moment while the body settles.</para>
+    /// </remarks>
+    public double[] Input(double pitchRad, bool compensatePitch)
+    {
+        int n = Count;
+        var u = new double[n];
+        double cos = Math.Cos(pitchRad);
+        double sin = Math.Sin(pitchRad);
+        double[]? vertical = compensatePitch ? VerticalMps2 : null;
+        if (vertical is null)
+        {
+            for (int i = 0; i < n; i++)
+            {
+                u[i] = (ForwardMps2[i] - RestLevelMps2) / cos;
+            }
+
+            return u;
+        }
+
+        const double G0 = 9.80665;
+        const double p0 = 0.5;
+        int half = Math.Max(1, (int)Math.Round(0.05 / PeriodS));
+        var plane = new PitchPlane(ForwardMps2, vertical, RestLevelMps2, RestVerticalMps2, cos, sin);
+
+        // An offset on the forward axis tilts the resting reading away from gravity by ε, and
+        // then q also holds a·ε: −q/p = δ − ε. Squat and dive vanish with the acceleration, so
+        // ε is the intercept of −q/p against p (least squares weighted by p², where |p| > 1 m/s²).
+        double s0 = 0, s1 = 0, s2 = 0, r0 = 0, r1 = 0;
+        var means = new RunningMeans(n, half);
+        for (int i = 0; i < n; i++)
+        {
+            means.MoveTo(i, plane, out double mp, out double mq);
+            if (Math.Abs(mp) > 1)
+            {
+                double w = mp * mp;
+                double y = -mq / mp;
+                s0 += w;
+                s1 += w * mp;
+                s2 += w * mp * mp;
+                r0 += w * y;
+                r1 += w * mp * y;
+            }
+        }
+
+        double det = (s0 * s2) - (s1 * s1);
+        double tilt = det > 0 && s0 > 0 ? ((r0 * s2) - (s1 * r1)) / det : 0;
+        means = new RunningMeans(n, half);
+        for (int i = 0; i < n; i++)
+        {
+            means.MoveTo(i, plane, out double mp, out double mq);
+            double delta = ((-mq * mp) - (tilt * mp * mp)) / ((mp * mp) + (p0 * p0));
+            u[i] = plane.P(i) - (G0 * Math.Sin(delta));
+        }
+
+        return u;
+    }
+
+    /// <summary>Readings turned into the resting frame: p forward, q up, rest removed.</summary>
+    private readonly struct PitchPlane(double[] forward, double[] vertical, double restForward, double restVertical, double cos, double sin)
+    {
+        public double P(int i) => ((forward[i] - restForward) * cos) - ((vertical[i] - restVertical) * sin);
+
+        public double Q(int i) => ((forward[i] - restForward) * sin) + ((vertical[i] - restVertical) * cos);
+    }
+
+    /// <summary>Centred running means of p and q, window ±half, advanced one index at a time.</summary>
+    private struct RunningMeans(int count, int half)
+    {
+        private double sumP;
+        private double sumQ;
+        private int lo;
+        private int hi = -1;
+
+        public void MoveTo(int i, in PitchPlane plane, out double meanP, out double meanQ)
+        {
+            int wantLo = Math.Max(0, i - half);
+            int wantHi = Math.Min(count - 1, i + half);
+            while (hi < wantHi)
+            {
+                hi++;
+                sumP += plane.P(hi);
+                sumQ += plane.Q(hi);
+            }
+
+            while (lo < wantLo)
+            {
+                sumP -= plane.P(lo);
+                sumQ -= plane.Q(lo);
+                lo++;
+            }
+
+            meanP = sumP / (hi - lo + 1);
+            meanQ = sumQ / (hi - lo + 1);
+        }
+    }
+
     /// <summary>Per-sample noise while moving, from first differences (robust: median absolute
     /// deviation), m/s²; never below the resting noise.</summary>
     public double MovingNoise(int from, int to)
@@ -144,10 +272,13 @@ internal sealed class ForwardAcceleration
             return NoiseMps2;
         }
 
-        var diffs = new double[to - from];
-        for (int i = from; i < to; i++)
+        // At most 4096 differences, evenly spread: plenty for a median.
+        int stride = Math.Max(1, (to - from) / 4096);
+        var diffs = new double[((to - from - 1) / stride) + 1];
+        for (int k = 0; k < diffs.Length; k++)
         {
-            diffs[i - from] = Math.Abs(ForwardMps2[i] - ForwardMps2[i - 1]);
+            int i = from + (k * stride);
+            diffs[k] = Math.Abs(ForwardMps2[i] - ForwardMps2[i - 1]);
         }
 
         Array.Sort(diffs);

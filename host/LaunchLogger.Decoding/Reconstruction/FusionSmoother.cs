@@ -1,3 +1,5 @@
+using System.Buffers;
+
 namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <summary>What the third state of <see cref="FusionSmoother"/> means.</summary>
@@ -76,6 +78,19 @@ internal sealed class FusionSettings
 
     /// <summary>Variance added to the phase at the start of each spin window, m².</summary>
     public double SpinPhaseVariance { get; init; }
+
+    /// <summary>Slip signal S(t) at the grid times: ∫ v·a_drive dt, m²/s² (zeros for none). The
+    /// pulses count d + φ + k·S, k being the wheel's slip per unit of drive acceleration.</summary>
+    public double[]? SlipSignal { get; init; }
+
+    /// <summary>Prior of the slip coefficient k, s²/m, and its σ (0 to leave slip out).</summary>
+    public double SlipMean { get; init; }
+
+    public double SlipSigma { get; init; }
+
+    /// <summary>Slip coefficients smaller than this (or under three σ) count as no slip: the
+    /// result is then conditioned on k = 0, s²/m.</summary>
+    public double SlipMinimum { get; init; }
 }
 
 /// <summary>The smoothed states on the grid (zeros before first motion).</summary>
@@ -96,13 +111,20 @@ internal sealed class FusionResult
 
     public required Estimate PhaseM { get; init; }
 
+    /// <summary>Smoothed slip coefficient, s²/m (before any conditioning on k = 0).</summary>
+    public Estimate Slip { get; init; }
+
+    /// <summary>True when the slip coefficient was kept; false when it was too small to tell
+    /// from no slip and the result was conditioned on k = 0.</summary>
+    public bool SlipKept { get; init; }
+
     public int PulsesUsed { get; init; }
 
     public int Outliers { get; init; }
 }
 
 /// <summary>A linear Kalman filter with a Rauch–Tung–Striebel smoother over the state
-/// [distance, speed, third, pulse phase], its 4×4 algebra written out as straight-line code so
+/// [distance, speed, third, pulse phase, wheel slip], its 5×5 algebra written out as straight-line code so
 /// that a step allocates nothing. Distance and speed start exactly at 0 at first motion.</summary>
 /// <remarks>
 /// Filter and smoother: R. E. Kalman (1960), "A new approach to linear filtering and prediction
@@ -123,17 +145,20 @@ internal static class FusionSmoother
         int n = grid.Length;
         int k0 = FirstIndexAfter(grid, s.StartS);
         int m = Math.Max(n - k0, 0);
-        var xf = new Vec4[m];
-        var pf = new Sym4[m];
+        // The filtered states, kept for the backward pass: rented, as they are large and short-lived.
+        Vec[] xf = ArrayPool<Vec>.Shared.Rent(Math.Max(m, 1));
+        Sym[] pf = ArrayPool<Sym>.Shared.Rent(Math.Max(m, 1));
         bool[] jump = SpinJumps(s, grid, k0);
 
-        var x = new Vec4 { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean };
-        var p = new Sym4
+        var x = new Vec { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean, K = s.SlipMean };
+        var p = new Sym
         {
             P11 = s.InitialSpeedSigma * s.InitialSpeedSigma,
             P22 = s.ThirdSigma * s.ThirdSigma,
             P33 = s.PhaseSigma * s.PhaseSigma,
+            P44 = Math.Max(s.SlipSigma * s.SlipSigma, 1e-30),
         };
+        double[]? slip = s.SlipSignal;
 
         int used = 0;
         int outliers = 0;
@@ -189,7 +214,14 @@ internal static class FusionSmoother
                     }
 
                     double r = toothVar + (speed * speed * ((w * w / 12) + jitterVar)) + 1e-12;
-                    Update(ref x, ref p, 1, delta, h2, 1, z, r, out _, out _, gate: used >= 6, out bool ok);
+                    double h4 = 0;
+                    if (slip != null)
+                    {
+                        double f = k + 1 < n ? delta / (tNext - tk) : 0;
+                        h4 = slip[k] + (f * ((k + 1 < n ? slip[k + 1] : slip[k]) - slip[k]));
+                    }
+
+                    Update(ref x, ref p, 1, delta, h2, 1, h4, z, r, gate: used >= 6, out bool ok);
                     if (ok)
                     {
                         used++;
@@ -205,7 +237,7 @@ internal static class FusionSmoother
 
             if (frozen)
             {
-                Update(ref x, ref p, 0, 1, 0, 0, 0, 1e-8, out _, out _, gate: false, out _);
+                Update(ref x, ref p, 0, 1, 0, 0, 0, 0, 1e-8, gate: false, out _);
             }
 
             xf[k - k0] = x;
@@ -217,10 +249,18 @@ internal static class FusionSmoother
             }
         }
 
-        return Smooth(s, grid, k0, xf, pf, jump, used, outliers);
+        try
+        {
+            return Smooth(s, grid, k0, xf, pf, jump, used, outliers);
+        }
+        finally
+        {
+            ArrayPool<Vec>.Shared.Return(xf);
+            ArrayPool<Sym>.Shared.Return(pf);
+        }
     }
 
-    private static FusionResult Smooth(FusionSettings s, double[] grid, int k0, Vec4[] xf, Sym4[] pf, bool[] jump, int used, int outliers)
+    private static FusionResult Smooth(FusionSettings s, double[] grid, int k0, Vec[] xf, Sym[] pf, bool[] jump, int used, int outliers)
     {
         int n = grid.Length;
         var d = new double[n];
@@ -243,38 +283,50 @@ internal static class FusionSmoother
             };
         }
 
-        Vec4 xs = xf[n - 1 - k0];
-        Sym4 ps = pf[n - 1 - k0];
-        Emit(n - 1, xs, ps, d, v, sd, sv, third, sthird);
+        Vec xs = xf[n - 1 - k0];
+        Sym ps = pf[n - 1 - k0];
+
+        // The slip coefficient is constant, so its last filtered value is already the smoothed
+        // one: decide now whether the wheel slips at all. If not, every smoothed state is
+        // conditioned on k = 0 (Gaussian conditioning with the smoothed cross-covariances).
+        double slipSigma = Math.Sqrt(Math.Max(ps.P44, 0));
+        bool slipKept = s.SlipSigma > 0 && Math.Abs(xs.K) >= s.SlipMinimum && Math.Abs(xs.K) >= 3 * slipSigma;
+        double slipShift = s.SlipSigma > 0 && !slipKept && ps.P44 > 0 ? xs.K / ps.P44 : 0;
+        double slipInverse = s.SlipSigma > 0 && !slipKept && ps.P44 > 0 ? 1 / ps.P44 : 0;
+        var slipEstimate = new Estimate(xs.K, slipSigma);
+        Emit(n - 1, xs, ps, d, v, sd, sv, third, sthird, slipShift, slipInverse);
         for (int k = n - 2; k >= k0; k--)
         {
             int j = k - k0;
             bool frozen = k >= s.StopIndex;
             bool noInput = s.NoInput != null && s.NoInput[k];
             double dt = grid[k + 1] - grid[k];
-            Vec4 xp = xf[j];
-            Sym4 pp = pf[j];
+            Vec xp = xf[j];
+            Sym pp = pf[j];
             Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k]);
             Transition(s.Mode, dt, frozen, out double f01, out double f02, out double f12);
             SmoothStep(xf[j], pf[j], xp, pp, f01, f02, f12, ref xs, ref ps);
-            Emit(k, xs, ps, d, v, sd, sv, third, sthird);
+            Emit(k, xs, ps, d, v, sd, sv, third, sthird, slipShift, slipInverse);
         }
 
         return new FusionResult
         {
             DistanceM = d, SpeedMps = v, DistanceSigmaM = sd, SpeedSigmaMps = sv, Third = third, ThirdSigma = sthird,
-            PhaseM = new Estimate(xs.F, Math.Sqrt(Math.Max(ps.P33, 0))), PulsesUsed = used, Outliers = outliers,
+            PhaseM = new Estimate(xs.F - (ps.P34 * slipShift), Math.Sqrt(Math.Max(ps.P33 - (ps.P34 * ps.P34 * slipInverse), 0))),
+            Slip = slipEstimate, SlipKept = slipKept, PulsesUsed = used, Outliers = outliers,
         };
     }
 
-    private static void Emit(int k, in Vec4 x, in Sym4 p, double[] d, double[] v, double[] sd, double[] sv, double[] third, double[] sthird)
+    /// <summary>Stores a smoothed state, conditioned on k = 0 when <paramref name="shift"/> (k/Pkk)
+    /// and <paramref name="inverse"/> (1/Pkk) are not 0.</summary>
+    private static void Emit(int k, in Vec x, in Sym p, double[] d, double[] v, double[] sd, double[] sv, double[] third, double[] sthird, double shift, double inverse)
     {
-        d[k] = x.D;
-        v[k] = x.V;
-        third[k] = x.T;
-        sd[k] = Math.Sqrt(Math.Max(p.P00, 0));
-        sv[k] = Math.Sqrt(Math.Max(p.P11, 0));
-        sthird[k] = Math.Sqrt(Math.Max(p.P22, 0));
+        d[k] = x.D - (p.P04 * shift);
+        v[k] = x.V - (p.P14 * shift);
+        third[k] = x.T - (p.P24 * shift);
+        sd[k] = Math.Sqrt(Math.Max(p.P00 - (p.P04 * p.P04 * inverse), 0));
+        sv[k] = Math.Sqrt(Math.Max(p.P11 - (p.P14 * p.P14 * inverse), 0));
+        sthird[k] = Math.Sqrt(Math.Max(p.P22 - (p.P24 * p.P24 * inverse), 0));
     }
 
     private static void Transition(FusionMode mode, double dt, bool frozen, out double f01, out double f02, out double f12)
@@ -298,7 +350,7 @@ internal static class FusionSmoother
     }
 
     /// <summary>x ← F·x + input, P ← F·P·Fᵀ + Q over one step of <paramref name="dt"/>.</summary>
-    private static void Predict(FusionSettings s, ref Vec4 x, ref Sym4 p, double dt, double inputSpeed, double inputDistance, bool frozen, bool noInput, bool jump)
+    private static void Predict(FusionSettings s, ref Vec x, ref Sym p, double dt, double inputSpeed, double inputDistance, bool frozen, bool noInput, bool jump)
     {
         Transition(s.Mode, dt, frozen, out double f01, out double f02, out double f12);
         if (frozen)
@@ -326,6 +378,7 @@ internal static class FusionSmoother
         p.P00 += 1e-14;
         p.P11 += 1e-12;
         p.P33 += 1e-16 + (jump ? s.SpinPhaseVariance : 0);
+        p.P44 += 1e-20;
         if (frozen)
         {
             p.P22 += (q3 * dt) + 1e-16;
@@ -347,190 +400,6 @@ internal static class FusionSmoother
         p.P11 += q3 * dt3 / 3;
         p.P12 += sign * q3 * dt2 / 2;
         p.P22 += (q3 * dt) + 1e-16;
-    }
-
-    /// <summary>One Rauch–Tung–Striebel step: from the smoothed state at k+1 (in <paramref name="xs"/>,
-    /// <paramref name="ps"/>) to the smoothed state at k, with gain C = Pk·Fᵀ·Pp⁻¹.</summary>
-    private static void SmoothStep(in Vec4 xk, in Sym4 pk, in Vec4 xp, in Sym4 pp, double f01, double f02, double f12, ref Vec4 xs, ref Sym4 ps)
-    {
-        double a00 = pk.P00 + (f01 * pk.P01) + (f02 * pk.P02);
-        double a10 = pk.P01 + (f12 * pk.P02);
-        double a20 = pk.P02;
-        double a30 = pk.P03;
-        double a01 = pk.P01 + (f01 * pk.P11) + (f02 * pk.P12);
-        double a11 = pk.P11 + (f12 * pk.P12);
-        double a21 = pk.P12;
-        double a31 = pk.P13;
-        double a02 = pk.P02 + (f01 * pk.P12) + (f02 * pk.P22);
-        double a12 = pk.P12 + (f12 * pk.P22);
-        double a22 = pk.P22;
-        double a32 = pk.P23;
-        double a03 = pk.P03 + (f01 * pk.P13) + (f02 * pk.P23);
-        double a13 = pk.P13 + (f12 * pk.P23);
-        double a23 = pk.P23;
-        double a33 = pk.P33;
-        // Cholesky factor of the predicted covariance, pivots floored so a nearly singular one still factors.
-        double d0 = pp.P00;
-        double l00 = Math.Sqrt(Math.Max(d0, Math.Max(1e-12 * pp.P00, 1e-300)));
-        double l10 = (pp.P01) / l00;
-        double l20 = (pp.P02) / l00;
-        double l30 = (pp.P03) / l00;
-        double d1 = pp.P11 - (l10 * l10);
-        double l11 = Math.Sqrt(Math.Max(d1, Math.Max(1e-12 * pp.P11, 1e-300)));
-        double l21 = (pp.P12 - (l20 * l10)) / l11;
-        double l31 = (pp.P13 - (l30 * l10)) / l11;
-        double d2 = pp.P22 - (l20 * l20) - (l21 * l21);
-        double l22 = Math.Sqrt(Math.Max(d2, Math.Max(1e-12 * pp.P22, 1e-300)));
-        double l32 = (pp.P23 - (l30 * l20) - (l31 * l21)) / l22;
-        double d3 = pp.P33 - (l30 * l30) - (l31 * l31) - (l32 * l32);
-        double l33 = Math.Sqrt(Math.Max(d3, Math.Max(1e-12 * pp.P33, 1e-300)));
-        double m00 = 1 / l00;
-        double m11 = 1 / l11;
-        double m22 = 1 / l22;
-        double m33 = 1 / l33;
-        double m10 = -((l10 * m00)) / l11;
-        double m21 = -((l21 * m11)) / l22;
-        double m20 = -((l20 * m00) + (l21 * m10)) / l22;
-        double m32 = -((l32 * m22)) / l33;
-        double m31 = -((l31 * m11) + (l32 * m21)) / l33;
-        double m30 = -((l30 * m00) + (l31 * m10) + (l32 * m20)) / l33;
-        double q00 = (m00 * m00) + (m10 * m10) + (m20 * m20) + (m30 * m30);
-        double q01 = (m10 * m11) + (m20 * m21) + (m30 * m31);
-        double q02 = (m20 * m22) + (m30 * m32);
-        double q03 = (m30 * m33);
-        double q11 = (m11 * m11) + (m21 * m21) + (m31 * m31);
-        double q12 = (m21 * m22) + (m31 * m32);
-        double q13 = (m31 * m33);
-        double q22 = (m22 * m22) + (m32 * m32);
-        double q23 = (m32 * m33);
-        double q33 = (m33 * m33);
-        double c00 = (a00 * q00) + (a10 * q01) + (a20 * q02) + (a30 * q03);
-        double c01 = (a00 * q01) + (a10 * q11) + (a20 * q12) + (a30 * q13);
-        double c02 = (a00 * q02) + (a10 * q12) + (a20 * q22) + (a30 * q23);
-        double c03 = (a00 * q03) + (a10 * q13) + (a20 * q23) + (a30 * q33);
-        double c10 = (a01 * q00) + (a11 * q01) + (a21 * q02) + (a31 * q03);
-        double c11 = (a01 * q01) + (a11 * q11) + (a21 * q12) + (a31 * q13);
-        double c12 = (a01 * q02) + (a11 * q12) + (a21 * q22) + (a31 * q23);
-        double c13 = (a01 * q03) + (a11 * q13) + (a21 * q23) + (a31 * q33);
-        double c20 = (a02 * q00) + (a12 * q01) + (a22 * q02) + (a32 * q03);
-        double c21 = (a02 * q01) + (a12 * q11) + (a22 * q12) + (a32 * q13);
-        double c22 = (a02 * q02) + (a12 * q12) + (a22 * q22) + (a32 * q23);
-        double c23 = (a02 * q03) + (a12 * q13) + (a22 * q23) + (a32 * q33);
-        double c30 = (a03 * q00) + (a13 * q01) + (a23 * q02) + (a33 * q03);
-        double c31 = (a03 * q01) + (a13 * q11) + (a23 * q12) + (a33 * q13);
-        double c32 = (a03 * q02) + (a13 * q12) + (a23 * q22) + (a33 * q23);
-        double c33 = (a03 * q03) + (a13 * q13) + (a23 * q23) + (a33 * q33);
-        double e0 = xs.D - xp.D;
-        double e1 = xs.V - xp.V;
-        double e2 = xs.T - xp.T;
-        double e3 = xs.F - xp.F;
-        xs.D = xk.D + (c00 * e0) + (c01 * e1) + (c02 * e2) + (c03 * e3);
-        xs.V = xk.V + (c10 * e0) + (c11 * e1) + (c12 * e2) + (c13 * e3);
-        xs.T = xk.T + (c20 * e0) + (c21 * e1) + (c22 * e2) + (c23 * e3);
-        xs.F = xk.F + (c30 * e0) + (c31 * e1) + (c32 * e2) + (c33 * e3);
-        double g00 = ps.P00 - pp.P00;
-        double g01 = ps.P01 - pp.P01;
-        double g02 = ps.P02 - pp.P02;
-        double g03 = ps.P03 - pp.P03;
-        double g11 = ps.P11 - pp.P11;
-        double g12 = ps.P12 - pp.P12;
-        double g13 = ps.P13 - pp.P13;
-        double g22 = ps.P22 - pp.P22;
-        double g23 = ps.P23 - pp.P23;
-        double g33 = ps.P33 - pp.P33;
-        double t00 = (c00 * g00) + (c01 * g01) + (c02 * g02) + (c03 * g03);
-        double t01 = (c00 * g01) + (c01 * g11) + (c02 * g12) + (c03 * g13);
-        double t02 = (c00 * g02) + (c01 * g12) + (c02 * g22) + (c03 * g23);
-        double t03 = (c00 * g03) + (c01 * g13) + (c02 * g23) + (c03 * g33);
-        double t10 = (c10 * g00) + (c11 * g01) + (c12 * g02) + (c13 * g03);
-        double t11 = (c10 * g01) + (c11 * g11) + (c12 * g12) + (c13 * g13);
-        double t12 = (c10 * g02) + (c11 * g12) + (c12 * g22) + (c13 * g23);
-        double t13 = (c10 * g03) + (c11 * g13) + (c12 * g23) + (c13 * g33);
-        double t20 = (c20 * g00) + (c21 * g01) + (c22 * g02) + (c23 * g03);
-        double t21 = (c20 * g01) + (c21 * g11) + (c22 * g12) + (c23 * g13);
-        double t22 = (c20 * g02) + (c21 * g12) + (c22 * g22) + (c23 * g23);
-        double t23 = (c20 * g03) + (c21 * g13) + (c22 * g23) + (c23 * g33);
-        double t30 = (c30 * g00) + (c31 * g01) + (c32 * g02) + (c33 * g03);
-        double t31 = (c30 * g01) + (c31 * g11) + (c32 * g12) + (c33 * g13);
-        double t32 = (c30 * g02) + (c31 * g12) + (c32 * g22) + (c33 * g23);
-        double t33 = (c30 * g03) + (c31 * g13) + (c32 * g23) + (c33 * g33);
-        ps.P00 = pk.P00 + (t00 * c00) + (t01 * c01) + (t02 * c02) + (t03 * c03);
-        ps.P01 = pk.P01 + (t00 * c10) + (t01 * c11) + (t02 * c12) + (t03 * c13);
-        ps.P02 = pk.P02 + (t00 * c20) + (t01 * c21) + (t02 * c22) + (t03 * c23);
-        ps.P03 = pk.P03 + (t00 * c30) + (t01 * c31) + (t02 * c32) + (t03 * c33);
-        ps.P11 = pk.P11 + (t10 * c10) + (t11 * c11) + (t12 * c12) + (t13 * c13);
-        ps.P12 = pk.P12 + (t10 * c20) + (t11 * c21) + (t12 * c22) + (t13 * c23);
-        ps.P13 = pk.P13 + (t10 * c30) + (t11 * c31) + (t12 * c32) + (t13 * c33);
-        ps.P22 = pk.P22 + (t20 * c20) + (t21 * c21) + (t22 * c22) + (t23 * c23);
-        ps.P23 = pk.P23 + (t20 * c30) + (t21 * c31) + (t22 * c32) + (t23 * c33);
-        ps.P33 = pk.P33 + (t30 * c30) + (t31 * c31) + (t32 * c32) + (t33 * c33);
-    }
-
-    /// <summary>Scalar measurement z = h·x + noise of variance r; the innovation and its variance come back.</summary>
-    private static void Update(ref Vec4 x, ref Sym4 p, double h0, double h1, double h2, double h3, double z, double r, out double innovation, out double variance, bool gate, out bool used)
-    {
-        double ph0 = (p.P00 * h0) + (p.P01 * h1) + (p.P02 * h2) + (p.P03 * h3);
-        double ph1 = (p.P01 * h0) + (p.P11 * h1) + (p.P12 * h2) + (p.P13 * h3);
-        double ph2 = (p.P02 * h0) + (p.P12 * h1) + (p.P22 * h2) + (p.P23 * h3);
-        double ph3 = (p.P03 * h0) + (p.P13 * h1) + (p.P23 * h2) + (p.P33 * h3);
-        innovation = z - ((h0 * x.D) + (h1 * x.V) + (h2 * x.T) + (h3 * x.F));
-        variance = r + (h0 * ph0) + (h1 * ph1) + (h2 * ph2) + (h3 * ph3);
-        double nis = innovation * innovation / variance;
-        used = true;
-        if (gate && nis > 100)
-        {
-            used = false;
-            return;
-        }
-
-        // A far-out observation counts as a 5-σ one.
-        double sv = gate && nis > 25 ? variance * nis / 25 : variance;
-        double k = innovation / sv;
-        x.D += ph0 * k;
-        x.V += ph1 * k;
-        x.T += ph2 * k;
-        x.F += ph3 * k;
-        p.P00 -= ph0 * ph0 / sv;
-        p.P01 -= ph0 * ph1 / sv;
-        p.P02 -= ph0 * ph2 / sv;
-        p.P03 -= ph0 * ph3 / sv;
-        p.P11 -= ph1 * ph1 / sv;
-        p.P12 -= ph1 * ph2 / sv;
-        p.P13 -= ph1 * ph3 / sv;
-        p.P22 -= ph2 * ph2 / sv;
-        p.P23 -= ph2 * ph3 / sv;
-        p.P33 -= ph3 * ph3 / sv;
-    }
-
-    /// <summary>P ← F·P·Fᵀ for F = I + f01·e₀e₁ᵀ + f02·e₀e₂ᵀ + f12·e₁e₂ᵀ.</summary>
-    private static void Propagate(ref Sym4 p, double f01, double f02, double f12)
-    {
-        double a00 = p.P00 + (f01 * p.P01) + (f02 * p.P02);
-        double a10 = p.P01 + (f12 * p.P02);
-        double a20 = p.P02;
-        double a30 = p.P03;
-        double a01 = p.P01 + (f01 * p.P11) + (f02 * p.P12);
-        double a11 = p.P11 + (f12 * p.P12);
-        double a21 = p.P12;
-        double a31 = p.P13;
-        double a02 = p.P02 + (f01 * p.P12) + (f02 * p.P22);
-        double a12 = p.P12 + (f12 * p.P22);
-        double a22 = p.P22;
-        double a32 = p.P23;
-        double a03 = p.P03 + (f01 * p.P13) + (f02 * p.P23);
-        double a13 = p.P13 + (f12 * p.P23);
-        double a23 = p.P23;
-        double a33 = p.P33;
-        p.P00 = a00 + (f01 * a01) + (f02 * a02);
-        p.P01 = a01 + (f12 * a02);
-        p.P02 = a02;
-        p.P03 = a03;
-        p.P11 = a11 + (f12 * a12);
-        p.P12 = a12;
-        p.P13 = a13;
-        p.P22 = a22;
-        p.P23 = a23;
-        p.P33 = a33;
     }
 
     private static bool InSpin(TimeWindow[] windows, double t)
@@ -582,27 +451,308 @@ internal static class FusionSmoother
         return lo;
     }
 
-    /// <summary>Distance, speed, third state, phase.</summary>
-    private struct Vec4
+    /// <summary>One Rauch–Tung–Striebel step: from the smoothed state at k+1 (in <paramref name="xs"/>,
+    /// <paramref name="ps"/>) to the smoothed state at k, with gain C = Pk·Fᵀ·Pp⁻¹.</summary>
+    private static void SmoothStep(in Vec xk, in Sym pk, in Vec xp, in Sym pp, double f01, double f02, double f12, ref Vec xs, ref Sym ps)
     {
-        public double D;
-        public double V;
-        public double T;
-        public double F;
+        double a00 = pk.P00 + (f01 * pk.P01) + (f02 * pk.P02);
+        double a10 = pk.P01 + (f12 * pk.P02);
+        double a20 = pk.P02;
+        double a30 = pk.P03;
+        double a40 = pk.P04;
+        double a01 = pk.P01 + (f01 * pk.P11) + (f02 * pk.P12);
+        double a11 = pk.P11 + (f12 * pk.P12);
+        double a21 = pk.P12;
+        double a31 = pk.P13;
+        double a41 = pk.P14;
+        double a02 = pk.P02 + (f01 * pk.P12) + (f02 * pk.P22);
+        double a12 = pk.P12 + (f12 * pk.P22);
+        double a22 = pk.P22;
+        double a32 = pk.P23;
+        double a42 = pk.P24;
+        double a03 = pk.P03 + (f01 * pk.P13) + (f02 * pk.P23);
+        double a13 = pk.P13 + (f12 * pk.P23);
+        double a23 = pk.P23;
+        double a33 = pk.P33;
+        double a43 = pk.P34;
+        double a04 = pk.P04 + (f01 * pk.P14) + (f02 * pk.P24);
+        double a14 = pk.P14 + (f12 * pk.P24);
+        double a24 = pk.P24;
+        double a34 = pk.P34;
+        double a44 = pk.P44;
+        // Cholesky factor of the predicted covariance, pivots floored so a nearly singular one still factors.
+        double d0 = pp.P00;
+        double l00 = Math.Sqrt(Math.Max(d0, Math.Max(1e-12 * pp.P00, 1e-300)));
+        double l10 = (pp.P01) / l00;
+        double l20 = (pp.P02) / l00;
+        double l30 = (pp.P03) / l00;
+        double l40 = (pp.P04) / l00;
+        double d1 = pp.P11 - (l10 * l10);
+        double l11 = Math.Sqrt(Math.Max(d1, Math.Max(1e-12 * pp.P11, 1e-300)));
+        double l21 = (pp.P12 - (l20 * l10)) / l11;
+        double l31 = (pp.P13 - (l30 * l10)) / l11;
+        double l41 = (pp.P14 - (l40 * l10)) / l11;
+        double d2 = pp.P22 - (l20 * l20) - (l21 * l21);
+        double l22 = Math.Sqrt(Math.Max(d2, Math.Max(1e-12 * pp.P22, 1e-300)));
+        double l32 = (pp.P23 - (l30 * l20) - (l31 * l21)) / l22;
+        double l42 = (pp.P24 - (l40 * l20) - (l41 * l21)) / l22;
+        double d3 = pp.P33 - (l30 * l30) - (l31 * l31) - (l32 * l32);
+        double l33 = Math.Sqrt(Math.Max(d3, Math.Max(1e-12 * pp.P33, 1e-300)));
+        double l43 = (pp.P34 - (l40 * l30) - (l41 * l31) - (l42 * l32)) / l33;
+        double d4 = pp.P44 - (l40 * l40) - (l41 * l41) - (l42 * l42) - (l43 * l43);
+        double l44 = Math.Sqrt(Math.Max(d4, Math.Max(1e-12 * pp.P44, 1e-300)));
+        double m00 = 1 / l00;
+        double m11 = 1 / l11;
+        double m22 = 1 / l22;
+        double m33 = 1 / l33;
+        double m44 = 1 / l44;
+        double m10 = -((l10 * m00)) / l11;
+        double m21 = -((l21 * m11)) / l22;
+        double m20 = -((l20 * m00) + (l21 * m10)) / l22;
+        double m32 = -((l32 * m22)) / l33;
+        double m31 = -((l31 * m11) + (l32 * m21)) / l33;
+        double m30 = -((l30 * m00) + (l31 * m10) + (l32 * m20)) / l33;
+        double m43 = -((l43 * m33)) / l44;
+        double m42 = -((l42 * m22) + (l43 * m32)) / l44;
+        double m41 = -((l41 * m11) + (l42 * m21) + (l43 * m31)) / l44;
+        double m40 = -((l40 * m00) + (l41 * m10) + (l42 * m20) + (l43 * m30)) / l44;
+        double q00 = (m00 * m00) + (m10 * m10) + (m20 * m20) + (m30 * m30) + (m40 * m40);
+        double q01 = (m10 * m11) + (m20 * m21) + (m30 * m31) + (m40 * m41);
+        double q02 = (m20 * m22) + (m30 * m32) + (m40 * m42);
+        double q03 = (m30 * m33) + (m40 * m43);
+        double q04 = (m40 * m44);
+        double q11 = (m11 * m11) + (m21 * m21) + (m31 * m31) + (m41 * m41);
+        double q12 = (m21 * m22) + (m31 * m32) + (m41 * m42);
+        double q13 = (m31 * m33) + (m41 * m43);
+        double q14 = (m41 * m44);
+        double q22 = (m22 * m22) + (m32 * m32) + (m42 * m42);
+        double q23 = (m32 * m33) + (m42 * m43);
+        double q24 = (m42 * m44);
+        double q33 = (m33 * m33) + (m43 * m43);
+        double q34 = (m43 * m44);
+        double q44 = (m44 * m44);
+        double c00 = (a00 * q00) + (a10 * q01) + (a20 * q02) + (a30 * q03) + (a40 * q04);
+        double c01 = (a00 * q01) + (a10 * q11) + (a20 * q12) + (a30 * q13) + (a40 * q14);
+        double c02 = (a00 * q02) + (a10 * q12) + (a20 * q22) + (a30 * q23) + (a40 * q24);
+        double c03 = (a00 * q03) + (a10 * q13) + (a20 * q23) + (a30 * q33) + (a40 * q34);
+        double c04 = (a00 * q04) + (a10 * q14) + (a20 * q24) + (a30 * q34) + (a40 * q44);
+        double c10 = (a01 * q00) + (a11 * q01) + (a21 * q02) + (a31 * q03) + (a41 * q04);
+        double c11 = (a01 * q01) + (a11 * q11) + (a21 * q12) + (a31 * q13) + (a41 * q14);
+        double c12 = (a01 * q02) + (a11 * q12) + (a21 * q22) + (a31 * q23) + (a41 * q24);
+        double c13 = (a01 * q03) + (a11 * q13) + (a21 * q23) + (a31 * q33) + (a41 * q34);
+        double c14 = (a01 * q04) + (a11 * q14) + (a21 * q24) + (a31 * q34) + (a41 * q44);
+        double c20 = (a02 * q00) + (a12 * q01) + (a22 * q02) + (a32 * q03) + (a42 * q04);
+        double c21 = (a02 * q01) + (a12 * q11) + (a22 * q12) + (a32 * q13) + (a42 * q14);
+        double c22 = (a02 * q02) + (a12 * q12) + (a22 * q22) + (a32 * q23) + (a42 * q24);
+        double c23 = (a02 * q03) + (a12 * q13) + (a22 * q23) + (a32 * q33) + (a42 * q34);
+        double c24 = (a02 * q04) + (a12 * q14) + (a22 * q24) + (a32 * q34) + (a42 * q44);
+        double c30 = (a03 * q00) + (a13 * q01) + (a23 * q02) + (a33 * q03) + (a43 * q04);
+        double c31 = (a03 * q01) + (a13 * q11) + (a23 * q12) + (a33 * q13) + (a43 * q14);
+        double c32 = (a03 * q02) + (a13 * q12) + (a23 * q22) + (a33 * q23) + (a43 * q24);
+        double c33 = (a03 * q03) + (a13 * q13) + (a23 * q23) + (a33 * q33) + (a43 * q34);
+        double c34 = (a03 * q04) + (a13 * q14) + (a23 * q24) + (a33 * q34) + (a43 * q44);
+        double c40 = (a04 * q00) + (a14 * q01) + (a24 * q02) + (a34 * q03) + (a44 * q04);
+        double c41 = (a04 * q01) + (a14 * q11) + (a24 * q12) + (a34 * q13) + (a44 * q14);
+        double c42 = (a04 * q02) + (a14 * q12) + (a24 * q22) + (a34 * q23) + (a44 * q24);
+        double c43 = (a04 * q03) + (a14 * q13) + (a24 * q23) + (a34 * q33) + (a44 * q34);
+        double c44 = (a04 * q04) + (a14 * q14) + (a24 * q24) + (a34 * q34) + (a44 * q44);
+        double e0 = xs.D - xp.D;
+        double e1 = xs.V - xp.V;
+        double e2 = xs.T - xp.T;
+        double e3 = xs.F - xp.F;
+        double e4 = xs.K - xp.K;
+        xs.D = xk.D + (c00 * e0) + (c01 * e1) + (c02 * e2) + (c03 * e3) + (c04 * e4);
+        xs.V = xk.V + (c10 * e0) + (c11 * e1) + (c12 * e2) + (c13 * e3) + (c14 * e4);
+        xs.T = xk.T + (c20 * e0) + (c21 * e1) + (c22 * e2) + (c23 * e3) + (c24 * e4);
+        xs.F = xk.F + (c30 * e0) + (c31 * e1) + (c32 * e2) + (c33 * e3) + (c34 * e4);
+        xs.K = xk.K + (c40 * e0) + (c41 * e1) + (c42 * e2) + (c43 * e3) + (c44 * e4);
+        double g00 = ps.P00 - pp.P00;
+        double g01 = ps.P01 - pp.P01;
+        double g02 = ps.P02 - pp.P02;
+        double g03 = ps.P03 - pp.P03;
+        double g04 = ps.P04 - pp.P04;
+        double g11 = ps.P11 - pp.P11;
+        double g12 = ps.P12 - pp.P12;
+        double g13 = ps.P13 - pp.P13;
+        double g14 = ps.P14 - pp.P14;
+        double g22 = ps.P22 - pp.P22;
+        double g23 = ps.P23 - pp.P23;
+        double g24 = ps.P24 - pp.P24;
+        double g33 = ps.P33 - pp.P33;
+        double g34 = ps.P34 - pp.P34;
+        double g44 = ps.P44 - pp.P44;
+        double t00 = (c00 * g00) + (c01 * g01) + (c02 * g02) + (c03 * g03) + (c04 * g04);
+        double t01 = (c00 * g01) + (c01 * g11) + (c02 * g12) + (c03 * g13) + (c04 * g14);
+        double t02 = (c00 * g02) + (c01 * g12) + (c02 * g22) + (c03 * g23) + (c04 * g24);
+        double t03 = (c00 * g03) + (c01 * g13) + (c02 * g23) + (c03 * g33) + (c04 * g34);
+        double t04 = (c00 * g04) + (c01 * g14) + (c02 * g24) + (c03 * g34) + (c04 * g44);
+        double t10 = (c10 * g00) + (c11 * g01) + (c12 * g02) + (c13 * g03) + (c14 * g04);
+        double t11 = (c10 * g01) + (c11 * g11) + (c12 * g12) + (c13 * g13) + (c14 * g14);
+        double t12 = (c10 * g02) + (c11 * g12) + (c12 * g22) + (c13 * g23) + (c14 * g24);
+        double t13 = (c10 * g03) + (c11 * g13) + (c12 * g23) + (c13 * g33) + (c14 * g34);
+        double t14 = (c10 * g04) + (c11 * g14) + (c12 * g24) + (c13 * g34) + (c14 * g44);
+        double t20 = (c20 * g00) + (c21 * g01) + (c22 * g02) + (c23 * g03) + (c24 * g04);
+        double t21 = (c20 * g01) + (c21 * g11) + (c22 * g12) + (c23 * g13) + (c24 * g14);
+        double t22 = (c20 * g02) + (c21 * g12) + (c22 * g22) + (c23 * g23) + (c24 * g24);
+        double t23 = (c20 * g03) + (c21 * g13) + (c22 * g23) + (c23 * g33) + (c24 * g34);
+        double t24 = (c20 * g04) + (c21 * g14) + (c22 * g24) + (c23 * g34) + (c24 * g44);
+        double t30 = (c30 * g00) + (c31 * g01) + (c32 * g02) + (c33 * g03) + (c34 * g04);
+        double t31 = (c30 * g01) + (c31 * g11) + (c32 * g12) + (c33 * g13) + (c34 * g14);
+        double t32 = (c30 * g02) + (c31 * g12) + (c32 * g22) + (c33 * g23) + (c34 * g24);
+        double t33 = (c30 * g03) + (c31 * g13) + (c32 * g23) + (c33 * g33) + (c34 * g34);
+        double t34 = (c30 * g04) + (c31 * g14) + (c32 * g24) + (c33 * g34) + (c34 * g44);
+        double t40 = (c40 * g00) + (c41 * g01) + (c42 * g02) + (c43 * g03) + (c44 * g04);
+        double t41 = (c40 * g01) + (c41 * g11) + (c42 * g12) + (c43 * g13) + (c44 * g14);
+        double t42 = (c40 * g02) + (c41 * g12) + (c42 * g22) + (c43 * g23) + (c44 * g24);
+        double t43 = (c40 * g03) + (c41 * g13) + (c42 * g23) + (c43 * g33) + (c44 * g34);
+        double t44 = (c40 * g04) + (c41 * g14) + (c42 * g24) + (c43 * g34) + (c44 * g44);
+        ps.P00 = pk.P00 + (t00 * c00) + (t01 * c01) + (t02 * c02) + (t03 * c03) + (t04 * c04);
+        ps.P01 = pk.P01 + (t00 * c10) + (t01 * c11) + (t02 * c12) + (t03 * c13) + (t04 * c14);
+        ps.P02 = pk.P02 + (t00 * c20) + (t01 * c21) + (t02 * c22) + (t03 * c23) + (t04 * c24);
+        ps.P03 = pk.P03 + (t00 * c30) + (t01 * c31) + (t02 * c32) + (t03 * c33) + (t04 * c34);
+        ps.P04 = pk.P04 + (t00 * c40) + (t01 * c41) + (t02 * c42) + (t03 * c43) + (t04 * c44);
+        ps.P11 = pk.P11 + (t10 * c10) + (t11 * c11) + (t12 * c12) + (t13 * c13) + (t14 * c14);
+        ps.P12 = pk.P12 + (t10 * c20) + (t11 * c21) + (t12 * c22) + (t13 * c23) + (t14 * c24);
+        ps.P13 = pk.P13 + (t10 * c30) + (t11 * c31) + (t12 * c32) + (t13 * c33) + (t14 * c34);
+        ps.P14 = pk.P14 + (t10 * c40) + (t11 * c41) + (t12 * c42) + (t13 * c43) + (t14 * c44);
+        ps.P22 = pk.P22 + (t20 * c20) + (t21 * c21) + (t22 * c22) + (t23 * c23) + (t24 * c24);
+        ps.P23 = pk.P23 + (t20 * c30) + (t21 * c31) + (t22 * c32) + (t23 * c33) + (t24 * c34);
+        ps.P24 = pk.P24 + (t20 * c40) + (t21 * c41) + (t22 * c42) + (t23 * c43) + (t24 * c44);
+        ps.P33 = pk.P33 + (t30 * c30) + (t31 * c31) + (t32 * c32) + (t33 * c33) + (t34 * c34);
+        ps.P34 = pk.P34 + (t30 * c40) + (t31 * c41) + (t32 * c42) + (t33 * c43) + (t34 * c44);
+        ps.P44 = pk.P44 + (t40 * c40) + (t41 * c41) + (t42 * c42) + (t43 * c43) + (t44 * c44);
     }
 
-    /// <summary>Upper triangle of a symmetric 4×4 matrix.</summary>
-    private struct Sym4
+    /// <summary>Scalar measurement z = h·x + noise of variance r. Returns false in <paramref name="used"/>
+    /// when the innovation was over 10 σ (the measurement was down-weighted to count as 5 σ).</summary>
+    private static void Update(ref Vec x, ref Sym p, double h0, double h1, double h2, double h3, double h4, double z, double r, bool gate, out bool used)
+    {
+        double ph0 = (p.P00 * h0) + (p.P01 * h1) + (p.P02 * h2) + (p.P03 * h3) + (p.P04 * h4);
+        double ph1 = (p.P01 * h0) + (p.P11 * h1) + (p.P12 * h2) + (p.P13 * h3) + (p.P14 * h4);
+        double ph2 = (p.P02 * h0) + (p.P12 * h1) + (p.P22 * h2) + (p.P23 * h3) + (p.P24 * h4);
+        double ph3 = (p.P03 * h0) + (p.P13 * h1) + (p.P23 * h2) + (p.P33 * h3) + (p.P34 * h4);
+        double ph4 = (p.P04 * h0) + (p.P14 * h1) + (p.P24 * h2) + (p.P34 * h3) + (p.P44 * h4);
+        double innovation = z - ((h0 * x.D) + (h1 * x.V) + (h2 * x.T) + (h3 * x.F) + (h4 * x.K));
+        double variance = r + (h0 * ph0) + (h1 * ph1) + (h2 * ph2) + (h3 * ph3) + (h4 * ph4);
+        double nis = innovation * innovation / variance;
+
+        // A far-out observation counts as a 5-σ one: it still pulls, so a filter that has drifted
+        // comes back instead of refusing everything after; beyond 10 σ it is reported.
+        used = !(gate && nis > 100);
+        double sv = gate && nis > 25 ? variance * nis / 25 : variance;
+        double k = innovation / sv;
+        x.D += ph0 * k;
+        x.V += ph1 * k;
+        x.T += ph2 * k;
+        x.F += ph3 * k;
+        x.K += ph4 * k;
+        p.P00 -= ph0 * ph0 / sv;
+        p.P01 -= ph0 * ph1 / sv;
+        p.P02 -= ph0 * ph2 / sv;
+        p.P03 -= ph0 * ph3 / sv;
+        p.P04 -= ph0 * ph4 / sv;
+        p.P11 -= ph1 * ph1 / sv;
+        p.P12 -= ph1 * ph2 / sv;
+        p.P13 -= ph1 * ph3 / sv;
+        p.P14 -= ph1 * ph4 / sv;
+        p.P22 -= ph2 * ph2 / sv;
+        p.P23 -= ph2 * ph3 / sv;
+        p.P24 -= ph2 * ph4 / sv;
+        p.P33 -= ph3 * ph3 / sv;
+        p.P34 -= ph3 * ph4 / sv;
+        p.P44 -= ph4 * ph4 / sv;
+    }
+
+    /// <summary>P ← F·P·Fᵀ for F = I + f01·e₀e₁ᵀ + f02·e₀e₂ᵀ + f12·e₁e₂ᵀ.</summary>
+    private static void Propagate(ref Sym p, double f01, double f02, double f12)
+    {
+        double a00 = p.P00 + (f01 * p.P01) + (f02 * p.P02);
+        double a10 = p.P01 + (f12 * p.P02);
+        double a20 = p.P02;
+        double a30 = p.P03;
+        double a40 = p.P04;
+        double a01 = p.P01 + (f01 * p.P11) + (f02 * p.P12);
+        double a11 = p.P11 + (f12 * p.P12);
+        double a21 = p.P12;
+        double a31 = p.P13;
+        double a41 = p.P14;
+        double a02 = p.P02 + (f01 * p.P12) + (f02 * p.P22);
+        double a12 = p.P12 + (f12 * p.P22);
+        double a22 = p.P22;
+        double a32 = p.P23;
+        double a42 = p.P24;
+        double a03 = p.P03 + (f01 * p.P13) + (f02 * p.P23);
+        double a13 = p.P13 + (f12 * p.P23);
+        double a23 = p.P23;
+        double a33 = p.P33;
+        double a43 = p.P34;
+        double a04 = p.P04 + (f01 * p.P14) + (f02 * p.P24);
+        double a14 = p.P14 + (f12 * p.P24);
+        double a24 = p.P24;
+        double a34 = p.P34;
+        double a44 = p.P44;
+        p.P00 = a00 + (f01 * a01) + (f02 * a02);
+        p.P01 = a01 + (f12 * a02);
+        p.P02 = a02;
+        p.P03 = a03;
+        p.P04 = a04;
+        p.P11 = a11 + (f12 * a12);
+        p.P12 = a12;
+        p.P13 = a13;
+        p.P14 = a14;
+        p.P22 = a22;
+        p.P23 = a23;
+        p.P24 = a24;
+        p.P33 = a33;
+        p.P34 = a34;
+        p.P44 = a44;
+    }
+
+    /// <summary>Distance, speed, third state, phase, slip coefficient.</summary>
+    private struct Vec
+    {
+        public double D;
+
+        public double V;
+
+        public double T;
+
+        public double F;
+
+        public double K;
+    }
+
+    /// <summary>Upper triangle of a symmetric 5×5 matrix.</summary>
+    private struct Sym
     {
         public double P00;
+
         public double P01;
+
         public double P02;
+
         public double P03;
+
+        public double P04;
+
         public double P11;
+
         public double P12;
+
         public double P13;
+
+        public double P14;
+
         public double P22;
+
         public double P23;
+
+        public double P24;
+
         public double P33;
+
+        public double P34;
+
+        public double P44;
     }
 }

@@ -54,6 +54,16 @@ public sealed class ReconstructedRun
     /// <summary>When the car came to rest at the end, seconds; null when the run has no known stop.</summary>
     public double? StopS { get; init; }
 
+    /// <summary>The pickup wheel's longitudinal slip per m/s² of drive (slip ratio ÷ drive force
+    /// per unit mass), s²/m, as the fusion estimated it: about 0.002–0.008 on a driven wheel; 0
+    /// (σ 0) when too small to tell from no slip, as on an undriven wheel. Null when not
+    /// estimated (no accelerometer or no pulses).</summary>
+    public Estimate? WheelSlipPerMps2 { get; init; }
+
+    /// <summary>The pulse channel used for distance: 0, or 1 when the second channel turned less
+    /// under drive (the undriven wheel).</summary>
+    public int DistanceChannel { get; init; }
+
     /// <summary>Stretches where the pulses ran ahead of the accelerometer (wheelspin) and were
     /// not trusted for distance.</summary>
     public IReadOnlyList<TimeWindow> WheelspinWindows { get; init; } = [];

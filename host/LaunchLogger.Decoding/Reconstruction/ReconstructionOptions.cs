@@ -60,6 +60,44 @@ public sealed record ReconstructionOptions
     /// <summary>The smallest excess that counts as wheelspin, as a fraction of the speed.</summary>
     public double WheelspinFraction { get; init; } = 0.04;
 
+    /// <summary>Take the body's pitch under acceleration and braking out of the forward axis,
+    /// using the vertical axis, when all three axes were measured.</summary>
+    public bool CompensateBodyPitch { get; init; } = true;
+
+    /// <summary>Prior σ of the pickup wheel's slip per m/s² of drive, s²/m (0 to leave tyre slip
+    /// out). A driven wheel slips about 1–3 % under hard acceleration; 0.005 allows 2.5 % at
+    /// 5 m/s².</summary>
+    public double WheelSlipSigma { get; init; } = 0.005;
+
+    /// <summary>1-σ relative error of distance from the pulses that no sensor here can see, as a
+    /// fraction: an undriven tyre slips by about (rolling resistance + the force that spins the
+    /// wheel up) ÷ slip stiffness, a few 10⁻⁴ in a hard launch (slip stiffness 20–30 per unit of
+    /// load; H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1). It widens σ of distance and
+    /// speed in proportion to them.</summary>
+    public double PulseScaleSigma { get; init; } = 3e-4;
+
+    /// <summary>Share of a driven wheel's estimated slip correction taken as 1-σ model error: the
+    /// slip law is linear, and real tyres slip more near their grip limit, as in a hard launch
+    /// (sized on simulated launches so that the rollout mark stays within ±2 σ).</summary>
+    public double SlipModelError { get; init; } = 0.6;
+
+    /// <summary>Slip coefficients below this count as no slip (an undriven wheel), s²/m: 0.001
+    /// is 0.5 % of slip at 5 m/s² of drive.</summary>
+    public double WheelSlipMinimum { get; init; } = 0.001;
+
+    /// <summary>With two pulse channels, measure distance on the one that turns less under drive
+    /// (the undriven wheel).</summary>
+    public bool UseSecondChannel { get; init; } = true;
+
+    /// <summary>Air drag per unit mass per speed squared, 1/m, used to turn acceleration into
+    /// drive force for the slip model: ½·ρ·Cd·A/m, about 3.4·10⁻⁴ for a 1200-kg car with
+    /// Cd·A = 0.66 m² in air of 1.225 kg/m³ (common practice).</summary>
+    public double DragPerMassPerSpeedSquared { get; init; } = 3.4e-4;
+
+    /// <summary>Rolling resistance coefficient for the same purpose (about 0.012 for car tyres on
+    /// asphalt; common practice).</summary>
+    public double RollingResistance { get; init; } = 0.012;
+
     /// <summary>The firmware's rollout mark may differ from ours by this much plus three σ and
     /// one pulse's worth of time before a warning, seconds.</summary>
     public double FirmwareRolloutToleranceS { get; init; } = 0.005;

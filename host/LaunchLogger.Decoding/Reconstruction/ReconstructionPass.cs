@@ -15,6 +15,8 @@ internal sealed class ReconstructionPass
     private readonly double rolloutM;
     private readonly double mpp;
     private readonly PulseChannel? pulses;
+    private readonly int channel;
+    private readonly string? channelNote;
     private readonly ForwardAcceleration? accel;
     private readonly double? motionHintS;
 
@@ -33,8 +35,23 @@ internal sealed class ReconstructionPass
         mpp = PulseChannel.MetresPerPulse(configuration);
         if (options.UsePulses && mpp > 0 && run.Pulses.Count > 0)
         {
-            var channel = PulseChannel.From(run.Pulses);
-            pulses = channel.Length > 0 ? channel : null;
+            var first = PulseChannel.From(run.Pulses);
+            pulses = first.Length > 0 ? first : null;
+        }
+
+        if (options.UsePulses && options.UseSecondChannel && configuration.Staged && run.SecondPulses.Count > 2 && configuration.SecondMetresPerPulse > 0)
+        {
+            var second = PulseChannel.From(run.SecondPulses);
+            if (pulses is null)
+            {
+                (pulses, mpp, channel) = (second, configuration.SecondMetresPerPulse, 1);
+            }
+            else if (DistanceUnderDrive(pulses, mpp, second, configuration.SecondMetresPerPulse) is { } ratio && ratio < 0.998)
+            {
+                // The second wheel covers less under drive: the first one slips, so it is driven.
+                channelNote = $"the second pulse channel turned {(1 - ratio) * 100:F1} % less than the first while accelerating; it is taken as the undriven wheel and used for distance";
+                (pulses, mpp, channel) = (second, configuration.SecondMetresPerPulse, 1);
+            }
         }
 
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;
@@ -42,6 +59,78 @@ internal sealed class ReconstructionPass
     }
 
     private bool Staged => configuration.Staged;
+
+    /// <summary>Distance the second channel covered divided by the first's, from the later first
+    /// pulse (plus 0.2 s) to the first channel's highest speed, when both saw enough of it.</summary>
+    private static double? DistanceUnderDrive(PulseChannel a, double mppA, PulseChannel b, double mppB)
+    {
+        double from = Math.Max(a.MidS(0), b.MidS(0)) + 0.2;
+
+        // Highest speed of channel a over half-second spans.
+        double peakS = double.NaN;
+        double peak = 0;
+        int j = 0;
+        for (int i = 0; i < a.Length; i++)
+        {
+            while (j < a.Length && a.MidS(j) < a.MidS(i) + 0.5)
+            {
+                j++;
+            }
+
+            if (j >= a.Length)
+            {
+                break;
+            }
+
+            double speed = (a.Counts[j] - a.Counts[i]) * mppA / (a.MidS(j) - a.MidS(i));
+            if (speed > peak)
+            {
+                peak = speed;
+                peakS = a.MidS(j);
+            }
+        }
+
+        if (double.IsNaN(peakS) || peakS < from + 1)
+        {
+            return null;
+        }
+
+        double da = (CountAt(a, peakS) - CountAt(a, from)) * mppA;
+        double db = (CountAt(b, peakS) - CountAt(b, from)) * mppB;
+        return da > 10 && db > 0 ? db / da : null;
+    }
+
+    /// <summary>Count at <paramref name="t"/>, interpolated between observation midpoints.</summary>
+    private static double CountAt(PulseChannel c, double t)
+    {
+        int lo = 0;
+        int hi = c.Length - 1;
+        if (t <= c.MidS(0))
+        {
+            return c.Counts[0];
+        }
+
+        if (t >= c.MidS(hi))
+        {
+            return c.Counts[hi];
+        }
+
+        while (hi - lo > 1)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (c.MidS(mid) <= t)
+            {
+                lo = mid;
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+
+        double f = (t - c.MidS(lo)) / (c.MidS(hi) - c.MidS(lo));
+        return c.Counts[lo] + (f * (c.Counts[hi] - c.Counts[lo]));
+    }
 
     public ReconstructedRun Run()
     {
@@ -82,13 +171,31 @@ internal sealed class ReconstructionPass
         StepGrid steps = BuildGrid(firstMotion.Value, stopS, endOfData);
         double[] grid = steps.TimeS;
         List<TimeWindow> spin = FindWheelspin(firstMotion.Value, stopS ?? endOfData);
-        FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin));
-        if (fused.Outliers > 0)
+        if (channelNote != null)
         {
-            warnings.Add($"{fused.Outliers} pulse observations disagreed with the rest by more than ten σ and were left out");
+            warnings.Add(channelNote);
         }
 
-        Trajectory trajectory = MakeTrajectory(steps, firstMotion.Value, stopS, fused);
+        double[]? slipSignal = SlipSignal(steps, firstMotion.Value, stopS);
+        FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, slipSignal));
+        if (pulses != null && accel != null && Staged
+            && (fused.Outliers > 0.25 * pulses.Length || (fused.SlipKept && Math.Abs(fused.Slip.Value) * 0.5 * G0 > 0.15)))
+        {
+            // The wheel slips too much, too unevenly, for the slip model: let the accelerometer
+            // carry the distance while there is drive, and the pulses only where there is none.
+            warnings.Add("the pulses run far ahead of the accelerometer for much of the run (sustained wheelspin on a driven wheel?): distance under drive comes from the accelerometer, the pulses are used only while coasting and braking");
+            spin = DriveWindows(steps, firstMotion.Value, stopS);
+            slipSignal = null;
+            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, slipSignal));
+        }
+
+        ReportSlip(fused, slipSignal != null);
+        if (fused.Outliers > 0)
+        {
+            warnings.Add($"{fused.Outliers} pulse observations disagreed with the rest by more than ten σ and were down-weighted");
+        }
+
+        Trajectory trajectory = MakeTrajectory(steps, firstMotion.Value, stopS, fused, slipSignal);
         (Estimate? rolloutTime, Estimate? rolloutSpeed) = Rollout(trajectory, firstMotion.Value);
         CheckFirmwareRollout(rolloutTime, rolloutSpeed);
         AddModeWarnings(trajectory, firstMotion, stopS, fused);
@@ -109,6 +216,8 @@ internal sealed class ReconstructionPass
             FirstPulseDistanceM = pulses is null || !Staged ? null : new Estimate(mpp - fused.PhaseM.Value, fused.PhaseM.Sigma),
             StopS = stopS,
             WheelspinWindows = spin,
+            WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
+            DistanceChannel = channel,
         };
     }
 
@@ -176,30 +285,19 @@ internal sealed class ReconstructionPass
         }
 
         (pitchRad, pitchSigmaRad) = RestingPitch(a);
-        double cos = Math.Cos(pitchRad);
-        accelInput = new double[a.Count];
-        for (int i = 0; i < a.Count; i++)
-        {
-            accelInput[i] = (a.ForwardMps2[i] - a.RestLevelMps2) / cos;
-        }
+        accelInput = a.Input(pitchRad, options.CompensateBodyPitch);
     }
 
     private void FindOnset(ForwardAcceleration a, double? reference)
     {
-        var y = new double[a.Count];
-        for (int i = 0; i < a.Count; i++)
-        {
-            y[i] = a.ForwardMps2[i] - a.RestLevelMps2;
-        }
-
         if (pulses != null && Staged)
         {
-            onset = AccelOnsetFit.Find(a.TimeS, y, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, 0, a.IndexAtOrAfter(pulses.HiS[0]), lastRise: true);
+            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, a.RestLevelMps2, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, 0, a.IndexAtOrAfter(pulses.HiS[0]), lastRise: true);
         }
         else if (Staged)
         {
             int from = motionHintS is { } h ? a.IndexAtOrAfter(h - 0.5) : a.IndexAtOrAfter(a.TimeS[0] + 0.3);
-            onset = AccelOnsetFit.Find(a.TimeS, y, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, from, a.Count, lastRise: false);
+            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, a.RestLevelMps2, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, from, a.Count, lastRise: false);
         }
         else
         {
@@ -393,7 +491,6 @@ internal sealed class ReconstructionPass
     {
         double from = startS - options.PreRollS;
         double step = options.GridStepS;
-        var grid = new List<double>();
         double end = endOfData;
         if (pulses != null && accel is null)
         {
@@ -401,6 +498,13 @@ internal sealed class ReconstructionPass
         }
 
         end = Math.Max(end, startS + (2 * step));
+        int capacity = (int)((end - from) / step) + 8;
+        if (accel != null)
+        {
+            capacity += accel.Count / Math.Max(1, (int)Math.Round(step / accel.PeriodS));
+        }
+
+        var grid = new List<double>(capacity);
         double accelEnd = double.NegativeInfinity;
         if (accel != null)
         {
@@ -525,17 +629,127 @@ internal sealed class ReconstructionPass
         }
 
         List<TimeWindow> windows = WheelspinDetector.Find(
-            pulses, mpp, accel.TimeS, accelInput, startS, endS, options.WheelspinMinExcessMps, options.WheelspinFraction, out double largest);
-        if (windows.Count > 0)
+            pulses, mpp, accel.TimeS, accelInput, startS, endS, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
+        if (spinning.Count > 0)
         {
-            string list = string.Join(", ", windows.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
-            warnings.Add($"wheelspin suspected (pulses up to {largest * 100:F0} % ahead of the accelerometer) at {list} after first motion; the pulses there were not used for distance");
+            string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            warnings.Add($"wheelspin suspected (pulses up to {ahead * 100:F0} % ahead of the accelerometer) at {list} after first motion; the pulses there were not used for distance");
+        }
+
+        if (windows.Count > spinning.Count)
+        {
+            string list = string.Join(", ", windows.Except(spinning).Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            warnings.Add($"the wheel slid (pulses up to {behind * 100:F0} % behind the accelerometer) at {list} after first motion; the pulses there were not used for distance");
         }
 
         return windows;
     }
 
-    private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin)
+    /// <summary>The slip signal S(t) = ∫ v·a_drive dt on the grid, where a_drive is the drive
+    /// force per unit mass: the measured forward acceleration plus typical air drag and rolling
+    /// resistance, or 0 when that is negative (coasting, braking). A tyre's longitudinal slip grows in proportion to the force it passes (the
+    /// linear part of its force–slip curve; H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1),
+    /// so a wheel slipping by k·a_drive counts k·S(t) more than the car covered. Speeds come
+    /// from the pulses themselves (their own slip changes S by only that much).</summary>
+    private double[]? SlipSignal(StepGrid steps, double startS, double? stopS)
+    {
+        if (accel is null || pulses is null || !Staged || options.WheelSlipSigma <= 0 || pulses.Length < 3)
+        {
+            return null;
+        }
+
+        double[] grid = steps.TimeS;
+        var signal = new double[grid.Length];
+        double stop = stopS ?? double.PositiveInfinity;
+        int i = 0;
+        double sum = 0;
+        for (int k = FusionSmoother.FirstIndexAfter(grid, startS); k + 1 < grid.Length; k++)
+        {
+            double mid = 0.5 * (grid[k] + grid[k + 1]);
+            while (i + 1 < pulses.Length && pulses.MidS(i + 1) <= mid)
+            {
+                i++;
+            }
+
+            double speed = 0;
+            if (mid < stop && i + 1 < pulses.Length && pulses.MidS(i) <= mid)
+            {
+                speed = (pulses.Counts[i + 1] - pulses.Counts[i]) * mpp / Math.Max(pulses.MidS(i + 1) - pulses.MidS(i), 1e-6);
+            }
+
+            double dt = grid[k + 1] - grid[k];
+            // Drive only: under braking every wheel slips, driven or not, by its own measure, and
+            // that is left to the accelerometer's error model.
+            double drive = Math.Max((steps.StepSpeedM[k] / dt) + (options.DragPerMassPerSpeedSquared * speed * speed) + (options.RollingResistance * G0), 0);
+            sum += speed * drive * dt;
+            signal[k + 1] = sum;
+        }
+
+        return signal;
+    }
+
+    /// <summary>Stretches where the drive force per unit mass (measured acceleration plus typical
+    /// drag and rolling resistance, averaged over 0.1 s) exceeds 0.5 m/s², widened by 0.1 s.</summary>
+    private List<TimeWindow> DriveWindows(StepGrid steps, double startS, double? stopS)
+    {
+        double[] grid = steps.TimeS;
+        var windows = new List<TimeWindow>();
+        double stop = stopS ?? double.PositiveInfinity;
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        double open = double.NaN;
+        for (int k = k0; k + 1 < grid.Length; k++)
+        {
+            // Mean input over the steps within ±0.05 s.
+            double sum = 0;
+            double span = 0;
+            for (int j = k; j + 1 < grid.Length && grid[j] < grid[k] + 0.05; j++)
+            {
+                sum += steps.StepSpeedM[j];
+                span += grid[j + 1] - grid[j];
+            }
+
+            for (int j = k - 1; j >= k0 && grid[j] > grid[k] - 0.05; j--)
+            {
+                sum += steps.StepSpeedM[j];
+                span += grid[j + 1] - grid[j];
+            }
+
+            bool drive = grid[k] < stop && span > 0 && (sum / span) + (options.RollingResistance * G0) > 0.5;
+            if (drive && double.IsNaN(open))
+            {
+                open = k == k0 ? startS : grid[k] - 0.1;
+            }
+            else if (!drive && !double.IsNaN(open))
+            {
+                windows.Add(new TimeWindow(open, grid[k] + 0.1));
+                open = double.NaN;
+            }
+        }
+
+        if (!double.IsNaN(open))
+        {
+            windows.Add(new TimeWindow(open, Math.Min(stop, grid[^1])));
+        }
+
+        return windows;
+    }
+
+    private void ReportSlip(FusionResult fused, bool modelled)
+    {
+        if (!modelled || !fused.SlipKept)
+        {
+            return;
+        }
+
+        // Slip at half a g of drive: worth a word once it passes 0.3 %.
+        double atHalfG = fused.Slip.Value * 0.5 * G0;
+        if (Math.Abs(atHalfG) > 0.003)
+        {
+            warnings.Add($"the pulses show the tyre slipping by about {atHalfG * 100:F1} % at half a g of drive (a driven wheel?); distances and speeds are corrected for it");
+        }
+    }
+
+    private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
         bool withAccel = accel != null;
@@ -607,18 +821,28 @@ internal sealed class ReconstructionPass
             EdgeJitterS = options.EdgeJitterS,
             SpinWindows = [.. spin],
             SpinPhaseVariance = 1.0,
+            SlipSignal = slipSignal,
+            SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
+            SlipMinimum = options.WheelSlipMinimum,
         };
     }
 
-    private Trajectory MakeTrajectory(StepGrid steps, double startS, double? stopS, FusionResult fused)
+    /// <remarks>The σ columns add what the filter cannot see: the pulses' own scale (an undriven
+    /// tyre still slips a little under rolling resistance and the torque that spins it up, see
+    /// <see cref="ReconstructionOptions.PulseScaleSigma"/>) and, on a driven wheel, the part of the
+    /// slip the linear slip law misses (<see cref="ReconstructionOptions.SlipModelError"/> of the
+    /// correction). Both are systematic, so they grow with distance and speed.</remarks>
+    private Trajectory MakeTrajectory(StepGrid steps, double startS, double? stopS, FusionResult fused, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
         int n = grid.Length;
-        var distance = new double[n];
-        var speed = new double[n];
+
+        // The filter's arrays become the trajectory's (zeros before first motion already).
+        double[] distance = fused.DistanceM;
+        double[] speed = fused.SpeedMps;
+        double[] sd = fused.DistanceSigmaM;
+        double[] sv = fused.SpeedSigmaMps;
         var accelOut = new double[n];
-        var sd = new double[n];
-        var sv = new double[n];
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         double stop = stopS ?? double.PositiveInfinity;
         double previous = 0;
@@ -627,12 +851,24 @@ internal sealed class ReconstructionPass
             bool atRest = grid[k] >= stop;
 
             // Distance never goes back, and stands still once the car is at rest.
-            double d = atRest && k > k0 && grid[k - 1] >= stop ? previous : Math.Max(fused.DistanceM[k], previous);
+            double d = atRest && k > k0 && grid[k - 1] >= stop ? previous : Math.Max(distance[k], previous);
             previous = d;
             distance[k] = d;
-            speed[k] = atRest ? 0 : Math.Max(fused.SpeedMps[k], 0);
-            sd[k] = fused.DistanceSigmaM[k];
-            sv[k] = atRest ? 0 : fused.SpeedSigmaMps[k];
+            speed[k] = atRest ? 0 : Math.Max(speed[k], 0);
+            double scale = pulses is null ? 0 : options.PulseScaleSigma;
+            double slipDistance = 0;
+            double slipSpeed = 0;
+            if (slipSignal != null && fused.SlipKept)
+            {
+                slipDistance = options.SlipModelError * Math.Abs(fused.Slip.Value) * slipSignal[k];
+                double rate = k + 1 < n ? (slipSignal[k + 1] - slipSignal[k]) / (grid[k + 1] - grid[k]) : 0;
+                slipSpeed = options.SlipModelError * Math.Abs(fused.Slip.Value) * rate;
+            }
+
+            double dSys = (scale * d) + slipDistance;
+            double vSys = (scale * speed[k]) + slipSpeed;
+            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys));
+            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys));
             if (atRest)
             {
                 accelOut[k] = 0;

@@ -1,23 +1,26 @@
 namespace LaunchLogger.Decoding.Reconstruction;
 
-/// <summary>Finds stretches where the pulses run ahead of the accelerometer: a driven wheel
-/// spinning faster than the car moves.</summary>
+/// <summary>Finds stretches where the pulses run well ahead of the accelerometer (a driven wheel
+/// spinning faster than the car moves) or well behind it (a wheel sliding under braking).</summary>
 /// <remarks>Over windows of about 40 ms the mean speed from the pulses is compared with the mean
 /// speed from integrating the accelerometer. Without spin their difference is smooth: an offset,
 /// a drift (accelerometer bias) and a share of the speed (scale errors). That baseline is fitted
 /// robustly — iteratively reweighted least squares with Tukey's biweight (P. J. Huber, "Robust
-/// Statistics", 1981; Holland &amp; Welsch 1977) — and windows standing well above it are spin.</remarks>
+/// Statistics", 1981; Holland &amp; Welsch 1977) — and windows standing well above it are spin,
+/// well below it a slide.</remarks>
 internal static class WheelspinDetector
 {
     private const double WindowS = 0.04;
 
     public static List<TimeWindow> Find(
         PulseChannel pulses, double mpp, double[] accelT, double[] input, double startS, double endS,
-        double minExcessMps, double fraction, out double largestFraction)
+        double minExcessMps, double fraction, out double largestAhead, out double largestBehind, out List<TimeWindow> spinning)
     {
-        largestFraction = 0;
+        largestAhead = 0;
+        largestBehind = 0;
+        spinning = [];
         var found = new List<TimeWindow>();
-        double[] distance = IntegrateTwice(accelT, input, startS);
+        var integral = new RunningDistance(accelT, input, startS);
 
         // Window statistics.
         var mids = new List<double>();
@@ -50,7 +53,8 @@ internal static class WheelspinDetector
             {
                 double span = tj - ti;
                 double vp = (pulses.Counts[j] - pulses.Counts[i]) * mpp / span;
-                double va = (At(accelT, distance, tj) - At(accelT, distance, ti)) / span;
+                double before = integral.At(ti);
+                double va = (integral.At(tj) - before) / span;
                 if (vp >= 1.0)
                 {
                     mids.Add(0.5 * (ti + tj));
@@ -122,29 +126,41 @@ internal static class WheelspinDetector
         }
 
         var spin = new bool[n];
+        var slide = new bool[n];
         for (int k = 0; k < n; k++)
         {
             double limit = Math.Max(Math.Max(minExcessMps, fraction * Math.Max(accelSpeeds[k], 0)), 4 * scale);
             spin[k] = residual[k] > limit;
-            if (spin[k])
-            {
-                largestFraction = Math.Max(largestFraction, residual[k] / Math.Max(accelSpeeds[k], 1));
-            }
+            slide[k] = residual[k] < -limit;
+            double share = residual[k] / Math.Max(accelSpeeds[k], 1);
+            largestAhead = spin[k] ? Math.Max(largestAhead, share) : largestAhead;
+            largestBehind = slide[k] ? Math.Max(largestBehind, -share) : largestBehind;
         }
 
-        // Group flagged windows (bridging single unflagged ones), widened by a window each side;
-        // spin reaching back to the first window reaches back to first motion.
+        spinning = Group(spin, starts, ends, startS);
+        found.AddRange(spinning);
+        found.AddRange(Group(slide, starts, ends, startS));
+        found.Sort((a, b) => a.StartS.CompareTo(b.StartS));
+        return found;
+    }
+
+    /// <summary>Groups flagged windows (bridging single unflagged ones), widened by a window each
+    /// side; a group reaching back to the first window reaches back to first motion.</summary>
+    private static List<TimeWindow> Group(bool[] flagged, List<double> starts, List<double> ends, double startS)
+    {
+        var found = new List<TimeWindow>();
+        int n = flagged.Length;
         int a = 0;
         while (a < n)
         {
-            if (!spin[a])
+            if (!flagged[a])
             {
                 a++;
                 continue;
             }
 
             int b = a;
-            while (b + 1 < n && (spin[b + 1] || (b + 2 < n && spin[b + 2])))
+            while (b + 1 < n && (flagged[b + 1] || (b + 2 < n && flagged[b + 2])))
             {
                 b++;
             }
@@ -166,53 +182,77 @@ internal static class WheelspinDetector
         return found;
     }
 
-    /// <summary>Distance from integrating <paramref name="input"/> twice from rest at <paramref name="startS"/>.</summary>
-    private static double[] IntegrateTwice(double[] t, double[] input, double startS)
+    /// <summary>Distance from integrating the input twice from rest at the start, read at
+    /// times that never go back (the input taken as linear between samples).</summary>
+    private sealed class RunningDistance(double[] t, double[] input, double startS)
     {
-        var d = new double[t.Length];
-        double v = 0;
-        double dist = 0;
-        double prevT = startS;
-        double prevU = 0;
-        for (int i = 0; i < t.Length; i++)
+        private int next = FirstAfter(t, startS);
+        private double time = startS;
+        private double value = Interpolate(t, input, startS);
+        private double speed;
+        private double distance;
+
+        public double At(double when)
         {
-            if (t[i] <= startS)
+            while (next < t.Length && t[next] <= when)
             {
-                continue;
+                Advance(t[next], input[next]);
+                next++;
             }
 
-            double dt = t[i] - prevT;
-            double vNext = v + (0.5 * (prevU + input[i]) * dt);
-            dist += 0.5 * (v + vNext) * dt;
-            v = vNext;
-            d[i] = dist;
-            prevT = t[i];
-            prevU = input[i];
+            if (when <= time)
+            {
+                return distance;
+            }
+
+            double u = next < t.Length ? Interpolate(t, input, when) : value;
+            double h = when - time;
+            double v = speed + (0.5 * (value + u) * h);
+            return distance + (0.5 * (speed + v) * h);
         }
 
-        return d;
-    }
-
-    private static double At(double[] t, double[] values, double time)
-    {
-        int i = Array.BinarySearch(t, time);
-        if (i >= 0)
+        private void Advance(double to, double u)
         {
-            return values[i];
+            double h = to - time;
+            if (h <= 0)
+            {
+                return;
+            }
+
+            double v = speed + (0.5 * (value + u) * h);
+            distance += 0.5 * (speed + v) * h;
+            speed = v;
+            time = to;
+            value = u;
         }
 
-        i = ~i;
-        if (i == 0)
+        private static int FirstAfter(double[] t, double at)
         {
-            return values[0];
+            int i = Array.BinarySearch(t, at);
+            return i >= 0 ? i + 1 : ~i;
         }
 
-        if (i >= t.Length)
+        private static double Interpolate(double[] t, double[] y, double at)
         {
-            return values[^1];
-        }
+            int i = Array.BinarySearch(t, at);
+            if (i >= 0)
+            {
+                return y[i];
+            }
 
-        double f = (time - t[i - 1]) / (t[i] - t[i - 1]);
-        return values[i - 1] + (f * (values[i] - values[i - 1]));
+            i = ~i;
+            if (i == 0)
+            {
+                return y[0];
+            }
+
+            if (i >= t.Length)
+            {
+                return y[^1];
+            }
+
+            double f = (at - t[i - 1]) / (t[i] - t[i - 1]);
+            return y[i - 1] + (f * (y[i] - y[i - 1]));
+        }
     }
 }
