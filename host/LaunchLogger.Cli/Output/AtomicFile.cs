@@ -17,7 +17,7 @@ public static class AtomicFile
             {
                 string full = Path.GetFullPath(path);
                 Directory.CreateDirectory(Path.GetDirectoryName(full)!);
-                string temp = full + ".part";
+                string temp = $"{full}.{Environment.ProcessId}.part";
                 temps.Add((temp, full));
                 using var stream = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None);
                 write(stream);

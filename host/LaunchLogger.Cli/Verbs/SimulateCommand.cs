@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using LaunchLogger.Cli.Output;
 using LaunchLogger.Simulation;
 using LaunchLogger.Simulation.Scenarios;
 using LaunchLogger.Simulation.Truth;
@@ -93,27 +94,18 @@ public static class SimulateCommand
             return ExitCode.Cancelled;
         }
 
-        var written = new List<(string Temp, string Final)>();
+        var files = new List<(string Path, Action<Stream> Write)> { (logPath, stream => stream.Write(result.LogBytes)) };
+        if (truthPath != null)
+        {
+            files.Add((truthPath, stream => TruthJson.Write(result, stream)));
+        }
+
         try
         {
-            written.Add(WriteTemp(logPath, stream => stream.Write(result.LogBytes)));
-            if (truthPath != null)
-            {
-                written.Add(WriteTemp(truthPath, stream => TruthJson.Write(result, stream)));
-            }
-
-            foreach ((string temp, string final) in written)
-            {
-                File.Move(temp, final, overwrite: true);
-            }
+            AtomicFile.WriteAll(files);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
-            foreach ((string temp, _) in written)
-            {
-                TryDelete(temp);
-            }
-
             error.WriteLine($"simulate: cannot write the output: {e.Message.ReplaceLineEndings(" ")}");
             return ExitCode.BadInput;
         }
@@ -146,39 +138,6 @@ public static class SimulateCommand
         {
             error.WriteLine($"simulate: {e.Message}");
             return false;
-        }
-    }
-
-    private static (string Temp, string Final) WriteTemp(string path, Action<Stream> write)
-    {
-        string temp = Path.Combine(Path.GetDirectoryName(path) ?? ".", $".{Path.GetFileName(path)}.{Environment.ProcessId}.tmp");
-        try
-        {
-            using (var stream = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None))
-            {
-                write(stream);
-            }
-
-            return (temp, path);
-        }
-        catch
-        {
-            TryDelete(temp);
-            throw;
-        }
-    }
-
-    private static void TryDelete(string path)
-    {
-        try
-        {
-            File.Delete(path);
-        }
-        catch (IOException)
-        {
-        }
-        catch (UnauthorizedAccessException)
-        {
         }
     }
 
