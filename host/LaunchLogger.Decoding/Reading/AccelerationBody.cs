@@ -30,6 +30,9 @@ public readonly ref struct AccelerationBody
     /// <summary>The index of the last sample in this frame.</summary>
     public long LastIndex => FirstIndex + Count - 1;
 
+    /// <summary>The samples as written: x, y, z as i16 LE, <see cref="BytesPerSample"/> bytes each.</summary>
+    internal ReadOnlySpan<byte> Samples => samples;
+
     /// <summary>Sample <paramref name="i"/>'s value on sensor axis <paramref name="axis"/> (0 = x, 1 = y, 2 = z), milli-g.</summary>
     public short MilliG(int i, int axis) => BinaryPrimitives.ReadInt16LittleEndian(samples.Slice((i * BytesPerSample) + (axis * 2), 2));
 }

@@ -1,4 +1,5 @@
 using System.Buffers.Binary;
+using System.Runtime.CompilerServices;
 
 namespace LaunchLogger.Decoding.Reading;
 
@@ -27,6 +28,7 @@ internal ref struct BodyReader
     /// <summary>Bytes not read yet.</summary>
     public readonly int Remaining => data.Length - position;
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public byte ReadByte()
     {
         if (position >= data.Length)
@@ -50,6 +52,7 @@ internal ref struct BodyReader
     }
 
     /// <summary>Reads an unsigned LEB128 varint of at most 10 bytes, at most <see cref="MaxFieldValue"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public long ReadVarint()
     {
         ulong value = ReadRawVarint();
@@ -74,6 +77,7 @@ internal ref struct BodyReader
     }
 
     /// <summary>Reads a zig-zag signed varint of magnitude at most <see cref="MaxFieldValue"/> / 2.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public long ReadSignedVarint()
     {
         ulong raw = ReadRawVarint();
@@ -102,7 +106,36 @@ internal ref struct BodyReader
     /// <summary>Marks the body as unreadable (a field's value is impossible).</summary>
     public void Reject() => Failed = true;
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private ulong ReadRawVarint()
+    {
+        // One- and two-byte varints (nearly every delta and width) without the loop.
+        ReadOnlySpan<byte> span = data;
+        int at = position;
+        if ((uint)at < (uint)span.Length)
+        {
+            uint first = span[at];
+            if (first < 0x80)
+            {
+                position = at + 1;
+                return first;
+            }
+
+            if ((uint)(at + 1) < (uint)span.Length)
+            {
+                uint second = span[at + 1];
+                if (second < 0x80)
+                {
+                    position = at + 2;
+                    return (first & 0x7F) | (second << 7);
+                }
+            }
+        }
+
+        return ReadRawVarintLong();
+    }
+
+    private ulong ReadRawVarintLong()
     {
         ulong value = 0;
         int shift = 0;

@@ -94,6 +94,25 @@ public static class FrameBodies
     public static bool TryReadPulses(ReadOnlySpan<byte> body, out int channel, List<PulseObservation> into)
     {
         ArgumentNullException.ThrowIfNull(into);
+        using var read = new PooledBuffer<PulseMicros>(16);
+        if (!TryReadPulses(body, out channel, read, read))
+        {
+            return false;
+        }
+
+        into.EnsureCapacity(into.Count + read.Count);
+        foreach (PulseMicros p in read.Span)
+        {
+            into.Add(new PulseObservation { Channel = channel, Count = p.Count, LoMicros = p.LoMicros, HiMicros = p.HiMicros });
+        }
+
+        return true;
+    }
+
+    /// <summary>As the public form, appending to the buffer of the body's channel without
+    /// making an object per observation. All or nothing, as there.</summary>
+    internal static bool TryReadPulses(ReadOnlySpan<byte> body, out int channel, PooledBuffer<PulseMicros> channel0, PooledBuffer<PulseMicros> channel1)
+    {
         var r = new BodyReader(body);
         channel = r.ReadByte();
 
@@ -104,51 +123,38 @@ public static class FrameBodies
             return false;
         }
 
+        PooledBuffer<PulseMicros> into = channel == 0 ? channel0 : channel1;
         int before = into.Count;
-        long count = 0;
-        long hi = 0;
-        for (int k = 0; k < n; k++)
+        Span<PulseMicros> room = into.Append(n);
+        long count = r.ReadVarint();
+        long lo = r.ReadVarint();
+        long width = r.ReadVarint();
+        long hi = lo + width;
+        if (count < 1 || width < 1 || hi > BodyReader.MaxFieldValue)
         {
-            long lo;
-            if (k == 0)
-            {
-                count = r.ReadVarint();
-                lo = r.ReadVarint();
-                if (count < 1)
-                {
-                    r.Reject();
-                }
-            }
-            else
-            {
-                long step = r.ReadVarint();
-                long gap = r.ReadSignedVarint();
-                count += step;
-                lo = hi + gap;
-                if (step < 1 || lo < 0 || count > BodyReader.MaxFieldValue)
-                {
-                    r.Reject();
-                }
-            }
+            r.Reject();
+        }
 
-            long width = r.ReadVarint();
+        room[0] = new PulseMicros(count, lo, hi);
+        for (int k = 1; k < room.Length && !r.Failed; k++)
+        {
+            long step = r.ReadVarint();
+            long gap = r.ReadSignedVarint();
+            width = r.ReadVarint();
+            count += step;
+            lo = hi + gap;
             hi = lo + width;
-            if (width < 1 || hi > BodyReader.MaxFieldValue)
+            if (step < 1 || lo < 0 || lo > BodyReader.MaxFieldValue || count > BodyReader.MaxFieldValue || width < 1 || hi > BodyReader.MaxFieldValue)
             {
                 r.Reject();
             }
 
-            if (r.Failed)
-            {
-                break;
-            }
-
-            into.Add(new PulseObservation { Channel = channel, Count = count, LoMicros = lo, HiMicros = hi });
+            room[k] = new PulseMicros(count, lo, hi);
         }
 
         if (r.Failed || r.Remaining != 0)
         {
-            into.RemoveRange(before, into.Count - before);
+            into.Truncate(before);
             return false;
         }
 

@@ -26,6 +26,7 @@ public sealed class RunAssembler
     private readonly string source;
     private readonly List<DecodedRun> runs = [];
     private readonly List<string> warnings = [];
+    private readonly RunScratch scratch = new();
     private RunBuilder? open;
     private ReaderStats seen;
     private long corruptBodies;
@@ -76,7 +77,7 @@ public sealed class RunAssembler
         switch (frame.Type)
         {
             case FrameType.Pulses:
-                parsed = FrameBodies.TryReadPulses(frame.Body, out _, open.Pulses);
+                parsed = open.AddPulses(frame.Body);
                 break;
             case FrameType.Acceleration:
                 parsed = FrameBodies.TryReadAcceleration(frame.Body, out AccelerationBody accel);
@@ -138,6 +139,7 @@ public sealed class RunAssembler
                 : "cut off: the log ends before this run's summary (power lost or capture stopped)");
         }
 
+        scratch.Dispose();
         ReaderStats stats = readerStats with { CorruptBodies = corruptBodies, OrphanFrames = orphanFrames };
         WarnOutsideRuns(stats);
         return new LogReadResult
@@ -207,7 +209,7 @@ public sealed class RunAssembler
         string name = powerUp == 0
             ? Invariant($"{source} run {configuration.RunNumber}")
             : Invariant($"{source} run {configuration.RunNumber} (after restart {powerUp})");
-        open = new RunBuilder(configuration, name);
+        open = new RunBuilder(configuration, name, scratch);
     }
 
     private void Close(string? cutOffReason)

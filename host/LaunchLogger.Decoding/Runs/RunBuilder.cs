@@ -1,6 +1,7 @@
+using System.Buffers.Binary;
 using System.Globalization;
+using System.Runtime.InteropServices;
 using LaunchLogger.Decoding.Reading;
-using LaunchLogger.Firmware.Capture;
 using LaunchLogger.Firmware.Wire;
 using static System.FormattableString;
 
@@ -10,18 +11,19 @@ namespace LaunchLogger.Decoding.Runs;
 /// <see cref="DecodedRun"/> in SI units with accelerometer times and warnings.</summary>
 internal sealed class RunBuilder
 {
-    private readonly List<PulseObservation> pulses = [];
-    private readonly List<AccelFrameInfo> accelFrames = [];
+    private readonly RunScratch scratch;
     private readonly List<EventBody> events = [];
     private readonly List<string> warnings = [];
-    private short[] accelValues = new short[3 * 1024];
-    private int accelSampleCount;
 
-    public RunBuilder(ConfigurationBody configuration, string source)
+    /// <summary>Opens a run collecting into <paramref name="scratch"/>, which it empties first
+    /// and must have to itself until <see cref="Build"/>.</summary>
+    public RunBuilder(ConfigurationBody configuration, string source, RunScratch scratch)
     {
         Configuration = configuration;
         Source = source;
         Frames = 1;
+        this.scratch = scratch;
+        scratch.Clear();
     }
 
     public ConfigurationBody Configuration { get; }
@@ -47,22 +49,13 @@ internal sealed class RunBuilder
 
     public SummaryBody? Summary { get; set; }
 
-    public List<PulseObservation> Pulses => pulses;
+    /// <summary>Parses a pulses body into this run's observations; false when it does not parse.</summary>
+    public bool AddPulses(ReadOnlySpan<byte> body) => FrameBodies.TryReadPulses(body, out _, scratch.Channel0, scratch.Channel1);
 
     public void AddAcceleration(in AccelerationBody body)
     {
-        int n = body.Count;
-        EnsureRoom(n);
-        accelFrames.Add(new AccelFrameInfo(body.ReadMicros, body.FirstIndex, n, accelSampleCount));
-        int at = accelSampleCount * 3;
-        for (int i = 0; i < n; i++)
-        {
-            accelValues[at++] = body.MilliG(i, 0);
-            accelValues[at++] = body.MilliG(i, 1);
-            accelValues[at++] = body.MilliG(i, 2);
-        }
-
-        accelSampleCount += n;
+        scratch.AccelFrames.Add(new RunScratch.AccelFrame(body.ReadMicros, body.FirstIndex, body.Count, AccelSampleCount));
+        scratch.AccelSamples.AddRange(body.Samples);
     }
 
     public void AddEvent(EventBody evt) => events.Add(evt);
@@ -138,14 +131,8 @@ internal sealed class RunBuilder
         };
     }
 
-    private void EnsureRoom(int samples)
-    {
-        int needed = (accelSampleCount + samples) * 3;
-        if (needed > accelValues.Length)
-        {
-            Array.Resize(ref accelValues, Math.Max(needed, accelValues.Length * 2));
-        }
-    }
+    /// <summary>Accelerometer samples read so far.</summary>
+    private int AccelSampleCount => scratch.AccelSamples.Count / AccelerationBody.BytesPerSample;
 
     private void WarnDamage()
     {
@@ -175,28 +162,37 @@ internal sealed class RunBuilder
         }
     }
 
+    /// <summary>The channel's observations in seconds, in a list of exactly their number,
+    /// dropping any that repeat or go back on an earlier count.</summary>
     private List<PulseRecord> PulseRecords(int channel)
     {
-        var records = new List<PulseRecord>();
+        ReadOnlySpan<PulseMicros> observed = (channel == 0 ? scratch.Channel0 : scratch.Channel1).Span;
+        int kept = 0;
         long lastCount = 0;
-        int dropped = 0;
-        foreach (PulseObservation p in pulses)
+        foreach (ref readonly PulseMicros p in observed)
         {
-            if (p.Channel != channel)
+            if (p.Count > lastCount)
             {
-                continue;
+                kept++;
+                lastCount = p.Count;
             }
-
-            if (p.Count <= lastCount)
-            {
-                dropped++;
-                continue;
-            }
-
-            records.Add(new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros)));
-            lastCount = p.Count;
         }
 
+        var records = new List<PulseRecord>(kept);
+        CollectionsMarshal.SetCount(records, kept);
+        Span<PulseRecord> into = CollectionsMarshal.AsSpan(records);
+        int at = 0;
+        lastCount = 0;
+        foreach (ref readonly PulseMicros p in observed)
+        {
+            if (p.Count > lastCount)
+            {
+                into[at++] = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
+                lastCount = p.Count;
+            }
+        }
+
+        int dropped = observed.Length - kept;
         if (dropped > 0)
         {
             Warn(Invariant($"{dropped} pulse observation(s) of channel {channel} repeated or went back on an earlier count and were dropped"));
@@ -214,18 +210,23 @@ internal sealed class RunBuilder
 
         int wide = 0;
         double widest = 0;
-        foreach (PulseRecord p in channel0.Concat(channel1))
+        CountWide(CollectionsMarshal.AsSpan(channel0), limitS, ref wide, ref widest);
+        CountWide(CollectionsMarshal.AsSpan(channel1), limitS, ref wide, ref widest);
+        if (wide > 0)
+        {
+            Warn(Invariant($"{wide} pulse observation(s) have brackets wider than the {limitS * 1000:0.###} ms limit (widest {widest * 1000:0.###} ms): edge times are uncertain there"));
+        }
+    }
+
+    private static void CountWide(ReadOnlySpan<PulseRecord> records, double limitS, ref int wide, ref double widest)
+    {
+        foreach (ref readonly PulseRecord p in records)
         {
             if (p.WidthS > limitS)
             {
                 wide++;
                 widest = Math.Max(widest, p.WidthS);
             }
-        }
-
-        if (wide > 0)
-        {
-            Warn(Invariant($"{wide} pulse observation(s) have brackets wider than the {limitS * 1000:0.###} ms limit (widest {widest * 1000:0.###} ms): edge times are uncertain there"));
         }
     }
 
@@ -242,12 +243,14 @@ internal sealed class RunBuilder
 
     private AccelSeries? BuildAccel((double X, double Y, double Z)? rest)
     {
-        if (accelFrames.Count == 0)
+        ReadOnlySpan<RunScratch.AccelFrame> frames = scratch.AccelFrames.Span;
+        if (frames.Length == 0)
         {
             return null;
         }
 
-        List<BurstReading> bursts = Bursts(out int[] burstOfFrame);
+        FillBursts();
+        ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         double nominalPeriodS = Configuration.AccelOutputDataRateMilliHz > 0
             ? 1000.0 / Configuration.AccelOutputDataRateMilliHz
             : FallbackPeriod(bursts);
@@ -277,40 +280,13 @@ internal sealed class RunBuilder
             }
         }
 
-        int n = accelSampleCount;
+        int n = AccelSampleCount;
         var time = new double[n];
         var index = new long[n];
         var forward = new double[n];
         var lateral = new double[n];
         var vertical = new double[n];
-        int kept = 0;
-        long lastIndex = long.MinValue;
-        double lastTime = double.NegativeInfinity;
-        for (int f = 0; f < accelFrames.Count; f++)
-        {
-            AccelFrameInfo frame = accelFrames[f];
-            int segment = bursts[burstOfFrame[f]].Segment;
-            for (int i = 0; i < frame.Count; i++)
-            {
-                long sampleIndex = frame.FirstIndex + i;
-                double t = clock.TimeOf(sampleIndex, segment);
-                if (sampleIndex <= lastIndex || !(t > lastTime))
-                {
-                    continue;
-                }
-
-                int at = (frame.Offset + i) * 3;
-                forward[kept] = axes.ForwardSign * LogUnits.Mps2(accelValues[at + axes.ForwardAxis]);
-                lateral[kept] = axes.LateralSign * LogUnits.Mps2(accelValues[at + axes.LateralAxis]);
-                vertical[kept] = axes.VerticalSign * LogUnits.Mps2(accelValues[at + axes.VerticalAxis]);
-                time[kept] = t;
-                index[kept] = sampleIndex;
-                kept++;
-                lastIndex = sampleIndex;
-                lastTime = t;
-            }
-        }
-
+        int kept = FillSamples(frames, clock, axes, time, index, forward, lateral, vertical);
         if (kept < n)
         {
             Warn(Invariant($"{n - kept} accelerometer sample(s) repeated or out of order were dropped"));
@@ -335,30 +311,77 @@ internal sealed class RunBuilder
         };
     }
 
+    /// <summary>Times each sample on the clock and turns it into the car's axes in m/s²,
+    /// skipping samples whose index or time does not move forward; returns how many were kept.</summary>
+    private int FillSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes, Span<double> time, Span<long> index, Span<double> forward, Span<double> lateral, Span<double> vertical)
+    {
+        ReadOnlySpan<byte> samples = scratch.AccelSamples.Span;
+        ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
+        ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
+        double forwardSign = axes.ForwardSign;
+        double lateralSign = axes.LateralSign;
+        double verticalSign = axes.VerticalSign;
+        int forwardAt = 2 * axes.ForwardAxis;
+        int lateralAt = 2 * axes.LateralAxis;
+        int verticalAt = 2 * axes.VerticalAxis;
+        int kept = 0;
+        long lastIndex = long.MinValue;
+        double lastTime = double.NegativeInfinity;
+        for (int f = 0; f < frames.Length; f++)
+        {
+            RunScratch.AccelFrame frame = frames[f];
+            int segment = bursts[burstOfFrame[f]].Segment;
+            ReadOnlySpan<byte> bytes = samples.Slice(frame.Offset * AccelerationBody.BytesPerSample, frame.Count * AccelerationBody.BytesPerSample);
+            for (int i = 0; i < frame.Count; i++)
+            {
+                long sampleIndex = frame.FirstIndex + i;
+                double t = clock.TimeOf(sampleIndex, segment);
+                if (sampleIndex <= lastIndex || !(t > lastTime))
+                {
+                    continue;
+                }
+
+                ReadOnlySpan<byte> sample = bytes.Slice(i * AccelerationBody.BytesPerSample, AccelerationBody.BytesPerSample);
+                forward[kept] = forwardSign * LogUnits.Mps2(BinaryPrimitives.ReadInt16LittleEndian(sample[forwardAt..]));
+                lateral[kept] = lateralSign * LogUnits.Mps2(BinaryPrimitives.ReadInt16LittleEndian(sample[lateralAt..]));
+                vertical[kept] = verticalSign * LogUnits.Mps2(BinaryPrimitives.ReadInt16LittleEndian(sample[verticalAt..]));
+                time[kept] = t;
+                index[kept] = sampleIndex;
+                kept++;
+                lastIndex = sampleIndex;
+                lastTime = t;
+            }
+        }
+
+        return kept;
+    }
+
     /// <summary>One reading per burst: consecutive frames that share a read time are parts of
     /// one burst, whose newest sample is the highest index among them (LOG-FORMAT.md, 0x03).
     /// A new segment starts where the numbering does not follow on, or after a FIFO overflow.</summary>
-    private List<BurstReading> Bursts(out int[] burstOfFrame)
+    private void FillBursts()
     {
-        var bursts = new List<BurstReading>();
-        burstOfFrame = new int[accelFrames.Count];
-        long[] gaps = events.Where(e => e.Kind == EventKind.AccelGap).Select(e => e.TimeMicros).ToArray();
+        ReadOnlySpan<RunScratch.AccelFrame> frames = scratch.AccelFrames.Span;
+        PooledBuffer<BurstReading> bursts = scratch.Bursts;
+        bursts.Clear();
+        Span<int> burstOfFrame = scratch.BurstOfFrame.Append(frames.Length);
+        long[] gaps = GapTimes();
         int segment = 0;
         long previousRead = long.MinValue;
         long previousLast = long.MinValue;
-        for (int f = 0; f < accelFrames.Count; f++)
+        for (int f = 0; f < frames.Length; f++)
         {
-            AccelFrameInfo frame = accelFrames[f];
+            RunScratch.AccelFrame frame = frames[f];
             long last = frame.FirstIndex + frame.Count - 1;
             if (bursts.Count > 0 && frame.ReadMicros == previousRead)
             {
-                BurstReading current = bursts[^1];
-                bursts[^1] = current with { LastIndex = Math.Max(current.LastIndex, last) };
+                ref BurstReading current = ref bursts[bursts.Count - 1];
+                current = current with { LastIndex = Math.Max(current.LastIndex, last) };
             }
             else
             {
                 if (bursts.Count > 0
-                    && (frame.FirstIndex != previousLast + 1 || gaps.Any(t => t > previousRead && t <= frame.ReadMicros)))
+                    && (frame.FirstIndex != previousLast + 1 || AnyGapIn(gaps, previousRead, frame.ReadMicros)))
                 {
                     segment++;
                 }
@@ -370,12 +393,57 @@ internal sealed class RunBuilder
             previousRead = frame.ReadMicros;
             previousLast = Math.Max(previousLast, last);
         }
+    }
 
-        return bursts;
+    /// <summary>The times of the run's FIFO-overflow events, ascending.</summary>
+    private long[] GapTimes()
+    {
+        int count = 0;
+        foreach (EventBody e in events)
+        {
+            count += e.Kind == EventKind.AccelGap ? 1 : 0;
+        }
+
+        if (count == 0)
+        {
+            return [];
+        }
+
+        var gaps = new long[count];
+        count = 0;
+        foreach (EventBody e in events)
+        {
+            if (e.Kind == EventKind.AccelGap)
+            {
+                gaps[count++] = e.TimeMicros;
+            }
+        }
+
+        Array.Sort(gaps);
+        return gaps;
+    }
+
+    /// <summary>True when a gap time t has <paramref name="afterMicros"/> &lt; t ≤ <paramref name="untilMicros"/>.</summary>
+    private static bool AnyGapIn(long[] sortedGaps, long afterMicros, long untilMicros)
+    {
+        if (sortedGaps.Length == 0)
+        {
+            return false;
+        }
+
+        // The first gap later than afterMicros: is it at or before untilMicros?
+        int at = Array.BinarySearch(sortedGaps, afterMicros);
+        at = at < 0 ? ~at : at;
+        while (at < sortedGaps.Length && sortedGaps[at] <= afterMicros)
+        {
+            at++;
+        }
+
+        return at < sortedGaps.Length && sortedGaps[at] <= untilMicros;
     }
 
     /// <summary>Read-time span over index span, for a log without a configured rate.</summary>
-    private static double FallbackPeriod(List<BurstReading> bursts)
+    private static double FallbackPeriod(ReadOnlySpan<BurstReading> bursts)
     {
         BurstReading first = bursts[0];
         BurstReading last = bursts[^1];
@@ -394,8 +462,8 @@ internal sealed class RunBuilder
             Warn(Invariant($"the summary names run {s.RunNumber} opened at {LogUnits.Seconds(s.OpenedMicros):F6} s but the configuration run {Configuration.RunNumber} at {LogUnits.Seconds(Configuration.OpenedMicros):F6} s"));
         }
 
-        CompareCount("pulse observations", s.ObservationsWritten, pulses.Count);
-        CompareCount("accelerometer samples", s.AccelSamplesWritten, accelSampleCount);
+        CompareCount("pulse observations", s.ObservationsWritten, scratch.Channel0.Count + scratch.Channel1.Count);
+        CompareCount("accelerometer samples", s.AccelSamplesWritten, AccelSampleCount);
         CompareCount("frames", s.FramesWritten, Frames);
     }
 
@@ -442,6 +510,4 @@ internal sealed class RunBuilder
             Warn(Invariant($"{value} {what}"));
         }
     }
-
-    private readonly record struct AccelFrameInfo(long ReadMicros, long FirstIndex, int Count, int Offset);
 }

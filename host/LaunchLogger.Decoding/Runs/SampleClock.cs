@@ -1,3 +1,5 @@
+using System.Buffers;
+using System.Runtime.InteropServices;
 using MathNet.Numerics.Statistics;
 
 namespace LaunchLogger.Decoding.Runs;
@@ -85,7 +87,19 @@ public sealed class SampleClock
     public static SampleClock Fit(IReadOnlyList<BurstReading> bursts, double nominalPeriodS)
     {
         ArgumentNullException.ThrowIfNull(bursts);
-        if (bursts.Count == 0)
+        return bursts switch
+        {
+            BurstReading[] array => Fit(array.AsSpan(), nominalPeriodS),
+            List<BurstReading> list => Fit(CollectionsMarshal.AsSpan(list), nominalPeriodS),
+            _ => Fit(bursts.ToArray(), nominalPeriodS),
+        };
+    }
+
+    /// <summary>As <see cref="Fit(IReadOnlyList{BurstReading}, double)"/>, over a span: time and
+    /// memory linear in the number of bursts, with scratch rented from the shared pool.</summary>
+    internal static SampleClock Fit(ReadOnlySpan<BurstReading> bursts, double nominalPeriodS)
+    {
+        if (bursts.Length == 0)
         {
             throw new ArgumentException("at least one burst is needed", nameof(bursts));
         }
@@ -106,44 +120,64 @@ public sealed class SampleClock
             segments = Math.Max(segments, b.Segment + 1);
         }
 
-        bool[] active = new bool[bursts.Count];
-        Array.Fill(active, true);
-        int rejected = 0;
-        double period = nominalPeriodS;
-        double sigma = nominalPeriodS * NominalRelativeUncertainty;
-        bool estimated = false;
-        while (true)
+        bool[] activeArray = ArrayPool<bool>.Shared.Rent(bursts.Length);
+        double[] residualArray = ArrayPool<double>.Shared.Rent(bursts.Length);
+        double[] sumArray = ArrayPool<double>.Shared.Rent(2 * segments);
+        int[] countArray = ArrayPool<int>.Shared.Rent(segments);
+        try
         {
-            if (!TrySlope(bursts, active, segments, out double slope, out double slopeSigma, out double[] residuals))
+            Span<bool> active = activeArray.AsSpan(0, bursts.Length);
+            Span<double> residuals = residualArray.AsSpan(0, bursts.Length);
+            var sums = new SegmentSums(countArray.AsSpan(0, segments), sumArray.AsSpan(0, segments), sumArray.AsSpan(segments, segments));
+            active.Fill(true);
+            int rejected = 0;
+            double period = nominalPeriodS;
+            double sigma = nominalPeriodS * NominalRelativeUncertainty;
+            bool estimated = false;
+            while (true)
             {
-                break;
+                if (!TrySlope(bursts, active, sums, residuals, out double slope, out double slopeSigma))
+                {
+                    break;
+                }
+
+                period = slope;
+                sigma = slopeSigma;
+                estimated = true;
+                int dropped = DropLateOutliers(residuals, active);
+                if (dropped == 0)
+                {
+                    break;
+                }
+
+                rejected += dropped;
             }
 
-            period = slope;
-            sigma = slopeSigma;
-            estimated = true;
-            int dropped = DropLateOutliers(residuals, active);
-            if (dropped == 0)
-            {
-                break;
-            }
-
-            rejected += dropped;
+            double[] origin = Origins(bursts, active, segments, period, out double meanLatency);
+            return new SampleClock(period, sigma, origin, estimated, bursts.Length - rejected, rejected, meanLatency);
         }
-
-        double[] origin = Origins(bursts, active, segments, period, out double meanLatency);
-        return new SampleClock(period, sigma, origin, estimated, bursts.Count - rejected, rejected, meanLatency);
+        finally
+        {
+            ArrayPool<int>.Shared.Return(countArray);
+            ArrayPool<double>.Shared.Return(sumArray);
+            ArrayPool<double>.Shared.Return(residualArray);
+            ArrayPool<bool>.Shared.Return(activeArray);
+        }
     }
 
-    /// <summary>Pooled within-segment least-squares slope and its standard error.</summary>
-    private static bool TrySlope(IReadOnlyList<BurstReading> bursts, bool[] active, int segments, out double slope, out double slopeSigma, out double[] residuals)
+    /// <summary>Pooled within-segment least-squares slope and its standard error; on success
+    /// <paramref name="residuals"/> holds every burst's residual (NaN in a segment with no
+    /// active burst).</summary>
+    private static bool TrySlope(ReadOnlySpan<BurstReading> bursts, ReadOnlySpan<bool> active, in SegmentSums segment, Span<double> residuals, out double slope, out double slopeSigma)
     {
         slope = slopeSigma = 0;
-        residuals = [];
-        var n = new int[segments];
-        var meanIndex = new double[segments];
-        var meanTime = new double[segments];
-        for (int k = 0; k < bursts.Count; k++)
+        Span<int> n = segment.Count;
+        Span<double> meanIndex = segment.MeanIndex;
+        Span<double> meanTime = segment.MeanTime;
+        n.Clear();
+        meanIndex.Clear();
+        meanTime.Clear();
+        for (int k = 0; k < bursts.Length; k++)
         {
             if (active[k])
             {
@@ -156,7 +190,7 @@ public sealed class SampleClock
 
         int used = 0;
         int segmentsUsed = 0;
-        for (int s = 0; s < segments; s++)
+        for (int s = 0; s < n.Length; s++)
         {
             if (n[s] > 0)
             {
@@ -175,7 +209,7 @@ public sealed class SampleClock
 
         double sxx = 0;
         double sxy = 0;
-        for (int k = 0; k < bursts.Count; k++)
+        for (int k = 0; k < bursts.Length; k++)
         {
             if (active[k])
             {
@@ -192,9 +226,8 @@ public sealed class SampleClock
         }
 
         slope = sxy / sxx;
-        residuals = new double[bursts.Count];
         double sumSquares = 0;
-        for (int k = 0; k < bursts.Count; k++)
+        for (int k = 0; k < bursts.Length; k++)
         {
             BurstReading b = bursts[k];
             double e = b.ReadS - meanTime[b.Segment] - (slope * (b.LastIndex - meanIndex[b.Segment]));
@@ -211,18 +244,28 @@ public sealed class SampleClock
     }
 
     /// <summary>Marks readings far above the line inactive; returns how many.</summary>
-    private static int DropLateOutliers(double[] residuals, bool[] active)
+    private static int DropLateOutliers(ReadOnlySpan<double> residuals, Span<bool> active)
     {
-        var kept = new List<double>(residuals.Length);
+        int kept = 0;
         for (int k = 0; k < residuals.Length; k++)
         {
             if (active[k])
             {
-                kept.Add(residuals[k]);
+                kept++;
             }
         }
 
-        double[] values = kept.ToArray();
+        // MathNet's median works in place on a whole array: one of exactly the active count.
+        double[] values = new double[kept];
+        kept = 0;
+        for (int k = 0; k < residuals.Length; k++)
+        {
+            if (active[k])
+            {
+                values[kept++] = residuals[k];
+            }
+        }
+
         double median = ArrayStatistics.MedianInplace(values);
         for (int k = 0; k < values.Length; k++)
         {
@@ -250,85 +293,187 @@ public sealed class SampleClock
     /// minus P·i scatter above the true origin. The lower convex hull of (i, r − P·i) is the
     /// tightest line under all of them; taken at the mean index it is pinned by the readings on
     /// both sides, so a small error in P tilts it about the middle instead of dragging it down at
-    /// one end (the plain minimum of r − P·i would sit early by about |δP|·half the span).</remarks>
-    private static double[] Origins(IReadOnlyList<BurstReading> bursts, bool[] active, int segments, double period, out double meanLatencyS)
+    /// one end (the plain minimum of r − P·i would sit early by about |δP|·half the span).
+    /// The bursts are bucketed by segment once (a counting sort keeping their order), so the
+    /// whole pass is linear in the bursts however many segments there are, plus a sort by index
+    /// for a segment whose bursts are not already in index order.</remarks>
+    private static double[] Origins(ReadOnlySpan<BurstReading> bursts, ReadOnlySpan<bool> active, int segments, double period, out double meanLatencyS)
     {
         var origin = new double[segments];
-        var latencySum = 0.0;
-        for (int s = 0; s < segments; s++)
+        int[] startArray = ArrayPool<int>.Shared.Rent(segments + 1);
+        int[] orderArray = ArrayPool<int>.Shared.Rent(bursts.Length);
+        long[] keyArray = ArrayPool<long>.Shared.Rent(bursts.Length);
+        double[] hullArray = ArrayPool<double>.Shared.Rent(2 * bursts.Length);
+        try
         {
-            List<int> members = Enumerable.Range(0, bursts.Count).Where(k => bursts[k].Segment == s && active[k]).ToList();
-            if (members.Count == 0)
+            Span<int> start = startArray.AsSpan(0, segments + 1);
+            Span<int> order = orderArray.AsSpan(0, bursts.Length);
+            start.Clear();
+            foreach (BurstReading b in bursts)
             {
-                members = Enumerable.Range(0, bursts.Count).Where(k => bursts[k].Segment == s).ToList();
+                start[b.Segment + 1]++;
             }
 
-            if (members.Count == 0)
+            for (int s = 0; s < segments; s++)
             {
-                origin[s] = double.NaN;
-                continue;
+                start[s + 1] += start[s];
             }
 
-            members.Sort((a, b) => bursts[a].LastIndex.CompareTo(bursts[b].LastIndex));
-            double meanIndex = members.Average(k => (double)bursts[k].LastIndex);
-            double reference = bursts[members[0]].ReadS - (period * bursts[members[0]].LastIndex);
-            var points = members.Select(k => (X: bursts[k].LastIndex - meanIndex, Y: bursts[k].ReadS - (period * bursts[k].LastIndex) - reference)).ToList();
-            origin[s] = reference + LowerHullAt(points, 0);
+            for (int k = 0; k < bursts.Length; k++)
+            {
+                order[start[bursts[k].Segment]++] = k;
+            }
+
+            // The fill above moved each start to the next segment's: step them back.
+            for (int s = segments; s > 0; s--)
+            {
+                start[s] = start[s - 1];
+            }
+
+            start[0] = 0;
+            var hull = new Hull(hullArray.AsSpan(0, bursts.Length), hullArray.AsSpan(bursts.Length, bursts.Length));
+            for (int s = 0; s < segments; s++)
+            {
+                Span<int> all = order[start[s]..start[s + 1]];
+                int members = 0;
+                foreach (int k in all)
+                {
+                    if (active[k])
+                    {
+                        all[members++] = k;
+                    }
+                }
+
+                if (members == 0)
+                {
+                    // No active burst: use them all (they are still in order after the loop above).
+                    members = all.Length;
+                }
+
+                if (members == 0)
+                {
+                    origin[s] = double.NaN;
+                    continue;
+                }
+
+                origin[s] = Origin(bursts, all[..members], keyArray.AsSpan(0, members), period, ref hull);
+            }
+        }
+        finally
+        {
+            ArrayPool<double>.Shared.Return(hullArray);
+            ArrayPool<long>.Shared.Return(keyArray);
+            ArrayPool<int>.Shared.Return(orderArray);
+            ArrayPool<int>.Shared.Return(startArray);
         }
 
+        double latencySum = 0.0;
         foreach (BurstReading b in bursts)
         {
             latencySum += b.ReadS - (period * b.LastIndex) - origin[b.Segment];
         }
 
-        meanLatencyS = latencySum / bursts.Count;
+        meanLatencyS = latencySum / bursts.Length;
         return origin;
     }
 
-    /// <summary>The lower convex hull of points sorted by x, evaluated at <paramref name="x"/>
-    /// (Andrew's monotone chain; equal x keep their lowest y).</summary>
-    private static double LowerHullAt(List<(double X, double Y)> points, double x)
+    /// <summary>One segment's origin from its members (indices into <paramref name="bursts"/>).</summary>
+    private static double Origin(ReadOnlySpan<BurstReading> bursts, Span<int> members, Span<long> keys, double period, ref Hull hull)
     {
-        var hull = new List<(double X, double Y)>(points.Count);
-        foreach ((double X, double Y) p in points)
+        bool sorted = true;
+        for (int m = 0; m < members.Length; m++)
         {
-            if (hull.Count > 0 && hull[^1].X == p.X)
-            {
-                if (p.Y >= hull[^1].Y)
-                {
-                    continue;
-                }
-
-                hull.RemoveAt(hull.Count - 1);
-            }
-
-            while (hull.Count >= 2 && Cross(hull[^2], hull[^1], p) <= 0)
-            {
-                hull.RemoveAt(hull.Count - 1);
-            }
-
-            hull.Add(p);
+            keys[m] = bursts[members[m]].LastIndex;
+            sorted &= m == 0 || keys[m] >= keys[m - 1];
         }
 
-        if (hull.Count == 1 || x <= hull[0].X)
+        if (!sorted)
         {
-            return hull[0].Y;
+            keys.Sort(members);
         }
 
-        for (int m = 0; m + 1 < hull.Count; m++)
+        double indexSum = 0;
+        foreach (int k in members)
         {
-            (double x0, double y0) = hull[m];
-            (double x1, double y1) = hull[m + 1];
-            if (x <= x1)
-            {
-                return y0 + ((y1 - y0) * (x - x0) / (x1 - x0));
-            }
+            indexSum += bursts[k].LastIndex;
         }
 
-        return hull[^1].Y;
+        double meanIndex = indexSum / members.Length;
+        BurstReading first = bursts[members[0]];
+        double reference = first.ReadS - (period * first.LastIndex);
+        hull.Clear();
+        foreach (int k in members)
+        {
+            BurstReading b = bursts[k];
+            hull.Add(b.LastIndex - meanIndex, b.ReadS - (period * b.LastIndex) - reference);
+        }
+
+        return reference + hull.At(0);
     }
 
-    /// <summary>Positive when o → a → b turns left (counter-clockwise).</summary>
-    private static double Cross((double X, double Y) o, (double X, double Y) a, (double X, double Y) b)
-        => ((a.X - o.X) * (b.Y - o.Y)) - ((a.Y - o.Y) * (b.X - o.X));
+    /// <summary>Sums per segment for the slope: bursts, then means of index and read time.</summary>
+    private readonly ref struct SegmentSums(Span<int> count, Span<double> meanIndex, Span<double> meanTime)
+    {
+        public Span<int> Count { get; } = count;
+
+        public Span<double> MeanIndex { get; } = meanIndex;
+
+        public Span<double> MeanTime { get; } = meanTime;
+    }
+
+    /// <summary>The lower convex hull of points added in order of x (Andrew's monotone chain;
+    /// equal x keep their lowest y), over caller-owned storage.</summary>
+    private ref struct Hull(Span<double> x, Span<double> y)
+    {
+        private readonly Span<double> x = x;
+        private readonly Span<double> y = y;
+        private int count;
+
+        public void Clear() => count = 0;
+
+        public void Add(double px, double py)
+        {
+            if (count > 0 && x[count - 1] == px)
+            {
+                if (py >= y[count - 1])
+                {
+                    return;
+                }
+
+                count--;
+            }
+
+            while (count >= 2 && Cross(x[count - 2], y[count - 2], x[count - 1], y[count - 1], px, py) <= 0)
+            {
+                count--;
+            }
+
+            x[count] = px;
+            y[count] = py;
+            count++;
+        }
+
+        /// <summary>The hull's height at <paramref name="at"/>: the end points' outside its span.</summary>
+        public readonly double At(double at)
+        {
+            if (count == 1 || at <= x[0])
+            {
+                return y[0];
+            }
+
+            for (int m = 0; m + 1 < count; m++)
+            {
+                if (at <= x[m + 1])
+                {
+                    return y[m] + ((y[m + 1] - y[m]) * (at - x[m]) / (x[m + 1] - x[m]));
+                }
+            }
+
+            return y[count - 1];
+        }
+
+        /// <summary>Positive when o → a → b turns left (counter-clockwise).</summary>
+        private static double Cross(double ox, double oy, double ax, double ay, double bx, double by)
+            => ((ax - ox) * (by - oy)) - ((ay - oy) * (bx - ox));
+    }
 }

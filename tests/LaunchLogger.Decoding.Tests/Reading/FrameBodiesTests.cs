@@ -69,6 +69,10 @@ public class FrameBodiesTests
         { "trailing byte", new BodyBuilder().Byte(0).Varint(1).Varint(1).Varint(10).Varint(1).Byte(9).ToArray() },
         { "channel 2", new BodyBuilder().Byte(2).Varint(1).Varint(1).Varint(10).Varint(1).ToArray() },
         { "varint runs past the end", new byte[] { 0, 1, 1, 0x80 } },
+
+        // The gap lifts the bracket start past the field limit, where adding the width would
+        // overflow a 64-bit integer: the body is refused instead of wrapping round.
+        { "bracket start beyond the field limit", new BodyBuilder().Byte(0).Varint(2).Varint(1).Varint((1L << 62) - 10).Varint(5).Varint(1).Svarint(1L << 60).Varint((1L << 62) - 1).ToArray() },
     };
 
     [Theory]

@@ -102,6 +102,47 @@ public class SampleClockTests
         }
     }
 
+    [Fact]
+    public void ManySegmentsInAnyOrderGiveTheClockOfTheOrderedBursts()
+    {
+        // 300 segments of 8 bursts each (a FIFO that overflowed over and over), each segment's
+        // numbering restarting at an arbitrary offset, fed once in order and once shuffled.
+        const int segments = 300;
+        var random = new Random(17);
+        var ordered = new List<BurstReading>();
+        var startS = new double[segments];
+        for (int s = 0; s < segments; s++)
+        {
+            long offset = random.Next(0, 1_000_000);
+            startS[s] = StartS + (s * 0.5) - (offset * 1e-3);
+            for (int b = 0; b < 8; b++)
+            {
+                long last = offset + (20L * b) + 19;
+                double read = startS[s] + (last * 1e-3) + (random.NextDouble() * 0.5e-3);
+                ordered.Add(new BurstReading(last, Math.Round(read * 1e6) / 1e6, s));
+            }
+        }
+
+        List<BurstReading> shuffled = ordered.OrderBy(_ => random.Next()).ToList();
+
+        SampleClock inOrder = SampleClock.Fit(ordered, 1e-3);
+        SampleClock anyOrder = SampleClock.Fit(shuffled, 1e-3);
+
+        // Only the order of the sums differs: equal to rounding.
+        Assert.Equal(segments, anyOrder.SegmentCount);
+        Assert.Equal(inOrder.PeriodS, anyOrder.PeriodS, 1e-15);
+        Assert.Equal(inOrder.BurstsRejected, anyOrder.BurstsRejected);
+        for (int s = 0; s < segments; s++)
+        {
+            long middle = ordered[(8 * s) + 4].LastIndex;
+            Assert.Equal(inOrder.TimeOf(middle, s), anyOrder.TimeOf(middle, s), 1e-9);
+
+            // Each origin sits on its own segment's samples: within the latency spread
+            // (0.5 ms) of the true time at the segment's middle.
+            Assert.Equal(startS[s] + (middle * 1e-3), anyOrder.TimeOf(middle, s), 0.5e-3);
+        }
+    }
+
     [Theory]
     [InlineData("one burst", 1)]
     [InlineData("three bursts", 3)]
