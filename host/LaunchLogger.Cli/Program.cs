@@ -14,5 +14,6 @@ var root = new RootCommand(
     ReportCommand.Create(),
     BenchCommand.Create(),
     SimulateCommand.Create(),
+    CalibrateCommand.Create(),
 };
 return await root.Parse(args).InvokeAsync(new InvocationConfiguration { Output = Console.Out, Error = Console.Error });
