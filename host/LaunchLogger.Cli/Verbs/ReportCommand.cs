@@ -31,9 +31,10 @@ public static class ReportCommand
         var pair = new Option<string[]>("--pair") { Description = "Two runs driven in opposite directions, by their index in this report, e.g. 1,2 (repeatable); adds their mean." };
         var brakeReference = new Option<FileInfo?>("--brake-reference") { Description = "A log with a stop whose braking grip bounds every launch (default: the best stop among the runs reported)." };
         var stopFrom = new Option<string[]>("--stop-from") { Description = "Extra nominal speed to correct stopping distances to, e.g. 50mph (repeatable; 60 mph and 100 km/h always)." };
+        var settings = new Option<FileInfo?>("--settings") { Description = "Calibration settings file from launchlogger calibrate: its circumference replaces the logs' and its mounting pitch feeds the grade estimate." };
         var command = new Command("report", "Rebuild each run and report its figures from standstill and after the rollout.")
         {
-            logs, edges, counts, accel, metresPerPulse, pulsesPerRev, circumference, json, units, interval, rollout, weather, pair, brakeReference, stopFrom,
+            logs, edges, counts, accel, metresPerPulse, pulsesPerRev, circumference, json, units, interval, rollout, weather, pair, brakeReference, stopFrom, settings,
         };
         command.SetAction((parse, cancel) => Task.FromResult((int)Run(
             new ReportRequest
@@ -53,6 +54,7 @@ public static class ReportCommand
                 Pairs = parse.GetValue(pair) ?? [],
                 BrakeReference = parse.GetValue(brakeReference),
                 StopFrom = parse.GetValue(stopFrom) ?? [],
+                Settings = parse.GetValue(settings),
             },
             parse.InvocationConfiguration.Output,
             parse.InvocationConfiguration.Error,
@@ -93,6 +95,7 @@ public static class ReportCommand
         try
         {
             inputs = RunInputs.Load(request, cancel);
+            options = options with { Calibration = RunInputs.LoadSettings(request) };
             if (request.BrakeReference is { } reference)
             {
                 referenceRuns = [.. LogReader.ReadFile(reference.FullName, cancel).Runs];

@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Reporting;
 using LaunchLogger.Decoding.Runs;
@@ -11,11 +12,21 @@ public static class RunInputs
     /// <summary>One input and the runs it held.</summary>
     public sealed record Input(string Source, ReaderReport? Reader, IReadOnlyList<DecodedRun> Runs, IReadOnlyList<string>? Warnings = null);
 
-    /// <summary>Loads every input the request names.</summary>
+    /// <summary>Loads the calibration settings file the request names, or null for none.</summary>
+    /// <exception cref="InputException">The file is missing or not a settings file.</exception>
+    public static CalibrationSettings? LoadSettings(ReportRequest request) =>
+        request.Settings is { } file ? CalibrationFile.Load(file.FullName) : null;
+
+    /// <summary>The run with the settings applied (<see cref="CalibrationApplier"/>); as it is without settings.</summary>
+    public static DecodedRun Calibrate(DecodedRun run, CalibrationSettings? settings) =>
+        settings is null ? run : CalibrationApplier.Apply(run, settings);
+
+    /// <summary>Loads every input the request names, with its calibration settings (if any) applied to every run.</summary>
     /// <exception cref="InputException">A file is missing or unusable (one line, naming it).</exception>
     /// <exception cref="UsageException">The request mixes or lacks inputs.</exception>
     public static List<Input> Load(ReportRequest request, CancellationToken cancel)
     {
+        CalibrationSettings? settings = LoadSettings(request);
         bool text = request.Edges != null || request.Counts != null || request.Accel != null;
         if (request.Logs.Count > 0 && text)
         {
@@ -37,7 +48,7 @@ public static class RunInputs
                 AccelPath = request.Accel?.FullName,
                 Scale = PulseScale.FromOptions(request.MetresPerPulse, request.PulsesPerRevolution, request.CircumferenceM),
             });
-            inputs.Add(new Input(run.Source, null, [run]));
+            inputs.Add(new Input(run.Source, null, [Calibrate(run, settings)]));
             return inputs;
         }
 
@@ -49,7 +60,7 @@ public static class RunInputs
         foreach (FileInfo log in request.Logs)
         {
             LogReadResult result = LogReader.ReadFile(log.FullName, cancel);
-            inputs.Add(new Input(result.Source, ReaderReport.From(result.Stats), result.Runs, result.Warnings));
+            inputs.Add(new Input(result.Source, ReaderReport.From(result.Stats), result.Runs.Select(r => Calibrate(r, settings)).ToList(), result.Warnings));
         }
 
         return inputs;
