@@ -1,0 +1,56 @@
+using LaunchLogger.Firmware.Capture;
+
+namespace LaunchLogger.Firmware.Tests.Capture;
+
+public class DebouncerTests
+{
+    [Fact]
+    public void A_level_that_holds_for_the_hold_time_is_taken()
+    {
+        var d = new Debouncer(holdMicros: 20_000, initial: false);
+
+        Assert.False(d.Update(true, 1_000));
+        Assert.False(d.Update(true, 20_999));
+        Assert.True(d.Update(true, 21_000));
+    }
+
+    [Fact]
+    public void Bounces_shorter_than_the_hold_time_are_ignored()
+    {
+        var d = new Debouncer(holdMicros: 20_000, initial: false);
+
+        // Contact bounce: the level flips every 2 ms for 10 ms, then settles low again.
+        for (long t = 0; t <= 10_000; t += 2_000)
+        {
+            Assert.False(d.Update(t % 4_000 == 0, t));
+        }
+
+        Assert.False(d.Update(false, 40_000));
+    }
+
+    [Fact]
+    public void Each_change_restarts_the_hold()
+    {
+        var d = new Debouncer(holdMicros: 10_000, initial: true);
+
+        d.Update(false, 0);
+        d.Update(true, 9_000);
+        d.Update(false, 12_000);
+        Assert.True(d.Update(false, 21_999));
+        Assert.False(d.Update(false, 22_000));
+    }
+
+    [Fact]
+    public void Zero_hold_follows_the_input()
+    {
+        var d = new Debouncer(holdMicros: 0, initial: false);
+        Assert.True(d.Update(true, 5));
+        Assert.False(d.Update(false, 5));
+    }
+
+    [Fact]
+    public void A_negative_hold_is_refused()
+    {
+        Assert.Throws<ArgumentOutOfRangeException>(() => new Debouncer(-1, false));
+    }
+}
