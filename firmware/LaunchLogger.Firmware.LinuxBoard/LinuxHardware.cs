@@ -10,6 +10,7 @@ using LaunchLogger.Firmware.LinuxBoard.GpioLineEvents;
 using LaunchLogger.Firmware.LinuxBoard.Inputs;
 using LaunchLogger.Firmware.LinuxBoard.Sinks;
 using LaunchLogger.Firmware.Run;
+using LaunchLogger.Firmware.Sinks;
 
 namespace LaunchLogger.Firmware.LinuxBoard;
 

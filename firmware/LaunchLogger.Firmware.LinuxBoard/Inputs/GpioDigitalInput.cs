@@ -1,4 +1,5 @@
 using System.Device.Gpio;
+using LaunchLogger.Firmware.Capture;
 using LaunchLogger.Firmware.Hardware;
 using LaunchLogger.Firmware.LinuxBoard.Timing;
 

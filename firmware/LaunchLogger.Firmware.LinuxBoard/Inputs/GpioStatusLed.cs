@@ -4,7 +4,7 @@ using LaunchLogger.Firmware.Run;
 
 namespace LaunchLogger.Firmware.LinuxBoard.Inputs;
 
-/// <summary>The status LED on a GPIO pin, blinking the <see cref="LedPattern"/> of the current
+/// <summary>The status LED on a GPIO pin, blinking the <see cref="PhaseBlinkPattern"/> of the current
 /// phase from a timer so the capture loop never waits on it.</summary>
 public sealed class GpioStatusLed : IStatusIndicator, IDisposable
 {
@@ -72,7 +72,7 @@ public sealed class GpioStatusLed : IStatusIndicator, IDisposable
                 return;
             }
 
-            bool on = LedPattern.IsOn(phase, Environment.TickCount64 - phaseStartMs);
+            bool on = PhaseBlinkPattern.IsOn(phase, Environment.TickCount64 - phaseStartMs);
             if (on != lit)
             {
                 controller.Write(pin, on ? PinValue.High : PinValue.Low);

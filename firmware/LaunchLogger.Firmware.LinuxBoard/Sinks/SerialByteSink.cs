@@ -1,5 +1,6 @@
 using System.IO.Ports;
 using LaunchLogger.Firmware.Hardware;
+using LaunchLogger.Firmware.Sinks;
 
 namespace LaunchLogger.Firmware.LinuxBoard.Sinks;
 
@@ -7,9 +8,10 @@ namespace LaunchLogger.Firmware.LinuxBoard.Sinks;
 /// <c>/dev/ttyGS0</c>, or a UART) for a laptop to watch live.</summary>
 /// <remarks>
 /// <para>The capture loop must never wait on the link, so <see cref="Write"/> only copies the frame
-/// into a fixed ring buffer and returns; a background thread drains the ring into the port. When
-/// the ring is full (nobody reading, link too slow) the whole frame is refused and counted — the
-/// reader sees a gap in sequence numbers, never half a frame from this cause.</para>
+/// into the core's fixed <see cref="ByteRingQueue"/> and returns; a background thread drains the
+/// ring into the port. When the ring is full (nobody reading, link too slow) the whole frame is
+/// refused and counted — the reader sees a gap in sequence numbers, never half a frame from this
+/// cause.</para>
 /// <para>Every port write has a <see cref="SerialPort.WriteTimeout"/>: on Linux a write to a port
 /// whose peer has gone away otherwise hangs for good, and closing the port can hang after it
 /// (HARDWARE-FACTS.md, serial). A timed-out chunk is dropped (the reader's CRC check rejects the
@@ -25,14 +27,11 @@ public sealed class SerialByteSink : IByteSink, IDisposable
     private readonly int baudRate;
     private readonly int writeTimeoutMs;
     private readonly TextWriter errors;
-    private readonly byte[] ring;
+    private readonly ByteRingQueue queue;
     private readonly byte[] chunk = new byte[ChunkBytes];
-    private readonly object sync = new();
     private readonly AutoResetEvent dataReady = new(false);
     private readonly Thread writer;
     private SerialPort? port;
-    private int head;
-    private int count;
     private volatile bool stopping;
     private bool disposed;
 
@@ -52,14 +51,14 @@ public sealed class SerialByteSink : IByteSink, IDisposable
         this.baudRate = baudRate;
         this.writeTimeoutMs = writeTimeoutMs;
         this.errors = errors ?? TextWriter.Null;
-        ring = new byte[bufferBytes];
+        queue = new ByteRingQueue(bufferBytes);
         port = OpenPort();
         writer = new Thread(Drain) { IsBackground = true, Name = "serial log stream" };
         writer.Start();
     }
 
     /// <summary>Frames refused because the ring buffer was full.</summary>
-    public long FramesRefused { get; private set; }
+    public long FramesRefused => queue.WritesRefused;
 
     /// <summary>Bytes dropped because a port write timed out or the port failed.</summary>
     public long BytesDropped { get; private set; }
@@ -70,19 +69,9 @@ public sealed class SerialByteSink : IByteSink, IDisposable
     /// <inheritdoc/>
     public bool Write(byte[] buffer, int offset, int count)
     {
-        lock (sync)
+        if (!queue.TryWrite(buffer, offset, count))
         {
-            if (this.count + count > ring.Length)
-            {
-                FramesRefused++;
-                return false;
-            }
-
-            int tail = (head + this.count) % ring.Length;
-            int first = Math.Min(count, ring.Length - tail);
-            Array.Copy(buffer, offset, ring, tail, first);
-            Array.Copy(buffer, offset + first, ring, 0, count - first);
-            this.count += count;
+            return false;
         }
 
         dataReady.Set();
@@ -132,13 +121,7 @@ public sealed class SerialByteSink : IByteSink, IDisposable
     {
         while (true)
         {
-            int n;
-            lock (sync)
-            {
-                n = Math.Min(count, Math.Min(ChunkBytes, ring.Length - head));
-                Array.Copy(ring, head, chunk, 0, n);
-            }
-
+            int n = queue.Peek(chunk);
             if (n == 0)
             {
                 if (stopping)
@@ -151,16 +134,11 @@ public sealed class SerialByteSink : IByteSink, IDisposable
             }
 
             bool sent = SendChunk(n);
-            lock (sync)
+            queue.Skip(n);
+            if (stopping && !sent)
             {
-                head = (head + n) % ring.Length;
-                count -= n;
-                if (stopping && !sent)
-                {
-                    // Shutting down with a stuck link: drop the rest rather than wait on it.
-                    BytesDropped += count;
-                    count = 0;
-                }
+                // Shutting down with a stuck link: drop the rest rather than wait on it.
+                BytesDropped += queue.Clear();
             }
         }
     }
