@@ -4,12 +4,13 @@ using System.Device.I2c;
 using System.Diagnostics;
 using System.Threading;
 using LaunchLogger.Esp32.Glue;
-using LaunchLogger.Esp32.Lis3dh;
 using LaunchLogger.Firmware;
+using LaunchLogger.Firmware.Accelerometers.Lis3dh;
 using LaunchLogger.Firmware.Capture;
 using LaunchLogger.Firmware.Clock;
 using LaunchLogger.Firmware.Hardware;
 using LaunchLogger.Firmware.Run;
+using LaunchLogger.Firmware.Sinks;
 using nanoFramework.Hardware.Esp32;
 using nanoFramework.System.IO.FileSystem;
 
@@ -85,7 +86,7 @@ namespace LaunchLogger.Esp32
 
                 // 400 Hz: the interpreted runtime reads each sample with its own I2C transfer, and
                 // 1344 Hz would leave too little time for polling the pulse counter.
-                return new Lis3dhFifoReader(new I2cRegisterBus(device), Lis3dhFifoReader.Rate400Hz, BoxSettings.AccelRangeG);
+                return Lis3dhFifoReader.Open(new I2cRegisterBus(device), 400, BoxSettings.AccelRangeG);
             }
             catch (Exception e)
             {
@@ -138,7 +139,7 @@ namespace LaunchLogger.Esp32
 
             if (file != null && serial != null)
             {
-                return new TeeSink(file, serial);
+                return new TeeByteSink(file, serial);
             }
 
             if (file != null)

@@ -1,49 +1,32 @@
 using System.Device.Gpio;
+using LaunchLogger.Firmware.Capture;
 using LaunchLogger.Firmware.Hardware;
 using nanoFramework.Hardware.Esp32;
 
 namespace LaunchLogger.Esp32.Glue
 {
     /// <summary>A switch input (brake switch, mark button) read by polling and debounced: a new
-    /// level counts once it has held for the hold time.</summary>
+    /// level counts once it has held for the hold time (the core's <see cref="Debouncer"/>).</summary>
     /// <remarks>Polled from the capture loop rather than through pin-change events, which carry no
     /// time on this platform and arrive a scheduler tick late.</remarks>
     public sealed class DebouncedInput : IDigitalInput
     {
         private readonly GpioPin pin;
         private readonly bool activeLow;
-        private readonly long holdMicros;
-        private bool state;
-        private bool candidate;
-        private long candidateSinceMicros;
+        private readonly Debouncer debouncer;
 
         /// <summary>Opens <paramref name="pinNumber"/> as an input with the internal pull-up.</summary>
         public DebouncedInput(GpioController controller, int pinNumber, bool activeLow, long holdMicros)
         {
             pin = controller.OpenPin(pinNumber, PinMode.InputPullUp);
             this.activeLow = activeLow;
-            this.holdMicros = holdMicros;
-            state = ReadRaw();
-            candidate = state;
+            debouncer = new Debouncer(holdMicros, ReadRaw());
         }
 
         /// <inheritdoc/>
         public bool IsActive()
         {
-            bool raw = ReadRaw();
-            long now = (long)HighResTimer.GetCurrent();
-            if (raw != candidate)
-            {
-                candidate = raw;
-                candidateSinceMicros = now;
-            }
-
-            if (candidate != state && now - candidateSinceMicros >= holdMicros)
-            {
-                state = candidate;
-            }
-
-            return state;
+            return debouncer.Update(ReadRaw(), (long)HighResTimer.GetCurrent());
         }
 
         private bool ReadRaw()

@@ -1,5 +1,5 @@
 using System.Device.I2c;
-using LaunchLogger.Esp32.Lis3dh;
+using LaunchLogger.Firmware.Hardware;
 
 namespace LaunchLogger.Esp32.Glue
 {

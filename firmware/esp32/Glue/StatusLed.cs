@@ -6,7 +6,7 @@ using nanoFramework.Hardware.Esp32;
 
 namespace LaunchLogger.Esp32.Glue
 {
-    /// <summary>The status LED, blinking the <see cref="BlinkPattern"/> of the current phase from
+    /// <summary>The status LED, blinking the <see cref="PhaseBlinkPattern"/> of the current phase from
     /// a timer so the capture loop never waits on it.</summary>
     public sealed class StatusLed : IStatusIndicator
     {
@@ -53,8 +53,8 @@ namespace LaunchLogger.Esp32.Glue
             {
                 long now = (long)HighResTimer.GetCurrent();
                 bool on = now < faultUntilMicros
-                    ? BlinkPattern.IsFault(now / 1000)
-                    : BlinkPattern.IsOn(phase, (now - phaseStartMicros) / 1000);
+                    ? PhaseBlinkPattern.IsFault(now / 1000)
+                    : PhaseBlinkPattern.IsOn(phase, (now - phaseStartMicros) / 1000);
                 if (on != lit)
                 {
                     pin.Write(on ? PinValue.High : PinValue.Low);
