@@ -170,7 +170,9 @@ internal sealed class ReconstructionPass
 
         StepGrid steps = BuildGrid(firstMotion.Value, stopS, endOfData);
         double[] grid = steps.TimeS;
+        int warningsBeforeSpin = warnings.Count;
         List<TimeWindow> spin = FindWheelspin(firstMotion.Value, stopS ?? endOfData);
+        int spinWarnings = warnings.Count - warningsBeforeSpin;
         if (channelNote != null)
         {
             warnings.Add(channelNote);
@@ -183,6 +185,8 @@ internal sealed class ReconstructionPass
         {
             // The wheel slips too much, too unevenly, for the slip model: let the accelerometer
             // carry the distance while there is drive, and the pulses only where there is none.
+            // The spin and slide notes of the first pass measured against a baseline the spin itself set.
+            warnings.RemoveRange(warningsBeforeSpin, spinWarnings);
             warnings.Add("the pulses run far ahead of the accelerometer for much of the run (sustained wheelspin on a driven wheel?): distance under drive comes from the accelerometer, the pulses are used only while coasting and braking");
             spin = DriveWindows(steps, firstMotion.Value, stopS);
             slipSignal = null;
@@ -820,7 +824,9 @@ internal sealed class ReconstructionPass
             ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
             EdgeJitterS = options.EdgeJitterS,
             SpinWindows = [.. spin],
-            SpinPhaseVariance = 1.0,
+
+            // Across a spin or slide the wheel may gain or lose any distance: the phase starts afresh.
+            SpinPhaseVariance = 1e6,
             SlipSignal = slipSignal,
             SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
             SlipMinimum = options.WheelSlipMinimum,

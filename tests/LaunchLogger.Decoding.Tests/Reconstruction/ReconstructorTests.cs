@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
 
@@ -206,6 +207,84 @@ public class ReconstructorTests
         double sixtyFeet = 60 * TrajectoryProbe.Foot;
         Assert.InRange(TrajectoryProbe.TimeToDistance(run, sixtyFeet, 0) - motion.TimeAtDistance(sixtyFeet)!.Value, -0.005, 0.005);
         Assert.InRange(TrajectoryProbe.TimeToDistance(run, TrajectoryProbe.QuarterMile, 0) - motion.TimeAtDistance(TrajectoryProbe.QuarterMile)!.Value, -0.005, 0.005);
+    }
+
+    [Fact]
+    public void DriveSlipOfADrivenWheelIsEstimatedAndTakenOut()
+    {
+        // A driven wheel slipping 0.5 % per m/s² of drive (2.5 % at 5 m/s²) counts 1–2 % more
+        // distance than the car covers; by the quarter mile that is metres.
+        Motion motion = QuarterMileLaunch();
+        var synthetic = new SyntheticRun { Motion = motion, Seed = 18, DriveSlipPerMps2 = 0.005 };
+        DecodedRun input = synthetic.Build();
+        ReconstructedRun run = Reconstructor.Reconstruct(input);
+        ReconstructedRun ignoringSlip = Reconstructor.Reconstruct(input, new ReconstructionOptions { WheelSlipSigma = 0 });
+
+        Assert.InRange(run.WheelSlipPerMps2!.Value.Value, 0.004, 0.006);
+        Assert.Contains(run.Warnings, w => w.Contains("slipping"));
+        double truth = motion.TimeAtDistance(TrajectoryProbe.QuarterMile)!.Value;
+        double error = TrajectoryProbe.TimeToDistance(run, TrajectoryProbe.QuarterMile, 0) - truth;
+        double uncorrected = TrajectoryProbe.TimeToDistance(ignoringSlip, TrajectoryProbe.QuarterMile, 0) - truth;
+        Assert.InRange(error, -0.01, 0.01);
+        Assert.True(Math.Abs(uncorrected) > 5 * Math.Abs(error), $"corrected {error * 1e3:F1} ms, uncorrected {uncorrected * 1e3:F1} ms");
+
+        // The claimed σ covers what the linear slip law leaves.
+        double sigma = TrajectoryProbe.At(run.Trajectory, run.Trajectory.DistanceSigmaM!, truth) / motion.At(truth).V;
+        Assert.InRange(Math.Abs(error), 0, 2 * sigma);
+    }
+
+    [Fact]
+    public void AnUndrivenWheelIsTakenAsNotSlipping()
+    {
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = QuarterMileLaunch(), Seed = 19 }.Build());
+
+        Assert.Equal(new Estimate(0, 0), run.WheelSlipPerMps2);
+        Assert.DoesNotContain(run.Warnings, w => w.Contains("slipping"));
+    }
+
+    [Fact]
+    public void TheUndrivenOfTwoChannelsMeasuresDistance()
+    {
+        // Channel 0 on a driven wheel slipping 1 % per m/s² (5 % at 5 m/s²), channel 1 on an
+        // undriven wheel: the one that turns less under drive is the true measure.
+        Motion motion = QuarterMileLaunch();
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 20, DriveSlipPerMps2 = 0.01, SecondTeeth = 48 }.Build());
+
+        Assert.Equal(1, run.DistanceChannel);
+        Assert.Contains(run.Warnings, w => w.Contains("second pulse channel"));
+        Assert.InRange(TrajectoryProbe.TimeToDistance(run, TrajectoryProbe.QuarterMile, 0) - motion.TimeAtDistance(TrajectoryProbe.QuarterMile)!.Value, -0.005, 0.005);
+    }
+
+    [Fact]
+    public void SustainedWheelspinHandsDistanceToTheAccelerometer()
+    {
+        // Slip of 10 % per m/s² — the wheel spinning half as fast again as the car at 5 m/s² —
+        // is no longer a tyre's slip but wheelspin all the way: distance under drive comes from
+        // the accelerometer. Its error over the quarter mile stays within tens of milliseconds,
+        // against seconds for the spinning wheel's count.
+        Motion motion = QuarterMileLaunch();
+        DecodedRun input = new SyntheticRun { Motion = motion, Seed = 21, DriveSlipPerMps2 = 0.1 }.Build();
+        ReconstructedRun run = Reconstructor.Reconstruct(input);
+        ReconstructedRun naive = NaiveReconstruction.Reconstruct(input);
+
+        Assert.Contains(run.Warnings, w => w.Contains("sustained wheelspin"));
+        double truth = motion.TimeAtDistance(TrajectoryProbe.QuarterMile)!.Value - StartS;
+        double error = TrajectoryProbe.TimeToDistance(run, TrajectoryProbe.QuarterMile, run.FirstMotionS.Value) - truth;
+        double naiveError = TrajectoryProbe.TimeToDistance(naive, TrajectoryProbe.QuarterMile, naive.FirstMotionS.Value) - truth;
+        Assert.InRange(error, -0.05, 0.05);
+        Assert.True(Math.Abs(naiveError) > 10 * Math.Abs(error), $"ours {error * 1e3:F1} ms, naive {naiveError * 1e3:F1} ms");
+    }
+
+    [Fact]
+    public void AWheelSlidingUnderBrakingIsFound()
+    {
+        // Under braking the wheel falls up to 3 m/s behind the car for half a second.
+        Motion motion = HalfGToSixtyAndStop();
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 22, SpinPeakMps = -3, SpinStartS = StartS + 8, SpinLengthS = 0.5 }.Build());
+
+        Assert.Contains(run.Warnings, w => w.Contains("slid"));
+        Assert.Contains(run.WheelspinWindows, w => w.StartS < StartS + 8.5 && w.EndS > StartS + 8);
+        Assert.InRange(run.Trajectory.DistanceM[^1] - motion.At(motion.EndS).D, -0.1, 0.1);
     }
 
     [Fact]

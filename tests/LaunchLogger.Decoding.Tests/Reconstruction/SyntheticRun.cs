@@ -56,12 +56,21 @@ internal sealed record SyntheticRun
     /// <summary>Pre-trigger samples kept before first motion, seconds.</summary>
     public double PreTriggerS { get; init; } = 1.5;
 
-    /// <summary>Driven-wheel spin: extra wheel speed rising and falling as sin² over the window, m/s at its peak.</summary>
+    /// <summary>Driven-wheel spin: extra wheel speed rising and falling as sin² over the window,
+    /// m/s at its peak (negative for a wheel sliding under braking).</summary>
     public double SpinPeakMps { get; init; }
 
     public double SpinStartS { get; init; }
 
     public double SpinLengthS { get; init; }
+
+    /// <summary>Drive slip of the pickup wheel: slip ratio per m/s² of drive force per unit mass,
+    /// the drive being a + 3.4·10⁻⁴·v² + 0.012·g0 when positive (a linear tyre slip law, the
+    /// same form the reconstruction assumes), s²/m.</summary>
+    public double DriveSlipPerMps2 { get; init; }
+
+    /// <summary>Teeth of a second pickup on an undriven wheel of the same circumference; 0 for none.</summary>
+    public int SecondTeeth { get; init; }
 
     /// <summary>The box's first-motion mark to put in the log, seconds; null for none.</summary>
     public double? FirmwareMotionS { get; init; }
@@ -72,11 +81,13 @@ internal sealed record SyntheticRun
 
     public double MetresPerPulse => CircumferenceM / Teeth;
 
-    /// <summary>Wheel distance: the car's plus what spin added.</summary>
+    private double[]? slipTable;
+
+    /// <summary>Wheel distance: the car's plus what spin and drive slip added.</summary>
     public double WheelDistance(double t)
     {
-        double d = Motion.At(t).D;
-        if (SpinPeakMps > 0 && t > SpinStartS)
+        double d = Motion.At(t).D + DriveSlipDistance(t);
+        if (SpinPeakMps != 0 && t > SpinStartS)
         {
             double tau = Math.Min(t - SpinStartS, SpinLengthS);
             double T = SpinLengthS;
@@ -86,8 +97,57 @@ internal sealed record SyntheticRun
         return d;
     }
 
+    /// <summary>k·∫ v·drive dt, tabulated at 1 ms and interpolated.</summary>
+    private double DriveSlipDistance(double t)
+    {
+        if (DriveSlipPerMps2 == 0 || t <= Motion.StartS)
+        {
+            return 0;
+        }
+
+        const double step = 0.001;
+        if (slipTable is null)
+        {
+            int count = (int)((Motion.EndS - Motion.StartS) / step) + 2;
+            var table = new double[count];
+            for (int i = 1; i < count; i++)
+            {
+                double mid = Motion.StartS + ((i - 0.5) * step);
+                (_, double v, double a) = Motion.At(mid);
+                double drive = Math.Max(a + (3.4e-4 * v * v) + (0.012 * G0), 0);
+                table[i] = table[i - 1] + (DriveSlipPerMps2 * v * drive * step);
+            }
+
+            slipTable = table;
+        }
+
+        double x = Math.Min((t - Motion.StartS) / step, slipTable.Length - 1.000001);
+        int k = (int)x;
+        return slipTable[k] + ((x - k) * (slipTable[k + 1] - slipTable[k]));
+    }
+
+    /// <summary>Exact-edge observations of a ring with <paramref name="teeth"/> pulses per
+    /// <see cref="CircumferenceM"/> following <paramref name="distance"/>.</summary>
+    private List<PulseRecord> ExactEdges(Func<double, double> distance, int teeth, Random random)
+    {
+        double mpp = CircumferenceM / teeth;
+        double phase = random.NextDouble() * mpp;
+        var records = new List<PulseRecord>();
+        double end = distance(Motion.EndS);
+        for (long n = 1; (n * mpp) - phase < end; n++)
+        {
+            double at = (n * mpp) - phase;
+            double t = Bisect(Motion.StartS, Motion.EndS, s => distance(s) - at);
+            double hi = Math.Ceiling(t * 1e6) / 1e6;
+            records.Add(new PulseRecord(n, hi - 1e-6, hi));
+        }
+
+        return records;
+    }
+
     public DecodedRun Build()
     {
+        slipTable = null;
         var random = new Random(Seed);
         double mpp = MetresPerPulse;
         double phase = PhaseM ?? (random.NextDouble() * mpp);
@@ -186,6 +246,7 @@ internal sealed record SyntheticRun
             };
         }
 
+        List<PulseRecord> second = SecondTeeth > 0 ? ExactEdges(t => Motion.At(t).D, SecondTeeth, random) : [];
         var events = new List<RunEvent>();
         if (Motion.EndsAtRest && pulses.Count > 0)
         {
@@ -205,6 +266,8 @@ internal sealed record SyntheticRun
                 CircumferenceM = CircumferenceM,
                 MetresPerPulse = mpp,
                 RolloutM = 0.3048,
+                HasSecondChannel = SecondTeeth > 0,
+                SecondMetresPerPulse = SecondTeeth > 0 ? CircumferenceM / SecondTeeth : 0,
                 HasAccelerometer = WithAccelerometer,
                 AccelNominalRateHz = AccelRateHz,
                 AccelFullScaleMps2 = 8 * G0,
@@ -212,6 +275,7 @@ internal sealed record SyntheticRun
                 BracketLimitS = 0.002,
             },
             Pulses = pulses,
+            SecondPulses = second,
             Accel = accel,
             Events = events,
             RestGravityMilliG = WithAccelerometer ? (restX, 0, restZ) : null,
