@@ -26,7 +26,16 @@ public static class AccuracyBenchmark
     public static CaseOutcome Run(AccuracyCase c, CancellationToken cancel)
     {
         cancel.ThrowIfCancellationRequested();
-        SimulationResult simulation = Simulator.Run(c.Scenario, c.Seed, cancel);
+        SimulationResult simulation;
+        try
+        {
+            simulation = Simulator.Run(c.Scenario, c.Seed, cancel);
+        }
+        catch (ArgumentException e)
+        {
+            return CaseOutcome.Failed(c, $"the scenario was refused: {e.Message}");
+        }
+
         if (simulation.Figures is not { } truth)
         {
             return CaseOutcome.Failed(c, "the simulation produced no truth figures");

@@ -52,6 +52,7 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
                 {
                     Kind = exact ? CaptureKind.ExactEdges : CaptureKind.PolledCounter,
                     LoopPeriodMicros = loopMicros,
+                    LoopJitterMicros = Math.Min(baseline.Capture.LoopJitterMicros, 0.4 * loopMicros),
                 },
                 Accelerometer = baseline.Accelerometer with
                 {
