@@ -38,6 +38,15 @@ public sealed record ReconstructionOptions
     /// spectral density of its random walk, m²/s⁵.</summary>
     public double BiasWanderDensity { get; init; } = 0.05;
 
+    /// <summary>The same without pulses, m²/s⁵: nothing then tells a wandering bias from motion,
+    /// so it is taken as steadier (a sensor's offset drifts over minutes, not seconds).</summary>
+    public double AccelOnlyBiasWanderDensity { get; init; } = 0.002;
+
+    /// <summary>1-σ scale error of the accelerometer's forward axis, as a fraction (about 1 % for
+    /// consumer MEMS parts; common practice). Without pulses it widens σ of speed and distance in
+    /// proportion to them.</summary>
+    public double AccelScaleSigma { get; init; } = 0.01;
+
     /// <summary>Extra white acceleration noise the accelerometer model allows (vibration, cross
     /// axis), spectral density m²/s³.</summary>
     public double AccelModelNoiseDensity { get; init; } = 2e-4;

@@ -202,7 +202,7 @@ internal sealed class ReconstructionPass
         Trajectory trajectory = MakeTrajectory(steps, firstMotion.Value, stopS, fused, slipSignal);
         (Estimate? rolloutTime, Estimate? rolloutSpeed) = Rollout(trajectory, firstMotion.Value);
         CheckFirmwareRollout(rolloutTime, rolloutSpeed);
-        AddModeWarnings(trajectory, firstMotion, stopS, fused);
+        AddModeWarnings(trajectory, firstMotion, stopS);
 
         return new ReconstructedRun
         {
@@ -282,17 +282,17 @@ internal sealed class ReconstructionPass
             }
         }
 
-        FindOnset(a, reference);
+        FindOnset(a);
         if (onset is { } o && a.SetRest(a.IndexAtOrAfter(o.TimeS - 2.0), a.IndexAtOrAfter(o.TimeS - 0.03)))
         {
-            FindOnset(a, reference);
+            FindOnset(a);
         }
 
         (pitchRad, pitchSigmaRad) = RestingPitch(a);
         accelInput = a.Input(pitchRad, options.CompensateBodyPitch);
     }
 
-    private void FindOnset(ForwardAcceleration a, double? reference)
+    private void FindOnset(ForwardAcceleration a)
     {
         if (pulses != null && Staged)
         {
@@ -308,7 +308,6 @@ internal sealed class ReconstructionPass
             onset = null;
         }
 
-        _ = reference;
     }
 
     private double? RestGravityForward()
@@ -817,7 +816,7 @@ internal sealed class ReconstructionPass
             PhaseMean = phaseMean,
             PhaseSigma = phaseSigma,
             InputDensity = inputDensity,
-            ThirdDensity = withAccel ? options.BiasWanderDensity : options.JerkDensity,
+            ThirdDensity = !withAccel ? options.JerkDensity : pulses is null ? options.AccelOnlyBiasWanderDensity : options.BiasWanderDensity,
             StopIndex = stopIndex,
             Pulses = pulses,
             MetresPerPulse = mpp,
@@ -835,7 +834,8 @@ internal sealed class ReconstructionPass
 
     /// <remarks>The σ columns add what the filter cannot see: the pulses' own scale (an undriven
     /// tyre still slips a little under rolling resistance and the torque that spins it up, see
-    /// <see cref="ReconstructionOptions.PulseScaleSigma"/>) and, on a driven wheel, the part of the
+    /// <see cref="ReconstructionOptions.PulseScaleSigma"/>) or, without pulses, the
+    /// accelerometer's (<see cref="ReconstructionOptions.AccelScaleSigma"/>), and, on a driven wheel, the part of the
     /// slip the linear slip law misses (<see cref="ReconstructionOptions.SlipModelError"/> of the
     /// correction). Both are systematic, so they grow with distance and speed.</remarks>
     private Trajectory MakeTrajectory(StepGrid steps, double startS, double? stopS, FusionResult fused, double[]? slipSignal)
@@ -861,7 +861,7 @@ internal sealed class ReconstructionPass
             previous = d;
             distance[k] = d;
             speed[k] = atRest ? 0 : Math.Max(speed[k], 0);
-            double scale = pulses is null ? 0 : options.PulseScaleSigma;
+            double scale = pulses is null ? options.AccelScaleSigma : options.PulseScaleSigma;
             double slipDistance = 0;
             double slipSpeed = 0;
             if (slipSignal != null && fused.SlipKept)
@@ -977,7 +977,7 @@ internal sealed class ReconstructionPass
         }
     }
 
-    private void AddModeWarnings(Trajectory trajectory, Estimate firstMotion, double? stopS, FusionResult fused)
+    private void AddModeWarnings(Trajectory trajectory, Estimate firstMotion, double? stopS)
     {
         if (pulses is null && accel != null)
         {
@@ -999,7 +999,6 @@ internal sealed class ReconstructionPass
             warnings.Add("the run has no known stop: the speed is not brought to zero at its end");
         }
 
-        _ = fused;
     }
 
     private static double MaxOf(double[] values)
