@@ -95,12 +95,12 @@ public static class DemoCommand
         output.WriteLine("Against the simulator's truth (our estimate − truth):");
         if (events.FirstMotionS is { } t0)
         {
-            output.WriteLine(FormattableString.Invariant($"  first motion          {(analysis.Figures.FirstMotionS.Value - t0) * 1000,8:+0.0;-0.0} ms   (± {analysis.Figures.FirstMotionS.Sigma * 1000:0.0} ms claimed)"));
+            output.WriteLine(FormattableString.Invariant($"  first motion              {(analysis.Figures.FirstMotionS.Value - t0) * 1000,8:+0.0;-0.0;0.0} ms   (± {analysis.Figures.FirstMotionS.Sigma * 1000:0.0} ms claimed)"));
         }
 
         if (events.RolloutS is { } tr && analysis.Figures.RolloutTimeS is { } rollout)
         {
-            output.WriteLine(FormattableString.Invariant($"  rollout mark          {(rollout.Value - tr) * 1000,8:+0.0;-0.0} ms"));
+            output.WriteLine(FormattableString.Invariant($"  rollout mark              {(rollout.Value - tr) * 1000,8:+0.0;-0.0;0.0} ms"));
         }
 
         if (truth is null)
@@ -111,12 +111,18 @@ public static class DemoCommand
         Compare("0-60 mph from standstill", Find(analysis.Figures, "0-60 mph")?.FromStandstillS, Find(truth, "0-60 mph")?.FromStandstillS);
         Compare("0-60 mph after rollout", Find(analysis.Figures, "0-60 mph")?.FromRolloutS, Find(truth, "0-60 mph")?.FromRolloutS);
         Compare("1320 ft elapsed time", FindMark(analysis.Figures)?.FromStandstillS, FindMark(truth)?.FromStandstillS);
+        double growth = simulation.Scenario.Tyre.RadiusGrowthAt30Mps;
+        if (growth > 0)
+        {
+            output.WriteLine(FormattableString.Invariant(
+                $"  (This car's tyre grows {growth * 100:0.0#} % at 30 m/s, as real tyres do: at speed each pulse covers a little\n   more road than the box's static circumference says, so times to high speeds and long distances come\n   out late. A circumference calibrated at speed removes it; `launchlogger bench accuracy` shows the\n   estimator with a calibrated tyre.)"));
+        }
 
         void Compare(string label, double? ours, double? real)
         {
             if (ours is { } o && real is { } r)
             {
-                output.WriteLine(FormattableString.Invariant($"  {label,-22}{(o - r) * 1000,8:+0.0;-0.0} ms   (truth {r:0.000} s)"));
+                output.WriteLine(FormattableString.Invariant($"  {label,-26}{(o - r) * 1000,8:+0.0;-0.0;0.0} ms   (truth {r:0.000} s)"));
             }
         }
 
