@@ -15,4 +15,21 @@ internal static class LogUnits
 
     /// <summary>milli-g → m/s².</summary>
     public static double Mps2(double milliG) => milliG * StandardGravityMps2 / 1000.0;
+
+    /// <summary><see cref="Mps2"/> of every value an i16 sample can hold, at value + 32768: the
+    /// same doubles without a division per sample.</summary>
+    public static ReadOnlySpan<double> SampleMps2 => SampleTable;
+
+    private static readonly double[] SampleTable = BuildSampleTable();
+
+    private static double[] BuildSampleTable()
+    {
+        var table = new double[1 << 16];
+        for (int value = short.MinValue; value <= short.MaxValue; value++)
+        {
+            table[value - short.MinValue] = Mps2(value);
+        }
+
+        return table;
+    }
 }

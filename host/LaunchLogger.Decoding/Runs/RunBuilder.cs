@@ -1,5 +1,6 @@
 using System.Buffers.Binary;
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using LaunchLogger.Decoding.Reading;
 using LaunchLogger.Firmware.Wire;
@@ -164,6 +165,7 @@ internal sealed class RunBuilder
 
     /// <summary>The channel's observations in seconds, in a list of exactly their number,
     /// dropping any that repeat or go back on an earlier count.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private List<PulseRecord> PulseRecords(int channel)
     {
         ReadOnlySpan<PulseMicros> observed = (channel == 0 ? scratch.Channel0 : scratch.Channel1).Span;
@@ -218,6 +220,7 @@ internal sealed class RunBuilder
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void CountWide(ReadOnlySpan<PulseRecord> records, double limitS, ref int wide, ref double widest)
     {
         foreach (ref readonly PulseRecord p in records)
@@ -280,12 +283,14 @@ internal sealed class RunBuilder
             }
         }
 
+        // Every element is written before the arrays are seen (they are cut to the samples
+        // kept), so the allocator need not clear them first.
         int n = AccelSampleCount;
-        var time = new double[n];
-        var index = new long[n];
-        var forward = new double[n];
-        var lateral = new double[n];
-        var vertical = new double[n];
+        double[] time = GC.AllocateUninitializedArray<double>(n);
+        long[] index = GC.AllocateUninitializedArray<long>(n);
+        double[] forward = GC.AllocateUninitializedArray<double>(n);
+        double[] lateral = GC.AllocateUninitializedArray<double>(n);
+        double[] vertical = GC.AllocateUninitializedArray<double>(n);
         int kept = FillSamples(frames, clock, axes, time, index, forward, lateral, vertical);
         if (kept < n)
         {
@@ -313,38 +318,42 @@ internal sealed class RunBuilder
 
     /// <summary>Times each sample on the clock and turns it into the car's axes in m/s²,
     /// skipping samples whose index or time does not move forward; returns how many were kept.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int FillSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes, Span<double> time, Span<long> index, Span<double> forward, Span<double> lateral, Span<double> vertical)
     {
         ReadOnlySpan<byte> samples = scratch.AccelSamples.Span;
         ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
+        ReadOnlySpan<double> mps2 = LogUnits.SampleMps2;
         double forwardSign = axes.ForwardSign;
         double lateralSign = axes.LateralSign;
         double verticalSign = axes.VerticalSign;
         int forwardAt = 2 * axes.ForwardAxis;
         int lateralAt = 2 * axes.LateralAxis;
         int verticalAt = 2 * axes.VerticalAxis;
+        double periodS = clock.PeriodS;
         int kept = 0;
         long lastIndex = long.MinValue;
         double lastTime = double.NegativeInfinity;
         for (int f = 0; f < frames.Length; f++)
         {
             RunScratch.AccelFrame frame = frames[f];
-            int segment = bursts[burstOfFrame[f]].Segment;
+            double originS = clock.OriginS(bursts[burstOfFrame[f]].Segment);
             ReadOnlySpan<byte> bytes = samples.Slice(frame.Offset * AccelerationBody.BytesPerSample, frame.Count * AccelerationBody.BytesPerSample);
             for (int i = 0; i < frame.Count; i++)
             {
+                // As SampleClock.TimeOf, with the segment's origin looked up once per frame.
                 long sampleIndex = frame.FirstIndex + i;
-                double t = clock.TimeOf(sampleIndex, segment);
+                double t = originS + (periodS * sampleIndex);
                 if (sampleIndex <= lastIndex || !(t > lastTime))
                 {
                     continue;
                 }
 
                 ReadOnlySpan<byte> sample = bytes.Slice(i * AccelerationBody.BytesPerSample, AccelerationBody.BytesPerSample);
-                forward[kept] = forwardSign * LogUnits.Mps2(BinaryPrimitives.ReadInt16LittleEndian(sample[forwardAt..]));
-                lateral[kept] = lateralSign * LogUnits.Mps2(BinaryPrimitives.ReadInt16LittleEndian(sample[lateralAt..]));
-                vertical[kept] = verticalSign * LogUnits.Mps2(BinaryPrimitives.ReadInt16LittleEndian(sample[verticalAt..]));
+                forward[kept] = forwardSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[forwardAt..]) - short.MinValue];
+                lateral[kept] = lateralSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[lateralAt..]) - short.MinValue];
+                vertical[kept] = verticalSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[verticalAt..]) - short.MinValue];
                 time[kept] = t;
                 index[kept] = sampleIndex;
                 kept++;
@@ -359,6 +368,7 @@ internal sealed class RunBuilder
     /// <summary>One reading per burst: consecutive frames that share a read time are parts of
     /// one burst, whose newest sample is the highest index among them (LOG-FORMAT.md, 0x03).
     /// A new segment starts where the numbering does not follow on, or after a FIFO overflow.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void FillBursts()
     {
         ReadOnlySpan<RunScratch.AccelFrame> frames = scratch.AccelFrames.Span;

@@ -1,4 +1,5 @@
 using System.Buffers;
+using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using MathNet.Numerics.Statistics;
 
@@ -78,6 +79,10 @@ public sealed class SampleClock
     /// <summary>The time of sample <paramref name="index"/> of <paramref name="segment"/>, seconds.</summary>
     public double TimeOf(long index, int segment) => originS[segment] + (PeriodS * index);
 
+    /// <summary>The time of index 0 of <paramref name="segment"/>, seconds: <see cref="TimeOf"/>
+    /// is this plus <see cref="PeriodS"/> times the index.</summary>
+    internal double OriginS(int segment) => originS[segment];
+
     /// <summary>Fits the clock to the bursts.</summary>
     /// <param name="bursts">One entry per burst, any order; segments numbered from 0.</param>
     /// <param name="nominalPeriodS">The configured period, used when the bursts are too few
@@ -97,6 +102,7 @@ public sealed class SampleClock
 
     /// <summary>As <see cref="Fit(IReadOnlyList{BurstReading}, double)"/>, over a span: time and
     /// memory linear in the number of bursts, with scratch rented from the shared pool.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static SampleClock Fit(ReadOnlySpan<BurstReading> bursts, double nominalPeriodS)
     {
         if (bursts.Length == 0)
@@ -168,6 +174,7 @@ public sealed class SampleClock
     /// <summary>Pooled within-segment least-squares slope and its standard error; on success
     /// <paramref name="residuals"/> holds every burst's residual (NaN in a segment with no
     /// active burst).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static bool TrySlope(ReadOnlySpan<BurstReading> bursts, ReadOnlySpan<bool> active, in SegmentSums segment, Span<double> residuals, out double slope, out double slopeSigma)
     {
         slope = slopeSigma = 0;
@@ -244,6 +251,7 @@ public sealed class SampleClock
     }
 
     /// <summary>Marks readings far above the line inactive; returns how many.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static int DropLateOutliers(ReadOnlySpan<double> residuals, Span<bool> active)
     {
         int kept = 0;
@@ -297,6 +305,7 @@ public sealed class SampleClock
     /// The bursts are bucketed by segment once (a counting sort keeping their order), so the
     /// whole pass is linear in the bursts however many segments there are, plus a sort by index
     /// for a segment whose bursts are not already in index order.</remarks>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static double[] Origins(ReadOnlySpan<BurstReading> bursts, ReadOnlySpan<bool> active, int segments, double period, out double meanLatencyS)
     {
         var origin = new double[segments];
@@ -378,6 +387,7 @@ public sealed class SampleClock
     }
 
     /// <summary>One segment's origin from its members (indices into <paramref name="bursts"/>).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static double Origin(ReadOnlySpan<BurstReading> bursts, Span<int> members, Span<long> keys, double period, ref Hull hull)
     {
         bool sorted = true;
