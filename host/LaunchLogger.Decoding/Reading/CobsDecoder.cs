@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using LaunchLogger.Firmware.Wire;
 
 namespace LaunchLogger.Decoding.Reading;
@@ -26,6 +27,7 @@ public static class CobsDecoder
 
     /// <summary>As <see cref="TryDecode"/> for input the caller knows to be free of zeros (it
     /// was cut at the first delimiter).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static bool TryDecodeNonZero(ReadOnlySpan<byte> stuffed, Span<byte> destination, out int written)
     {
         // Fast path for frames without a full 254-byte block (nearly all of them): the payload is
