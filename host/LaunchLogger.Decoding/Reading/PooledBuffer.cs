@@ -24,7 +24,8 @@ internal sealed class PooledBuffer<T> : IDisposable
     /// <summary>The values held, in the order they were added; valid until the next add.</summary>
     public Span<T> Span => items.AsSpan(0, Count);
 
-    /// <summary>Value <paramref name="index"/> (unchecked against <see cref="Count"/> beyond the array's bounds).</summary>
+    /// <summary>Value <paramref name="index"/>, by reference; the index is checked against the
+    /// array's length, not against <see cref="Count"/>.</summary>
     public ref T this[int index] => ref items[index];
 
     [MethodImpl(MethodImplOptions.AggressiveInlining)]

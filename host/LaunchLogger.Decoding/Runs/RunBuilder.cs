@@ -375,6 +375,7 @@ internal sealed class RunBuilder
         ReadOnlySpan<RunScratch.AccelFrame> frames = scratch.AccelFrames.Span;
         PooledBuffer<BurstReading> bursts = scratch.Bursts;
         bursts.Clear();
+        scratch.BurstOfFrame.Clear();
         Span<int> burstOfFrame = scratch.BurstOfFrame.Append(frames.Length);
         long[] gaps = GapTimes();
         int segment = 0;
