@@ -135,7 +135,6 @@ internal ref struct BodyReader
         return ReadRawVarintLong();
     }
 
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private ulong ReadRawVarintLong()
     {
         ulong value = 0;

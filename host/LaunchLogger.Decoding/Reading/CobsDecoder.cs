@@ -1,4 +1,3 @@
-using System.Runtime.CompilerServices;
 using LaunchLogger.Firmware.Wire;
 
 namespace LaunchLogger.Decoding.Reading;
@@ -27,7 +26,6 @@ public static class CobsDecoder
 
     /// <summary>As <see cref="TryDecode"/> for input the caller knows to be free of zeros (it
     /// was cut at the first delimiter).</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static bool TryDecodeNonZero(ReadOnlySpan<byte> stuffed, Span<byte> destination, out int written)
     {
         // Fast path for frames without a full 254-byte block (nearly all of them): the payload is

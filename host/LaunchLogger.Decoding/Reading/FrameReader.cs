@@ -1,6 +1,5 @@
 using System.Buffers;
 using System.Buffers.Binary;
-using System.Runtime.CompilerServices;
 using LaunchLogger.Firmware.Wire;
 
 namespace LaunchLogger.Decoding.Reading;
@@ -54,7 +53,6 @@ public struct FrameReader
     /// <returns>Done, InvalidData or NeedMoreData (see the remarks on the type).</returns>
     /// <exception cref="ArgumentException"><paramref name="payloadBuffer"/> is shorter than
     /// <see cref="LogFormat.MaxPayloadBytes"/>.</exception>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public OperationStatus TryReadFrame(ReadOnlySpan<byte> input, Span<byte> payloadBuffer, bool isFinalBlock, out int consumed, out Frame frame)
     {
         if (payloadBuffer.Length < LogFormat.MaxPayloadBytes)
@@ -145,7 +143,6 @@ public struct FrameReader
     }
 
     /// <summary>Unstuffs one frame, checks its size and CRC, and follows its sequence number.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private OperationStatus Check(ReadOnlySpan<byte> stuffed, Span<byte> payloadBuffer, out Frame frame)
     {
         frame = default;

@@ -1,4 +1,3 @@
-using System.Runtime.CompilerServices;
 using LaunchLogger.Decoding.Reading;
 using LaunchLogger.Firmware.Wire;
 using static System.FormattableString;
@@ -57,7 +56,6 @@ public sealed class RunAssembler
     /// <param name="frame">A frame <see cref="FrameReader.TryReadFrame"/> returned with Done.</param>
     /// <param name="readerStats">The reader's counters right after it returned the frame.</param>
     /// <exception cref="InvalidOperationException"><see cref="Complete"/> was called already.</exception>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Add(in Frame frame, in ReaderStats readerStats)
     {
         ThrowIfCompleted();

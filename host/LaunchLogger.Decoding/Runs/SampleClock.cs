@@ -441,7 +441,6 @@ public sealed class SampleClock
 
         public void Clear() => count = 0;
 
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Add(double px, double py)
         {
             if (count > 0 && x[count - 1] == px)
@@ -465,7 +464,6 @@ public sealed class SampleClock
         }
 
         /// <summary>The hull's height at <paramref name="at"/>: the end points' outside its span.</summary>
-        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public readonly double At(double at)
         {
             if (count == 1 || at <= x[0])
