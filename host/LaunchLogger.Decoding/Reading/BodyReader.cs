@@ -135,6 +135,7 @@ internal ref struct BodyReader
         return ReadRawVarintLong();
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private ulong ReadRawVarintLong()
     {
         ulong value = 0;

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using LaunchLogger.Firmware.Capture;
 using LaunchLogger.Firmware.Wire;
 
@@ -111,6 +112,7 @@ public static class FrameBodies
 
     /// <summary>As the public form, appending to the buffer of the body's channel without
     /// making an object per observation. All or nothing, as there.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static bool TryReadPulses(ReadOnlySpan<byte> body, out int channel, PooledBuffer<PulseMicros> channel0, PooledBuffer<PulseMicros> channel1)
     {
         var r = new BodyReader(body);
@@ -162,6 +164,7 @@ public static class FrameBodies
     }
 
     /// <summary>Parses an acceleration body; the samples stay in <paramref name="body"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static bool TryReadAcceleration(ReadOnlySpan<byte> body, out AccelerationBody acceleration)
     {
         var r = new BodyReader(body);

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using LaunchLogger.Decoding.Reading;
 using LaunchLogger.Firmware.Wire;
 using static System.FormattableString;
@@ -56,6 +57,7 @@ public sealed class RunAssembler
     /// <param name="frame">A frame <see cref="FrameReader.TryReadFrame"/> returned with Done.</param>
     /// <param name="readerStats">The reader's counters right after it returned the frame.</param>
     /// <exception cref="InvalidOperationException"><see cref="Complete"/> was called already.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Add(in Frame frame, in ReaderStats readerStats)
     {
         ThrowIfCompleted();
@@ -159,6 +161,7 @@ public sealed class RunAssembler
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ChargeDamage(in ReaderStats now)
     {
         long crc = now.CrcErrors - seen.CrcErrors;

@@ -53,6 +53,7 @@ internal sealed class RunBuilder
     /// <summary>Parses a pulses body into this run's observations; false when it does not parse.</summary>
     public bool AddPulses(ReadOnlySpan<byte> body) => FrameBodies.TryReadPulses(body, out _, scratch.Channel0, scratch.Channel1);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void AddAcceleration(in AccelerationBody body)
     {
         scratch.AccelFrames.Add(new RunScratch.AccelFrame(body.ReadMicros, body.FirstIndex, body.Count, AccelSampleCount));

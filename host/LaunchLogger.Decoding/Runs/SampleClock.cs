@@ -441,6 +441,7 @@ public sealed class SampleClock
 
         public void Clear() => count = 0;
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Add(double px, double py)
         {
             if (count > 0 && x[count - 1] == px)
@@ -464,6 +465,7 @@ public sealed class SampleClock
         }
 
         /// <summary>The hull's height at <paramref name="at"/>: the end points' outside its span.</summary>
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public readonly double At(double at)
         {
             if (count == 1 || at <= x[0])
@@ -483,6 +485,7 @@ public sealed class SampleClock
         }
 
         /// <summary>Positive when o → a → b turns left (counter-clockwise).</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
         private static double Cross(double ox, double oy, double ax, double ay, double bx, double by)
             => ((ax - ox) * (by - oy)) - ((ay - oy) * (bx - ox));
     }
