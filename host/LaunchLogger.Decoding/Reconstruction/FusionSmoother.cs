@@ -79,6 +79,18 @@ internal sealed class FusionSettings
     /// <summary>Variance added to the phase at the start of each spin window, m².</summary>
     public double SpinPhaseVariance { get; init; }
 
+    /// <summary>Firm braking: pulses inside these windows are ignored (a braked wheel slips), the
+    /// phase may jump at their start, and the accelerometer's error may step there by
+    /// <see cref="BrakeBiasStepVariance"/> (its scale error times the deceleration) and then
+    /// wanders only at <see cref="BrakeThirdDensity"/>.</summary>
+    public TimeWindow[] BrakeWindows { get; init; } = [];
+
+    /// <summary>Variance of the step of the third state at the start of each brake window, (m/s²)², one per window.</summary>
+    public double[] BrakeBiasStepVariance { get; init; } = [];
+
+    /// <summary>Random-walk density of the third state inside brake windows, m²/s⁵.</summary>
+    public double BrakeThirdDensity { get; init; }
+
     /// <summary>Slip signal S(t) at the grid times: ∫ v·a_drive dt, m²/s² (zeros for none). The
     /// pulses count d + φ + k·S, k being the wheel's slip per unit of drive acceleration.</summary>
     public double[]? SlipSignal { get; init; }
@@ -148,7 +160,7 @@ internal static class FusionSmoother
         // The filtered states, kept for the backward pass: rented, as they are large and short-lived.
         Vec[] xf = ArrayPool<Vec>.Shared.Rent(Math.Max(m, 1));
         Sym[] pf = ArrayPool<Sym>.Shared.Rent(Math.Max(m, 1));
-        bool[] jump = SpinJumps(s, grid, k0);
+        byte[] jump = Marks(s, grid, k0);
 
         var x = new Vec { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean, K = s.SlipMean };
         var p = new Sym
@@ -164,7 +176,7 @@ internal static class FusionSmoother
         int outliers = 0;
         if (m > 0)
         {
-            Predict(s, ref x, ref p, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, jump: false);
+            Predict(s, ref x, ref p, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, marks: 0, stepVariance: 0);
         }
 
         PulseChannel? pulses = s.Pulses;
@@ -190,7 +202,7 @@ internal static class FusionSmoother
             while (pulses != null && ip < pulses.Length && pulses.MidS(ip) < tNext)
             {
                 double mid = pulses.MidS(ip);
-                if (!frozen && !InSpin(s.SpinWindows, mid))
+                if (!frozen && !InSpin(s.SpinWindows, mid) && !InSpin(s.BrakeWindows, mid))
                 {
                     double speed = Math.Max(x.V, 0);
                     double lo = pulses.LoS[ip];
@@ -245,7 +257,7 @@ internal static class FusionSmoother
             if (k + 1 < n)
             {
                 bool noInput = s.NoInput != null && s.NoInput[k];
-                Predict(s, ref x, ref p, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k]);
+                Predict(s, ref x, ref p, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]));
             }
         }
 
@@ -260,7 +272,7 @@ internal static class FusionSmoother
         }
     }
 
-    private static FusionResult Smooth(FusionSettings s, double[] grid, int k0, Vec[] xf, Sym[] pf, bool[] jump, int used, int outliers)
+    private static FusionResult Smooth(FusionSettings s, double[] grid, int k0, Vec[] xf, Sym[] pf, byte[] jump, int used, int outliers)
     {
         int n = grid.Length;
         var d = new double[n];
@@ -303,7 +315,7 @@ internal static class FusionSmoother
             double dt = grid[k + 1] - grid[k];
             Vec xp = xf[j];
             Sym pp = pf[j];
-            Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k]);
+            Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]));
             Transition(s.Mode, dt, frozen, out double f01, out double f02, out double f12);
             SmoothStep(xf[j], pf[j], xp, pp, f01, f02, f12, ref xs, ref ps);
             Emit(k, xs, ps, d, v, sd, sv, third, sthird, slipShift, slipInverse);
@@ -350,7 +362,7 @@ internal static class FusionSmoother
     }
 
     /// <summary>x ← F·x + input, P ← F·P·Fᵀ + Q over one step of <paramref name="dt"/>.</summary>
-    private static void Predict(FusionSettings s, ref Vec x, ref Sym p, double dt, double inputSpeed, double inputDistance, bool frozen, bool noInput, bool jump)
+    private static void Predict(FusionSettings s, ref Vec x, ref Sym p, double dt, double inputSpeed, double inputDistance, bool frozen, bool noInput, byte marks, double stepVariance)
     {
         Transition(s.Mode, dt, frozen, out double f01, out double f02, out double f12);
         if (frozen)
@@ -374,10 +386,12 @@ internal static class FusionSmoother
         // random walk, with tiny floors that keep the predicted covariance invertible.
         double dt2 = dt * dt;
         double dt3 = dt2 * dt;
-        double q3 = s.ThirdDensity;
+        double q3 = (marks & InBrake) != 0 ? s.BrakeThirdDensity : s.ThirdDensity;
         p.P00 += 1e-14;
         p.P11 += 1e-12;
-        p.P33 += 1e-16 + (jump ? s.SpinPhaseVariance : 0);
+        p.P33 += 1e-16 + ((marks & PhaseJump) != 0 ? s.SpinPhaseVariance : 0);
+        p.P22 += stepVariance;
+
         p.P44 += 1e-20;
         if (frozen)
         {
@@ -415,19 +429,59 @@ internal static class FusionSmoother
         return false;
     }
 
-    private static bool[] SpinJumps(FusionSettings s, double[] grid, int k0)
+    /// <summary>The third state's step variance at step k (0 unless a brake window starts there).</summary>
+    private static double StepVariance(FusionSettings s, double[] grid, int k0, int k, byte marks)
     {
-        var jump = new bool[grid.Length];
+        if ((marks & BiasStep) == 0)
+        {
+            return 0;
+        }
+
+        double variance = 0;
+        for (int i = 0; i < s.BrakeWindows.Length; i++)
+        {
+            if (Math.Max(FirstIndexAfter(grid, s.BrakeWindows[i].StartS) - 1, k0) == k)
+            {
+                variance += i < s.BrakeBiasStepVariance.Length ? s.BrakeBiasStepVariance[i] : 0;
+            }
+        }
+
+        return variance;
+    }
+
+    private const byte PhaseJump = 1;
+    private const byte InBrake = 2;
+    private const byte BiasStep = 4;
+
+    /// <summary>Per step k → k+1: the phase jumps (a spin or brake window starts), the step lies in
+    /// a brake window, the third state steps (a brake window starts).</summary>
+    private static byte[] Marks(FusionSettings s, double[] grid, int k0)
+    {
+        var marks = new byte[grid.Length];
         foreach (TimeWindow w in s.SpinWindows)
         {
             int k = Math.Max(FirstIndexAfter(grid, w.StartS) - 1, k0);
             if (k < grid.Length)
             {
-                jump[k] = true;
+                marks[k] |= PhaseJump;
             }
         }
 
-        return jump;
+        foreach (TimeWindow w in s.BrakeWindows)
+        {
+            int k = Math.Max(FirstIndexAfter(grid, w.StartS) - 1, k0);
+            if (k < grid.Length)
+            {
+                marks[k] |= PhaseJump | BiasStep;
+            }
+
+            for (; k < grid.Length && grid[k] < w.EndS; k++)
+            {
+                marks[k] |= InBrake;
+            }
+        }
+
+        return marks;
     }
 
     /// <summary>Index of the first grid time strictly after <paramref name="t"/> (the length when none).</summary>

@@ -115,6 +115,20 @@ public sealed record ReconstructionOptions
     /// run's configured limit (2 ms when it has none).</summary>
     public double? WideBracketS { get; init; }
 
+    /// <summary>Braking force per unit mass (measured deceleration less typical drag and rolling
+    /// resistance) above which the pulses are set aside, m/s²: a braked tyre turns slower than
+    /// the car moves, by its braking slip (under ABS 5–20 %; H. B. Pacejka, "Tire and Vehicle
+    /// Dynamics", ch. 1), so there the accelerometer carries distance and speed. 0 keeps the pulses.</summary>
+    public double BrakingDecelMps2 { get; init; } = 1.5;
+
+    /// <summary>1-σ of the accelerometer's error changing when braking starts beyond its scale
+    /// error (body pitch left after compensation, cross-axis), m/s².</summary>
+    public double BrakeBiasStepSigmaMps2 { get; init; } = 0.05;
+
+    /// <summary>How fast the accelerometer's error may wander while braking without pulses,
+    /// m²/s⁵ (as <see cref="AccelOnlyBiasWanderDensity"/>: nothing else tells it from motion).</summary>
+    public double BrakeBiasWanderDensity { get; init; } = 0.002;
+
     /// <summary>Acceleration-only runs: the run counts as stopped when the last this many seconds
     /// of samples rest at the resting level, seconds.</summary>
     public double StillAtEndS { get; init; } = 1.0;

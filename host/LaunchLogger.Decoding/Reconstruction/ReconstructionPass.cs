@@ -170,8 +170,9 @@ internal sealed class ReconstructionPass
 
         StepGrid steps = BuildGrid(firstMotion.Value, stopS, endOfData);
         double[] grid = steps.TimeS;
+        List<TimeWindow> braking = SlidingUnderBraking(steps, BrakingWindows(steps, firstMotion.Value, stopS), out double brakeSlide);
         int warningsBeforeSpin = warnings.Count;
-        List<TimeWindow> spin = FindWheelspin(firstMotion.Value, stopS ?? endOfData);
+        List<TimeWindow> spin = FindWheelspin(firstMotion.Value, stopS ?? endOfData, braking);
         int spinWarnings = warnings.Count - warningsBeforeSpin;
         if (channelNote != null)
         {
@@ -179,7 +180,7 @@ internal sealed class ReconstructionPass
         }
 
         double[]? slipSignal = SlipSignal(steps, firstMotion.Value, stopS);
-        FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, slipSignal));
+        FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         if (pulses != null && accel != null && Staged
             && (fused.Outliers > 0.25 * pulses.Length || (fused.SlipKept && Math.Abs(fused.Slip.Value) * 0.5 * G0 > 0.15)))
         {
@@ -190,10 +191,16 @@ internal sealed class ReconstructionPass
             warnings.Add("the pulses run far ahead of the accelerometer for much of the run (sustained wheelspin on a driven wheel?): distance under drive comes from the accelerometer, the pulses are used only while coasting and braking");
             spin = DriveWindows(steps, firstMotion.Value, stopS);
             slipSignal = null;
-            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, slipSignal));
+            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         }
 
         ReportSlip(fused, slipSignal != null);
+        if (braking.Count > 0)
+        {
+            string list = string.Join(", ", braking.Select(w => FormattableString.Invariant($"{w.StartS - firstMotion.Value:F2}–{w.EndS - firstMotion.Value:F2} s")));
+            warnings.Add($"the wheel slid under braking (pulses up to {brakeSlide * 100:F0} % behind the accelerometer) at {list} after first motion; the pulses there were not used, distance and speed come from the accelerometer");
+        }
+
         if (fused.Outliers > 0)
         {
             warnings.Add($"{fused.Outliers} pulse observations disagreed with the rest by more than ten σ and were down-weighted");
@@ -219,7 +226,7 @@ internal sealed class ReconstructionPass
             RestingForwardMps2 = accel is null ? null : new Estimate(accel.RestLevelMps2, accel.RestLevelSigmaMps2),
             FirstPulseDistanceM = pulses is null || !Staged ? null : new Estimate(mpp - fused.PhaseM.Value, fused.PhaseM.Sigma),
             StopS = stopS,
-            WheelspinWindows = spin,
+            WheelspinWindows = braking.Count == 0 ? spin : [.. spin.Concat(braking).OrderBy(w => w.StartS)],
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             DistanceChannel = channel,
         };
@@ -624,7 +631,7 @@ internal sealed class ReconstructionPass
         return u[i] + (Math.Clamp(f, 0, 1) * (u[i + 1] - u[i]));
     }
 
-    private List<TimeWindow> FindWheelspin(double startS, double endS)
+    private List<TimeWindow> FindWheelspin(double startS, double endS, List<TimeWindow> braking)
     {
         if (!options.DetectWheelspin || pulses is null || accel is null || !Staged)
         {
@@ -632,7 +639,7 @@ internal sealed class ReconstructionPass
         }
 
         List<TimeWindow> windows = WheelspinDetector.Find(
-            pulses, mpp, accel.TimeS, accelInput, startS, endS, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
+            pulses, mpp, accel.TimeS, accelInput, startS, endS, braking, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
         if (spinning.Count > 0)
         {
             string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
@@ -737,6 +744,234 @@ internal sealed class ReconstructionPass
         return windows;
     }
 
+    /// <summary>Stretches of firm braking: the braking force per unit mass (the measured
+    /// deceleration, averaged over ±0.05 s, less typical drag and rolling resistance) exceeds
+    /// <see cref="ReconstructionOptions.BrakingDecelMps2"/>; widened by 0.1 s each side (the slip
+    /// builds with the brake pressure), joined across gaps under 0.2 s, cut at the stop.</summary>
+    private List<TimeWindow> BrakingWindows(StepGrid steps, double startS, double? stopS)
+    {
+        var windows = new List<TimeWindow>();
+        if (accel is null || pulses is null || !Staged || options.BrakingDecelMps2 <= 0)
+        {
+            return windows;
+        }
+
+        double[] grid = steps.TimeS;
+        double[] dv = steps.StepSpeedM;
+        double stop = stopS ?? double.PositiveInfinity;
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        int n = grid.Length;
+        double sum = 0;
+        double span = 0;
+        int lo = k0;
+        int hi = k0;
+        double speed = steps.StartSpeedM;
+        double open = double.NaN;
+        double last = double.NaN;
+        for (int k = k0; k + 1 < n && grid[k] < stop; k++)
+        {
+            // Running mean of the input over the steps within ±0.05 s.
+            while (hi + 1 < n && grid[hi] < grid[k] + 0.05)
+            {
+                sum += dv[hi];
+                span += grid[hi + 1] - grid[hi];
+                hi++;
+            }
+
+            while (lo < k && grid[lo] <= grid[k] - 0.05)
+            {
+                sum -= dv[lo];
+                span -= grid[lo + 1] - grid[lo];
+                lo++;
+            }
+
+            speed = Math.Max(speed + dv[k], 0);
+            double force = span > 0 ? (sum / span) + (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * speed * speed) : 0;
+            if (force < -options.BrakingDecelMps2)
+            {
+                if (double.IsNaN(open))
+                {
+                    open = Math.Max(grid[k] - 0.1, startS);
+                }
+                else if (grid[k] - last > 0.2)
+                {
+                    windows.Add(new TimeWindow(open, Math.Min(last + 0.1, stop)));
+                    open = Math.Max(grid[k] - 0.1, startS);
+                }
+
+                last = grid[k];
+            }
+        }
+
+        if (!double.IsNaN(open))
+        {
+            windows.Add(new TimeWindow(open, Math.Min(last + 0.1, stop)));
+        }
+
+        return windows;
+    }
+
+    /// <summary>Where, under braking, the pulses fall behind the accelerometer: the speed from the
+    /// pulses over spans of about 40 ms against the speed they had just before braking plus the
+    /// integrated input, from where the drive is over (a driven wheel no longer slips ahead) and
+    /// before the brakes bite. A span is behind when it falls short, beyond the first span's
+    /// difference, by more than 4 % and 0.3 m/s, plus 0.1 m/s per second since the anchor for the input's drift;
+    /// with three such spans the pulses
+    /// are set aside from where the shortfall first passed 1 % and 0.1 m/s to the window's end
+    /// (the margin widens as the speed falls, while ABS keeps cycling and the wheel may lock at
+    /// the end).
+    /// Under ABS a braked wheel slips by 5–20 %; a wheel that keeps up keeps its pulses.</summary>
+    private List<TimeWindow> SlidingUnderBraking(StepGrid steps, List<TimeWindow> braking, out double largestBehind)
+    {
+        largestBehind = 0;
+        var sliding = new List<TimeWindow>();
+        if (pulses is null)
+        {
+            return sliding;
+        }
+
+        double[] grid = steps.TimeS;
+        foreach (TimeWindow w in braking)
+        {
+            // The anchor: where the drive is over (a driven wheel no longer slips ahead) and
+            // before the brakes bite.
+            int i0 = FirstPulseAtOrAfter(w.StartS - 0.1);
+            double roughSpeed = i0 + 1 < pulses.Length ? (pulses.Counts[i0 + 1] - pulses.Counts[i0]) * mpp / Math.Max(pulses.MidS(i0 + 1) - pulses.MidS(i0), 1e-6) : 0;
+            double resistance = (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * roughSpeed * roughSpeed);
+            int ka = FusionSmoother.FirstIndexAfter(grid, w.StartS);
+            while (ka + 6 < grid.Length && grid[ka] < w.EndS
+                && ((steps.StepSpeedM[ka] + steps.StepSpeedM[ka + 1] + steps.StepSpeedM[ka + 2] + steps.StepSpeedM[ka + 3] + steps.StepSpeedM[ka + 4]) / (grid[ka + 5] - grid[ka])) + resistance > 0)
+            {
+                ka++;
+            }
+
+            if (ka >= grid.Length)
+            {
+                continue;
+            }
+
+            i0 = FirstPulseAtOrAfter(grid[ka]);
+            int i1 = FirstPulseAtOrAfter(grid[ka] + 0.04);
+            i1 = Math.Max(i1, i0 + 2);
+            if (i1 >= pulses.Length)
+            {
+                continue;
+            }
+
+            double anchor = 0.5 * (pulses.MidS(i0) + pulses.MidS(i1));
+            double speed = (pulses.Counts[i1] - pulses.Counts[i0]) * mpp / (pulses.MidS(i1) - pulses.MidS(i0));
+            int k = Math.Max(FusionSmoother.FirstIndexAfter(grid, anchor) - 1, 0);
+            double cumulative = 0;
+            int behind = 0;
+            double worst = 0;
+            double firstBehindS = double.NaN;
+            double slightSinceS = double.NaN;
+            double? first = null;
+            double from = double.NaN;
+            int i = i1;
+            while (i < pulses.Length && pulses.MidS(i) < w.EndS)
+            {
+                int j = i + 1;
+                while (j < pulses.Length && pulses.MidS(j) < pulses.MidS(i) + 0.04)
+                {
+                    j++;
+                }
+
+                if (j >= pulses.Length || pulses.MidS(j) > w.EndS)
+                {
+                    break;
+                }
+
+                double mid = 0.5 * (pulses.MidS(i) + pulses.MidS(j));
+                while (k + 1 < grid.Length && grid[k + 1] <= mid)
+                {
+                    cumulative += steps.StepSpeedM[k];
+                    k++;
+                }
+
+                double fromAccel = speed + cumulative;
+                double fromPulses = (pulses.Counts[j] - pulses.Counts[i]) * mpp / (pulses.MidS(j) - pulses.MidS(i));
+                // Measured from the first span's difference, which the anchor's own error shares.
+                first ??= fromAccel - fromPulses;
+                double deficit = fromAccel - fromPulses - first.Value;
+                bool slight = deficit > (0.01 * fromAccel) + 0.1;
+                slightSinceS = !slight ? double.NaN : double.IsNaN(slightSinceS) ? pulses.MidS(i) : slightSinceS;
+                // The integrated input drifts by up to about 0.1 m/s² (what pitch compensation and
+                // the bias leave), so the margin grows with the time since the anchor.
+                if (fromAccel > 1 && deficit > (0.04 * fromAccel) + 0.3 + (0.1 * (mid - anchor)))
+                {
+                    behind++;
+                    worst = Math.Max(worst, deficit / fromAccel);
+                    if (double.IsNaN(firstBehindS))
+                    {
+                        from = slightSinceS;
+                        firstBehindS = pulses.MidS(i);
+                    }
+
+                }
+
+                i = j;
+            }
+
+            if (behind >= 3)
+            {
+                // A slide within a second of the brakes biting began with them: the slip
+                // builds with the pressure before it shows above the margin.
+                double start = Math.Max(Math.Min(from, firstBehindS) - 0.05, w.StartS);
+                start = start - w.StartS < 1.0 ? w.StartS : start;
+                sliding.Add(new TimeWindow(start, w.EndS));
+                largestBehind = Math.Max(largestBehind, worst);
+            }
+        }
+
+        return sliding;
+    }
+
+    private int FirstPulseAtOrAfter(double t)
+    {
+        int lo = 0;
+        int hi = pulses!.Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (pulses.MidS(mid) >= t)
+            {
+                hi = mid;
+            }
+            else
+            {
+                lo = mid + 1;
+            }
+        }
+
+        return lo;
+    }
+
+    /// <summary>Variance of the accelerometer's error stepping as each brake window starts: its
+    /// scale error times the mean deceleration there, and what pitch compensation leaves.</summary>
+    private double[] BrakeStepVariances(StepGrid steps, List<TimeWindow> braking)
+    {
+        var result = new double[braking.Count];
+        double[] grid = steps.TimeS;
+        for (int i = 0; i < braking.Count; i++)
+        {
+            int k = FusionSmoother.FirstIndexAfter(grid, braking[i].StartS);
+            double dv = 0;
+            double dt = 0;
+            for (; k + 1 < grid.Length && grid[k] < braking[i].EndS; k++)
+            {
+                dv += steps.StepSpeedM[k];
+                dt += grid[k + 1] - grid[k];
+            }
+
+            double decel = dt > 0 ? Math.Abs(dv / dt) : 0;
+            double scale = options.AccelScaleSigma * decel;
+            result[i] = (scale * scale) + (options.BrakeBiasStepSigmaMps2 * options.BrakeBiasStepSigmaMps2);
+        }
+
+        return result;
+    }
+
     private void ReportSlip(FusionResult fused, bool modelled)
     {
         if (!modelled || !fused.SlipKept)
@@ -752,7 +987,7 @@ internal sealed class ReconstructionPass
         }
     }
 
-    private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, double[]? slipSignal)
+    private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, List<TimeWindow> braking, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
         bool withAccel = accel != null;
@@ -826,6 +1061,9 @@ internal sealed class ReconstructionPass
 
             // Across a spin or slide the wheel may gain or lose any distance: the phase starts afresh.
             SpinPhaseVariance = 1e6,
+            BrakeWindows = [.. braking],
+            BrakeBiasStepVariance = BrakeStepVariances(steps, braking),
+            BrakeThirdDensity = options.BrakeBiasWanderDensity,
             SlipSignal = slipSignal,
             SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
             SlipMinimum = options.WheelSlipMinimum,

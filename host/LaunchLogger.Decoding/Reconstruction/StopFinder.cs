@@ -4,8 +4,17 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// covered less than one pulse pitch after the last one: with the speed and deceleration of the
 /// last pulses (or the accelerometer), it stopped within v/|a|, and within 2·m/v at most (the
 /// distance covered braking uniformly from v to rest is v·t/2; kinematics, any textbook).</summary>
+/// <remarks>Under firm braking the pulses cannot be trusted to the end: a braked wheel turns
+/// slower than the car moves, and below the ABS's working speed it may lock and stop pulsing well
+/// before the car does. The accelerometer then marks the stop itself: the deceleration falls to
+/// nothing within a sample or two when the car comes to rest.</remarks>
 internal static class StopFinder
 {
+    /// <summary>Deceleration that counts as firm braking for the step search, m/s².</summary>
+    private const double FirmDecelMps2 = 2.0;
+
+    /// <summary>Span either side of a candidate step, seconds.</summary>
+    private const double StepSpanS = 0.02;
     /// <summary>The time the car came to rest, seconds.</summary>
     /// <param name="pulses">Observations; at least one.</param>
     /// <param name="mpp">Metres per pulse.</param>
@@ -19,7 +28,11 @@ internal static class StopFinder
         EndMotion(pulses, mpp, out double speed, out double decel);
         double bound = speed > 1e-3 ? 2 * mpp / speed : 1.0;
         double stop;
-        if (accelT != null && accelInput != null && speed > 1e-3)
+        if (accelT != null && accelInput != null && DecelerationStep(accelT, accelInput, tLast, endS) is { } step)
+        {
+            stop = step;
+        }
+        else if (accelT != null && accelInput != null && speed > 1e-3)
         {
             // Integrate the accelerometer forward from the last pulse until the speed is all but
             // gone (a few cm/s: sampling and offset errors leave a residue that would otherwise
@@ -62,6 +75,79 @@ internal static class StopFinder
         }
 
         return Math.Min(stop, Math.Max(endS, tLast));
+    }
+
+    /// <summary>The first time after <paramref name="fromS"/> (and within 3 s of it) where a firm
+    /// deceleration steps down to near nothing: the mean input over the <see cref="StepSpanS"/>
+    /// before is below −<see cref="FirmDecelMps2"/>, and the mean over the span after has risen
+    /// by more than 70 % of it. Null when the car was not braking firmly at the last pulse.</summary>
+    public static double? DecelerationStep(double[] t, double[] input, double fromS, double endS)
+    {
+        int i = Array.BinarySearch(t, fromS);
+        i = i >= 0 ? i : ~i;
+        if (i >= t.Length)
+        {
+            return null;
+        }
+
+        // Running sums over [lo, i) and [i, hi).
+        int lo = i;
+        double before = 0;
+        while (lo > 0 && t[lo - 1] >= t[i] - StepSpanS)
+        {
+            lo--;
+            before += input[lo];
+        }
+
+        if (i - lo < 3 || before / (i - lo) > -FirmDecelMps2)
+        {
+            return null;
+        }
+
+        int hi = i;
+        double after = 0;
+        double limit = Math.Min(fromS + 3, endS);
+        double found = double.NaN;
+        double best = 0;
+        for (; i < t.Length && t[i] <= limit; i++)
+        {
+            if (!double.IsNaN(found) && t[i] > found + StepSpanS)
+            {
+                break;
+            }
+
+            while (hi < t.Length && t[hi] < t[i] + StepSpanS)
+            {
+                after += input[hi];
+                hi++;
+            }
+
+            while (lo < i && t[lo] < t[i] - StepSpanS)
+            {
+                before -= input[lo];
+                lo++;
+            }
+
+            int nb = i - lo;
+            int na = hi - i;
+            if (nb >= 3 && na >= 3)
+            {
+                double mb = before / nb;
+                double ma = after / na;
+                // The first place the rise passes 70 % of the level before it; then the sharpest
+                // contrast within a span after that, the step lying between sample i − 1 and i.
+                if (mb < -FirmDecelMps2 && ma - mb > 0.7 * -mb && ma - mb > best)
+                {
+                    best = ma - mb;
+                    found = 0.5 * (t[i - 1] + t[i]);
+                }
+            }
+
+            before += input[i];
+            after -= input[i];
+        }
+
+        return double.IsNaN(found) ? null : found;
     }
 
     /// <summary>Speed and deceleration at the last pulse from a quadratic through the pulses of

@@ -7,13 +7,14 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// a drift (accelerometer bias) and a share of the speed (scale errors). That baseline is fitted
 /// robustly — iteratively reweighted least squares with Tukey's biweight (P. J. Huber, "Robust
 /// Statistics", 1981; Holland &amp; Welsch 1977) — and windows standing well above it are spin,
-/// well below it a slide.</remarks>
+/// well below it a slide. Stretches the caller already sets aside (firm braking) are left out of
+/// the fit.</remarks>
 internal static class WheelspinDetector
 {
     private const double WindowS = 0.04;
 
     public static List<TimeWindow> Find(
-        PulseChannel pulses, double mpp, double[] accelT, double[] input, double startS, double endS,
+        PulseChannel pulses, double mpp, double[] accelT, double[] input, double startS, double endS, List<TimeWindow> skip,
         double minExcessMps, double fraction, out double largestAhead, out double largestBehind, out List<TimeWindow> spinning)
     {
         largestAhead = 0;
@@ -49,7 +50,7 @@ internal static class WheelspinDetector
                 break;
             }
 
-            if (ti > startS)
+            if (ti > startS && !Overlaps(skip, ti, tj))
             {
                 double span = tj - ti;
                 double vp = (pulses.Counts[j] - pulses.Counts[i]) * mpp / span;
@@ -142,6 +143,19 @@ internal static class WheelspinDetector
         found.AddRange(Group(slide, starts, ends, startS));
         found.Sort((a, b) => a.StartS.CompareTo(b.StartS));
         return found;
+    }
+
+    private static bool Overlaps(List<TimeWindow> windows, double from, double to)
+    {
+        foreach (TimeWindow w in windows)
+        {
+            if (from <= w.EndS && to >= w.StartS)
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 
     /// <summary>Groups flagged windows (bridging single unflagged ones), widened by a window each

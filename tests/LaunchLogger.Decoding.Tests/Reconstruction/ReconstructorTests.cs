@@ -288,6 +288,40 @@ public class ReconstructorTests
     }
 
     [Fact]
+    public void AWheelSlidingThroughAFirmStopKeepsTheStoppingDistance()
+    {
+        // From 0.5 g for 6 s (29.42 m/s) braking at 6 m/s² to rest; the pickup wheel falls up to
+        // 3 m/s behind the car for most of the stop, as under ABS. Stopping distance at constant
+        // deceleration: v²/(2a) (kinematics, any textbook).
+        Motion motion = HalfGToSixtyAndStop();
+        double brakeS = StartS + 6;
+        double fromMps = 0.5 * G0 * 6;
+        double closedForm = fromMps * fromMps / (2 * 6);
+        var synthetic = new SyntheticRun { Motion = motion, Seed = 23, SpinPeakMps = -3, SpinStartS = brakeS + 0.05, SpinLengthS = 4.3 };
+        ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
+        ReconstructedRun pulsesThrough = Reconstructor.Reconstruct(synthetic.Build(), new ReconstructionOptions { BrakingDecelMps2 = 0, DetectWheelspin = false });
+
+        Assert.Contains(run.Warnings, w => w.Contains("slid under braking"));
+        Trajectory t = run.Trajectory;
+        double ours = t.DistanceM[^1] - TrajectoryProbe.At(t, t.DistanceM, brakeS);
+        double naive = pulsesThrough.Trajectory.DistanceM[^1] - TrajectoryProbe.At(pulsesThrough.Trajectory, pulsesThrough.Trajectory.DistanceM, brakeS);
+        Assert.Equal(72.128, closedForm, 3);
+        Assert.InRange(ours - closedForm, -0.15, 0.15);
+        Assert.True(Math.Abs(naive - closedForm) > 1, $"pulses through the slide: {naive - closedForm:F2} m");
+        Assert.InRange(Math.Abs(ours - closedForm), 0, 3 * t.DistanceSigmaM![^1]);
+        Assert.InRange(run.StopS!.Value - motion.EndS, -0.01, 0.01);
+    }
+
+    [Fact]
+    public void AWheelKeepingUpUnderBrakingKeepsItsPulses()
+    {
+        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 24 }.Build());
+
+        Assert.DoesNotContain(run.Warnings, w => w.Contains("slid"));
+        Assert.Empty(run.WheelspinWindows);
+    }
+
+    [Fact]
     public void RestingLevelAndPitchComeFromTheStillSamples()
     {
         var synthetic = new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 13 };
