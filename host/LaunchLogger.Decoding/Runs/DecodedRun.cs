@@ -37,6 +37,9 @@ public sealed class DecodedRun
     /// possible, by name (e.g. "clock_wraps", "pulse_observations_dropped").</summary>
     public IReadOnlyDictionary<string, long> Health { get; init; } = new Dictionary<string, long>();
 
+    /// <summary>Frames missing inside this run by their sequence numbers (lost or damaged).</summary>
+    public long FramesLost { get; init; }
+
     /// <summary>True when the run's summary frame was read (the run closed normally).</summary>
     public bool Complete { get; init; }
 

@@ -129,6 +129,7 @@ internal sealed class RunBuilder
             FirmwareRolloutS = FirmwareTime(EventKind.Rollout, Summary?.RolloutMicros ?? 0),
             Health = health,
             Complete = Summary != null,
+            FramesLost = FramesLost,
             Warnings = warnings.ToList(),
         };
     }

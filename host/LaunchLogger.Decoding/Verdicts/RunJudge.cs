@@ -47,9 +47,9 @@ public static class RunJudge
             reasons.Add(new(VerdictLevel.Doubtful, "wide_brackets", Invariant($"{wide} of {run.Pulses.Count} pulse observations have wide time brackets")));
         }
 
-        if (run.Warnings.Any(w => w.Contains("lost", StringComparison.OrdinalIgnoreCase) && w.Contains("frame", StringComparison.OrdinalIgnoreCase)))
+        if (run.FramesLost > 0)
         {
-            reasons.Add(new(VerdictLevel.Doubtful, "frames_lost", "frames of this run were lost or damaged in the log"));
+            reasons.Add(new(VerdictLevel.Doubtful, "frames_lost", Invariant($"{run.FramesLost} frame(s) of this run were lost or damaged in the log")));
         }
 
         double spin = rec.WheelspinWindows.Sum(w => w.EndS - w.StartS);

@@ -68,6 +68,22 @@ public class SessionJudgementTests
         Assert.DoesNotContain(run.Verdict!.Reasons, r => r.Code == "grade");
     }
 
+    [Fact]
+    public void ALogWithAFrameCutOutIsDoubtful()
+    {
+        // Remove one whole frame (between two zero delimiters) from the middle of a good log.
+        byte[] log = Simulator.Run(BuiltInScenarios.Default, seed: 2).LogBytes;
+        int middle = log.Length / 2;
+        int start = Array.IndexOf(log, (byte)0, middle) + 1;
+        int end = Array.IndexOf(log, (byte)0, start) + 1;
+        byte[] damaged = [.. log[..start], .. log[end..]];
+
+        RunAnalysis run = SessionAnalyzer.Analyze(LogReader.Read(damaged, "damaged.log").Runs).Runs.Single();
+
+        Assert.Equal(1, run.Run.FramesLost);
+        Assert.Contains(run.Verdict!.Reasons, r => r.Code == "frames_lost");
+    }
+
     private static RunAnalysis Analyze(Scenario scenario, int seed, CalibrationSettings? calibration) =>
         SessionAnalyzer.Analyze(LogReader.Read(Simulator.Run(scenario, seed).LogBytes, scenario.Name).Runs, new AnalysisOptions { Calibration = calibration }).Runs.Single();
 
