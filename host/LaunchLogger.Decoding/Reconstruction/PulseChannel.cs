@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using LaunchLogger.Decoding.Runs;
 
 namespace LaunchLogger.Decoding.Reconstruction;
@@ -51,24 +52,41 @@ internal sealed class PulseChannel
     /// and whose bracket end does not go backwards.</summary>
     public static PulseChannel From(IReadOnlyList<PulseRecord> records)
     {
-        var counts = new List<long>(records.Count);
-        var lo = new List<double>(records.Count);
-        var hi = new List<double>(records.Count);
-        int dropped = 0;
-        foreach (PulseRecord r in records)
+        // Straight into arrays of the final size, over a span when the list allows one.
+        int n = records.Count;
+        ReadOnlySpan<PulseRecord> span = records switch
         {
+            PulseRecord[] array => array,
+            List<PulseRecord> list => CollectionsMarshal.AsSpan(list),
+            _ => default,
+        };
+        bool direct = span.Length == n;
+        var counts = new long[n];
+        var lo = new double[n];
+        var hi = new double[n];
+        int kept = 0;
+        for (int i = 0; i < n; i++)
+        {
+            PulseRecord r = direct ? span[i] : records[i];
             if (double.IsNaN(r.LoS) || double.IsNaN(r.HiS) || r.HiS < r.LoS
-                || (counts.Count > 0 && (r.Count <= counts[^1] || r.HiS < hi[^1])))
+                || (kept > 0 && (r.Count <= counts[kept - 1] || r.HiS < hi[kept - 1])))
             {
-                dropped++;
                 continue;
             }
 
-            counts.Add(r.Count);
-            lo.Add(r.LoS);
-            hi.Add(r.HiS);
+            counts[kept] = r.Count;
+            lo[kept] = r.LoS;
+            hi[kept] = r.HiS;
+            kept++;
         }
 
-        return new PulseChannel([.. counts], [.. lo], [.. hi], dropped);
+        if (kept < n)
+        {
+            Array.Resize(ref counts, kept);
+            Array.Resize(ref lo, kept);
+            Array.Resize(ref hi, kept);
+        }
+
+        return new PulseChannel(counts, lo, hi, n - kept);
     }
 }
