@@ -257,7 +257,9 @@ internal sealed class ReconstructionPass
             }
         }
 
-        if (wide > 0)
+        // A log's run already carries the reader's warning about wide brackets; say it here only
+        // for plain-text inputs (format version 0), which have no reader of their own to say it.
+        if (wide > 0 && configuration.FormatVersion == 0)
         {
             warnings.Add($"{wide} of {pulses.Length} pulse observations have brackets wider than {limit * 1e3:F1} ms (widest {widest * 1e3:F1} ms); they count with their width");
         }
