@@ -50,7 +50,7 @@ public static class CalibrateDistanceCommand
     public static ExitCode Run(CalibrateDistanceRequest request, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(request);
-        try
+        return Guarded(Verb, error, () =>
         {
             if (!(request.Metres >= 1 && request.Metres <= 100_000))
             {
@@ -92,22 +92,7 @@ public static class CalibrateDistanceCommand
             }
 
             return result.Warnings.Count == 0 ? ExitCode.Ok : ExitCode.Partial;
-        }
-        catch (UsageException e)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: {e.Message}");
-            return ExitCode.Usage;
-        }
-        catch (Exception e) when (e is InputException or CalibrationException)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: {e.Message}");
-            return ExitCode.BadInput;
-        }
-        catch (OperationCanceledException)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: cancelled; nothing written");
-            return ExitCode.Cancelled;
-        }
+        });
     }
 
     /// <summary>The log's only run; with several, the message lists what each counted so the

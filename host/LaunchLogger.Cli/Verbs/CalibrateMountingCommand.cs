@@ -59,7 +59,7 @@ public static class CalibrateMountingCommand
     public static ExitCode Run(CalibrateMountingRequest request, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(request);
-        try
+        return Guarded(Verb, error, () =>
         {
             CalibrationSettings? existing = LoadExisting(request.Settings);
             List<DecodedRun> rests = PickRests(request, error, cancel);
@@ -96,22 +96,7 @@ public static class CalibrateMountingCommand
             }
 
             return result.Warnings.Count == 0 ? ExitCode.Ok : ExitCode.Partial;
-        }
-        catch (UsageException e)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: {e.Message}");
-            return ExitCode.Usage;
-        }
-        catch (Exception e) when (e is InputException or CalibrationException)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: {e.Message}");
-            return ExitCode.BadInput;
-        }
-        catch (OperationCanceledException)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: cancelled; nothing written");
-            return ExitCode.Cancelled;
-        }
+        });
     }
 
     private static List<DecodedRun> PickRests(CalibrateMountingRequest request, TextWriter error, CancellationToken cancel)

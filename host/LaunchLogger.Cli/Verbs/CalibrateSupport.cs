@@ -112,4 +112,29 @@ internal static class CalibrateSupport
 
     /// <summary>Formats with the invariant culture.</summary>
     public static string F(double value, string format) => value.ToString(format, Inv);
+
+    /// <summary>Runs a calibration verb's body and turns its failures into one line on
+    /// <paramref name="error"/> and the matching exit code.</summary>
+    public static ExitCode Guarded(string verb, TextWriter error, Func<ExitCode> body)
+    {
+        try
+        {
+            return body();
+        }
+        catch (UsageException e)
+        {
+            error.WriteLine($"launchlogger calibrate {verb}: {e.Message}");
+            return ExitCode.Usage;
+        }
+        catch (Exception e) when (e is InputException or CalibrationException)
+        {
+            error.WriteLine($"launchlogger calibrate {verb}: {e.Message}");
+            return ExitCode.BadInput;
+        }
+        catch (OperationCanceledException)
+        {
+            error.WriteLine($"launchlogger calibrate {verb}: cancelled; nothing written");
+            return ExitCode.Cancelled;
+        }
+    }
 }

@@ -47,7 +47,7 @@ public static class CalibrateTeethCommand
     public static ExitCode Run(CalibrateTeethRequest request, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(request);
-        try
+        return Guarded(Verb, error, () =>
         {
             CalibrationSettings? existing = LoadExisting(request.Settings);
             CalibrationLog log = ReadLog(request.Log, error, Verb, cancel);
@@ -76,22 +76,7 @@ public static class CalibrateTeethCommand
             }
 
             return map.Warnings.Count == 0 ? ExitCode.Ok : ExitCode.Partial;
-        }
-        catch (UsageException e)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: {e.Message}");
-            return ExitCode.Usage;
-        }
-        catch (Exception e) when (e is InputException or CalibrationException)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: {e.Message}");
-            return ExitCode.BadInput;
-        }
-        catch (OperationCanceledException)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: cancelled; nothing written");
-            return ExitCode.Cancelled;
-        }
+        });
     }
 
     private static void WriteText(ToothSpacingMap map, TextWriter output)
