@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Statistics;
 using static System.FormattableString;
 
 namespace LaunchLogger.Decoding.Calibration;

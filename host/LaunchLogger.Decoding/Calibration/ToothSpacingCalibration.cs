@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Statistics;
 using static System.FormattableString;
 
 namespace LaunchLogger.Decoding.Calibration;

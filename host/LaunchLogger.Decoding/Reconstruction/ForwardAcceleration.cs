@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Statistics;
 
 namespace LaunchLogger.Decoding.Reconstruction;
 
@@ -84,44 +85,7 @@ internal sealed class ForwardAcceleration
             return false;
         }
 
-        double mean = Median(ForwardMps2, from, to);
-        double sigma = double.PositiveInfinity;
-        int used = 0;
-        for (int pass = 0; pass < 3; pass++)
-        {
-            double sum = 0;
-            double sumSq = 0;
-            used = 0;
-            for (int i = from; i < to; i++)
-            {
-                double e = ForwardMps2[i] - mean;
-                if (Math.Abs(e) <= 5 * sigma)
-                {
-                    sum += e;
-                    sumSq += e * e;
-                    used++;
-                }
-            }
-
-            double shift = sum / used;
-            mean += shift;
-            sigma = Math.Sqrt(Math.Max((sumSq / used) - (shift * shift), 1e-12));
-        }
-
-        // Lag-one correlation of the resting noise: averages of correlated noise are worth fewer samples.
-        double c0 = 0;
-        double c1 = 0;
-        for (int i = from; i < to; i++)
-        {
-            double e = ForwardMps2[i] - mean;
-            c0 += e * e;
-            if (i + 1 < to)
-            {
-                c1 += e * (ForwardMps2[i + 1] - mean);
-            }
-        }
-
-        double rho = c0 > 0 ? Math.Clamp(c1 / c0, 0, 0.8) : 0;
+        Robust rest = Robust.Mean(ForwardMps2, from, to, varianceFloor: 1e-12);
         if (VerticalMps2 != null)
         {
             double vertical = 0;
@@ -133,11 +97,11 @@ internal sealed class ForwardAcceleration
             RestVerticalMps2 = vertical / (to - from);
         }
 
-        CorrelationFactor = Math.Sqrt((1 + rho) / (1 - rho));
-        RestLevelMps2 = mean;
-        NoiseMps2 = sigma;
-        RestCount = used;
-        RestLevelSigmaMps2 = sigma * CorrelationFactor / Math.Sqrt(used);
+        CorrelationFactor = rest.CorrelationFactor;
+        RestLevelMps2 = rest.Value;
+        NoiseMps2 = rest.NoiseSigma;
+        RestCount = rest.Count;
+        RestLevelSigmaMps2 = rest.Sigma;
         return true;
     }
 
@@ -286,12 +250,5 @@ internal sealed class ForwardAcceleration
 
         // For Gaussian noise the median |difference| is 0.6745·√2·σ.
         return Math.Max(NoiseMps2, mad / (0.6745 * Math.Sqrt(2)));
-    }
-
-    private static double Median(double[] values, int from, int to)
-    {
-        var copy = values[from..to];
-        Array.Sort(copy);
-        return copy[copy.Length / 2];
     }
 }

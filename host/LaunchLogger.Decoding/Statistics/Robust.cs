@@ -1,4 +1,4 @@
-namespace LaunchLogger.Decoding.Calibration;
+namespace LaunchLogger.Decoding.Statistics;
 
 /// <summary>A mean with outliers beyond five σ clipped, and its uncertainty widened for
 /// correlation from sample to sample.</summary>
@@ -6,7 +6,8 @@ namespace LaunchLogger.Decoding.Calibration;
 /// <param name="Sigma">1-σ of the mean.</param>
 /// <param name="NoiseSigma">Per-sample scatter.</param>
 /// <param name="Count">Samples kept.</param>
-internal readonly record struct Robust(double Value, double Sigma, double NoiseSigma, int Count)
+/// <param name="CorrelationFactor">√((1 + ρ)/(1 − ρ)) for the lag-one correlation ρ of the samples.</param>
+internal readonly record struct Robust(double Value, double Sigma, double NoiseSigma, int Count, double CorrelationFactor = 1)
 {
     public Estimate Estimate => new(Value, Sigma);
 
@@ -14,7 +15,7 @@ internal readonly record struct Robust(double Value, double Sigma, double NoiseS
     /// passes that drop samples more than five σ from the mean. The σ of the mean is the scatter
     /// over √n times √((1 + ρ)/(1 − ρ)) for the lag-one correlation ρ (kept in [0, 0.8]), the
     /// usual allowance for an AR(1)-like noise.</summary>
-    public static Robust Mean(double[] values, int from, int to)
+    public static Robust Mean(double[] values, int from, int to, double varianceFloor = 1e-18)
     {
         int length = to - from;
         if (length < 2)
@@ -45,7 +46,7 @@ internal readonly record struct Robust(double Value, double Sigma, double NoiseS
 
             double shift = sum / used;
             mean += shift;
-            sigma = Math.Sqrt(Math.Max((sumSquares / used) - (shift * shift), 1e-18));
+            sigma = Math.Sqrt(Math.Max((sumSquares / used) - (shift * shift), varianceFloor));
         }
 
         double c0 = 0;
@@ -62,6 +63,6 @@ internal readonly record struct Robust(double Value, double Sigma, double NoiseS
 
         double rho = c0 > 0 ? Math.Clamp(c1 / c0, 0, 0.8) : 0;
         double factor = Math.Sqrt((1 + rho) / (1 - rho));
-        return new Robust(mean, sigma * factor / Math.Sqrt(used), sigma, used);
+        return new Robust(mean, sigma * factor / Math.Sqrt(used), sigma, used, factor);
     }
 }
