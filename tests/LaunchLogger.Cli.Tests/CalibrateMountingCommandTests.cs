@@ -4,6 +4,7 @@ using LaunchLogger.Cli.Verbs;
 using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Simulation;
 using LaunchLogger.Simulation.Scenarios;
+using LaunchLogger.Simulation.Sensors;
 
 namespace LaunchLogger.Cli.Tests;
 
@@ -35,7 +36,7 @@ public class CalibrateMountingCommandTests
         double theta = Math.Atan(scenario.Environment.GradePercent / 100);
         double lean = v.MassKg * G0 * Math.Sin(theta) * v.CgHeightM / v.PitchStiffnessNmPerRad;
         double tilt = theta + lean;
-        double[,] r = Rotation(a.MountYawDeg, a.MountPitchDeg, a.MountRollDeg);
+        double[,] r = AccelerometerModel.MountRotation(a.MountYawDeg, a.MountPitchDeg, a.MountRollDeg);
         double[] scale = [1 + a.ScaleError.X, 1 + a.ScaleError.Y, 1 + a.ScaleError.Z];
         double[] bias = [a.BiasMilliG.X, a.BiasMilliG.Y, a.BiasMilliG.Z];
         var reading = new double[3];
@@ -50,31 +51,6 @@ public class CalibrateMountingCommandTests
         // A forward acceleration a changes x by scale·R00·a and y (left) by scale·R01·a.
         double yaw = -Math.Atan2(scale[1] * r[0, 1], scale[0] * r[0, 0]);
         return (pitch, yaw);
-    }
-
-    private static double[,] Rotation(double yawDeg, double pitchDeg, double rollDeg)
-    {
-        double y = yawDeg * Math.PI / 180;
-        double p = -pitchDeg * Math.PI / 180;
-        double q = rollDeg * Math.PI / 180;
-        double[,] rz = { { Math.Cos(y), -Math.Sin(y), 0 }, { Math.Sin(y), Math.Cos(y), 0 }, { 0, 0, 1 } };
-        double[,] ry = { { Math.Cos(p), 0, Math.Sin(p) }, { 0, 1, 0 }, { -Math.Sin(p), 0, Math.Cos(p) } };
-        double[,] rx = { { 1, 0, 0 }, { 0, Math.Cos(q), -Math.Sin(q) }, { 0, Math.Sin(q), Math.Cos(q) } };
-        return Multiply(Multiply(rz, ry), rx);
-    }
-
-    private static double[,] Multiply(double[,] a, double[,] b)
-    {
-        var m = new double[3, 3];
-        for (int i = 0; i < 3; i++)
-        {
-            for (int j = 0; j < 3; j++)
-            {
-                m[i, j] = (a[i, 0] * b[0, j]) + (a[i, 1] * b[1, j]) + (a[i, 2] * b[2, j]);
-            }
-        }
-
-        return m;
     }
 
     private static double Deg(double rad) => rad * 180 / Math.PI;
