@@ -67,4 +67,8 @@ public sealed class ReconstructedRun
     /// <summary>Stretches where the pulses ran ahead of the accelerometer (wheelspin) and were
     /// not trusted for distance.</summary>
     public IReadOnlyList<TimeWindow> WheelspinWindows { get; init; } = [];
+
+    /// <summary>Stretches of firm braking where the pickup wheel slid behind the car (as under
+    /// ABS) and the accelerometer carried distance and speed instead.</summary>
+    public IReadOnlyList<TimeWindow> BrakingSlideWindows { get; init; } = [];
 }

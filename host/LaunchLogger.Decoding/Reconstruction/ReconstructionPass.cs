@@ -226,7 +226,8 @@ internal sealed class ReconstructionPass
             RestingForwardMps2 = accel is null ? null : new Estimate(accel.RestLevelMps2, accel.RestLevelSigmaMps2),
             FirstPulseDistanceM = pulses is null || !Staged ? null : new Estimate(mpp - fused.PhaseM.Value, fused.PhaseM.Sigma),
             StopS = stopS,
-            WheelspinWindows = braking.Count == 0 ? spin : [.. spin.Concat(braking).OrderBy(w => w.StartS)],
+            WheelspinWindows = spin,
+            BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             DistanceChannel = channel,
         };

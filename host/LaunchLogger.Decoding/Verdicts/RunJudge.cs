@@ -52,10 +52,12 @@ public static class RunJudge
             reasons.Add(new(VerdictLevel.Doubtful, "frames_lost", Invariant($"{run.FramesLost} frame(s) of this run were lost or damaged in the log")));
         }
 
+        // A wheel sliding under firm braking (ABS at work) is expected and carried by the
+        // accelerometer; only a wheel running off on its own counts against the run.
         double spin = rec.WheelspinWindows.Sum(w => w.EndS - w.StartS);
         if (spin > limits.WheelspinS)
         {
-            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel spun faster than the car moved for {spin:0.00} s: distance and speed there lean on the accelerometer")));
+            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: distance and speed there lean on the accelerometer")));
         }
 
         if (grade is { MountingCalibrated: true } g)

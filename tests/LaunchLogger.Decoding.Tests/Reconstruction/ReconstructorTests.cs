@@ -283,7 +283,7 @@ public class ReconstructorTests
         ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 22, SpinPeakMps = -3, SpinStartS = StartS + 8, SpinLengthS = 0.5 }.Build());
 
         Assert.Contains(run.Warnings, w => w.Contains("slid"));
-        Assert.Contains(run.WheelspinWindows, w => w.StartS < StartS + 8.5 && w.EndS > StartS + 8);
+        Assert.Contains(run.WheelspinWindows.Concat(run.BrakingSlideWindows), w => w.StartS < StartS + 8.5 && w.EndS > StartS + 8);
         Assert.InRange(run.Trajectory.DistanceM[^1] - motion.At(motion.EndS).D, -0.1, 0.1);
     }
 
