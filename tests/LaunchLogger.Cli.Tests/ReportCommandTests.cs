@@ -99,10 +99,12 @@ public class ReportCommandTests
         Assert.True(code is ExitCode.Ok or ExitCode.Partial, error.ToString());
         using JsonDocument json = JsonDocument.Parse(output.ToString());
         JsonElement run = json.RootElement.GetProperty("runs")[0];
-        Assert.Equal(T0, run.GetProperty("first_motion_s").GetDouble(), 2);
+        // The method's own error on this input is about 0.4 ms from standstill and under 0.05 ms
+        // after rollout (measured); the tolerances are a few times that, not a rounding.
+        Assert.InRange(run.GetProperty("first_motion_s").GetDouble() - T0, -0.0015, 0.0015);
         JsonElement zeroTo60 = run.GetProperty("speed_intervals").EnumerateArray().Single(i => i.GetProperty("label").GetString() == "0-60 mph");
-        Assert.Equal(5.4702, zeroTo60.GetProperty("from_standstill_s").GetDouble(), 2);
-        Assert.Equal(5.1177, zeroTo60.GetProperty("from_rollout_s").GetDouble(), 2);
+        Assert.InRange(zeroTo60.GetProperty("from_standstill_s").GetDouble() - 5.4702, -0.0015, 0.0015);
+        Assert.InRange(zeroTo60.GetProperty("from_rollout_s").GetDouble() - 5.1177, -0.0005, 0.0005);
     }
 
     [Theory]

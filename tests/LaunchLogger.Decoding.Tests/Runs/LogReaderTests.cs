@@ -100,12 +100,13 @@ public class LogReaderTests
         Assert.Equal(driver.FedPulses[^1].HiMicros / 1e6, run.Events[^1].TimeS);
 
         // The box's rollout speed (mm/s) against kinematics: v = √(2·a·d) at d = 1 ft, a = 0.5 g
-        // (REFERENCES.md: physics, any textbook), about 1.729 m/s or 3.87 mph. The box measures
-        // the mean over the bracketing pulses, so agreement to a few per cent is all to expect.
-        // Reference library: UnitsNet for mm/s → mph.
-        double boxMph = Speed.FromMillimetersPerSecond(run.Events[2].Values[0]).MilesPerHour;
-        double exactMph = Speed.FromMetersPerSecond(Math.Sqrt(2 * 0.5 * 9.80665 * 0.3048)).MilesPerHour;
-        Assert.Equal(exactMph, boxMph, exactMph * 0.05);
+        // (REFERENCES.md: physics, any textbook), 1.72885 m/s. The box reports the mean speed over
+        // the pulse interval that crosses the mark (0.0408 m here), which reads slightly high under
+        // acceleration: +0.12 % on this launch (measured), plus up to 1 mm/s of truncation; the
+        // check allows 0.3 %.
+        double boxMps = run.Events[2].Values[0] / 1000.0;
+        double exactMps = Math.Sqrt(2 * 0.5 * 9.80665 * 0.3048);
+        Assert.InRange(boxMps / exactMps, 0.997, 1.003);
 
         RunConfiguration c = run.Configuration;
         Assert.Equal(LogFormat.Version, c.FormatVersion);
