@@ -5,8 +5,11 @@ namespace LaunchLogger.Decoding.Tests.Reading;
 
 public class CobsDecoderTests
 {
-    // Worked examples of Consistent Overhead Byte Stuffing (Cheshire & Baker, SIGCOMM 1997 /
-    // IEEE/ACM ToN 1999), delimiter not shown; copied from /work/shared/REFERENCES.md.
+    // Consistent Overhead Byte Stuffing (algorithm: Cheshire & Baker, SIGCOMM 1997 / IEEE/ACM
+    // ToN 1999). The pairs are the widely copied COBS example table, not the paper's own figures
+    // (which differ), each re-derived by hand from the algorithm; delimiter not shown. The same
+    // table is checked against the firmware's encoder in
+    // tests/LaunchLogger.Firmware.Tests/Reference/CobsExampleTableTests.cs.
     [Theory]
     [InlineData("one zero", "00", "01 01")]
     [InlineData("two zeros", "00 00", "01 01 01")]
@@ -25,7 +28,8 @@ public class CobsDecoderTests
     [Fact]
     public void FullBlockOf254NonZeroBytesDecodesInBothForms()
     {
-        // REFERENCES.md: 01…FE (254 bytes) → FF 01…FE; the paper's encoder adds a trailing 01.
+        // 01…FE (254 bytes) → FF 01…FE (re-derived from the algorithm); the encoder listed in the
+        // paper adds a trailing 01 (from memory), which the decoder accepts as well.
         byte[] payload = Enumerable.Range(1, 254).Select(i => (byte)i).ToArray();
         byte[] ours = [0xFF, .. payload];
         byte[] paper = [0xFF, .. payload, 0x01];

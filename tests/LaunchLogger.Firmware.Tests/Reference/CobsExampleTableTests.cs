@@ -3,14 +3,18 @@ using LaunchLogger.Firmware.Wire;
 
 namespace LaunchLogger.Firmware.Tests.Reference;
 
-/// <summary>Consistent Overhead Byte Stuffing against the worked examples of Cheshire &amp; Baker,
-/// "Consistent Overhead Byte Stuffing" (SIGCOMM 1997; IEEE/ACM Transactions on Networking, 1999),
-/// as listed in shared/REFERENCES.md. The delimiter is not part of these encodings.</summary>
-public class CobsPaperTests
+/// <summary>Consistent Overhead Byte Stuffing, the algorithm of Cheshire &amp; Baker, "Consistent
+/// Overhead Byte Stuffing" (SIGCOMM 1997; IEEE/ACM Transactions on Networking 7(2), 1999), checked
+/// against the short example table that is widely copied in descriptions of COBS (reference
+/// articles and library documentation). Those pairs are not the paper's own figures, which
+/// differ; each pair below was re-derived by hand from the algorithm as the paper defines it
+/// (a code byte = 1 + the number of non-zero bytes that follow it in the block, a block of 254
+/// non-zero bytes takes code FF and no implied zero). The delimiter is not part of these encodings.</summary>
+public class CobsExampleTableTests
 {
     public static TheoryData<string, string, string> Examples => new()
     {
-        // name, payload, stuffed (Cheshire & Baker worked examples)
+        // name, payload, stuffed (the widely copied example table; re-derived by hand)
         { "one zero", "00", "01 01" },
         { "two zeros", "00 00", "01 01 01" },
         { "zero inside", "11 22 00 33", "03 11 22 02 33" },
@@ -43,8 +47,9 @@ public class CobsPaperTests
     [Fact]
     public void AcceptsThePapersTrailingCodeByteAfterAFullBlock()
     {
-        // Cheshire & Baker's own encoder ends a payload of exactly 254 non-zero bytes with an extra 01
-        // code byte; LOG-FORMAT.md section 1 says our decoder accepts that form too.
+        // The encoder listed in Cheshire & Baker's paper ends a payload of exactly 254 non-zero
+        // bytes with an extra 01 code byte (from memory of the paper's listing); LOG-FORMAT.md
+        // section 1 says our decoder accepts that form too.
         byte[] stuffed = Hex.Parse("FF" + Hex.Format(Hex.Run(0x01, 0xFE)) + "01");
         byte[] payload = new byte[stuffed.Length];
         int n = Cobs.Decode(stuffed, 0, stuffed.Length, payload, 0);
