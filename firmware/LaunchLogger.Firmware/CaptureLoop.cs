@@ -32,6 +32,7 @@ namespace LaunchLogger.Firmware
         private bool markWasActive;
         private bool phaseShown;
         private RunPhase shownPhase;
+        private Capture.PulseObservation observation;
 
         /// <summary>Wires the loop together.</summary>
         /// <param name="clock">The box's monotonic clock.</param>
@@ -121,13 +122,13 @@ namespace LaunchLogger.Firmware
         {
             for (int i = 0; i < MaxObservationsPerStep; i++)
             {
-                Capture.PulseObservation observation;
+                // A field, not a local: the device allocates struct locals on every method entry.
                 if (!pulses.TryRead(out observation))
                 {
                     return;
                 }
 
-                recorder.OnPulseObservation(observation);
+                recorder.OnPulseObservation(ref observation);
             }
         }
 

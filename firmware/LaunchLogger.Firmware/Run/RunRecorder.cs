@@ -165,16 +165,25 @@ namespace LaunchLogger.Firmware.Run
             get { return restZ; }
         }
 
-        /// <summary>Takes one pulse observation.</summary>
-        public void OnPulseObservation(PulseObservation observation)
+        /// <summary>Takes one pulse observation, read through the reference: the device's
+        /// interpreter copies a struct into a new heap object whenever it is passed or loaded by
+        /// value, so the capture path never does.</summary>
+        public void OnPulseObservation(ref PulseObservation observation)
         {
-            int channel = observation.Channel;
+            OnPulse(observation.Channel, observation.Count, observation.LoMicros, observation.HiMicros);
+        }
+
+        /// <summary>Takes one pulse observation as its four fields: the cumulative count of
+        /// <paramref name="channel"/> reached <paramref name="count"/> in (<paramref name="loMicros"/>,
+        /// <paramref name="hiMicros"/>].</summary>
+        public void OnPulse(int channel, long count, long loMicros, long hiMicros)
+        {
             if (channel < 0 || channel >= lastCount.Length)
             {
-                throw new System.ArgumentOutOfRangeException("observation", "no such pulse channel");
+                throw new System.ArgumentOutOfRangeException("channel", "no such pulse channel");
             }
 
-            long width = observation.HiMicros - observation.LoMicros;
+            long width = hiMicros - loMicros;
             if (width > settings.BracketLimitMicros)
             {
                 health.WideBrackets++;
@@ -189,14 +198,14 @@ namespace LaunchLogger.Firmware.Run
             {
                 // The first reading only tells where the counter stands.
                 countKnown[channel] = true;
-                lastCount[channel] = observation.Count;
+                lastCount[channel] = count;
                 return;
             }
 
             long before = lastCount[channel];
-            if (observation.Count <= before)
+            if (count <= before)
             {
-                if (observation.Count < before)
+                if (count < before)
                 {
                     health.CountsWentBackwards++;
                 }
@@ -206,14 +215,14 @@ namespace LaunchLogger.Firmware.Run
 
             if (channel == 0)
             {
-                OnDistancePulse(observation, before);
+                OnDistancePulse(count, loMicros, hiMicros, before);
             }
             else if (runOpen)
             {
-                AddToBatch(channel, observation);
+                AddToBatch(channel, count, loMicros, hiMicros);
             }
 
-            lastCount[channel] = observation.Count;
+            lastCount[channel] = count;
         }
 
         /// <summary>Tells the recorder where a channel's counter stands before any edge, so that
@@ -353,14 +362,14 @@ namespace LaunchLogger.Firmware.Run
             return value >= fullScale || value <= -fullScale;
         }
 
-        private void OnDistancePulse(PulseObservation observation, long before)
+        private void OnDistancePulse(long count, long loMicros, long hiMicros, long before)
         {
-            lastPulseChangeMicros = observation.HiMicros;
+            lastPulseChangeMicros = hiMicros;
             stillOpen = false;
             switch (phase)
             {
                 case RunPhase.Staged:
-                    OpenRun(true, MotionCause.PulseCount, observation.LoMicros, observation.HiMicros);
+                    OpenRun(true, MotionCause.PulseCount, loMicros, hiMicros);
                     break;
                 case RunPhase.Idle:
                 case RunPhase.Stopped:
@@ -370,9 +379,9 @@ namespace LaunchLogger.Firmware.Run
                         idleRollStartCount = before;
                     }
 
-                    if ((observation.Count - idleRollStartCount) * circumference >= (long)settings.UnstagedOpenMicrometres * pulsesPerRevolution)
+                    if ((count - idleRollStartCount) * circumference >= (long)settings.UnstagedOpenMicrometres * pulsesPerRevolution)
                     {
-                        OpenRun(false, MotionCause.RollingDistance, observation.LoMicros, observation.HiMicros);
+                        OpenRun(false, MotionCause.RollingDistance, loMicros, hiMicros);
                     }
 
                     break;
@@ -380,18 +389,18 @@ namespace LaunchLogger.Firmware.Run
 
             if (runOpen)
             {
-                AddToBatch(0, observation);
+                AddToBatch(0, count, loMicros, hiMicros);
                 if (!rolloutReached)
                 {
-                    CheckRollout(observation);
+                    CheckRollout(count, loMicros, hiMicros);
                 }
             }
         }
 
-        private void CheckRollout(PulseObservation observation)
+        private void CheckRollout(long count, long loMicros, long hiMicros)
         {
-            long rel = observation.Count - originCount[0];
-            long mid = observation.LoMicros + ((observation.HiMicros - observation.LoMicros) / 2);
+            long rel = count - originCount[0];
+            long mid = loMicros + ((hiMicros - loMicros) / 2);
             if (rel * circumference >= rolloutScaled)
             {
                 long span = mid - prevMidMicros;
@@ -644,14 +653,14 @@ namespace LaunchLogger.Firmware.Run
             lastPulseChangeMicros = byStop ? lastPulseHiMicros : nowMicros;
         }
 
-        private void AddToBatch(int channel, PulseObservation observation)
+        private void AddToBatch(int channel, long count, long loMicros, long hiMicros)
         {
             PulseBatch batch = batches[channel];
-            batch.Add(observation.Count - originCount[channel], observation.LoMicros, observation.HiMicros);
+            batch.Add(count - originCount[channel], loMicros, hiMicros);
             observationsWritten++;
-            if (channel == 0 && observation.HiMicros > lastPulseHiMicros)
+            if (channel == 0 && hiMicros > lastPulseHiMicros)
             {
-                lastPulseHiMicros = observation.HiMicros;
+                lastPulseHiMicros = hiMicros;
             }
 
             if (batch.IsFull)
