@@ -43,6 +43,7 @@ namespace LaunchLogger.Firmware.Run
         private bool runStaged;
         private bool rolloutReached;
         private bool brakeApplied;
+        private bool preTriggerDraining;
 
         // Stillness window (accelerometer): min/max per axis, sums for the mean.
         private bool stillOpen;
@@ -97,7 +98,7 @@ namespace LaunchLogger.Firmware.Run
             batches = new PulseBatch[channels];
             for (int c = 0; c < channels; c++)
             {
-                batches[c] = new PulseBatch(c);
+                batches[c] = new PulseBatch(c, settings.PulseFrameMaxBodyBytes);
             }
 
             lastCount = new long[channels];
@@ -254,6 +255,19 @@ namespace LaunchLogger.Firmware.Run
 
             if (runOpen)
             {
+                if (preTriggerDraining)
+                {
+                    // Older samples still wait in the ring: queue these behind them, writing
+                    // the oldest first until they fit, so nothing is dropped or reordered.
+                    while (!ring.HasRoomFor(count))
+                    {
+                        accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame, MaxSamplesPerAccelFrame);
+                    }
+
+                    ring.Add(xyzMilliG, count, firstIndex, readMicros);
+                    return;
+                }
+
                 WriteAccel(xyzMilliG, 0, count, firstIndex, readMicros);
                 return;
             }
@@ -326,6 +340,11 @@ namespace LaunchLogger.Firmware.Run
                 }
 
                 return;
+            }
+
+            if (preTriggerDraining)
+            {
+                DrainPreTrigger(settings.PreTriggerSamplesPerStep);
             }
 
             for (int c = 0; c < batches.Length; c++)
@@ -603,7 +622,9 @@ namespace LaunchLogger.Firmware.Run
 
             if (ring != null)
             {
-                accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame);
+                // All at once, or a share per loop pass from Tick (PreTriggerSamplesPerStep).
+                preTriggerDraining = true;
+                DrainPreTrigger(settings.PreTriggerSamplesPerStep);
             }
 
             WriteEvent(EventKind.Motion, firstMotionMicros);
@@ -618,6 +639,11 @@ namespace LaunchLogger.Firmware.Run
 
         private void CloseRun(long nowMicros, bool byStop)
         {
+            if (preTriggerDraining)
+            {
+                DrainPreTrigger(0);
+            }
+
             for (int c = 0; c < batches.Length; c++)
             {
                 batches[c].Flush(writer);
@@ -696,6 +722,14 @@ namespace LaunchLogger.Firmware.Run
             }
 
             accelSamplesWritten += count;
+        }
+
+        /// <summary>Writes up to <paramref name="maxSamples"/> of the ring's oldest samples (all of
+        /// them for 0) as acceleration frames.</summary>
+        private void DrainPreTrigger(int maxSamples)
+        {
+            accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame, maxSamples > 0 ? maxSamples : int.MaxValue);
+            preTriggerDraining = ring.SampleCount > 0;
         }
 
         private void WriteEvent(EventKind kind, long timeMicros)
