@@ -75,6 +75,24 @@ internal sealed partial class ReconstructionPass
         return c.Counts[lo] + (f * (c.Counts[hi] - c.Counts[lo]));
     }
 
+    /// <summary>Distance noise of one pulse observation at the start: the tooth spacing error,
+    /// and the widest of the first brackets at the speed they imply (a bracket's width in time
+    /// is a distance once the car moves).</summary>
+    private double StartNoiseM()
+    {
+        PulseChannel p = pulses!;
+        int n = Math.Min(p.Length, StartMotion.MinimumObservations);
+        double width = 0;
+        for (int i = 0; i < n; i++)
+        {
+            width = Math.Max(width, p.HiS[i] - p.LoS[i]);
+        }
+
+        double span = n > 1 ? p.MidS(n - 1) - p.MidS(0) : 0;
+        double speed = span > 0 ? (p.Counts[n - 1] - p.Counts[0]) * mpp / span : 0;
+        return Math.Sqrt(Math.Pow(options.ToothSpacingErrorFraction * mpp, 2) + Math.Pow(speed * width / Math.Sqrt(12), 2));
+    }
+
     private void CheckPulses()
     {
         if (pulses is null)

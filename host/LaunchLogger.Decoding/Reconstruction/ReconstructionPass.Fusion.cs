@@ -53,9 +53,18 @@ internal sealed partial class ReconstructionPass
             // Rolling start: distance 0 at the first observation, speed from the first pulses.
             phaseMean = pulses.Counts[0] * mpp;
             phaseSigma = Math.Max(options.ToothSpacingErrorFraction * mpp, 1e-4);
-            int j = Math.Min(pulses.Length - 1, 4);
-            speed = j > 0 ? (pulses.Counts[j] - pulses.Counts[0]) * mpp / Math.Max(pulses.MidS(j) - pulses.MidS(0), 1e-3) : 0;
-            speedSigma = Math.Max(0.3 * speed, 0.5);
+            if (opening is { } s0)
+            {
+                // The start fit's speed at the first observation; its σ widened for shapes the quadratic misses.
+                speed = s0.SpeedMps.Value;
+                speedSigma = Math.Max(3 * s0.SpeedMps.Sigma, 0.1);
+            }
+            else
+            {
+                int j = Math.Min(pulses.Length - 1, 4);
+                speed = j > 0 ? (pulses.Counts[j] - pulses.Counts[0]) * mpp / Math.Max(pulses.MidS(j) - pulses.MidS(0), 1e-3) : 0;
+                speedSigma = Math.Max(0.3 * speed, 0.5);
+            }
         }
 
         int stopIndex = int.MaxValue;

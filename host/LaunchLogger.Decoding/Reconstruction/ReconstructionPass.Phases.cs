@@ -9,7 +9,9 @@ internal sealed partial class ReconstructionPass
     {
         if (!Staged && pulses != null)
         {
-            warnings.Add("the run opened while rolling: there is no standstill, distances count from the first pulse observation");
+            warnings.Add(opening is { } s
+                ? FormattableString.Invariant($"the run opened while rolling, at {s.SpeedMps.Value:F2} m/s ± {s.SpeedMps.Sigma:F2} by the first pulses{(configuration.Staged ? " although the box was staged" : "")}: there is no standstill, so no standing-start figure; distances count from the first pulse observation")
+                : "the run opened while rolling: there is no standstill, distances count from the first pulse observation");
             return new Estimate(pulses.MidS(0), (pulses.HiS[0] - pulses.LoS[0]) / Math.Sqrt(12));
         }
 
@@ -79,7 +81,7 @@ internal sealed partial class ReconstructionPass
         {
             double lastHi = pulses.HiS[^1];
             double hold = configuration.StopHoldS > 0 ? 0.9 * configuration.StopHoldS : 1.0;
-            if (!stoppedEvent && endOfData - lastHi < hold)
+            if (!stoppedEvent && endOfData - lastHi < hold && !StopFinder.EndsAtRest(pulses, mpp))
             {
                 return null;
             }

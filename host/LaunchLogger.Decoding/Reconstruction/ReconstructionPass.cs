@@ -19,6 +19,8 @@ internal sealed partial class ReconstructionPass
     private readonly string? channelNote;
     private readonly ForwardAcceleration? accel;
     private readonly double? motionHintS;
+    private readonly StartMotion? opening;
+    private readonly bool staged;
 
     private double[] accelInput = [];
     private double pitchRad;
@@ -56,9 +58,16 @@ internal sealed partial class ReconstructionPass
 
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;
         motionHintS = run.FirmwareMotionS ?? run.Events.FirstOrDefault(e => e.Kind == EventKind.Motion)?.TimeS;
+
+        // Motion at the record's start is estimated, never assumed: the box's staged flag says
+        // only that it once saw rest, not that the record holds it.
+        opening = pulses is null ? null : StartMotion.Estimate(pulses, mpp, StartNoiseM());
+        staged = configuration.Staged && opening is not { Moving: true };
     }
 
-    private bool Staged => configuration.Staged;
+    /// <summary>True when a rest was seen before the motion (the box was staged and the first
+    /// pulses do not show the car already moving).</summary>
+    private bool Staged => staged;
 
     public ReconstructedRun Run()
     {
@@ -74,6 +83,7 @@ internal sealed partial class ReconstructionPass
                 RolloutM = rolloutM,
                 Method = ReconstructionMethod.PulsesOnly,
                 Warnings = warnings,
+                Staged = Staged,
             };
         }
 
@@ -158,6 +168,8 @@ internal sealed partial class ReconstructionPass
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             DistanceChannel = channel,
+            Staged = Staged,
+            StartSpeedMps = Staged ? null : opening?.SpeedMps,
         };
     }
 
