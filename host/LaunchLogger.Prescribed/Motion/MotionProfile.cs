@@ -58,8 +58,44 @@ public sealed class MotionProfile
 
     /// <summary>The first time at or after <paramref name="afterS"/> at which the distance reaches
     /// <paramref name="distanceM"/>; null when it never does within the record.</summary>
-    public double? TimeAtDistance(double distanceM, double afterS = 0) =>
-        FirstCrossing(afterS, s => s.DistanceM, distanceM);
+    /// <remarks>Distance never decreases, so the crossing is bracketed by stepping forward from
+    /// <paramref name="afterS"/> in steps that double from the time the current speed needs
+    /// (fast for a run of nearby crossings, such as one per pulse), then refined by Brent's method.</remarks>
+    public double? TimeAtDistance(double distanceM, double afterS = 0)
+    {
+        double lo = Math.Max(0, afterS);
+        MotionState at = StateAt(lo);
+        if (at.DistanceM >= distanceM)
+        {
+            return lo;
+        }
+
+        for (int i = FirstSegmentEndingAfter(lo); i < Segments.Count; i++)
+        {
+            PlacedSegment s = Segments[i];
+            if (s.AtRest || s.StateAt(s.DurationS).DistanceM < distanceM)
+            {
+                lo = Math.Max(lo, s.EndS);
+                continue;
+            }
+
+            Func<double, double> g = t => s.StateAt(t - s.StartS).DistanceM - distanceM;
+            double from = Math.Max(lo, s.StartS);
+            MotionState start = s.StateAt(from - s.StartS);
+            double step = Math.Max(1e-6, (distanceM - start.DistanceM) / Math.Max(start.SpeedMps, 1e-3));
+            double hi = Math.Min(s.EndS, from + step);
+            while (g(hi) < 0)
+            {
+                from = hi;
+                step *= 2;
+                hi = Math.Min(s.EndS, hi + step);
+            }
+
+            return Brent.FindRoot(g, from, hi, RootToleranceS, MaxIterations);
+        }
+
+        return null;
+    }
 
     /// <summary>The first time at or after <paramref name="afterS"/> at which the speed rises to
     /// <paramref name="speedMps"/> (or falls to it, with <paramref name="rising"/> false); null
@@ -106,6 +142,12 @@ public sealed class MotionProfile
         }
 
         return null;
+    }
+
+    private int FirstSegmentEndingAfter(double timeS)
+    {
+        int i = Array.BinarySearch(startTimes, timeS);
+        return Math.Max(0, i < 0 ? ~i - 1 : i);
     }
 
     private PlacedSegment SegmentAt(double timeS)

@@ -126,6 +126,33 @@ public sealed class MotionProfileBuilder
         return this;
     }
 
+    /// <summary>Ends the last segment early, at <paramref name="timeS"/> (used to stop a pull
+    /// where a speed or distance is reached).</summary>
+    /// <exception cref="InvalidOperationException">No segment, the time is not inside the last
+    /// one, or the last one brought the car to rest.</exception>
+    public MotionProfileBuilder CutAt(double timeS)
+    {
+        if (segments.Count == 0 || AtRest)
+        {
+            throw new InvalidOperationException("only a segment that leaves the car moving can be cut");
+        }
+
+        PlacedSegment last = segments[^1];
+        if (!(timeS > last.StartS && timeS <= last.EndS))
+        {
+            throw new InvalidOperationException("the cut must fall inside the last segment");
+        }
+
+        var cut = last with { DurationS = timeS - last.StartS };
+        segments[^1] = cut;
+        MotionState end = cut.StateAt(cut.DurationS);
+        timeS = cut.EndS;
+        this.timeS = timeS;
+        distanceM = end.DistanceM;
+        speedMps = end.SpeedMps;
+        return this;
+    }
+
     /// <summary>The profile.</summary>
     /// <exception cref="InvalidOperationException">No segment was added.</exception>
     public MotionProfile Build()

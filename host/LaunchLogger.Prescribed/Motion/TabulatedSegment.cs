@@ -1,4 +1,3 @@
-using MathNet.Numerics.Integration;
 using MathNet.Numerics.Interpolation;
 using static System.FormattableString;
 
@@ -13,7 +12,9 @@ namespace LaunchLogger.Prescribed.Motion;
 /// state anywhere costs one partial piece.</remarks>
 public sealed class TabulatedSegment : AccelSegment
 {
-    private const int GaussPoints = 3;
+    private static readonly double GaussNode = Math.Sqrt(3.0 / 5.0);
+    private const double GaussEdgeWeight = 5.0 / 9.0;
+    private const double GaussMidWeight = 8.0 / 9.0;
     private readonly double[] knotsS;
     private readonly IInterpolation curve;
     private readonly double[] speedAtKnot;
@@ -79,8 +80,15 @@ public sealed class TabulatedSegment : AccelSegment
         return timesS[^1];
     }
 
-    private static double Integrate(double a, double b, Func<double, double> f) =>
-        GaussLegendreRule.Integrate(f, a, b, GaussPoints);
+    /// <summary>3-point Gauss–Legendre: nodes 0, ±√(3/5), weights 8/9, 5/9 on [−1, 1]
+    /// (Abramowitz &amp; Stegun, table 25.4).</summary>
+    private static double Integrate(double a, double b, Func<double, double> f)
+    {
+        double half = 0.5 * (b - a);
+        double mid = 0.5 * (a + b);
+        double offset = half * GaussNode;
+        return half * ((GaussEdgeWeight * (f(mid - offset) + f(mid + offset))) + (GaussMidWeight * f(mid)));
+    }
 
     private double Cumulative(double tauS, double[] atKnot, Func<double, double> f)
     {
