@@ -43,5 +43,6 @@ public sealed record PrescribedRecordSpec
     };
 
     /// <inheritdoc/>
-    public override string ToString() => Shape.Name;
+    public override string ToString() =>
+        $"{Shape.Name}; {Pickup.Teeth} teeth; {(Polled is { } p ? FormattableString.Invariant($"polled every {p.PeriodS * 1e3:0.##} ms") : "edges")}; {(Accel is { } a ? FormattableString.Invariant($"accelerometer {a.RateHz:0} Hz") : "no accelerometer")}; seed {Seed}";
 }

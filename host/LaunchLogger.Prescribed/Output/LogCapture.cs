@@ -15,6 +15,11 @@ public sealed record LogCapture
     /// <summary>Loop period when edges are timestamped, s.</summary>
     public double EdgeLoopPeriodS { get; init; } = 1e-3;
 
+    /// <summary>1-σ of that loop's period as a fraction of it. A loop that also writes frames
+    /// never keeps time exactly; without jitter its accelerometer reads would stay locked to the
+    /// sample clock's phase, which no real box does.</summary>
+    public double EdgeLoopJitterFraction { get; init; } = 0.3;
+
     /// <summary>Edge timestamps with 1 µs resolution, read every millisecond.</summary>
     public static LogCapture ExactEdges { get; } = new() { Edges = new EdgeTiming() };
 

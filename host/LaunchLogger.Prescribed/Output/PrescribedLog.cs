@@ -61,7 +61,7 @@ public static class PrescribedLog
         {
             queue = new EdgeObservationQueue(1024, health);
             stamps = (options.Capture.Edges ?? new EdgeTiming()).Observe(edgesS, random);
-            loopTimes = new PolledCounter(options.Capture.EdgeLoopPeriodS).PollTimes(profile.EndS, random);
+            loopTimes = new PolledCounter(options.Capture.EdgeLoopPeriodS, options.Capture.EdgeLoopJitterFraction).PollTimes(profile.EndS, random);
         }
 
         ListAccelerometer? accelerometer = accelSamples is null ? null : new ListAccelerometer(

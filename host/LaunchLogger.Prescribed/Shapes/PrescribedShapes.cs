@@ -26,18 +26,31 @@ public static class PrescribedShapes
     /// acceleration rises jerk-limited to a peak of 0.25–1.1 g in 0.05–0.4 s, then falls
     /// exponentially toward 0.05–0.2 g with a time constant of 3–12 s, with 0–3 gear changes
     /// (a dip of 0.15–0.35 s to a third of the level) as a table; run past the quarter mile,
-    /// coast 0.5 s, brake to rest with a rise of 0.05–0.6 s at 0.6–1.0 g.</summary>
-    public static Shape StandingStart(Random random, double idleS = IdleS)
+    /// coast 0.5 s, brake to rest with a rise of 0.05–0.6 s at 0.6–1.0 g, and at least 0.1 g
+    /// harder than the launch's peak (a car brakes harder than it launches; common practice),
+    /// unless <paramref name="brakeG"/> sets the deceleration.</summary>
+    /// <param name="random">Draws the shape.</param>
+    /// <param name="idleS">Wait at rest before the launch.</param>
+    /// <param name="brakeG">The stop's deceleration in g, instead of the drawn one.</param>
+    /// <param name="launchRiseS">The launch's rise time instead of the drawn one (0 = a step).</param>
+    /// <param name="brakeRiseS">The stop's rise time instead of the drawn one (0 = a step).</param>
+    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null)
     {
         ArgumentNullException.ThrowIfNull(random);
         double peak = G * Uniform(random, 0.25, 1.1);
         double rise = Uniform(random, 0.05, 0.4);
+        rise = launchRiseS ?? rise;
         double final = G * Uniform(random, 0.05, 0.2);
         double tau = Uniform(random, 3, 12);
         int shifts = random.Next(0, 4);
-        double brake = G * Uniform(random, 0.6, 1.0);
-        double brakeRise = Uniform(random, 0.05, 0.6);
-        var b = new MotionProfileBuilder().Hold(idleS).Ramp(rise, 0, peak);
+        double brake = brakeG is { } fixedG ? G * fixedG : Math.Max(G * Uniform(random, 0.6, 1.0), peak + (0.1 * G));
+        double brakeRise = brakeRiseS ?? Uniform(random, 0.05, 0.6);
+        var b = new MotionProfileBuilder().Hold(idleS);
+        if (rise > 0)
+        {
+            b.Ramp(rise, 0, peak);
+        }
+
         var pull = new ExponentialSegment(60, peak, final, tau);
         if (shifts == 0)
         {
@@ -64,9 +77,9 @@ public static class PrescribedShapes
     }
 
     /// <summary>A long wait at rest, then a standing start.</summary>
-    public static Shape LongIdle(Random random, double idleS = 60)
+    public static Shape LongIdle(Random random, double idleS = 60, double? launchRiseS = null, double? brakeRiseS = null)
     {
-        Shape s = StandingStart(random, idleS);
+        Shape s = StandingStart(random, idleS, launchRiseS: launchRiseS, brakeRiseS: brakeRiseS);
         return s with { Name = Invariant($"{idleS:0} s idle, then {s.Name}"), Kind = ShapeKind.LongIdle };
     }
 
