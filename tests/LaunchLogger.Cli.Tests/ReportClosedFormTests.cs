@@ -174,11 +174,12 @@ public class ReportClosedFormTests
         return JsonDocument.Parse(output.ToString());
     }
 
-    /// <summary>Writes the run's edges and accelerometer samples once, to a folder kept for the test run.</summary>
+    /// <summary>Writes the run's edges and accelerometer samples once, to a folder removed when the test run ends.</summary>
     private static (string Edges, string Accel) WriteInputs()
     {
         string folder = Path.Combine(Path.GetTempPath(), "launchlogger-closed-form-" + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(folder);
+        AppDomain.CurrentDomain.ProcessExit += (_, _) => Directory.Delete(folder, recursive: true);
         double v = BrakeSpeedMps;
         double rampEndS = BrakeOnsetS + RampS;
         double vr = v - (FirstDecel * RampS / 2);
