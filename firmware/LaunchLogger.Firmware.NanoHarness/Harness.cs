@@ -115,7 +115,7 @@ namespace LaunchLogger.Firmware.NanoHarness
             HandClock counter = new HandClock();
             HandPulseCounter pulses = new HandPulseCounter();
             HealthCounters health = new HealthCounters();
-            CrcSink sink = new CrcSink();
+            KeepingSink sink = new KeepingSink(131072);
             MonotonicClock clock = new MonotonicClock(counter, health);
             HandAccelerometer accelerometer = new HandAccelerometer(counter, 400);
 
@@ -151,7 +151,7 @@ namespace LaunchLogger.Firmware.NanoHarness
                 bool changed = count != pulses.Count;
                 pulses.Count = count;
                 accelerometer.ForwardMilliG = ForwardMilliG(t);
-                long framesBefore = sink.Frames;
+                int bytesBefore = sink.Bytes;
                 long samplesBefore = accelerometer.SamplesRead;
                 Out.Line("#a");
                 source.Poll();
@@ -159,7 +159,7 @@ namespace LaunchLogger.Firmware.NanoHarness
                 Out.Line("#b");
                 Out.Line(changed ? "#k o" : "#k -");
                 Out.Line(accelerometer.SamplesRead != samplesBefore ? "#k a" : "#k -");
-                Out.Line(sink.Frames != framesBefore ? "#k f" : "#k -");
+                Out.Line(sink.Bytes != bytesBefore ? "#k f" : "#k -");
                 if (recorder.Phase != shown)
                 {
                     shown = recorder.Phase;
@@ -169,7 +169,7 @@ namespace LaunchLogger.Firmware.NanoHarness
 
             Out.Line("run " + recorder.RunNumber.ToString() + " motion " + recorder.MotionMicros.ToString() + " rollout " + recorder.RolloutMicros.ToString());
             Out.Line("rest " + recorder.RestX.ToString() + " " + recorder.RestY.ToString() + " " + recorder.RestZ.ToString());
-            Out.Line("log " + sink.Bytes.ToString() + " bytes " + sink.Frames.ToString() + " frames crc " + sink.Crc.ToString());
+            Out.Line("log " + sink.Bytes.ToString() + " bytes " + sink.CountFrames().ToString() + " frames crc " + sink.Crc().ToString());
             string counters = "";
             for (int i = 0; i < LogFormat.HealthCounterCount; i++)
             {

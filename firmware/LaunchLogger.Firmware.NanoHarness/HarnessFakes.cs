@@ -105,36 +105,57 @@ namespace LaunchLogger.Firmware.NanoHarness
         }
     }
 
-    /// <summary>Keeps the CRC-32 and length of everything written, and counts the frames.</summary>
-    public sealed class CrcSink : IByteSink
+    /// <summary>Keeps everything written (as a card's write buffer would: one native copy per
+    /// frame), so the harness can report the log's length, frames and CRC-32 at the end without
+    /// adding work to the measured passes.</summary>
+    public sealed class KeepingSink : IByteSink
     {
-        private uint register = Crc32.Seed;
+        private readonly byte[] log;
+        private int length;
 
-        /// <summary>Bytes written.</summary>
-        public long Bytes;
-
-        /// <summary>Frames written (delimiters seen).</summary>
-        public long Frames;
-
-        /// <summary>The CRC-32 of every byte written so far.</summary>
-        public uint Crc
+        /// <summary>Room for <paramref name="capacity"/> bytes; more is refused.</summary>
+        public KeepingSink(int capacity)
         {
-            get { return Crc32.Finish(register); }
+            log = new byte[capacity];
+        }
+
+        /// <summary>Bytes kept.</summary>
+        public int Bytes
+        {
+            get { return length; }
+        }
+
+        /// <summary>Frames kept (delimiters seen).</summary>
+        public int CountFrames()
+        {
+            int frames = 0;
+            for (int i = 0; i < length; i++)
+            {
+                if (log[i] == LogFormat.Delimiter)
+                {
+                    frames++;
+                }
+            }
+
+            return frames;
+        }
+
+        /// <summary>The CRC-32 of every byte kept.</summary>
+        public uint Crc()
+        {
+            return Crc32.Compute(log, 0, length);
         }
 
         /// <inheritdoc/>
         public bool Write(byte[] buffer, int offset, int count)
         {
-            register = Crc32.Append(register, buffer, offset, count);
-            Bytes += count;
-            for (int i = offset; i < offset + count; i++)
+            if (length + count > log.Length)
             {
-                if (buffer[i] == LogFormat.Delimiter)
-                {
-                    Frames++;
-                }
+                return false;
             }
 
+            System.Array.Copy(buffer, offset, log, length, count);
+            length += count;
             return true;
         }
     }

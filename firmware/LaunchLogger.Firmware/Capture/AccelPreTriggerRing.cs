@@ -122,18 +122,15 @@ namespace LaunchLogger.Firmware.Capture
                 writer.PutVarint(burstReadMicros[slot]);
                 writer.PutVarint(burstFirstIndex[slot]);
                 writer.PutVarint(n);
-                for (int i = 0; i < n; i++)
+                // The samples run from pos, wrapping at most once at the end of the ring.
+                int first = sampleCapacity - pos < n ? sampleCapacity - pos : n;
+                writer.PutInt16s(samples, pos * 3, first * 3);
+                if (first < n)
                 {
-                    int at = pos * 3;
-                    writer.PutInt16(samples[at]);
-                    writer.PutInt16(samples[at + 1]);
-                    writer.PutInt16(samples[at + 2]);
-                    pos++;
-                    if (pos == sampleCapacity)
-                    {
-                        pos = 0;
-                    }
+                    writer.PutInt16s(samples, 0, (n - first) * 3);
                 }
+
+                pos = (pos + n) % sampleCapacity;
 
                 writer.End();
                 written += n;

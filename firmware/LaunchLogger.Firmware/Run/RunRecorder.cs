@@ -261,7 +261,7 @@ namespace LaunchLogger.Firmware.Run
                     // the oldest first until they fit, so nothing is dropped or reordered.
                     while (!ring.HasRoomFor(count))
                     {
-                        accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame, MaxSamplesPerAccelFrame);
+                        accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame, count);
                     }
 
                     ring.Add(xyzMilliG, count, firstIndex, readMicros);
@@ -622,9 +622,13 @@ namespace LaunchLogger.Firmware.Run
 
             if (ring != null)
             {
-                // All at once, or a share per loop pass from Tick (PreTriggerSamplesPerStep).
+                // All at once, or a share per loop pass from Tick (PreTriggerSamplesPerStep),
+                // starting with the Tick of this same pass.
                 preTriggerDraining = true;
-                DrainPreTrigger(settings.PreTriggerSamplesPerStep);
+                if (settings.PreTriggerSamplesPerStep == 0)
+                {
+                    DrainPreTrigger(0);
+                }
             }
 
             WriteEvent(EventKind.Motion, firstMotionMicros);
@@ -710,12 +714,7 @@ namespace LaunchLogger.Firmware.Run
                 writer.PutVarint(readMicros);
                 writer.PutVarint(firstIndex + done);
                 writer.PutVarint(n);
-                int at = (start + done) * 3;
-                int end = at + (n * 3);
-                for (int i = at; i < end; i++)
-                {
-                    writer.PutInt16(xyzMilliG[i]);
-                }
+                writer.PutInt16s(xyzMilliG, (start + done) * 3, n * 3);
 
                 writer.End();
                 done += n;

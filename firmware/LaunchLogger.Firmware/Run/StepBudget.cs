@@ -6,6 +6,11 @@ namespace LaunchLogger.Firmware.Run
     /// hardware-notes/esp32-and-linux-boards.md.</summary>
     public static class StepBudget
     {
+        /// <summary>The most IL instructions one pass may execute on the interpreter (the largest
+        /// measured, the pass that opens a run, is about 15,700): 6–24 ms at 0.4–1.5 µs per
+        /// instruction. Checked by a test with an instrumented interpreter.</summary>
+        public const int MaxInstructionsPerStep = 16000;
+
         /// <summary>Most body bytes in one pulses frame.</summary>
         public const int PulseFrameMaxBodyBytes = 64;
 

@@ -12,6 +12,15 @@ namespace LaunchLogger.Firmware.Wire
     {
         private static readonly uint[] Table = BuildTable();
 
+        /// <summary>The 256-entry table of the reflected polynomial, for a caller that folds bytes
+        /// in its own loop (the frame writer, which stuffs each byte in the same pass): the
+        /// register steps as <c>r = table[(r ^ b) &amp; 0xFF] ^ (r &gt;&gt; 8)</c>, as in
+        /// <see cref="Append"/>. Do not write to it.</summary>
+        internal static uint[] SharedTable
+        {
+            get { return Table; }
+        }
+
         /// <summary>The register value to start an incremental computation with.</summary>
         public const uint Seed = 0xFFFFFFFFu;
 

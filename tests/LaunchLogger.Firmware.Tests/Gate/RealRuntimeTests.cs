@@ -22,6 +22,26 @@ public class RealRuntimeTests
         Assert.Equal(expected, Lines(onDevice));
     }
 
+    /// <summary>The per-pass budget of Run/StepBudget.cs, in IL instructions executed by the
+    /// interpreter (hardware-notes/esp32-and-linux-boards.md): no pass of the capture loop over
+    /// it, and no allocation in any pass. Needs an interpreter built with the counters described
+    /// in DEVELOPERS.md, named by NANOCLR_POSIX_COUNTING.</summary>
+    [CountingRuntimeFact]
+    public void OnTheInterpreterNoPassExceedsTheBudgetOrAllocates()
+    {
+        string work = Directory.CreateTempSubdirectory("nano-counts-").FullName;
+        string clr = Environment.GetEnvironmentVariable("NANOCLR_POSIX_COUNTING")!;
+        Run("bash", Quote(Script()) + " " + Configuration() + " " + Quote(work), clr);
+
+        string summary = Run("bash", Quote(Script()) + " --counts " + Quote(Path.Combine(work, "raw-output.txt")));
+        var largest = System.Text.RegularExpressions.Regex.Match(summary, @"largest single step (\d+) IL");
+        var allocations = System.Text.RegularExpressions.Regex.Match(summary, @"allocations: (\d+) in all steps");
+        Assert.True(largest.Success && allocations.Success, "the run gave no counts (is NANOCLR_POSIX_COUNTING an instrumented build?):\n" + summary);
+        Assert.True(int.Parse(largest.Groups[1].Value) > 0, summary);
+        Assert.True(int.Parse(largest.Groups[1].Value) <= LaunchLogger.Firmware.Run.StepBudget.MaxInstructionsPerStep, summary);
+        Assert.Equal("0", allocations.Groups[1].Value);
+    }
+
     [Fact]
     public void TheHarnessRunsOnCoreClr()
     {
@@ -38,7 +58,7 @@ public class RealRuntimeTests
     private static string[] Lines(string output) =>
         output.Replace("\r", "", StringComparison.Ordinal).Split('\n', StringSplitOptions.RemoveEmptyEntries).Where(l => !l.StartsWith('#')).ToArray();
 
-    private static string Run(string file, string arguments)
+    private static string Run(string file, string arguments, string? interpreter = null)
     {
         var info = new ProcessStartInfo(file, arguments)
         {
@@ -47,6 +67,11 @@ public class RealRuntimeTests
             RedirectStandardInput = true,
             UseShellExecute = false,
         };
+        if (interpreter != null)
+        {
+            info.Environment["NANOCLR_POSIX"] = interpreter;
+        }
+
         using Process process = Process.Start(info) ?? throw new InvalidOperationException(file + " did not start");
         process.StandardInput.Close();
         Task<string> error = process.StandardError.ReadToEndAsync();
@@ -88,6 +113,29 @@ public sealed class RealRuntimeFactAttribute : FactAttribute
         else if (!File.Exists(clr))
         {
             Skip = "NANOCLR_POSIX names no file: " + clr;
+        }
+    }
+}
+
+/// <summary>A test that needs an interpreter built with instruction and allocation counters
+/// (DEVELOPERS.md): skipped unless NANOCLR_POSIX_COUNTING and NANO_METADATA_PROCESSOR name the tools.</summary>
+public sealed class CountingRuntimeFactAttribute : FactAttribute
+{
+    public CountingRuntimeFactAttribute()
+    {
+        string? clr = Environment.GetEnvironmentVariable("NANOCLR_POSIX_COUNTING");
+        if (string.IsNullOrEmpty(clr) || string.IsNullOrEmpty(Environment.GetEnvironmentVariable("NANO_METADATA_PROCESSOR")))
+        {
+            Skip = "no counting build of nanoFramework's interpreter: set NANOCLR_POSIX_COUNTING and NANO_METADATA_PROCESSOR (DEVELOPERS.md, 'Counting instructions and allocations')";
+        }
+        else if (!File.Exists(clr))
+        {
+            Skip = "NANOCLR_POSIX_COUNTING names no file: " + clr;
+        }
+        else if (typeof(CountingRuntimeFactAttribute).Assembly.GetCustomAttribute<AssemblyConfigurationAttribute>()?.Configuration != "Release")
+        {
+            // The budget is for the core as deployed; a Debug build carries about a third more IL.
+            Skip = "the step budget is measured on the Release build: dotnet test -c Release";
         }
     }
 }
