@@ -15,5 +15,6 @@ var root = new RootCommand(
     BenchCommand.Create(),
     SimulateCommand.Create(),
     CalibrateCommand.Create(),
+    CrossCheckCommand.Create(),
 };
 return await root.Parse(args).InvokeAsync(new InvocationConfiguration { Output = Console.Out, Error = Console.Error });

@@ -1,17 +1,18 @@
 using System.Globalization;
-using System.Text;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.CrossCheck;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Simulation;
 using LaunchLogger.Simulation.Scenarios;
+using LaunchLogger.Simulation.Sensors;
 
 namespace LaunchLogger.Decoding.Tests.CrossCheck;
 
 /// <summary>One simulated drive recorded twice: by the box (our log) and by a satellite receiver
-/// writing NMEA 0183 at 10 or 20 Hz on its own clock, with speed and position noise. The receiver's
-/// record is written from the simulator's truth, not from our reconstruction.</summary>
+/// writing NMEA 0183 at 10 or 20 Hz on its own clock, with speed noise 0.05 m/s, position noise
+/// 0.5 m and one GGA in 40 damaged. The receiver's record is written from the simulator's truth,
+/// not from our reconstruction.</summary>
 public sealed class CrossCheckerTests
 {
     // Their clock reads ours plus this (so our time = theirs + OffsetS with OffsetS = −this).
@@ -31,8 +32,11 @@ public sealed class CrossCheckerTests
     [InlineData(20, 2)]
     public void The_clock_offset_is_recovered_and_every_figure_agrees_within_the_combined_uncertainty(int rateHz, int seed)
     {
-        SpeedTrace theirs = NmeaTraceReader.Read(new StringReader(Receiver(Drive.Value.Truth, rateHz, seed)), "receiver.nmea");
+        string nmea = new SatelliteReceiver { RateHz = rateHz, ClockAheadS = TheirClockAheadS, DamageEveryGga = 40 }.WriteNmea(Drive.Value.Truth, seed);
+        SpeedTrace theirs = NmeaTraceReader.Read(new StringReader(nmea), "receiver.nmea");
         CrossCheckResult result = CrossChecker.Compare(Ours.Value, theirs, speedSigmaMps: 0.05);
+
+        Assert.True(result.RecordsRejected > 0, "the damaged GGA sentences are counted");
 
         // Goal: the offset within 5 ms of the truth.
         Assert.InRange(result.Alignment.OffsetS - (-TheirClockAheadS), -0.005, 0.005);
@@ -59,51 +63,4 @@ public sealed class CrossCheckerTests
         var e = Assert.Throws<LaunchLogger.Decoding.Import.InputException>(() => CrossChecker.Compare(Ours.Value, theirs));
         Assert.Contains("does not cover the whole run", e.Message, StringComparison.Ordinal);
     }
-
-    /// <summary>GGA, RMC and VTG each epoch; speed noise 0.05 m/s, positions with 0.5 m noise
-    /// along a straight strip heading north-east; one sentence in 40 damaged.</summary>
-    private static string Receiver(Trajectory truth, int rateHz, int seed)
-    {
-        var random = new Random(seed);
-        var text = new StringBuilder();
-        double period = 1.0 / rateHz;
-        double firstTheirs = Math.Ceiling((truth.TimeS[0] + TheirClockAheadS) * rateHz) / rateHz;
-        double lastTheirs = truth.TimeS[^1] + TheirClockAheadS;
-        const double lat0 = 48.1, lon0 = 11.5, heading = Math.PI / 4;
-        int line = 0;
-        for (int k = 0; firstTheirs + (k * period) <= lastTheirs; k++)
-        {
-            double theirsS = Math.Round((firstTheirs + (k * period)) * rateHz) / rateHz;
-            double oursS = theirsS - TheirClockAheadS;
-            double speed = Math.Max(0, truth.ValueAt(truth.SpeedMps, oursS) + (0.05 * Gaussian(random)));
-            double along = truth.ValueAt(truth.DistanceM, oursS);
-            double north = (along * Math.Cos(heading)) + (0.5 * Gaussian(random));
-            double east = (along * Math.Sin(heading)) + (0.5 * Gaussian(random));
-            double lat = lat0 + (north / GeoProjection.EarthRadiusM * 180 / Math.PI);
-            double lon = lon0 + (east / (GeoProjection.EarthRadiusM * Math.Cos(lat0 * Math.PI / 180)) * 180 / Math.PI);
-            int h = (int)(theirsS / 3600) % 24;
-            int m = (int)(theirsS / 60) % 60;
-            double s = theirsS % 60;
-            string clock = string.Create(CultureInfo.InvariantCulture, $"{h:00}{m:00}{s:00.00}");
-            string position = string.Create(CultureInfo.InvariantCulture, $"{(int)lat:00}{(lat - (int)lat) * 60:00.000000},N,{(int)lon:000}{(lon - (int)lon) * 60:00.000000},E");
-            double knots = speed * 3600 / 1852;
-            string[] sentences =
-            [
-                Nmea.Sentence($"GNGGA,{clock},{position},1,12,0.8,500.0,M,47.0,M,,"),
-                Nmea.Sentence(string.Create(CultureInfo.InvariantCulture, $"GNRMC,{clock},A,{position},{knots:0.000},45.0,030326,,,A")),
-                Nmea.Sentence(string.Create(CultureInfo.InvariantCulture, $"GNVTG,45.0,T,,M,{knots:0.000},N,{speed * 3.6:0.000},K,A")),
-            ];
-            foreach (string sentence in sentences)
-            {
-                // Damage a GGA now and then (never the speed sentences, so every epoch keeps a speed).
-                bool damage = sentence.StartsWith("$GNGGA", StringComparison.Ordinal) && ++line % 40 == 0;
-                text.Append(damage ? sentence.Replace(",1,12,", ",1,13,", StringComparison.Ordinal) : sentence).Append('\n');
-            }
-        }
-
-        return text.ToString();
-    }
-
-    private static double Gaussian(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }
