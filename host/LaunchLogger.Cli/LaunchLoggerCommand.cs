@@ -19,6 +19,7 @@ public static class LaunchLoggerCommand
         BenchCommand.Create(),
         SimulateCommand.Create(),
         CalibrateCommand.Create(),
+        CrossCheckCommand.Create(),
     };
 
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>

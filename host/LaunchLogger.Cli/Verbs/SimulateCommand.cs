@@ -3,6 +3,7 @@ using System.Globalization;
 using LaunchLogger.Cli.Output;
 using LaunchLogger.Simulation;
 using LaunchLogger.Simulation.Scenarios;
+using LaunchLogger.Simulation.Sensors;
 using LaunchLogger.Simulation.Truth;
 
 namespace LaunchLogger.Cli.Verbs;
@@ -23,9 +24,11 @@ public static class SimulateCommand
         var output = new Option<FileInfo?>("--out") { Description = "Where to write the log, e.g. RUN.log (required unless --list)." };
         var truth = new Option<FileInfo?>("--truth") { Description = "Where to write the ground truth as JSON (optional)." };
         var list = new Option<bool>("--list") { Description = "List the built-in scenarios and exit." };
+        var receiver = new Option<FileInfo?>("--receiver-nmea") { Description = "Also write what a satellite receiver in the car would log (NMEA 0183, on its own clock), for trying crosscheck." };
+        var receiverRate = new Option<double>("--receiver-rate") { Description = "The receiver's epochs per second.", DefaultValueFactory = _ => 10 };
         var command = new Command("simulate", "Simulate a car and the box's sensors, run them through the firmware core, and write the log and the truth.")
         {
-            scenario, seed, output, truth, list,
+            scenario, seed, output, truth, list, receiver, receiverRate,
         };
         command.SetAction((parse, cancellationToken) => Task.FromResult((int)Run(
             parse.GetValue(scenario) ?? BuiltInScenarios.DefaultName,
@@ -35,7 +38,9 @@ public static class SimulateCommand
             parse.GetValue(list),
             parse.InvocationConfiguration.Output,
             parse.InvocationConfiguration.Error,
-            cancellationToken)));
+            cancellationToken,
+            parse.GetValue(receiver)?.FullName,
+            parse.GetValue(receiverRate))));
         return command;
     }
 
@@ -48,9 +53,17 @@ public static class SimulateCommand
     /// <param name="output">Receives the summary.</param>
     /// <param name="error">Receives one-line errors.</param>
     /// <param name="cancellationToken">Stops the simulation.</param>
+    /// <param name="receiverPath">Where to write a simulated satellite receiver's NMEA log, or null.</param>
+    /// <param name="receiverRateHz">That receiver's epochs per second.</param>
     public static ExitCode Run(string scenarioNameOrFile, int seed, string? logPath, string? truthPath, bool listOnly,
-        TextWriter output, TextWriter error, CancellationToken cancellationToken = default)
+        TextWriter output, TextWriter error, CancellationToken cancellationToken = default, string? receiverPath = null, double receiverRateHz = 10)
     {
+        if (!(receiverRateHz >= 1 && receiverRateHz <= 100))
+        {
+            error.WriteLine("simulate: --receiver-rate must be from 1 to 100 epochs per second");
+            return ExitCode.Usage;
+        }
+
         if (listOnly)
         {
             foreach (Scenario s in BuiltInScenarios.Scenarios)
@@ -73,7 +86,7 @@ public static class SimulateCommand
             return ExitCode.BadInput;
         }
 
-        foreach (string? path in new[] { logPath, truthPath })
+        foreach (string? path in new[] { logPath, truthPath, receiverPath })
         {
             string? folder = path is null ? null : Path.GetDirectoryName(path);
             if (!string.IsNullOrEmpty(folder) && !Directory.Exists(folder))
@@ -100,6 +113,12 @@ public static class SimulateCommand
             files.Add((truthPath, stream => TruthJson.Write(result, stream)));
         }
 
+        if (receiverPath != null)
+        {
+            string nmea = new SatelliteReceiver { RateHz = receiverRateHz }.WriteNmea(result.Truth, seed);
+            files.Add((receiverPath, stream => stream.Write(System.Text.Encoding.ASCII.GetBytes(nmea))));
+        }
+
         try
         {
             AtomicFile.WriteAll(files);
@@ -110,7 +129,7 @@ public static class SimulateCommand
             return ExitCode.BadInput;
         }
 
-        Summarise(result, logPath, truthPath, output);
+        Summarise(result, logPath, truthPath, receiverPath, output);
         return ExitCode.Ok;
     }
 
@@ -141,7 +160,7 @@ public static class SimulateCommand
         }
     }
 
-    private static void Summarise(SimulationResult result, string logPath, string? truthPath, TextWriter output)
+    private static void Summarise(SimulationResult result, string logPath, string? truthPath, string? receiverPath, TextWriter output)
     {
         TruthEvents e = result.Events;
         CultureInfo inv = CultureInfo.InvariantCulture;
@@ -151,6 +170,11 @@ public static class SimulateCommand
         if (truthPath != null)
         {
             output.WriteLine($"  truth  {truthPath}");
+        }
+
+        if (receiverPath != null)
+        {
+            output.WriteLine($"  satellite receiver (NMEA 0183) {receiverPath}");
         }
 
         output.WriteLine($"  first motion {S(e.FirstMotionS)} s, rollout {S(e.RolloutS)} s at {S(e.RolloutSpeedMps, "F3")} m/s (box clock)");

@@ -80,6 +80,41 @@ internal sealed class CsvTable : IDisposable
         }
     }
 
+    /// <summary>Opens a table whose header may hold any columns, as long as it names every one
+    /// of <paramref name="required"/> (matched ignoring case and spaces around names).</summary>
+    /// <exception cref="InputException">No header, or a required column missing.</exception>
+    public static CsvTable OpenNamed(TextReader text, string file, IReadOnlyCollection<string> required)
+    {
+        CsvReader reader = CsvReader.Create(text, Options, leaveOpen: false);
+        try
+        {
+            Wrap(file, () => reader.ReadHeader());
+            string[] header = reader.Headers.Select(h => h.Trim().ToLowerInvariant()).ToArray();
+            if (header.Length == 0)
+            {
+                throw new InputException(file, 0, $"no header line: expected columns {string.Join(',', required)}");
+            }
+
+            foreach (string name in required)
+            {
+                if (Array.IndexOf(header, name.Trim().ToLowerInvariant()) < 0)
+                {
+                    throw new InputException(file, (int)reader.LineNumber, $"no column '{name}' in the header '{string.Join(',', reader.Headers)}'");
+                }
+            }
+
+            return new CsvTable(reader, file, header, (int)reader.LineNumber);
+        }
+        catch
+        {
+            reader.Dispose();
+            throw;
+        }
+    }
+
+    /// <summary>The index of the column named <paramref name="name"/> (ignoring case), or -1.</summary>
+    public int ColumnIndex(string name) => Array.IndexOf(Columns.ToArray(), name.Trim().ToLowerInvariant());
+
     /// <summary>Moves to the next data row and checks it has one cell per column.</summary>
     /// <exception cref="InputException">Malformed quoting or a wrong number of cells.</exception>
     public bool Read()
