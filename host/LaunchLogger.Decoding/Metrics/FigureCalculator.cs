@@ -28,33 +28,36 @@ public static class FigureCalculator
     /// <param name="firstMotionS">First motion, s, with its σ.</param>
     /// <param name="rolloutDistanceM">The rollout distance, m (0.3048 by default).</param>
     /// <param name="request">Which figures; <see cref="FigureRequest.Standard"/> when null.</param>
+    /// <param name="standingStart">False when the trajectory opens moving (no rest was seen before
+    /// the motion): then no standing-start figure exists (standing intervals, distance marks and
+    /// the rollout are null), and a rolling interval counts only from a real crossing of its lower
+    /// speed, never from a speed the trajectory already had at its start.</param>
     /// <param name="brakeOnsetS">Brake onset, when known: nothing reached after it is an
     /// acceleration figure.</param>
     /// <exception cref="ArgumentException">The trajectory is malformed.</exception>
     /// <remarks>Marks and intervals are acceleration figures: one reached after the acceleration
     /// ended (<see cref="AccelerationEnd"/>: brake onset, or the car already slowing from its top
     /// speed) is null, so no trap is timed while braking or coasting.</remarks>
-    public static FigureSet Compute(Trajectory trajectory, Estimate firstMotionS, double rolloutDistanceM = Units.RolloutM, FigureRequest? request = null, double? brakeOnsetS = null)
+    public static FigureSet Compute(Trajectory trajectory, Estimate firstMotionS, double rolloutDistanceM = Units.RolloutM, FigureRequest? request = null, bool standingStart = true, double? brakeOnsetS = null)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         trajectory.Validate();
         request ??= FigureRequest.Standard;
         int start = FirstIndexAtOrAfter(trajectory.TimeS, firstMotionS.Value);
         double endS = AccelerationEnd(trajectory, start, brakeOnsetS);
-
-        Estimate? rollout = DistanceCrossing(trajectory, start, rolloutDistanceM, endS);
+        Estimate? rollout = standingStart ? DistanceCrossing(trajectory, start, rolloutDistanceM, endS) : null;
         Estimate? rolloutSpeed = rollout is { } r ? At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, r.Value) : null;
 
         var intervals = new List<IntervalFigure>(request.SpeedIntervals.Count);
         foreach (SpeedInterval interval in request.SpeedIntervals)
         {
-            intervals.Add(TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval));
+            intervals.Add(standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, endS, interval));
         }
 
         var marks = new List<MarkFigure>(request.DistanceMarks.Count);
         foreach (DistanceMark mark in request.DistanceMarks)
         {
-            marks.Add(TimeMark(trajectory, start, endS, firstMotionS, rollout, mark));
+            marks.Add(standingStart ? TimeMark(trajectory, start, endS, firstMotionS, rollout, mark) : new MarkFigure(mark, null, null, null, null, null, null, null));
         }
 
         double peak = 0;
@@ -65,7 +68,7 @@ public static class FigureCalculator
             maxSpeed = Math.Max(maxSpeed, trajectory.SpeedMps[i]);
         }
 
-        double? zeroTo60 = TimeInterval(trajectory, start, endS, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS;
+        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS : null;
         return new FigureSet
         {
             FirstMotionS = firstMotionS,
@@ -168,6 +171,18 @@ public static class FigureCalculator
         double? fromRollout = rollout is { } r ? e.Value - r.Value : null;
         double? rolloutSigma = rollout is { } r2 ? Hypot(e.Sigma, r2.Sigma) : null;
         return new IntervalFigure(interval, fromStandstill, fromRollout, Hypot(e.Sigma, firstMotion.Sigma), rolloutSigma);
+    }
+
+    /// <summary>A rolling interval of a trajectory that opens moving: timed only when the speed
+    /// at the start is below the interval's lower speed, so that both ends are real crossings.</summary>
+    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, double endS, SpeedInterval interval)
+    {
+        if (interval.IsStanding || trajectory.SpeedMps[start] >= interval.FromMps)
+        {
+            return new IntervalFigure(interval, null, null, null, null);
+        }
+
+        return TimeInterval(trajectory, start, endS, new Estimate(trajectory.TimeS[start], 0), null, interval);
     }
 
     private static MarkFigure TimeMark(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, DistanceMark mark)

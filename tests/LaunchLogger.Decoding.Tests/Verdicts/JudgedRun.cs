@@ -78,7 +78,7 @@ internal static class JudgedRun
     };
 
     /// <summary>A copy of <paramref name="rec"/> with some properties changed.</summary>
-    public static ReconstructedRun Copy(ReconstructedRun rec, string? method = null, IReadOnlyList<TimeWindow>? wheelspin = null, IReadOnlyList<TimeWindow>? slides = null, int? distanceChannel = null) => new()
+    public static ReconstructedRun Copy(ReconstructedRun rec, string? method = null, IReadOnlyList<TimeWindow>? wheelspin = null, IReadOnlyList<TimeWindow>? slides = null, int? distanceChannel = null, bool? staged = null) => new()
     {
         Source = rec.Source,
         Trajectory = rec.Trajectory,
@@ -89,6 +89,8 @@ internal static class JudgedRun
         Method = method ?? rec.Method,
         Warnings = rec.Warnings,
         DistanceChannel = distanceChannel ?? rec.DistanceChannel,
+        Staged = staged ?? rec.Staged,
+        StartSpeedMps = rec.StartSpeedMps,
         WheelspinWindows = wheelspin ?? rec.WheelspinWindows,
         BrakingSlideWindows = slides ?? rec.BrakingSlideWindows,
     };

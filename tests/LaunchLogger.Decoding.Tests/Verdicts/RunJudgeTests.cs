@@ -23,7 +23,7 @@ public class RunJudgeTests
     [Fact]
     public void ARunOpenedWhileRollingIsInvalid()
     {
-        RunAnalysis run = JudgedRun.Clean(run: r => JudgedRun.Copy(r, configuration: r.Configuration with { Staged = false }));
+        RunAnalysis run = JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, staged: false));
         AssertOnly(run, "rolling_start", VerdictLevel.Invalid);
     }
 
