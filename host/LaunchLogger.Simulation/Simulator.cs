@@ -476,7 +476,7 @@ public static class Simulator
                 AccelMountYawDeg = accel is null ? null : scenario.Accelerometer.MountYawDeg,
             };
             FigureSet? figures = firstMotionS is { } fm
-                ? FigureCalculator.Compute(trajectory, new Estimate(fm + offsetS, 0), scenario.Box.RolloutM)
+                ? FigureCalculator.Compute(trajectory, new Estimate(fm + offsetS, 0), scenario.Box.RolloutM, brakeOnsetS: events.BrakeOnsetS)
                 : null;
             return new SimulationResult
             {

@@ -1,3 +1,4 @@
+using System.Text.Json;
 using LaunchLogger.Cli.Output;
 using LaunchLogger.Cli.Verbs;
 using LaunchLogger.Decoding.Reporting;
@@ -28,6 +29,34 @@ public class DemoCommandTests
     }
 
     [Fact]
+    public void TheDemosJsonIsValidAndWithinItsStatedSigmaOfTheTruthItWrote()
+    {
+        using var folder = new TempFolder();
+        Assert.Equal(ExitCode.Ok, DemoCommand.Run("roadster-launch", 1, folder.Path, DisplayUnits.Imperial, new StringWriter(), new StringWriter()));
+        JsonElement report = JsonDocument.Parse(File.ReadAllText(folder.File("roadster-launch-report.json"))).RootElement;
+        JsonElement truth = JsonDocument.Parse(File.ReadAllText(folder.File("roadster-launch-truth.json"))).RootElement;
+        JsonElement run = report.GetProperty("runs")[0];
+        JsonElement events = truth.GetProperty("events");
+
+        // A clean run: valid, with no reasons.
+        Assert.Equal("valid", run.GetProperty("verdict").GetProperty("level").GetString());
+        Assert.Equal(0, run.GetProperty("verdict").GetProperty("reasons").GetArrayLength());
+
+        // First motion and the rollout mark within 3σ of the truth, each σ as the report states it.
+        AssertWithin(run.GetProperty("first_motion_s").GetDouble() - events.GetProperty("first_motion_s").GetDouble(), 3 * run.GetProperty("first_motion_uncertainty_s").GetDouble());
+        JsonElement rollout = run.GetProperty("rollout");
+        AssertWithin(rollout.GetProperty("time_s").GetDouble() - events.GetProperty("rollout_s").GetDouble(), 3 * rollout.GetProperty("time_uncertainty_s").GetDouble());
+
+        // 0-60 mph against the truth's own figure: within 3σ plus the tyre's growth at speed as a
+        // fraction of the time (the box counts turns of a static circumference).
+        double growth = 0.004; // roadster-launch's tyre: 0.4 % at 30 m/s
+        JsonElement ours = Interval(run, "0-60 mph");
+        JsonElement real = Interval(truth.GetProperty("figures"), "0-60 mph");
+        double t = ours.GetProperty("from_standstill_s").GetDouble();
+        AssertWithin(t - real.GetProperty("from_standstill_s").GetDouble(), (3 * ours.GetProperty("uncertainty_s").GetDouble()) + (growth * t));
+    }
+
+    [Fact]
     public void AnUnknownScenarioIsAUsageErrorAndWritesNothing()
     {
         using var folder = new TempFolder();
@@ -36,4 +65,9 @@ public class DemoCommandTests
         Assert.Contains("unknown scenario", error.ToString());
         Assert.Empty(Directory.GetFiles(folder.Path));
     }
+
+    private static JsonElement Interval(JsonElement figures, string label) =>
+        figures.GetProperty("speed_intervals").EnumerateArray().Single(i => i.GetProperty("label").GetString() == label);
+
+    private static void AssertWithin(double error, double tolerance) => Assert.InRange(error, -tolerance, tolerance);
 }

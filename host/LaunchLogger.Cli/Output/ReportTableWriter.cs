@@ -48,8 +48,13 @@ public static class ReportTableWriter
         {
             console.WriteLine();
             console.MarkupLine(Markup.Escape(FormattableString.Invariant(
-                $"Braking grip bound: the best stop ({b.Source}, mean {Format.Accel(b.MeanDecelMps2)}) allows 0-60 mph in no less than {b.Bound060S:0.000} s and 0-100 km/h in no less than {b.Bound0100KmhS:0.000} s.")));
+                $"Braking grip bound: the stop at the grip limit ({b.Source}, mean {Format.Accel(b.MeanDecelMps2)}; {b.Why}) allows 0-60 mph in no less than {b.Bound060S:0.000} s and 0-100 km/h in no less than {b.Bound0100KmhS:0.000} s.")));
             console.MarkupLine("[dim]" + Markup.Escape("Caveats: " + b.Caveats + ".") + "[/]");
+        }
+        else if (document.Runs.Any(r => r.Braking is not null))
+        {
+            console.WriteLine();
+            console.MarkupLine(Markup.Escape("Braking grip bound: none. No stop was at the grip limit (no wheel seen sliding, no deceleration plateau, none named with --brake-reference), so the stops are reported but bound no launch."));
         }
     }
 
@@ -117,7 +122,9 @@ public static class ReportTableWriter
         grid.AddRow("Mean deceleration", Format.Accel(b.MeanDecelMps2));
         grid.AddRow("MFDD (UN R13)", Format.Accel(b.MfddMps2));
         grid.AddRow("Peak deceleration", Format.Accel(b.PeakDecelMps2));
-        grid.AddRow("Grip bound", FormattableString.Invariant($"0-60 mph ≥ {b.TractionBound060S:0.000} s, 0-100 km/h ≥ {b.TractionBound0100KmhS:0.000} s"));
+        grid.AddRow("Grip bound", b.GripLimit is { } grip
+            ? Markup.Escape(FormattableString.Invariant($"0-60 mph ≥ {b.TractionBound060S:0.000} s, 0-100 km/h ≥ {b.TractionBound0100KmhS:0.000} s (at the grip limit: {grip.Why})"))
+            : "[dim]none: nothing shows this stop was at the grip limit, so it bounds no launch[/]");
         console.Write(grid);
     }
 

@@ -30,7 +30,7 @@ public static class ReportCommand
         var rollout = new Option<double?>("--rollout-m") { Description = "Rollout distance, m (default: the box's setting, normally 0.3048)." };
         var weather = new Option<string?>("--weather") { Description = "Weather during the runs: T_C,P_hPa,RH_pct (station pressure), e.g. 18.5,1008,62; adds figures corrected to standard air." };
         var pair = new Option<string[]>("--pair") { Description = "Two runs driven in opposite directions, by their index in this report, e.g. 1,2 (repeatable); adds their mean." };
-        var brakeReference = new Option<FileInfo?>("--brake-reference") { Description = "A log with a stop whose braking grip bounds every launch (default: the best stop among the runs reported)." };
+        var brakeReference = new Option<FileInfo?>("--brake-reference") { Description = "A log with a stop made at the grip limit, whose braking grip bounds every launch (without it, only stops among the runs reported that show the limit bound them: a sliding wheel or a deceleration plateau)." };
         var stopFrom = new Option<string[]>("--stop-from") { Description = "Extra nominal speed to correct stopping distances to, e.g. 50mph (repeatable; 60 mph and 100 km/h always)." };
         var settings = new Option<FileInfo?>("--settings") { Description = "Calibration settings file from launchlogger calibrate: its circumference replaces the logs' and its mounting pitch feeds the grade estimate." };
         var command = new Command("report", "Rebuild each run and report its figures from standstill and after the rollout.")

@@ -7,7 +7,8 @@ namespace LaunchLogger.Decoding.Analysis;
 public static class SessionAnalyzer
 {
     /// <summary>Analyses <paramref name="runs"/>; <paramref name="referenceStops"/> are runs
-    /// from a braking reference log whose stops also bound the launches.</summary>
+    /// from a braking reference log whose stops the user names as made at the grip limit; they
+    /// bound the launches together with any stop among <paramref name="runs"/> that shows the limit.</summary>
     public static SessionAnalysis Analyze(IEnumerable<DecodedRun> runs, AnalysisOptions? options = null, IEnumerable<DecodedRun>? referenceStops = null, CancellationToken cancel = default)
     {
         options ??= AnalysisOptions.Default;
@@ -39,21 +40,14 @@ public static class SessionAnalyzer
             }
         }
 
-        TractionBound? bound = BestBound(references.Count > 0 ? references : analyses);
+        // Only a stop at the grip limit bounds the launches: one the user named, or one that shows
+        // the limit in its data. A gentle stop shows what the driver asked for, not the grip.
+        TractionBound? bound = GripLimit.BestBound(analyses, references, options.Limits);
         return new SessionAnalysis
         {
             Runs = analyses.Select(a => a.WithVerdict(RunJudge.Judge(a, a.Grade, bound, options.Limits))).ToList(),
             Bound = bound,
             Failures = failures,
         };
-    }
-
-    /// <summary>The bound of the stop with the highest mean deceleration (the best grip shown).</summary>
-    public static TractionBound? BestBound(IEnumerable<RunAnalysis> analyses)
-    {
-        RunAnalysis? best = analyses.Where(a => a.Braking is not null).MaxBy(a => a.Braking!.MeanDecelMps2);
-        return best?.Braking is { } b
-            ? new TractionBound(best.Run.Source, b.MeanDecelMps2, b.TractionBound0To60S, b.TractionBound0To100KmhS)
-            : null;
     }
 }

@@ -19,6 +19,10 @@ public static class FigureCalculator
 {
     private const double MinimumSlope = 1e-3;
 
+    /// <summary>Speed within this of the top speed still counts as the top speed (a car holding its
+    /// top speed is not yet coasting), m/s; widened by 3σ of the speed there.</summary>
+    public const double TopSpeedToleranceMps = 0.1;
+
     /// <summary>Computes the figures.</summary>
     /// <param name="trajectory">Distance 0 at first motion; times on the input's axis.</param>
     /// <param name="firstMotionS">First motion, s, with its σ.</param>
@@ -28,26 +32,32 @@ public static class FigureCalculator
     /// the motion): then no standing-start figure exists (standing intervals, distance marks and
     /// the rollout are null), and a rolling interval counts only from a real crossing of its lower
     /// speed, never from a speed the trajectory already had at its start.</param>
+    /// <param name="brakeOnsetS">Brake onset, when known: nothing reached after it is an
+    /// acceleration figure.</param>
     /// <exception cref="ArgumentException">The trajectory is malformed.</exception>
-    public static FigureSet Compute(Trajectory trajectory, Estimate firstMotionS, double rolloutDistanceM = Units.RolloutM, FigureRequest? request = null, bool standingStart = true)
+    /// <remarks>Marks and intervals are acceleration figures: one reached after the acceleration
+    /// ended (<see cref="AccelerationEnd"/>: brake onset, or the car already slowing from its top
+    /// speed) is null, so no trap is timed while braking or coasting.</remarks>
+    public static FigureSet Compute(Trajectory trajectory, Estimate firstMotionS, double rolloutDistanceM = Units.RolloutM, FigureRequest? request = null, bool standingStart = true, double? brakeOnsetS = null)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         trajectory.Validate();
         request ??= FigureRequest.Standard;
         int start = FirstIndexAtOrAfter(trajectory.TimeS, firstMotionS.Value);
-        Estimate? rollout = standingStart ? DistanceCrossing(trajectory, start, rolloutDistanceM) : null;
+        double endS = AccelerationEnd(trajectory, start, brakeOnsetS);
+        Estimate? rollout = standingStart ? DistanceCrossing(trajectory, start, rolloutDistanceM, endS) : null;
         Estimate? rolloutSpeed = rollout is { } r ? At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, r.Value) : null;
 
         var intervals = new List<IntervalFigure>(request.SpeedIntervals.Count);
         foreach (SpeedInterval interval in request.SpeedIntervals)
         {
-            intervals.Add(standingStart ? TimeInterval(trajectory, start, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, interval));
+            intervals.Add(standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, endS, interval));
         }
 
         var marks = new List<MarkFigure>(request.DistanceMarks.Count);
         foreach (DistanceMark mark in request.DistanceMarks)
         {
-            marks.Add(standingStart ? TimeMark(trajectory, start, firstMotionS, rollout, mark) : new MarkFigure(mark, null, null, null, null, null, null, null));
+            marks.Add(standingStart ? TimeMark(trajectory, start, endS, firstMotionS, rollout, mark) : new MarkFigure(mark, null, null, null, null, null, null, null));
         }
 
         double peak = 0;
@@ -58,7 +68,7 @@ public static class FigureCalculator
             maxSpeed = Math.Max(maxSpeed, trajectory.SpeedMps[i]);
         }
 
-        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS : null;
+        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS : null;
         return new FigureSet
         {
             FirstMotionS = firstMotionS,
@@ -74,15 +84,54 @@ public static class FigureCalculator
         };
     }
 
+    /// <summary>Where the acceleration ends: the last moment the speed is still at its top
+    /// (within <see cref="TopSpeedToleranceMps"/> and 3σ), or brake onset if that is earlier.</summary>
+    /// <param name="trajectory">The trajectory.</param>
+    /// <param name="start">Index of first motion.</param>
+    /// <param name="brakeOnsetS">Brake onset, when known.</param>
+    public static double AccelerationEnd(Trajectory trajectory, int start, double? brakeOnsetS = null)
+    {
+        ArgumentNullException.ThrowIfNull(trajectory);
+        double[] t = trajectory.TimeS;
+        double[] v = trajectory.SpeedMps;
+        if (t.Length == 0)
+        {
+            return double.PositiveInfinity;
+        }
+
+        int top = start;
+        for (int i = start; i < v.Length; i++)
+        {
+            if (v[i] > v[top])
+            {
+                top = i;
+            }
+        }
+
+        double floor = v[top] - TopSpeedToleranceMps - (3 * (trajectory.SpeedSigmaMps?[top] ?? 0));
+        int last = top;
+        for (int i = v.Length - 1; i > top; i--)
+        {
+            if (v[i] >= floor)
+            {
+                last = i;
+                break;
+            }
+        }
+
+        double end = last == v.Length - 1 ? double.PositiveInfinity : t[last];
+        return brakeOnsetS is { } onset && onset < end ? onset : end;
+    }
+
     /// <summary>The first time after sample <paramref name="start"/> at which the speed reaches
     /// <paramref name="speedMps"/>, with its σ; null when it never does.</summary>
-    public static Estimate? SpeedCrossing(Trajectory trajectory, int start, double speedMps) =>
-        Crossing(trajectory, start, trajectory.SpeedMps, trajectory.SpeedSigmaMps, trajectory.AccelMps2, speedMps);
+    public static Estimate? SpeedCrossing(Trajectory trajectory, int start, double speedMps, double endS = double.PositiveInfinity) =>
+        Crossing(trajectory, start, trajectory.SpeedMps, trajectory.SpeedSigmaMps, trajectory.AccelMps2, speedMps, endS);
 
     /// <summary>The first time after sample <paramref name="start"/> at which the distance
     /// reaches <paramref name="distanceM"/>, with its σ; null when it never does.</summary>
-    public static Estimate? DistanceCrossing(Trajectory trajectory, int start, double distanceM) =>
-        Crossing(trajectory, start, trajectory.DistanceM, trajectory.DistanceSigmaM, trajectory.SpeedMps, distanceM);
+    public static Estimate? DistanceCrossing(Trajectory trajectory, int start, double distanceM, double endS = double.PositiveInfinity) =>
+        Crossing(trajectory, start, trajectory.DistanceM, trajectory.DistanceSigmaM, trajectory.SpeedMps, distanceM, endS);
 
     /// <summary>Index of the first sample at or after <paramref name="timeS"/> (the last sample
     /// when none is).</summary>
@@ -97,9 +146,9 @@ public static class FigureCalculator
         return Math.Min(i, Math.Max(0, timeS.Length - 1));
     }
 
-    private static IntervalFigure TimeInterval(Trajectory trajectory, int start, Estimate firstMotion, Estimate? rollout, SpeedInterval interval)
+    private static IntervalFigure TimeInterval(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, SpeedInterval interval)
     {
-        Estimate? end = SpeedCrossing(trajectory, start, interval.ToMps);
+        Estimate? end = SpeedCrossing(trajectory, start, interval.ToMps, endS);
         if (end is not { } e)
         {
             return new IntervalFigure(interval, null, null, null, null);
@@ -107,7 +156,7 @@ public static class FigureCalculator
 
         if (!interval.IsStanding)
         {
-            Estimate? begin = SpeedCrossing(trajectory, start, interval.FromMps);
+            Estimate? begin = SpeedCrossing(trajectory, start, interval.FromMps, endS);
             if (begin is not { } b)
             {
                 return new IntervalFigure(interval, null, null, null, null);
@@ -126,19 +175,19 @@ public static class FigureCalculator
 
     /// <summary>A rolling interval of a trajectory that opens moving: timed only when the speed
     /// at the start is below the interval's lower speed, so that both ends are real crossings.</summary>
-    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, SpeedInterval interval)
+    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, double endS, SpeedInterval interval)
     {
         if (interval.IsStanding || trajectory.SpeedMps[start] >= interval.FromMps)
         {
             return new IntervalFigure(interval, null, null, null, null);
         }
 
-        return TimeInterval(trajectory, start, new Estimate(trajectory.TimeS[start], 0), null, interval);
+        return TimeInterval(trajectory, start, endS, new Estimate(trajectory.TimeS[start], 0), null, interval);
     }
 
-    private static MarkFigure TimeMark(Trajectory trajectory, int start, Estimate firstMotion, Estimate? rollout, DistanceMark mark)
+    private static MarkFigure TimeMark(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, DistanceMark mark)
     {
-        Estimate? at = DistanceCrossing(trajectory, start, mark.DistanceM);
+        Estimate? at = DistanceCrossing(trajectory, start, mark.DistanceM, endS);
         if (at is not { } a)
         {
             return new MarkFigure(mark, null, null, null, null, null, null, null);
@@ -147,7 +196,7 @@ public static class FigureCalculator
         Estimate speed = At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, a.Value);
         double? trap = null;
         double? trapSigma = null;
-        if (mark.TrapLengthM is { } length && DistanceCrossing(trajectory, start, mark.DistanceM - length) is { } trapStart && a.Value > trapStart.Value)
+        if (mark.TrapLengthM is { } length && DistanceCrossing(trajectory, start, mark.DistanceM - length, endS) is { } trapStart && a.Value > trapStart.Value)
         {
             trap = length / (a.Value - trapStart.Value);
             Estimate speedAtStart = At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, trapStart.Value);
@@ -168,11 +217,16 @@ public static class FigureCalculator
             trapSigma);
     }
 
-    private static Estimate? Crossing(Trajectory trajectory, int start, double[] values, double[]? sigmas, double[] slopes, double target)
+    private static Estimate? Crossing(Trajectory trajectory, int start, double[] values, double[]? sigmas, double[] slopes, double target, double endS)
     {
         double[] t = trajectory.TimeS;
         for (int i = Math.Max(start, 1); i < values.Length; i++)
         {
+            if (t[i - 1] > endS)
+            {
+                return null;
+            }
+
             if (values[i] < target)
             {
                 continue;
@@ -181,14 +235,14 @@ public static class FigureCalculator
             if (values[i - 1] >= target || i == start)
             {
                 // Already at or past the target at the first sample considered.
-                return new Estimate(t[i], sigmas is null ? 0 : sigmas[i] / Math.Max(Math.Abs(slopes[i]), MinimumSlope));
+                return t[i] > endS ? null : new Estimate(t[i], sigmas is null ? 0 : sigmas[i] / Math.Max(Math.Abs(slopes[i]), MinimumSlope));
             }
 
             double f = (target - values[i - 1]) / (values[i] - values[i - 1]);
             double time = t[i - 1] + (f * (t[i] - t[i - 1]));
             double slope = slopes[i - 1] + (f * (slopes[i] - slopes[i - 1]));
             double sigma = sigmas is null ? 0 : (sigmas[i - 1] + (f * (sigmas[i] - sigmas[i - 1]))) / Math.Max(Math.Abs(slope), MinimumSlope);
-            return new Estimate(time, sigma);
+            return time > endS ? null : new Estimate(time, sigma);
         }
 
         return null;

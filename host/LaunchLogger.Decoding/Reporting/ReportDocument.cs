@@ -54,9 +54,21 @@ public sealed record TractionBoundReport
     [JsonPropertyName("bound_0_100_kmh_s")]
     public required double Bound0100KmhS { get; init; }
 
+    /// <summary>Why that stop counts as one at the grip limit: <c>named_reference</c>,
+    /// <c>wheel_slide</c> or <c>deceleration_plateau</c>.</summary>
+    public required string Basis { get; init; }
+
+    /// <summary>The same, in words.</summary>
+    public required string Why { get; init; }
+
     /// <summary>What the bound does not account for.</summary>
     public required string Caveats { get; init; }
 }
+
+/// <summary>Why a stop counts as one at the grip limit.</summary>
+/// <param name="Basis"><c>named_reference</c>, <c>wheel_slide</c> or <c>deceleration_plateau</c>.</param>
+/// <param name="Why">The same, in words.</param>
+public sealed record GripLimitReport(string Basis, string Why);
 
 /// <summary>The weather and its consequences.</summary>
 public sealed record WeatherReport
@@ -289,6 +301,10 @@ public sealed record BrakingReport
 
     /// <summary>Mean fully developed deceleration (UN R13 / R13-H), m/s².</summary>
     public double? MfddMps2 { get; init; }
+
+    /// <summary>Why this stop was at the grip limit; null when nothing shows it was (a stop short
+    /// of the limit is reported but bounds no launch).</summary>
+    public GripLimitReport? GripLimit { get; init; }
 
     /// <summary>Best 0–60 mph the braking grip would allow, s.</summary>
     [JsonPropertyName("traction_bound_0_60_s")]

@@ -35,7 +35,9 @@ public static class RunReportBuilder
         {
             Index = index,
             Source = analysis.Run.Source,
-            Braking = analysis.Braking is { } b ? Braking(b) : null,
+            Braking = analysis.Braking is { } b
+                ? Braking(b) with { GripLimit = GripLimit.Assess(analysis, namedByUser: false) is { } e ? new GripLimitReport(e.Basis, e.Text) : null }
+                : null,
             Verdict = analysis.Verdict is { } v ? Verdict(v) : null,
             Grade = analysis.Grade is { } g ? new GradeReport { Percent = g.Percent, UncertaintyPercent = Math.Tan(g.SigmaRad) * 100, MountingCalibrated = g.MountingCalibrated } : null,
             Corrections = corrections,
@@ -58,6 +60,8 @@ public static class RunReportBuilder
                 MeanDecelMps2 = b.MeanDecelMps2,
                 Bound060S = b.Bound0To60S,
                 Bound0100KmhS = b.Bound0To100KmhS,
+                Basis = b.Basis,
+                Why = b.Why,
                 Caveats = TractionBound.Caveats,
             } : null,
             Weather = weather is null ? null : new WeatherReport

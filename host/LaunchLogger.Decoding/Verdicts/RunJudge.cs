@@ -82,14 +82,11 @@ public static class RunJudge
             reasons.Add(new(VerdictLevel.Doubtful, "target_not_reached", Invariant($"60 mph was not reached (top speed {figures.MaxSpeedMps / Units.MpsPerMph:0.0} mph)")));
         }
 
-        // The box interpolates linearly between pulses, so its mark can be off by the time it
-        // takes to cover one pulse at the rollout speed; only a larger difference means trouble.
-        double markTolerance = figures.RolloutSpeedMps is { Value: > 0 } vr
-            ? Math.Max(limits.RolloutDisagreementS, run.Configuration.MetresPerPulse / vr.Value)
-            : limits.RolloutDisagreementS;
-        if (run.FirmwareRolloutS is { } boxMark && figures.RolloutTimeS is { } ours && Math.Abs(boxMark - ours.Value) > markTolerance)
+        if (run.FirmwareRolloutS is { } boxMark && figures.RolloutTimeS is not null
+            && RolloutMarkWindow.For(analysis, limits) is { } window && !window.Contains(boxMark))
         {
-            reasons.Add(new(VerdictLevel.Doubtful, "rollout_marks_disagree", Invariant($"the box's rollout mark and ours differ by {(boxMark - ours.Value) * 1000:+0.0;-0.0} ms")));
+            double nearest = boxMark < window.StartS ? window.StartS : window.EndS;
+            reasons.Add(new(VerdictLevel.Doubtful, "rollout_marks_disagree", Invariant($"the box's rollout mark is {(boxMark - nearest) * 1000:+0.0;-0.0} ms outside the {window.StartS - figures.FirstMotionS.Value:0.000}–{window.EndS - figures.FirstMotionS.Value:0.000} s (after first motion) its pulse spacing and wheel slip allow")));
         }
 
         if (rec.Method == ReconstructionMethod.AccelerometerOnly)

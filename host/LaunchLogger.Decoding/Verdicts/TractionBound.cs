@@ -5,7 +5,9 @@ namespace LaunchLogger.Decoding.Verdicts;
 /// <param name="MeanDecelMps2">The stop's mean deceleration, m/s².</param>
 /// <param name="Bound0To60S">The bound on 0–60 mph, s.</param>
 /// <param name="Bound0To100KmhS">The bound on 0–100 km/h, s.</param>
-public sealed record TractionBound(string Source, double MeanDecelMps2, double Bound0To60S, double Bound0To100KmhS)
+/// <param name="Basis">Why the stop counts as one at the grip limit (see <see cref="GripEvidence.Basis"/>).</param>
+/// <param name="Why">The same, in words.</param>
+public sealed record TractionBound(string Source, double MeanDecelMps2, double Bound0To60S, double Bound0To100KmhS, string Basis, string Why)
 {
     /// <summary>What the bound does not account for, for reports.</summary>
     public const string Caveats =

@@ -21,4 +21,13 @@ public sealed record VerdictLimits
 
     /// <summary>Wheelspin on the pickup wheel longer than this makes a run doubtful, s.</summary>
     public double WheelspinS { get; init; } = 0.05;
+
+    /// <summary>Mean fully developed deceleration from which a flat-topped stop is taken to be at
+    /// the grip limit, m/s²: 0.8 g. Our choice: road tyres on dry asphalt give roughly 0.8–1.1 g
+    /// (common practice), while a driver's ordinary firm stop stays nearer 0.3–0.6 g.</summary>
+    public double GripPlateauMps2 { get; init; } = 0.8 * 9.80665;
+
+    /// <summary>The peak deceleration of a plateau stays within this factor of its mean fully
+    /// developed deceleration (a flat top, not a spike).</summary>
+    public double GripPlateauPeakRatio { get; init; } = 1.15;
 }

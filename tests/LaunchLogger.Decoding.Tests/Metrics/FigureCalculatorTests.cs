@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Decoding.Reconstruction;
 using UnitsNet;
 
 namespace LaunchLogger.Decoding.Tests.Metrics;
@@ -119,5 +120,82 @@ public class FigureCalculatorTests
     {
         var error = Assert.Throws<FormatException>(() => SpeedInterval.Parse(text));
         Assert.Contains(reason, error.Message);
+    }
+
+    [Fact]
+    public void NoMarkIsTimedWhileCoastingOrBraking()
+    {
+        // 4 m/s² from rest for 10 s (40 m/s, 200 m: kinematics), then 0.5 s of coasting at
+        // 0.4 m/s², then 8 m/s² of braking. 60 ft (18.3 m) and 100 m are reached under power; 660 ft
+        // (201.2 m) is reached 0.03 s into the coast, 1000 ft (304.8 m) only under the brakes.
+        Trajectory trajectory = LaunchCoastBrake(out double coastS, out double brakeS);
+        FigureSet figures = FigureCalculator.Compute(trajectory, new Estimate(0, 0));
+
+        Assert.Equal(Math.Sqrt(2 * 18.288 / 4), Mark(figures, "60 ft").FromStandstillS!.Value, 3);
+        Assert.Equal(Math.Sqrt(2 * 100 / 4.0), Mark(figures, "100 m").FromStandstillS!.Value, 3);
+        Assert.Equal(10 + (1.168 / 40), Mark(figures, "660 ft (1/8 mile)").FromStandstillS!.Value, 3);
+        Assert.Null(Mark(figures, "1000 ft").FromStandstillS);
+        Assert.Null(Mark(figures, "1000 ft").SpeedAtMarkMps);
+        Assert.Null(Mark(figures, "400 m").FromStandstillS);
+        Assert.Equal(40, figures.MaxSpeedMps, 6);
+
+        // Told of a brake onset before the top speed, the figures stop there.
+        FigureSet braked = FigureCalculator.Compute(trajectory, new Estimate(0, 0), brakeOnsetS: 6.0);
+        Assert.Null(Mark(braked, "100 m").FromStandstillS); // 100 m at 7.07 s
+        Assert.Equal(Math.Sqrt(2 * 18.288 / 4), Mark(braked, "60 ft").FromStandstillS!.Value, 3);
+        Assert.Null(braked.SpeedIntervals.Single(i => i.Interval.Label == "0-60 mph").FromStandstillS); // 60 mph at 6.71 s
+        Assert.Equal(6.0, FigureCalculator.AccelerationEnd(trajectory, 0, 6.0));
+        Assert.True(coastS < brakeS);
+    }
+
+    [Fact]
+    public void AccelerationEndsWhereTheSpeedLeavesItsTop()
+    {
+        Trajectory trajectory = LaunchCoastBrake(out double coastS, out _);
+
+        // The coast loses 0.4 m/s² · t: the 0.1 m/s tolerance is used up 0.25 s into it.
+        Assert.Equal(coastS + (FigureCalculator.TopSpeedToleranceMps / 0.4), FigureCalculator.AccelerationEnd(trajectory, 0), 2);
+
+        // A later onset changes nothing; a run that ends at its top speed never ends its acceleration.
+        Assert.Equal(FigureCalculator.AccelerationEnd(trajectory, 0), FigureCalculator.AccelerationEnd(trajectory, 0, 50.0));
+        Assert.Equal(double.PositiveInfinity, FigureCalculator.AccelerationEnd(ClosedFormTrajectory.ConstantAcceleration(4, 0, 10), 0));
+
+        // Holding the top speed is not coasting: a cruise keeps the acceleration phase open.
+        Trajectory cruise = ClosedFormTrajectory.ConstantAcceleration(4, 0, 10);
+        double[] v = cruise.SpeedMps;
+        int top = Array.IndexOf(cruise.TimeS, cruise.TimeS.First(t => t >= 5));
+        for (int i = top; i < v.Length; i++)
+        {
+            v[i] = v[top] - (0.05 * ((i - top) % 2)); // within the tolerance of the top speed
+        }
+
+        Assert.Equal(double.PositiveInfinity, FigureCalculator.AccelerationEnd(cruise, 0));
+    }
+
+    private static MarkFigure Mark(FigureSet figures, string label) => figures.DistanceMarks.Single(m => m.Mark.Label == label);
+
+    private static Trajectory LaunchCoastBrake(out double coastS, out double brakeS)
+    {
+        const double step = 0.001;
+        coastS = 10.0;
+        brakeS = 10.5;
+        var t = new List<double>();
+        var d = new List<double>();
+        var v = new List<double>();
+        var a = new List<double>();
+        double time = 0, dist = 0, speed = 0;
+        while (speed >= 0)
+        {
+            double acc = time < coastS ? 4 : time < brakeS ? -0.4 : -8;
+            t.Add(time);
+            d.Add(dist);
+            v.Add(speed);
+            a.Add(acc);
+            dist += (speed * step) + (0.5 * acc * step * step);
+            speed += acc * step;
+            time = Math.Round((time + step) * 1000) / 1000;
+        }
+
+        return new Trajectory { TimeS = [.. t], DistanceM = [.. d], SpeedMps = [.. v], AccelMps2 = [.. a] };
     }
 }

@@ -9,9 +9,9 @@ namespace LaunchLogger.Decoding.Tests.Reconstruction;
 /// <remarks>Unless a test says otherwise the data have 48 pulses per 1.96 m, exact edges with
 /// 0.5 % tooth spread, and a 1 kHz accelerometer with 0.04 m/s² noise, 1-mg steps, a 0.1 m/s²
 /// offset, 0.02 rad resting pitch and 1 mrad of squat per m/s² (<see cref="SyntheticRun"/>).
-/// Tolerances are the product's accuracy goals (first motion and 0–60 mph within 5 ms, rollout
-/// within 2 ms, trap speed within 0.05 m/s at the 95th percentile) unless a comment says why a
-/// case is held tighter or looser.</remarks>
+/// Tolerances are about three times the error measured on each case (the figure stands beside
+/// it), so a change of a millisecond to a timed figure fails; never wider than the product's
+/// accuracy goals (first motion and 0–60 mph within 5 ms, rollout within 2 ms).</remarks>
 public class ReconstructorTests
 {
     private const double G0 = 9.80665; // standard gravity, ISO 80000-3
@@ -41,11 +41,13 @@ public class ReconstructorTests
         Assert.Empty(run.WheelspinWindows);
     }
 
+    // Tolerances: about three times the error measured on each case (figures beside them, ms),
+    // never wider than the product's goals.
     [Theory]
-    [InlineData("exact edges", null)]
-    [InlineData("polled 250 µs", 250e-6)]
-    [InlineData("polled 1 ms", 1e-3)]
-    public void FirstMotionRolloutAndSixtyAreWithinTheGoals(string capture, double? pollS)
+    [InlineData("exact edges", null, 0.17, 0.04, 0.20)]
+    [InlineData("polled 250 µs", 250e-6, 0.09, 0.26, 0.08)]
+    [InlineData("polled 1 ms", 1e-3, 0.46, 0.03, 2.63)] // 0-60: the known bias of 1-ms brackets (a 5 ms goal holds it until the bracket model is fixed)
+    public void FirstMotionRolloutAndSixtyAreWithinThreeTimesTheirMeasuredError(string capture, double? pollS, double firstMotionMs, double rolloutMs, double sixtyMs)
     {
         _ = capture;
         Motion motion = QuarterMileLaunch();
@@ -53,13 +55,27 @@ public class ReconstructorTests
 
         double rolloutTruth = motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
         double sixtyTruth = motion.TimeAtSpeed(60 * TrajectoryProbe.Mph)!.Value;
-        Assert.InRange(run.FirstMotionS.Value - StartS, -0.005, 0.005);
-        Assert.InRange(run.RolloutTimeS!.Value.Value - rolloutTruth, -0.002, 0.002);
-        Assert.InRange(TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.FirstMotionS.Value) - (sixtyTruth - StartS), -0.005, 0.005);
+        AssertWithin(run.FirstMotionS.Value - StartS, Tolerance(firstMotionMs));
+        AssertWithin(run.RolloutTimeS!.Value.Value - rolloutTruth, Tolerance(rolloutMs));
+        AssertWithin(TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.FirstMotionS.Value) - (sixtyTruth - StartS), Math.Min(0.005, Tolerance(sixtyMs)));
+
+        // And each within 3 of its own stated σ.
+        AssertWithin(run.FirstMotionS.Value - StartS, 3 * run.FirstMotionS.Sigma);
+        AssertWithin(run.RolloutTimeS!.Value.Value - rolloutTruth, 3 * run.RolloutTimeS!.Value.Sigma);
     }
 
     [Fact]
-    public void QuarterMileTimeAndTrapSpeedAreWithinTheGoals()
+    public void FirstMotionIsUnbiasedOverManySeeds()
+    {
+        // Over seeds 1-12 the mean first-motion error measured -0.13 ms with a spread of 0.54 ms
+        // (0.16 ms on the mean): held within ±0.5 ms, so a shift of 1 ms anywhere fails.
+        Motion motion = HalfGToSixtyAndStop();
+        double mean = Enumerable.Range(1, 12).Average(seed => Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = seed }.Build()).FirstMotionS.Value - StartS);
+        AssertWithin(mean, 0.0005);
+    }
+
+    [Fact]
+    public void QuarterMileTimeAndTrapSpeedAreWithinThreeTimesTheirMeasuredError()
     {
         Motion motion = QuarterMileLaunch();
         ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 8, PollPeriodS = 250e-6, PollJitterS = 40e-6 }.Build());
@@ -71,23 +87,29 @@ public class ReconstructorTests
         double ours = TrajectoryProbe.TimeToDistance(run, TrajectoryProbe.QuarterMile, 0);
         double oursTrap = 66 * TrajectoryProbe.Foot / (ours - TrajectoryProbe.TimeToDistance(run, trapStart, 0));
 
-        Assert.InRange((ours - run.FirstMotionS.Value) - (end - StartS), -0.005, 0.005);
-        Assert.InRange(oursTrap - trapTruth, -0.05, 0.05);
+        AssertWithin((ours - run.FirstMotionS.Value) - (end - StartS), Tolerance(0.80)); // measured -0.80 ms
+        AssertWithin(oursTrap - trapTruth, 0.002); // measured 0.0006 m/s
     }
 
     [Theory]
-    [InlineData(12)]
-    [InlineData(48)]
-    [InlineData(100)]
-    public void AnyPickupFrom12To100PulsesWorks(int teeth)
+    [InlineData(12, 0.16, 0.98)]
+    [InlineData(48, 0.21, 0.34)]
+    [InlineData(100, 0.19, 0.20)]
+    public void AnyPickupFrom12To100PulsesWorks(int teeth, double firstMotionMs, double rolloutMs)
     {
         Motion motion = QuarterMileLaunch();
         ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 2, Teeth = teeth }.Build());
 
-        Assert.InRange(run.FirstMotionS.Value - StartS, -0.005, 0.005);
-        Assert.InRange(run.RolloutTimeS!.Value.Value - motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value, -0.002, 0.002);
+        AssertWithin(run.FirstMotionS.Value - StartS, Tolerance(firstMotionMs));
+        AssertWithin(run.RolloutTimeS!.Value.Value - motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value, Math.Min(0.002, Tolerance(rolloutMs)));
         Assert.NotNull(run.FirstPulseDistanceM);
     }
+
+    /// <summary>Three times a measured error given in ms, at least 0.3 ms (the figures differ by
+    /// seed and by other changes to the estimator at that level), in s.</summary>
+    private static double Tolerance(double measuredMs) => Math.Max(3 * measuredMs, 0.3) * 1e-3;
+
+    private static void AssertWithin(double error, double tolerance) => Assert.InRange(error, -tolerance, tolerance);
 
     [Fact]
     public void SpeedBetweenPulsesFollowsTheMotion()
@@ -96,10 +118,10 @@ public class ReconstructorTests
         Motion motion = Motion.FromRestAt(StartS).Accelerate(3.0, 4).Cruise(3).BrakeToStop(5);
         ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 4, Teeth = 12 }.Build());
 
-        // 0.02 m/s: the goal for trap speed, which is a mean speed; observed errors are below 0.005 m/s.
+        // Measured at most 0.0038 m/s over these times: held to 0.012 m/s.
         foreach (double t in new[] { 0.3, 1.0, 2.5, 4.0, 5.0, 6.5 })
         {
-            Assert.InRange(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + t) - motion.At(StartS + t).V, -0.02, 0.02);
+            AssertWithin(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + t) - motion.At(StartS + t).V, 0.012);
         }
     }
 
@@ -114,7 +136,7 @@ public class ReconstructorTests
         {
             double expected = Math.Sqrt((8.0 * 8.0) + (2 * 60 * tau));
             Assert.Equal(expected, motion.At(StartS + 2.0 + tau).V, 9);
-            Assert.InRange(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + 2.0 + tau) - expected, -0.02, 0.02);
+            AssertWithin(TrajectoryProbe.SpeedAt(run.Trajectory, StartS + 2.0 + tau) - expected, 0.0005); // measured at most 0.00014 m/s
         }
     }
 

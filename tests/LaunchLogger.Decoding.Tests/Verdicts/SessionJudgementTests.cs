@@ -35,13 +35,14 @@ public class SessionJudgementTests
     [Fact]
     public void ASteepCalibratedGradeMakesARunInvalidAndLevelCorrectionBringsItBack()
     {
-        // Calibration the way users do it: the box's resting pitch on level ground is its mounting pitch.
+        // Calibration the way users do it (`calibrate mounting` on level ground), by the
+        // calibration's own code, not the reconstruction's resting pitch that the grade is read from.
         Scenario level = BuiltInScenarios.Default;
-        RunAnalysis levelRun = Analyze(level, seed: 7, calibration: null);
+        MountingEstimate mounting = MountingCalibration.FromLevelRest(LogReader.Read(Simulator.Run(level, seed: 3).LogBytes, "level.log").Runs.Single());
         var calibration = new CalibrationSettings
         {
-            MountingPitchDeg = levelRun.Reconstruction.RestingPitchRad!.Value.Value * 180 / Math.PI,
-            MountingPitchSigmaDeg = 0.02,
+            MountingPitchDeg = mounting.PitchRad.Value * 180 / Math.PI,
+            MountingPitchSigmaDeg = mounting.PitchRad.Sigma * 180 / Math.PI,
         };
 
         Scenario uphill = level with { Environment = level.Environment with { GradePercent = 4 } };
@@ -49,7 +50,10 @@ public class SessionJudgementTests
         RunAnalysis uphillRun = SessionAnalyzer.Analyze(LogReader.Read(uphillSimulation.LogBytes, "uphill.log").Runs, new AnalysisOptions { Calibration = calibration }).Runs.Single();
 
         Assert.NotNull(uphillRun.Grade);
-        Assert.Equal(4.0, uphillRun.Grade!.Percent, 0); // within ±0.5 %
+        // The scenario's grade is the truth: measured +0.018 % off with σ 0.018 %; held to 0.06 % and 3σ.
+        double gradeError = uphillRun.Grade!.Percent - 4.0;
+        Assert.InRange(gradeError, -0.06, 0.06);
+        Assert.InRange(Math.Abs(gradeError), 0, 3 * Math.Tan(uphillRun.Grade.SigmaRad) * 100);
         Assert.Contains(uphillRun.Verdict!.Reasons, r => r.Code == "grade" && r.Level == VerdictLevel.Invalid);
 
         double measured = Zero60(uphillRun.Figures);

@@ -61,8 +61,11 @@ public sealed class VehicleModelTests
         Assert.True(model.OmegaRear * r > 1.3 * model.SpeedMps);
         Assert.Equal(model.SpeedMps, model.OmegaFront * r, 1e-2);
 
-        // Grip limits the acceleration to about μ times the load on the driven axle.
-        Assert.InRange(model.AccelMps2, 0, 0.8 * IdealCar.G0);
+        // Grip limits the acceleration to μ times the load on the driven axle (Coulomb friction,
+        // any mechanics textbook): no more than μ·g with all the weight on it, and no less than
+        // the sliding friction's floor (half the peak, the tyre curve's lower clamp) times the
+        // rear axle's static share of the weight (1 − 0.6), since weight only moves rearwards.
+        Assert.InRange(model.AccelMps2, 0.5 * 0.8 * IdealCar.G0 * (1 - s.Vehicle.FrontWeightFraction), 0.8 * IdealCar.G0);
     }
 
     [Fact]

@@ -28,16 +28,15 @@ public class ConstantAccelerationReferenceTests
         Motion motion = Motion.FromRestAt(StartS).Accelerate(HalfG, 6).BrakeToStop(6);
         ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 11 }.Build());
 
-        // Tolerances: the accuracy goals (first motion and 0–60 within 5 ms, rollout within 2 ms at
-        // the 95th percentile) with margin; over 40 seeds this configuration stays within 0.8 ms
-        // and 0.3 ms.
-        Assert.InRange(run.FirstMotionS.Value - StartS, -0.003, 0.003);
-        Assert.Equal(0.35260, run.RolloutTimeS!.Value.Value - StartS, 0.002);
-        Assert.Equal(5.4702, TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.FirstMotionS.Value), 0.005);
-        Assert.Equal(5.1177, TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.RolloutTimeS!.Value.Value), 0.002);
+        // Tolerances: about three times the errors measured with this seed (beside each), so a
+        // shift of a millisecond fails; the published values are the reference.
+        Assert.InRange(run.FirstMotionS.Value - StartS, -0.0026, 0.0026); // measured +0.85 ms
+        Assert.Equal(0.35260, run.RolloutTimeS!.Value.Value - StartS, 0.0004); // measured +0.12 ms
+        Assert.Equal(5.4702, TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.FirstMotionS.Value), 0.0024); // measured -0.78 ms
+        Assert.Equal(5.1177, TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.RolloutTimeS!.Value.Value), 0.0005); // measured -0.15 ms
 
-        // Speed at the rollout mark: v = a·t = 4.903325 × 0.35260 = 1.7289 m/s.
-        Assert.Equal(HalfG * 0.35260, run.RolloutSpeedMps!.Value.Value, 0.02);
+        // Speed at the rollout mark: v = a·t = 4.903325 × 0.35260 = 1.7289 m/s; measured 0.0004 m/s off.
+        Assert.Equal(HalfG * 0.35260, run.RolloutSpeedMps!.Value.Value, 0.0012);
     }
 
     [Fact]
