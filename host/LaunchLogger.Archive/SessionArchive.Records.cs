@@ -160,28 +160,37 @@ public sealed partial class SessionArchive
     /// <summary>The current settings version of a car: its id and the calibration it carries.</summary>
     internal (long? SettingsId, CalibrationSettings? Calibration) CurrentCarSettings(long carId, SqliteTransaction? transaction = null)
     {
+        long? settingsId = Scalar("SELECT id FROM car_settings WHERE car_id = $car ORDER BY version DESC LIMIT 1", transaction, ("$car", carId)) is { } v
+            ? Convert.ToInt64(v)
+            : null;
+        return (settingsId, SettingsCalibration(settingsId, transaction));
+    }
+
+    /// <summary>The calibration of a car settings version; the owner's measured circumference
+    /// stands in when the calibration gives none.</summary>
+    internal CalibrationSettings? SettingsCalibration(long? settingsId, SqliteTransaction? transaction = null)
+    {
+        if (settingsId is null)
+        {
+            return null;
+        }
+
         using SqliteCommand command = Command(
-            """
-            SELECT s.id, c.settings_json, s.circumference_m FROM car_settings s LEFT JOIN calibrations c ON c.id = s.calibration_id
-            WHERE s.car_id = $car ORDER BY s.version DESC LIMIT 1
-            """,
-            transaction, ("$car", carId));
+            "SELECT c.settings_json, s.circumference_m FROM car_settings s LEFT JOIN calibrations c ON c.id = s.calibration_id WHERE s.id = $id",
+            transaction, ("$id", settingsId));
         using SqliteDataReader reader = command.ExecuteReader();
         if (!reader.Read())
         {
-            return (null, null);
+            return null;
         }
 
-        CalibrationSettings? calibration = reader.IsDBNull(1) ? null : System.Text.Json.JsonSerializer.Deserialize<CalibrationSettings>(reader.GetString(1), CalibrationFile.Options);
-        if (!reader.IsDBNull(2))
+        CalibrationSettings? calibration = reader.IsDBNull(0) ? null : System.Text.Json.JsonSerializer.Deserialize<CalibrationSettings>(reader.GetString(0), CalibrationFile.Options);
+        if (!reader.IsDBNull(1) && calibration?.CircumferenceM is null)
         {
-            // A circumference measured by the owner stands in when no calibration carries one.
-            calibration = (calibration ?? new CalibrationSettings()) is { CircumferenceM: null } c
-                ? c with { CircumferenceM = reader.GetDouble(2) }
-                : calibration;
+            calibration = (calibration ?? new CalibrationSettings()) with { CircumferenceM = reader.GetDouble(1) };
         }
 
-        return (reader.GetInt64(0), calibration);
+        return calibration;
     }
 
     /// <summary>Runs any query into a table (columns named as the query names them).</summary>
