@@ -15,5 +15,14 @@ var root = new RootCommand(
     BenchCommand.Create(),
     SimulateCommand.Create(),
     CalibrateCommand.Create(),
+    ImportCommand.Create(),
+    BoardCommand.Create(),
+    EventCommand.Create(),
+    VenueCommand.Create(),
+    CarCommand.Create(),
+    DriverCommand.Create(),
+    ClassCommand.Create(),
+    RunCommand.Create(),
+    ReanalyseCommand.Create(),
 };
 return await root.Parse(args).InvokeAsync(new InvocationConfiguration { Output = Console.Out, Error = Console.Error });

@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reporting;
 
 namespace LaunchLogger.Archive.Board;
@@ -9,9 +10,9 @@ namespace LaunchLogger.Archive.Board;
 /// trap speed over the 66 ft before the line.</remarks>
 public static class BoardFigures
 {
-    private const double Foot = 0.3048;
-    private const double Mph = 0.44704;
-    private const double Kmh = 1 / 3.6;
+    private const double Foot = Units.MetresPerFoot;
+    private const double Mph = Units.MpsPerMph;
+    private const double Kmh = Units.MpsPerKmh;
     private const double Tolerance = 1e-6;
 
     /// <summary>Every figure, in the order they are listed.</summary>
