@@ -15,6 +15,7 @@ var root = new RootCommand(
     BenchCommand.Create(),
     SimulateCommand.Create(),
     CalibrateCommand.Create(),
+    CaptureCommand.Create(),
     ImportCommand.Create(),
     BoardCommand.Create(),
     EventCommand.Create(),
