@@ -8,11 +8,15 @@ namespace LaunchLogger.Archive.Tests.Support;
 internal static class TestLogs
 {
     private static readonly Lazy<SimulationResult> HatchRun = new(() => Simulator.Run(BuiltInScenarios.Get("club-hatch"), seed: 2));
+    private static readonly Lazy<SimulationResult> SecondHatchRun = new(() => Simulator.Run(BuiltInScenarios.Get("club-hatch"), seed: 3));
     private static readonly Lazy<SimulationResult> RoadsterRun = new(() => Simulator.Run(BuiltInScenarios.Default, seed: 5));
     private static readonly Lazy<AnalysedLog> HatchAnalysis = new(() => LogAnalyzer.Analyze(Hatch, "hatch.log", "test"));
 
     /// <summary>A family hatchback's launch and stop.</summary>
     public static byte[] Hatch => HatchRun.Value.LogBytes;
+
+    /// <summary>The same hatchback, another launch.</summary>
+    public static byte[] SecondHatch => SecondHatchRun.Value.LogBytes;
 
     /// <summary>The default roadster's quarter mile.</summary>
     public static byte[] Roadster => RoadsterRun.Value.LogBytes;
