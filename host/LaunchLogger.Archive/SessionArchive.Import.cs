@@ -90,14 +90,14 @@ public sealed partial class SessionArchive
         string reasons = run.Report?.Verdict is { } v ? string.Join(",", v.Reasons.Select(r => r.Code)) : "";
         long resultId = Convert.ToInt64(Scalar(
             """
-            INSERT INTO results (run_id, tool_version, analysed_at, verdict, reasons, report_json, failure)
-            VALUES ($run, $tool, $at, $verdict, $reasons, $json, $failure) RETURNING id
+            INSERT INTO results (run_id, tool_version, analysed_at, verdict, reasons, failure)
+            VALUES ($run, $tool, $at, $verdict, $reasons, $failure) RETURNING id
             """,
             transaction,
-            ("$run", runId), ("$tool", toolVersion), ("$at", Now()), ("$verdict", run.Verdict), ("$reasons", reasons),
-            ("$json", run.Report is { } r ? JsonSerializer.Serialize(r, ReportJson.Options) : null), ("$failure", run.Failure)));
+            ("$run", runId), ("$tool", toolVersion), ("$at", Now()), ("$verdict", run.Verdict), ("$reasons", reasons), ("$failure", run.Failure)));
         if (run.Report is { } report)
         {
+            Execute("INSERT INTO reports (result_id, json) VALUES ($r, $json)", transaction, ("$r", resultId), ("$json", JsonSerializer.Serialize(report, ReportJson.Options)));
             using SqliteCommand insert = Command(
                 "INSERT INTO figures (result_id, figure, standstill, standstill_sigma, rollout, rollout_sigma) VALUES ($r, $f, $s, $ss, $o, $os)",
                 transaction);

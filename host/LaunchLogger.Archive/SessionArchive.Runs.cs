@@ -34,7 +34,7 @@ public sealed partial class SessionArchive
             throw new ArchiveException($"no run {runId}");
         }
 
-        return (row, Scalar("SELECT res.report_json FROM runs r JOIN results res ON res.id = r.result_id WHERE r.id = $id", null, ("$id", runId)) as string);
+        return (row, Scalar("SELECT rp.json FROM runs r JOIN reports rp ON rp.result_id = r.result_id WHERE r.id = $id", null, ("$id", runId)) as string);
     }
 
     /// <summary>Every result a run has had, oldest first (one per analysis and tool version).</summary>

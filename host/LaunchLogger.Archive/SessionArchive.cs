@@ -52,7 +52,7 @@ public sealed partial class SessionArchive : IDisposable
             }.ToString());
             connection.Open();
             var archive = new SessionArchive(full, connection);
-            archive.Execute("PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA busy_timeout=30000;");
+            archive.Execute("PRAGMA journal_mode=WAL; PRAGMA synchronous=NORMAL; PRAGMA busy_timeout=30000; PRAGMA cache_size=-16384;");
             archive.Migrate();
             return archive;
         }

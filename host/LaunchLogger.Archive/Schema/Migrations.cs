@@ -101,10 +101,15 @@ internal static class Migrations
             analysed_at   TEXT NOT NULL,
             verdict       TEXT NOT NULL CHECK (verdict IN ('valid', 'doubtful', 'invalid', 'failed')),
             reasons       TEXT NOT NULL,
-            report_json   TEXT,
             failure       TEXT
         );
         CREATE INDEX results_run ON results (run_id);
+        -- The report entries apart from the results, so that the board's scan of results and
+        -- figures never pages through kilobytes of JSON per run.
+        CREATE TABLE reports (
+            result_id     INTEGER PRIMARY KEY REFERENCES results(id),
+            json          TEXT NOT NULL
+        );
         CREATE TABLE figures (
             result_id        INTEGER NOT NULL REFERENCES results(id),
             figure           TEXT NOT NULL,

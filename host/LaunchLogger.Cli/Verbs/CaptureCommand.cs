@@ -38,7 +38,10 @@ public static class CaptureCommand
         {
             bool archiveGiven = parse.GetResult(archive) is not null;
             string? archivePath = archiveGiven ? parse.GetValue(archive) ?? ArchiveLocation.Default : null;
-            return Task.FromResult((int)Run(
+
+            // On a worker thread, so the command line holds a task to wait for when Ctrl+C
+            // comes and lets the capture flush, close and file the last run before exiting.
+            return Task.Run(() => (int)Run(
                 parse.GetValue(port),
                 parse.GetValue(baud),
                 parse.GetValue(file)?.FullName,
@@ -48,7 +51,7 @@ public static class CaptureCommand
                 parse.GetValue(json),
                 parse.InvocationConfiguration.Output,
                 parse.InvocationConfiguration.Error,
-                cancel));
+                cancel), CancellationToken.None);
         });
         return command;
     }
