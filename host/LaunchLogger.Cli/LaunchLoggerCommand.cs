@@ -20,6 +20,16 @@ public static class LaunchLoggerCommand
         SimulateCommand.Create(),
         CalibrateCommand.Create(),
         CrossCheckCommand.Create(),
+        CaptureCommand.Create(),
+        ImportCommand.Create(),
+        BoardCommand.Create(),
+        EventCommand.Create(),
+        VenueCommand.Create(),
+        CarCommand.Create(),
+        DriverCommand.Create(),
+        ClassCommand.Create(),
+        RunCommand.Create(),
+        ReanalyseCommand.Create(),
     };
 
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>

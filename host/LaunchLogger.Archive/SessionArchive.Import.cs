@@ -1,0 +1,128 @@
+using System.Text.Json;
+using LaunchLogger.Archive.Board;
+using LaunchLogger.Archive.Importing;
+using LaunchLogger.Archive.Records;
+using LaunchLogger.Decoding.Corrections;
+using LaunchLogger.Decoding.Reporting;
+using Microsoft.Data.Sqlite;
+
+namespace LaunchLogger.Archive;
+
+// Filing logs: content hash, raw bytes, runs, results and their figures.
+public sealed partial class SessionArchive
+{
+    /// <summary>The id of the log with this content hash, or null when it is not in the archive.</summary>
+    public long? FindLog(string sha256) =>
+        Scalar("SELECT id FROM logs WHERE sha256 = $h", null, ("$h", sha256)) is { } v ? Convert.ToInt64(v) : null;
+
+    /// <summary>Looks up an assignment by name.</summary>
+    /// <exception cref="ArchiveException">A name matches nothing.</exception>
+    public ResolvedAssignment Resolve(RunAssignment assignment)
+    {
+        ArgumentNullException.ThrowIfNull(assignment);
+        long? eventId = assignment.Event is { } e ? RequireId(RecordKind.Event, e) : null;
+        long? carId = assignment.Car is { } c ? RequireId(RecordKind.Car, c) : null;
+        long? driverId = assignment.Driver is { } d ? RequireId(RecordKind.Driver, d) : null;
+        long? classId = assignment.Class is { } k ? RequireId(RecordKind.Class, k)
+            : carId is { } car && Scalar("SELECT class_id FROM cars WHERE id = $id", null, ("$id", car)) is { } carClass ? Convert.ToInt64(carClass) : null;
+        (long? settingsId, var calibration) = carId is { } id ? CurrentCarSettings(id) : (null, null);
+        Weather? weather = eventId is { } ev && Scalar("SELECT weather FROM events WHERE id = $id", null, ("$id", ev)) is string w ? Weather.Parse(w) : null;
+        return new ResolvedAssignment
+        {
+            EventId = eventId,
+            CarId = carId,
+            CarSettingsId = settingsId,
+            DriverId = driverId,
+            ClassId = classId,
+            Calibration = calibration,
+            Weather = weather,
+        };
+    }
+
+    /// <summary>Files an analysed log: its bytes, its runs and their results, all in one
+    /// transaction. A log whose bytes are in the archive already adds nothing.</summary>
+    /// <param name="log">The log, from <see cref="LogAnalyzer.Analyze"/>.</param>
+    /// <param name="assignment">Where its runs belong.</param>
+    /// <param name="gaps">Times the link was down while it was captured.</param>
+    public ImportOutcome File(AnalysedLog log, ResolvedAssignment? assignment = null, IReadOnlyList<LinkGap>? gaps = null)
+    {
+        ArgumentNullException.ThrowIfNull(log);
+        assignment ??= new ResolvedAssignment();
+        using SqliteTransaction transaction = connection.BeginTransaction();
+        if (Scalar("SELECT id FROM logs WHERE sha256 = $h", transaction, ("$h", log.Sha256)) is { } existing)
+        {
+            return new ImportOutcome(log.Source, Convert.ToInt64(existing), false, []);
+        }
+
+        string now = Now();
+        long logId = Convert.ToInt64(Scalar(
+            "INSERT INTO logs (sha256, source, added_at, byte_count, bytes, link_gaps) VALUES ($h, $source, $at, $n, $bytes, $gaps) RETURNING id",
+            transaction,
+            ("$h", log.Sha256), ("$source", log.Source), ("$at", now), ("$n", log.Bytes.LongLength), ("$bytes", log.Bytes),
+            ("$gaps", gaps is { Count: > 0 } ? JsonSerializer.Serialize(gaps, ReportJson.Options) : null)));
+        var filed = new List<(long, AnalysedRun)>(log.Runs.Count);
+        foreach (AnalysedRun run in log.Runs)
+        {
+            long runId = Convert.ToInt64(Scalar(
+                """
+                INSERT INTO runs (log_id, position, box_run, firmware, source, added_at, event_id, car_id, car_settings_id, driver_id, class_id)
+                VALUES ($log, $pos, $box, $fw, $source, $at, $event, $car, $settings, $driver, $class) RETURNING id
+                """,
+                transaction,
+                ("$log", logId), ("$pos", run.Position), ("$box", run.BoxRun), ("$fw", run.Firmware), ("$source", run.Source), ("$at", now),
+                ("$event", assignment.EventId), ("$car", assignment.CarId), ("$settings", assignment.CarSettingsId),
+                ("$driver", assignment.DriverId), ("$class", assignment.ClassId)));
+            AddResult(runId, run, log.ToolVersion, transaction);
+            filed.Add((runId, run));
+        }
+
+        transaction.Commit();
+        return new ImportOutcome(log.Source, logId, true, filed);
+    }
+
+    /// <summary>The raw bytes of a log, exactly as filed.</summary>
+    /// <exception cref="ArchiveException">No such log.</exception>
+    public byte[] LogBytes(long logId) =>
+        Scalar("SELECT bytes FROM logs WHERE id = $id", null, ("$id", logId)) as byte[] ?? throw new ArchiveException($"no log {logId}");
+
+    private void AddResult(long runId, AnalysedRun run, string toolVersion, SqliteTransaction transaction)
+    {
+        string reasons = run.Report?.Verdict is { } v ? string.Join(",", v.Reasons.Select(r => r.Code)) : "";
+        long resultId = Convert.ToInt64(Scalar(
+            """
+            INSERT INTO results (run_id, tool_version, analysed_at, verdict, reasons, failure)
+            VALUES ($run, $tool, $at, $verdict, $reasons, $failure) RETURNING id
+            """,
+            transaction,
+            ("$run", runId), ("$tool", toolVersion), ("$at", Now()), ("$verdict", run.Verdict), ("$reasons", reasons), ("$failure", run.Failure)));
+        if (run.Report is { } report)
+        {
+            Execute("INSERT INTO reports (result_id, json) VALUES ($r, $json)", transaction, ("$r", resultId), ("$json", JsonSerializer.Serialize(report, ReportJson.Options)));
+            using SqliteCommand insert = Command(
+                "INSERT INTO figures (result_id, figure, standstill, standstill_sigma, rollout, rollout_sigma) VALUES ($r, $f, $s, $ss, $o, $os)",
+                transaction);
+            SqliteParameter figure = insert.Parameters.Add("$f", SqliteType.Text);
+            SqliteParameter standstill = insert.Parameters.Add("$s", SqliteType.Real);
+            SqliteParameter standstillSigma = insert.Parameters.Add("$ss", SqliteType.Real);
+            SqliteParameter rollout = insert.Parameters.Add("$o", SqliteType.Real);
+            SqliteParameter rolloutSigma = insert.Parameters.Add("$os", SqliteType.Real);
+            insert.Parameters.AddWithValue("$r", resultId);
+            foreach (BoardFigure f in BoardFigures.All)
+            {
+                if (f.Read(report) is not { } value)
+                {
+                    continue;
+                }
+
+                figure.Value = f.Code;
+                standstill.Value = (object?)value.Standstill ?? DBNull.Value;
+                standstillSigma.Value = (object?)value.StandstillSigma ?? DBNull.Value;
+                rollout.Value = (object?)value.Rollout ?? DBNull.Value;
+                rolloutSigma.Value = (object?)value.RolloutSigma ?? DBNull.Value;
+                insert.ExecuteNonQuery();
+            }
+        }
+
+        Execute("UPDATE runs SET result_id = $r WHERE id = $run", transaction, ("$r", resultId), ("$run", runId));
+    }
+}
