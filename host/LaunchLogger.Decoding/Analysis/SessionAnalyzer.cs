@@ -42,7 +42,7 @@ public static class SessionAnalyzer
         TractionBound? bound = BestBound(references.Count > 0 ? references : analyses);
         return new SessionAnalysis
         {
-            Runs = analyses.Select(a => a.WithVerdict(RunJudge.Judge(a, a.Grade, bound, options.Limits))).ToList(),
+            Runs = analyses.Select(a => a.WithVerdict(FigurePlausibility.Apply(RunJudge.Judge(a, a.Grade, bound, options.Limits), a))).ToList(),
             Bound = bound,
             Failures = failures,
         };

@@ -64,7 +64,7 @@ public sealed class RunAssembler
         ChargeDamage(readerStats);
         if (frame.Type == FrameType.Configuration)
         {
-            Open(frame.Body);
+            Open(frame.Body, frame.Sequence);
             return;
         }
 
@@ -185,9 +185,17 @@ public sealed class RunAssembler
         }
     }
 
-    private void Open(ReadOnlySpan<byte> body)
+    private void Open(ReadOnlySpan<byte> body, int sequence)
     {
-        if (!FrameBodies.TryReadConfiguration(body, out ConfigurationBody configuration))
+        bool readable = FrameBodies.TryReadConfiguration(body, out ConfigurationBody configuration);
+        string? implausible = readable ? InputLimits.CheckConfiguration(configuration) : null;
+        if (implausible != null)
+        {
+            warnings.Add(Invariant($"the configuration frame with sequence number {sequence} was rejected: {implausible}"));
+            readable = false;
+        }
+
+        if (!readable)
         {
             corruptBodies++;
             unreadableConfigurations++;
