@@ -15,6 +15,7 @@ public static class BenchCommand
             BenchAccuracyCommand.Create(),
             BenchDecodeCommand.Create(),
             BenchBrakingCommand.Create(),
+            BenchRobustnessCommand.Create(),
         };
     }
 }
