@@ -20,5 +20,13 @@ namespace LaunchLogger.Firmware.Wire
 
         /// <summary>The last frame of every run.</summary>
         Summary = 0x06,
+
+        /// <summary>The first frame after power-up (after a lone delimiter), so a reader sees a
+        /// restart even when power was cut mid-frame.</summary>
+        PowerUp = 0x07,
+
+        /// <summary>A repeat of the open run's configuration, written periodically, so a run whose
+        /// configuration frame is damaged can still be decoded.</summary>
+        ConfigurationCopy = 0x08,
     }
 }

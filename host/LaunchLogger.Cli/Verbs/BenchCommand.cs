@@ -16,6 +16,7 @@ public static class BenchCommand
             BenchDecodeCommand.Create(),
             BenchBrakingCommand.Create(),
             BenchArchiveCommand.Create(),
+            BenchRobustnessCommand.Create(),
         };
     }
 }

@@ -81,6 +81,21 @@ public static class SimulateCommand
             return ExitCode.Usage;
         }
 
+        if (truthPath != null && string.Equals(Path.GetFullPath(logPath), Path.GetFullPath(truthPath), StringComparison.Ordinal))
+        {
+            error.WriteLine("simulate: --out and --truth name the same file; give each its own");
+            return ExitCode.Usage;
+        }
+
+        foreach (string? path in new[] { logPath, truthPath })
+        {
+            if (path != null && Directory.Exists(path))
+            {
+                error.WriteLine($"simulate: '{path}' is a folder; give a file name");
+                return ExitCode.BadInput;
+            }
+        }
+
         if (!TryResolve(scenarioNameOrFile, error, out Scenario? scenario))
         {
             return ExitCode.BadInput;
@@ -121,7 +136,12 @@ public static class SimulateCommand
 
         try
         {
-            AtomicFile.WriteAll(files);
+            AtomicFile.WriteAll(files, cancellationToken);
+        }
+        catch (OperationCanceledException)
+        {
+            error.WriteLine("simulate: cancelled; nothing written");
+            return ExitCode.Cancelled;
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {

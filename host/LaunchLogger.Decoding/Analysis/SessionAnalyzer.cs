@@ -45,7 +45,7 @@ public static class SessionAnalyzer
         TractionBound? bound = GripLimit.BestBound(analyses, references, options.Limits);
         return new SessionAnalysis
         {
-            Runs = analyses.Select(a => a.WithVerdict(RunJudge.Judge(a, a.Grade, bound, options.Limits))).ToList(),
+            Runs = analyses.Select(a => a.WithVerdict(FigurePlausibility.Apply(RunJudge.Judge(a, a.Grade, bound, options.Limits), a))).ToList(),
             Bound = bound,
             Failures = failures,
         };

@@ -42,7 +42,8 @@ public sealed record Weather(double TemperatureC, double PressureHPa, double Rel
                 throw new FormatException($"weather {name} '{s}' is not a number");
             }
 
-            if (v < min || v > max)
+            // Written so that NaN fails too (every comparison with NaN is false).
+            if (!(v >= min && v <= max))
             {
                 throw new FormatException(string.Create(CultureInfo.InvariantCulture, $"weather {name} {v} is outside {min} to {max}"));
             }

@@ -37,16 +37,16 @@ public static class AccelFile
         var vertical = new List<double>();
         while (table.Read())
         {
-            double t = table.Number(0);
+            double t = table.Time(0);
             if (time.Count > 0 && !(t > time[^1]))
             {
                 throw table.Error(Invariant($"time goes backwards: t_s {t} is not after the previous row's {time[^1]}"));
             }
 
             time.Add(t);
-            forward.Add(table.Number(1));
-            lateral.Add(allAxes ? table.Number(2) : 0);
-            vertical.Add(allAxes ? table.Number(3) : 0);
+            forward.Add(table.Bounded(1, InputLimits.MaxTextAccelMps2, "m/s²"));
+            lateral.Add(allAxes ? table.Bounded(2, InputLimits.MaxTextAccelMps2, "m/s²") : 0);
+            vertical.Add(allAxes ? table.Bounded(3, InputLimits.MaxTextAccelMps2, "m/s²") : 0);
         }
 
         table.RequireRows(2);

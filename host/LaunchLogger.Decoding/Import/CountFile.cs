@@ -40,8 +40,8 @@ public static class CountFile
         var rows = new List<(double Lo, double Hi, long Count)>();
         while (table.Read())
         {
-            double lo = table.Number(0);
-            double hi = table.Number(1);
+            double lo = table.Time(0);
+            double hi = table.Time(1);
             long count = table.WholeNumber(2);
             if (hi < lo)
             {

@@ -1,5 +1,6 @@
 using System.Globalization;
 using CsvHelper;
+using LaunchLogger.Decoding.Runs;
 
 namespace LaunchLogger.Decoding.Import;
 
@@ -24,6 +25,7 @@ internal sealed class CsvTable : IDisposable
     };
 
     private readonly CsvReader reader;
+    private double? firstTimeS;
 
     private CsvTable(CsvReader reader, string file, IReadOnlyList<string> columns, int headerLine)
     {
@@ -151,6 +153,41 @@ internal sealed class CsvTable : IDisposable
         }
 
         return value;
+    }
+
+    /// <summary>The cell of <paramref name="column"/> as a time in seconds, within the bounds of
+    /// <see cref="InputLimits"/>: at most <see cref="InputLimits.MaxTextTimeS"/> in size and within
+    /// <see cref="InputLimits.MaxRunSpanS"/> of the table's first time (so times written in
+    /// microseconds or milliseconds are caught at the first line that gives them away).</summary>
+    /// <exception cref="InputException">Not a number, or out of bounds.</exception>
+    public double Time(int column)
+    {
+        double t = Number(column);
+        if (Math.Abs(t) > InputLimits.MaxTextTimeS)
+        {
+            throw Error(string.Create(CultureInfo.InvariantCulture, $"column '{Columns[column]}': {t} s is beyond the {InputLimits.MaxTextTimeS:0e0} s limit (times must be in seconds)"));
+        }
+
+        firstTimeS ??= t;
+        if (Math.Abs(t - firstTimeS.Value) > InputLimits.MaxRunSpanS)
+        {
+            throw Error(string.Create(CultureInfo.InvariantCulture, $"column '{Columns[column]}': {t} s is more than {InputLimits.MaxRunSpanS} s (the longest run) from the first time, {firstTimeS.Value} s: are the times in seconds?"));
+        }
+
+        return t;
+    }
+
+    /// <summary>The cell of <paramref name="column"/> as a number no larger than <paramref name="limit"/> in size.</summary>
+    /// <exception cref="InputException">Not a number, or out of bounds.</exception>
+    public double Bounded(int column, double limit, string unit)
+    {
+        double v = Number(column);
+        if (Math.Abs(v) > limit)
+        {
+            throw Error(string.Create(CultureInfo.InvariantCulture, $"column '{Columns[column]}': {v} {unit} is beyond the ±{limit} {unit} limit"));
+        }
+
+        return v;
     }
 
     /// <summary>The cell of <paramref name="column"/> as a whole number.</summary>

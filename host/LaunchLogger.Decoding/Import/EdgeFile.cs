@@ -29,10 +29,15 @@ public static class EdgeFile
         double previous = double.NegativeInfinity;
         while (table.Read())
         {
-            double t = table.Number(0);
+            double t = table.Time(0);
             if (!(t > previous))
             {
                 throw table.Error(Invariant($"time goes backwards: t_s {t} is not after the previous edge's {previous}"));
+            }
+
+            if (t - previous < InputLimits.MinEdgeSpacingS)
+            {
+                throw table.Error(Invariant($"t_s {t} is {t - previous:G3} s after the previous edge: closer than the {InputLimits.MinEdgeSpacingS * 1e6} µs clock tick any pickup can resolve"));
             }
 
             edges.Add(new PulseRecord(edges.Count + 1, t, t));

@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Runs;
 using static System.FormattableString;
 
 namespace LaunchLogger.Decoding.Import;
@@ -32,9 +33,9 @@ public sealed record PulseScale(double MetresPerPulse, int PulsesPerRevolution, 
                 throw new InputException(MetresPerPulseOption, 0, $"give it or {PulsesPerRevOption} with {CircumferenceOption}, not both");
             }
 
-            if (!(m > 0) || !double.IsFinite(m))
+            if (InputLimits.CheckMetresPerPulse(m) is { } implausible)
             {
-                throw new InputException(MetresPerPulseOption, 0, Invariant($"must be a positive number of metres (was {m})"));
+                throw new InputException(MetresPerPulseOption, 0, implausible);
             }
 
             return new PulseScale(m, 0, 0);
@@ -55,14 +56,19 @@ public sealed record PulseScale(double MetresPerPulse, int PulsesPerRevolution, 
             throw new InputException(CircumferenceOption, 0, $"is needed with {PulsesPerRevOption}");
         }
 
-        if (ppr < 1)
+        if (InputLimits.CheckPulsesPerRevolution(ppr) is { } badCount)
         {
-            throw new InputException(PulsesPerRevOption, 0, Invariant($"must be at least 1 (was {ppr})"));
+            throw new InputException(PulsesPerRevOption, 0, badCount);
         }
 
-        if (!(c > 0) || !double.IsFinite(c))
+        if (InputLimits.CheckCircumference(c) is { } badCircumference)
         {
-            throw new InputException(CircumferenceOption, 0, Invariant($"must be a positive number of metres (was {c})"));
+            throw new InputException(CircumferenceOption, 0, badCircumference);
+        }
+
+        if (InputLimits.CheckMetresPerPulse(c / ppr) is { } badScale)
+        {
+            throw new InputException(PulsesPerRevOption, 0, badScale);
         }
 
         return new PulseScale(c / ppr, ppr, c);

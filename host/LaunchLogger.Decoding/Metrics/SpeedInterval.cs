@@ -33,12 +33,18 @@ public sealed record SpeedInterval(string Label, double FromMps, double ToMps)
             throw new FormatException($"interval '{text}' is not FROM-TO with numbers (e.g. 40-80mph)");
         }
 
-        if (from < 0 || to <= from)
+        if (!(from >= 0 && to > from))
         {
             throw new FormatException($"interval '{text}' must rise from a speed ≥ 0 to a higher one");
         }
 
-        return mph ? Mph(from, to) : Kmh(from, to);
+        SpeedInterval interval = mph ? Mph(from, to) : Kmh(from, to);
+        if (!(interval.ToMps <= Runs.InputLimits.MaxPlausibleSpeedMps))
+        {
+            throw new FormatException(string.Create(CultureInfo.InvariantCulture, $"interval '{text}' goes above {Runs.InputLimits.MaxPlausibleSpeedMps} m/s, faster than any car"));
+        }
+
+        return interval;
     }
 
     /// <summary>Parses one speed with its unit, e.g. "50mph" or "80 km/h", into m/s.</summary>
@@ -51,7 +57,13 @@ public sealed record SpeedInterval(string Label, double FromMps, double ToMps)
             throw new FormatException($"speed '{text}' is not a positive number with a unit (e.g. 50mph)");
         }
 
-        return value * (mph ? Units.MpsPerMph : Units.MpsPerKmh);
+        double mps = value * (mph ? Units.MpsPerMph : Units.MpsPerKmh);
+        if (!(mps <= Runs.InputLimits.MaxPlausibleSpeedMps))
+        {
+            throw new FormatException(string.Create(CultureInfo.InvariantCulture, $"speed '{text}' is above {Runs.InputLimits.MaxPlausibleSpeedMps} m/s, faster than any car"));
+        }
+
+        return mps;
     }
 
     private static (string Numbers, bool Mph) SplitUnit(string text, string what, string example)

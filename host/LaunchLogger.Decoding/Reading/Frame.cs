@@ -27,5 +27,5 @@ public readonly ref struct Frame
     public ReadOnlySpan<byte> Body { get; }
 
     /// <summary>True for the frame types of log format version 1.</summary>
-    public bool IsKnownType => Type >= FrameType.Configuration && Type <= FrameType.Summary;
+    public bool IsKnownType => Type >= FrameType.Configuration && Type <= FrameType.ConfigurationCopy;
 }

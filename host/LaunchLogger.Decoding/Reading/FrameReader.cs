@@ -31,10 +31,22 @@ public struct FrameReader
     /// <summary>The longest a stuffed frame can be without its delimiter.</summary>
     private const int MaxStuffedBytes = LogFormat.MaxEncodedFrameBytes - 1;
 
+    /// <summary>How many sequence numbers before the next expected one are remembered, to tell a
+    /// late (swapped) frame from a repeat of one already read.</summary>
+    private const int SequenceWindow = 64;
+
+    /// <summary>A jump back to a sequence number below this, farther than the window, is taken
+    /// as a restart of the box whose power-up and configuration frames were lost.</summary>
+    private const int RestartSequenceLimit = 64;
+
     private ReaderStats stats;
     private int expectedSequence;
     private bool sequenceKnown;
     private bool skippingOverlong;
+
+    // Bit i set: the frame with sequence number expectedSequence - 1 - i has been read.
+    private ulong seenWindow;
+    private uint lastCrc;
 
     /// <summary>What has been read so far.</summary>
     public readonly ReaderStats Stats => stats;
@@ -166,27 +178,94 @@ public struct FrameReader
 
         var type = (FrameType)payload[0];
         int sequence = payload[1] | (payload[2] << 8);
-        if (sequenceKnown && sequence != expectedSequence)
+        if (!FollowSequence(type, sequence, written))
         {
-            if (sequence == 0 && type == FrameType.Configuration)
-            {
-                stats.Restarts++;
-            }
-            else
-            {
-                stats.FramesLost += (sequence - expectedSequence) & 0xFFFF;
-            }
+            stats.DuplicateFrames++;
+            return OperationStatus.InvalidData;
         }
 
-        sequenceKnown = true;
-        expectedSequence = (sequence + 1) & 0xFFFF;
         stats.Frames++;
-        if (type < FrameType.Configuration || type > FrameType.Summary)
+        if (type < FrameType.Configuration || type > FrameType.ConfigurationCopy)
         {
             stats.UnknownFrameTypes++;
         }
 
         frame = new Frame(type, (ushort)sequence, payload[LogFormat.HeaderBytes..covered]);
         return OperationStatus.Done;
+    }
+
+    /// <summary>Classifies a good frame by its sequence number (LOG-FORMAT.md, section 1,
+    /// "Sequence numbers"): in order, after a gap (counted lost), late (a swap: it fills a gap
+    /// counted before), a repeat of a frame already read (false: drop it), or a restart.</summary>
+    private bool FollowSequence(FrameType type, int sequence, uint crc)
+    {
+        bool restart = type == FrameType.PowerUp || (sequence == 0 && type == FrameType.Configuration);
+        if (!sequenceKnown || (restart && sequence != expectedSequence))
+        {
+            if (sequenceKnown)
+            {
+                stats.Restarts++;
+            }
+
+            StartSequence(sequence, crc);
+            return true;
+        }
+
+        int ahead = (sequence - expectedSequence) & 0xFFFF;
+        if (ahead < 0x8000)
+        {
+            // In order (ahead 0) or after a gap of `ahead` lost frames.
+            stats.FramesLost += ahead;
+            seenWindow = ahead + 1 >= SequenceWindow ? 1UL : (seenWindow << (ahead + 1)) | 1UL;
+            expectedSequence = (sequence + 1) & 0xFFFF;
+            lastCrc = crc;
+            return true;
+        }
+
+        int behind = (expectedSequence - 1 - sequence) & 0xFFFF;
+        if (behind < SequenceWindow)
+        {
+            ulong bit = 1UL << behind;
+            if (behind == 0 && crc != lastCrc)
+            {
+                // The last number again with other content: not a copy but another sequence.
+                stats.SequenceBreaks++;
+                StartSequence(sequence, crc);
+                return true;
+            }
+
+            if ((seenWindow & bit) != 0)
+            {
+                // A number already read: a duplicated or replayed frame.
+                return false;
+            }
+
+            // A frame that was counted lost arrives late (frames swapped): it is not lost.
+            seenWindow |= bit;
+            stats.FramesLost--;
+            stats.LateFrames++;
+            return true;
+        }
+
+        // Far back: a new power-up whose first frames were cut away, or another log joined on.
+        if (sequence < RestartSequenceLimit)
+        {
+            stats.Restarts++;
+        }
+        else
+        {
+            stats.SequenceBreaks++;
+        }
+
+        StartSequence(sequence, crc);
+        return true;
+    }
+
+    private void StartSequence(int sequence, uint crc)
+    {
+        sequenceKnown = true;
+        expectedSequence = (sequence + 1) & 0xFFFF;
+        seenWindow = 1UL;
+        lastCrc = crc;
     }
 }

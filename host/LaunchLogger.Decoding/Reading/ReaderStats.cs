@@ -34,9 +34,22 @@ public record struct ReaderStats
     /// good frames), whatever the cause: refused by the box's sink, damaged, cut out.</summary>
     public long FramesLost { get; internal set; }
 
-    /// <summary>Times the sequence returned to 0 with a configuration frame: the box restarted.
-    /// Such a jump is not counted in <see cref="FramesLost"/>.</summary>
+    /// <summary>Times the box restarted: a power-up frame, a return to 0 with a configuration
+    /// frame, or a jump back to a small sequence number whose first frames were cut away. Such a
+    /// jump is not counted in <see cref="FramesLost"/>.</summary>
     public long Restarts { get; internal set; }
+
+    /// <summary>Good frames whose sequence number had been read already (a duplicated or
+    /// replayed frame): dropped, not counted in <see cref="Frames"/>.</summary>
+    public long DuplicateFrames { get; internal set; }
+
+    /// <summary>Good frames that came after a later one (swapped): counted lost when the later
+    /// one came, and taken back out of <see cref="FramesLost"/> when they arrived.</summary>
+    public long LateFrames { get; internal set; }
+
+    /// <summary>Jumps back in sequence number that are neither a repeat nor a late frame nor a
+    /// recognisable restart: another log or a replayed stretch joined on. Runs are cut there.</summary>
+    public long SequenceBreaks { get; internal set; }
 
     /// <summary>Good frames of a type this reader does not know (skipped).</summary>
     public long UnknownFrameTypes { get; internal set; }

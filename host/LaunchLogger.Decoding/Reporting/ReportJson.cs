@@ -6,13 +6,14 @@ namespace LaunchLogger.Decoding.Reporting;
 /// <summary>Writes and reads <see cref="ReportDocument"/> as JSON.</summary>
 public static class ReportJson
 {
-    /// <summary>The serializer settings: snake_case names, nulls written, indented.</summary>
+    /// <summary>The serializer settings: snake_case names, nulls written, indented; a number that
+    /// is not finite is written as null (never as the string "NaN").</summary>
     public static JsonSerializerOptions Options { get; } = new()
     {
         PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
         DefaultIgnoreCondition = JsonIgnoreCondition.Never,
         WriteIndented = true,
-        NumberHandling = JsonNumberHandling.AllowNamedFloatingPointLiterals,
+        Converters = { new FiniteNumberConverter() },
     };
 
     /// <summary>The document as JSON text.</summary>

@@ -41,7 +41,18 @@ public sealed class RunAssembler
     private long previousRunNumber = -1;
     private long previousRunPowerUp = -1;
     private long[]? previousRunLastHealth;
+    private ConfigurationBody? previousConfiguration;
+    private long recoveredConfigurations;
+    private long orphanBytes;
     private bool completed;
+
+    /// <summary>The most frames (and bytes) kept while no run is open, waiting for a copy of their
+    /// run's configuration: about a minute of a busy run.</summary>
+    private const int MaxOrphansKept = 65_536;
+
+    private const long MaxOrphanBytesKept = 16L * 1024 * 1024;
+
+    private readonly List<(FrameType Type, byte[] Body)> orphans = [];
 
     /// <summary>Starts assembling the runs of the log called <paramref name="sourceName"/>.</summary>
     public RunAssembler(string sourceName)
@@ -62,68 +73,154 @@ public sealed class RunAssembler
     {
         ThrowIfCompleted();
         ChargeDamage(readerStats);
-        if (frame.Type == FrameType.Configuration)
+        switch (frame.Type)
         {
-            Open(frame.Body);
-            return;
+            case FrameType.Configuration:
+                Open(frame.Body, frame.Sequence, isCopy: false);
+                return;
+            case FrameType.ConfigurationCopy:
+                Open(frame.Body, frame.Sequence, isCopy: true);
+                return;
+            case FrameType.PowerUp:
+                // The restart it marks has been seen by the reader (ChargeDamage closed any open run).
+                return;
         }
 
         if (open == null)
         {
-            orphanFrames++;
+            KeepOrphan(frame.Type, frame.Body);
             return;
         }
 
-        open.Frames++;
+        Process(frame.Type, frame.Body);
+    }
+
+    /// <summary>Adds one frame of the open run.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void Process(FrameType type, ReadOnlySpan<byte> body)
+    {
+        RunBuilder run = open!;
+        run.Frames++;
         bool parsed = true;
-        switch (frame.Type)
+        switch (type)
         {
             case FrameType.Pulses:
-                parsed = open.AddPulses(frame.Body);
+                parsed = run.AddPulses(body);
                 break;
             case FrameType.Acceleration:
-                parsed = FrameBodies.TryReadAcceleration(frame.Body, out AccelerationBody accel);
+                parsed = FrameBodies.TryReadAcceleration(body, out AccelerationBody accel);
                 if (parsed)
                 {
-                    open.AddAcceleration(accel);
+                    run.AddAcceleration(accel);
                 }
 
                 break;
             case FrameType.Event:
-                parsed = FrameBodies.TryReadEvent(frame.Body, out EventBody evt);
+                parsed = FrameBodies.TryReadEvent(body, out EventBody evt);
                 if (parsed)
                 {
-                    open.AddEvent(evt);
+                    run.AddEvent(evt);
                 }
 
                 break;
             case FrameType.Health:
-                parsed = FrameBodies.TryReadHealth(frame.Body, out HealthBody health);
+                parsed = FrameBodies.TryReadHealth(body, out HealthBody health);
                 if (parsed)
                 {
-                    open.AddHealth(health);
+                    run.AddHealth(health);
                 }
 
                 break;
             case FrameType.Summary:
-                parsed = FrameBodies.TryReadSummary(frame.Body, out SummaryBody summary);
+                parsed = FrameBodies.TryReadSummary(body, out SummaryBody summary);
                 if (parsed)
                 {
-                    open.Summary = summary;
+                    run.Summary = summary;
                     Close(null);
                 }
 
                 break;
             default:
-                open.UnknownFrames++;
+                run.UnknownFrames++;
                 break;
         }
 
         if (!parsed)
         {
             corruptBodies++;
-            open.CorruptBodies++;
+            run.CorruptBodies++;
         }
+    }
+
+    /// <summary>Keeps a frame that came with no run open: its run's configuration may have been
+    /// damaged, and a repeated copy (or, failing that, its summary) may still open the run.</summary>
+    private void KeepOrphan(FrameType type, ReadOnlySpan<byte> body)
+    {
+        orphanFrames++;
+        if (type == FrameType.Summary && FrameBodies.TryReadSummary(body, out SummaryBody summary) && TryOpenFromPrevious(summary))
+        {
+            return;
+        }
+
+        if (orphans.Count < MaxOrphansKept && orphanBytes + body.Length <= MaxOrphanBytesKept)
+        {
+            orphans.Add((type, body.ToArray()));
+            orphanBytes += body.Length;
+        }
+    }
+
+    /// <summary>Feeds the kept orphans to the run just opened (they follow its configuration in
+    /// the log, so they are its frames); returns how many it took.</summary>
+    private int AdoptOrphans()
+    {
+        int adopted = 0;
+        foreach ((FrameType type, byte[] body) in orphans)
+        {
+            if (open == null)
+            {
+                break;
+            }
+
+            orphanFrames--;
+            adopted++;
+            Process(type, body);
+        }
+
+        DropOrphans();
+        return adopted;
+    }
+
+    private void DropOrphans()
+    {
+        orphans.Clear();
+        orphanBytes = 0;
+    }
+
+    /// <summary>Old logs have no configuration copies. When a run's configuration was lost but its
+    /// summary follows the previous run of the same power-up in number, the box had the same
+    /// settings: the run is decoded with them, its number and opening from the summary.</summary>
+    private bool TryOpenFromPrevious(SummaryBody summary)
+    {
+        if (previousConfiguration == null || orphans.Count == 0 || previousRunPowerUp != powerUp
+            || summary.RunNumber != previousConfiguration.RunNumber + 1 || summary.OpenedMicros < previousConfiguration.OpenedMicros)
+        {
+            return false;
+        }
+
+        ConfigurationBody assumed = previousConfiguration with { RunNumber = summary.RunNumber, OpenedMicros = summary.OpenedMicros, Staged = summary.Staged };
+        OpenRun(assumed);
+        open!.Warn(Invariant($"this run's configuration frame was lost: decoded with run {previousConfiguration.RunNumber}'s settings (same power-up), its number and opening taken from its summary"));
+        recoveredConfigurations++;
+        orphanFrames--;
+        AdoptOrphans();
+        if (open != null)
+        {
+            open.Frames++;
+            open.Summary = summary;
+            Close(null);
+        }
+
+        return true;
     }
 
     /// <summary>Ends the log: closes a run left open as cut off and returns everything.</summary>
@@ -168,8 +265,22 @@ public sealed class RunAssembler
         long malformed = now.MalformedFrames - seen.MalformedFrames;
         long lost = now.FramesLost - seen.FramesLost;
         long truncated = now.TruncatedBytes - seen.TruncatedBytes;
-        powerUp += now.Restarts - seen.Restarts;
+        long restarts = now.Restarts - seen.Restarts;
+        long breaks = now.SequenceBreaks - seen.SequenceBreaks;
+        powerUp += restarts;
         seen = now;
+        if (restarts + breaks > 0)
+        {
+            if (open != null)
+            {
+                Close(restarts > 0
+                    ? "cut off: the box restarted before this run's summary (power lost)"
+                    : "cut off: the sequence numbers jump back before this run's summary (another log or a replayed stretch follows)");
+            }
+
+            DropOrphans();
+        }
+
         if (open != null)
         {
             open.CrcErrors += crc;
@@ -185,12 +296,26 @@ public sealed class RunAssembler
         }
     }
 
-    private void Open(ReadOnlySpan<byte> body)
+    private void Open(ReadOnlySpan<byte> body, int sequence, bool isCopy)
     {
-        if (!FrameBodies.TryReadConfiguration(body, out ConfigurationBody configuration))
+        bool readable = FrameBodies.TryReadConfiguration(body, out ConfigurationBody configuration);
+        string? implausible = readable ? InputLimits.CheckConfiguration(configuration) : null;
+        if (implausible != null)
+        {
+            warnings.Add(Invariant($"the configuration frame with sequence number {sequence} was rejected: {implausible}"));
+            readable = false;
+        }
+
+        if (!readable)
         {
             corruptBodies++;
             unreadableConfigurations++;
+            if (isCopy)
+            {
+                // A damaged copy costs only itself: the open run (if any) goes on.
+                return;
+            }
+
             if (open != null)
             {
                 Close("cut off: an unreadable configuration frame followed before this run's summary");
@@ -201,6 +326,20 @@ public sealed class RunAssembler
                 warnings.Add(Invariant($"a run in log format version {body[0]} was skipped: this reader knows version {LogFormat.Version}"));
             }
 
+            DropOrphans();
+            return;
+        }
+
+        if (isCopy && open != null && open.Configuration == configuration)
+        {
+            // The periodic repeat of the open run's configuration.
+            open.Frames++;
+            return;
+        }
+
+        if (isCopy && open == null && configuration == previousConfiguration && previousRunPowerUp == powerUp)
+        {
+            orphanFrames++;
             return;
         }
 
@@ -209,6 +348,24 @@ public sealed class RunAssembler
             Close("cut off: the next run's configuration came before this run's summary");
         }
 
+        OpenRun(configuration);
+        if (isCopy)
+        {
+            // The run's own configuration frame was lost: what came before this copy is its.
+            recoveredConfigurations++;
+            int adopted = orphans.Count;
+            open!.Frames++;
+            AdoptOrphans();
+            open?.Warn(Invariant($"this run's configuration frame was lost: decoded from its repeated copy (sequence number {sequence}); {adopted} frame(s) before the copy recovered"));
+        }
+        else
+        {
+            DropOrphans();
+        }
+    }
+
+    private void OpenRun(ConfigurationBody configuration)
+    {
         string name = powerUp == 0
             ? Invariant($"{source} run {configuration.RunNumber}")
             : Invariant($"{source} run {configuration.RunNumber} (after restart {powerUp})");
@@ -240,6 +397,7 @@ public sealed class RunAssembler
         }
 
         runs.Add(run.Build(baseline));
+        previousConfiguration = run.Configuration;
         previousRunNumber = runNumber;
         previousRunPowerUp = powerUp;
         previousRunLastHealth = run.LastHealth?.Counters;
@@ -259,7 +417,26 @@ public sealed class RunAssembler
 
         if (unreadableConfigurations > 0)
         {
-            warnings.Add(Invariant($"{unreadableConfigurations} configuration frame(s) could not be read; their runs were skipped"));
+            warnings.Add(Invariant($"{unreadableConfigurations} configuration frame(s) could not be read ({recoveredConfigurations} run(s) recovered from a copy or the previous run's settings)"));
+        }
+        else if (recoveredConfigurations > 0)
+        {
+            warnings.Add(Invariant($"{recoveredConfigurations} run(s) whose configuration frame was lost were recovered from a copy or the previous run's settings"));
+        }
+
+        if (stats.DuplicateFrames > 0)
+        {
+            warnings.Add(Invariant($"{stats.DuplicateFrames} repeated frame(s) (same sequence number as one already read) were dropped"));
+        }
+
+        if (stats.LateFrames > 0)
+        {
+            warnings.Add(Invariant($"{stats.LateFrames} frame(s) came out of order and were put back in place"));
+        }
+
+        if (stats.SequenceBreaks > 0)
+        {
+            warnings.Add(Invariant($"the sequence numbers jump back {stats.SequenceBreaks} time(s): another log or a replayed stretch is joined on"));
         }
 
         if (outsideLost > 0)

@@ -16,11 +16,20 @@ internal sealed class RunBuilder
     private readonly List<EventBody> events = [];
     private readonly List<string> warnings = [];
 
+    // The run's time bounds (InputLimits): observations outside them cannot belong to the run
+    // and are dropped, so that nothing downstream is sized from a wild time under a good CRC.
+    private readonly long earliestMicros;
+    private readonly long latestMicros;
+    private long eventsOutOfBounds;
+    private long accelFramesOutOfBounds;
+
     /// <summary>Opens a run collecting into <paramref name="scratch"/>, which it empties first
     /// and must have to itself until <see cref="Build"/>.</summary>
     public RunBuilder(ConfigurationBody configuration, string source, RunScratch scratch)
     {
         Configuration = configuration;
+        earliestMicros = configuration.OpenedMicros - (long)(InputLimits.MaxPreRunS * 1e6);
+        latestMicros = configuration.OpenedMicros + (long)(InputLimits.MaxRunSpanS * 1e6);
         Source = source;
         Frames = 1;
         this.scratch = scratch;
@@ -56,11 +65,27 @@ internal sealed class RunBuilder
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void AddAcceleration(in AccelerationBody body)
     {
+        if (!InBounds(body.ReadMicros) || body.FirstIndex > MaxSampleIndex)
+        {
+            accelFramesOutOfBounds++;
+            return;
+        }
+
         scratch.AccelFrames.Add(new RunScratch.AccelFrame(body.ReadMicros, body.FirstIndex, body.Count, AccelSampleCount));
         scratch.AccelSamples.AddRange(body.Samples);
     }
 
-    public void AddEvent(EventBody evt) => events.Add(evt);
+    public void AddEvent(EventBody evt)
+    {
+        if (InBounds(evt.TimeMicros))
+        {
+            events.Add(evt);
+        }
+        else
+        {
+            eventsOutOfBounds++;
+        }
+    }
 
     public void AddHealth(HealthBody health)
     {
@@ -134,11 +159,22 @@ internal sealed class RunBuilder
         };
     }
 
+    /// <summary>The highest sample index a run can reach: the longest run at the fastest rate,
+    /// with room for a sensor that has been running since long before the run.</summary>
+    private const long MaxSampleIndex = 1L << 40;
+
     /// <summary>Accelerometer samples read so far.</summary>
     private int AccelSampleCount => scratch.AccelSamples.Count / AccelerationBody.BytesPerSample;
 
+    private bool InBounds(long micros) => micros >= earliestMicros && micros <= latestMicros;
+
     private void WarnDamage()
     {
+        if (eventsOutOfBounds + accelFramesOutOfBounds > 0)
+        {
+            Warn(Invariant($"{eventsOutOfBounds} event(s) and {accelFramesOutOfBounds} accelerometer frame(s) lay outside the run's time bounds ({InputLimits.MaxPreRunS} s before its opening to {InputLimits.MaxRunSpanS} s after) and were dropped"));
+        }
+
         if (FramesLost > 0)
         {
             Warn(Invariant($"{FramesLost} frame(s) lost inside this run (gaps in the sequence numbers)"));
@@ -171,38 +207,103 @@ internal sealed class RunBuilder
     private List<PulseRecord> PulseRecords(int channel)
     {
         ReadOnlySpan<PulseMicros> observed = (channel == 0 ? scratch.Channel0 : scratch.Channel1).Span;
+        var filter = new PulseFilter(MaxCount(channel), InputLimits.MaxPlausibleSpeedMps / 1e6 / MetresPerPulse(channel), earliestMicros, latestMicros);
         int kept = 0;
-        long lastCount = 0;
         foreach (ref readonly PulseMicros p in observed)
         {
-            if (p.Count > lastCount)
-            {
-                kept++;
-                lastCount = p.Count;
-            }
+            kept += filter.Keep(p) ? 1 : 0;
         }
 
         var records = new List<PulseRecord>(kept);
         CollectionsMarshal.SetCount(records, kept);
         Span<PulseRecord> into = CollectionsMarshal.AsSpan(records);
         int at = 0;
-        lastCount = 0;
+        int outOfBounds = filter.OutOfBounds;
+        int tooFast = filter.TooFast;
+        filter = new PulseFilter(filter.MaxCount, filter.MaxPulsesPerMicro, earliestMicros, latestMicros);
         foreach (ref readonly PulseMicros p in observed)
         {
-            if (p.Count > lastCount)
+            if (filter.Keep(p))
             {
                 into[at++] = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
-                lastCount = p.Count;
             }
         }
 
-        int dropped = observed.Length - kept;
+        if (outOfBounds > 0)
+        {
+            Warn(Invariant($"{outOfBounds} pulse observation(s) of channel {channel} lay outside the run's bounds ({InputLimits.MaxPreRunS} s before its opening to {InputLimits.MaxRunSpanS} s after) and were dropped"));
+        }
+
+        if (tooFast > 0)
+        {
+            Warn(Invariant($"{tooFast} pulse observation(s) of channel {channel} counted faster than {InputLimits.MaxPlausibleSpeedMps} m/s since the one before and were dropped"));
+        }
+
+        int dropped = observed.Length - kept - outOfBounds - tooFast;
         if (dropped > 0)
         {
             Warn(Invariant($"{dropped} pulse observation(s) of channel {channel} repeated or went back on an earlier count and were dropped"));
         }
 
         return records;
+    }
+
+    /// <summary>The distance per pulse of a channel, m.</summary>
+    private double MetresPerPulse(int channel)
+    {
+        ConfigurationBody c = Configuration;
+        double metresPerPulse = channel == 0
+            ? c.CircumferenceMicrometres / 1e6 / c.PulsesPerRevolution
+            : c.SecondPulsesPerRevolution > 0 ? c.SecondCircumferenceMicrometres / 1e6 / c.SecondPulsesPerRevolution : 0;
+        return Math.Max(metresPerPulse, InputLimits.MinMetresPerPulse);
+    }
+
+    /// <summary>The most pulses a channel can count in the longest run at the highest plausible speed.</summary>
+    private long MaxCount(int channel) =>
+        (long)Math.Min(long.MaxValue / 2.0, InputLimits.MaxRunSpanS * InputLimits.MaxPlausibleSpeedMps / MetresPerPulse(channel)) + 1;
+
+    /// <summary>Keeps the observations of one channel that move the count forward, lie within the
+    /// run's time bounds and imply no speed above <see cref="InputLimits.MaxPlausibleSpeedMps"/>
+    /// since the last one kept; counts the rest by cause.</summary>
+    private struct PulseFilter(long maxCount, double maxPulsesPerMicro, long earliestMicros, long latestMicros)
+    {
+        private long lastCount;
+        private long lastLo = long.MinValue;
+
+        public readonly long MaxCount => maxCount;
+
+        public readonly double MaxPulsesPerMicro => maxPulsesPerMicro;
+
+        public int OutOfBounds { get; private set; }
+
+        public int TooFast { get; private set; }
+
+        public bool Keep(in PulseMicros p)
+        {
+            if (p.LoMicros > p.HiMicros || p.LoMicros < earliestMicros || p.HiMicros > latestMicros || p.Count > maxCount)
+            {
+                OutOfBounds++;
+                return false;
+            }
+
+            if (p.Count <= lastCount)
+            {
+                return false;
+            }
+
+            // One pulse more is always possible; a jump of many needs the time to cover them.
+            long step = p.Count - lastCount;
+            long since = p.HiMicros - Math.Max(lastLo, earliestMicros);
+            if (step > 1 && step > (Math.Max(0, since) * maxPulsesPerMicro) + 1)
+            {
+                TooFast++;
+                return false;
+            }
+
+            lastCount = p.Count;
+            lastLo = p.LoMicros;
+            return true;
+        }
     }
 
     private void WarnWideBrackets(List<PulseRecord> channel0, List<PulseRecord> channel1, double limitS)
@@ -334,6 +435,8 @@ internal sealed class RunBuilder
         int lateralAt = 2 * axes.LateralAxis;
         int verticalAt = 2 * axes.VerticalAxis;
         double periodS = clock.PeriodS;
+        double earliestS = LogUnits.Seconds(earliestMicros);
+        double latestS = LogUnits.Seconds(latestMicros);
         int kept = 0;
         long lastIndex = long.MinValue;
         double lastTime = double.NegativeInfinity;
@@ -347,7 +450,7 @@ internal sealed class RunBuilder
                 // As SampleClock.TimeOf, with the segment's origin looked up once per frame.
                 long sampleIndex = frame.FirstIndex + i;
                 double t = originS + (periodS * sampleIndex);
-                if (sampleIndex <= lastIndex || !(t > lastTime))
+                if (sampleIndex <= lastIndex || !(t > lastTime) || !(t >= earliestS && t <= latestS))
                 {
                     continue;
                 }

@@ -121,6 +121,12 @@ public static class ScenarioFile
                 throw new ScenarioException($"{source}: unknown field '{path}'");
             }
 
+            if (value is null && target[key] is JsonObject)
+            {
+                // A null section would reach the simulator as a missing part of the car.
+                throw new ScenarioException($"{source}: field '{path}' must not be null (leave it out to keep the base scenario's)");
+            }
+
             if (value is JsonObject patchObject && target[key] is JsonObject targetObject)
             {
                 MergeInto(targetObject, patchObject, path, source);

@@ -40,11 +40,15 @@ public class PulseScaleTests
 
     [Theory]
     [InlineData("both forms", 0.04, 48, 1.96, "--metres-per-pulse", "give it or --pulses-per-rev with --circumference-m, not both")]
-    [InlineData("zero", 0.0, null, null, "--metres-per-pulse", "must be a positive number of metres (was 0)")]
+    [InlineData("zero", 0.0, null, null, "--metres-per-pulse", "0 m per pulse is outside 0.0001 to 5 m")]
+    [InlineData("huge", 1e308, null, null, "--metres-per-pulse", "1E+308 m per pulse is outside 0.0001 to 5 m")]
+    [InlineData("tiny", 1e-300, null, null, "--metres-per-pulse", "1E-300 m per pulse is outside 0.0001 to 5 m")]
+    [InlineData("not a number", double.NaN, null, null, "--metres-per-pulse", "NaN m per pulse is outside 0.0001 to 5 m")]
     [InlineData("pulses alone", null, 48, null, "--circumference-m", "is needed with --pulses-per-rev")]
     [InlineData("circumference alone", null, null, 1.96, "--pulses-per-rev", "is needed with --circumference-m")]
-    [InlineData("no pulses", null, 0, 1.96, "--pulses-per-rev", "must be at least 1 (was 0)")]
-    [InlineData("negative circumference", null, 48, -2.0, "--circumference-m", "must be a positive number of metres (was -2)")]
+    [InlineData("no pulses", null, 0, 1.96, "--pulses-per-rev", "0 pulses per revolution is outside 1 to 10000")]
+    [InlineData("negative circumference", null, 48, -2.0, "--circumference-m", "circumference -2 m is outside 0.3 to 5 m")]
+    [InlineData("circumference of a planet", null, 48, 4e7, "--circumference-m", "circumference 40000000 m is outside 0.3 to 5 m")]
     public void OptionsThatDoNotFitNameTheOption(string name, double? mpp, int? ppr, double? circumference, string option, string detail)
     {
         var e = Assert.Throws<InputException>(() => PulseScale.FromOptions(mpp, ppr, circumference));

@@ -136,7 +136,7 @@ public class RunAssemblerTests
 
         Assert.Equal(2, result.Runs.Count);
         Assert.False(result.Runs[0].Complete);
-        Assert.Contains(result.Runs[0].Warnings, w => w.StartsWith("cut off: the next run's configuration", StringComparison.Ordinal));
+        Assert.Contains(result.Runs[0].Warnings, w => w.StartsWith("cut off: the box restarted", StringComparison.Ordinal));
         Assert.True(result.Runs[1].Complete);
     }
 

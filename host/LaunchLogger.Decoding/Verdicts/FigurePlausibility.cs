@@ -1,0 +1,107 @@
+using System.Collections;
+using System.Reflection;
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Runs;
+using static System.FormattableString;
+
+namespace LaunchLogger.Decoding.Verdicts;
+
+/// <summary>Finds figures no car can produce — not finite, a speed above
+/// <see cref="InputLimits.MaxPlausibleSpeedMps"/>, an acceleration above
+/// <see cref="MaxPlausibleAccelMps2"/> — anywhere in a run's results, so that such a run is
+/// judged invalid with the reason, never valid.</summary>
+/// <remarks>Walks every public number of the figures, the stop, the grade and the corrected
+/// figures by reflection, so a figure added later is checked without anyone remembering to.
+/// Units come from the names (STYLE.md: the unit is in the name): <c>…Mps</c> speeds,
+/// <c>…Mps2</c> accelerations.</remarks>
+public static class FigurePlausibility
+{
+    /// <summary>The largest acceleration or deceleration a car's figure may show, m/s² (about
+    /// 20 g; top-fuel dragsters reach about 5 g, common practice).</summary>
+    public const double MaxPlausibleAccelMps2 = 200;
+
+    private const int MaxDepth = 6;
+
+    /// <summary>The reason a run's results are impossible, or null when all are plausible.</summary>
+    public static VerdictReason? Check(RunAnalysis analysis)
+    {
+        var problems = new List<string>();
+        Walk(analysis.Figures, "figures", problems, 0);
+        Walk(analysis.Braking, "braking", problems, 0);
+        Walk(analysis.Grade, "grade", problems, 0);
+        Walk(analysis.LevelFigures, "level", problems, 0);
+        Walk(analysis.StandardAirFigures, "standard_air", problems, 0);
+        if (problems.Count == 0)
+        {
+            return null;
+        }
+
+        string more = problems.Count > 1 ? Invariant($" (and {problems.Count - 1} more)") : "";
+        return new VerdictReason(VerdictLevel.Invalid, "impossible_figure", $"a figure no car can produce: {problems[0]}{more}; the input is damaged or its settings are wrong");
+    }
+
+    /// <summary>The verdict with the plausibility reason added, when there is one.</summary>
+    public static Verdict Apply(Verdict verdict, RunAnalysis analysis) =>
+        Check(analysis) is { } reason ? new Verdict([.. verdict.Reasons, reason]) : verdict;
+
+    private static void Walk(object? value, string path, List<string> problems, int depth)
+    {
+        if (value is null || depth > MaxDepth)
+        {
+            return;
+        }
+
+        switch (value)
+        {
+            case double d:
+                CheckNumber(d, path, problems);
+                return;
+            case Estimate e:
+                CheckNumber(e.Value, path, problems);
+                CheckNumber(e.Sigma, path + " uncertainty", problems);
+                return;
+            case string:
+                return;
+            case IEnumerable items:
+                int i = 0;
+                foreach (object? item in items)
+                {
+                    Walk(item, Invariant($"{path}[{i++}]"), problems, depth + 1);
+                }
+
+                return;
+        }
+
+        Type type = value.GetType();
+        if (type.Namespace is null || !type.Namespace.StartsWith("LaunchLogger.", StringComparison.Ordinal) || type.IsEnum)
+        {
+            return;
+        }
+
+        foreach (PropertyInfo property in type.GetProperties(BindingFlags.Public | BindingFlags.Instance))
+        {
+            if (property.GetIndexParameters().Length > 0 || property.Name == "EqualityContract")
+            {
+                continue;
+            }
+
+            Walk(property.GetValue(value), path + "." + property.Name, problems, depth + 1);
+        }
+    }
+
+    private static void CheckNumber(double value, string path, List<string> problems)
+    {
+        if (!double.IsFinite(value))
+        {
+            problems.Add(Invariant($"{path} is {value}"));
+        }
+        else if (path.EndsWith("Mps", StringComparison.Ordinal) && Math.Abs(value) > InputLimits.MaxPlausibleSpeedMps)
+        {
+            problems.Add(Invariant($"{path} is {value:G4} m/s, above {InputLimits.MaxPlausibleSpeedMps} m/s"));
+        }
+        else if (path.EndsWith("Mps2", StringComparison.Ordinal) && Math.Abs(value) > MaxPlausibleAccelMps2)
+        {
+            problems.Add(Invariant($"{path} is {value:G4} m/s², above {MaxPlausibleAccelMps2} m/s²"));
+        }
+    }
+}
