@@ -8,8 +8,10 @@ namespace LaunchLogger.Decoding.Braking;
 /// The stop is the fall from the highest speed to standstill at the end of the run. Onset is the
 /// brake switch's closing where the box had one wired (SAE J299 measures stopping distance from
 /// the first movement of the brake control; the switch closes within a few millimetres of pedal
-/// travel). Otherwise it is estimated from the deceleration: a straight line fitted to the rise
-/// of deceleration between 20 % and 80 % of its peak, extrapolated back to zero deceleration.
+/// travel). Otherwise it is estimated from the deceleration by fitting a level, a linear rise and
+/// a plateau together (<see cref="BrakeOnsetFit"/>); where that fit finds no rise, a straight
+/// line through the rise between 20 % and 80 % of the full deceleration, extrapolated back to
+/// the level before it.
 /// </remarks>
 public static class BrakingAnalyzer
 {
@@ -84,9 +86,8 @@ public static class BrakingAnalyzer
         }
         else
         {
-            onset = rawAccel is { } raw && raw.TimeS.Length > 10
-                ? DecelerationOnset(raw.TimeS, raw.AccelMps2, t[peak], standstillS)
-                : DecelerationOnset(t, a, t[peak], standstillS);
+            (double[] st, double[] sa) = rawAccel is { } raw && raw.TimeS.Length > 10 ? raw : (t, a);
+            onset = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS) ?? DecelerationOnset(st, sa, t[peak], standstillS);
             onsetMethod = "deceleration onset";
         }
 

@@ -1,0 +1,239 @@
+using System.Globalization;
+using System.Text;
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Import;
+using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Verdicts;
+using Xunit.Abstractions;
+
+namespace LaunchLogger.Decoding.Tests.Analysis;
+
+/// <summary>Records that open moving, and stops from cruise, given as plain-text inputs whose
+/// truth is a closed form: acceleration piecewise linear in time, so position is a cubic per
+/// piece (constant jerk; kinematics, any textbook), pulse edges where position crosses each
+/// pulse pitch, accelerometer samples of the acceleration itself.</summary>
+public sealed class OpeningMotionTests(ITestOutputHelper output) : IDisposable
+{
+    private const double Mph = 0.44704; // exact, international yard and pound agreement (1959)
+    private const double Circumference = 1.96;
+    private const int Teeth = 48;
+    private const double Pitch = Circumference / Teeth;
+
+    private readonly string folder = Directory.CreateTempSubdirectory("llopening").FullName;
+
+    public void Dispose() => Directory.Delete(folder, recursive: true);
+
+    [Theory]
+    [InlineData(true)]
+    [InlineData(false)]
+    public void ARecordOpeningAtCruiseThenStoppingIsAStopNotALaunch(bool withAccel)
+    {
+        // 60 mph for 2 s, deceleration rising to 8 m/s² over 0.3 s, then 8 m/s² to rest.
+        var profile = new Profile(60 * Mph, [new(2.0, 0, 0), new(0.3, 0, -8), new(6.0, -8, -8)]);
+        RunAnalysis analysis = Analyze(profile, withAccel);
+
+        Assert.False(analysis.Reconstruction.Staged);
+        Assert.Equal(60 * Mph, analysis.Reconstruction.StartSpeedMps!.Value.Value, 0.05);
+        Assert.True(analysis.Figures.PeakAccelMps2 < 1.0, $"peak acceleration {analysis.Figures.PeakAccelMps2} m/s² on a record that only slows down");
+        Assert.All(analysis.Figures.SpeedIntervals, i => Assert.Null(i.FromStandstillS));
+        Assert.All(analysis.Figures.DistanceMarks, m => Assert.Null(m.FromStandstillS));
+        Assert.Null(analysis.Figures.RolloutTimeS);
+        Assert.Contains(RunJudge.Judge(analysis, null, null).Reasons, r => r.Code == "rolling_start");
+
+        // The stop: from the start of the rise, closed-form distance.
+        var braking = analysis.Braking!;
+        double truthDistance = profile.PositionAt(profile.StopS) - profile.PositionAt(2.0);
+        output.WriteLine($"accel {withAccel}: onset error {(braking.OnsetS.Value - 2.0) * 1e3:F1} ms (σ {braking.OnsetS.Sigma * 1e3:F1}), distance error {braking.StoppingDistanceM.Value - truthDistance:F3} m");
+        Assert.Equal(60 * Mph, braking.FromMps, 0.05);
+        Assert.Equal(2.0, braking.OnsetS.Value, 0.015);
+        Assert.Equal(truthDistance, braking.StoppingDistanceM.Value, 0.3);
+    }
+
+    [Theory]
+    [InlineData(0.05)]
+    [InlineData(1.0)]
+    [InlineData(2.0)]
+    public void ASlowBrakeRiseFromCruiseKeepsItsOnsetAndDistance(double riseS)
+    {
+        var profile = new Profile(60 * Mph, [new(2.0, 0, 0), new(riseS, 0, -8), new(6.0, -8, -8)]);
+        RunAnalysis analysis = Analyze(profile, withAccel: true);
+
+        var braking = analysis.Braking!;
+        double truthDistance = profile.PositionAt(profile.StopS) - profile.PositionAt(2.0);
+        output.WriteLine($"rise {riseS} s: onset error {(braking.OnsetS.Value - 2.0) * 1e3:F1} ms (σ {braking.OnsetS.Sigma * 1e3:F1}), distance error {braking.StoppingDistanceM.Value - truthDistance:F3} m");
+        Assert.Equal(2.0, braking.OnsetS.Value, 0.015);
+        Assert.Equal(truthDistance, braking.StoppingDistanceM.Value, 0.3);
+    }
+
+    [Fact]
+    public void ARollingStartHasPassingTimesAndNoStandingFigure()
+    {
+        // 20 mph at the first pulse, 0.5 s steady, then 3 m/s² for 10 s: 30–50 and 50–70 mph
+        // each take 20 mph ÷ 3 m/s² = 2.98027 s.
+        var profile = new Profile(20 * Mph, [new(0.5, 0, 0), new(10.0, 3, 3)]);
+        RunAnalysis analysis = Analyze(profile, withAccel: true);
+
+        Assert.False(analysis.Reconstruction.Staged);
+        double expected = 20 * Mph / 3;
+        foreach (string label in new[] { "30-50 mph", "50-70 mph" })
+        {
+            IntervalFigure passing = analysis.Figures.SpeedIntervals.Single(i => i.Interval.Label == label);
+            output.WriteLine($"{label}: error {(passing.FromStandstillS!.Value - expected) * 1e3:F2} ms (σ {passing.UncertaintyS!.Value * 1e3:F2})");
+            Assert.Equal(expected, passing.FromStandstillS!.Value, 0.005);
+        }
+
+        // Standing intervals, and a rolling one whose lower speed the car had already passed, are not timed.
+        Assert.Null(analysis.Figures.SpeedIntervals.Single(i => i.Interval.Label == "0-60 mph").FromStandstillS);
+        Assert.Null(analysis.Figures.SpeedIntervals.Single(i => i.Interval.Label == "5-60 mph").FromStandstillS);
+        Assert.All(analysis.Figures.DistanceMarks, m => Assert.Null(m.FromStandstillS));
+        Assert.Null(analysis.Figures.MeanAccel0To60Mps2);
+    }
+
+    [Theory]
+    [InlineData(true)]
+    [InlineData(false)]
+    public void AStandingStartStaysStaged(bool withAccel)
+    {
+        // 1 s at rest, then 4 m/s²: 0–60 mph in 26.8224 / 4 = 6.7056 s from standstill.
+        var profile = new Profile(0, [new(1.0, 0, 0), new(8.0, 4, 4)]);
+        RunAnalysis analysis = Analyze(profile, withAccel);
+
+        Assert.True(analysis.Reconstruction.Staged);
+        Assert.Null(analysis.Reconstruction.StartSpeedMps);
+        IntervalFigure zeroTo60 = analysis.Figures.SpeedIntervals.Single(i => i.Interval.Label == "0-60 mph");
+        // Within its stated uncertainty (without an accelerometer, first motion is
+        // back-extrapolated over every onset ramp the pulses cannot rule out).
+        double error = zeroTo60.FromStandstillS!.Value - (60 * Mph / 4);
+        output.WriteLine($"accel {withAccel}: 0-60 mph error {error * 1e3:F1} ms (σ {zeroTo60.UncertaintyS!.Value * 1e3:F1})");
+        Assert.InRange(Math.Abs(error), 0, 3 * zeroTo60.UncertaintyS!.Value);
+    }
+
+    private RunAnalysis Analyze(Profile profile, bool withAccel)
+    {
+        string edges = Path.Combine(folder, "edges.csv");
+        var text = new StringBuilder("t_s\n");
+        foreach (double t in profile.Edges(Pitch, phase: 0.37))
+        {
+            text.Append(t.ToString("R", CultureInfo.InvariantCulture)).Append('\n');
+        }
+
+        File.WriteAllText(edges, text.ToString());
+        string? accel = null;
+        if (withAccel)
+        {
+            accel = Path.Combine(folder, "accel.csv");
+            var samples = new StringBuilder("t_s,ax_mps2\n");
+            var noise = new Random(7);
+            for (double t = 0; t <= profile.EndS; t += 1.0 / 400)
+            {
+                // White noise of 0.02 m/s² (about 2 mg, a MEMS sensor at 400 Hz; common practice).
+                double a = profile.AccelAt(t) + (0.02 * Gaussian(noise));
+                samples.Append(CultureInfo.InvariantCulture, $"{t:R},{a:R}\n");
+            }
+
+            File.WriteAllText(accel, samples.ToString());
+        }
+
+        DecodedRun run = TextRunImporter.Import(new TextImportRequest { EdgesPath = edges, AccelPath = accel, Scale = PulseScale.FromOptions(null, Teeth, Circumference) });
+        return RunAnalyzer.Analyze(run);
+    }
+
+    private static double Gaussian(Random random) =>
+        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
+
+    /// <summary>One piece: <paramref name="DurationS"/> with acceleration linear from <paramref name="FromMps2"/> to <paramref name="ToMps2"/>.</summary>
+    private readonly record struct Piece(double DurationS, double FromMps2, double ToMps2);
+
+    /// <summary>A closed-form trajectory from speed <paramref name="v0"/> at t = 0; the car stays
+    /// at rest once its speed reaches zero.</summary>
+    private sealed class Profile
+    {
+        private readonly double v0;
+        private readonly Piece[] pieces;
+
+        public Profile(double v0, Piece[] pieces)
+        {
+            this.v0 = v0;
+            this.pieces = pieces;
+            EndS = pieces.Sum(p => p.DurationS);
+            StopS = EndS;
+            // The first time the speed reaches zero after having been positive (bisection on
+            // each piece where it changes sign).
+            double start = 0;
+            foreach (Piece p in pieces)
+            {
+                double vStart = Raw(start).V;
+                double vEnd = Raw(start + p.DurationS).V;
+                if (vStart > 0 && vEnd <= 0)
+                {
+                    double lo = start, hi = start + p.DurationS;
+                    for (int k = 0; k < 200; k++)
+                    {
+                        double m = 0.5 * (lo + hi);
+                        (Raw(m).V > 0 ? ref lo : ref hi) = m;
+                    }
+
+                    StopS = hi;
+                    break;
+                }
+
+                start += p.DurationS;
+            }
+        }
+
+        public double EndS { get; }
+
+        public double StopS { get; }
+
+        public double PositionAt(double t) => Raw(Math.Min(t, StopS)).X;
+
+        public double AccelAt(double t) => t >= StopS ? 0 : Raw(t).A;
+
+        /// <summary>Times where the position reaches (k + phase)·pitch, k = 0, 1, …</summary>
+        public IEnumerable<double> Edges(double pitch, double phase)
+        {
+            double total = PositionAt(EndS);
+            for (int k = 0; (k + phase) * pitch < total; k++)
+            {
+                double target = (k + phase) * pitch;
+                double lo = 0, hi = Math.Min(StopS, EndS);
+                if (PositionAt(lo) >= target)
+                {
+                    continue;
+                }
+
+                for (int i = 0; i < 200 && hi - lo > 1e-12; i++)
+                {
+                    double m = 0.5 * (lo + hi);
+                    (PositionAt(m) < target ? ref lo : ref hi) = m;
+                }
+
+                yield return hi;
+            }
+        }
+
+        /// <summary>Position, speed and acceleration of the unclamped motion: per piece
+        /// x = x₀ + v₀·s + a₀·s²/2 + j·s³/6, v = v₀ + a₀·s + j·s²/2, a = a₀ + j·s.</summary>
+        private (double X, double V, double A) Raw(double t)
+        {
+            double x = 0, v = v0, start = 0;
+            for (int i = 0; i < pieces.Length; i++)
+            {
+                Piece p = pieces[i];
+                double j = (p.ToMps2 - p.FromMps2) / p.DurationS;
+                double s = Math.Min(t - start, p.DurationS);
+                if (t - start <= p.DurationS || i == pieces.Length - 1)
+                {
+                    return (x + (v * s) + (p.FromMps2 * s * s / 2) + (j * s * s * s / 6), v + (p.FromMps2 * s) + (j * s * s / 2), p.FromMps2 + (j * s));
+                }
+
+                x += (v * p.DurationS) + (p.FromMps2 * p.DurationS * p.DurationS / 2) + (j * p.DurationS * p.DurationS * p.DurationS / 6);
+                v += (p.FromMps2 * p.DurationS) + (j * p.DurationS * p.DurationS / 2);
+                start += p.DurationS;
+            }
+
+            return (x, v, 0);
+        }
+    }
+}
