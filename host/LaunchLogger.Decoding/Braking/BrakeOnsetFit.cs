@@ -60,9 +60,11 @@ internal static class BrakeOnsetFit
     /// <param name="fromS">Earliest time the window may open (the run's start or first motion).</param>
     /// <param name="peakS">Time of the highest speed before the stop.</param>
     /// <param name="standstillS">When the car came to rest.</param>
+    /// <param name="riseS">The fitted rise length T, s (NaN without a fit).</param>
     /// <returns>The onset and its σ, or null when the samples are too few or show no rise.</returns>
-    public static Estimate? Fit(double[] t, double[] a, double[]? placeT, double[]? placeA, double fromS, double peakS, double standstillS)
+    public static Estimate? Fit(double[] t, double[] a, double[]? placeT, double[]? placeA, double fromS, double peakS, double standstillS, out double riseS)
     {
+        riseS = double.NaN;
         int n = t.Length;
         if (n < 10 || t[^1] <= t[0])
         {
@@ -133,6 +135,7 @@ internal static class BrakeOnsetFit
         // of a share of the rise, sized on the simulator's stops (errors of 3–14 ms on rises of
         // 0.1–0.5 s), is added to the statistical width.
         double rise = sums.BestRamp(onset, end).RampS;
+        riseS = rise;
         double model = (ModelErrorPerRise * rise) + ModelErrorS;
         double statistical = Math.Max(0.5 * (above - below), period / Math.Sqrt(12));
         return new Estimate(onset, Math.Sqrt((statistical * statistical) + (model * model)));

@@ -21,6 +21,9 @@ public static class BrakingAnalyzer
     /// <summary>A stop must lose at least this much speed to count, m/s (about 11 mph).</summary>
     public const double MinimumStopSpeedMps = 5.0;
 
+    /// <summary>A brake rise at least this long is timed by the ramp fit, s.</summary>
+    public const double SlowRiseS = 0.5;
+
     /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
     public const double CorrectionTolerance = 0.10;
 
@@ -87,7 +90,14 @@ public static class BrakingAnalyzer
         else
         {
             (double[] st, double[] sa) = rawAccel is { } raw && raw.TimeS.Length > 10 ? raw : (t, a);
-            onset = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS) ?? DecelerationOnset(st, sa, t[peak], standstillS);
+            // A quick rise leaves a clean level before it, and the line through its 20–80 % part
+            // is then the steadier answer; a slow one contaminates any level window, so the ramp
+            // fit (level and rise together) takes over from SlowRiseS.
+            Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS);
+            Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
+            onset = fitted is not { } f ? line
+                : riseS >= SlowRiseS ? f
+                : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
             onsetMethod = "deceleration onset";
         }
 
