@@ -8,8 +8,10 @@ namespace LaunchLogger.Decoding.Braking;
 /// The stop is the fall from the highest speed to standstill at the end of the run. Onset is the
 /// brake switch's closing where the box had one wired (SAE J299 measures stopping distance from
 /// the first movement of the brake control; the switch closes within a few millimetres of pedal
-/// travel). Otherwise it is estimated from the deceleration: a straight line fitted to the rise
-/// of deceleration between 20 % and 80 % of its peak, extrapolated back to zero deceleration.
+/// travel). Otherwise it is estimated from the deceleration by fitting a level, a linear rise and
+/// a plateau together (<see cref="BrakeOnsetFit"/>); where that fit finds no rise, a straight
+/// line through the rise between 20 % and 80 % of the full deceleration, extrapolated back to
+/// the level before it.
 /// </remarks>
 public static class BrakingAnalyzer
 {
@@ -18,6 +20,9 @@ public static class BrakingAnalyzer
 
     /// <summary>A stop must lose at least this much speed to count, m/s (about 11 mph).</summary>
     public const double MinimumStopSpeedMps = 5.0;
+
+    /// <summary>A brake rise at least this long is timed by the ramp fit, s.</summary>
+    public const double SlowRiseS = 0.5;
 
     /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
     public const double CorrectionTolerance = 0.10;
@@ -84,9 +89,15 @@ public static class BrakingAnalyzer
         }
         else
         {
-            onset = rawAccel is { } raw && raw.TimeS.Length > 10
-                ? DecelerationOnset(raw.TimeS, raw.AccelMps2, t[peak], standstillS)
-                : DecelerationOnset(t, a, t[peak], standstillS);
+            (double[] st, double[] sa) = rawAccel is { } raw && raw.TimeS.Length > 10 ? raw : (t, a);
+            // A quick rise leaves a clean level before it, and the line through its 20–80 % part
+            // is then the steadier answer; a slow one contaminates any level window, so the ramp
+            // fit (level and rise together) takes over from SlowRiseS.
+            Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS);
+            Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
+            onset = fitted is not { } f ? line
+                : riseS >= SlowRiseS ? f
+                : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
             onsetMethod = "deceleration onset";
         }
 

@@ -32,7 +32,41 @@ public class BrakingAnalyzerTests
         BrakingResult result = BrakingAnalyzer.Analyze(trajectory)!;
         Assert.Equal("deceleration onset", result.OnsetMethod);
         Assert.Equal(1.3, result.OnsetS.Value, 3);
-        Assert.True(result.OnsetS.Sigma < 0.002);
+        Assert.InRange(result.OnsetS.Sigma, 1e-4, 0.015);
+    }
+
+    [Theory]
+    [InlineData(0.05)]
+    [InlineData(0.3)]
+    [InlineData(1.0)]
+    [InlineData(2.0)]
+    public void TheOnsetOfASlowOrFastRiseIsFoundWhereTheRiseBegins(double rampS)
+    {
+        // Cruise at 60 mph, then deceleration rising linearly to 8 m/s² over rampS from 2.0 s.
+        // Closed form (constant jerk, then constant deceleration; kinematics, any textbook):
+        // stopping distance = v0·T − j·T³/6 + v(T)²/(2·8), j = 8/T, v(T) = v0 − 8·T/2.
+        const double V0 = 60 * 0.44704;
+        Trajectory trajectory = Stop(V0, switchAtS: 2.0, deadTimeS: 0, rampS: rampS, decel: 8);
+        BrakingResult result = BrakingAnalyzer.Analyze(trajectory)!;
+        double vT = V0 - (8 * rampS / 2);
+        double expected = (V0 * rampS) - (8 / rampS * rampS * rampS * rampS / 6) + (vT * vT / 16);
+        Assert.Equal(2.0, result.OnsetS.Value, 0.001);
+        Assert.Equal(expected, result.StoppingDistanceM.Value, 0.03);
+        Assert.Equal(V0, result.FromMps, 0.01);
+    }
+
+    [Fact]
+    public void TheOnsetOfARiseThatLastsTheWholeStopIsWhereTheRiseBegins()
+    {
+        // Deceleration rising at 4 m/s³ from 2.0 s until the car stops (no plateau): with
+        // j = 4, v(s) = v0 − j·s²/2 reaches 0 at s = √(2·v0/j), distance v0·s − j·s³/6.
+        const double V0 = 60 * 0.44704;
+        const double J = 4;
+        double stopS = Math.Sqrt(2 * V0 / J);
+        Trajectory trajectory = Stop(V0, switchAtS: 2.0, deadTimeS: 0, rampS: 10, decel: 40);
+        BrakingResult result = BrakingAnalyzer.Analyze(trajectory)!;
+        Assert.Equal(2.0, result.OnsetS.Value, 0.001);
+        Assert.Equal((V0 * stopS) - (J * stopS * stopS * stopS / 6), result.StoppingDistanceM.Value, 0.03);
     }
 
     [Fact]
@@ -83,6 +117,14 @@ public class BrakingAnalyzerTests
         double d2 = d1 + (v0 * rampS) - (decel * rampS * rampS / 6);
         double tStop = t2 + (v2 / decel);
         double dStop = d2 + (v2 * v2 / (2 * decel));
+        if (v2 <= 0)
+        {
+            // The car stops during the rise: v0 − k·s²/2 = 0.
+            double k = decel / rampS;
+            double s = Math.Sqrt(2 * v0 / k);
+            (tStop, dStop) = (t1 + s, d1 + (v0 * s) - (k * s * s * s / 6));
+        }
+
         double end = endEarlyS > 0 ? switchAtS + endEarlyS : tStop + 1;
         int n = (int)(end / Step) + 1;
         var t = new double[n];
@@ -97,7 +139,7 @@ public class BrakingAnalyzerTests
             {
                 (d[i], v[i], a[i]) = (v0 * time, v0, 0);
             }
-            else if (time < t2)
+            else if (time < t2 && time < tStop)
             {
                 double s = time - t1;
                 double k = decel / rampS;

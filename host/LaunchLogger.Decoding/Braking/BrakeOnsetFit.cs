@@ -1,0 +1,389 @@
+namespace LaunchLogger.Decoding.Braking;
+
+/// <summary>Brake onset from the deceleration alone, by fitting a ramp model over the onset.</summary>
+/// <remarks>
+/// <para>The deceleration y = −a is modelled as a level, a linear rise of length T, and a plateau:
+/// <code>
+/// y(t) = b                      t &lt; t₀
+/// y(t) = b + P·(t − t₀)/T       t₀ ≤ t &lt; t₀ + T
+/// y(t) = b + P                  t ≥ t₀ + T
+/// </code>
+/// (T = 0 is a step; a rise that lasts the whole stop has no plateau samples.) For given
+/// (t₀, T) the model is linear in (b, P), solved by least squares from running sums; for each
+/// t₀ the best T is found by a geometric scan (5 ms to the window's end) refined by golden
+/// section, and t₀ is the minimum of that profile over every sample time, refined between
+/// its neighbours. Fitting the level and the rise together is what a
+/// baseline window before the rise cannot do: a slow rise has no clean "before" to average,
+/// and its early part would be taken as level, moving the onset late (segmented regression /
+/// change-point estimation; e.g. Hinkley, "Inference about the intersection in two-phase
+/// regression", Biometrika 56, 1969).</para>
+/// <para>σ of t₀: from the profile of the residual sum of squares over t₀ (minimised over
+/// T, b, P for each t₀), the half-width where it rises by one noise variance (Δχ² = 1), the noise
+/// variance taken from the best fit's residuals; at least a sample period over √12; combined
+/// with a model-error term for rises that are not linear.</para>
+/// <para>The window starts at most <see cref="LookBackS"/> before the deceleration first reaches
+/// half its full value, and after the last sample of drive before that (smoothed acceleration
+/// more than <see cref="DriveMps2"/> above its level at the foot of the rise); it ends at most <see cref="PlateauS"/> after,
+/// and before standstill.</para>
+/// </remarks>
+internal static class BrakeOnsetFit
+{
+    /// <summary>Longest rise the fit looks for, plus the level before it, s (brake rise times of
+    /// 0.05–2 s cover a panic stop to a gentle one; common practice).</summary>
+    public const double LookBackS = 3.0;
+
+    /// <summary>How much of the stop after the half-way point the fit sees, s.</summary>
+    public const double PlateauS = 3.0;
+
+    /// <summary>The foot of the rise: deceleration under this fraction of the full one.</summary>
+    public const double FootFraction = 0.05;
+
+    /// <summary>Smoothed acceleration above this is drive, not coasting, m/s².</summary>
+    public const double DriveMps2 = 0.5;
+
+    /// <summary>Onset σ for the shape of a real rise, per second of rise.</summary>
+    public const double ModelErrorPerRise = 0.01;
+
+    /// <summary>Onset σ for the shape of a real rise, whatever its length, s.</summary>
+    public const double ModelErrorS = 0.004;
+
+    /// <summary>The foot of the rise: deceleration under this, m/s², or the fraction
+    /// <see cref="FootFraction"/> of the full one if less.</summary>
+    public const double FootMps2 = 0.25;
+
+    /// <summary>Fits the onset on samples (t, a) of the stop that ends at <paramref name="standstillS"/>.</summary>
+    /// <param name="t">Sample times, s, increasing.</param>
+    /// <param name="a">Forward acceleration, m/s² (any constant offset is fitted as the level).</param>
+    /// <param name="placeT">Times of an acceleration free of offsets (the reconstructed
+    /// trajectory's) that places the window; <paramref name="t"/> when null.</param>
+    /// <param name="placeA">That acceleration, m/s².</param>
+    /// <param name="fromS">Earliest time the window may open (the run's start or first motion).</param>
+    /// <param name="peakS">Time of the highest speed before the stop.</param>
+    /// <param name="standstillS">When the car came to rest.</param>
+    /// <param name="riseS">The fitted rise length T, s (NaN without a fit).</param>
+    /// <returns>The onset and its σ, or null when the samples are too few or show no rise.</returns>
+    public static Estimate? Fit(double[] t, double[] a, double[]? placeT, double[]? placeA, double fromS, double peakS, double standstillS, out double riseS)
+    {
+        riseS = double.NaN;
+        int n = t.Length;
+        if (n < 10 || t[^1] <= t[0])
+        {
+            return null;
+        }
+
+        double period = (t[^1] - t[0]) / (n - 1);
+        if (Window(placeT ?? t, placeA ?? a, fromS, peakS, standstillS) is not { } window)
+        {
+            return null;
+        }
+
+        int lo = Index(t, window.FromS);
+        int mid = Index(t, window.MidS);
+        int hi = Index(t, window.ToS);
+        if (hi - lo < 8 || mid <= lo)
+        {
+            return null;
+        }
+
+        var sums = new RunningSums(t, a, lo, hi);
+        double end = t[hi - 1];
+        int count = hi - lo;
+
+        // Profile over t₀: every sample time up to the half-way point, each with its best rise.
+        int bestIndex = -1;
+        double bestRss = double.PositiveInfinity;
+        for (int i = lo; i <= mid; i++)
+        {
+            double rss = sums.BestRamp(t[i], end).Rss;
+            if (rss < bestRss)
+            {
+                (bestRss, bestIndex) = (rss, i);
+            }
+        }
+
+        if (bestIndex < 0 || double.IsInfinity(bestRss))
+        {
+            return null;
+        }
+
+        // Golden-section search between the neighbouring samples.
+        double left = t[Math.Max(bestIndex - 1, lo)];
+        double right = t[Math.Min(bestIndex + 1, mid)];
+        double onset = GoldenMinimum(x => sums.BestRamp(x, end).Rss, left, right, 1e-7);
+        double minimum = Math.Min(sums.BestRamp(onset, end).Rss, bestRss);
+        if (minimum == bestRss && sums.BestRamp(onset, end).Rss > bestRss)
+        {
+            onset = t[bestIndex];
+        }
+
+        // σ: the half-width of the profile where it rises by one noise variance (Δχ² = 1).
+        double variance = minimum / Math.Max(count - 4, 1);
+        double limit = minimum + Math.Max(variance, 1e-30);
+        double step = period / 8;
+        double below = onset, above = onset;
+        for (int k = 0; k < 4000 && below > t[lo] && sums.BestRamp(below, end).Rss < limit; k++)
+        {
+            below -= step;
+        }
+
+        for (int k = 0; k < 4000 && above < end && sums.BestRamp(above, end).Rss < limit; k++)
+        {
+            above += step;
+        }
+
+        // A real rise is not quite linear (brake pressure builds like a lag): a model-error term
+        // of a share of the rise, sized on the simulator's stops (errors of 3–14 ms on rises of
+        // 0.1–0.5 s), is added to the statistical width.
+        double rise = sums.BestRamp(onset, end).RampS;
+        riseS = rise;
+        double model = (ModelErrorPerRise * rise) + ModelErrorS;
+        double statistical = Math.Max(0.5 * (above - below), period / Math.Sqrt(12));
+        return new Estimate(onset, Math.Sqrt((statistical * statistical) + (model * model)));
+    }
+
+    /// <summary>Minimum of a unimodal <paramref name="f"/> on [a, b] by golden-section search.</summary>
+    private static double GoldenMinimum(Func<double, double> f, double a, double b, double tolerance)
+    {
+        double r = (Math.Sqrt(5) - 1) / 2;
+        double c = b - (r * (b - a));
+        double d = a + (r * (b - a));
+        double fc = f(c), fd = f(d);
+        for (int k = 0; k < 200 && b - a > tolerance; k++)
+        {
+            if (fc < fd)
+            {
+                (b, d, fd) = (d, c, fc);
+                c = b - (r * (b - a));
+                fc = f(c);
+            }
+            else
+            {
+                (a, c, fc) = (c, d, fd);
+                d = a + (r * (b - a));
+                fd = f(d);
+            }
+        }
+
+        return 0.5 * (a + b);
+    }
+
+    /// <summary>Where to fit: from the level before the rise (at most <see cref="LookBackS"/>
+    /// before the half-way point, after any drive) to at most <see cref="PlateauS"/> after it,
+    /// before standstill. Null when there is no firm deceleration.</summary>
+    private static (double FromS, double MidS, double ToS)? Window(double[] t, double[] a, double fromS, double peakS, double standstillS)
+    {
+        int n = t.Length;
+        double period = (t[^1] - t[0]) / Math.Max(n - 1, 1);
+        int half = Math.Max(1, (int)Math.Round(0.025 / Math.Max(period, 1e-6)));
+        int stop = Index(t, standstillS - Math.Max(0.02, 2 * period));
+        int peak = Index(t, peakS);
+        if (stop - peak < 8)
+        {
+            return null;
+        }
+
+        // The full deceleration: a robust high value over the stop (90th percentile).
+        double[] sorted = new double[stop - peak];
+        for (int i = peak; i < stop; i++)
+        {
+            sorted[i - peak] = -a[i];
+        }
+
+        Array.Sort(sorted);
+        double full = sorted[(int)(0.9 * (sorted.Length - 1))];
+        if (!(full > 0.5))
+        {
+            return null;
+        }
+
+        // Smoothed deceleration: the half-way point, the foot of the rise, the last drive before it.
+        double[] smooth = MovingMean(a, half);
+        int mid = peak;
+        while (mid < stop && -smooth[mid] < 0.5 * full)
+        {
+            mid++;
+        }
+
+        // Walk back to the foot of the rise, then on while the acceleration stays within
+        // DriveMps2 of the level there: a lift-off from drive ends the window, so that only the
+        // level before the brakes (coast, cruise) is fitted.
+        int lo = Math.Max(Index(t, Math.Max(t[mid] - LookBackS, fromS)), 0);
+        int foot = mid;
+        double footDecel = Math.Min(FootFraction * full, FootMps2);
+        while (foot > lo && -smooth[foot] > footDecel)
+        {
+            foot--;
+        }
+
+        for (int i = foot; i > lo; i--)
+        {
+            if (smooth[i] > smooth[foot] + DriveMps2)
+            {
+                lo = Math.Min(i + half, foot);
+                break;
+            }
+        }
+
+        int hi = Math.Min(stop, Index(t, t[mid] + PlateauS));
+        return mid > lo && hi > mid ? (t[lo], t[mid], t[hi]) : null;
+    }
+
+    private static int Index(double[] t, double at)
+    {
+        int i = Array.BinarySearch(t, at);
+        i = i >= 0 ? i : ~i;
+        return Math.Clamp(i, 0, t.Length - 1);
+    }
+
+    private static double[] MovingMean(double[] a, int half)
+    {
+        var result = new double[a.Length];
+        double sum = 0;
+        int lo = 0, hi = -1;
+        for (int i = 0; i < a.Length; i++)
+        {
+            while (hi < Math.Min(a.Length - 1, i + half))
+            {
+                sum += a[++hi];
+            }
+
+            while (lo < i - half)
+            {
+                sum -= a[lo++];
+            }
+
+            result[i] = sum / (hi - lo + 1);
+        }
+
+        return result;
+    }
+
+    /// <summary>Prefix sums of 1, t, t², y, t·y, y² over samples [lo, hi), y = −a, so the least
+    /// squares of the ramp model for any (t₀, T) costs two binary searches.</summary>
+    private sealed class RunningSums
+    {
+        private readonly double[] t;
+        private readonly int lo;
+        private readonly int hi;
+        private readonly double[] s1, st, stt, sy, sty;
+        private readonly double syy;
+        private readonly double origin;
+
+        public RunningSums(double[] t, double[] a, int lo, int hi)
+        {
+            this.t = t;
+            this.lo = lo;
+            this.hi = hi;
+            origin = t[lo];
+            int m = hi - lo;
+            s1 = new double[m + 1];
+            st = new double[m + 1];
+            stt = new double[m + 1];
+            sy = new double[m + 1];
+            sty = new double[m + 1];
+            for (int i = 0; i < m; i++)
+            {
+                double x = t[lo + i] - origin;
+                double y = -a[lo + i];
+                s1[i + 1] = s1[i] + 1;
+                st[i + 1] = st[i] + x;
+                stt[i + 1] = stt[i] + (x * x);
+                sy[i + 1] = sy[i] + y;
+                sty[i + 1] = sty[i] + (x * y);
+                syy += y * y;
+            }
+        }
+
+        /// <summary>Residual sum of squares of the best (b, P) for onset <paramref name="t0"/> and rise <paramref name="ramp"/>.</summary>
+        public double Rss(double t0, double ramp)
+        {
+            int m = hi - lo;
+            int ia = Split(t0);
+            int ib = ramp > 0 ? Math.Max(Split(t0 + ramp), ia) : ia;
+            double x0 = t0 - origin;
+
+            // Σr, Σr², Σr·y with r = 0 before, (x − x0)/T on the ramp, 1 after.
+            double nRamp = s1[ib] - s1[ia];
+            double sr = m - ib, srr = m - ib, sry = sy[m] - sy[ib];
+            if (nRamp > 0)
+            {
+                double rt = st[ib] - st[ia];
+                double rtt = stt[ib] - stt[ia];
+                double ry = sy[ib] - sy[ia];
+                double rty = sty[ib] - sty[ia];
+                sr += (rt - (x0 * nRamp)) / ramp;
+                srr += (rtt - (2 * x0 * rt) + (x0 * x0 * nRamp)) / (ramp * ramp);
+                sry += (rty - (x0 * ry)) / ramp;
+            }
+
+            // Normal equations for y = b + P·r.
+            double n = m;
+            double syAll = sy[m];
+            double det = (n * srr) - (sr * sr);
+            if (!(det > 1e-12 * n * n))
+            {
+                return double.PositiveInfinity;
+            }
+
+            double b = ((srr * syAll) - (sr * sry)) / det;
+            double p = ((n * sry) - (sr * syAll)) / det;
+            if (!(p > 0))
+            {
+                return double.PositiveInfinity;
+            }
+
+            return syy - (b * syAll) - (p * sry);
+        }
+
+        /// <summary>The rise length that fits best for onset <paramref name="t0"/>: a geometric
+        /// scan from 5 ms (and a step, T = 0) up to the window's end, refined by golden section.</summary>
+        public (double Rss, double RampS) BestRamp(double t0, double end)
+        {
+            double longest = end - t0;
+            if (longest <= 0)
+            {
+                return (double.PositiveInfinity, 0);
+            }
+
+            double bestRss = Rss(t0, 0);
+            double best = 0, before = 0, after = 0.005;
+            double previous = 0;
+            for (double ramp = 0.005; ; ramp *= 1.15)
+            {
+                double r = Math.Min(ramp, longest);
+                double rss = Rss(t0, r);
+                if (rss < bestRss)
+                {
+                    (bestRss, best, before) = (rss, r, previous);
+                    after = Math.Min(r * 1.15, longest);
+                }
+
+                previous = r;
+                if (r >= longest)
+                {
+                    break;
+                }
+            }
+
+            if (best > 0)
+            {
+                double refined = GoldenMinimum(x => Rss(t0, x), before, after, 1e-6 * Math.Max(best, 1e-3));
+                double rss = Rss(t0, refined);
+                if (rss < bestRss)
+                {
+                    (bestRss, best) = (rss, refined);
+                }
+            }
+
+            return (bestRss, best);
+        }
+
+        /// <summary>Offset (from lo) of the first sample at or after <paramref name="time"/>.</summary>
+        private int Split(double time)
+        {
+            int i = Array.BinarySearch(t, lo, hi - lo, time);
+            i = i >= 0 ? i : ~i;
+            return i - lo;
+        }
+    }
+}
