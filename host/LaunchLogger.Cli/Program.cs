@@ -1,19 +1,5 @@
-using System.CommandLine;
 using LaunchLogger.Cli;
-using LaunchLogger.Cli.Verbs;
 
-// Composes the verbs; each lives in Verbs/ with its own factory and handler.
+// The verbs are composed in LaunchLoggerCommand; each lives in Verbs/ with its own factory and handler.
 SafetyNotice.ShowOnFirstRun(Console.Error);
-var root = new RootCommand(
-    "LaunchLogger: decode a launch logger's runs and report acceleration and braking figures " +
-    "both from true standstill and after the 1-ft rollout, each with its uncertainty.")
-{
-    SafetyCommand.Create(),
-    DemoCommand.Create(),
-    SelfCheckCommand.Create(),
-    ReportCommand.Create(),
-    BenchCommand.Create(),
-    SimulateCommand.Create(),
-    CalibrateCommand.Create(),
-};
-return await root.Parse(args).InvokeAsync(new InvocationConfiguration { Output = Console.Out, Error = Console.Error });
+return await LaunchLoggerCommand.InvokeAsync(args, Console.Out, Console.Error);

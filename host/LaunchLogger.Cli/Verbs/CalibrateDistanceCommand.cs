@@ -16,7 +16,7 @@ public static class CalibrateDistanceCommand
     /// <summary>Builds the verb.</summary>
     public static Command Create()
     {
-        var log = new Argument<FileInfo>("log") { Description = "Log of the roll(s): from a standstill on the start line to a standstill on the end line." };
+        var log = new Argument<FileInfo>("log") { Description = "Log of the roll(s): from a standstill on the start line to a standstill on the end line." }.RejectingUnknownOptions();
         var metres = new Option<double>("--metres") { Description = "Taped distance between the start and end lines, m.", Required = true };
         var tape = new Option<double>("--tape-uncertainty-m") { Description = "1-σ uncertainty of that distance, m, lining up at both ends included.", DefaultValueFactory = _ => 0.05 };
         var run = new Option<string[]>("--run")

@@ -26,7 +26,7 @@ public static class CalibrateMountingCommand
         {
             Description = "One log: a staged rest then a firm, straight acceleration, ON LEVEL GROUND. Two logs (or one log with two --run): rests on one spot facing opposite ways, which also measures the spot's slope.",
             Arity = new ArgumentArity(1, 2),
-        };
+        }.RejectingUnknownOptions();
         var run = new Option<string[]>("--run")
         {
             Description = "Run N of the log (from 1, in log order); give it once per rest (twice with one log for the two-way rests).",

@@ -18,7 +18,7 @@ public static class CalibrateTeethCommand
     /// <summary>Builds the verb.</summary>
     public static Command Create()
     {
-        var log = new Argument<FileInfo>("log") { Description = "Log of a steady cruise: light, constant throttle, no gear changes, steering or braking, 100 wheel revolutions or more." };
+        var log = new Argument<FileInfo>("log") { Description = "Log of a steady cruise: light, constant throttle, no gear changes, steering or braking, 100 wheel revolutions or more." }.RejectingUnknownOptions();
         var run = new Option<string?>("--run") { Description = "Run N of the log (from 1, in log order)." };
         var settings = new Option<FileInfo?>("--settings") { Description = "Settings file to create or update (other settings in it are kept)." };
         var json = new Option<bool>("--json") { Description = "Write the result as JSON." };

@@ -6,6 +6,7 @@ using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reporting;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Verdicts;
 
 namespace LaunchLogger.Cli.Verbs;
 
@@ -16,7 +17,7 @@ public static class ReportCommand
     /// <summary>Builds the verb.</summary>
     public static Command Create()
     {
-        var logs = new Argument<FileInfo[]>("log") { Description = "Log files written by the box.", Arity = ArgumentArity.ZeroOrMore };
+        var logs = new Argument<FileInfo[]>("log") { Description = "Log files written by the box.", Arity = ArgumentArity.ZeroOrMore }.RejectingUnknownOptions();
         var edges = new Option<FileInfo?>("--edges") { Description = "CSV of pulse edge times (header t_s) instead of a log." };
         var counts = new Option<FileInfo?>("--counts") { Description = "CSV of counter readings (header t_lo_s,t_hi_s,count) instead of a log." };
         var accel = new Option<FileInfo?>("--accel") { Description = "CSV of accelerometer samples (header t_s,ax_mps2[,ay_mps2,az_mps2]); ax is forward specific force." };
@@ -165,7 +166,10 @@ public static class ReportCommand
             ReportTableWriter.Write(document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
         }
 
-        return failures.Count == 0 ? ExitCode.Ok : ExitCode.Partial;
+        // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
+        // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
+        bool allValid = session.Runs.All(r => r.Verdict is null || r.Verdict.Level == VerdictLevel.Valid);
+        return failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial;
     }
 
     private static (int A, int B) ParsePair(string text, int runs)

@@ -29,17 +29,17 @@ public static class RunAnalyzer
             throw new AnalysisException($"{run.Source}: {e.Message}", e);
         }
 
-        FigureSet figures = FigureCalculator.Compute(reconstruction.Trajectory, reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures);
+        FigureSet figures = FigureCalculator.Compute(reconstruction.Trajectory, reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures, reconstruction.Staged);
         double[] brakeOn = run.Events.Where(e => e.Kind == EventKind.BrakeOn).Select(e => e.TimeS - options.BrakeSwitchDelayS).ToArray();
         (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
         BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel);
-        GradeEstimate? grade = reconstruction.RestingPitchRad is { } pitch && run.Configuration.Staged
+        GradeEstimate? grade = reconstruction.RestingPitchRad is { } pitch && reconstruction.Staged
             ? GradeEstimate.FromRest(pitch, options.Calibration?.MountingPitchDeg * Math.PI / 180, (options.Calibration?.MountingPitchSigmaDeg ?? 0) * Math.PI / 180)
             : null;
         // Level-corrected figures only from a calibrated mounting: an uncalibrated box's pitch is
         // mostly its own tilt and bias, and "correcting" for it would move figures by seconds.
         FigureSet? level = grade is { MountingCalibrated: true } g
-            ? FigureCalculator.Compute(LevelCorrection.ToLevel(reconstruction.Trajectory, reconstruction.FirstMotionS.Value, g.AngleRad), reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures)
+            ? FigureCalculator.Compute(LevelCorrection.ToLevel(reconstruction.Trajectory, reconstruction.FirstMotionS.Value, g.AngleRad), reconstruction.FirstMotionS, reconstruction.RolloutM, options.Figures, reconstruction.Staged)
             : null;
         FigureSet? standardAir = options.Weather is { } w ? WeatherCorrection.Apply(figures, w.CorrectionFactor) : null;
         return new RunAnalysis

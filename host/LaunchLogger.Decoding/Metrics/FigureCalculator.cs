@@ -24,26 +24,30 @@ public static class FigureCalculator
     /// <param name="firstMotionS">First motion, s, with its σ.</param>
     /// <param name="rolloutDistanceM">The rollout distance, m (0.3048 by default).</param>
     /// <param name="request">Which figures; <see cref="FigureRequest.Standard"/> when null.</param>
+    /// <param name="standingStart">False when the trajectory opens moving (no rest was seen before
+    /// the motion): then no standing-start figure exists (standing intervals, distance marks and
+    /// the rollout are null), and a rolling interval counts only from a real crossing of its lower
+    /// speed, never from a speed the trajectory already had at its start.</param>
     /// <exception cref="ArgumentException">The trajectory is malformed.</exception>
-    public static FigureSet Compute(Trajectory trajectory, Estimate firstMotionS, double rolloutDistanceM = Units.RolloutM, FigureRequest? request = null)
+    public static FigureSet Compute(Trajectory trajectory, Estimate firstMotionS, double rolloutDistanceM = Units.RolloutM, FigureRequest? request = null, bool standingStart = true)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         trajectory.Validate();
         request ??= FigureRequest.Standard;
         int start = FirstIndexAtOrAfter(trajectory.TimeS, firstMotionS.Value);
-        Estimate? rollout = DistanceCrossing(trajectory, start, rolloutDistanceM);
+        Estimate? rollout = standingStart ? DistanceCrossing(trajectory, start, rolloutDistanceM) : null;
         Estimate? rolloutSpeed = rollout is { } r ? At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, r.Value) : null;
 
         var intervals = new List<IntervalFigure>(request.SpeedIntervals.Count);
         foreach (SpeedInterval interval in request.SpeedIntervals)
         {
-            intervals.Add(TimeInterval(trajectory, start, firstMotionS, rollout, interval));
+            intervals.Add(standingStart ? TimeInterval(trajectory, start, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, interval));
         }
 
         var marks = new List<MarkFigure>(request.DistanceMarks.Count);
         foreach (DistanceMark mark in request.DistanceMarks)
         {
-            marks.Add(TimeMark(trajectory, start, firstMotionS, rollout, mark));
+            marks.Add(standingStart ? TimeMark(trajectory, start, firstMotionS, rollout, mark) : new MarkFigure(mark, null, null, null, null, null, null, null));
         }
 
         double peak = 0;
@@ -54,7 +58,7 @@ public static class FigureCalculator
             maxSpeed = Math.Max(maxSpeed, trajectory.SpeedMps[i]);
         }
 
-        double? zeroTo60 = TimeInterval(trajectory, start, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS;
+        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS : null;
         return new FigureSet
         {
             FirstMotionS = firstMotionS,
@@ -118,6 +122,18 @@ public static class FigureCalculator
         double? fromRollout = rollout is { } r ? e.Value - r.Value : null;
         double? rolloutSigma = rollout is { } r2 ? Hypot(e.Sigma, r2.Sigma) : null;
         return new IntervalFigure(interval, fromStandstill, fromRollout, Hypot(e.Sigma, firstMotion.Sigma), rolloutSigma);
+    }
+
+    /// <summary>A rolling interval of a trajectory that opens moving: timed only when the speed
+    /// at the start is below the interval's lower speed, so that both ends are real crossings.</summary>
+    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, SpeedInterval interval)
+    {
+        if (interval.IsStanding || trajectory.SpeedMps[start] >= interval.FromMps)
+        {
+            return new IntervalFigure(interval, null, null, null, null);
+        }
+
+        return TimeInterval(trajectory, start, new Estimate(trajectory.TimeS[start], 0), null, interval);
     }
 
     private static MarkFigure TimeMark(Trajectory trajectory, int start, Estimate firstMotion, Estimate? rollout, DistanceMark mark)

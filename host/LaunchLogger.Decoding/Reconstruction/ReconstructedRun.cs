@@ -60,6 +60,16 @@ public sealed class ReconstructedRun
     /// estimated (no accelerometer or no pulses).</summary>
     public Estimate? WheelSlipPerMps2 { get; init; }
 
+    /// <summary>True when a rest was seen before the motion, so that standing-start figures exist:
+    /// the box was staged and the first pulses do not show the car already moving. False for a
+    /// record that opens moving (a box armed while rolling, a restart mid-drive, a plain-text
+    /// input cut from a drive).</summary>
+    public bool Staged { get; init; } = true;
+
+    /// <summary>Speed at the first pulse observation, m/s, with its σ, when the record opened
+    /// moving; null for a staged run.</summary>
+    public Estimate? StartSpeedMps { get; init; }
+
     /// <summary>The pulse channel used for distance: 0, or 1 when the second channel turned less
     /// under drive (the undriven wheel).</summary>
     public int DistanceChannel { get; init; }

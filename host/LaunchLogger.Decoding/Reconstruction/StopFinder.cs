@@ -150,6 +150,16 @@ internal static class StopFinder
         return double.IsNaN(found) ? null : found;
     }
 
+    /// <summary>True when the last pulses show the car braking to rest: at their speed and
+    /// deceleration it would stop within two pulse pitches (v²/(2·d), kinematics), so the next
+    /// edges would never have come. Lets a record without a hold after its last pulse (a
+    /// plain-text input, a log cut short) keep its stop.</summary>
+    public static bool EndsAtRest(PulseChannel pulses, double mpp)
+    {
+        EndMotion(pulses, mpp, out double speed, out double decel);
+        return decel > 0.05 && speed * speed / (2 * decel) <= 2 * mpp;
+    }
+
     /// <summary>Speed and deceleration at the last pulse from a quadratic through the pulses of
     /// its last 0.3 s (at least three, at most eight).</summary>
     public static void EndMotion(PulseChannel pulses, double mpp, out double speed, out double decel)
@@ -176,25 +186,10 @@ internal static class StopFinder
             return;
         }
 
-        double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, y0 = 0, y1 = 0, y2 = 0;
-        for (int i = first; i <= last; i++)
+        if (PulseQuadratic.Fit(pulses, mpp, first, last, last, 0) is { } fit)
         {
-            double x = pulses.MidS(i) - tLast;
-            double y = (pulses.Counts[i] - pulses.Counts[last]) * mpp;
-            s0 += 1;
-            s1 += x;
-            s2 += x * x;
-            s3 += x * x * x;
-            s4 += x * x * x * x;
-            y0 += y;
-            y1 += x * y;
-            y2 += x * x * y;
-        }
-
-        if (AccelOnsetFit.SolveSymmetric3(s0, s1, s2, s2, s3, s4, y0, y1, y2, out _, out double c1, out double c2))
-        {
-            speed = Math.Max(c1, 0);
-            decel = Math.Max(-2 * c2, 0);
+            speed = Math.Max(fit.SpeedMps, 0);
+            decel = Math.Max(-fit.AccelMps2, 0);
         }
     }
 }

@@ -16,7 +16,7 @@ public static class RunReportBuilder
         RunReport report = Build(
             analysis.Run.Configuration.RunNumber,
             analysis.Reconstruction.Method,
-            analysis.Run.Configuration.Staged,
+            analysis.Reconstruction.Staged,
             analysis.Figures,
             analysis.Run.FirmwareRolloutS,
             analysis.Warnings);

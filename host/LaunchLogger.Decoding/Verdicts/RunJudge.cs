@@ -24,7 +24,7 @@ public static class RunJudge
         ReconstructedRun rec = analysis.Reconstruction;
         FigureSet figures = analysis.Figures;
 
-        if (!run.Configuration.Staged)
+        if (!rec.Staged)
         {
             reasons.Add(new(VerdictLevel.Invalid, "rolling_start", "the run opened while already rolling: standing-start figures have no true standstill"));
         }

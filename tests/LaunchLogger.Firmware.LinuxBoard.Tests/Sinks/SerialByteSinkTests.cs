@@ -1,53 +1,47 @@
-using System.IO.Ports;
 using LaunchLogger.Firmware.LinuxBoard.Sinks;
-using LaunchLogger.Firmware.LinuxBoard.Tests.Fakes;
+using LaunchLogger.Tests.Support;
 
 namespace LaunchLogger.Firmware.LinuxBoard.Tests.Sinks;
 
 public class SerialByteSinkTests
 {
     [Fact]
-    public void Every_byte_value_arrives_in_order_over_a_real_pty_pair()
+    public void Every_byte_value_arrives_in_order_over_a_real_pseudo_terminal()
     {
-        using SocatPtyPair pair = SocatPtyPair.Start();
+        using PseudoTerminalPair pair = PseudoTerminalPair.Open();
         byte[] expected = new byte[4 * 256 * 3];
-        using (var reader = OpenReader(pair.Second))
+        using (var sink = new SerialByteSink(pair.PortName, 115200, writeTimeoutMs: 500))
         {
-            using (var sink = new SerialByteSink(pair.First, 115200, writeTimeoutMs: 500))
+            byte[] frame = new byte[256];
+            for (int i = 0; i < 256; i++)
             {
-                byte[] frame = new byte[256];
-                for (int i = 0; i < 256; i++)
-                {
-                    frame[i] = (byte)i;
-                }
-
-                for (int k = 0; k < expected.Length / 256; k++)
-                {
-                    Assert.True(sink.Write(frame, 0, 256));
-                    Array.Copy(frame, 0, expected, k * 256, 256);
-                }
-
-                byte[] got = ReadExactly(reader, expected.Length);
-                Assert.Equal(expected, got);
-                Assert.Equal(0, sink.FramesRefused);
+                frame[i] = (byte)i;
             }
 
-            reader.Close();
+            for (int k = 0; k < expected.Length / 256; k++)
+            {
+                Assert.True(sink.Write(frame, 0, 256));
+                Array.Copy(frame, 0, expected, k * 256, 256);
+            }
+
+            byte[] got = pair.ReadExactly(expected.Length, TimeSpan.FromSeconds(5));
+            Assert.Equal(expected, got);
+            Assert.Equal(0, sink.FramesRefused);
         }
     }
 
     [Fact]
     public void Write_never_blocks_and_refuses_whole_frames_once_the_buffer_is_full()
     {
-        using SocatPtyPair pair = SocatPtyPair.Start();
+        using PseudoTerminalPair pair = PseudoTerminalPair.Open();
         byte[] frame = Enumerable.Range(1, 1000).Select(i => (byte)i).ToArray();
         const int Frames = 2000;
         int accepted = 0;
         long sent;
         long dropped;
-        using (var sink = new SerialByteSink(pair.First, 115200, writeTimeoutMs: 100, bufferBytes: 16384))
+        using (var sink = new SerialByteSink(pair.PortName, 115200, writeTimeoutMs: 100, bufferBytes: 16384))
         {
-            // Nobody reads the other end: the pty pair fills up and the ring buffer after it.
+            // Nobody reads the far end: the terminal's buffer fills up and the ring buffer after it.
             for (int k = 0; k < Frames; k++)
             {
                 if (sink.Write(frame, 0, frame.Length))
@@ -72,24 +66,5 @@ public class SerialByteSinkTests
     {
         var e = Assert.Throws<IOException>(() => new SerialByteSink("/dev/launchlogger-no-such-port"));
         Assert.Contains("/dev/launchlogger-no-such-port", e.Message);
-    }
-
-    private static SerialPort OpenReader(string name)
-    {
-        var port = new SerialPort(name, 115200) { ReadTimeout = 5000, Handshake = Handshake.None };
-        port.Open();
-        return port;
-    }
-
-    private static byte[] ReadExactly(SerialPort port, int count)
-    {
-        byte[] buffer = new byte[count];
-        int got = 0;
-        while (got < count)
-        {
-            got += port.Read(buffer, got, count - got);
-        }
-
-        return buffer;
     }
 }

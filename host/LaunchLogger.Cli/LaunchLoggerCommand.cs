@@ -1,0 +1,34 @@
+using System.CommandLine;
+using LaunchLogger.Cli.Verbs;
+
+namespace LaunchLogger.Cli;
+
+/// <summary>The whole command line: composes the verbs (each in Verbs/) and maps parse errors to
+/// <see cref="ExitCode.Usage"/>, so a mistyped option never looks like a doubtful result.</summary>
+public static class LaunchLoggerCommand
+{
+    /// <summary>Builds the root command with every verb.</summary>
+    public static RootCommand Create() => new(
+        "LaunchLogger: decode a launch logger's runs and report acceleration and braking figures " +
+        "both from true standstill and after the 1-ft rollout, each with its uncertainty.")
+    {
+        SafetyCommand.Create(),
+        DemoCommand.Create(),
+        SelfCheckCommand.Create(),
+        ReportCommand.Create(),
+        BenchCommand.Create(),
+        SimulateCommand.Create(),
+        CalibrateCommand.Create(),
+    };
+
+    /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>
+    /// <remarks>System.CommandLine reports a parse error (unknown option, missing or unparsable
+    /// value) with exit code 1; here it becomes <see cref="ExitCode.Usage"/> (3), as ExitCode.cs
+    /// and the README promise.</remarks>
+    public static async Task<int> InvokeAsync(string[] args, TextWriter output, TextWriter error, CancellationToken cancel = default)
+    {
+        ParseResult parsed = Create().Parse(args);
+        int code = await parsed.InvokeAsync(new InvocationConfiguration { Output = output, Error = error }, cancel);
+        return parsed.Errors.Count > 0 ? (int)ExitCode.Usage : code;
+    }
+}

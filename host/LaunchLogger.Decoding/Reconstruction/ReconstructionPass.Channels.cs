@@ -1,0 +1,232 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <content>Channel preparation: which pulse channel carries distance, bracket checks, the accelerometer's resting level, onset and pitch.</content>
+internal sealed partial class ReconstructionPass
+{
+    /// <summary>Distance the second channel covered divided by the first's, from the later first
+    /// pulse (plus 0.2 s) to the first channel's highest speed, when both saw enough of it.</summary>
+    private static double? DistanceUnderDrive(PulseChannel a, double mppA, PulseChannel b, double mppB)
+    {
+        double from = Math.Max(a.MidS(0), b.MidS(0)) + 0.2;
+
+        // Highest speed of channel a over half-second spans.
+        double peakS = double.NaN;
+        double peak = 0;
+        int j = 0;
+        for (int i = 0; i < a.Length; i++)
+        {
+            while (j < a.Length && a.MidS(j) < a.MidS(i) + 0.5)
+            {
+                j++;
+            }
+
+            if (j >= a.Length)
+            {
+                break;
+            }
+
+            double speed = (a.Counts[j] - a.Counts[i]) * mppA / (a.MidS(j) - a.MidS(i));
+            if (speed > peak)
+            {
+                peak = speed;
+                peakS = a.MidS(j);
+            }
+        }
+
+        if (double.IsNaN(peakS) || peakS < from + 1)
+        {
+            return null;
+        }
+
+        double da = (CountAt(a, peakS) - CountAt(a, from)) * mppA;
+        double db = (CountAt(b, peakS) - CountAt(b, from)) * mppB;
+        return da > 10 && db > 0 ? db / da : null;
+    }
+
+    /// <summary>Count at <paramref name="t"/>, interpolated between observation midpoints.</summary>
+    private static double CountAt(PulseChannel c, double t)
+    {
+        int lo = 0;
+        int hi = c.Length - 1;
+        if (t <= c.MidS(0))
+        {
+            return c.Counts[0];
+        }
+
+        if (t >= c.MidS(hi))
+        {
+            return c.Counts[hi];
+        }
+
+        while (hi - lo > 1)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (c.MidS(mid) <= t)
+            {
+                lo = mid;
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+
+        double f = (t - c.MidS(lo)) / (c.MidS(hi) - c.MidS(lo));
+        return c.Counts[lo] + (f * (c.Counts[hi] - c.Counts[lo]));
+    }
+
+    /// <summary>Distance noise of one pulse observation at the start: the tooth spacing error,
+    /// and the widest of the first brackets at the speed they imply (a bracket's width in time
+    /// is a distance once the car moves).</summary>
+    private double StartNoiseM()
+    {
+        PulseChannel p = pulses!;
+        int n = Math.Min(p.Length, StartMotion.MinimumObservations);
+        double width = 0;
+        for (int i = 0; i < n; i++)
+        {
+            width = Math.Max(width, p.HiS[i] - p.LoS[i]);
+        }
+
+        double span = n > 1 ? p.MidS(n - 1) - p.MidS(0) : 0;
+        double speed = span > 0 ? (p.Counts[n - 1] - p.Counts[0]) * mpp / span : 0;
+        return Math.Sqrt(Math.Pow(options.ToothSpacingErrorFraction * mpp, 2) + Math.Pow(speed * width / Math.Sqrt(12), 2));
+    }
+
+    private void CheckPulses()
+    {
+        if (pulses is null)
+        {
+            return;
+        }
+
+        if (pulses.Dropped > 0)
+        {
+            warnings.Add($"{pulses.Dropped} pulse observations went backwards in count or time and were left out");
+        }
+
+        double limit = options.WideBracketS ?? (configuration.BracketLimitS > 0 ? configuration.BracketLimitS : 0.002);
+        int wide = 0;
+        double widest = 0;
+        for (int i = 0; i < pulses.Length; i++)
+        {
+            double w = pulses.HiS[i] - pulses.LoS[i];
+            widest = Math.Max(widest, w);
+            if (w > limit)
+            {
+                wide++;
+            }
+        }
+
+        // A log's run already carries the reader's warning about wide brackets; say it here only
+        // for plain-text inputs (format version 0), which have no reader of their own to say it.
+        if (wide > 0 && configuration.FormatVersion == 0)
+        {
+            warnings.Add($"{wide} of {pulses.Length} pulse observations have brackets wider than {limit * 1e3:F1} ms (widest {widest * 1e3:F1} ms); they count with their width");
+        }
+    }
+
+    private void PrepareAccelerometer(ForwardAcceleration a)
+    {
+        double? reference = Min(pulses?.LoS[0], motionHintS);
+        int restTo = reference is { } r ? a.IndexAtOrAfter(r - 0.05) : a.IndexAtOrAfter(a.TimeS[0] + 0.5);
+        int restFrom = a.IndexAtOrAfter((reference ?? a.TimeS[0]) - 2.0);
+        if (motionHintS is null && pulses != null)
+        {
+            // Only the first pulse bounds the onset: it may come long before, so rest on the older half.
+            restTo = restFrom + ((restTo - restFrom) / 2);
+        }
+
+        if (!a.SetRest(restFrom, restTo))
+        {
+            double? level = RestGravityForward();
+            if (level is { } l)
+            {
+                a.SetRest(l, 0.05);
+                warnings.Add("too few accelerometer samples before first motion: the resting level comes from the staging event");
+            }
+            else
+            {
+                a.SetRest(a.ForwardMps2[0], 0.05);
+                warnings.Add("too few accelerometer samples before first motion: the first sample is taken as the resting level");
+            }
+        }
+
+        FindOnset(a);
+        if (onset is { } o && a.SetRest(a.IndexAtOrAfter(o.TimeS - 2.0), a.IndexAtOrAfter(o.TimeS - 0.03)))
+        {
+            FindOnset(a);
+        }
+
+        (pitchRad, pitchSigmaRad) = RestingPitch(a);
+        accelInput = a.Input(pitchRad, options.CompensateBodyPitch);
+    }
+
+    private void FindOnset(ForwardAcceleration a)
+    {
+        if (pulses != null && Staged)
+        {
+            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, a.RestLevelMps2, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, 0, a.IndexAtOrAfter(pulses.HiS[0]), lastRise: true);
+        }
+        else if (Staged)
+        {
+            int from = motionHintS is { } h ? a.IndexAtOrAfter(h - 0.5) : a.IndexAtOrAfter(a.TimeS[0] + 0.3);
+            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, a.RestLevelMps2, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, from, a.Count, lastRise: false);
+        }
+        else
+        {
+            onset = null;
+        }
+
+    }
+
+    private double? RestGravityForward()
+    {
+        if (run.RestGravityMilliG is not { } g)
+        {
+            return null;
+        }
+
+        double component = configuration.ForwardAxis switch { 1 => g.Y, 2 => g.Z, _ => g.X };
+        double sign = configuration.ForwardAxisReversed ? -1 : 1;
+        return sign * component * G0 / 1000;
+    }
+
+    private (double Pitch, double Sigma) RestingPitch(ForwardAcceleration a)
+    {
+        double magnitude = G0;
+        if (run.RestGravityMilliG is { } g)
+        {
+            double norm = Math.Sqrt((g.X * g.X) + (g.Y * g.Y) + (g.Z * g.Z)) * G0 / 1000;
+            if (norm > 0.5 * G0 && norm < 1.5 * G0)
+            {
+                magnitude = norm;
+            }
+        }
+
+        double ratio = Math.Clamp(a.RestLevelMps2 / magnitude, -0.99, 0.99);
+        double pitch = Math.Asin(ratio);
+        double sigma = a.RestLevelSigmaMps2 / (magnitude * Math.Cos(pitch));
+        return (pitch, sigma);
+    }
+
+    private int FirstPulseAtOrAfter(double t)
+    {
+        int lo = 0;
+        int hi = pulses!.Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (pulses.MidS(mid) >= t)
+            {
+                hi = mid;
+            }
+            else
+            {
+                lo = mid + 1;
+            }
+        }
+
+        return lo;
+    }
+}

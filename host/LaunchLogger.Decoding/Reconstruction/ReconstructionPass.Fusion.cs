@@ -1,0 +1,230 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <content>Fusion: the filter's settings, the trajectory it yields, and what it says about slip and bias.</content>
+internal sealed partial class ReconstructionPass
+{
+    private void ReportSlip(FusionResult fused, bool modelled)
+    {
+        if (!modelled || !fused.SlipKept)
+        {
+            return;
+        }
+
+        // Slip at half a g of drive: worth a word once it passes 0.3 %.
+        double atHalfG = fused.Slip.Value * 0.5 * G0;
+        if (Math.Abs(atHalfG) > 0.003)
+        {
+            warnings.Add($"the pulses show the tyre slipping by about {atHalfG * 100:F1} % at half a g of drive (a driven wheel?); distances and speeds are corrected for it");
+        }
+    }
+
+    private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, List<TimeWindow> braking, double[]? slipSignal)
+    {
+        double[] grid = steps.TimeS;
+        bool withAccel = accel != null;
+        double inputDensity = 0;
+        double thirdMean = 0;
+        double thirdSigma;
+        if (withAccel)
+        {
+            ForwardAcceleration a = accel!;
+            double noise = options.AccelNoiseMps2 ?? a.MovingNoise(a.IndexAtOrAfter(startS), a.Count);
+            inputDensity = (noise * noise * a.PeriodS * a.CorrelationFactor * a.CorrelationFactor) + options.AccelModelNoiseDensity;
+            thirdSigma = Math.Sqrt((a.RestLevelSigmaMps2 * a.RestLevelSigmaMps2) + (options.BiasPriorMps2 * options.BiasPriorMps2));
+        }
+        else
+        {
+            thirdMean = kinematic is { } k && k.RampS == 0 ? k.AccelMps2 : 0;
+            thirdSigma = Math.Max(2.0, kinematic?.AccelMps2 ?? 0);
+        }
+
+        double phaseMean = 0.5 * mpp;
+        double phaseSigma = mpp / Math.Sqrt(12);
+        if (!withAccel && kinematic is { } start)
+        {
+            // Without an accelerometer nothing but the early pulses' shape speaks to the phase.
+            phaseMean = start.PhaseM;
+            phaseSigma = Math.Min(start.PhaseSigmaM, phaseSigma);
+        }
+        double speed = 0;
+        double speedSigma = 0;
+        if (!Staged && pulses != null)
+        {
+            // Rolling start: distance 0 at the first observation, speed from the first pulses.
+            phaseMean = pulses.Counts[0] * mpp;
+            phaseSigma = Math.Max(options.ToothSpacingErrorFraction * mpp, 1e-4);
+            if (opening is { } s0)
+            {
+                // The start fit's speed at the first observation; its σ widened for shapes the quadratic misses.
+                speed = s0.SpeedMps.Value;
+                speedSigma = Math.Max(3 * s0.SpeedMps.Sigma, 0.1);
+            }
+            else
+            {
+                int j = Math.Min(pulses.Length - 1, 4);
+                speed = j > 0 ? (pulses.Counts[j] - pulses.Counts[0]) * mpp / Math.Max(pulses.MidS(j) - pulses.MidS(0), 1e-3) : 0;
+                speedSigma = Math.Max(0.3 * speed, 0.5);
+            }
+        }
+
+        int stopIndex = int.MaxValue;
+        if (stopS is { } s)
+        {
+            int i = Array.BinarySearch(grid, s);
+            stopIndex = i >= 0 ? i : ~i;
+        }
+
+        return new FusionSettings
+        {
+            Mode = withAccel ? FusionMode.Accelerometer : FusionMode.Kinematic,
+            GridS = grid,
+            StepSpeedM = steps.StepSpeedM,
+            StepDistanceM = steps.StepDistanceM,
+            NoInput = steps.NoInput,
+            StartS = startS,
+            StartSpeedM = steps.StartSpeedM,
+            StartDistanceM = steps.StartDistanceM,
+            InitialSpeedMps = speed,
+            InitialSpeedSigma = speedSigma,
+            ThirdMean = thirdMean,
+            ThirdSigma = thirdSigma,
+            PhaseMean = phaseMean,
+            PhaseSigma = phaseSigma,
+            InputDensity = inputDensity,
+            ThirdDensity = !withAccel ? options.JerkDensity : pulses is null ? options.AccelOnlyBiasWanderDensity : options.BiasWanderDensity,
+            StopIndex = stopIndex,
+            Pulses = pulses,
+            MetresPerPulse = mpp,
+            ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
+            EdgeJitterS = options.EdgeJitterS,
+            SpinWindows = [.. spin],
+
+            // Across a spin or slide the wheel may gain or lose any distance: the phase starts afresh.
+            SpinPhaseVariance = 1e6,
+            BrakeWindows = [.. braking],
+            BrakeBiasStepVariance = BrakeStepVariances(steps, braking),
+            BrakeThirdDensity = options.BrakeBiasWanderDensity,
+            SlipSignal = slipSignal,
+            SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
+            SlipMinimum = options.WheelSlipMinimum,
+        };
+    }
+
+    /// <remarks>The σ columns add what the filter cannot see: the pulses' own scale (an undriven
+    /// tyre still slips a little under rolling resistance and the torque that spins it up, see
+    /// <see cref="ReconstructionOptions.PulseScaleSigma"/>) or, without pulses, the
+    /// accelerometer's (<see cref="ReconstructionOptions.AccelScaleSigma"/>), and, on a driven wheel, the part of the
+    /// slip the linear slip law misses (<see cref="ReconstructionOptions.SlipModelError"/> of the
+    /// correction). Both are systematic, so they grow with distance and speed.</remarks>
+    private Trajectory MakeTrajectory(StepGrid steps, double startS, double? stopS, FusionResult fused, double[]? slipSignal)
+    {
+        double[] grid = steps.TimeS;
+        int n = grid.Length;
+
+        // The filter's arrays become the trajectory's (zeros before first motion already).
+        double[] distance = fused.DistanceM;
+        double[] speed = fused.SpeedMps;
+        double[] sd = fused.DistanceSigmaM;
+        double[] sv = fused.SpeedSigmaMps;
+        var accelOut = new double[n];
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        double stop = stopS ?? double.PositiveInfinity;
+        double previous = 0;
+        for (int k = k0; k < n; k++)
+        {
+            bool atRest = grid[k] >= stop;
+
+            // Distance never goes back, and stands still once the car is at rest.
+            double d = atRest && k > k0 && grid[k - 1] >= stop ? previous : Math.Max(distance[k], previous);
+            previous = d;
+            distance[k] = d;
+            speed[k] = atRest ? 0 : Math.Max(speed[k], 0);
+            double scale = pulses is null ? options.AccelScaleSigma : options.PulseScaleSigma;
+            double slipDistance = 0;
+            double slipSpeed = 0;
+            if (slipSignal != null && fused.SlipKept)
+            {
+                slipDistance = options.SlipModelError * Math.Abs(fused.Slip.Value) * slipSignal[k];
+                double rate = k + 1 < n ? (slipSignal[k + 1] - slipSignal[k]) / (grid[k + 1] - grid[k]) : 0;
+                slipSpeed = options.SlipModelError * Math.Abs(fused.Slip.Value) * rate;
+            }
+
+            double dSys = (scale * d) + slipDistance;
+            double vSys = (scale * speed[k]) + slipSpeed;
+            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys));
+            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys));
+            if (atRest)
+            {
+                accelOut[k] = 0;
+            }
+            else if (accel != null)
+            {
+                // Mean input over the steps either side of the grid point, less the bias.
+                double before = k > 0 ? steps.StepSpeedM[k - 1] / (grid[k] - grid[k - 1]) : 0;
+                double after = k + 1 < n ? steps.StepSpeedM[k] / (grid[k + 1] - grid[k]) : before;
+                accelOut[k] = (k > 0 ? 0.5 * (before + after) : after) - fused.Third[k];
+            }
+            else
+            {
+                accelOut[k] = fused.Third[k];
+            }
+        }
+
+        if (accel != null && n > k0)
+        {
+            // The input is noisy from sample to sample; report a centred mean over about 10 ms.
+            double step = (grid[^1] - grid[k0]) / Math.Max(n - 1 - k0, 1);
+            int half = Math.Max(1, (int)Math.Round(0.005 / Math.Max(step, 1e-6)));
+            var smooth = new double[n];
+            double sum = 0;
+            int lo = k0;
+            int hi = k0 - 1;
+            for (int k = k0; k < n; k++)
+            {
+                int wantLo = Math.Max(k0, k - half);
+                int wantHi = Math.Min(n - 1, k + half);
+                while (hi < wantHi)
+                {
+                    hi++;
+                    sum += accelOut[hi];
+                }
+
+                while (lo < wantLo)
+                {
+                    sum -= accelOut[lo];
+                    lo++;
+                }
+
+                smooth[k] = grid[k] >= stop ? 0 : sum / (hi - lo + 1);
+            }
+
+            accelOut = smooth;
+        }
+
+        return new Trajectory
+        {
+            TimeS = grid,
+            DistanceM = distance,
+            SpeedMps = speed,
+            AccelMps2 = accelOut,
+            DistanceSigmaM = sd,
+            SpeedSigmaMps = sv,
+        };
+    }
+
+    private static Estimate MeanBias(double[] grid, double startS, double? stopS, FusionResult fused)
+    {
+        double sum = 0;
+        double sigma = 0;
+        int count = 0;
+        double stop = stopS ?? double.PositiveInfinity;
+        for (int k = FusionSmoother.FirstIndexAfter(grid, startS); k < grid.Length && grid[k] < stop; k++)
+        {
+            sum += fused.Third[k];
+            sigma += fused.ThirdSigma[k];
+            count++;
+        }
+
+        return count == 0 ? new Estimate(0, 0) : new Estimate(sum / count, sigma / count);
+    }
+}

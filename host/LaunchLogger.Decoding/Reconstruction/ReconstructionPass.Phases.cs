@@ -1,0 +1,143 @@
+using LaunchLogger.Firmware.Wire;
+
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <content>Phases of the record: first motion and the stop.</content>
+internal sealed partial class ReconstructionPass
+{
+    private Estimate FirstMotion()
+    {
+        if (!Staged && pulses != null)
+        {
+            warnings.Add(opening is { } s
+                ? FormattableString.Invariant($"the run opened while rolling, at {s.SpeedMps.Value:F2} m/s ± {s.SpeedMps.Sigma:F2} by the first pulses{(configuration.Staged ? " although the box was staged" : "")}: there is no standstill, so no standing-start figure; distances count from the first pulse observation")
+                : "the run opened while rolling: there is no standstill, distances count from the first pulse observation");
+            return new Estimate(pulses.MidS(0), (pulses.HiS[0] - pulses.LoS[0]) / Math.Sqrt(12));
+        }
+
+        if (!Staged)
+        {
+            warnings.Add("the run opened while rolling and has no pulses: distances count from the start of the samples");
+            return new Estimate(accel!.TimeS[0], 0);
+        }
+
+        Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, o.SigmaS) : null;
+        if (fromAccel is { } fa && pulses != null && fa.Value >= pulses.HiS[0])
+        {
+            warnings.Add("the accelerometer onset came after the first pulse; it was not used");
+            fromAccel = null;
+        }
+
+        Estimate? fromPulses = kinematic is { } k ? new Estimate(k.TimeS, k.SigmaS) : null;
+        if (fromAccel is { } a && fromPulses is { } p)
+        {
+            double gap = a.Value - p.Value;
+            double combined = Math.Sqrt((a.Sigma * a.Sigma) + (p.Sigma * p.Sigma));
+            if (Math.Abs(gap) > 3 * combined)
+            {
+                warnings.Add($"the accelerometer onset and the back-extrapolated pulses disagree on first motion by {gap * 1e3:F1} ms; the accelerometer's is used");
+                return a;
+            }
+
+            double wa = 1 / (a.Sigma * a.Sigma);
+            double wp = 1 / (p.Sigma * p.Sigma);
+            return new Estimate(((wa * a.Value) + (wp * p.Value)) / (wa + wp), Math.Sqrt(1 / (wa + wp)));
+        }
+
+        if (fromAccel is { } onlyAccel)
+        {
+            return onlyAccel;
+        }
+
+        if (fromPulses is { } onlyPulses)
+        {
+            if (accel != null)
+            {
+                warnings.Add("the accelerometer shows no clear onset of motion: first motion is back-extrapolated from the pulses");
+            }
+
+            return onlyPulses;
+        }
+
+        if (pulses != null)
+        {
+            // Too few pulses for a fit: the start lies before the first edge, by up to the time
+            // the second edge took.
+            double first = pulses.MidS(0);
+            double spread = pulses.Length > 1 ? pulses.MidS(1) - first : 0.5;
+            warnings.Add("too few pulses to back-extrapolate first motion: it is placed one pulse interval before the first pulse, with that much uncertainty");
+            return new Estimate(first - spread, spread);
+        }
+
+        double start = motionHintS ?? accel!.TimeS[0];
+        warnings.Add("the accelerometer shows no clear onset of motion: first motion is taken from the box's own mark or the start of the samples");
+        return new Estimate(start, 0.05);
+    }
+
+    private double? FindStop(double startS, double endOfData)
+    {
+        bool stoppedEvent = run.Events.Any(e => e.Kind == EventKind.Stopped);
+        if (pulses != null)
+        {
+            double lastHi = pulses.HiS[^1];
+            double hold = configuration.StopHoldS > 0 ? 0.9 * configuration.StopHoldS : 1.0;
+            if (!stoppedEvent && endOfData - lastHi < hold && !StopFinder.EndsAtRest(pulses, mpp))
+            {
+                return null;
+            }
+
+            return StopFinder.Find(pulses, mpp, accel?.TimeS, accel is null ? null : accelInput, endOfData);
+        }
+
+        // Accelerometer only: at rest when the last samples sit at the resting level, as quiet as at rest.
+        ForwardAcceleration a = accel!;
+        int from = a.IndexAtOrAfter(a.TimeS[^1] - options.StillAtEndS);
+        if (a.TimeS[^1] - startS < options.StillAtEndS + 0.5 || a.Count - from < 8)
+        {
+            return null;
+        }
+
+        double mean = 0;
+        for (int i = from; i < a.Count; i++)
+        {
+            mean += accelInput[i];
+        }
+
+        mean /= a.Count - from;
+        double variance = 0;
+        for (int i = from; i < a.Count; i++)
+        {
+            variance += (accelInput[i] - mean) * (accelInput[i] - mean);
+        }
+
+        double sd = Math.Sqrt(variance / (a.Count - from));
+        if (!stoppedEvent && (sd > 1.5 * a.NoiseMps2 || Math.Abs(mean) > 0.1))
+        {
+            return null;
+        }
+
+        // Walk back to where the smoothed acceleration last left the still band.
+        int half = Math.Max(1, (int)Math.Round(0.05 / a.PeriodS));
+        double band = Math.Max(0.1, 4 * a.NoiseMps2 / Math.Sqrt((2 * half) + 1));
+        int k = a.Count - 1;
+        while (k > 0 && a.TimeS[k] > startS)
+        {
+            double sum = 0;
+            int lo = Math.Max(0, k - half);
+            int hi = Math.Min(a.Count - 1, k + half);
+            for (int i = lo; i <= hi; i++)
+            {
+                sum += accelInput[i];
+            }
+
+            if (Math.Abs(sum / (hi - lo + 1)) > band)
+            {
+                break;
+            }
+
+            k--;
+        }
+
+        return a.TimeS[Math.Min(k + half, a.Count - 1)];
+    }
+}

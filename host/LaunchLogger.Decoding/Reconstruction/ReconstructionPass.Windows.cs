@@ -1,0 +1,326 @@
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <content>Where the wheel does not measure the car: wheelspin, slides under braking, drive and brake windows, the slip signal.</content>
+internal sealed partial class ReconstructionPass
+{
+    private List<TimeWindow> FindWheelspin(double startS, double endS, List<TimeWindow> braking)
+    {
+        if (!options.DetectWheelspin || pulses is null || accel is null || !Staged)
+        {
+            return [];
+        }
+
+        List<TimeWindow> windows = WheelspinDetector.Find(
+            pulses, mpp, accel.TimeS, accelInput, startS, endS, braking, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
+        if (spinning.Count > 0)
+        {
+            string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            warnings.Add($"wheelspin suspected (pulses up to {ahead * 100:F0} % ahead of the accelerometer) at {list} after first motion; the pulses there were not used for distance");
+        }
+
+        if (windows.Count > spinning.Count)
+        {
+            string list = string.Join(", ", windows.Except(spinning).Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            warnings.Add($"the wheel slid (pulses up to {behind * 100:F0} % behind the accelerometer) at {list} after first motion; the pulses there were not used for distance");
+        }
+
+        return windows;
+    }
+
+    /// <summary>The slip signal S(t) = ∫ v·a_drive dt on the grid, where a_drive is the drive
+    /// force per unit mass: the measured forward acceleration plus typical air drag and rolling
+    /// resistance, or 0 when that is negative (coasting, braking). A tyre's longitudinal slip grows in proportion to the force it passes (the
+    /// linear part of its force–slip curve; H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1),
+    /// so a wheel slipping by k·a_drive counts k·S(t) more than the car covered. Speeds come
+    /// from the pulses themselves (their own slip changes S by only that much).</summary>
+    private double[]? SlipSignal(StepGrid steps, double startS, double? stopS)
+    {
+        if (accel is null || pulses is null || !Staged || options.WheelSlipSigma <= 0 || pulses.Length < 3)
+        {
+            return null;
+        }
+
+        double[] grid = steps.TimeS;
+        var signal = new double[grid.Length];
+        double stop = stopS ?? double.PositiveInfinity;
+        int i = 0;
+        double sum = 0;
+        for (int k = FusionSmoother.FirstIndexAfter(grid, startS); k + 1 < grid.Length; k++)
+        {
+            double mid = 0.5 * (grid[k] + grid[k + 1]);
+            while (i + 1 < pulses.Length && pulses.MidS(i + 1) <= mid)
+            {
+                i++;
+            }
+
+            double speed = 0;
+            if (mid < stop && i + 1 < pulses.Length && pulses.MidS(i) <= mid)
+            {
+                speed = (pulses.Counts[i + 1] - pulses.Counts[i]) * mpp / Math.Max(pulses.MidS(i + 1) - pulses.MidS(i), 1e-6);
+            }
+
+            double dt = grid[k + 1] - grid[k];
+            // Drive only: under braking every wheel slips, driven or not, by its own measure, and
+            // that is left to the accelerometer's error model.
+            double drive = Math.Max((steps.StepSpeedM[k] / dt) + (options.DragPerMassPerSpeedSquared * speed * speed) + (options.RollingResistance * G0), 0);
+            sum += speed * drive * dt;
+            signal[k + 1] = sum;
+        }
+
+        return signal;
+    }
+
+    /// <summary>Stretches where the drive force per unit mass (measured acceleration plus typical
+    /// drag and rolling resistance, averaged over 0.1 s) exceeds 0.5 m/s², widened by 0.1 s.</summary>
+    private List<TimeWindow> DriveWindows(StepGrid steps, double startS, double? stopS)
+    {
+        double[] grid = steps.TimeS;
+        var windows = new List<TimeWindow>();
+        double stop = stopS ?? double.PositiveInfinity;
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        double open = double.NaN;
+        for (int k = k0; k + 1 < grid.Length; k++)
+        {
+            // Mean input over the steps within ±0.05 s.
+            double sum = 0;
+            double span = 0;
+            for (int j = k; j + 1 < grid.Length && grid[j] < grid[k] + 0.05; j++)
+            {
+                sum += steps.StepSpeedM[j];
+                span += grid[j + 1] - grid[j];
+            }
+
+            for (int j = k - 1; j >= k0 && grid[j] > grid[k] - 0.05; j--)
+            {
+                sum += steps.StepSpeedM[j];
+                span += grid[j + 1] - grid[j];
+            }
+
+            bool drive = grid[k] < stop && span > 0 && (sum / span) + (options.RollingResistance * G0) > 0.5;
+            if (drive && double.IsNaN(open))
+            {
+                open = k == k0 ? startS : grid[k] - 0.1;
+            }
+            else if (!drive && !double.IsNaN(open))
+            {
+                windows.Add(new TimeWindow(open, grid[k] + 0.1));
+                open = double.NaN;
+            }
+        }
+
+        if (!double.IsNaN(open))
+        {
+            windows.Add(new TimeWindow(open, Math.Min(stop, grid[^1])));
+        }
+
+        return windows;
+    }
+
+    /// <summary>Stretches of firm braking: the braking force per unit mass (the measured
+    /// deceleration, averaged over ±0.05 s, less typical drag and rolling resistance) exceeds
+    /// <see cref="ReconstructionOptions.BrakingDecelMps2"/>; widened by 0.1 s each side (the slip
+    /// builds with the brake pressure), joined across gaps under 0.2 s, cut at the stop.</summary>
+    private List<TimeWindow> BrakingWindows(StepGrid steps, double startS, double? stopS)
+    {
+        var windows = new List<TimeWindow>();
+        if (accel is null || pulses is null || !Staged || options.BrakingDecelMps2 <= 0)
+        {
+            return windows;
+        }
+
+        double[] grid = steps.TimeS;
+        double[] dv = steps.StepSpeedM;
+        double stop = stopS ?? double.PositiveInfinity;
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        int n = grid.Length;
+        double sum = 0;
+        double span = 0;
+        int lo = k0;
+        int hi = k0;
+        double speed = steps.StartSpeedM;
+        double open = double.NaN;
+        double last = double.NaN;
+        for (int k = k0; k + 1 < n && grid[k] < stop; k++)
+        {
+            // Running mean of the input over the steps within ±0.05 s.
+            while (hi + 1 < n && grid[hi] < grid[k] + 0.05)
+            {
+                sum += dv[hi];
+                span += grid[hi + 1] - grid[hi];
+                hi++;
+            }
+
+            while (lo < k && grid[lo] <= grid[k] - 0.05)
+            {
+                sum -= dv[lo];
+                span -= grid[lo + 1] - grid[lo];
+                lo++;
+            }
+
+            speed = Math.Max(speed + dv[k], 0);
+            double force = span > 0 ? (sum / span) + (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * speed * speed) : 0;
+            if (force < -options.BrakingDecelMps2)
+            {
+                if (double.IsNaN(open))
+                {
+                    open = Math.Max(grid[k] - 0.1, startS);
+                }
+                else if (grid[k] - last > 0.2)
+                {
+                    windows.Add(new TimeWindow(open, Math.Min(last + 0.1, stop)));
+                    open = Math.Max(grid[k] - 0.1, startS);
+                }
+
+                last = grid[k];
+            }
+        }
+
+        if (!double.IsNaN(open))
+        {
+            windows.Add(new TimeWindow(open, Math.Min(last + 0.1, stop)));
+        }
+
+        return windows;
+    }
+
+    /// <summary>Where, under braking, the pulses fall behind the accelerometer: the speed from the
+    /// pulses over spans of about 40 ms against the speed they had just before braking plus the
+    /// integrated input, from where the drive is over (a driven wheel no longer slips ahead) and
+    /// before the brakes bite. A span is behind when it falls short, beyond the first span's
+    /// difference, by more than 4 % and 0.3 m/s, plus 0.1 m/s per second since the anchor for the input's drift;
+    /// with three such spans the pulses
+    /// are set aside from where the shortfall first passed 1 % and 0.1 m/s to the window's end
+    /// (the margin widens as the speed falls, while ABS keeps cycling and the wheel may lock at
+    /// the end).
+    /// Under ABS a braked wheel slips by 5–20 %; a wheel that keeps up keeps its pulses.</summary>
+    private List<TimeWindow> SlidingUnderBraking(StepGrid steps, List<TimeWindow> braking, out double largestBehind)
+    {
+        largestBehind = 0;
+        var sliding = new List<TimeWindow>();
+        if (pulses is null)
+        {
+            return sliding;
+        }
+
+        double[] grid = steps.TimeS;
+        foreach (TimeWindow w in braking)
+        {
+            // The anchor: where the drive is over (a driven wheel no longer slips ahead) and
+            // before the brakes bite.
+            int i0 = FirstPulseAtOrAfter(w.StartS - 0.1);
+            double roughSpeed = i0 + 1 < pulses.Length ? (pulses.Counts[i0 + 1] - pulses.Counts[i0]) * mpp / Math.Max(pulses.MidS(i0 + 1) - pulses.MidS(i0), 1e-6) : 0;
+            double resistance = (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * roughSpeed * roughSpeed);
+            int ka = FusionSmoother.FirstIndexAfter(grid, w.StartS);
+            while (ka + 6 < grid.Length && grid[ka] < w.EndS
+                && ((steps.StepSpeedM[ka] + steps.StepSpeedM[ka + 1] + steps.StepSpeedM[ka + 2] + steps.StepSpeedM[ka + 3] + steps.StepSpeedM[ka + 4]) / (grid[ka + 5] - grid[ka])) + resistance > 0)
+            {
+                ka++;
+            }
+
+            if (ka >= grid.Length)
+            {
+                continue;
+            }
+
+            i0 = FirstPulseAtOrAfter(grid[ka]);
+            int i1 = FirstPulseAtOrAfter(grid[ka] + 0.04);
+            i1 = Math.Max(i1, i0 + 2);
+            if (i1 >= pulses.Length)
+            {
+                continue;
+            }
+
+            double anchor = 0.5 * (pulses.MidS(i0) + pulses.MidS(i1));
+            double speed = (pulses.Counts[i1] - pulses.Counts[i0]) * mpp / (pulses.MidS(i1) - pulses.MidS(i0));
+            int k = Math.Max(FusionSmoother.FirstIndexAfter(grid, anchor) - 1, 0);
+            double cumulative = 0;
+            int behind = 0;
+            double worst = 0;
+            double firstBehindS = double.NaN;
+            double slightSinceS = double.NaN;
+            double? first = null;
+            double from = double.NaN;
+            int i = i1;
+            while (i < pulses.Length && pulses.MidS(i) < w.EndS)
+            {
+                int j = i + 1;
+                while (j < pulses.Length && pulses.MidS(j) < pulses.MidS(i) + 0.04)
+                {
+                    j++;
+                }
+
+                if (j >= pulses.Length || pulses.MidS(j) > w.EndS)
+                {
+                    break;
+                }
+
+                double mid = 0.5 * (pulses.MidS(i) + pulses.MidS(j));
+                while (k + 1 < grid.Length && grid[k + 1] <= mid)
+                {
+                    cumulative += steps.StepSpeedM[k];
+                    k++;
+                }
+
+                double fromAccel = speed + cumulative;
+                double fromPulses = (pulses.Counts[j] - pulses.Counts[i]) * mpp / (pulses.MidS(j) - pulses.MidS(i));
+                // Measured from the first span's difference, which the anchor's own error shares.
+                first ??= fromAccel - fromPulses;
+                double deficit = fromAccel - fromPulses - first.Value;
+                bool slight = deficit > (0.01 * fromAccel) + 0.1;
+                slightSinceS = !slight ? double.NaN : double.IsNaN(slightSinceS) ? pulses.MidS(i) : slightSinceS;
+                // The integrated input drifts by up to about 0.1 m/s² (what pitch compensation and
+                // the bias leave), so the margin grows with the time since the anchor.
+                if (fromAccel > 1 && deficit > (0.04 * fromAccel) + 0.3 + (0.1 * (mid - anchor)))
+                {
+                    behind++;
+                    worst = Math.Max(worst, deficit / fromAccel);
+                    if (double.IsNaN(firstBehindS))
+                    {
+                        from = slightSinceS;
+                        firstBehindS = pulses.MidS(i);
+                    }
+
+                }
+
+                i = j;
+            }
+
+            if (behind >= 3)
+            {
+                // A slide within a second of the brakes biting began with them: the slip
+                // builds with the pressure before it shows above the margin.
+                double start = Math.Max(Math.Min(from, firstBehindS) - 0.05, w.StartS);
+                start = start - w.StartS < 1.0 ? w.StartS : start;
+                sliding.Add(new TimeWindow(start, w.EndS));
+                largestBehind = Math.Max(largestBehind, worst);
+            }
+        }
+
+        return sliding;
+    }
+
+    /// <summary>Variance of the accelerometer's error stepping as each brake window starts: its
+    /// scale error times the mean deceleration there, and what pitch compensation leaves.</summary>
+    private double[] BrakeStepVariances(StepGrid steps, List<TimeWindow> braking)
+    {
+        var result = new double[braking.Count];
+        double[] grid = steps.TimeS;
+        for (int i = 0; i < braking.Count; i++)
+        {
+            int k = FusionSmoother.FirstIndexAfter(grid, braking[i].StartS);
+            double dv = 0;
+            double dt = 0;
+            for (; k + 1 < grid.Length && grid[k] < braking[i].EndS; k++)
+            {
+                dv += steps.StepSpeedM[k];
+                dt += grid[k + 1] - grid[k];
+            }
+
+            double decel = dt > 0 ? Math.Abs(dv / dt) : 0;
+            double scale = options.AccelScaleSigma * decel;
+            result[i] = (scale * scale) + (options.BrakeBiasStepSigmaMps2 * options.BrakeBiasStepSigmaMps2);
+        }
+
+        return result;
+    }
+}
