@@ -48,6 +48,30 @@ internal sealed class PulseChannel
         relativeSigma = periodSigmas![i];
     }
 
+    /// <summary>Best time of the edge at which observation <paramref name="i"/>'s count was
+    /// reached: the middle of the interval <see cref="BracketModel.LastEdge"/> leaves in the
+    /// bracket, seconds. The bracket's own midpoint for a bracket holding one slow pulse; at speed,
+    /// and above all across a long stall of the loop, it is where the edge can have been.</summary>
+    public double EdgeS(int i)
+    {
+        if (edges is null)
+        {
+            var result = new double[Length];
+            for (int k = 0; k < result.Length; k++)
+            {
+                PulsePeriod(k, out double period, out double sigma);
+                BracketModel.LastEdge(LoS[k], HiS[k], Increment(k), period, Math.Min(0.5, sigma), out double from, out double to);
+                result[k] = 0.5 * (from + to);
+            }
+
+            edges = result;
+        }
+
+        return edges[i];
+    }
+
+    private double[]? edges;
+
     /// <summary>Pulses each side of an observation that <see cref="PulsePeriod"/> counts over.</summary>
     public const int PeriodWindowPulses = 12;
 
@@ -109,8 +133,11 @@ internal sealed class PulseChannel
                 }
             }
 
+            // Between poll instants, where the counter's reading is exact: each end is late by
+            // less than a pulse period, alike at both ends, whatever the bracket's width (a long
+            // stall of the loop included).
             long span = Counts[to] - Counts[from];
-            double time = MidS(to) - MidS(from);
+            double time = HiS[to] - HiS[from];
             if (span < 2 || !(time > 0))
             {
                 result[i] = double.PositiveInfinity;
@@ -119,8 +146,7 @@ internal sealed class PulseChannel
             }
 
             result[i] = time / span;
-            double widths = (HiS[to] - LoS[to]) + (HiS[from] - LoS[from]);
-            sigmas[i] = Math.Min(1, (0.5 * widths / time) + (1.0 / span));
+            sigmas[i] = Math.Min(1, 1.0 / span);
         }
 
         return result;
