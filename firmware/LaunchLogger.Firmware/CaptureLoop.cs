@@ -29,9 +29,12 @@ namespace LaunchLogger.Firmware
         private long nextAccelMicros;
         private long lastAccelReadMicros;
         private long sampleIndex;
+        private int maxSamplesPerStep;
+        private bool accelBacklog;
         private bool markWasActive;
         private bool phaseShown;
         private RunPhase shownPhase;
+        private Capture.PulseObservation observation;
 
         /// <summary>Wires the loop together.</summary>
         /// <param name="clock">The box's monotonic clock.</param>
@@ -78,6 +81,28 @@ namespace LaunchLogger.Firmware
             this.accelIntervalMicros = accelIntervalMicros;
             samplesPerSecondMilli = accelerometer == null ? 0 : accelerometer.OutputDataRateMilliHz;
             lastAccelReadMicros = clock.NowMicros();
+            maxSamplesPerStep = burstCapacity;
+        }
+
+        /// <summary>The most accelerometer samples taken in one pass (at most the burst capacity,
+        /// which is the default). When a read is cut short the next pass reads again, so a full
+        /// FIFO is emptied over several passes instead of stalling one.</summary>
+        public int MaxAccelSamplesPerStep
+        {
+            get
+            {
+                return maxSamplesPerStep;
+            }
+
+            set
+            {
+                if (value < 1 || value > burstCapacity)
+                {
+                    throw new System.ArgumentOutOfRangeException("value");
+                }
+
+                maxSamplesPerStep = value;
+            }
         }
 
         /// <summary>One pass of the loop.</summary>
@@ -85,10 +110,14 @@ namespace LaunchLogger.Firmware
         {
             PulseObservationDrain();
             long now = clock.NowMicros();
-            if (accelerometer != null && now >= nextAccelMicros)
+            if (accelerometer != null && (accelBacklog || now >= nextAccelMicros))
             {
+                if (!accelBacklog)
+                {
+                    nextAccelMicros = now + accelIntervalMicros;
+                }
+
                 ReadAccelerometer();
-                nextAccelMicros = now + accelIntervalMicros;
             }
 
             if (brakeSwitch != null)
@@ -121,21 +150,22 @@ namespace LaunchLogger.Firmware
         {
             for (int i = 0; i < MaxObservationsPerStep; i++)
             {
-                Capture.PulseObservation observation;
+                // A field, not a local: the device allocates struct locals on every method entry.
                 if (!pulses.TryRead(out observation))
                 {
                     return;
                 }
 
-                recorder.OnPulseObservation(observation);
+                recorder.OnPulseObservation(ref observation);
             }
         }
 
         private void ReadAccelerometer()
         {
             bool overflowed;
-            int n = accelerometer.ReadBurst(burst, burstCapacity, out overflowed);
+            int n = accelerometer.ReadBurst(burst, maxSamplesPerStep, out overflowed);
             long readMicros = clock.NowMicros();
+            accelBacklog = false;
             if (n < 0)
             {
                 health.AccelReadFailures++;
@@ -143,11 +173,16 @@ namespace LaunchLogger.Firmware
                 return;
             }
 
+            // A read cut short may have left samples in the FIFO: read again next pass.
+            bool cut = n == maxSamplesPerStep && maxSamplesPerStep < burstCapacity;
+            accelBacklog = cut;
             if (overflowed)
             {
                 health.AccelFifoOverflows++;
                 long expected = (readMicros - lastAccelReadMicros) * samplesPerSecondMilli / 1000000000L;
-                long lost = expected - n;
+
+                // After an overflow the FIFO was full: the burst capacity is its depth.
+                long lost = expected - (cut ? burstCapacity : n);
                 if (lost > 0)
                 {
                     sampleIndex += lost;

@@ -53,6 +53,7 @@ namespace LaunchLogger.Esp32
                 settings.AccelFullScaleMilliG = accelerometer.FullScaleMilliG;
             }
 
+            StepBudget.Apply(settings);
             return settings;
         }
     }

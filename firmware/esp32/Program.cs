@@ -21,7 +21,6 @@ namespace LaunchLogger.Esp32
     public static class Program
     {
         /// <summary>Half the LIS3DH FIFO at 400 Hz (16 samples = 40 ms): read well before it fills.</summary>
-        private const int AccelIntervalMicros = 40000;
 
         /// <summary>Entry point.</summary>
         public static void Main()
@@ -65,7 +64,11 @@ namespace LaunchLogger.Esp32
                 led,
                 recorder,
                 Lis3dhFifoReader.FifoDepth,
-                AccelIntervalMicros);
+                StepBudget.AccelIntervalMicros);
+
+            // Bounded work per pass (hardware-notes/esp32-and-linux-boards.md): a few samples per
+            // read, small pulse frames, the pre-trigger samples written a share at a time.
+            StepBudget.Apply(loop);
 
             counter.Start();
             Debug.WriteLine("LaunchLogger running");
@@ -103,7 +106,9 @@ namespace LaunchLogger.Esp32
             {
                 SDCardSpiParameters spi = new SDCardSpiParameters();
                 spi.spiBus = 1;
-                spi.chipSelectPin = PinMap.SdChipSelect;
+                // chipSelectPin is a uint: convert explicitly (an int constant converts silently only
+                // because it is a constant; a pin read from settings would not compile).
+                spi.chipSelectPin = (uint)PinMap.SdChipSelect;
                 SDCard card = new SDCard(spi);
                 card.Mount();
                 file = new FileSink("D:\\", BoxSettings.FlushIntervalMs);

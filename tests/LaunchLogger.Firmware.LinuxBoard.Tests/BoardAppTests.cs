@@ -39,16 +39,16 @@ public sealed class BoardAppTests : IDisposable
         BoardSettings settings = BoardSettingsFile.Parse(
             """
             {
-              "car": { "pulsesPerRevolution": 48, "circumferenceMillimetres": 1960 },
+              "car": { "pulses_per_revolution": 48, "circumference_millimetres": 1960 },
               "pulses": { "line": 17 },
-              "accelerometer": { "chip": "lis3dh", "rateHz": 1344, "rangeG": 8, "forwardAxis": "x" },
+              "accelerometer": { "chip": "lis3dh", "rate_hz": 1344, "range_g": 8, "forward_axis": "x" },
               "log": { "folder": "unused" }
             }
             """,
             "test");
         var counter = new ManualMicrosecondCounter();
         var chip = new EmulatedLis3dh();
-        string logPath = Path.Combine(folder, "run.llog");
+        string logPath = Path.Combine(folder, "run.log");
         Directory.CreateDirectory(folder);
         LineEdgeTracker? tracker = null;
         using var stop = new CancellationTokenSource();
@@ -139,7 +139,7 @@ public sealed class BoardAppTests : IDisposable
     public void A_device_that_cannot_be_opened_is_reported_with_its_own_message()
     {
         BoardSettings settings = BoardSettingsFile.Parse(
-            """{ "car": { "pulsesPerRevolution": 48, "circumferenceMillimetres": 1960 }, "pulses": { "line": 17 }, "log": { "folder": "x" } }""",
+            """{ "car": { "pulses_per_revolution": 48, "circumference_millimetres": 1960 }, "pulses": { "line": 17 }, "log": { "folder": "x" } }""",
             "test");
         var output = new StringWriter();
 

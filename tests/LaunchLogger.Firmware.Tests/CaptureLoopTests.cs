@@ -69,6 +69,35 @@ public class CaptureLoopTests
     }
 
     [Fact]
+    public void ACappedReadEmptiesTheFifoOverSeveralPassesWithoutLosingOrMisnumberingSamples()
+    {
+        var rig = new Rig(MotionProfile.Launch(2.5, HalfG));
+        rig.Loop.MaxAccelSamplesPerStep = 8;
+        rig.RunTo(3_000_000);
+
+        // A 200 ms stall overflows the 64-sample FIFO; the backlog is then read 8 at a time.
+        rig.Counter.TrueMicros += 200_000;
+        rig.RunTo(3_400_000);
+        rig.Recorder.Shutdown(3_400_000);
+
+        Assert.All(rig.Accelerometer.Reads, r => Assert.InRange(r.Count, 0, 8));
+        Assert.Equal(1, rig.Health.AccelFifoOverflows);
+        IReadOnlyList<Frame> frames = rig.Sink.Frames;
+        EventFrame gap = frames.SingleEvent(EventKind.AccelGap);
+        Assert.InRange(gap.LostSamples!.Value, rig.Accelerometer.TrulyLost - 1, rig.Accelerometer.TrulyLost + 1);
+
+        // Every read after the gap is numbered from its true index, and the in-run frames number
+        // the samples without a hole apart from the gap.
+        var accel = frames.OfType<AccelerationFrame>().Where(a => a.ReadMicros >= gap.TimeMicros).ToList();
+        var reads = rig.Accelerometer.Reads.SkipWhile(r => !r.Overflowed).Where(r => r.Count > 0).ToList();
+        Assert.InRange(accel[0].FirstIndex, reads[0].FirstTrueIndex - 1, reads[0].FirstTrueIndex + 1);
+        for (int i = 1; i < accel.Count; i++)
+        {
+            Assert.Equal(accel[i - 1].FirstIndex + accel[i - 1].Samples.Count, accel[i].FirstIndex);
+        }
+    }
+
+    [Fact]
     public void BrakeSwitchAndMarkButtonBecomeEventsOnce()
     {
         var rig = new Rig(MotionProfile.Launch(2.5, HalfG));
@@ -164,6 +193,8 @@ public class CaptureLoopTests
         }
 
         public FakeMicrosecondCounter Counter { get; }
+
+        public CaptureLoop Loop => loop;
 
         public HealthCounters Health { get; } = new();
 

@@ -7,9 +7,15 @@ namespace LaunchLogger.Firmware.LinuxBoard.Configuration;
 /// <summary>Reads and checks the board's JSON settings file.</summary>
 public static class BoardSettingsFile
 {
-    private static readonly JsonSerializerOptions Options = new()
+    /// <summary>Keys are snake_case, like every other file the project reads and writes.</summary>
+    private static readonly JsonSerializerOptions Options = Create(JsonNamingPolicy.SnakeCaseLower);
+
+    /// <summary>Files written before the keys became snake_case used camelCase; they still load.</summary>
+    private static readonly JsonSerializerOptions LegacyOptions = Create(JsonNamingPolicy.CamelCase);
+
+    private static JsonSerializerOptions Create(JsonNamingPolicy naming) => new()
     {
-        PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
+        PropertyNamingPolicy = naming,
         ReadCommentHandling = JsonCommentHandling.Skip,
         AllowTrailingCommas = true,
         UnmappedMemberHandling = System.Text.Json.Serialization.JsonUnmappedMemberHandling.Disallow,
@@ -45,6 +51,11 @@ public static class BoardSettingsFile
         }
         catch (JsonException e)
         {
+            if (TryLegacy(json, out settings))
+            {
+                return Checked(settings!, source);
+            }
+
             string where = e.LineNumber.HasValue ? " line " + (e.LineNumber.Value + 1) : "";
             string key = string.IsNullOrEmpty(e.Path) ? "" : " at " + e.Path;
             throw new BoardSettingsException(source + ":" + where + key + ": " + FirstSentence(e.Message));
@@ -55,6 +66,11 @@ public static class BoardSettingsFile
             throw new BoardSettingsException(source + ": the file holds no settings object");
         }
 
+        return Checked(settings, source);
+    }
+
+    private static BoardSettings Checked(BoardSettings settings, string source)
+    {
         string? problem = Check(settings);
         if (problem != null)
         {
@@ -122,7 +138,7 @@ public static class BoardSettingsFile
     {
         if (s.Car.CircumferenceMillimetres < 100 || s.Car.CircumferenceMillimetres > 10000)
         {
-            return "car.circumferenceMillimetres must be from 100 to 10000 (was " + s.Car.CircumferenceMillimetres + ")";
+            return "car.circumference_millimetres must be from 100 to 10000 (was " + s.Car.CircumferenceMillimetres + ")";
         }
 
         if (s.Pulses.Line < 0)
@@ -132,12 +148,12 @@ public static class BoardSettingsFile
 
         if (s.Pulses.SecondLine.HasValue && (s.Pulses.SecondLine.Value < 0 || s.Pulses.SecondLine.Value == s.Pulses.Line))
         {
-            return "pulses.secondLine must be another line offset than pulses.line (was " + s.Pulses.SecondLine.Value + ")";
+            return "pulses.second_line must be another line offset than pulses.line (was " + s.Pulses.SecondLine.Value + ")";
         }
 
         if (s.Pulses.KernelEventBuffer < 16 || s.Pulses.KernelEventBuffer > 65536)
         {
-            return "pulses.kernelEventBuffer must be from 16 to 65536 (was " + s.Pulses.KernelEventBuffer + ")";
+            return "pulses.kernel_event_buffer must be from 16 to 65536 (was " + s.Pulses.KernelEventBuffer + ")";
         }
 
         try
@@ -159,33 +175,33 @@ public static class BoardSettingsFile
 
             if (a.I2cAddress != 0x18 && a.I2cAddress != 0x19)
             {
-                return "accelerometer.i2cAddress must be 24 (0x18) or 25 (0x19) for a LIS3DH (was " + a.I2cAddress + ")";
+                return "accelerometer.i2c_address must be 24 (0x18) or 25 (0x19) for a LIS3DH (was " + a.I2cAddress + ")";
             }
 
             if (a.I2cBus < 0)
             {
-                return "accelerometer.i2cBus must be 0 or more (was " + a.I2cBus + ")";
+                return "accelerometer.i2c_bus must be 0 or more (was " + a.I2cBus + ")";
             }
 
             if (a.RateHz != 400 && a.RateHz != 1344)
             {
-                return "accelerometer.rateHz must be 400 or 1344 for a LIS3DH (was " + a.RateHz + ")";
+                return "accelerometer.rate_hz must be 400 or 1344 for a LIS3DH (was " + a.RateHz + ")";
             }
 
             if (a.RangeG != 2 && a.RangeG != 4 && a.RangeG != 8 && a.RangeG != 16)
             {
-                return "accelerometer.rangeG must be 2, 4, 8 or 16 (was " + a.RangeG + ")";
+                return "accelerometer.range_g must be 2, 4, 8 or 16 (was " + a.RangeG + ")";
             }
 
             if (AxisIndex(a.ForwardAxis) < 0)
             {
-                return "accelerometer.forwardAxis must be \"x\", \"y\" or \"z\" (was \"" + a.ForwardAxis + "\")";
+                return "accelerometer.forward_axis must be \"x\", \"y\" or \"z\" (was \"" + a.ForwardAxis + "\")";
             }
         }
 
         if (s.Inputs is { } i && (i.DebounceMs < 0 || i.DebounceMs > 1000))
         {
-            return "inputs.debounceMs must be from 0 to 1000 (was " + i.DebounceMs + ")";
+            return "inputs.debounce_ms must be from 0 to 1000 (was " + i.DebounceMs + ")";
         }
 
         if (string.IsNullOrWhiteSpace(s.Log.Folder))
@@ -195,7 +211,7 @@ public static class BoardSettingsFile
 
         if (s.Log.FlushIntervalMs < 0 || s.Log.FsyncIntervalMs < 0)
         {
-            return "log.flushIntervalMs and log.fsyncIntervalMs must be 0 or more";
+            return "log.flush_interval_ms and log.fsync_interval_ms must be 0 or more";
         }
 
         if (s.Serial is { } serial)
@@ -207,11 +223,27 @@ public static class BoardSettingsFile
 
             if (serial.WriteTimeoutMs < 1 || serial.WriteTimeoutMs > 10000)
             {
-                return "serial.writeTimeoutMs must be from 1 to 10000 (was " + serial.WriteTimeoutMs + ")";
+                return "serial.write_timeout_ms must be from 1 to 10000 (was " + serial.WriteTimeoutMs + ")";
             }
         }
 
         return ToLoggerSettings(s).Validate();
+    }
+
+    /// <summary>Reads a camelCase file of the earlier format; false when that fails too, so the
+    /// snake_case error is the one reported.</summary>
+    private static bool TryLegacy(string json, out BoardSettings? settings)
+    {
+        try
+        {
+            settings = JsonSerializer.Deserialize<BoardSettings>(json, LegacyOptions);
+            return settings != null;
+        }
+        catch (JsonException)
+        {
+            settings = null;
+            return false;
+        }
     }
 
     private static int AxisIndex(string axis)

@@ -58,10 +58,10 @@ public sealed class FileByteSink : IByteSink, IDisposable
     {
         Directory.CreateDirectory(folder);
         string name = "launchlog-" + startUtc.ToString("yyyyMMdd-HHmmss", System.Globalization.CultureInfo.InvariantCulture);
-        string path = System.IO.Path.Combine(folder, name + ".llog");
+        string path = System.IO.Path.Combine(folder, name + ".log");
         for (int n = 2; File.Exists(path); n++)
         {
-            path = System.IO.Path.Combine(folder, name + "-" + n + ".llog");
+            path = System.IO.Path.Combine(folder, name + "-" + n + ".log");
         }
 
         return new FileByteSink(path, flushIntervalMs, fsyncIntervalMs);

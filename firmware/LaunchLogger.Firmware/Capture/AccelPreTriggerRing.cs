@@ -99,46 +99,72 @@ namespace LaunchLogger.Firmware.Capture
             sampleTotal += keep;
         }
 
-        /// <summary>Writes every burst held, oldest first, as acceleration frames, then empties
-        /// the ring. Returns the number of samples written.</summary>
-        public int WriteTo(FrameWriter writer, int maxSamplesPerFrame)
+        /// <summary>Writes the oldest samples, oldest burst first, as acceleration frames of at
+        /// most <paramref name="maxSamplesPerFrame"/> samples (each with its burst's read time and
+        /// first index), and removes them from the ring; stops once
+        /// <paramref name="maxSamples"/> have been written.</summary>
+        /// <returns>The number of samples written.</returns>
+        public int WriteTo(FrameWriter writer, int maxSamplesPerFrame, int maxSamples)
         {
             int written = 0;
-            for (int b = 0; b < burstTotal; b++)
+            while (burstTotal > 0 && written < maxSamples)
             {
-                int slot = (burstOldest + b) % burstCapacity;
+                int slot = burstOldest;
                 int count = burstCount[slot];
                 int pos = burstStart[slot];
-                long index = burstFirstIndex[slot];
-                while (count > 0)
+                int n = count < maxSamplesPerFrame ? count : maxSamplesPerFrame;
+                if (n > maxSamples - written)
                 {
-                    int n = count < maxSamplesPerFrame ? count : maxSamplesPerFrame;
-                    writer.Begin(FrameType.Acceleration);
-                    writer.PutVarint(burstReadMicros[slot]);
-                    writer.PutVarint(index);
-                    writer.PutVarint(n);
-                    for (int i = 0; i < n; i++)
-                    {
-                        int at = pos * 3;
-                        writer.PutInt16(samples[at]);
-                        writer.PutInt16(samples[at + 1]);
-                        writer.PutInt16(samples[at + 2]);
-                        pos++;
-                        if (pos == sampleCapacity)
-                        {
-                            pos = 0;
-                        }
-                    }
+                    n = maxSamples - written;
+                }
 
-                    writer.End();
-                    written += n;
-                    index += n;
-                    count -= n;
+                writer.Begin(FrameType.Acceleration);
+                writer.PutVarint(burstReadMicros[slot]);
+                writer.PutVarint(burstFirstIndex[slot]);
+                writer.PutVarint(n);
+                for (int i = 0; i < n; i++)
+                {
+                    int at = pos * 3;
+                    writer.PutInt16(samples[at]);
+                    writer.PutInt16(samples[at + 1]);
+                    writer.PutInt16(samples[at + 2]);
+                    pos++;
+                    if (pos == sampleCapacity)
+                    {
+                        pos = 0;
+                    }
+                }
+
+                writer.End();
+                written += n;
+                sampleTotal -= n;
+                if (n == count)
+                {
+                    burstOldest = (burstOldest + 1) % burstCapacity;
+                    burstTotal--;
+                }
+                else
+                {
+                    burstCount[slot] = count - n;
+                    burstFirstIndex[slot] += n;
+                    burstStart[slot] = pos;
                 }
             }
 
-            Clear();
+            if (burstTotal == 0)
+            {
+                Clear();
+            }
+
             return written;
+        }
+
+        /// <summary>Whether a burst of <paramref name="count"/> samples fits without dropping any
+        /// older sample or burst.</summary>
+        public bool HasRoomFor(int count)
+        {
+            int keep = count < sampleCapacity ? count : sampleCapacity;
+            return burstTotal < burstCapacity && sampleTotal + keep <= sampleCapacity;
         }
 
         /// <summary>Forgets everything held.</summary>

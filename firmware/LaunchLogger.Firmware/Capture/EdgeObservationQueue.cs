@@ -64,11 +64,11 @@ namespace LaunchLogger.Firmware.Capture
             {
                 if (count == 0)
                 {
-                    observation = new PulseObservation();
+                    PulseObservation.Clear(out observation);
                     return false;
                 }
 
-                observation = ring[head];
+                PulseObservation.Copy(ring, head, out observation);
                 head = (head + 1) % ring.Length;
                 count--;
                 return true;

@@ -72,11 +72,12 @@ namespace LaunchLogger.Firmware.Capture
         {
             if (pendingRead < pendingCount)
             {
-                observation = pending[pendingRead++];
+                int i = pendingRead++;
+                PulseObservation.Copy(pending, i, out observation);
                 return true;
             }
 
-            observation = new PulseObservation();
+            PulseObservation.Clear(out observation);
             return false;
         }
     }

@@ -18,5 +18,26 @@ namespace LaunchLogger.Firmware.Capture
 
         /// <summary>Bracket end (inclusive), µs of the monotonic clock.</summary>
         public long HiMicros;
+
+        /// <summary>Copies element <paramref name="index"/> of <paramref name="from"/> field by
+        /// field. On the device every by-value load of a struct (an array element, a local, an
+        /// argument) is copied into a new heap object; field loads through the element's address
+        /// are not.</summary>
+        public static void Copy(PulseObservation[] from, int index, out PulseObservation to)
+        {
+            to.Channel = from[index].Channel;
+            to.Count = from[index].Count;
+            to.LoMicros = from[index].LoMicros;
+            to.HiMicros = from[index].HiMicros;
+        }
+
+        /// <summary>Zeroes every field in place (no struct is built and copied).</summary>
+        public static void Clear(out PulseObservation observation)
+        {
+            observation.Channel = 0;
+            observation.Count = 0;
+            observation.LoMicros = 0;
+            observation.HiMicros = 0;
+        }
     }
 }

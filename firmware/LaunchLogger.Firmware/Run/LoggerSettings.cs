@@ -98,6 +98,17 @@ namespace LaunchLogger.Firmware.Run
         /// <summary>Interval between health frames during a run (µs).</summary>
         public int HealthIntervalMicros { get; set; }
 
+        /// <summary>Most body bytes in one pulses frame; 0 for as many as a frame holds. A small
+        /// value bounds the work of writing one batch in a single loop pass (an interpreted
+        /// device stuffs and checksums about 20–50 IL instructions per byte). Not in the
+        /// configuration frame: the reader takes frames of any size.</summary>
+        public int PulseFrameMaxBodyBytes { get; set; }
+
+        /// <summary>Most pre-trigger samples written per loop pass after a run opens; 0 writes them
+        /// all at once. While they drain, newer samples queue behind them in the ring, so the log
+        /// keeps its order.</summary>
+        public int PreTriggerSamplesPerStep { get; set; }
+
         /// <summary>Number of pulse channels these settings describe.</summary>
         public int ChannelCount
         {
@@ -128,6 +139,8 @@ namespace LaunchLogger.Firmware.Run
             if (e == null) e = Range("UnstagedOpenMicrometres", UnstagedOpenMicrometres, 0, 1000000000);
             if (e == null) e = Range("PulseFrameMaxAgeMicros", PulseFrameMaxAgeMicros, 1000, 10000000);
             if (e == null) e = Range("HealthIntervalMicros", HealthIntervalMicros, 10000, 600000000);
+            if (e == null && PulseFrameMaxBodyBytes != 0) e = Range("PulseFrameMaxBodyBytes", PulseFrameMaxBodyBytes, 3 * Wire.Varint.MaxBytes, 1000000);
+            if (e == null) e = Range("PreTriggerSamplesPerStep", PreTriggerSamplesPerStep, 0, 100000);
             if (e == null && AccelPresent && PreTriggerSamples < MotionConfirmSamples)
             {
                 e = "PreTriggerSamples (" + PreTriggerSamples.ToString() + ") must be at least MotionConfirmSamples (" + MotionConfirmSamples.ToString() + ")";

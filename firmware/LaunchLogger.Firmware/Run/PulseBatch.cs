@@ -8,6 +8,7 @@ namespace LaunchLogger.Firmware.Run
     {
         private const int MaxObservationBytes = 3 * Varint.MaxBytes;
         private readonly byte[] body;
+        private readonly int limit;
         private readonly int channel;
         private int length;
         private int observations;
@@ -15,12 +16,15 @@ namespace LaunchLogger.Firmware.Run
         private long lastHiMicros;
         private long firstHiMicros;
 
-        internal PulseBatch(int channel)
+        /// <param name="channel">The pulse channel.</param>
+        /// <param name="maxBodyBytes">Most body bytes per frame; 0 for as many as a frame holds.</param>
+        internal PulseBatch(int channel, int maxBodyBytes)
         {
             this.channel = channel;
 
             // Room for the body inside one payload: header, channel, count varint and CRC aside.
             body = new byte[LogFormat.MaxPayloadBytes - LogFormat.MinPayloadBytes - 1 - Varint.MaxBytes];
+            limit = maxBodyBytes > 0 && maxBodyBytes < body.Length ? maxBodyBytes : body.Length;
         }
 
         internal bool IsEmpty
@@ -35,7 +39,7 @@ namespace LaunchLogger.Firmware.Run
 
         internal bool IsFull
         {
-            get { return length + MaxObservationBytes > body.Length; }
+            get { return length + MaxObservationBytes > limit; }
         }
 
         /// <summary>Adds an observation; counts are relative to the run's origin.</summary>

@@ -43,6 +43,7 @@ namespace LaunchLogger.Firmware.Run
         private bool runStaged;
         private bool rolloutReached;
         private bool brakeApplied;
+        private bool preTriggerDraining;
 
         // Stillness window (accelerometer): min/max per axis, sums for the mean.
         private bool stillOpen;
@@ -97,7 +98,7 @@ namespace LaunchLogger.Firmware.Run
             batches = new PulseBatch[channels];
             for (int c = 0; c < channels; c++)
             {
-                batches[c] = new PulseBatch(c);
+                batches[c] = new PulseBatch(c, settings.PulseFrameMaxBodyBytes);
             }
 
             lastCount = new long[channels];
@@ -165,16 +166,25 @@ namespace LaunchLogger.Firmware.Run
             get { return restZ; }
         }
 
-        /// <summary>Takes one pulse observation.</summary>
-        public void OnPulseObservation(PulseObservation observation)
+        /// <summary>Takes one pulse observation, read through the reference: the device's
+        /// interpreter copies a struct into a new heap object whenever it is passed or loaded by
+        /// value, so the capture path never does.</summary>
+        public void OnPulseObservation(ref PulseObservation observation)
         {
-            int channel = observation.Channel;
+            OnPulse(observation.Channel, observation.Count, observation.LoMicros, observation.HiMicros);
+        }
+
+        /// <summary>Takes one pulse observation as its four fields: the cumulative count of
+        /// <paramref name="channel"/> reached <paramref name="count"/> in (<paramref name="loMicros"/>,
+        /// <paramref name="hiMicros"/>].</summary>
+        public void OnPulse(int channel, long count, long loMicros, long hiMicros)
+        {
             if (channel < 0 || channel >= lastCount.Length)
             {
-                throw new System.ArgumentOutOfRangeException("observation", "no such pulse channel");
+                throw new System.ArgumentOutOfRangeException("channel", "no such pulse channel");
             }
 
-            long width = observation.HiMicros - observation.LoMicros;
+            long width = hiMicros - loMicros;
             if (width > settings.BracketLimitMicros)
             {
                 health.WideBrackets++;
@@ -189,14 +199,14 @@ namespace LaunchLogger.Firmware.Run
             {
                 // The first reading only tells where the counter stands.
                 countKnown[channel] = true;
-                lastCount[channel] = observation.Count;
+                lastCount[channel] = count;
                 return;
             }
 
             long before = lastCount[channel];
-            if (observation.Count <= before)
+            if (count <= before)
             {
-                if (observation.Count < before)
+                if (count < before)
                 {
                     health.CountsWentBackwards++;
                 }
@@ -206,14 +216,14 @@ namespace LaunchLogger.Firmware.Run
 
             if (channel == 0)
             {
-                OnDistancePulse(observation, before);
+                OnDistancePulse(count, loMicros, hiMicros, before);
             }
             else if (runOpen)
             {
-                AddToBatch(channel, observation);
+                AddToBatch(channel, count, loMicros, hiMicros);
             }
 
-            lastCount[channel] = observation.Count;
+            lastCount[channel] = count;
         }
 
         /// <summary>Tells the recorder where a channel's counter stands before any edge, so that
@@ -245,6 +255,19 @@ namespace LaunchLogger.Firmware.Run
 
             if (runOpen)
             {
+                if (preTriggerDraining)
+                {
+                    // Older samples still wait in the ring: queue these behind them, writing
+                    // the oldest first until they fit, so nothing is dropped or reordered.
+                    while (!ring.HasRoomFor(count))
+                    {
+                        accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame, MaxSamplesPerAccelFrame);
+                    }
+
+                    ring.Add(xyzMilliG, count, firstIndex, readMicros);
+                    return;
+                }
+
                 WriteAccel(xyzMilliG, 0, count, firstIndex, readMicros);
                 return;
             }
@@ -319,6 +342,11 @@ namespace LaunchLogger.Firmware.Run
                 return;
             }
 
+            if (preTriggerDraining)
+            {
+                DrainPreTrigger(settings.PreTriggerSamplesPerStep);
+            }
+
             for (int c = 0; c < batches.Length; c++)
             {
                 if (!batches[c].IsEmpty && nowMicros - batches[c].FirstHiMicros >= settings.PulseFrameMaxAgeMicros)
@@ -353,14 +381,14 @@ namespace LaunchLogger.Firmware.Run
             return value >= fullScale || value <= -fullScale;
         }
 
-        private void OnDistancePulse(PulseObservation observation, long before)
+        private void OnDistancePulse(long count, long loMicros, long hiMicros, long before)
         {
-            lastPulseChangeMicros = observation.HiMicros;
+            lastPulseChangeMicros = hiMicros;
             stillOpen = false;
             switch (phase)
             {
                 case RunPhase.Staged:
-                    OpenRun(true, MotionCause.PulseCount, observation.LoMicros, observation.HiMicros);
+                    OpenRun(true, MotionCause.PulseCount, loMicros, hiMicros);
                     break;
                 case RunPhase.Idle:
                 case RunPhase.Stopped:
@@ -370,9 +398,9 @@ namespace LaunchLogger.Firmware.Run
                         idleRollStartCount = before;
                     }
 
-                    if ((observation.Count - idleRollStartCount) * circumference >= (long)settings.UnstagedOpenMicrometres * pulsesPerRevolution)
+                    if ((count - idleRollStartCount) * circumference >= (long)settings.UnstagedOpenMicrometres * pulsesPerRevolution)
                     {
-                        OpenRun(false, MotionCause.RollingDistance, observation.LoMicros, observation.HiMicros);
+                        OpenRun(false, MotionCause.RollingDistance, loMicros, hiMicros);
                     }
 
                     break;
@@ -380,18 +408,18 @@ namespace LaunchLogger.Firmware.Run
 
             if (runOpen)
             {
-                AddToBatch(0, observation);
+                AddToBatch(0, count, loMicros, hiMicros);
                 if (!rolloutReached)
                 {
-                    CheckRollout(observation);
+                    CheckRollout(count, loMicros, hiMicros);
                 }
             }
         }
 
-        private void CheckRollout(PulseObservation observation)
+        private void CheckRollout(long count, long loMicros, long hiMicros)
         {
-            long rel = observation.Count - originCount[0];
-            long mid = observation.LoMicros + ((observation.HiMicros - observation.LoMicros) / 2);
+            long rel = count - originCount[0];
+            long mid = loMicros + ((hiMicros - loMicros) / 2);
             if (rel * circumference >= rolloutScaled)
             {
                 long span = mid - prevMidMicros;
@@ -594,7 +622,9 @@ namespace LaunchLogger.Firmware.Run
 
             if (ring != null)
             {
-                accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame);
+                // All at once, or a share per loop pass from Tick (PreTriggerSamplesPerStep).
+                preTriggerDraining = true;
+                DrainPreTrigger(settings.PreTriggerSamplesPerStep);
             }
 
             WriteEvent(EventKind.Motion, firstMotionMicros);
@@ -609,6 +639,11 @@ namespace LaunchLogger.Firmware.Run
 
         private void CloseRun(long nowMicros, bool byStop)
         {
+            if (preTriggerDraining)
+            {
+                DrainPreTrigger(0);
+            }
+
             for (int c = 0; c < batches.Length; c++)
             {
                 batches[c].Flush(writer);
@@ -644,14 +679,14 @@ namespace LaunchLogger.Firmware.Run
             lastPulseChangeMicros = byStop ? lastPulseHiMicros : nowMicros;
         }
 
-        private void AddToBatch(int channel, PulseObservation observation)
+        private void AddToBatch(int channel, long count, long loMicros, long hiMicros)
         {
             PulseBatch batch = batches[channel];
-            batch.Add(observation.Count - originCount[channel], observation.LoMicros, observation.HiMicros);
+            batch.Add(count - originCount[channel], loMicros, hiMicros);
             observationsWritten++;
-            if (channel == 0 && observation.HiMicros > lastPulseHiMicros)
+            if (channel == 0 && hiMicros > lastPulseHiMicros)
             {
-                lastPulseHiMicros = observation.HiMicros;
+                lastPulseHiMicros = hiMicros;
             }
 
             if (batch.IsFull)
@@ -687,6 +722,14 @@ namespace LaunchLogger.Firmware.Run
             }
 
             accelSamplesWritten += count;
+        }
+
+        /// <summary>Writes up to <paramref name="maxSamples"/> of the ring's oldest samples (all of
+        /// them for 0) as acceleration frames.</summary>
+        private void DrainPreTrigger(int maxSamples)
+        {
+            accelSamplesWritten += ring.WriteTo(writer, MaxSamplesPerAccelFrame, maxSamples > 0 ? maxSamples : int.MaxValue);
+            preTriggerDraining = ring.SampleCount > 0;
         }
 
         private void WriteEvent(EventKind kind, long timeMicros)

@@ -3,18 +3,31 @@ using LaunchLogger.Firmware.Run;
 
 namespace LaunchLogger.Firmware.Wire
 {
-    /// <summary>Builds one frame at a time into a preallocated payload buffer, then appends the
-    /// CRC, stuffs it and hands it to the byte sink (LOG-FORMAT.md, section 1).</summary>
-    /// <remarks>Allocates only in its constructor. Use it as Begin, Put…, End.</remarks>
+    /// <summary>Builds one frame at a time and hands it to the byte sink (LOG-FORMAT.md,
+    /// section 1). Every byte is folded into the CRC and stuffed (COBS) as it is appended, so
+    /// finishing a frame costs only its four CRC bytes and the delimiter: no pass over the
+    /// whole frame stalls the capture loop.</summary>
+    /// <remarks>Allocates only in its constructor. Use it as Begin, Put…, End. The bytes are
+    /// those of <see cref="Crc32.Compute"/> and <see cref="Cobs.Encode"/> over the finished
+    /// payload.</remarks>
     public sealed class FrameWriter
     {
         private readonly IByteSink sink;
         private readonly HealthCounters health;
-        private readonly byte[] payload = new byte[LogFormat.MaxPayloadBytes];
         private readonly byte[] encoded = new byte[LogFormat.MaxEncodedFrameBytes];
+        private readonly byte[] scratch = new byte[Varint.MaxBytes];
         private int length;
         private int sequence;
         private bool open;
+
+        // The running CRC register and the stuffing state: where the open block's code byte
+        // goes, where the next byte goes, the open block's code, and whether the last byte
+        // closed a full 254-byte block (then no further code byte is written at the end).
+        private uint crc;
+        private int codeAt;
+        private int write;
+        private byte code;
+        private bool lastBlockFull;
 
         /// <summary>Creates a writer that sends finished frames to <paramref name="sink"/>.</summary>
         public FrameWriter(IByteSink sink, HealthCounters health)
@@ -46,25 +59,33 @@ namespace LaunchLogger.Firmware.Wire
             }
 
             open = true;
-            payload[0] = (byte)type;
-            payload[1] = (byte)sequence;
-            payload[2] = (byte)(sequence >> 8);
-            length = LogFormat.HeaderBytes;
+            crc = Crc32.Seed;
+            codeAt = 0;
+            write = 1;
+            code = 1;
+            lastBlockFull = false;
+            length = 0;
+            scratch[0] = (byte)type;
+            scratch[1] = (byte)sequence;
+            scratch[2] = (byte)(sequence >> 8);
+            Append(scratch, 0, LogFormat.HeaderBytes, true);
         }
 
         /// <summary>Appends one byte to the body.</summary>
         public void PutByte(byte value)
         {
             Reserve(1);
-            payload[length++] = value;
+            scratch[0] = value;
+            Append(scratch, 0, 1, true);
         }
 
         /// <summary>Appends a little-endian 16-bit integer.</summary>
         public void PutInt16(short value)
         {
             Reserve(2);
-            payload[length++] = (byte)value;
-            payload[length++] = (byte)(value >> 8);
+            scratch[0] = (byte)value;
+            scratch[1] = (byte)(value >> 8);
+            Append(scratch, 0, 2, true);
         }
 
         /// <summary>Appends an unsigned varint; a negative value is a caller bug.</summary>
@@ -76,25 +97,24 @@ namespace LaunchLogger.Firmware.Wire
             }
 
             Reserve(Varint.MaxBytes);
-            length += Varint.Write(payload, length, (ulong)value);
+            Append(scratch, 0, Varint.Write(scratch, 0, (ulong)value), true);
         }
 
         /// <summary>Appends a zig-zag signed varint.</summary>
         public void PutSignedVarint(long value)
         {
             Reserve(Varint.MaxBytes);
-            length += Varint.WriteSigned(payload, length, value);
+            Append(scratch, 0, Varint.WriteSigned(scratch, 0, value), true);
         }
 
         /// <summary>Appends bytes prepared elsewhere (a pulse batch's body).</summary>
         public void PutBytes(byte[] source, int offset, int count)
         {
             Reserve(count);
-            System.Array.Copy(source, offset, payload, length, count);
-            length += count;
+            Append(source, offset, count, true);
         }
 
-        /// <summary>Finishes the frame: CRC, stuffing, delimiter, and hands it to the sink.</summary>
+        /// <summary>Finishes the frame: CRC, last code byte, delimiter, and hands it to the sink.</summary>
         /// <returns>False when the sink refused the bytes (counted in the health counters).</returns>
         public bool End()
         {
@@ -103,12 +123,24 @@ namespace LaunchLogger.Firmware.Wire
                 throw new System.InvalidOperationException("End called without Begin");
             }
 
-            uint crc = Crc32.Compute(payload, 0, length);
-            payload[length++] = (byte)crc;
-            payload[length++] = (byte)(crc >> 8);
-            payload[length++] = (byte)(crc >> 16);
-            payload[length++] = (byte)(crc >> 24);
-            int n = Cobs.Encode(payload, 0, length, encoded, 0);
+            uint value = Crc32.Finish(crc);
+            scratch[0] = (byte)value;
+            scratch[1] = (byte)(value >> 8);
+            scratch[2] = (byte)(value >> 16);
+            scratch[3] = (byte)(value >> 24);
+            Append(scratch, 0, LogFormat.CrcBytes, false);
+            if (lastBlockFull)
+            {
+                // The payload ended right after a full block: the slot kept for a next code
+                // byte is not written (Cobs.Encode's rule).
+                write--;
+            }
+            else
+            {
+                encoded[codeAt] = code;
+            }
+
+            int n = write;
             encoded[n++] = LogFormat.Delimiter;
             open = false;
             sequence = (sequence + 1) & 0xFFFF;
@@ -120,6 +152,45 @@ namespace LaunchLogger.Firmware.Wire
             }
 
             return accepted;
+        }
+
+        /// <summary>Folds bytes into the CRC (when <paramref name="checksummed"/>) and stuffs them
+        /// into the encoded frame.</summary>
+        private void Append(byte[] source, int offset, int count, bool checksummed)
+        {
+            if (checksummed)
+            {
+                crc = Crc32.Append(crc, source, offset, count);
+            }
+
+            byte[] output = encoded;
+            int at = write;
+            int end = offset + count;
+            for (int i = offset; i < end; i++)
+            {
+                byte b = source[i];
+                lastBlockFull = false;
+                if (b == 0)
+                {
+                    output[codeAt] = code;
+                    codeAt = at++;
+                    code = 1;
+                    continue;
+                }
+
+                output[at++] = b;
+                code++;
+                if (code == 0xFF)
+                {
+                    output[codeAt] = code;
+                    code = 1;
+                    codeAt = at++;
+                    lastBlockFull = true;
+                }
+            }
+
+            write = at;
+            length += count;
         }
 
         private void Reserve(int count)

@@ -16,7 +16,7 @@ namespace LaunchLogger.Esp32.Glue
         private readonly long flushIntervalMicros;
         private long lastFlushMicros;
 
-        /// <summary>Creates the next free <c>launchlog-NNNN.llog</c> in <paramref name="folder"/>.</summary>
+        /// <summary>Creates the next free <c>launchlog-NNNN.log</c> in <paramref name="folder"/>.</summary>
         public FileSink(string folder, int flushIntervalMs)
         {
             Path = NextFreeName(folder);
@@ -54,7 +54,7 @@ namespace LaunchLogger.Esp32.Glue
             for (int n = 1; n < 10000; n++)
             {
                 string number = n.ToString("D4");
-                string candidate = folder + "launchlog-" + number + ".llog";
+                string candidate = folder + "launchlog-" + number + ".log";
                 if (!File.Exists(candidate))
                 {
                     return candidate;

@@ -8,22 +8,12 @@ using LaunchLogger.Simulation;
 namespace LaunchLogger.Cli.Bench;
 
 /// <summary>Runs simulated launches through the firmware core and the decoder, and compares our
-/// estimator and the naive method (first edge = start, linear interpolation) with the truth.</summary>
+/// estimator and the naive method (first pulse = start, speed from pulses counted over 0.1 s)
+/// with the simulator's truth.</summary>
 public static class AccuracyBenchmark
 {
-    /// <summary>The figures compared, in table order.</summary>
-    public static readonly IReadOnlyList<Metric> Metrics =
-    [
-        new("first motion", "ms", 1000, f => f.FirstMotionS.Value, f => f.FirstMotionS.Sigma),
-        new("rollout mark", "ms", 1000, f => f.RolloutTimeS?.Value, f => f.RolloutTimeS?.Sigma),
-        new("0-60 mph from standstill", "ms", 1000, f => Interval(f)?.FromStandstillS, f => Interval(f)?.UncertaintyS),
-        new("0-60 mph after rollout", "ms", 1000, f => Interval(f)?.FromRolloutS, f => Interval(f)?.FromRolloutUncertaintyS),
-        new("1/4 mile elapsed time", "ms", 1000, f => Quarter(f)?.FromStandstillS, f => Quarter(f)?.UncertaintyS),
-        new("1/4 mile trap speed", "m/s", 1, f => Quarter(f)?.TrapSpeedMps, f => Quarter(f)?.TrapSpeedUncertaintyMps),
-    ];
-
     /// <summary>Simulates and decodes one case.</summary>
-    public static CaseOutcome Run(AccuracyCase c, CancellationToken cancel)
+    public static IReadOnlyList<CaseOutcome> Run(AccuracyCase c, CancellationToken cancel)
     {
         cancel.ThrowIfCancellationRequested();
         SimulationResult simulation;
@@ -33,68 +23,90 @@ public static class AccuracyBenchmark
         }
         catch (ArgumentException e)
         {
-            return CaseOutcome.Failed(c, $"the scenario was refused: {e.Message}");
+            return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, $"the scenario was refused: {e.Message}")];
         }
 
         if (simulation.Figures is not { } truth)
         {
-            return CaseOutcome.Failed(c, "the simulation produced no truth figures");
+            return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, "the simulation produced no truth figures")];
         }
 
         LogReadResult log = LogReader.Read(simulation.LogBytes, c.Scenario.Name);
         DecodedRun? run = log.Runs.OrderByDescending(r => r.Pulses.Count).FirstOrDefault();
         if (run is null)
         {
-            return CaseOutcome.Failed(c, "the box logged no run");
+            return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, "the box logged no run")];
         }
 
-        FigureSet ours;
+        RunAnalysis ours;
         FigureSet naive;
         try
         {
-            ours = RunAnalyzer.Analyze(run).Figures;
-            ReconstructedRun naiveRun = NaiveReconstruction.Reconstruct(run);
-            naive = FigureCalculator.Compute(naiveRun.Trajectory, naiveRun.FirstMotionS, naiveRun.RolloutM);
+            ours = RunAnalyzer.Analyze(run);
+            naive = NaiveFigures(run);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException)
         {
-            return CaseOutcome.Failed(c, e.Message);
+            return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, e.Message)];
         }
 
         // Truth figures are on the same clock as the log: the simulator writes its truth in the
         // box's time.
         FigureSet truthAligned = truth with { FirstMotionS = new Estimate(simulation.Events.FirstMotionS ?? truth.FirstMotionS.Value, 0) };
-        var ourErrors = new double?[Metrics.Count];
-        var naiveErrors = new double?[Metrics.Count];
-        var sigmas = new double?[Metrics.Count];
-        for (int m = 0; m < Metrics.Count; m++)
+        FigureValues truthValues = FigureReading.FromFigures(truthAligned);
+        if (simulation.Events is { BrakeOnsetS: { } onset, BrakeOnsetDistanceM: { } from, StandstillDistanceM: { } to })
         {
-            double? t = Metrics[m].Value(truthAligned);
-            ourErrors[m] = Metrics[m].Value(ours) - t;
-            naiveErrors[m] = Metrics[m].Value(naive) - t;
-            sigmas[m] = Metrics[m].Sigma(ours);
+            truthValues.Set(BenchFigure.BrakeOnset, onset).Set(BenchFigure.StoppingDistance, to - from);
         }
 
-        return new CaseOutcome(c, ourErrors, naiveErrors, sigmas, null);
+        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking), FigureReading.FromFigures(naive))];
     }
 
-    private static IntervalFigure? Interval(FigureSet f) => f.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph");
-
-    private static MarkFigure? Quarter(FigureSet f) => f.DistanceMarks.FirstOrDefault(m => Math.Abs(m.Mark.DistanceM - (1320 * Units.MetresPerFoot)) < 1e-6);
+    /// <summary>The naive method's figures for <paramref name="run"/>, timed by the same
+    /// <see cref="FigureCalculator"/> as ours.</summary>
+    public static FigureSet NaiveFigures(DecodedRun run)
+    {
+        ReconstructedRun naiveRun = NaiveReconstruction.Reconstruct(run);
+        return FigureCalculator.Compute(naiveRun.Trajectory, naiveRun.FirstMotionS, naiveRun.RolloutM);
+    }
 }
 
-/// <summary>A figure the benchmark compares.</summary>
-/// <param name="Name">What it is.</param>
-/// <param name="Unit">Unit of the printed errors.</param>
-/// <param name="Scale">Factor from SI to that unit.</param>
-/// <param name="Value">Reads the figure (SI) from a figure set.</param>
-/// <param name="Sigma">Reads its claimed 1-σ (SI).</param>
-public sealed record Metric(string Name, string Unit, double Scale, Func<FigureSet, double?> Value, Func<FigureSet, double?> Sigma);
-
-/// <summary>One case's errors (estimate − truth, SI) for each metric, ours and naive.</summary>
-public sealed record CaseOutcome(AccuracyCase Case, double?[] Ours, double?[] Naive, double?[] OurSigmas, string? Failure)
+/// <summary>One run's errors (estimate − truth, SI) for each <see cref="BenchFigure"/>, ours and
+/// naive, with our stated σ.</summary>
+/// <param name="Index">The case's position.</param>
+/// <param name="Summary">The case in a few words.</param>
+/// <param name="Group">Where it is reported.</param>
+/// <param name="Ours">Our errors.</param>
+/// <param name="Naive">The naive method's errors.</param>
+/// <param name="OurSigmas">Our stated 1-σ.</param>
+/// <param name="Failure">Why the case could not be compared, or null.</param>
+public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, double?[] Ours, double?[] Naive, double?[] OurSigmas, string? Failure)
 {
+    /// <summary>True when a run that opened moving was given a figure from standstill.</summary>
+    public bool StandingFigureOnRollingStart { get; init; }
+
+    /// <summary>False when the decoder split the record into a different number of runs.</summary>
+    public bool RunsAsExpected { get; init; } = true;
+
     /// <summary>A case that could not be decoded.</summary>
-    public static CaseOutcome Failed(AccuracyCase c, string why) =>
-        new(c, new double?[AccuracyBenchmark.Metrics.Count], new double?[AccuracyBenchmark.Metrics.Count], new double?[AccuracyBenchmark.Metrics.Count], why);
+    public static CaseOutcome Failed(int index, string summary, BenchGroup group, string why)
+    {
+        int n = BenchFigure.All.Count;
+        return new(index, summary, group, new double?[n], new double?[n], new double?[n], why);
+    }
+
+    /// <summary>Errors of <paramref name="ours"/> and <paramref name="naive"/> against <paramref name="truth"/>.</summary>
+    public static CaseOutcome Compare(int index, string summary, BenchGroup group, FigureValues truth, FigureValues ours, FigureValues naive)
+    {
+        int n = BenchFigure.All.Count;
+        var o = new double?[n];
+        var v = new double?[n];
+        for (int m = 0; m < n; m++)
+        {
+            o[m] = ours.Values[m] - truth.Values[m];
+            v[m] = naive.Values[m] - truth.Values[m];
+        }
+
+        return new(index, summary, group, o, v, ours.Sigmas, null);
+    }
 }

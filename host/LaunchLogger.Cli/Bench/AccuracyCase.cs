@@ -7,8 +7,20 @@ namespace LaunchLogger.Cli.Bench;
 /// <param name="Seed">Seed for the simulation's noise.</param>
 /// <param name="Scenario">The varied scenario.</param>
 /// <param name="Summary">The variation in a few words, for the per-run listing.</param>
-public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string Summary)
+/// <param name="PollPeriodS">The counter's poll period, or null for edge timestamps.</param>
+public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string Summary, double? PollPeriodS)
 {
+    /// <summary>The group the case is reported in.</summary>
+    public BenchGroup Group => (HasAccelerometer, DrivenPickup, PollPeriodS) switch
+    {
+        (true, false, > 1.5e-3) => BenchGroup.SimulatedAccelUndrivenPollCoarse,
+        (true, false, >= 0.75e-3) => BenchGroup.SimulatedAccelUndrivenPoll1Ms,
+        (true, false, _) => BenchGroup.SimulatedAccelUndriven,
+        (true, true, _) => BenchGroup.SimulatedAccelDriven,
+        (false, false, _) => BenchGroup.SimulatedPulsesUndriven,
+        (false, true, _) => BenchGroup.SimulatedPulsesDriven,
+    };
+
     /// <summary>True when the accelerometer is fitted.</summary>
     public bool HasAccelerometer => Scenario.Accelerometer.Present;
 
@@ -18,12 +30,17 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
         || (Scenario.Vehicle.DrivenAxle == DrivenAxle.Front) == (Scenario.Pickup.Axle == Axle.Front);
 
     /// <summary>Builds the benchmark's cases from one seed: the acceleration scenarios in turn,
-    /// with 12–100 teeth, exact edge timestamps or a polled counter, accelerometer noise and
-    /// mounting tilt, a pickup on a driven wheel now and then (wheelspin), and one run in five
-    /// without an accelerometer. Every run goes a quarter mile and then stops. The tyre is taken
-    /// as calibrated (no growth with speed): its growth is a calibration error, not the
-    /// estimator's, and would otherwise dominate the quarter-mile figures.</summary>
-    public static IReadOnlyList<AccuracyCase> Build(int runs, int seed)
+    /// with 12–100 teeth, exact edge timestamps or a counter polled every 0.1–10 ms (log-uniform,
+    /// a third of the polled runs near 1 ms), accelerometer noise and mounting tilt, a pickup on
+    /// a driven wheel now and then (wheelspin), and one run in five without an accelerometer.
+    /// Every run goes a quarter mile and then stops.</summary>
+    /// <param name="runs">How many.</param>
+    /// <param name="seed">Seed of the variations.</param>
+    /// <param name="calibratedTyre">True: the box is told the true rolling circumference and the
+    /// tyre does not grow. False (the default): the box is told the static circumference and the
+    /// tyre grows with speed, as for a user who has not calibrated at speed
+    /// (<see cref="UncalibratedTyre"/>).</param>
+    public static IReadOnlyList<AccuracyCase> Build(int runs, int seed, bool calibratedTyre = false)
     {
         int[] teeth = [12, 16, 24, 36, 48, 60, 80, 100];
         string[] cars = BuiltInScenarios.Names.Where(n => !n.Contains("brake", StringComparison.OrdinalIgnoreCase)).ToArray();
@@ -34,7 +51,8 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
             Scenario baseline = BuiltInScenarios.Get(cars[i % cars.Length]);
             int toothCount = teeth[random.Next(teeth.Length)];
             bool exact = random.NextDouble() < 0.5;
-            double loopMicros = 100 + (random.NextDouble() * 900);
+            double loopMicros = random.NextDouble() < 0.33 ? 750 + (random.NextDouble() * 750) : 100 * Math.Pow(100, random.NextDouble());
+            (double rollingOverStatic, double growth) = UncalibratedTyre.Draw(random);
             bool accel = random.NextDouble() >= 0.2;
             bool driven = random.NextDouble() < 0.3;
             double pitch = (random.NextDouble() * 6) - 3;
@@ -45,7 +63,8 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
             Scenario scenario = baseline with
             {
                 Name = $"{baseline.Name}-bench-{i}",
-                Tyre = baseline.Tyre with { RadiusGrowthAt30Mps = 0 },
+                Tyre = baseline.Tyre with { RadiusGrowthAt30Mps = calibratedTyre ? 0 : growth },
+                Box = baseline.Box with { ConfiguredCircumferenceM = calibratedTyre ? null : 2 * Math.PI * baseline.Tyre.RollingRadiusM / rollingOverStatic },
                 Plan = baseline.Plan with { TargetSpeedMps = null, TargetDistanceM = 420, BrakeToStop = true },
                 Pickup = baseline.Pickup with { Teeth = toothCount, Axle = pickupAxle },
                 Capture = baseline.Capture with
@@ -65,7 +84,7 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
             };
             string summary = FormattableString.Invariant(
                 $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°)" : "no accelerometer")}");
-            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary));
+            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6));
         }
 
         return cases;

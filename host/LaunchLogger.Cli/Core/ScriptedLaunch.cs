@@ -1,4 +1,3 @@
-using LaunchLogger.Firmware.Capture;
 using LaunchLogger.Firmware.Run;
 
 namespace LaunchLogger.Cli.Core;
@@ -58,7 +57,7 @@ public sealed class ScriptedLaunch
                     break;
                 }
 
-                recorder.OnPulseObservation(new PulseObservation { Channel = 0, Count = nextEdge, LoMicros = edgeMicros - 1, HiMicros = edgeMicros });
+                recorder.OnPulse(0, nextEdge, edgeMicros - 1, edgeMicros);
                 nextEdge++;
                 fed++;
             }

@@ -30,10 +30,11 @@ public static class Format
         ? ""
         : "± " + (v / (units == DisplayUnits.Imperial ? Units.MpsPerMph : Units.MpsPerKmh)).ToString("0.0#", Invariant);
 
-    /// <summary>A distance with its unit, e.g. "402.3 m" or "1320 ft".</summary>
+    /// <summary>A distance with its unit, e.g. "402.34 m" or "1320 ft": metres always to the
+    /// centimetre, so every metric distance in a report reads with the same precision.</summary>
     public static string Distance(double metres, DisplayUnits units) => units == DisplayUnits.Imperial
         ? (metres / Units.MetresPerFoot).ToString("0.#", Invariant) + " ft"
-        : metres.ToString("0.0##", Invariant) + " m";
+        : metres.ToString("0.00", Invariant) + " m";
 
     /// <summary>A duration, e.g. "5.472 s", or a dash when missing.</summary>
     public static string Seconds(double? s) => s is { } v ? v.ToString("0.000", Invariant) + " s" : "—";

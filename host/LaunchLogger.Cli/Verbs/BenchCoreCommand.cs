@@ -1,7 +1,6 @@
 using System.CommandLine;
 using System.Diagnostics;
 using LaunchLogger.Cli.Core;
-using LaunchLogger.Firmware.Capture;
 using LaunchLogger.Firmware.Run;
 
 namespace LaunchLogger.Cli.Verbs;
@@ -75,7 +74,7 @@ public static class BenchCoreCommand
         {
             t += EdgeMicros;
             count++;
-            recorder.OnPulseObservation(new PulseObservation { Channel = 0, Count = count, LoMicros = t - 1, HiMicros = t });
+            recorder.OnPulse(0, count, t - 1, t);
             if (i % 40 == 39)
             {
                 recorder.OnAccelBurst(burst, ScriptedLaunch.BurstSamples, sampleIndex, t);

@@ -20,7 +20,7 @@ public static class SimulateCommand
             DefaultValueFactory = _ => BuiltInScenarios.DefaultName,
         };
         var seed = new Option<int>("--seed") { Description = "Seed for every random draw; the same seed gives the same log bytes.", DefaultValueFactory = _ => 1 };
-        var output = new Option<FileInfo?>("--out") { Description = "Where to write the log (RUN.log)." };
+        var output = new Option<FileInfo?>("--out") { Description = "Where to write the log, e.g. RUN.log (required unless --list)." };
         var truth = new Option<FileInfo?>("--truth") { Description = "Where to write the ground truth as JSON (optional)." };
         var list = new Option<bool>("--list") { Description = "List the built-in scenarios and exit." };
         var command = new Command("simulate", "Simulate a car and the box's sensors, run them through the firmware core, and write the log and the truth.")

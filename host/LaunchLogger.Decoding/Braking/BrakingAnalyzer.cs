@@ -213,8 +213,8 @@ public static class BrakingAnalyzer
     private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop)
     {
         int start = FigureCalculator.FirstIndexAtOrAfter(trajectory.TimeS, onsetS);
-        double? tb = FallCrossing(trajectory, start, stop, 0.8 * fromMps);
-        double? te = FallCrossing(trajectory, start, stop, 0.1 * fromMps);
+        double? tb = FallCrossing(trajectory, start, stop, BrakingFormulas.MfddWindowStartFraction * fromMps);
+        double? te = FallCrossing(trajectory, start, stop, BrakingFormulas.MfddWindowEndFraction * fromMps);
         if (tb is not { } b || te is not { } e || e <= b)
         {
             return null;

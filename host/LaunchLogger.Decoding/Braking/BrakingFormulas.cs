@@ -10,13 +10,19 @@ public static class BrakingFormulas
     public static double MeanDecelerationMps2(double speedMps, double distanceM) =>
         speedMps * speedMps / (2 * distanceM);
 
+    /// <summary>Where the MFDD window begins, as a fraction of the initial speed (UN R13-H: v_b = 0.8·v0).</summary>
+    public const double MfddWindowStartFraction = 0.8;
+
+    /// <summary>Where the MFDD window ends, as a fraction of the initial speed (UN R13-H: v_e = 0.1·v0).</summary>
+    public const double MfddWindowEndFraction = 0.1;
+
     /// <summary>Mean fully developed deceleration, m/s², by UN Regulation No. 13 / 13-H:
     /// d_m = (v_b² − v_e²) / (25.92 · (s_e − s_b)), speeds in km/h, v_b = 0.8·v0, v_e = 0.1·v0,
     /// s_b and s_e the distances (m) travelled from v0 to v_b and to v_e.</summary>
     public static double Mfdd(double initialSpeedKmh, double distanceToVbM, double distanceToVeM)
     {
-        double vb = 0.8 * initialSpeedKmh;
-        double ve = 0.1 * initialSpeedKmh;
+        double vb = MfddWindowStartFraction * initialSpeedKmh;
+        double ve = MfddWindowEndFraction * initialSpeedKmh;
         return ((vb * vb) - (ve * ve)) / (25.92 * (distanceToVeM - distanceToVbM));
     }
 

@@ -9,7 +9,11 @@ namespace LaunchLogger.Decoding.Corrections;
 /// the altitude formulas below (44330.77 m = T0/L; exponents 0.1902632 and 0.2349692).
 /// Saturation vapour pressure: Buck (1981). Humid-air density: partial pressures of dry air and
 /// water vapour, R_d = 287.058 and R_v = 461.495 J/(kg·K).
-/// Power correction: SAE J1349 to 25 °C and 99 kPa dry air, CF = 1.18·(99/p_d)·√((T+273)/298) − 0.18.
+/// Power correction: SAE J1349, JUN1990 form, to 25 °C and 99 kPa dry air,
+/// CF = 1.18·(99/p_d)·√((T+273)/298) − 0.18 (about 85 % mechanical efficiency: indicated power
+/// scales with p_d/√T, friction does not). Later revisions write 1.176/0.176; the two differ by
+/// 0.004·(x − 1), at most about 0.0013 for tracks below 2000 m. The 1990 form is used because its
+/// coefficients are the ones confirmed with their revision date.
 /// </remarks>
 public static class Atmosphere
 {
@@ -56,7 +60,7 @@ public static class Atmosphere
         return ((pressurePa - vapour) / (DryAirGasConstant * temperatureK)) + (vapour / (VapourGasConstant * temperatureK));
     }
 
-    /// <summary>SAE J1349 power correction factor to 25 °C and 99 kPa of dry air.</summary>
+    /// <summary>SAE J1349 (JUN1990 form) power correction factor to 25 °C and 99 kPa of dry air.</summary>
     /// <param name="dryPressureKPa">Dry-air partial pressure, kPa.</param>
     /// <param name="temperatureC">Intake air temperature, °C.</param>
     public static double J1349CorrectionFactor(double dryPressureKPa, double temperatureC) =>

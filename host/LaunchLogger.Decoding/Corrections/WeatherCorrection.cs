@@ -10,11 +10,15 @@ namespace LaunchLogger.Decoding.Corrections;
 /// With P_standard = CF·P_measured: interval times × CF⁻¹, elapsed times × CF^(−1/3), trap
 /// speeds × CF^(1/3). A first-order estimate for power-limited running; traction-limited
 /// launches gain less than this says.
+/// <para>A standing interval timed after the rollout is a speed time less the rollout time, and
+/// the rollout time is a distance time (to 1 ft): each part scales by its own exponent,
+/// <c>t′_after = t_standstill·CF⁻¹ − t_rollout·CF^(−1/3)</c> with
+/// <c>t_rollout = t_standstill − t_after</c>.</para>
 /// </remarks>
 public static class WeatherCorrection
 {
     /// <summary>How the correction is made, in words, for reports.</summary>
-    public const string Method = "SAE J1349 power correction factor CF; constant-power scaling: interval times × 1/CF, elapsed times × CF^(-1/3), trap speeds × CF^(1/3)";
+    public const string Method = "SAE J1349 power correction factor CF; constant-power scaling: interval times × 1/CF, elapsed times × CF^(-1/3), trap speeds × CF^(1/3); after-rollout intervals = interval × 1/CF − rollout time × CF^(-1/3)";
 
     /// <summary>Applies the correction to a figure set.</summary>
     public static FigureSet Apply(FigureSet figures, double correctionFactor)
@@ -28,7 +32,9 @@ public static class WeatherCorrection
             SpeedIntervals = figures.SpeedIntervals.Select(i => i with
             {
                 FromStandstillS = i.FromStandstillS * time,
-                FromRolloutS = i.FromRolloutS * time,
+                FromRolloutS = i.Interval.IsStanding
+                    ? (i.FromStandstillS * time) - ((i.FromStandstillS - i.FromRolloutS) * elapsed)
+                    : i.FromRolloutS * time,
                 UncertaintyS = i.UncertaintyS * time,
                 FromRolloutUncertaintyS = i.FromRolloutUncertaintyS * time,
             }).ToList(),

@@ -2,16 +2,25 @@ using LaunchLogger.Decoding.Runs;
 
 namespace LaunchLogger.Decoding.Reconstruction;
 
-/// <summary>The simple reconstruction a basic timer would do, kept as the yardstick for
-/// <see cref="Reconstructor"/>: the first pulse observation is taken as first motion (distance 0
-/// there), distance is interpolated linearly between observations, and speed is the finite
-/// difference of neighbouring observations.</summary>
-/// <remarks>Observations are taken at their bracket midpoints. The start is late by the time the
-/// car needs to reach the first edge, about √(2·d₁/a) at a constant acceleration a with the first
-/// edge d₁ from the standstill position (kinematics, any textbook); distances are short by d₁.
-/// No uncertainties are claimed: the trajectory's σ columns are null and every σ is 0.</remarks>
+/// <summary>What a basic timer does, kept as a fair yardstick for <see cref="Reconstructor"/>:
+/// the first pulse is the start (distance 0 there), distance is interpolated linearly between
+/// pulse observations, and speed is the pulses counted in a sliding window of
+/// <see cref="SpeedWindowS"/> times the distance per pulse, divided by the window.</summary>
+/// <remarks>
+/// Observations are taken at their bracket midpoints. The window is centred on the time it
+/// reports, as an offline timer can afford: v(t) = mpp·(N(t + w/2) − N(t − w/2))/w, with N(t) the
+/// pulses observed up to t. Crossings of speeds and distances are then interpolated linearly by
+/// the shared <see cref="Metrics.FigureCalculator"/>, like every other trajectory's.
+/// The start is late by the time the car needs to reach the first edge, about √(2·d₁/a) at a
+/// constant acceleration a with the first edge d₁ from the standstill position (kinematics, any
+/// textbook); distances are short by d₁. No uncertainties are claimed: the trajectory's σ
+/// columns are null and every σ is 0.
+/// </remarks>
 public static class NaiveReconstruction
 {
+    /// <summary>The speed window, s: 0.1 s, as a basic timer counts pulses (common practice).</summary>
+    public const double SpeedWindowS = 0.1;
+
     /// <summary>Reconstructs <paramref name="run"/> the naive way.</summary>
     /// <param name="run">The run; only its distance channel's pulses are used.</param>
     /// <param name="options">Grid step, pre-roll and rollout distance; defaults when null.</param>
@@ -74,22 +83,14 @@ public static class NaiveReconstruction
             count++;
         }
 
-        // Segment speeds at segment midpoints; the standing start is the point (start, 0).
-        var speedTimes = new List<double>(times.Count) { start };
-        var speeds = new List<double>(times.Count) { 0 };
-        for (int i = 0; i + 1 < times.Count; i++)
-        {
-            speedTimes.Add(0.5 * (times[i] + times[i + 1]));
-            speeds.Add((distances[i + 1] - distances[i]) / (times[i + 1] - times[i]));
-        }
-
         var distance = new double[count];
         var speed = new double[count];
         var accel = new double[count];
+        double half = 0.5 * SpeedWindowS;
         for (int i = 0; i < count; i++)
         {
             distance[i] = Interpolate(times, distances, grid[i]);
-            speed[i] = grid[i] < start ? 0 : Interpolate(speedTimes, speeds, grid[i]);
+            speed[i] = grid[i] < start ? 0 : (CountedBy(times, distances, grid[i] + half) - CountedBy(times, distances, grid[i] - half)) / SpeedWindowS;
         }
 
         for (int i = 0; i < count; i++)
@@ -99,6 +100,7 @@ public static class NaiveReconstruction
             accel[i] = b > a ? (speed[b] - speed[a]) / (grid[b] - grid[a]) : 0;
         }
 
+        var trajectory = new Trajectory { TimeS = grid, DistanceM = distance, SpeedMps = speed, AccelMps2 = accel };
         Estimate? rolloutTime = null;
         Estimate? rolloutSpeed = null;
         for (int i = 1; i < times.Count; i++)
@@ -108,12 +110,11 @@ public static class NaiveReconstruction
                 double f = (rolloutM - distances[i - 1]) / (distances[i] - distances[i - 1]);
                 double t = times[i - 1] + (f * (times[i] - times[i - 1]));
                 rolloutTime = new Estimate(t, 0);
-                rolloutSpeed = new Estimate(Interpolate(speedTimes, speeds, t), 0);
+                rolloutSpeed = new Estimate(trajectory.ValueAt(speed, t), 0);
                 break;
             }
         }
 
-        var trajectory = new Trajectory { TimeS = grid, DistanceM = distance, SpeedMps = speed, AccelMps2 = accel };
         return new ReconstructedRun
         {
             Source = run,
@@ -125,6 +126,15 @@ public static class NaiveReconstruction
             Method = ReconstructionMethod.NaiveFirstEdge,
             Warnings = warnings,
         };
+    }
+
+    /// <summary>Distance of the pulses observed at or before <paramref name="t"/> (a step
+    /// function of time: pulses are counted, not interpolated).</summary>
+    private static double CountedBy(List<double> xs, List<double> distances, double t)
+    {
+        int i = xs.BinarySearch(t);
+        i = i >= 0 ? i : ~i - 1;
+        return i < 0 ? 0 : distances[i];
     }
 
     /// <summary>Linear interpolation in ascending <paramref name="xs"/>, held flat beyond the ends.</summary>

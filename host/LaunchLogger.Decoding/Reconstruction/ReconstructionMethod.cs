@@ -13,7 +13,7 @@ public static class ReconstructionMethod
     /// <summary>Integrated acceleration; no pulses.</summary>
     public const string AccelerometerOnly = "accelerometer only";
 
-    /// <summary>The reference we measure ourselves against: first pulse as the start, linear
-    /// interpolation between observations.</summary>
+    /// <summary>The reference we measure ourselves against: first pulse as the start, speed from
+    /// pulses counted over a sliding 0.1 s window, linear interpolation.</summary>
     public const string NaiveFirstEdge = "naive: first edge as start";
 }

@@ -20,7 +20,7 @@ public static class HealthCounterNames
     public const string WideBrackets = "wide_brackets";
 
     /// <summary>The widest bracket seen since power-up, µs: a maximum, so never differenced.</summary>
-    public const string WidestBracketMicros = "widest_bracket_us";
+    public const string WidestBracketMicros = "widest_bracket_micros";
 
     /// <summary>Observations discarded because the count went backwards.</summary>
     public const string CountsWentBackwards = "counts_went_backwards";

@@ -64,8 +64,8 @@ public static class BuiltInScenarios
         Description = "rear-drive roadster, quarter mile then a firm stop; 48-tooth pickup on a front wheel, polled counter, brake switch",
         Vehicle = new VehicleSpec
         {
-            MassKg = 1080, WheelbaseM = 2.31, CgHeightM = 0.46, FrontWeightFraction = 0.5, DrivenAxle = DrivenAxle.Rear,
-            DragAreaM2 = 0.58, RollingResistanceCoefficient = 0.011, AxleInertiaKgM2 = 1.5,
+            MassKg = 1235, WheelbaseM = 2.46, CgHeightM = 0.47, FrontWeightFraction = 0.48, DrivenAxle = DrivenAxle.Rear,
+            DragAreaM2 = 0.61, RollingResistanceCoefficient = 0.011, AxleInertiaKgM2 = 1.6,
             PitchStiffnessNmPerRad = 150_000, PitchFrequencyHz = 1.7, PitchDampingRatio = 0.35,
         },
         Tyre = new TyreSpec { RollingRadiusM = 0.3, RadiusGrowthAt30Mps = 0.004, PeakFriction = 1.05, PeakSlip = 0.1, SlidingFrictionFraction = 0.8 },
@@ -75,10 +75,10 @@ public static class BuiltInScenarios
             Efficiency = 0.9,
             Engine = new EngineSpec
             {
-                TorqueCurve = [new(1000, 140), new(2500, 170), new(4000, 192), new(5000, 200), new(6000, 195), new(7000, 180), new(7600, 165)],
-                IdleRpm = 900, LaunchRpm = 4200, RedlineRpm = 7500, ShiftRpm = 7200, InertiaKgM2 = 0.13,
-                GearRatios = [3.76, 2.27, 1.65, 1.26, 1.0, 0.84], FinalDrive = 4.1,
-                ShiftTimeS = 0.22, ClutchCapacityNm = 330, ClutchEngageS = 0.25,
+                TorqueCurve = [new(1000, 165), new(2000, 215), new(3000, 250), new(4200, 262), new(5200, 250), new(6000, 228), new(6700, 200)],
+                IdleRpm = 850, LaunchRpm = 3800, RedlineRpm = 6600, ShiftRpm = 6350, InertiaKgM2 = 0.16,
+                GearRatios = [3.42, 2.53, 1.86, 1.42, 1.13, 0.92], FinalDrive = 3.36,
+                ShiftTimeS = 0.24, ClutchCapacityNm = 400, ClutchEngageS = 0.25,
             },
         },
         Brakes = new BrakeSpec { RiseTimeS = 0.2, FrontBias = 0.66 },

@@ -62,8 +62,23 @@ public class NaiveReconstructionTests
         Assert.Null(naive.Trajectory.SpeedSigmaMps);
         Assert.Equal(0, TrajectoryProbe.SpeedAt(naive.Trajectory, naive.FirstMotionS.Value - 0.01));
 
-        // Speeds are finite differences: within a few hundredths of v = a·t at 3 s.
-        Assert.Equal(0.5 * G0 * 3, TrajectoryProbe.SpeedAt(naive.Trajectory, StartS + 3), 0.05);
+        // Speeds are pulses counted over 0.1 s: at v = a·t ≈ 14.7 m/s about 36 pulses of
+        // 0.0408 m, so within one pulse per window (0.41 m/s) of v = a·t at 3 s (kinematics).
+        Assert.Equal(0.5 * G0 * 3, TrajectoryProbe.SpeedAt(naive.Trajectory, StartS + 3), 0.45);
+    }
+
+    [Fact]
+    public void SpeedIsThePulsesCountedOverATenthOfASecond()
+    {
+        // At constant acceleration the mean speed over a window centred on t is a·t exactly
+        // (kinematics); counting whole pulses errs by at most one pulse per window.
+        SyntheticRun synthetic = HalfG(4, 0);
+        ReconstructedRun naive = NaiveReconstruction.Reconstruct(synthetic.Build());
+        double onePulsePerWindow = synthetic.MetresPerPulse / NaiveReconstruction.SpeedWindowS;
+        foreach (double t in new[] { 1.0, 2.5, 4.0 })
+        {
+            Assert.InRange(TrajectoryProbe.SpeedAt(naive.Trajectory, StartS + t) - (0.5 * G0 * t), -onePulsePerWindow - 0.01, onePulsePerWindow + 0.01);
+        }
     }
 
     [Fact]

@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Reconstruction;
 
 namespace LaunchLogger.Decoding.Tests.Reference;
 
@@ -13,6 +14,87 @@ public class BrakingReferenceTests
         // UN Regulation No. 13 / 13-H, MFDD formula; worked check from shared REFERENCES.md:
         // 100 km/h, 0.3 s dead time then 8 m/s² → s_b = 25.6944 m, s_e = 56.0764 m, d_m = 8.0000.
         Assert.Equal(8.0000, BrakingFormulas.Mfdd(100, 25.6944, 56.0764), 3);
+    }
+
+    // A stop whose deceleration changes part-way, worked by hand (kinematics: from v to u at a
+    // constant a covers (v² − u²)/(2a)). From v0 = 100 km/h the brakes give 6 m/s² down to
+    // 0.5·v0, then 9 m/s² to standstill. UN Regulation No. 13-H, Annex 3 (MFDD): v_b = 0.8·v0,
+    // v_e = 0.1·v0, d_m = (v_b² − v_e²)/(25.92·(s_e − s_b)). By hand, with V = v0² in (m/s)²:
+    //   s_b = (1 − 0.64)·V/12 = 0.03·V = 23.1481 m      (V = 27.7778² = 771.605)
+    //   s_e − s_b = (0.64 − 0.25)·V/12 + (0.25 − 0.01)·V/18 = (11/240)·V = 35.3652 m
+    //   d_m = (80² − 10²)/(25.92 × 35.3652) = 6300/916.667 = 6.8727 m/s²  (exactly 75.6/11).
+    // Constant deceleration would return itself for any window; this one does not:
+    //   window 0.9 → 0.1 gives 0.80/(2·(0.56/12 + 0.24/18)) = 6.6667 m/s²,
+    //   window 0.8 → 0.2 gives 0.60/(2·(0.39/12 + 0.21/18)) = 6.7925 m/s².
+    private const double TwoStageMfdd = 75.6 / 11;
+    private const double TwoStageSbM = 23.1481;
+    private const double TwoStageSeM = 23.1481 + 35.3652;
+
+    [Fact]
+    public void MfddFormulaOnAHandWorkedTwoStageStop()
+    {
+        // Window and formula of UN R13-H Annex 3, distances worked by hand above.
+        Assert.Equal(TwoStageMfdd, BrakingFormulas.Mfdd(100, TwoStageSbM, TwoStageSeM), 3);
+    }
+
+    [Fact]
+    public void MfddOfAMeasuredTwoStageStopUsesTheR13Window()
+    {
+        // The same stop as a sampled trajectory through the analyzer: it must find v_b and v_e at
+        // 0.8·v0 and 0.1·v0 itself. Sampling every 0.5 ms costs under 0.001 m/s² here; the wrong
+        // windows above miss by 0.08 m/s² or more.
+        double v0 = 100 / 3.6;
+        BrakingResult result = BrakingAnalyzer.Analyze(TwoStageStop(v0, brakeAtS: 1.0, firstMps2: 6, secondMps2: 9, changeAtFraction: 0.5), brakeSwitchOnS: [1.0])!;
+
+        Assert.Equal(v0, result.FromMps, 6);
+        Assert.InRange(result.MfddMps2!.Value, TwoStageMfdd - 0.005, TwoStageMfdd + 0.005);
+        // Stopping distance by hand: (1 − 0.25)·V/12 + 0.25·V/18 = (0.0625 + 0.013889)·V = 58.9420 m.
+        Assert.InRange(result.StoppingDistanceM.Value, 58.9420 - 0.005, 58.9420 + 0.005);
+    }
+
+    /// <summary>Cruise at <paramref name="v0"/> until <paramref name="brakeAtS"/>, then
+    /// <paramref name="firstMps2"/> down to <paramref name="changeAtFraction"/>·v0, then
+    /// <paramref name="secondMps2"/> to standstill and 1 s standing; closed form per phase
+    /// (kinematics, any textbook), sampled every 0.5 ms.</summary>
+    private static Trajectory TwoStageStop(double v0, double brakeAtS, double firstMps2, double secondMps2, double changeAtFraction)
+    {
+        const double Step = 0.0005;
+        double vChange = changeAtFraction * v0;
+        double tChange = brakeAtS + ((v0 - vChange) / firstMps2);
+        double dBrake = v0 * brakeAtS;
+        double dChange = dBrake + (((v0 * v0) - (vChange * vChange)) / (2 * firstMps2));
+        double tStop = tChange + (vChange / secondMps2);
+        double dStop = dChange + (vChange * vChange / (2 * secondMps2));
+        int n = (int)((tStop + 1) / Step) + 1;
+        var t = new double[n];
+        var d = new double[n];
+        var v = new double[n];
+        var a = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            double time = i * Step;
+            t[i] = time;
+            if (time < brakeAtS)
+            {
+                (d[i], v[i], a[i]) = (v0 * time, v0, 0);
+            }
+            else if (time < tChange)
+            {
+                double s = time - brakeAtS;
+                (d[i], v[i], a[i]) = (dBrake + (v0 * s) - (firstMps2 * s * s / 2), v0 - (firstMps2 * s), -firstMps2);
+            }
+            else if (time < tStop)
+            {
+                double s = time - tChange;
+                (d[i], v[i], a[i]) = (dChange + (vChange * s) - (secondMps2 * s * s / 2), vChange - (secondMps2 * s), -secondMps2);
+            }
+            else
+            {
+                (d[i], v[i], a[i]) = (dStop, 0, 0);
+            }
+        }
+
+        return new Trajectory { TimeS = t, DistanceM = d, SpeedMps = v, AccelMps2 = a };
     }
 
     [Fact]

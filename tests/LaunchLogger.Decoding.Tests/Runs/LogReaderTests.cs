@@ -23,7 +23,7 @@ public class LogReaderTests
     {
         LaunchDriver driver = IdealLaunch();
 
-        LogReadResult result = LogReader.Read(driver.Sink.ToArray(), "ideal.llog");
+        LogReadResult result = LogReader.Read(driver.Sink.ToArray(), "ideal.log");
 
         DecodedRun run = Assert.Single(result.Runs);
         Assert.True(run.Complete);
@@ -53,7 +53,7 @@ public class LogReaderTests
     {
         LaunchDriver driver = IdealLaunch();
 
-        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "ideal.llog").Runs.Single();
+        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "ideal.log").Runs.Single();
 
         AccelSeries accel = run.Accel!;
         Assert.NotNull(accel.SampleIndex);
@@ -87,7 +87,7 @@ public class LogReaderTests
         LaunchDriver driver = IdealLaunch();
         RunRecorder recorder = driver.Recorder;
 
-        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "ideal.llog").Runs.Single();
+        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "ideal.log").Runs.Single();
 
         Assert.Equal(
             new[] { EventKind.Staged, EventKind.Motion, EventKind.Rollout, EventKind.Stopped },
@@ -131,7 +131,7 @@ public class LogReaderTests
     {
         LaunchDriver driver = IdealLaunch();
 
-        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "ideal.llog").Runs.Single();
+        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "ideal.log").Runs.Single();
 
         Assert.Equal(HealthCounterNames.InLogOrder, run.Health.Keys.OrderBy(k => HealthCounterNames.InLogOrder.ToList().IndexOf(k)));
         Assert.Equal(LogFormat.HealthCounterCount, HealthCounterNames.InLogOrder.Count);
@@ -151,7 +151,7 @@ public class LogReaderTests
 
         // Cut in the middle of a frame half-way through the run, as power loss would.
         (int offset, int length) = driver.Sink.Frames[driver.Sink.Frames.Count / 2];
-        LogReadResult result = LogReader.Read(log.AsSpan(0, offset + (length / 2)), "cut.llog");
+        LogReadResult result = LogReader.Read(log.AsSpan(0, offset + (length / 2)), "cut.log");
 
         DecodedRun run = Assert.Single(result.Runs);
         Assert.False(run.Complete);
@@ -169,7 +169,7 @@ public class LogReaderTests
         byte[] log = driver.Sink.ToArray();
 
         // A capture that started mid-run: the first ten frames are missing.
-        LogReadResult result = LogReader.Read(log.AsSpan(driver.Sink.Frames[10].Offset), "late.llog");
+        LogReadResult result = LogReader.Read(log.AsSpan(driver.Sink.Frames[10].Offset), "late.log");
 
         Assert.Empty(result.Runs);
         Assert.Equal(driver.Sink.Frames.Count - 10, result.Stats.OrphanFrames);
@@ -189,7 +189,7 @@ public class LogReaderTests
         damaged[flipAt + 20] ^= 0x01;
         damaged = [.. damaged[..dropAt], .. damaged[(dropAt + dropLength)..]];
 
-        LogReadResult result = LogReader.Read(damaged, "damaged.llog");
+        LogReadResult result = LogReader.Read(damaged, "damaged.log");
 
         DecodedRun run = Assert.Single(result.Runs);
         Assert.True(run.Complete);
@@ -224,7 +224,7 @@ public class LogReaderTests
     [Fact]
     public void ReadFileNamesAMissingFile()
     {
-        string path = Path.Combine(Path.GetTempPath(), "no-such-log-" + Guid.NewGuid() + ".llog");
+        string path = Path.Combine(Path.GetTempPath(), "no-such-log-" + Guid.NewGuid() + ".log");
 
         var e = Assert.Throws<Decoding.Import.InputException>(() => LogReader.ReadFile(path));
 
@@ -235,7 +235,7 @@ public class LogReaderTests
     public void ReadFileReadsWhatWasWritten()
     {
         LaunchDriver driver = IdealLaunch();
-        string path = Path.Combine(Path.GetTempPath(), "launch-" + Guid.NewGuid() + ".llog");
+        string path = Path.Combine(Path.GetTempPath(), "launch-" + Guid.NewGuid() + ".log");
         File.WriteAllBytes(path, driver.Sink.ToArray());
         try
         {

@@ -18,12 +18,12 @@ public class RunAssemblerTests
         LaunchDriver second = first.Next(launchMicros: 14_000_000, startMicros: 11_000_000);
         second.Run(accelerateUntilMicros: 18_000_000, endMicros: 22_000_000);
 
-        LogReadResult result = LogReader.Read(first.Sink.ToArray(), "two.llog");
+        LogReadResult result = LogReader.Read(first.Sink.ToArray(), "two.log");
 
         Assert.Equal(2, result.Runs.Count);
         Assert.All(result.Runs, r => Assert.True(r.Complete));
         Assert.Equal(new[] { 1, 2 }, result.Runs.Select(r => r.Configuration.RunNumber));
-        Assert.Equal(new[] { "two.llog run 1", "two.llog run 2" }, result.Runs.Select(r => r.Source));
+        Assert.Equal(new[] { "two.log run 1", "two.log run 2" }, result.Runs.Select(r => r.Source));
 
         // Counts restart from each run's origin; brackets are one poll period wide.
         Assert.Equal(second.FedPulses.Select(p => p.Count - second.CounterOrigin), result.Runs[1].Pulses.Select(p => p.Count));
@@ -47,7 +47,7 @@ public class RunAssemblerTests
         var driver = new LaunchDriver(settings) { BrakeOnMicros = 6_500_000 };
         driver.Run(accelerateUntilMicros: 6_000_000, endMicros: 10_000_000);
 
-        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "two-wheels.llog").Runs.Single();
+        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "two-wheels.log").Runs.Single();
 
         Assert.True(run.Configuration.HasSecondChannel);
         Assert.Equal(1.95 / 48, run.Configuration.SecondMetresPerPulse, 1e-15);
@@ -69,7 +69,7 @@ public class RunAssemblerTests
         var driver = new LaunchDriver(settings) { GravityAxis = 0, GravitySign = -1 };
         driver.Run(accelerateUntilMicros: 6_000_000, endMicros: 9_000_000);
 
-        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "side.llog").Runs.Single();
+        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "side.log").Runs.Single();
 
         Assert.Equal((-1000.0, 0.0, 0.0), run.RestGravityMilliG);
         AxisMapping axes = run.Accel!.Axes!;
@@ -95,7 +95,7 @@ public class RunAssemblerTests
         var driver = new LaunchDriver(settings) { GravityAxis = 0 };
         driver.Run(accelerateUntilMicros: 6_000_000, endMicros: 9_000_000);
 
-        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "wrong-axis.llog").Runs.Single();
+        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "wrong-axis.log").Runs.Single();
 
         Assert.Contains(run.Warnings, w => w.Contains("forward axis carries more resting gravity", StringComparison.Ordinal));
     }
@@ -109,12 +109,12 @@ public class RunAssemblerTests
         after.Run(6_000_000, 10_000_000);
         byte[] log = [.. before.Sink.ToArray(), .. after.Sink.ToArray()];
 
-        LogReadResult result = LogReader.Read(log, "restart.llog");
+        LogReadResult result = LogReader.Read(log, "restart.log");
 
         Assert.Equal(2, result.Runs.Count);
         Assert.Equal(1, result.Stats.Restarts);
         Assert.Equal(0, result.Stats.FramesLost);
-        Assert.Equal("restart.llog run 1 (after restart 1)", result.Runs[1].Source);
+        Assert.Equal("restart.log run 1 (after restart 1)", result.Runs[1].Source);
 
         // Run 1 of the new power-up is counted from its own power-up, not against the old run.
         Assert.Equal(after.Health.WidestBracketMicros, result.Runs[1].Health[HealthCounterNames.WidestBracketMicros]);
@@ -132,7 +132,7 @@ public class RunAssemblerTests
         // The first run loses its summary; a restarted box's run follows.
         LaunchDriver again = new(new LoggerSettings());
         again.Run(6_000_000, 10_000_000);
-        LogReadResult result = LogReader.Read([.. log[..lastOffset], .. again.Sink.ToArray()], "cut.llog");
+        LogReadResult result = LogReader.Read([.. log[..lastOffset], .. again.Sink.ToArray()], "cut.log");
 
         Assert.Equal(2, result.Runs.Count);
         Assert.False(result.Runs[0].Complete);
@@ -156,7 +156,7 @@ public class RunAssemblerTests
         };
         driver.Run(6_000_000, 10_000_000);
 
-        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "gap.llog").Runs.Single();
+        DecodedRun run = LogReader.Read(driver.Sink.ToArray(), "gap.log").Runs.Single();
 
         RunEvent gap = Assert.Single(run.Events, e => e.Kind == EventKind.AccelGap);
         Assert.Equal(new long[] { 63 }, gap.Values);

@@ -16,7 +16,7 @@ public class SampleClockTests
         var driver = new LaunchDriver(new LoggerSettings()) { TrueRateHz = 1000.3, MaxReadLatencyMicros = 2000, Seed = 42 };
         driver.Run(accelerateUntilMicros: 8_000_000, endMicros: 12_000_000);
 
-        AccelSeries accel = LogReader.Read(driver.Sink.ToArray(), "drift.llog").Runs.Single().Accel!;
+        AccelSeries accel = LogReader.Read(driver.Sink.ToArray(), "drift.log").Runs.Single().Accel!;
 
         // Tolerance: least squares of read time on index has slope standard error
         // σ_P = σ_r / √Σ(i − ī)²; latency uniform over 2 ms gives σ_r = 2 ms/√12 ≈ 0.58 ms, and

@@ -7,7 +7,7 @@ public class BoardSettingsFileTests
 {
     private const string Minimal = """
         {
-          "car": { "pulsesPerRevolution": 48, "circumferenceMillimetres": 1960 },
+          "car": { "pulses_per_revolution": 48, "circumference_millimetres": 1960 },
           "pulses": { "line": 17 },
           "log": { "folder": "/tmp/ll" }
         }
@@ -43,7 +43,7 @@ public class BoardSettingsFileTests
     [Fact]
     public void A_second_line_enables_the_second_channel_with_the_cars_values()
     {
-        string json = Minimal.Replace("\"line\": 17", "\"line\": 17, \"secondLine\": 18");
+        string json = Minimal.Replace("\"line\": 17", "\"line\": 17, \"second_line\": 18");
         LoggerSettings logger = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(json, "test"));
 
         Assert.True(logger.SecondChannelEnabled);
@@ -51,13 +51,43 @@ public class BoardSettingsFileTests
         Assert.Equal(1_960_000, logger.SecondCircumferenceMicrometres);
     }
 
+    [Fact]
+    public void A_camel_case_file_of_the_earlier_format_still_loads()
+    {
+        const string earlier = """
+            {
+              "car": { "pulsesPerRevolution": 36, "circumferenceMillimetres": 1880 },
+              "pulses": { "line": 5, "secondLine": 6, "kernelEventBuffer": 512 },
+              "inputs": { "ledPin": 23, "debounceMs": 15 },
+              "log": { "folder": "/tmp/ll", "fsyncIntervalMs": 500 }
+            }
+            """;
+
+        BoardSettings s = BoardSettingsFile.Parse(earlier, "old.json");
+
+        Assert.Equal(36, s.Car.PulsesPerRevolution);
+        Assert.Equal(1880, s.Car.CircumferenceMillimetres);
+        Assert.Equal(6, s.Pulses.SecondLine);
+        Assert.Equal(512, s.Pulses.KernelEventBuffer);
+        Assert.Equal(23, s.Inputs!.LedPin);
+        Assert.Equal(15, s.Inputs.DebounceMs);
+        Assert.Equal(500, s.Log.FsyncIntervalMs);
+    }
+
+    [Fact]
+    public void A_typo_in_a_snake_case_file_names_the_snake_case_problem()
+    {
+        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse(Minimal.Replace("\"folder\"", "\"fodler\""), "s.json"));
+        Assert.Contains("fodler", e.Message);
+    }
+
     [Theory]
     [InlineData("unknown key", "\"line\": 17", "\"line\": 17, \"lien\": 3", "lien")]
     [InlineData("missing required key", "\"pulses\": { \"line\": 17 },", "", "pulses")]
-    [InlineData("circumference out of range", "1960", "19600", "car.circumferenceMillimetres")]
+    [InlineData("circumference out of range", "1960", "19600", "car.circumference_millimetres")]
     [InlineData("bad edge name", "\"line\": 17", "\"line\": 17, \"edges\": \"up\"", "pulses.edges")]
-    [InlineData("same line twice", "\"line\": 17", "\"line\": 17, \"secondLine\": 17", "pulses.secondLine")]
-    [InlineData("wrong type", "48", "\"forty-eight\"", "pulsesPerRevolution")]
+    [InlineData("same line twice", "\"line\": 17", "\"line\": 17, \"second_line\": 17", "pulses.second_line")]
+    [InlineData("wrong type", "48", "\"forty-eight\"", "pulses_per_revolution")]
     [InlineData("core range", "48", "0", "PulsesPerRevolution")]
     public void Problems_are_reported_with_the_key_that_has_them(string name, string find, string replace, string expectedInMessage)
     {
@@ -70,7 +100,7 @@ public class BoardSettingsFileTests
     [Fact]
     public void Broken_json_gives_the_line()
     {
-        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse("{\n  \"car\": {\n    \"pulsesPerRevolution\": 48,,\n", "s.json"));
+        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse("{\n  \"car\": {\n    \"pulses_per_revolution\": 48,,\n", "s.json"));
         Assert.Contains("line 3", e.Message);
     }
 
@@ -82,10 +112,10 @@ public class BoardSettingsFileTests
     }
 
     [Theory]
-    [InlineData("i2cAddress", "36", "accelerometer.i2cAddress")]
-    [InlineData("rateHz", "1000", "accelerometer.rateHz")]
-    [InlineData("rangeG", "6", "accelerometer.rangeG")]
-    [InlineData("forwardAxis", "\"w\"", "accelerometer.forwardAxis")]
+    [InlineData("i2c_address", "36", "accelerometer.i2c_address")]
+    [InlineData("rate_hz", "1000", "accelerometer.rate_hz")]
+    [InlineData("range_g", "6", "accelerometer.range_g")]
+    [InlineData("forward_axis", "\"w\"", "accelerometer.forward_axis")]
     public void Accelerometer_values_are_checked(string key, string value, string expected)
     {
         string json = Minimal.Replace("\"log\"", "\"accelerometer\": { \"" + key + "\": " + value + " }, \"log\"");

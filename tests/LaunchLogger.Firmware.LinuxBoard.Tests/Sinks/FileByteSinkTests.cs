@@ -19,7 +19,7 @@ public sealed class FileByteSinkTests : IDisposable
     [Fact]
     public void Flushing_every_frame_makes_each_frame_visible_to_a_reader_at_once()
     {
-        string path = Path.Combine(folder, "a.llog");
+        string path = Path.Combine(folder, "a.log");
         long now = 0;
         using var sink = new FileByteSink(path, flushIntervalMs: 0, fsyncIntervalMs: 1000, millisecondClock: () => now);
 
@@ -32,7 +32,7 @@ public sealed class FileByteSinkTests : IDisposable
     [Fact]
     public void A_flush_interval_holds_frames_back_until_it_has_passed()
     {
-        string path = Path.Combine(folder, "b.llog");
+        string path = Path.Combine(folder, "b.log");
         long now = 0;
         using var sink = new FileByteSink(path, flushIntervalMs: 200, fsyncIntervalMs: 10_000, millisecondClock: () => now);
 
@@ -49,7 +49,7 @@ public sealed class FileByteSinkTests : IDisposable
     [Fact]
     public void Dispose_writes_out_everything_held()
     {
-        string path = Path.Combine(folder, "c.llog");
+        string path = Path.Combine(folder, "c.log");
         long now = 0;
         using (var sink = new FileByteSink(path, flushIntervalMs: 60_000, fsyncIntervalMs: 60_000, millisecondClock: () => now))
         {
@@ -63,7 +63,7 @@ public sealed class FileByteSinkTests : IDisposable
     [Fact]
     public void An_existing_log_is_never_overwritten()
     {
-        string path = Path.Combine(folder, "d.llog");
+        string path = Path.Combine(folder, "d.log");
         File.WriteAllBytes(path, new byte[] { 42 });
 
         Assert.Throws<IOException>(() => new FileByteSink(path));
@@ -78,8 +78,8 @@ public sealed class FileByteSinkTests : IDisposable
         using var first = FileByteSink.CreateInFolder(sub, start, 0, 1000);
         using var second = FileByteSink.CreateInFolder(sub, start, 0, 1000);
 
-        Assert.Equal("launchlog-20260509-143005.llog", Path.GetFileName(first.Path));
-        Assert.Equal("launchlog-20260509-143005-2.llog", Path.GetFileName(second.Path));
+        Assert.Equal("launchlog-20260509-143005.log", Path.GetFileName(first.Path));
+        Assert.Equal("launchlog-20260509-143005-2.log", Path.GetFileName(second.Path));
     }
 
     private static byte[] ReadShared(string path)

@@ -48,7 +48,7 @@ public class AccelPreTriggerRingTests
 
         var sink = new MemorySink();
         var writer = new FrameWriter(sink, null!);
-        int written = ring.WriteTo(writer, 16);
+        int written = ring.WriteTo(writer, 16, int.MaxValue);
 
         var want = fed.TakeLast(bursts).SelectMany(x => x).TakeLast(capacity).ToList();
         var frames = sink.Frames.Cast<AccelerationFrame>().ToList();
@@ -66,7 +66,7 @@ public class AccelPreTriggerRingTests
         short[] xyz = Enumerable.Range(0, 8 * 3).Select(i => (short)i).ToArray();
         ring.Add(xyz, 8, 100, 5000);
         var sink = new MemorySink();
-        Assert.Equal(5, ring.WriteTo(new FrameWriter(sink, null!), 100));
+        Assert.Equal(5, ring.WriteTo(new FrameWriter(sink, null!), 100, int.MaxValue));
         var frame = Assert.IsType<AccelerationFrame>(Assert.Single(sink.Frames));
         Assert.Equal(103, frame.FirstIndex);
         Assert.Equal(5000, frame.ReadMicros);
@@ -82,7 +82,7 @@ public class AccelPreTriggerRingTests
         ring.Clear();
         Assert.Equal(0, ring.SampleCount);
         var sink = new MemorySink();
-        Assert.Equal(0, ring.WriteTo(new FrameWriter(sink, null!), 10));
+        Assert.Equal(0, ring.WriteTo(new FrameWriter(sink, null!), 10, int.MaxValue));
         Assert.Empty(sink.Bytes);
     }
 }

@@ -205,7 +205,7 @@ public sealed class ScriptedRun
     private void Feed(PulseObservation o)
     {
         Fed.Add(o);
-        recorder.OnPulseObservation(o);
+        recorder.OnPulseObservation(ref o);
     }
 
     /// <summary>A recorder with a fresh memory sink and health counters.</summary>

@@ -85,8 +85,8 @@ public class RunRecorderAllocationTests
                 for (int k = 1; k <= ObservationsPerBurst; k++)
                 {
                     long hi = start + (k * 200);
-                    recorder.OnPulseObservation(new PulseObservation { Channel = 0, Count = ++count0, LoMicros = hi - 3 - (k % 5), HiMicros = hi });
-                    recorder.OnPulseObservation(new PulseObservation { Channel = 1, Count = ++count1, LoMicros = hi - 7, HiMicros = hi + 1 });
+                    recorder.OnPulse(0, ++count0, hi - 3 - (k % 5), hi);
+                    recorder.OnPulse(1, ++count1, hi - 7, hi + 1);
                     ObservationsFed += 2;
                 }
 

@@ -351,8 +351,8 @@ public class RunRecorderTests
         recorder.SetCounterOrigin(0, 0);
         recorder.Tick(1_000_000);
         Assert.Equal(RunPhase.Staged, recorder.Phase);
-        recorder.OnPulseObservation(Obs(0, 1, 1_100_000, 1_100_001));
-        recorder.OnPulseObservation(Obs(0, 2, 1_150_000, 1_150_001));
+        recorder.OnPulse(0, 1, 1_100_000, 1_100_001);
+        recorder.OnPulse(0, 2, 1_150_000, 1_150_001);
         int framesAfterOpening = sink.Frames.Count;
 
         recorder.Tick(1_100_001 + settings.PulseFrameMaxAgeMicros - 1);
@@ -375,7 +375,7 @@ public class RunRecorderTests
         {
             // Large times and irregular widths make every observation several bytes long.
             t += 997 + (n % 13);
-            recorder.OnPulseObservation(Obs(0, n, t - 1 - (n % 50), t));
+            recorder.OnPulse(0, n, t - 1 - (n % 50), t);
         }
 
         IReadOnlyList<Frame> frames = sink.Frames;
@@ -395,9 +395,9 @@ public class RunRecorderTests
         long lastCount = run.Fed[^1].Count;
         long t = run.Fed[^1].HiMicros;
 
-        recorder.OnPulseObservation(Obs(0, lastCount + 1, t + 10, t + 10 + settings.BracketLimitMicros + 500));
-        recorder.OnPulseObservation(Obs(0, lastCount - 3, t + 3000, t + 3001));
-        recorder.OnPulseObservation(Obs(0, lastCount + 1, t + 3100, t + 3101));
+        recorder.OnPulse(0, lastCount + 1, t + 10, t + 10 + settings.BracketLimitMicros + 500);
+        recorder.OnPulse(0, lastCount - 3, t + 3000, t + 3001);
+        recorder.OnPulse(0, lastCount + 1, t + 3100, t + 3101);
         recorder.OnAccelGap(37, t + 4000);
         recorder.OnAccelGap(-5, t + 5000);
         recorder.Shutdown(t + 6000);
@@ -492,11 +492,11 @@ public class RunRecorderTests
         var (recorder, sink, _) = ScriptedRun.NewRecorder(settings);
         recorder.Tick(1_000_000);
         Assert.Equal(RunPhase.Staged, recorder.Phase);
-        recorder.OnPulseObservation(Obs(0, 5000, 1_100_000, 1_100_001));
+        recorder.OnPulse(0, 5000, 1_100_000, 1_100_001);
         Assert.Equal(RunPhase.Staged, recorder.Phase);
         Assert.Empty(sink.Bytes);
 
-        recorder.OnPulseObservation(Obs(0, 5001, 1_200_000, 1_200_001));
+        recorder.OnPulse(0, 5001, 1_200_000, 1_200_001);
         Assert.Equal(RunPhase.Moving, recorder.Phase);
         Assert.Equal(5000, ((ConfigurationFrame)sink.Frames[0]).OriginCount);
     }
@@ -505,7 +505,7 @@ public class RunRecorderTests
     public void AnUnknownChannelIsACallerBug()
     {
         var (recorder, _, _) = ScriptedRun.NewRecorder(PulsesOnly());
-        Assert.Throws<ArgumentOutOfRangeException>(() => recorder.OnPulseObservation(Obs(1, 1, 0, 1)));
+        Assert.Throws<ArgumentOutOfRangeException>(() => recorder.OnPulse(1, 1, 0, 1));
     }
 
     [Fact]
@@ -523,7 +523,7 @@ public class RunRecorderTests
             for (int k = 0; k < 20; k++)
             {
                 count++;
-                recorder.OnPulseObservation(Obs(0, count, t0 + 10_000 * (k + 1) - 1, t0 + 10_000 * (k + 1)));
+                recorder.OnPulse(0, count, t0 + 10_000 * (k + 1) - 1, t0 + 10_000 * (k + 1));
             }
 
             recorder.Tick(t0 + 3_000_000);
@@ -595,6 +595,4 @@ public class RunRecorderTests
         Assert.Equal(Enumerable.Range(0, 250).Select(i => (short)i), split.SelectMany(a => a.Samples).Select(x => x.X));
     }
 
-    private static PulseObservation Obs(int channel, long count, long lo, long hi) =>
-        new() { Channel = channel, Count = count, LoMicros = lo, HiMicros = hi };
 }

@@ -216,13 +216,13 @@ internal sealed class LaunchDriver
     private void Feed(long count, long lo, long hi)
     {
         var observation = new PulseObservation { Channel = 0, Count = CounterOrigin + count, LoMicros = lo, HiMicros = hi };
-        Recorder.OnPulseObservation(observation);
+        Recorder.OnPulseObservation(ref observation);
         FedPulses.Add(observation);
         LastCount = count;
         if (Settings.SecondChannelEnabled)
         {
             var second = new PulseObservation { Channel = 1, Count = CounterOrigin + count, LoMicros = lo + 2, HiMicros = hi + 3 };
-            Recorder.OnPulseObservation(second);
+            Recorder.OnPulseObservation(ref second);
             FedPulses.Add(second);
         }
     }

@@ -1,0 +1,246 @@
+using LaunchLogger.Firmware.Capture;
+using LaunchLogger.Firmware.Clock;
+using LaunchLogger.Firmware.Run;
+using LaunchLogger.Firmware.Wire;
+
+namespace LaunchLogger.Firmware.NanoHarness
+{
+    /// <summary>Exercises the firmware core and prints what it computed, line by line, the same
+    /// on CoreCLR and on nanoFramework's interpreter (compared by a test). Lines starting with '#'
+    /// are step markers: an instrumented interpreter appends its instruction and allocation
+    /// counters to them; they are not compared.</summary>
+    /// <remarks>Written to the device's rules (no generics, no Math, no interpolation): it is
+    /// converted by the metadata processor and run on the interpreter as it is.</remarks>
+    public static class Harness
+    {
+        /// <summary>Simulated time between two passes of the loop (µs).</summary>
+        public const int StepMicros = 1000;
+
+        /// <summary>Runs every section.</summary>
+        public static void Main()
+        {
+            Out.Line("harness 1");
+            Checksums();
+            Stuffing();
+            Varints();
+            ClockWrap();
+            Launch();
+            Out.Line("done");
+        }
+
+        private static void Checksums()
+        {
+            byte[] check = { 0x31, 0x32, 0x33, 0x34, 0x35, 0x36, 0x37, 0x38, 0x39 };
+            Out.Line("crc32 123456789 " + Crc32.Compute(check, 0, check.Length).ToString());
+            uint r = Crc32.Append(Crc32.Seed, check, 0, 4);
+            r = Crc32.Append(r, check, 4, 5);
+            Out.Line("crc32 in two parts " + Crc32.Finish(r).ToString());
+        }
+
+        private static void Stuffing()
+        {
+            byte[] a = { 0 };
+            byte[] b = { 0x11, 0x22, 0x00, 0x33 };
+            byte[] c = new byte[254];
+            byte[] d = new byte[255];
+            for (int i = 0; i < c.Length; i++)
+            {
+                c[i] = (byte)(1 + (i % 255));
+            }
+
+            for (int i = 0; i < d.Length; i++)
+            {
+                d[i] = (byte)(1 + (i % 255));
+            }
+
+            Encoded("cobs 00", a);
+            Encoded("cobs 11 22 00 33", b);
+            Encoded("cobs 254 non-zero", c);
+            Encoded("cobs 255 non-zero", d);
+        }
+
+        private static void Encoded(string label, byte[] payload)
+        {
+            byte[] output = new byte[Cobs.MaxEncodedLength(payload.Length)];
+            int n = Cobs.Encode(payload, 0, payload.Length, output, 0);
+            byte[] back = new byte[payload.Length + 1];
+            int m = Cobs.Decode(output, 0, n, back, 0);
+            string head = "";
+            for (int i = 0; i < n && i < 6; i++)
+            {
+                head += " " + output[i].ToString();
+            }
+
+            Out.Line(label + ": " + n.ToString() + " bytes," + head + " ... last " + output[n - 1].ToString() + ", decodes to " + m.ToString());
+        }
+
+        private static void Varints()
+        {
+            byte[] buffer = new byte[Varint.MaxBytes];
+            long[] values = { 0, 1, 127, 128, 300, 16384, -1, -64, 4294967296L, 9223372036854775807L };
+            for (int i = 0; i < values.Length; i++)
+            {
+                int n = Varint.WriteSigned(buffer, 0, values[i]);
+                ulong raw;
+                Varint.Read(buffer, 0, n, out raw);
+                string bytes = "";
+                for (int k = 0; k < n; k++)
+                {
+                    bytes += " " + buffer[k].ToString();
+                }
+
+                Out.Line("varint " + values[i].ToString() + ":" + bytes + " -> " + Varint.UnZigZag(raw).ToString());
+            }
+        }
+
+        private static void ClockWrap()
+        {
+            HandClock counter = new HandClock();
+            counter.Micros = 0xFFFFFF00L;
+            HealthCounters health = new HealthCounters();
+            MonotonicClock clock = new MonotonicClock(counter, health);
+            long before = clock.NowMicros();
+            counter.Micros += 0x200;
+            long after = clock.NowMicros();
+            counter.Micros += 0x100000000L;
+            counter.Micros -= 1;
+            long later = clock.NowMicros();
+            Out.Line("clock " + before.ToString() + " " + after.ToString() + " " + later.ToString() + " wraps " + health.ClockWraps.ToString());
+        }
+
+        /// <summary>A car stands, launches at 4 m/s² for 4 s, brakes at 8 m/s² to a stop and
+        /// stands again; the loop is stepped every <see cref="StepMicros"/>, as on the box.</summary>
+        private static void Launch()
+        {
+            HandClock counter = new HandClock();
+            HandPulseCounter pulses = new HandPulseCounter();
+            HealthCounters health = new HealthCounters();
+            CrcSink sink = new CrcSink();
+            MonotonicClock clock = new MonotonicClock(counter, health);
+            HandAccelerometer accelerometer = new HandAccelerometer(counter, 400);
+
+            // As the ESP32 box runs it: a 400 Hz accelerometer with a 32-sample FIFO, and the
+            // step budget's bounds.
+            LoggerSettings settings = new LoggerSettings();
+            settings.AccelOutputDataRateMilliHz = accelerometer.OutputDataRateMilliHz;
+            StepBudget.Apply(settings);
+            RunRecorder recorder = new RunRecorder(settings, sink, health);
+            recorder.SetCounterOrigin(0, 0);
+            PolledPulseSource source = new PolledPulseSource(pulses, clock);
+            CaptureLoop loop = new CaptureLoop(clock, source, accelerometer, null, null, null, recorder, HandAccelerometer.Depth, StepBudget.AccelIntervalMicros);
+            StepBudget.Apply(loop);
+            RunPhase shown = recorder.Phase;
+            Out.Line("phase " + PhaseName(shown) + " at 0");
+
+            // Calibrates the step markers: nothing runs between these two.
+            Out.Line("#a");
+            Out.Line("#b");
+            Out.Line("#a");
+            Out.Line("#b");
+            for (long t = StepMicros; t <= 12000000; t += StepMicros)
+            {
+                if (t == 4000000)
+                {
+                    // One 100 ms stall (a slow card write): the FIFO overflows and is then
+                    // emptied a few samples per pass.
+                    t += 100000;
+                }
+
+                counter.Micros = t;
+                long count = DistanceMicrometres(t) * settings.PulsesPerRevolution / settings.CircumferenceMicrometres;
+                bool changed = count != pulses.Count;
+                pulses.Count = count;
+                accelerometer.ForwardMilliG = ForwardMilliG(t);
+                long framesBefore = sink.Frames;
+                long samplesBefore = accelerometer.SamplesRead;
+                Out.Line("#a");
+                source.Poll();
+                loop.Step();
+                Out.Line("#b");
+                Out.Line(changed ? "#k o" : "#k -");
+                Out.Line(accelerometer.SamplesRead != samplesBefore ? "#k a" : "#k -");
+                Out.Line(sink.Frames != framesBefore ? "#k f" : "#k -");
+                if (recorder.Phase != shown)
+                {
+                    shown = recorder.Phase;
+                    Out.Line("phase " + PhaseName(shown) + " at " + t.ToString());
+                }
+            }
+
+            Out.Line("run " + recorder.RunNumber.ToString() + " motion " + recorder.MotionMicros.ToString() + " rollout " + recorder.RolloutMicros.ToString());
+            Out.Line("rest " + recorder.RestX.ToString() + " " + recorder.RestY.ToString() + " " + recorder.RestZ.ToString());
+            Out.Line("log " + sink.Bytes.ToString() + " bytes " + sink.Frames.ToString() + " frames crc " + sink.Crc.ToString());
+            string counters = "";
+            for (int i = 0; i < LogFormat.HealthCounterCount; i++)
+            {
+                counters += " " + health.Get(i).ToString();
+            }
+
+            Out.Line("health" + counters);
+        }
+
+        /// <summary>Distance rolled at <paramref name="t"/> µs, in µm (integer kinematics).</summary>
+        private static long DistanceMicrometres(long t)
+        {
+            const long Start = 2500000, BrakeAt = 6500000, AccelMmS2 = 4000, BrakeMmS2 = 8000;
+            if (t <= Start)
+            {
+                return 0;
+            }
+
+            if (t <= BrakeAt)
+            {
+                long dt = t - Start;
+                return AccelMmS2 * dt * dt / 2000000000L;
+            }
+
+            long d1 = AccelMmS2 * (BrakeAt - Start) * (BrakeAt - Start) / 2000000000L;
+            long v1 = AccelMmS2 * (BrakeAt - Start) / 1000000L;
+            long stopAfter = v1 * 1000000L / BrakeMmS2;
+            long dt2 = t - BrakeAt;
+            if (dt2 > stopAfter)
+            {
+                dt2 = stopAfter;
+            }
+
+            return d1 + (v1 * dt2 / 1000) - (BrakeMmS2 * dt2 * dt2 / 2000000000L);
+        }
+
+        private static int ForwardMilliG(long t)
+        {
+            if (t > 2500000 && t <= 6500000)
+            {
+                return 408;
+            }
+
+            return t > 6500000 && t <= 8500000 ? -816 : 0;
+        }
+
+        private static string PhaseName(RunPhase phase)
+        {
+            switch (phase)
+            {
+                case RunPhase.Idle: return "idle";
+                case RunPhase.Staged: return "staged";
+                case RunPhase.Moving: return "moving";
+                case RunPhase.RolledOut: return "rolled-out";
+                case RunPhase.Stopped: return "stopped";
+                default: return "other";
+            }
+        }
+    }
+
+    /// <summary>One line of output: the debug channel on the device, the console elsewhere.</summary>
+    public static class Out
+    {
+        /// <summary>Writes <paramref name="text"/> and a line end.</summary>
+        public static void Line(string text)
+        {
+#if NANOFRAMEWORK_1_0
+            System.Diagnostics.Debug.WriteLine(text);
+#else
+            System.Console.WriteLine(text);
+#endif
+        }
+    }
+}

@@ -1,0 +1,39 @@
+namespace LaunchLogger.Cli.Bench;
+
+/// <summary>The groups <c>bench accuracy</c> reports, in print order.</summary>
+public enum BenchGroup
+{
+    /// <summary>Simulated; accelerometer; undriven pickup; edge timestamps or a counter polled
+    /// faster than every 0.75 ms.</summary>
+    SimulatedAccelUndriven,
+
+    /// <summary>The same, polled every 0.75–1.5 ms (goals within 1.5×).</summary>
+    SimulatedAccelUndrivenPoll1Ms,
+
+    /// <summary>The same, polled every 1.5–10 ms.</summary>
+    SimulatedAccelUndrivenPollCoarse,
+
+    /// <summary>Simulated; accelerometer; pickup on a driven wheel.</summary>
+    SimulatedAccelDriven,
+
+    /// <summary>Simulated; pulses only; undriven pickup.</summary>
+    SimulatedPulsesUndriven,
+
+    /// <summary>Simulated; pulses only; driven pickup.</summary>
+    SimulatedPulsesDriven,
+
+    /// <summary>Generator: standing starts of many profiles.</summary>
+    GeneratedStanding,
+
+    /// <summary>Generator: a long idle before a standing start.</summary>
+    GeneratedLongIdle,
+
+    /// <summary>Generator: records that open moving (5–60 mph).</summary>
+    GeneratedRolling,
+
+    /// <summary>Generator: steady cruise, then a stop with a brake rise of 0.05–2 s or a steady rise.</summary>
+    GeneratedCruiseStop,
+
+    /// <summary>Generator: two standing runs in one record.</summary>
+    GeneratedStopAndGo,
+}

@@ -1,0 +1,62 @@
+using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Prescribed.Truth;
+
+namespace LaunchLogger.Cli.Bench;
+
+/// <summary>Reads the benchmark's figures from the decoder's figure sets and from the
+/// generator's truth.</summary>
+public static class FigureReading
+{
+    private static readonly double QuarterMileM = 1320 * Units.MetresPerFoot;
+
+    /// <summary>The figures of a figure set (ours, the naive method's or the simulator's truth)
+    /// and, when given, a stop.</summary>
+    public static FigureValues FromFigures(FigureSet f, BrakingResult? braking = null)
+    {
+        IntervalFigure? i60 = Interval(f, SpeedInterval.Mph(0, 60));
+        MarkFigure? quarter = f.DistanceMarks.FirstOrDefault(m => Math.Abs(m.Mark.DistanceM - QuarterMileM) < 1e-6);
+        IntervalFigure? p3050 = Interval(f, SpeedInterval.Mph(30, 50));
+        IntervalFigure? p80120 = Interval(f, SpeedInterval.Kmh(80, 120));
+        return new FigureValues()
+            .Set(BenchFigure.FirstMotion, f.FirstMotionS.Value, f.FirstMotionS.Sigma)
+            .Set(BenchFigure.Rollout, f.RolloutTimeS?.Value, f.RolloutTimeS?.Sigma)
+            .Set(BenchFigure.ZeroTo60, i60?.FromStandstillS, i60?.UncertaintyS)
+            .Set(BenchFigure.ZeroTo60AfterRollout, i60?.FromRolloutS, i60?.FromRolloutUncertaintyS)
+            .Set(BenchFigure.Quarter, quarter?.FromStandstillS, quarter?.UncertaintyS)
+            .Set(BenchFigure.QuarterAfterRollout, quarter?.FromRolloutS, quarter?.FromRolloutUncertaintyS)
+            .Set(BenchFigure.Trap, quarter?.TrapSpeedMps, quarter?.TrapSpeedUncertaintyMps)
+            .Set(BenchFigure.Passing30To50, p3050?.FromStandstillS, p3050?.UncertaintyS)
+            .Set(BenchFigure.Passing80To120, p80120?.FromStandstillS, p80120?.UncertaintyS)
+            .Set(BenchFigure.StoppingDistance, braking?.StoppingDistanceM.Value, braking?.StoppingDistanceM.Sigma)
+            .Set(BenchFigure.BrakeOnset, braking?.OnsetS.Value, braking?.OnsetS.Sigma);
+    }
+
+    /// <summary>The exact figures of one generated run.</summary>
+    public static FigureValues FromTruth(TruthRun t)
+    {
+        TruthInterval? i60 = t.Interval(TruthSpeedSpan.Mph(0, 60));
+        TruthMark? quarter = t.Mark(QuarterMileM);
+        return new FigureValues()
+            .Set(BenchFigure.FirstMotion, t.FirstMotionS)
+            .Set(BenchFigure.Rollout, t.RolloutS)
+            .Set(BenchFigure.ZeroTo60, i60?.FromStandstillS)
+            .Set(BenchFigure.ZeroTo60AfterRollout, i60?.FromRolloutS)
+            .Set(BenchFigure.Quarter, quarter?.FromStandstillS)
+            .Set(BenchFigure.QuarterAfterRollout, quarter?.FromRolloutS)
+            .Set(BenchFigure.Trap, quarter?.TrapSpeedMps)
+            .Set(BenchFigure.Passing30To50, t.Interval(TruthSpeedSpan.Mph(30, 50))?.FromStandstillS)
+            .Set(BenchFigure.Passing80To120, t.Interval(TruthSpeedSpan.Kmh(80, 120))?.FromStandstillS)
+            .Set(BenchFigure.StoppingDistance, t.Stop?.StoppingDistanceM)
+            .Set(BenchFigure.BrakeOnset, t.Stop?.OnsetS);
+    }
+
+    /// <summary>True when <paramref name="f"/> reports any figure from standstill (a speed
+    /// interval from 0 or a distance mark).</summary>
+    public static bool HasStandingFigure(FigureSet f) =>
+        f.SpeedIntervals.Any(i => i.Interval.IsStanding && i.FromStandstillS is not null)
+        || f.DistanceMarks.Any(m => m.FromStandstillS is not null);
+
+    private static IntervalFigure? Interval(FigureSet f, SpeedInterval wanted) =>
+        f.SpeedIntervals.FirstOrDefault(i => Math.Abs(i.Interval.FromMps - wanted.FromMps) < 1e-9 && Math.Abs(i.Interval.ToMps - wanted.ToMps) < 1e-9);
+}

@@ -1,0 +1,96 @@
+using LaunchLogger.Prescribed;
+using LaunchLogger.Prescribed.Sensors;
+using LaunchLogger.Prescribed.Shapes;
+using static System.FormattableString;
+
+namespace LaunchLogger.Cli.Bench;
+
+/// <summary>One record of the accuracy benchmark made by the independent generator.</summary>
+/// <param name="Index">Position in the benchmark.</param>
+/// <param name="Spec">The record.</param>
+/// <param name="Group">Where it is reported.</param>
+/// <param name="AsLog">True: written as a log by the firmware core; false: as CSV files.</param>
+/// <param name="Summary">The variation in a few words.</param>
+public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, BenchGroup Group, bool AsLog, string Summary)
+{
+    private const double Mph = 0.44704;
+
+    private static readonly (BenchGroup Group, double Share)[] Shares =
+    [
+        (BenchGroup.GeneratedStanding, 16 / 40.0),
+        (BenchGroup.GeneratedLongIdle, 3 / 40.0),
+        (BenchGroup.GeneratedRolling, 8 / 40.0),
+        (BenchGroup.GeneratedCruiseStop, 10 / 40.0),
+        (BenchGroup.GeneratedStopAndGo, 3 / 40.0),
+    ];
+
+    /// <summary>Builds <paramref name="runs"/> generated cases: in every 40, 16 standing starts,
+    /// 3 after a 60 s idle, 8 rolling starts at 5–60 mph, 10 stops from cruise (brake rise
+    /// 0.05–2 s, or a steady rise through the stop) and 3 stop-and-go records; 8–100 teeth; edge
+    /// timestamps with 0–20 µs jitter or a counter polled every 0.1–1 ms; an accelerometer at
+    /// 100–1600 Hz with bias, tilt, noise and a drifting clock; half as logs written by the
+    /// firmware core, half as CSV files.</summary>
+    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre)
+    {
+        int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
+        double[] rates = [100, 200, 400, 800, 1600];
+        var random = new Random(unchecked((seed * 31) + 7));
+        var cases = new List<PrescribedBenchCase>(runs);
+        var made = new int[Shares.Length];
+        for (int i = 0; i < runs; i++)
+        {
+            // The group furthest behind its share comes next, so any number of runs mixes them.
+            int k = Enumerable.Range(0, Shares.Length).MaxBy(j => (Shares[j].Share * (i + 1)) - made[j]);
+            made[k]++;
+            var shapeRandom = new Random(random.Next());
+            BenchGroup group = Shares[k].Group;
+            Shape shape = group switch
+            {
+                BenchGroup.GeneratedStanding => PrescribedShapes.StandingStart(shapeRandom),
+                BenchGroup.GeneratedLongIdle => PrescribedShapes.LongIdle(shapeRandom),
+                BenchGroup.GeneratedRolling => PrescribedShapes.RollingStart(Mph * (5 + (55 * shapeRandom.NextDouble())), shapeRandom),
+                BenchGroup.GeneratedCruiseStop => CruiseStop(shapeRandom),
+                _ => PrescribedShapes.StopAndGo(shapeRandom, 3 + (5 * shapeRandom.NextDouble())),
+            };
+            int toothCount = teeth[random.Next(teeth.Length)];
+            double circumference = 1.8 + (0.3 * random.NextDouble());
+            (double ratio, double growth) = UncalibratedTyre.Draw(random);
+            TyreModel tyre = calibratedTyre ? TyreModel.Calibrated(circumference) : new TyreModel(circumference / ratio, circumference, growth);
+            bool polled = random.NextDouble() < 0.5;
+            double period = 1e-4 * Math.Pow(10, random.NextDouble());
+            double rate = rates[random.Next(rates.Length)];
+            var spec = new PrescribedRecordSpec
+            {
+                Shape = shape,
+                Pickup = new WheelPickup(toothCount, tyre, random.NextDouble()),
+                Edges = new EdgeTiming(5e-6, 20e-6 * random.NextDouble()),
+                Polled = polled ? new PolledCounter(period, 0.1, 1, 5e-3) : null,
+                Accel = new AccelSensor
+                {
+                    RateHz = rate,
+                    NoiseMicroGPerRootHz = 100 + (200 * random.NextDouble()),
+                    BiasXMps2 = 0.1 * (random.NextDouble() - 0.5),
+                    PitchRad = 0.05 * (random.NextDouble() - 0.5) * 2,
+                    ClockDriftPpm = 200 * (random.NextDouble() - 0.5),
+                },
+                Seed = random.Next(),
+            };
+            bool asLog = i % 2 == 1;
+            string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz; {(asLog ? "log" : "CSV")}");
+            cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary));
+        }
+
+        return cases;
+    }
+
+    private static Shape CruiseStop(Random random)
+    {
+        double speed = Mph * (30 + (50 * random.NextDouble()));
+        if (random.NextDouble() < 0.2)
+        {
+            return PrescribedShapes.CruiseThenStop(speed, double.PositiveInfinity, 3 + (5 * random.NextDouble()));
+        }
+
+        return PrescribedShapes.CruiseThenStop(speed, 0.05 + (1.95 * random.NextDouble()), 9.80665 * (0.5 + (0.5 * random.NextDouble())));
+    }
+}

@@ -1,0 +1,93 @@
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Import;
+using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Prescribed;
+using LaunchLogger.Prescribed.Truth;
+
+namespace LaunchLogger.Cli.Bench;
+
+/// <summary>Runs the generator's records through the decoder (as CSV files or as logs written
+/// by the firmware core) and compares every run with the generator's exact truth.</summary>
+public static class PrescribedBenchmark
+{
+    /// <summary>Generates, decodes and compares one case; one outcome per run of the record.</summary>
+    public static IReadOnlyList<CaseOutcome> Run(PrescribedBenchCase c, CancellationToken cancel)
+    {
+        cancel.ThrowIfCancellationRequested();
+        PrescribedRecord record = c.Spec.Generate();
+        SessionAnalysis session;
+        try
+        {
+            session = c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, cancel: cancel) : AnalyzeFiles(record, cancel);
+        }
+        catch (Exception e) when (e is AnalysisException or InvalidOperationException or InputException)
+        {
+            return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, e.Message)];
+        }
+
+        if (session.Runs.Count == 0)
+        {
+            return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, "no run found")];
+        }
+
+        bool asExpected = session.Runs.Count == record.Truth.Count;
+        var outcomes = new List<CaseOutcome>(record.Truth.Count);
+        var taken = new HashSet<RunAnalysis>();
+        foreach (TruthRun truth in record.Truth)
+        {
+            RunAnalysis? ours = Match(session.Runs, truth);
+            if (ours is null || !taken.Add(ours))
+            {
+                outcomes.Add(CaseOutcome.Failed(c.Index, c.Summary, c.Group, $"the decoder found {session.Runs.Count} run(s) where the record has {record.Truth.Count}; a run starting at {truth.Marks.StartS:0.000} s has none of its own") with { RunsAsExpected = false });
+                continue;
+            }
+
+            var outcome = CaseOutcome.Compare(
+                c.Index,
+                c.Summary,
+                c.Group,
+                FigureReading.FromTruth(truth),
+                FigureReading.FromFigures(ours.Figures, ours.Braking),
+                FigureReading.FromFigures(AccuracyBenchmark.NaiveFigures(ours.Run)));
+            outcomes.Add(outcome with
+            {
+                StandingFigureOnRollingStart = !truth.Standing && FigureReading.HasStandingFigure(ours.Figures),
+                RunsAsExpected = asExpected,
+            });
+        }
+
+        return outcomes;
+    }
+
+    private static SessionAnalysis AnalyzeFiles(PrescribedRecord record, CancellationToken cancel)
+    {
+        string folder = Path.Combine(Path.GetTempPath(), "launchlogger-bench-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            (string pulses, string? accel) = record.WriteFiles(folder);
+            DecodedRun run = TextRunImporter.Import(new TextImportRequest
+            {
+                EdgesPath = record.IsPolled ? null : pulses,
+                CountsPath = record.IsPolled ? pulses : null,
+                AccelPath = accel,
+                Scale = new PulseScale(record.StatedMetresPerPulse, record.Spec.Pickup.Teeth, record.Spec.Pickup.Tyre.StatedCircumferenceM),
+            });
+            return SessionAnalyzer.Analyze([run], cancel: cancel);
+        }
+        finally
+        {
+            Directory.Delete(folder, true);
+        }
+    }
+
+    /// <summary>The decoded run that holds the middle of the truth run's motion; the only run
+    /// when there is one and none does; else null.</summary>
+    private static RunAnalysis? Match(IReadOnlyList<RunAnalysis> runs, TruthRun truth)
+    {
+        double start = truth.Marks.StartS;
+        double end = truth.Marks.StandstillS ?? start + 1;
+        double middle = 0.5 * (start + end);
+        return runs.FirstOrDefault(r => r.Run.Pulses.Count > 0 && r.Run.Pulses[0].LoS <= middle && r.Run.Pulses[^1].HiS >= middle)
+            ?? (runs.Count == 1 ? runs[0] : null);
+    }
+}

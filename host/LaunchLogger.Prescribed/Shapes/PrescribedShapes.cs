@@ -1,0 +1,183 @@
+using LaunchLogger.Prescribed.Motion;
+using LaunchLogger.Prescribed.Truth;
+using static System.FormattableString;
+
+namespace LaunchLogger.Prescribed.Shapes;
+
+/// <summary>The generator's catalogue of records: standing starts of many profiles, rolling
+/// starts, cruise then a stop, launch then a stop, stop-and-go, slow and fast brake rises and a
+/// long idle. Every record idles at rest before a standing start long enough for the box to
+/// stage (<see cref="IdleS"/>), and rests after its last stop long enough for the box to close
+/// the run (<see cref="RestAfterS"/>).</summary>
+public static class PrescribedShapes
+{
+    /// <summary>Wait at rest before a standing start, s (the box stages after 1 s still).</summary>
+    public const double IdleS = 2;
+
+    /// <summary>Rest after the last stop, s (the box closes a run after 2 s without pulses).</summary>
+    public const double RestAfterS = 3;
+
+    /// <summary>Distance a standing start is driven before braking: past the quarter mile, m.</summary>
+    public const double StandingRunM = 420;
+
+    private const double G = TruthUnits.StandardGravity;
+
+    /// <summary>A launch shaped like a real car's, drawn from <paramref name="random"/>: the
+    /// acceleration rises jerk-limited to a peak of 0.25–1.1 g in 0.05–0.4 s, then falls
+    /// exponentially toward 0.05–0.2 g with a time constant of 3–12 s, with 0–3 gear changes
+    /// (a dip of 0.15–0.35 s to a third of the level) as a table; run past the quarter mile,
+    /// coast 0.5 s, brake to rest with a rise of 0.05–0.6 s at 0.6–1.0 g, and at least 0.1 g
+    /// harder than the launch's peak (a car brakes harder than it launches; common practice),
+    /// unless <paramref name="brakeG"/> sets the deceleration.</summary>
+    /// <param name="random">Draws the shape.</param>
+    /// <param name="idleS">Wait at rest before the launch.</param>
+    /// <param name="brakeG">The stop's deceleration in g, instead of the drawn one.</param>
+    /// <param name="launchRiseS">The launch's rise time instead of the drawn one (0 = a step).</param>
+    /// <param name="brakeRiseS">The stop's rise time instead of the drawn one (0 = a step).</param>
+    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null)
+    {
+        ArgumentNullException.ThrowIfNull(random);
+        double peak = G * Uniform(random, 0.25, 1.1);
+        double rise = Uniform(random, 0.05, 0.4);
+        rise = launchRiseS ?? rise;
+        double final = G * Uniform(random, 0.05, 0.2);
+        double tau = Uniform(random, 3, 12);
+        int shifts = random.Next(0, 4);
+        double brake = brakeG is { } fixedG ? G * fixedG : Math.Max(G * Uniform(random, 0.6, 1.0), peak + (0.1 * G));
+        double brakeRise = brakeRiseS ?? Uniform(random, 0.05, 0.6);
+        var b = new MotionProfileBuilder().Hold(idleS);
+        if (rise > 0)
+        {
+            b.Ramp(rise, 0, peak);
+        }
+
+        var pull = new ExponentialSegment(60, peak, final, tau);
+        if (shifts == 0)
+        {
+            b.Then(pull);
+        }
+        else
+        {
+            b.Then(ShiftedPull(pull, shifts, random));
+        }
+
+        CutAtDistance(b, StandingRunM);
+        b.Hold(0.5).BrakeToStop(brakeRise, brake).Hold(RestAfterS);
+        string name = Invariant($"standing start, peak {peak / G:0.00} g in {rise:0.00} s, {shifts} shifts, T {tau:0.0} s");
+        return new Shape(name, ShapeKind.StandingStart, b.Build());
+    }
+
+    /// <summary>A standing start at a constant acceleration, for closed-form checks.</summary>
+    public static Shape ConstantLaunch(double accelMps2, double idleS = IdleS)
+    {
+        var b = new MotionProfileBuilder().Hold(idleS).Constant(60, accelMps2);
+        CutAtDistance(b, StandingRunM);
+        b.Hold(0.5).BrakeToStop(0.2, 0.8 * G).Hold(RestAfterS);
+        return new Shape(Invariant($"constant {accelMps2 / G:0.00} g launch"), ShapeKind.StandingStart, b.Build());
+    }
+
+    /// <summary>A long wait at rest, then a standing start.</summary>
+    public static Shape LongIdle(Random random, double idleS = 60, double? launchRiseS = null, double? brakeRiseS = null)
+    {
+        Shape s = StandingStart(random, idleS, launchRiseS: launchRiseS, brakeRiseS: brakeRiseS);
+        return s with { Name = Invariant($"{idleS:0} s idle, then {s.Name}"), Kind = ShapeKind.LongIdle };
+    }
+
+    /// <summary>The record opens at <paramref name="speedMps"/>: 1.5 s of cruise, then
+    /// acceleration rising in 0.2 s to 0.2–0.5 g and falling off, until 75 mph or 25 s, then
+    /// a coast and a stop.</summary>
+    public static Shape RollingStart(double speedMps, Random random)
+    {
+        ArgumentNullException.ThrowIfNull(random);
+        double peak = G * Uniform(random, 0.2, 0.5);
+        var b = new MotionProfileBuilder(speedMps).Hold(1.5).Ramp(0.2, 0, peak).Then(new ExponentialSegment(60, peak, 0.05 * G, Uniform(random, 6, 14)));
+        CutAtSpeed(b, Math.Max(speedMps + 10, 75 * TruthUnits.MpsPerMph), 25);
+        b.Hold(0.5).BrakeToStop(0.3, 0.7 * G).Hold(RestAfterS);
+        return new Shape(Invariant($"rolling start at {speedMps / TruthUnits.MpsPerMph:0} mph"), ShapeKind.RollingStart, b.Build());
+    }
+
+    /// <summary>The record opens at a steady <paramref name="speedMps"/>; after
+    /// <paramref name="cruiseS"/> the brakes come on, the deceleration rising over
+    /// <paramref name="riseS"/> to <paramref name="decelMps2"/> (a rise of +∞ = a steady rise
+    /// through the whole stop at <paramref name="decelMps2"/> per second).</summary>
+    public static Shape CruiseThenStop(double speedMps, double riseS, double decelMps2, double cruiseS = 3)
+    {
+        var b = new MotionProfileBuilder(speedMps).Hold(cruiseS);
+        if (double.IsPositiveInfinity(riseS))
+        {
+            b.BrakeRisingToStop(decelMps2);
+        }
+        else
+        {
+            b.BrakeToStop(riseS, decelMps2);
+        }
+
+        b.Hold(RestAfterS);
+        string rise = double.IsPositiveInfinity(riseS) ? Invariant($"steady rise {decelMps2:0.#} m/s³") : Invariant($"rise {riseS:0.00} s to {decelMps2 / G:0.00} g");
+        return new Shape(Invariant($"cruise at {speedMps / TruthUnits.MpsPerMph:0} mph, stop with {rise}"), ShapeKind.CruiseThenStop, b.Build());
+    }
+
+    /// <summary>Launch at <paramref name="accelMps2"/> to <paramref name="speedMps"/>, then brake
+    /// at once with a rise of <paramref name="riseS"/> to 0.8 g.</summary>
+    public static Shape LaunchThenStop(double accelMps2, double speedMps, double riseS)
+    {
+        var b = new MotionProfileBuilder().Hold(IdleS).Ramp(0.1, 0, accelMps2).Constant(60, accelMps2);
+        CutAtSpeed(b, speedMps, 60);
+        b.BrakeToStop(riseS, 0.8 * G).Hold(RestAfterS);
+        return new Shape(Invariant($"launch to {speedMps / TruthUnits.MpsPerMph:0} mph, stop at once"), ShapeKind.LaunchThenStop, b.Build());
+    }
+
+    /// <summary>Two standing runs to 50 and 70 mph with <paramref name="waitS"/> at rest between.</summary>
+    public static Shape StopAndGo(Random random, double waitS = 5)
+    {
+        ArgumentNullException.ThrowIfNull(random);
+        var b = new MotionProfileBuilder().Hold(IdleS);
+        foreach (double mph in new[] { 50.0, 70.0 })
+        {
+            double peak = G * Uniform(random, 0.3, 0.8);
+            b.Ramp(0.15, 0, peak).Then(new ExponentialSegment(60, peak, 0.1 * G, Uniform(random, 4, 10)));
+            CutAtSpeed(b, mph * TruthUnits.MpsPerMph, 40);
+            b.Hold(0.3).BrakeToStop(0.25, 0.7 * G).Hold(mph == 50 ? waitS : RestAfterS);
+        }
+
+        return new Shape(Invariant($"stop and go, {waitS:0} s between"), ShapeKind.StopAndGo, b.Build());
+    }
+
+    /// <summary>A table of acceleration with the pull broken by <paramref name="shifts"/> gear
+    /// changes, sampled every 50 ms from <paramref name="pull"/>.</summary>
+    private static TabulatedSegment ShiftedPull(ExponentialSegment pull, int shifts, Random random)
+    {
+        var shiftAt = Enumerable.Range(0, shifts).Select(i => Uniform(random, 2, 4) * (i + 1)).ToArray();
+        double dip = Uniform(random, 0.15, 0.35);
+        var times = new List<double>();
+        var accels = new List<double>();
+        for (double t = 0; t <= 40 + 1e-9; t += 0.05)
+        {
+            bool inShift = shiftAt.Any(s => t >= s && t < s + dip);
+            times.Add(t);
+            accels.Add(inShift ? pull.AccelMps2(t) / 3 : pull.AccelMps2(t));
+        }
+
+        return new TabulatedSegment(times, accels);
+    }
+
+    /// <summary>Cuts the last segment where the distance of the current run reaches
+    /// <paramref name="runM"/> from its start.</summary>
+    private static void CutAtDistance(MotionProfileBuilder b, double runM) =>
+        CutWhere(b, (p, run) => p.TimeAtDistance(p.StateAt(run.StartS).DistanceM + runM, run.StartS));
+
+    /// <summary>Cuts the last segment where the speed reaches <paramref name="speedMps"/> (or
+    /// after <paramref name="maxS"/> of the run).</summary>
+    private static void CutAtSpeed(MotionProfileBuilder b, double speedMps, double maxS) =>
+        CutWhere(b, (p, run) => Math.Min(p.TimeAtSpeed(speedMps, run.StartS) ?? double.MaxValue, run.StartS + maxS));
+
+    private static void CutWhere(MotionProfileBuilder b, Func<MotionProfile, RunMarks, double?> when)
+    {
+        MotionProfile sofar = b.Build();
+        RunMarks run = sofar.Runs[^1];
+        double cut = when(sofar, run) ?? throw new InvalidOperationException("the run never reaches its end within its last segment");
+        b.CutAt(cut);
+    }
+
+    private static double Uniform(Random random, double lo, double hi) => lo + (random.NextDouble() * (hi - lo));
+}

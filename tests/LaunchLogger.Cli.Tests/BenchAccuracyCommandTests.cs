@@ -1,0 +1,45 @@
+using LaunchLogger.Cli.Verbs;
+
+namespace LaunchLogger.Cli.Tests;
+
+/// <summary><c>bench accuracy</c> runs simulated and generated records and prints every group
+/// with its coverage columns and goals (its figures are for people; nothing here is timed).</summary>
+public class BenchAccuracyCommandTests
+{
+    [Fact]
+    public void A_small_bench_prints_coverage_columns_and_goals_for_simulated_and_generated_runs()
+    {
+        var output = new StringWriter();
+        var error = new StringWriter();
+        ExitCode code = BenchAccuracyCommand.Run(4, 2, list: true, calibratedTyre: false, output, error);
+
+        string text = output.ToString();
+        Assert.Equal(ExitCode.Ok, code);
+        Assert.Contains("2 simulated runs + 2 generated records", text);
+        Assert.Contains("tyre NOT calibrated", text);
+        Assert.Contains("±2σ cover  ±3σ cover", text);
+        Assert.Contains("Generated (independent truth), standing starts", text);
+        Assert.Contains("Generated, records that open moving", text);
+        Assert.Contains("truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs", text);
+        Assert.Contains("pulses counted over a sliding 0.1 s window", text);
+    }
+
+    [Fact]
+    public void A_calibrated_tyre_is_said_and_its_goals_judged()
+    {
+        var output = new StringWriter();
+        ExitCode code = BenchAccuracyCommand.Run(2, 3, list: false, calibratedTyre: true, output, new StringWriter());
+
+        Assert.Equal(ExitCode.Ok, code);
+        Assert.Contains("tyre taken as calibrated at speed", output.ToString());
+        Assert.DoesNotContain("run with --calibrated-tyre", output.ToString());
+    }
+
+    [Fact]
+    public void Fewer_than_two_runs_is_a_usage_error()
+    {
+        var error = new StringWriter();
+        Assert.Equal(ExitCode.Usage, BenchAccuracyCommand.Run(1, 1, false, false, new StringWriter(), error));
+        Assert.Contains("--runs", error.ToString());
+    }
+}

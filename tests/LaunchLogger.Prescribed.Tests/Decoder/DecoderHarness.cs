@@ -1,0 +1,39 @@
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Import;
+using LaunchLogger.Decoding.Runs;
+
+namespace LaunchLogger.Prescribed.Tests.Decoder;
+
+/// <summary>Feeds a generated record to the decoder the way a user would: as plain-text files
+/// through the importer, or as a log through the reader, then the whole analysis.</summary>
+public static class DecoderHarness
+{
+    /// <summary>The record's CSV files, imported and analysed.</summary>
+    public static SessionAnalysis AnalyzeText(PrescribedRecord record)
+    {
+        string folder = Path.Combine(Path.GetTempPath(), "launchlogger-prescribed-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            (string pulses, string? accel) = record.WriteFiles(folder);
+            DecodedRun run = TextRunImporter.Import(new TextImportRequest
+            {
+                EdgesPath = record.IsPolled ? null : pulses,
+                CountsPath = record.IsPolled ? pulses : null,
+                AccelPath = accel,
+                Scale = PulseScale.FromOptions(null, record.Spec.Pickup.Teeth, record.Spec.Pickup.Tyre.StatedCircumferenceM),
+            });
+            return SessionAnalyzer.Analyze([run]);
+        }
+        finally
+        {
+            Directory.Delete(folder, true);
+        }
+    }
+
+    /// <summary>The record written as a log by the firmware core, read and analysed.</summary>
+    public static SessionAnalysis AnalyzeLog(PrescribedRecord record)
+    {
+        LogReadResult log = LogReader.Read(record.ToLog(), record.Spec.Shape.Name);
+        return SessionAnalyzer.Analyze(log.Runs);
+    }
+}

@@ -1,0 +1,27 @@
+using LaunchLogger.Prescribed.Sensors;
+using LaunchLogger.Prescribed.Shapes;
+
+namespace LaunchLogger.Prescribed.Tests.Decoder;
+
+/// <summary>Ready-made record specs for decoder tests: a seed picks the pickup (8–100 teeth),
+/// the tyre, the accelerometer's rate (100–1600 Hz), bias, tilt and clock drift. Vary one part
+/// with <c>with { … }</c> (Polled, Shape, Accel = null, Pickup with an uncalibrated tyre…).</summary>
+public static class Records
+{
+    /// <summary>A standing start drawn from <paramref name="seed"/>; the launch and brake rise
+    /// times may be fixed (0 = a step).</summary>
+    public static PrescribedRecordSpec Standing(int seed, double? launchRiseS = null, double? brakeRiseS = null) => new()
+    {
+        Shape = PrescribedShapes.StandingStart(new Random(seed), launchRiseS: launchRiseS, brakeRiseS: brakeRiseS),
+        Pickup = new WheelPickup(new[] { 8, 12, 24, 48, 60, 100 }[seed % 6], TyreModel.Calibrated(1.9 + (0.02 * seed)), 0.1 * (seed % 10)),
+        Accel = new AccelSensor
+        {
+            RateHz = new[] { 100, 200, 400, 800, 1600 }[seed % 5],
+            NoiseMicroGPerRootHz = 150,
+            BiasXMps2 = 0.02 * ((seed % 5) - 2),
+            PitchRad = 0.01 * ((seed % 7) - 3),
+            ClockDriftPpm = 50 * ((seed % 5) - 2),
+        },
+        Seed = seed,
+    };
+}
