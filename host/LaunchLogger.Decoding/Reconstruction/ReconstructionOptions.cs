@@ -85,12 +85,11 @@ public sealed record ReconstructionOptions
     /// speed in proportion to them.</summary>
     public double PulseScaleSigma { get; init; } = 3e-4;
 
-    /// <summary>1-σ relative error of the circumference the pulses are scaled by, as a fraction:
-    /// a static rolling circumference measured by rolling the car over a marked few metres, or
-    /// from the tyre's size, is good to about 0.2 % (load, pressure and wear move it; common
-    /// practice). A calibration's own σ replaces it (<see cref="Analysis.RunAnalyzer"/> does so
-    /// from the settings file).</summary>
-    public double CircumferenceSigmaFraction { get; init; } = 0.002;
+    /// <summary>1-σ relative error of the circumference the pulses are scaled by, as a fraction.
+    /// Uncalibrated, the box holds a static or tyre-size figure, and a loaded tyre rolls on a
+    /// circumference 0–2 % smaller (from memory): 1 % puts that range inside 2 σ. A calibration's
+    /// own σ replaces it (<see cref="Analysis.RunAnalyzer"/> does so from the settings file).</summary>
+    public double CircumferenceSigmaFraction { get; init; } = 0.01;
 
     /// <summary>1-σ of the tyre's growth of rolling radius at 30 m/s, as a fraction, for a tyre not
     /// calibrated at speed; it scales with the square of speed (the tread's centrifugal growth).
