@@ -92,41 +92,79 @@ public static class DemoCommand
         FigureSet? truth = simulation.Figures;
         TruthEvents events = simulation.Events;
         output.WriteLine();
-        output.WriteLine("Against the simulator's truth (our estimate − truth):");
+        output.WriteLine("Against the simulator's truth (error = our estimate − truth; in σ = error ÷ our stated σ):");
+        output.WriteLine("  figure                              estimate        truth        error     ± σ    in σ");
+        FigureSet ours = analysis.Figures;
         if (events.FirstMotionS is { } t0)
         {
-            output.WriteLine(FormattableString.Invariant($"  first motion              {(analysis.Figures.FirstMotionS.Value - t0) * 1000,8:+0.0;-0.0;0.0} ms   (± {analysis.Figures.FirstMotionS.Sigma * 1000:0.0} ms claimed)"));
+            Row("first motion (box clock)", ours.FirstMotionS.Value, t0, ours.FirstMotionS.Sigma, Time);
         }
 
-        if (events.RolloutS is { } tr && analysis.Figures.RolloutTimeS is { } rollout)
+        if (events.RolloutS is { } tr && ours.RolloutTimeS is { } rollout)
         {
-            output.WriteLine(FormattableString.Invariant($"  rollout mark              {(rollout.Value - tr) * 1000,8:+0.0;-0.0;0.0} ms"));
+            Row("rollout mark (box clock)", rollout.Value, tr, rollout.Sigma, Time);
         }
 
-        if (truth is null)
+        if (truth is not null)
         {
-            return;
+            foreach (IntervalFigure mine in ours.SpeedIntervals)
+            {
+                IntervalFigure? real = truth.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == mine.Interval.Label);
+                bool fromRest = mine.Interval.FromMps <= 0;
+                Row(mine.Interval.Label + (fromRest ? " from standstill" : ""), mine.FromStandstillS, real?.FromStandstillS, mine.UncertaintyS, Time);
+                if (fromRest)
+                {
+                    Row(mine.Interval.Label + " after rollout", mine.FromRolloutS, real?.FromRolloutS, mine.FromRolloutUncertaintyS, Time);
+                }
+            }
+
+            foreach (MarkFigure mine in ours.DistanceMarks)
+            {
+                MarkFigure? real = truth.DistanceMarks.FirstOrDefault(m => Math.Abs(m.Mark.DistanceM - mine.Mark.DistanceM) < 1e-6);
+                Row(mine.Mark.Label + " from standstill", mine.FromStandstillS, real?.FromStandstillS, mine.UncertaintyS, Time);
+                Row(mine.Mark.Label + " after rollout", mine.FromRolloutS, real?.FromRolloutS, mine.FromRolloutUncertaintyS, Time);
+                Row(mine.Mark.Label + " trap speed", mine.TrapSpeedMps, real?.TrapSpeedMps, mine.TrapSpeedUncertaintyMps, Speed);
+            }
         }
 
-        Compare("0-60 mph from standstill", Find(analysis.Figures, "0-60 mph")?.FromStandstillS, Find(truth, "0-60 mph")?.FromStandstillS);
-        Compare("0-60 mph after rollout", Find(analysis.Figures, "0-60 mph")?.FromRolloutS, Find(truth, "0-60 mph")?.FromRolloutS);
-        Compare("1320 ft elapsed time", FindMark(analysis.Figures)?.FromStandstillS, FindMark(truth)?.FromStandstillS);
+        if (analysis.Braking is { } braking && events.StoppingDistanceM is { } stop)
+        {
+            if (events.BrakeOnsetS is { } onset)
+            {
+                Row("brake onset (box clock)", braking.OnsetS.Value, onset, braking.OnsetS.Sigma, Time);
+            }
+
+            Row("stopping distance", braking.StoppingDistanceM.Value, stop, braking.StoppingDistanceM.Sigma, Length);
+        }
+
+        if (analysis.Grade is { } grade)
+        {
+            double truthRad = Math.Atan(events.GradePercent / 100);
+            Row("grade at staging", grade.AngleRad, truthRad, grade.SigmaRad, Grade);
+        }
+
         double growth = simulation.Scenario.Tyre.RadiusGrowthAt30Mps;
         if (growth > 0)
         {
             output.WriteLine(FormattableString.Invariant(
-                $"  (This car's tyre grows {growth * 100:0.0#} % at 30 m/s, as real tyres do: at speed each pulse covers a little\n   more road than the box's static circumference says, so times to high speeds and long distances come\n   out late. A circumference calibrated at speed removes it; `launchlogger bench accuracy` shows the\n   estimator with a calibrated tyre.)"));
+                $"  (This car's tyre grows {growth * 100:0.0#} % at 30 m/s, as real tyres do: at speed each pulse covers a little\n   more road than the box's static circumference says, so times to high speeds and long distances come\n   out late. Until the tyre is calibrated at speed that is part of σ; `launchlogger bench accuracy` shows\n   the estimator both ways.)"));
         }
 
-        void Compare(string label, double? ours, double? real)
+        void Row(string label, double? estimate, double? real, double? sigma, Func<double, string> show)
         {
-            if (ours is { } o && real is { } r)
+            if (estimate is not { } e || real is not { } r)
             {
-                output.WriteLine(FormattableString.Invariant($"  {label,-26}{(o - r) * 1000,8:+0.0;-0.0;0.0} ms   (truth {r:0.000} s)"));
+                return;
             }
+
+            string inSigma = sigma is { } s && s > 0 ? FormattableString.Invariant($"{(e - r) / s,7:+0.0;-0.0;0.0}") : "      —";
+            output.WriteLine(FormattableString.Invariant($"  {label,-32}{show(e),12} {show(r),12} {Signed(show, e - r),12} {(sigma is { } sg ? show(sg) : "—"),9} {inSigma}"));
         }
 
-        static IntervalFigure? Find(FigureSet f, string label) => f.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == label);
-        static MarkFigure? FindMark(FigureSet f) => f.DistanceMarks.FirstOrDefault(m => m.Mark.DistanceM > 402 && m.Mark.DistanceM < 403);
+        static string Signed(Func<double, string> show, double value) => (value >= 0 ? "+" : "−") + show(Math.Abs(value));
+        static string Time(double s) => FormattableString.Invariant($"{s:0.0000} s");
+        static string Speed(double mps) => FormattableString.Invariant($"{mps:0.000} m/s");
+        static string Length(double m) => FormattableString.Invariant($"{m:0.000} m");
+        static string Grade(double rad) => FormattableString.Invariant($"{Math.Tan(rad) * 100:0.00} %");
     }
 }

@@ -19,6 +19,11 @@ public static class RunAnalyzer
         ReconstructionOptions reconstructionOptions = options.RolloutM is { } rollout
             ? options.Reconstruction with { RolloutM = rollout }
             : options.Reconstruction;
+        if (options.Calibration is { CircumferenceM: > 0 and { } circumference, CircumferenceSigmaM: { } circumferenceSigma })
+        {
+            // A measured circumference brings its own σ in place of the static value's.
+            reconstructionOptions = reconstructionOptions with { CircumferenceSigmaFraction = circumferenceSigma / circumference };
+        }
         ReconstructedRun reconstruction;
         try
         {

@@ -15,6 +15,12 @@ namespace LaunchLogger.Decoding.Braking;
 /// </remarks>
 public static class BrakingAnalyzer
 {
+    /// <summary>1-σ of the time from the first movement of the brake pedal to the switch closing,
+    /// s: the pedal's free play before a brake-light switch closes takes some 0–30 ms of a firm
+    /// application (from memory). Unknown unless measured (the report's switch-delay setting), so it
+    /// counts in the onset's σ.</summary>
+    public const double SwitchDelaySigmaS = 0.01;
+
     /// <summary>Below this speed the car counts as standing, m/s.</summary>
     public const double StandstillMps = 0.05;
 
@@ -84,7 +90,7 @@ public static class BrakingAnalyzer
         string onsetMethod;
         if (switchOn is { } sw)
         {
-            onset = new Estimate(sw, 0.001);
+            onset = new Estimate(sw, Math.Sqrt((0.001 * 0.001) + (SwitchDelaySigmaS * SwitchDelaySigmaS)));
             onsetMethod = "brake switch";
         }
         else

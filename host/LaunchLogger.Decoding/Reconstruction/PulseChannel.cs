@@ -36,6 +36,122 @@ internal sealed class PulseChannel
     /// <summary>Count increase at observation <paramref name="i"/> (1 for the first).</summary>
     public long Increment(int i) => i == 0 ? 1 : Counts[i] - Counts[i - 1];
 
+    /// <summary>Pulse period around each observation, s, and its relative uncertainty: counts over
+    /// a window of neighbouring observations (at least <see cref="PeriodWindowPulses"/> pulses each
+    /// side, or <see cref="PeriodWindowS"/>), centred on the observation so that a steady change
+    /// of speed cancels. Read from the counts alone, never from a filter's state, so a bracket
+    /// narrowed by it (<see cref="BracketModel"/>) cannot feed an error back into itself.</summary>
+    public void PulsePeriod(int i, out double periodS, out double relativeSigma)
+    {
+        periods ??= PulsePeriods(out periodSigmas);
+        periodS = periods[i];
+        relativeSigma = periodSigmas![i];
+    }
+
+    /// <summary>Best time of the edge at which observation <paramref name="i"/>'s count was
+    /// reached: the middle of the interval <see cref="BracketModel.LastEdge"/> leaves in the
+    /// bracket, seconds. The bracket's own midpoint for a bracket holding one slow pulse; at speed,
+    /// and above all across a long stall of the loop, it is where the edge can have been.</summary>
+    public double EdgeS(int i)
+    {
+        if (edges is null)
+        {
+            var result = new double[Length];
+            for (int k = 0; k < result.Length; k++)
+            {
+                PulsePeriod(k, out double period, out double sigma);
+                BracketModel.LastEdge(LoS[k], HiS[k], Increment(k), period, Math.Min(0.5, sigma), out double from, out double to);
+                result[k] = 0.5 * (from + to);
+            }
+
+            edges = result;
+        }
+
+        return edges[i];
+    }
+
+    private double[]? edges;
+
+    /// <summary>Pulses each side of an observation that <see cref="PulsePeriod"/> counts over.</summary>
+    public const int PeriodWindowPulses = 12;
+
+    /// <summary>Longest half-window of <see cref="PulsePeriod"/>, s.</summary>
+    public const double PeriodWindowS = 0.05;
+
+    private double[]? periods;
+    private double[]? periodSigmas;
+
+    private double[] PulsePeriods(out double[] sigmas)
+    {
+        int n = Length;
+        var result = new double[n];
+        sigmas = new double[n];
+        int a = 0;
+        int b = 0;
+        for (int i = 0; i < n; i++)
+        {
+            // The window [a, b] around i: as many pulses before as after, as far as the data and
+            // the time limit allow.
+            a = Math.Min(a, i);
+            b = Math.Max(b, i);
+            while (a > 0 && Counts[i] - Counts[a] < PeriodWindowPulses && HiS[i] - HiS[a - 1] <= PeriodWindowS)
+            {
+                a--;
+            }
+
+            while (a < i && (Counts[i] - Counts[a + 1] >= PeriodWindowPulses || HiS[i] - HiS[a] > PeriodWindowS))
+            {
+                a++;
+            }
+
+            while (b + 1 < n && Counts[b] - Counts[i] < PeriodWindowPulses && HiS[b + 1] - HiS[i] <= PeriodWindowS)
+            {
+                b++;
+            }
+
+            while (b > i && (Counts[b - 1] - Counts[i] >= PeriodWindowPulses || HiS[b] - HiS[i] > PeriodWindowS))
+            {
+                b--;
+            }
+
+            // Symmetric in pulses, so the window's centre is the observation's.
+            int before = (int)(Counts[i] - Counts[a]);
+            int after = (int)(Counts[b] - Counts[i]);
+            int side = Math.Min(before, after);
+            int from = a;
+            int to = b;
+            if (side > 0)
+            {
+                while (Counts[i] - Counts[from] > side)
+                {
+                    from++;
+                }
+
+                while (Counts[to] - Counts[i] > side)
+                {
+                    to--;
+                }
+            }
+
+            // Between poll instants, where the counter's reading is exact: each end is late by
+            // less than a pulse period, alike at both ends, whatever the bracket's width (a long
+            // stall of the loop included).
+            long span = Counts[to] - Counts[from];
+            double time = HiS[to] - HiS[from];
+            if (span < 2 || !(time > 0))
+            {
+                result[i] = double.PositiveInfinity;
+                sigmas[i] = 1;
+                continue;
+            }
+
+            result[i] = time / span;
+            sigmas[i] = Math.Min(1, 1.0 / span);
+        }
+
+        return result;
+    }
+
     /// <summary>Metres per pulse from the configuration (circumference ÷ pulses per revolution
     /// when the direct figure is missing).</summary>
     public static double MetresPerPulse(RunConfiguration configuration)

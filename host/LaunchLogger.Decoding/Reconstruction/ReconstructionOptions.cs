@@ -85,6 +85,22 @@ public sealed record ReconstructionOptions
     /// speed in proportion to them.</summary>
     public double PulseScaleSigma { get; init; } = 3e-4;
 
+    /// <summary>1-σ relative error of the circumference the pulses are scaled by, as a fraction.
+    /// Uncalibrated, the box holds a static or tyre-size figure, and a loaded tyre rolls on a
+    /// circumference 0–2 % smaller (from memory): 1 % puts that range inside 2 σ. A calibration's
+    /// own σ replaces it (<see cref="Analysis.RunAnalyzer"/> does so from the settings file).</summary>
+    public double CircumferenceSigmaFraction { get; init; } = 0.01;
+
+    /// <summary>1-σ of the tyre's growth of rolling radius at 30 m/s, as a fraction, for a tyre not
+    /// calibrated at speed; it scales with the square of speed (the tread's centrifugal growth).
+    /// Car tyres grow by some 0.1–0.5 % at 30 m/s (from memory), so 0.3 % puts the largest of them
+    /// inside 2 σ. 0 once the circumference has been calibrated at the speeds that matter.</summary>
+    public double TyreGrowthSigmaAt30Mps { get; init; } = 0.003;
+
+    /// <summary>1-σ rate error of the box's clock, as a fraction (a crystal without temperature
+    /// control: about 30 ppm, from memory). Every time the box measures stretches by it.</summary>
+    public double TimebaseSigma { get; init; } = 30e-6;
+
     /// <summary>Share of a driven wheel's estimated slip correction taken as 1-σ model error: the
     /// slip law is linear, and real tyres slip more near their grip limit, as in a hard launch
     /// (sized on simulated launches so that the rollout mark stays within ±2 σ).</summary>

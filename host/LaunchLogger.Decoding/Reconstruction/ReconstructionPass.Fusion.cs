@@ -115,7 +115,17 @@ internal sealed partial class ReconstructionPass
     /// <see cref="ReconstructionOptions.PulseScaleSigma"/>) or, without pulses, the
     /// accelerometer's (<see cref="ReconstructionOptions.AccelScaleSigma"/>), and, on a driven wheel, the part of the
     /// slip the linear slip law misses (<see cref="ReconstructionOptions.SlipModelError"/> of the
-    /// correction). Both are systematic, so they grow with distance and speed.</remarks>
+    /// correction). Both are systematic, so they grow with distance and speed. With pulses, the
+    /// circumference is known only to <see cref="ReconstructionOptions.CircumferenceSigmaFraction"/>
+    /// and, unless calibrated at speed, the tyre grows with the square of speed by up to
+    /// <see cref="ReconstructionOptions.TyreGrowthSigmaAt30Mps"/> at 30 m/s: a distance error
+    /// ∫ g(v)·v dt and a speed error g(v)·v, g(v) = G·(v / 30 m/s)². The box's clock rate error
+    /// τ moves distance at a time by v·τ·t and speed by v·τ. All are systematic and taken as
+    /// independent of each other and of what the filter sees.</remarks>
+    private const double GrowthReferenceMps = 30;
+
+    private static double Square(double x) => x * x;
+
     private Trajectory MakeTrajectory(StepGrid steps, double startS, double? stopS, FusionResult fused, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
@@ -130,6 +140,9 @@ internal sealed partial class ReconstructionPass
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         double stop = stopS ?? double.PositiveInfinity;
         double previous = 0;
+        double growthDistance = 0;
+        double circumferenceSigma = pulses is null ? 0 : options.CircumferenceSigmaFraction;
+        double growthSigma = pulses is null ? 0 : options.TyreGrowthSigmaAt30Mps;
         for (int k = k0; k < n; k++)
         {
             bool atRest = grid[k] >= stop;
@@ -151,8 +164,16 @@ internal sealed partial class ReconstructionPass
 
             double dSys = (scale * d) + slipDistance;
             double vSys = (scale * speed[k]) + slipSpeed;
-            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys));
-            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys));
+            double growth = growthSigma * (speed[k] / GrowthReferenceMps) * (speed[k] / GrowthReferenceMps);
+            if (k > k0)
+            {
+                growthDistance += growth * speed[k] * (grid[k] - grid[k - 1]);
+            }
+
+            double clock = options.TimebaseSigma * (grid[k] - startS);
+            double dScale = circumferenceSigma * d;
+            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + Square(speed[k] * clock));
+            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + Square(options.TimebaseSigma * speed[k]));
             if (atRest)
             {
                 accelOut[k] = 0;

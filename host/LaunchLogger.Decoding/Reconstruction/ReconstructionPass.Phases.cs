@@ -21,7 +21,11 @@ internal sealed partial class ReconstructionPass
             return new Estimate(accel!.TimeS[0], 0);
         }
 
-        Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, o.SigmaS) : null;
+        // The samples' instants are rebuilt from burst read times and sample indices on the
+        // sensor's own clock: each is placed to within about a sample period (uniform: σ = T/√12),
+        // which the onset fit on those instants cannot see.
+        double samplePlacement = accel is null ? 0 : accel.PeriodS / Math.Sqrt(12);
+        Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, Math.Sqrt((o.SigmaS * o.SigmaS) + (samplePlacement * samplePlacement))) : null;
         if (fromAccel is { } fa && pulses != null && fa.Value >= pulses.HiS[0])
         {
             warnings.Add("the accelerometer onset came after the first pulse; it was not used");
@@ -39,9 +43,13 @@ internal sealed partial class ReconstructionPass
                 return a;
             }
 
+            // Inverse-variance mean; when the two differ by more than their σ explain, the σ of
+            // the mean is scaled up by that much (the scale factor of the Particle Data Group's
+            // averages, Review of Particle Physics, "Introduction": S = √(χ²/(N − 1))).
             double wa = 1 / (a.Sigma * a.Sigma);
             double wp = 1 / (p.Sigma * p.Sigma);
-            return new Estimate(((wa * a.Value) + (wp * p.Value)) / (wa + wp), Math.Sqrt(1 / (wa + wp)));
+            double scale = Math.Max(1, Math.Abs(gap) / combined);
+            return new Estimate(((wa * a.Value) + (wp * p.Value)) / (wa + wp), scale * Math.Sqrt(1 / (wa + wp)));
         }
 
         if (fromAccel is { } onlyAccel)

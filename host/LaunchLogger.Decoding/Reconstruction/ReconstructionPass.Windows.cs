@@ -32,7 +32,8 @@ internal sealed partial class ReconstructionPass
     /// resistance, or 0 when that is negative (coasting, braking). A tyre's longitudinal slip grows in proportion to the force it passes (the
     /// linear part of its force–slip curve; H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1),
     /// so a wheel slipping by k·a_drive counts k·S(t) more than the car covered. Speeds come
-    /// from the pulses themselves (their own slip changes S by only that much).</summary>
+    /// from the pulses themselves (their own slip changes S by only that much), counted over a
+    /// window (<see cref="PulseChannel.PulsePeriod"/>).</summary>
     private double[]? SlipSignal(StepGrid steps, double startS, double? stopS)
     {
         if (accel is null || pulses is null || !Staged || options.WheelSlipSigma <= 0 || pulses.Length < 3)
@@ -56,7 +57,10 @@ internal sealed partial class ReconstructionPass
             double speed = 0;
             if (mid < stop && i + 1 < pulses.Length && pulses.MidS(i) <= mid)
             {
-                speed = (pulses.Counts[i + 1] - pulses.Counts[i]) * mpp / Math.Max(pulses.MidS(i + 1) - pulses.MidS(i), 1e-6);
+                // Over a window of pulses, not from one bracket to the next: the slip is fitted to
+                // the same brackets, and a signal carrying their errors would find a slip in them.
+                pulses.PulsePeriod(i, out double period, out _);
+                speed = double.IsInfinity(period) ? 0 : mpp / period;
             }
 
             double dt = grid[k + 1] - grid[k];

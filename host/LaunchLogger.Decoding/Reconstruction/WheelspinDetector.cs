@@ -2,8 +2,9 @@ namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <summary>Finds stretches where the pulses run well ahead of the accelerometer (a driven wheel
 /// spinning faster than the car moves) or well behind it (a wheel sliding under braking).</summary>
-/// <remarks>Over windows of about 40 ms the mean speed from the pulses is compared with the mean
-/// speed from integrating the accelerometer. Without spin their difference is smooth: an offset,
+/// <remarks>Over windows of about 40 ms the mean speed from the pulses (between the edges'
+/// best times, <see cref="PulseChannel.EdgeS"/>, so that a long bracket does not fake a burst of
+/// speed) is compared with the mean speed from integrating the accelerometer. Without spin their difference is smooth: an offset,
 /// a drift (accelerometer bias) and a share of the speed (scale errors). That baseline is fitted
 /// robustly — iteratively reweighted least squares with Tukey's biweight (P. J. Huber, "Robust
 /// Statistics", 1981; Holland &amp; Welsch 1977) — and windows standing well above it are spin,
@@ -32,9 +33,9 @@ internal static class WheelspinDetector
         int i = 0;
         while (i < pulses.Length)
         {
-            double ti = pulses.MidS(i);
+            double ti = pulses.EdgeS(i);
             int j = i + 1;
-            while (j < pulses.Length && pulses.MidS(j) < ti + WindowS)
+            while (j < pulses.Length && pulses.EdgeS(j) < ti + WindowS)
             {
                 j++;
             }
@@ -44,7 +45,7 @@ internal static class WheelspinDetector
                 break;
             }
 
-            double tj = pulses.MidS(j);
+            double tj = pulses.EdgeS(j);
             if (tj > endS)
             {
                 break;

@@ -46,8 +46,17 @@ public static class BuiltInScenarios
         return scenario != null;
     }
 
+    /// <summary>The capture loop of an ESP32 under nanoFramework polling its hardware pulse
+    /// counter: a step about every millisecond (1,000 interpreted IL instructions at 0.4–1.5 µs
+    /// each), ±0.25 ms from step to step, and about once a second a stall of 20 ms while a frame
+    /// is written. An estimate, not a measurement: see hardware-notes/loop-timing.md.</summary>
+    private static CaptureSpec EspPolledLoop() => new()
+    {
+        Kind = CaptureKind.PolledCounter, LoopPeriodMicros = 1000, LoopJitterMicros = 250, PausesPerSecond = 1, PauseMicros = 20_000,
+    };
+
     /// <summary>A light rear-drive roadster over a quarter mile, then a firm stop: a 48-tooth
-    /// pickup on an undriven front wheel polled by an ESP32-style loop with the odd pause, a
+    /// pickup on an undriven front wheel polled by an ESP32-style loop (1 ms, with stalls), a
     /// slightly tilted accelerometer, and the brake switch wired.</summary>
     private static Scenario RoadsterLaunch() => new()
     {
@@ -76,7 +85,7 @@ public static class BuiltInScenarios
         Environment = new EnvironmentSpec { GradePercent = 0, HeadwindMps = 0.8, AirDensityKgM3 = 1.19 },
         Plan = new RunPlan { StageS = 3.0, TargetSpeedMps = null, TargetDistanceM = 402.336, CoastS = 1.0, BrakeToStop = true, BrakeDemandG = 0.6, StandStillAfterS = 3.0 },
         Pickup = new PulsePickupSpec { Axle = Axle.Front, Teeth = 48, EdgesPerTooth = 1, ToothSpacingErrorFraction = 0.01 },
-        Capture = new CaptureSpec { Kind = CaptureKind.PolledCounter, LoopPeriodMicros = 200, LoopJitterMicros = 30, PausesPerSecond = 0.5, PauseMicros = 3000 },
+        Capture = EspPolledLoop(),
         Accelerometer = new AccelerometerSpec
         {
             OutputDataRateHz = 800, ClockDriftPpm = 1500, FifoDepth = 32, ReadIntervalMicros = 10_000,
@@ -115,7 +124,7 @@ public static class BuiltInScenarios
         Environment = new EnvironmentSpec { GradePercent = 0.5, HeadwindMps = 1.5, AirDensityKgM3 = 1.21 },
         Plan = new RunPlan { StageS = 3.0, TargetSpeedMps = 29.06, CoastS = 0.5, BrakeToStop = true, BrakeDemandG = 0.45, StandStillAfterS = 3.0 },
         Pickup = new PulsePickupSpec { Axle = Axle.Rear, Teeth = 12, EdgesPerTooth = 1, ToothSpacingErrorFraction = 0.015 },
-        Capture = new CaptureSpec { Kind = CaptureKind.PolledCounter, LoopPeriodMicros = 300, LoopJitterMicros = 60 },
+        Capture = EspPolledLoop(),
         Accelerometer = new AccelerometerSpec
         {
             OutputDataRateHz = 400, ClockDriftPpm = -2500, FifoDepth = 32, ReadIntervalMicros = 20_000,
@@ -229,7 +238,7 @@ public static class BuiltInScenarios
         Environment = new EnvironmentSpec { GradePercent = 0, HeadwindMps = 0, AirDensityKgM3 = 1.2 },
         Plan = new RunPlan { StageS = 3.0, TargetSpeedMps = 29.06, CoastS = 1.0, BrakeToStop = true, BrakeDemandG = 1.2, StandStillAfterS = 3.0 },
         Pickup = new PulsePickupSpec { Axle = Axle.Rear, Teeth = 48, EdgesPerTooth = 1, ToothSpacingErrorFraction = 0.01 },
-        Capture = new CaptureSpec { Kind = CaptureKind.PolledCounter, LoopPeriodMicros = 250, LoopJitterMicros = 40 },
+        Capture = EspPolledLoop(),
         Accelerometer = new AccelerometerSpec
         {
             OutputDataRateHz = 800, ClockDriftPpm = 2000, FifoDepth = 32, ReadIntervalMicros = 10_000,
