@@ -65,7 +65,7 @@ public static class CrossChecker
         double rateHz = 1 / theirs.MedianPeriodS;
         var notes = new List<string>
         {
-            string.Create(CultureInfo.InvariantCulture, $"{theirs.Source}: {rateHz:0.#} Hz; its first motion is known only to within one sample period ({1000 / rateHz:0} ms), so its standing-start and after-rollout figures carry σ ≥ {500 / rateHz:0} ms."),
+            string.Create(CultureInfo.InvariantCulture, $"{theirs.Source}: {rateHz:0.#} Hz; its first motion is known only to within one sample period ({1000 / rateHz:0} ms) or the tenth of a second a car can creep below its speed noise, so its standing-start and after-rollout figures carry σ ≥ {Math.Max(500 / rateHz, 50):0} ms."),
         };
         if (!theirs.SpeedMeasured)
         {

@@ -12,7 +12,7 @@ namespace LaunchLogger.Decoding.CrossCheck;
 /// last sample that reads at rest (not above the speed noise) and no later than where a line
 /// through the first moving samples below 8 m/s meets zero (a launch's speed bends upward at
 /// first). The estimate is the interval's middle and its σ half the interval (at least one
-/// sample period wide), so ±2σ spans the interval and as much again on each side, for a slow
+/// sample period and 0.1 s wide), so ±2σ spans the interval and as much again on each side, for a slow
 /// creep hidden in the noise: a 10 Hz trace cannot see a 1-ft rollout, and its standing-start
 /// figures say so.</para>
 /// <para>Distance: the trapezoid rule on the speeds from first motion (speed 0 there). σ of the
@@ -24,6 +24,10 @@ public static class TraceTrajectory
 {
     private const double MinimumRestMps = 0.2;
     private const double LineFitCeilingMps = 8;
+
+    /// <summary>The least width given to the start's interval, s: a clutch start can creep for a
+    /// tenth of a second below a receiver's speed noise (common practice).</summary>
+    private const double MinimumStartWindowS = 0.1;
 
     /// <summary>Builds the trajectory of the run that starts near <paramref name="searchFromS"/>.</summary>
     /// <param name="theirs">The trace.</param>
@@ -50,7 +54,7 @@ public static class TraceTrajectory
         // The start lies after the last sample that reads at rest (within the noise) and before
         // the line through the first moving samples meets zero (a launch's speed bends upward
         // at first, so the line meets zero late), and before the first moving sample. The
-        // estimate is the middle and σ half the interval (at least one sample period wide):
+        // estimate is the middle and σ half the interval (at least one sample period and 0.1 s wide):
         // ±2σ spans it and as much again on each side, for a creep hidden in the noise.
         int restIndex = first - 1;
         while (restIndex > 0 && v[restIndex] > speedSigmaMps && t[first] - t[restIndex - 1] < 1)
@@ -63,7 +67,7 @@ public static class TraceTrajectory
         (double lineS, double lineSigmaS) = BackExtrapolate(t, v, first);
         double latestS = Math.Clamp(lineS, restS, movingS);
         double t0 = (restS + latestS) / 2;
-        double width = Math.Max(latestS - restS, t[first] - t[first - 1]);
+        double width = Math.Max(Math.Max(latestS - restS, t[first] - t[first - 1]), MinimumStartWindowS);
         double t0Sigma = Math.Sqrt((lineSigmaS * lineSigmaS) + (width * width / 4));
 
         int last = first;
