@@ -88,7 +88,7 @@ internal static class ArchiveSupport
 
         AtomicFile.WriteAll([(file.FullName, stream =>
         {
-            using var writer = new StreamWriter(stream, new System.Text.UTF8Encoding(false));
+            using var writer = new StreamWriter(stream, new System.Text.UTF8Encoding(false), leaveOpen: true);
             write(writer);
         })]);
         output.WriteLine($"wrote {table.Rows.Count} row(s) to {file.FullName}");

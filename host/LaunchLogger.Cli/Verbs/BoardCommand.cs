@@ -95,7 +95,7 @@ public static class BoardCommand
             {
                 AtomicFile.WriteAll([(file.FullName, stream =>
                 {
-                    using var writer = new StreamWriter(stream, new System.Text.UTF8Encoding(false));
+                    using var writer = new StreamWriter(stream, new System.Text.UTF8Encoding(false), leaveOpen: true);
                     write(writer);
                 })]);
                 output.WriteLine($"wrote the board to {file.FullName}");
