@@ -123,10 +123,6 @@ public sealed record ReconstructionOptions
     /// asphalt; common practice).</summary>
     public double RollingResistance { get; init; } = 0.012;
 
-    /// <summary>The firmware's rollout mark may differ from ours by this much plus three σ and
-    /// one pulse's worth of time before a warning, seconds.</summary>
-    public double FirmwareRolloutToleranceS { get; init; } = 0.005;
-
     /// <summary>Bracket width above which an observation counts as wide, seconds; null for the
     /// run's configured limit (2 ms when it has none).</summary>
     public double? WideBracketS { get; init; }

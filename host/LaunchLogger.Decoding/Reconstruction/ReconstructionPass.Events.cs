@@ -31,23 +31,6 @@ internal sealed partial class ReconstructionPass
         return (null, null);
     }
 
-    private void CheckFirmwareRollout(Estimate? ours, Estimate? speed)
-    {
-        double? firmware = run.FirmwareRolloutS ?? run.Events.FirstOrDefault(e => e.Kind == EventKind.Rollout)?.TimeS;
-        if (firmware is not { } fw || ours is not { } o || !Staged)
-        {
-            return;
-        }
-
-        double pulseTime = speed is { } s && s.Value > 0.05 && mpp > 0 ? mpp / s.Value : 0;
-        double tolerance = options.FirmwareRolloutToleranceS + (3 * o.Sigma) + pulseTime;
-        double gap = fw - o.Value;
-        if (Math.Abs(gap) > tolerance)
-        {
-            warnings.Add($"the box's own rollout mark is {gap * 1e3:F1} ms {(gap > 0 ? "later" : "earlier")} than ours (tolerance {tolerance * 1e3:F1} ms)");
-        }
-    }
-
     private void AddModeWarnings(Trajectory trajectory, Estimate firstMotion, double? stopS)
     {
         if (pulses is null && accel != null)

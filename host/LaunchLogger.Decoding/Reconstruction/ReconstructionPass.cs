@@ -146,7 +146,6 @@ internal sealed partial class ReconstructionPass
 
         Trajectory trajectory = MakeTrajectory(steps, firstMotion.Value, stopS, fused, slipSignal);
         (Estimate? rolloutTime, Estimate? rolloutSpeed) = Rollout(trajectory, firstMotion.Value);
-        CheckFirmwareRollout(rolloutTime, rolloutSpeed);
         AddModeWarnings(trajectory, firstMotion, stopS);
 
         return new ReconstructedRun

@@ -1,5 +1,7 @@
 using LaunchLogger.Decoding;
+using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Reconstruction;
+using LaunchLogger.Decoding.Verdicts;
 using LaunchLogger.Decoding.Runs;
 
 namespace LaunchLogger.Decoding.Tests.Reconstruction;
@@ -368,12 +370,15 @@ public class ReconstructorTests
     [Fact]
     public void AFirmwareRolloutMarkFarFromOursIsReported()
     {
+        // The box's mark is judged once, by the verdict's window (pulse spacing and slip), not by a
+        // second rule in the reconstruction: 0.3526 s is the exact 0.5 g rollout (REFERENCES.md),
+        // 0.45 s is almost 100 ms late.
         Motion motion = HalfGToSixtyAndStop();
-        ReconstructedRun close = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 15, FirmwareRolloutS = StartS + 0.3526 }.Build());
-        ReconstructedRun far = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 15, FirmwareRolloutS = StartS + 0.45 }.Build());
+        Verdict Judge(double firmwareRolloutS) => SessionAnalyzer.Analyze(
+            [new SyntheticRun { Motion = motion, Seed = 15, FirmwareRolloutS = firmwareRolloutS }.Build()]).Runs.Single().Verdict!;
 
-        Assert.DoesNotContain(close.Warnings, w => w.Contains("rollout mark"));
-        Assert.Contains(far.Warnings, w => w.Contains("rollout mark"));
+        Assert.DoesNotContain(Judge(StartS + 0.3526).Reasons, r => r.Code == "rollout_marks_disagree");
+        Assert.Contains(Judge(StartS + 0.45).Reasons, r => r.Code == "rollout_marks_disagree");
     }
 
     [Fact]
