@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Reconstruction;
+using LaunchLogger.Decoding.Tests.Metrics;
 
 namespace LaunchLogger.Decoding.Tests.Braking;
 
@@ -105,57 +106,21 @@ public class BrakingAnalyzerTests
 
     /// <summary>Cruise at <paramref name="v0"/>, brake switch at <paramref name="switchAtS"/>, dead
     /// time, a linear rise of deceleration over <paramref name="rampS"/>, then constant
-    /// deceleration to standstill and 1 s standing. Closed form per phase (kinematics, any
-    /// textbook), sampled every 0.5 ms.</summary>
+    /// deceleration to standstill and 1 s standing (<see cref="ClosedFormTrajectory.Stop"/>).</summary>
     private static Trajectory Stop(double v0, double switchAtS, double deadTimeS, double rampS, double decel, double endEarlyS = 0)
     {
-        const double Step = 0.0005;
-        double t1 = switchAtS + deadTimeS;
-        double t2 = t1 + rampS;
-        double d1 = v0 * t1;
-        double v2 = v0 - (decel * rampS / 2);
-        double d2 = d1 + (v0 * rampS) - (decel * rampS * rampS / 6);
-        double tStop = t2 + (v2 / decel);
-        double dStop = d2 + (v2 * v2 / (2 * decel));
-        if (v2 <= 0)
+        var phases = new List<StopPhase>();
+        if (deadTimeS > 0)
         {
-            // The car stops during the rise: v0 − k·s²/2 = 0.
-            double k = decel / rampS;
-            double s = Math.Sqrt(2 * v0 / k);
-            (tStop, dStop) = (t1 + s, d1 + (v0 * s) - (k * s * s * s / 6));
+            phases.Add(new StopPhase(0, 0, deadTimeS));
         }
 
-        double end = endEarlyS > 0 ? switchAtS + endEarlyS : tStop + 1;
-        int n = (int)(end / Step) + 1;
-        var t = new double[n];
-        var d = new double[n];
-        var v = new double[n];
-        var a = new double[n];
-        for (int i = 0; i < n; i++)
+        if (rampS > 0)
         {
-            double time = i * Step;
-            t[i] = time;
-            if (time < t1)
-            {
-                (d[i], v[i], a[i]) = (v0 * time, v0, 0);
-            }
-            else if (time < t2 && time < tStop)
-            {
-                double s = time - t1;
-                double k = decel / rampS;
-                (d[i], v[i], a[i]) = (d1 + (v0 * s) - (k * s * s * s / 6), v0 - (k * s * s / 2), -k * s);
-            }
-            else if (time < tStop)
-            {
-                double s = time - t2;
-                (d[i], v[i], a[i]) = (d2 + (v2 * s) - (decel * s * s / 2), v2 - (decel * s), -decel);
-            }
-            else
-            {
-                (d[i], v[i], a[i]) = (dStop, 0, 0);
-            }
+            phases.Add(new StopPhase(0, decel / rampS, rampS));
         }
 
-        return new Trajectory { TimeS = t, DistanceM = d, SpeedMps = v, AccelMps2 = a };
+        phases.Add(new StopPhase(decel, 0, 0));
+        return ClosedFormTrajectory.Stop(v0, switchAtS, [.. phases], endEarlyS > 0 ? switchAtS + endEarlyS : null);
     }
 }

@@ -58,7 +58,7 @@ public sealed class CrossCheckerTests
     public void A_record_that_misses_the_run_is_a_clear_error()
     {
         string text = string.Join('\n', Enumerable.Range(0, 50).Select(k =>
-            Nmea.Sentence(string.Create(CultureInfo.InvariantCulture, $"GPRMC,0100{k / 10:00}.{k % 10}0,A,4807.0000,N,01131.0000,E,0.000,0.0,030326,,,A"))));
+            SatelliteReceiver.Sentence(string.Create(CultureInfo.InvariantCulture, $"GPRMC,0100{k / 10:00}.{k % 10}0,A,4807.0000,N,01131.0000,E,0.000,0.0,030326,,,A"))));
         SpeedTrace theirs = NmeaTraceReader.Read(new StringReader(text), "short.nmea");
         var e = Assert.Throws<LaunchLogger.Decoding.Import.InputException>(() => CrossChecker.Compare(Ours.Value, theirs));
         Assert.Contains("does not cover the whole run", e.Message, StringComparison.Ordinal);

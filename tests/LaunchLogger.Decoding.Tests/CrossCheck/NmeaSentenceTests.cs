@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.CrossCheck;
+using LaunchLogger.Simulation.Sensors;
 
 namespace LaunchLogger.Decoding.Tests.CrossCheck;
 
@@ -17,6 +18,9 @@ public sealed class NmeaSentenceTests
         Assert.Equal(talker, sentence!.Talker);
         Assert.Equal(type, sentence.Type);
         Assert.Equal(checksum, NmeaSentence.Checksum(line.AsSpan(1, line.IndexOf('*') - 1)));
+
+        // The simulator's receiver (which the reader's tests use to write sentences) writes the same line.
+        Assert.Equal(line, SatelliteReceiver.Sentence(line[1..line.IndexOf('*')]));
     }
 
     [Fact]

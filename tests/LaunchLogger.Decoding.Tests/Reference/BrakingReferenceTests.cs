@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Reconstruction;
+using LaunchLogger.Decoding.Tests.Metrics;
 
 namespace LaunchLogger.Decoding.Tests.Reference;
 
@@ -54,48 +55,9 @@ public class BrakingReferenceTests
 
     /// <summary>Cruise at <paramref name="v0"/> until <paramref name="brakeAtS"/>, then
     /// <paramref name="firstMps2"/> down to <paramref name="changeAtFraction"/>·v0, then
-    /// <paramref name="secondMps2"/> to standstill and 1 s standing; closed form per phase
-    /// (kinematics, any textbook), sampled every 0.5 ms.</summary>
-    private static Trajectory TwoStageStop(double v0, double brakeAtS, double firstMps2, double secondMps2, double changeAtFraction)
-    {
-        const double Step = 0.0005;
-        double vChange = changeAtFraction * v0;
-        double tChange = brakeAtS + ((v0 - vChange) / firstMps2);
-        double dBrake = v0 * brakeAtS;
-        double dChange = dBrake + (((v0 * v0) - (vChange * vChange)) / (2 * firstMps2));
-        double tStop = tChange + (vChange / secondMps2);
-        double dStop = dChange + (vChange * vChange / (2 * secondMps2));
-        int n = (int)((tStop + 1) / Step) + 1;
-        var t = new double[n];
-        var d = new double[n];
-        var v = new double[n];
-        var a = new double[n];
-        for (int i = 0; i < n; i++)
-        {
-            double time = i * Step;
-            t[i] = time;
-            if (time < brakeAtS)
-            {
-                (d[i], v[i], a[i]) = (v0 * time, v0, 0);
-            }
-            else if (time < tChange)
-            {
-                double s = time - brakeAtS;
-                (d[i], v[i], a[i]) = (dBrake + (v0 * s) - (firstMps2 * s * s / 2), v0 - (firstMps2 * s), -firstMps2);
-            }
-            else if (time < tStop)
-            {
-                double s = time - tChange;
-                (d[i], v[i], a[i]) = (dChange + (vChange * s) - (secondMps2 * s * s / 2), vChange - (secondMps2 * s), -secondMps2);
-            }
-            else
-            {
-                (d[i], v[i], a[i]) = (dStop, 0, 0);
-            }
-        }
-
-        return new Trajectory { TimeS = t, DistanceM = d, SpeedMps = v, AccelMps2 = a };
-    }
+    /// <paramref name="secondMps2"/> to standstill and 1 s standing (<see cref="ClosedFormTrajectory.Stop"/>).</summary>
+    private static Trajectory TwoStageStop(double v0, double brakeAtS, double firstMps2, double secondMps2, double changeAtFraction) =>
+        ClosedFormTrajectory.Stop(v0, brakeAtS, [new StopPhase(firstMps2, 0, (1 - changeAtFraction) * v0 / firstMps2), new StopPhase(secondMps2, 0, 0)]);
 
     [Fact]
     public void MeanDecelerationIsTheConstantDecelerationIdentity()
