@@ -92,4 +92,34 @@ public class GripLimitTests
         RunAnalysis namedStrong = JudgedRun.Clean(braking: JudgedRun.Stop(1.0 * G, mfdd: 0.7 * G, peak: 1.0 * G));
         Assert.Equal(GripLimit.NamedReference, GripLimit.BestBound([slid], [namedStrong])!.Basis);
     }
+
+    [Fact]
+    public void APlateauCountsFromPointEightGAndNotBelow()
+    {
+        // VerdictLimits: a flat top from 0.8 g (our choice, documented beside the limit).
+        RunAnalysis below = JudgedRun.Clean(braking: JudgedRun.Stop(0.78 * G, mfdd: 0.79 * G, peak: 0.8 * G));
+        RunAnalysis above = JudgedRun.Clean(braking: JudgedRun.Stop(0.8 * G, mfdd: 0.81 * G, peak: 0.82 * G));
+        Assert.Null(GripLimit.Assess(below, namedByUser: false));
+        Assert.Equal(GripLimit.DecelerationPlateau, GripLimit.Assess(above, namedByUser: false)!.Basis);
+    }
+
+    [Fact]
+    public void ANamedStopSaysItWasNamedAndANullRunIsACallerError()
+    {
+        RunAnalysis gentle = JudgedRun.Clean(braking: JudgedRun.Stop(0.5 * G, mfdd: 0.5 * G, peak: 0.52 * G));
+        Assert.Contains("named by the user", GripLimit.Assess(gentle, namedByUser: true)!.Text);
+        Assert.Contains("named by the user", GripLimit.BestBound([], [gentle])!.Why);
+        Assert.Throws<ArgumentNullException>(() => GripLimit.Assess(null!, namedByUser: false));
+    }
+
+    [Fact]
+    public void OfTwoStopsWithTheSameGripTheFirstNamedOneServes()
+    {
+        // Equal mean deceleration: the bound is the same either way, and the report names the
+        // stop the user named first rather than changing its mind to a later one.
+        RunAnalysis first = JudgedRun.Clean(braking: JudgedRun.Stop(0.9 * G, mfdd: 0.9 * G, peak: 0.95 * G));
+        RunAnalysis second = first with { Run = JudgedRun.Copy(first.Run, source: "judged.log run 2") };
+        Assert.Equal("judged.log run 1", GripLimit.BestBound([], [first, second])!.Source);
+        Assert.Equal("judged.log run 2", GripLimit.BestBound([], [second, first])!.Source);
+    }
 }

@@ -61,9 +61,9 @@ internal static class JudgedRun
     public static DecodedRun WithHealth(DecodedRun run, string name, long value) => Copy(run, health: new Dictionary<string, long> { [name] = value });
 
     /// <summary>A copy of <paramref name="run"/> with some properties changed (the class has init-only properties).</summary>
-    public static DecodedRun Copy(DecodedRun run, RunConfiguration? configuration = null, IReadOnlyDictionary<string, long>? health = null, bool? complete = null, long? framesLost = null, double? firmwareRolloutS = null, IReadOnlyList<PulseRecord>? pulses = null) => new()
+    public static DecodedRun Copy(DecodedRun run, RunConfiguration? configuration = null, IReadOnlyDictionary<string, long>? health = null, bool? complete = null, long? framesLost = null, double? firmwareRolloutS = null, IReadOnlyList<PulseRecord>? pulses = null, string? source = null) => new()
     {
-        Source = run.Source,
+        Source = source ?? run.Source,
         Configuration = configuration ?? run.Configuration,
         Pulses = pulses ?? run.Pulses,
         SecondPulses = run.SecondPulses,

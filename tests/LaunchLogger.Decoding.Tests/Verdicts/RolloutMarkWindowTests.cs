@@ -1,3 +1,4 @@
+using System.Globalization;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Verdicts;
@@ -58,6 +59,11 @@ public class RolloutMarkWindowTests
             Assert.Equal("rollout_marks_disagree", reason.Code);
             Assert.Equal(VerdictLevel.Doubtful, reason.Level);
             Assert.Contains(mark < window.StartS ? "-1.0 ms" : "+1.0 ms", reason.Text);
+
+            // The window is stated after first motion: from two pulse spacings short of the
+            // rollout to the rollout, by kinematics, each widened by the slack.
+            string after = string.Create(CultureInfo.InvariantCulture, $"{At(Rollout - (2 * JudgedRun.MetresPerPulse)) - Slack(run) - JudgedRun.FirstMotionS:0.000}–{At(Rollout) + Slack(run) - JudgedRun.FirstMotionS:0.000} s (after first motion)");
+            Assert.Contains(after, reason.Text);
         }
 
         foreach (double mark in new[] { window.StartS + 0.001, window.EndS - 0.001 })

@@ -139,6 +139,10 @@ public class RunJudgeTests
         RunAnalysis slow = JudgedRun.Clean(topSpeedMps: 6);
         Assert.Empty(Judge(slow with { Figures = slow.Figures with { MaxSpeedMps = 5.0 } }).Reasons);
         Assert.NotEmpty(Judge(slow).Reasons);
+
+        // Figures asked without 0-60 mph (a metric request, say) have no such target to miss.
+        RunAnalysis metric = JudgedRun.Clean(topSpeedMps: 20);
+        Assert.Empty(Judge(metric with { Figures = metric.Figures with { SpeedIntervals = [.. metric.Figures.SpeedIntervals.Where(i => i.Interval.Label != "0-60 mph")] } }).Reasons);
     }
 
     [Fact]
