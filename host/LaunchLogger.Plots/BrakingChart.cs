@@ -40,18 +40,18 @@ internal static class BrakingChart
         {
             double[] s = sigma[first..last].Select(s => units.Speed(s)).ToArray();
             double[] low = v.Zip(s, (a, b) => a - b).ToArray(), high = v.Zip(s, (a, b) => a + b).ToArray();
-            Panels.Band(speedT, t, low, high, Palette.Speed, "± 1 σ");
-            Panels.Band(speedX, x, low, high, Palette.Speed, "");
+            Panels.Band(speedT, t, low, high, Palette.Speed, "± 1 σ", options.WidthPx);
+            Panels.Band(speedX, x, low, high, Palette.Speed, "", options.WidthPx);
         }
 
-        Panels.Line(speedT, t, v, Palette.Speed, "speed");
-        Panels.Line(speedX, x, v, Palette.Speed, "");
-        Panels.Line(decelT, t, decel, Palette.Accel, "deceleration");
-        Panels.Line(decelX, x, decel, Palette.Accel, "");
+        Panels.Line(speedT, t, v, Palette.Speed, "speed", options.WidthPx);
+        Panels.Line(speedX, x, v, Palette.Speed, "", options.WidthPx);
+        Panels.Line(decelT, t, decel, Palette.Accel, "deceleration", options.WidthPx);
+        Panels.Line(decelX, x, decel, Palette.Accel, "", options.WidthPx);
 
         double stopDistance = units.Distance(stop.StoppingDistanceM.Value);
         double stopTime = stop.StandstillS - onset;
-        foreach ((Plot panel, double end, bool named) in new[] { (speedT, stopTime, true), (speedX, stopDistance, true), (decelT, stopTime, false), (decelX, stopDistance, false) })
+        foreach ((Plot panel, double end, bool named) in new[] { (speedT, stopTime, true), (speedX, stopDistance, false), (decelT, stopTime, false), (decelX, stopDistance, false) })
         {
             Panels.Mark(panel, 0, Palette.BrakeOnset, named ? Marks.BrakeOnset : null, LinePattern.DenselyDashed);
             Panels.Mark(panel, end, Palette.FirstMotion, named ? "standstill" : null, LinePattern.Dashed);
@@ -62,10 +62,7 @@ internal static class BrakingChart
             foreach (Plot panel in new[] { decelT, decelX })
             {
                 var line = panel.Add.HorizontalLine(mfdd, 1.2f, Palette.Rollout, LinePattern.Dashed);
-                line.Text = MfddText;
-                line.LabelFontSize = 11;
-                line.LabelFontColor = Colors.White;
-                line.LabelBackgroundColor = Palette.Rollout;
+                line.LegendText = panel == decelT ? MfddText + " (UN R13-H)" : "";
             }
         }
 
@@ -73,10 +70,11 @@ internal static class BrakingChart
         Panels.Label(speedX, "", $"speed ({units.SpeedUnit()})");
         Panels.Label(decelT, "time from brake onset (s)", "deceleration (m/s²)");
         Panels.Label(decelX, $"distance from brake onset ({units.DistanceUnit()})", "deceleration (m/s²)");
-        Panels.Legend(speedT, Alignment.UpperRight);
+        Panels.Legend(speedT, Alignment.UpperRight, Orientation.Vertical);
+        Panels.Legend(decelT, Alignment.LowerCenter, Orientation.Horizontal);
         speedT.Axes.SetLimitsX(t[0], t[^1]);
         decelT.Axes.SetLimitsX(t[0], t[^1]);
-        Panels.LegendsOnlyOn(figure, speedT);
+        Panels.LegendsOnlyOn(figure, speedT, decelT);
         return new Chart(figure, options);
     }
 

@@ -26,7 +26,7 @@ internal static class CrossCheckChart
 
         double[] tMine = TraceChart.Shifted(mine.TimeS, zero);
         double[] tTheirs = TraceChart.Shifted(theirs.TimeS, zero);
-        Panels.Line(speed, tMine, mine.SpeedMps.Select(s => units.Speed(s)).ToArray(), Palette.Speed, OursText);
+        Panels.Line(speed, tMine, mine.SpeedMps.Select(s => units.Speed(s)).ToArray(), Palette.Speed, OursText, options.WidthPx);
         var other = speed.Add.Scatter(tTheirs, theirs.SpeedMps.Select(s => units.Speed(s)).ToArray(), Palette.Theirs);
         other.LineWidth = 1.4f;
         other.MarkerSize = 4;
@@ -53,7 +53,7 @@ internal static class CrossCheckChart
         if (times.Count > 0)
         {
             double[] t = [.. times];
-            Panels.Band(difference, t, sigmas.Select(s => -s).ToArray(), [.. sigmas], Palette.Difference, "± 2 σ combined");
+            Panels.Band(difference, t, sigmas.Select(s => -s).ToArray(), [.. sigmas], Palette.Difference, "± 2 σ combined", options.WidthPx);
             var line = difference.Add.Scatter(t, [.. diffs], Palette.Theirs);
             line.LineWidth = 1.4f;
             line.MarkerSize = 4;
@@ -69,7 +69,9 @@ internal static class CrossCheckChart
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
         Panels.Label(difference, "time from our first motion (s)", $"difference ({units.SpeedUnit()})");
         Panels.Legend(speed);
+        Panels.Headroom(speed, mine.SpeedMps.Concat(theirs.SpeedMps).Select(x => units.Speed(x)));
         Panels.Legend(difference);
+        Panels.Headroom(difference, diffs.Concat(sigmas).Concat(sigmas.Select(s => -s)).Append(0));
         Panels.SameX(figure, Math.Max(tMine[0], -TraceChart.LeadS), tMine[^1]);
         Panels.LegendsOnlyOn(figure, speed, difference);
         return new Chart(figure, options);

@@ -42,8 +42,8 @@ internal static class OverlayChart
             double[] t = TraceChart.Shifted(path.TimeS, z);
             Color colour = Palette.Runs[i % Palette.Runs.Length];
             string name = names?[i] ?? $"run {i + 1}";
-            Panels.Line(speed, t, TraceChart.Scale(path.SpeedMps, 1 / units.MpsPerSpeedUnit()), colour, name, 1.6f);
-            Panels.Line(distance, t, TraceChart.Scale(path.DistanceM, 1 / units.MetresPerDistanceUnit()), colour, name, 1.6f).LegendText = "";
+            Panels.Line(speed, t, TraceChart.Scale(path.SpeedMps, 1 / units.MpsPerSpeedUnit()), colour, name, options.WidthPx, 1.6f);
+            Panels.Line(distance, t, TraceChart.Scale(path.DistanceM, 1 / units.MetresPerDistanceUnit()), colour, name, options.WidthPx, 1.6f).LegendText = "";
             fromX = Math.Min(fromX, Math.Max(t[0], -TraceChart.LeadS - (alignment == RunAlignment.Rollout ? 0.7 : 0)));
             toX = Math.Max(toX, t[^1]);
             drawn++;
@@ -64,7 +64,8 @@ internal static class OverlayChart
         string axis = alignment == RunAlignment.Standstill ? "time from first motion (s)" : "time from the rollout mark (s)";
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
         Panels.Label(distance, axis, $"distance ({units.DistanceUnit()})");
-        Panels.Legend(speed);
+        Panels.Legend(speed, Alignment.UpperCenter, drawn <= 5 ? Orientation.Horizontal : Orientation.Vertical);
+        Panels.Headroom(speed, runs.SelectMany(r => r.Reconstruction.Trajectory.SpeedMps).Select(x => units.Speed(x)));
         Panels.SameX(figure, fromX, toX);
         Panels.LegendsOnlyOn(figure, speed);
         return new Chart(figure, options);

@@ -55,19 +55,21 @@ internal static class Panels
         panel.YLabel(y);
     }
 
-    /// <summary>A trace as a line.</summary>
-    public static Scatter Line(Plot panel, double[] xs, double[] ys, Color colour, string legend, float width = 2)
+    /// <summary>A trace as a line, thinned to what <paramref name="widthPx"/> pixels can show.</summary>
+    public static Scatter Line(Plot panel, double[] xs, double[] ys, Color colour, string legend, int widthPx, float width = 2)
     {
-        Scatter line = panel.Add.ScatterLine(xs, ys, colour);
+        int[] keep = Thinning.Keep(ys, widthPx);
+        Scatter line = panel.Add.ScatterLine(Thinning.Pick(xs, keep), Thinning.Pick(ys, keep), colour);
         line.LineWidth = width;
         line.LegendText = legend;
         return line;
     }
 
-    /// <summary>A ±σ band around a trace.</summary>
-    public static FillY Band(Plot panel, double[] xs, double[] low, double[] high, Color trace, string legend)
+    /// <summary>A ±σ band around a trace, thinned to what <paramref name="widthPx"/> pixels can show.</summary>
+    public static FillY Band(Plot panel, double[] xs, double[] low, double[] high, Color trace, string legend, int widthPx)
     {
-        FillY band = panel.Add.FillY(xs, low, high);
+        int[] keep = Thinning.Keep(high, widthPx);
+        FillY band = panel.Add.FillY(Thinning.Pick(xs, keep), Thinning.Pick(low, keep), Thinning.Pick(high, keep));
         band.FillColor = Palette.Band(trace);
         band.LineWidth = 0;
         band.LegendText = legend;
@@ -91,10 +93,11 @@ internal static class Panels
         return span;
     }
 
-    /// <summary>Shows the legend inside the panel's upper left corner.</summary>
-    public static void Legend(Plot panel, Alignment where = Alignment.UpperLeft)
+    /// <summary>Shows the legend inside the panel: by default in one row along its top, above
+    /// the traces (see <see cref="Headroom"/>).</summary>
+    public static void Legend(Plot panel, Alignment where = Alignment.UpperCenter, Orientation orientation = Orientation.Horizontal)
     {
-        Legend legend = panel.ShowLegend(where);
+        Legend legend = panel.ShowLegend(where, orientation);
         legend.FontSize = 11;
         legend.BackgroundColor = Palette.Paper.WithAlpha(230);
         legend.OutlineColor = Palette.Grid;
@@ -113,6 +116,28 @@ internal static class Panels
                 panel.HideLegend();
             }
         }
+    }
+
+    /// <summary>Sets a panel's vertical range to its data with room above for a one-row legend.</summary>
+    public static void Headroom(Plot panel, IEnumerable<double> values)
+    {
+        double low = double.MaxValue, high = double.MinValue;
+        foreach (double v in values)
+        {
+            if (double.IsFinite(v))
+            {
+                low = Math.Min(low, v);
+                high = Math.Max(high, v);
+            }
+        }
+
+        if (low > high)
+        {
+            return;
+        }
+
+        double span = Math.Max(high - low, 1e-9);
+        panel.Axes.SetLimitsY(low - (0.05 * span), high + (0.28 * span));
     }
 
     /// <summary>Sets every panel's horizontal range.</summary>

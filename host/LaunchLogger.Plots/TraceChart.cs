@@ -30,18 +30,18 @@ internal static class TraceChart
         if (Meaningful(path.SpeedSigmaMps) is { } vs)
         {
             double[] s = Scale(vs, 1 / units.MpsPerSpeedUnit());
-            Panels.Band(speed, t, Minus(v, s), Plus(v, s), Palette.Speed, "± 1 σ");
+            Panels.Band(speed, t, Minus(v, s), Plus(v, s), Palette.Speed, "± 1 σ", options.WidthPx);
         }
 
         if (Meaningful(path.DistanceSigmaM) is { } ds)
         {
             double[] s = Scale(ds, 1 / units.MetresPerDistanceUnit());
-            Panels.Band(distance, t, Minus(d, s), Plus(d, s), Palette.Distance, "± 1 σ");
+            Panels.Band(distance, t, Minus(d, s), Plus(d, s), Palette.Distance, "± 1 σ", options.WidthPx);
         }
 
-        Panels.Line(speed, t, v, Palette.Speed, "speed");
-        Panels.Line(distance, t, d, Palette.Distance, "distance");
-        Panels.Line(accel, t, a, Palette.Accel, "acceleration");
+        Panels.Line(speed, t, v, Palette.Speed, "speed", options.WidthPx);
+        Panels.Line(distance, t, d, Palette.Distance, "distance", options.WidthPx);
+        Panels.Line(accel, t, a, Palette.Accel, "acceleration", options.WidthPx);
         accel.Add.HorizontalLine(0, 1, Palette.Zero, LinePattern.Dotted);
 
         Marks.Add([speed, distance, accel], run, zero, units);
@@ -49,6 +49,7 @@ internal static class TraceChart
         Panels.Label(distance, "", $"distance ({units.DistanceUnit()})");
         Panels.Label(accel, "time from first motion (s)", "acceleration (m/s²)");
         Panels.Legend(speed);
+        Panels.Headroom(speed, Meaningful(path.SpeedSigmaMps) is { } top ? v.Zip(top, (x, e) => x + (e / units.MpsPerSpeedUnit())).Append(v.Min()) : v);
         Panels.SameX(figure, t[0] < -LeadS ? -LeadS : t[0], t[^1]);
         Panels.LegendsOnlyOn(figure, speed);
         return new Chart(figure, options);
