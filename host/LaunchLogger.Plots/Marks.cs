@@ -25,15 +25,15 @@ internal static class Marks
                 Panels.Zone(panel, 0, r, Palette.RolloutZone, named ? RolloutZone : "");
             }
 
-            Panels.Mark(panel, 0, Palette.FirstMotion, named ? FirstMotion : null, LinePattern.Dashed);
+            Panels.Mark(panel, 0, Palette.FirstMotion, named ? FirstMotion : null);
             if (rollout is { } r2)
             {
-                Panels.Mark(panel, r2, Palette.Rollout, named ? rolloutText : null, LinePattern.Solid);
+                Panels.Mark(panel, r2, Palette.Rollout, named ? rolloutText : null);
             }
 
             if (onset is { } b)
             {
-                Panels.Mark(panel, b, Palette.BrakeOnset, named ? BrakeOnset : null, LinePattern.DenselyDashed);
+                Panels.Mark(panel, b, Palette.BrakeOnset, named ? BrakeOnset : null);
             }
         }
     }

@@ -42,7 +42,7 @@ internal static class TraceChart
         Panels.Line(speed, t, v, Palette.Speed, "speed", options.WidthPx);
         Panels.Line(distance, t, d, Palette.Distance, "distance", options.WidthPx);
         Panels.Line(accel, t, a, Palette.Accel, "acceleration", options.WidthPx);
-        accel.Add.HorizontalLine(0, 1, Palette.Zero, LinePattern.Dotted);
+        accel.Add.HorizontalLine(0, 1, Palette.Zero);
 
         Marks.Add([speed, distance, accel], run, zero, units);
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
