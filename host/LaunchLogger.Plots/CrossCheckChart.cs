@@ -72,7 +72,7 @@ internal static class CrossCheckChart
         Panels.Headroom(speed, mine.SpeedMps.Concat(theirs.SpeedMps).Select(x => units.Speed(x)));
         Panels.Legend(difference);
         Panels.Headroom(difference, diffs.Concat(sigmas).Concat(sigmas.Select(s => -s)).Append(0));
-        Panels.SameX(figure, Math.Max(tMine[0], -TraceChart.LeadS), tMine[^1]);
+        Panels.SameX(figure, TraceChart.StartX(tMine), tMine[^1]);
         Panels.LegendsOnlyOn(figure, speed, difference);
         return new Chart(figure, options);
     }

@@ -50,10 +50,14 @@ internal static class TraceChart
         Panels.Label(accel, "time from first motion (s)", "acceleration (m/s²)");
         Panels.Legend(speed);
         Panels.Headroom(speed, Meaningful(path.SpeedSigmaMps) is { } top ? v.Zip(top, (x, e) => x + (e / units.MpsPerSpeedUnit())).Append(v.Min()) : v);
-        Panels.SameX(figure, t[0] < -LeadS ? -LeadS : t[0], t[^1]);
+        Panels.SameX(figure, StartX(t), t[^1]);
         Panels.LegendsOnlyOn(figure, speed);
         return new Chart(figure, options);
     }
+
+    /// <summary>Where the time axis starts: at most <see cref="LeadS"/> before first motion, and
+    /// far enough before it (1.5 % of the span) that the first-motion mark stands off the axis.</summary>
+    public static double StartX(double[] t) => Math.Min(Math.Max(t[0], -LeadS), -0.015 * (t[^1] - Math.Max(t[0], -LeadS)));
 
     /// <summary>Times less a zero.</summary>
     public static double[] Shifted(double[] times, double zero) => Array.ConvertAll(times, x => x - zero);
