@@ -84,6 +84,11 @@ public sealed class PlotCommandTests
         Assert.Contains("time from brake onset (s)", stopTexts);
         string[] traceTexts = XDocument.Load(folder.File("trace.svg")).Descendants(Svg + "text").Select(t => t.Value.Trim()).ToArray();
         Assert.Contains("rollout 1 ft", traceTexts);
+
+        Assert.Equal(ExitCode.Ok, PlotCommand.Run(new PlotRequest { Logs = [new FileInfo(log)], Out = folder.File("launch.svg"), Kind = "launch" }, new StringWriter(), new StringWriter()));
+        string[] launchTexts = XDocument.Load(folder.File("launch.svg")).Descendants(Svg + "text").Select(t => t.Value.Trim()).ToArray();
+        Assert.Contains("Run 1: the launch", launchTexts);
+        Assert.DoesNotContain("brake onset", launchTexts);
     }
 
     [Theory]

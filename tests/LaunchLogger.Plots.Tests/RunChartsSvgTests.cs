@@ -72,6 +72,23 @@ public sealed partial class RunChartsSvgTests
     }
 
     [Fact]
+    public void The_launch_close_up_ends_before_the_stop_and_keeps_the_start_marks()
+    {
+        RunAnalysis run = SimulatedRuns.Launch;
+        var svg = new SvgDocument(RunCharts.Launch(run).ToSvg());
+        Assert.Contains("rollout 1 ft", svg.Texts);
+        Assert.Contains("first motion", svg.Texts);
+        Assert.DoesNotContain("brake onset", svg.Texts);
+
+        // The top time tick is within the close-up: at most a few seconds after first motion.
+        double[] times = svg.Texts.Select(t => double.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) ? v : double.NaN).Where(double.IsFinite).ToArray();
+        double rollout = run.Reconstruction.RolloutTimeS!.Value.Value - run.Reconstruction.FirstMotionS.Value;
+        Assert.Contains(times, x => x > rollout);
+        double xOnset = run.Braking!.OnsetS.Value - run.Reconstruction.FirstMotionS.Value;
+        Assert.True(xOnset > 5, "the scenario brakes well after its launch");
+    }
+
+    [Fact]
     public void No_band_is_drawn_when_the_trajectory_has_no_sigma()
     {
         IReadOnlyList<string> texts = new SvgDocument(RunCharts.TraceSvg(SimulatedRuns.WithoutSigma(SimulatedRuns.Launch))).Texts;

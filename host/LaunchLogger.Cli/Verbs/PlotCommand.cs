@@ -6,12 +6,12 @@ using LaunchLogger.Plots;
 
 namespace LaunchLogger.Cli.Verbs;
 
-/// <summary><c>launchlogger plot</c>: pictures of runs as SVG or PNG — each run's trace, several
-/// runs overlaid on either convention's zero, or each run's stop.</summary>
+/// <summary><c>launchlogger plot</c>: pictures of runs as SVG or PNG — each run's trace (whole,
+/// or close up on the launch), several runs overlaid on either convention's zero, or each run's stop.</summary>
 public static class PlotCommand
 {
     /// <summary>The kinds of picture, as typed.</summary>
-    public static readonly string[] Kinds = ["trace", "overlay", "braking"];
+    public static readonly string[] Kinds = ["trace", "launch", "overlay", "braking"];
 
     /// <summary>The overlay's zeros, as typed.</summary>
     public static readonly string[] Alignments = ["standstill", "rollout"];
@@ -20,8 +20,8 @@ public static class PlotCommand
     public static Command Create()
     {
         var logs = new Argument<FileInfo[]>("log") { Description = "Log files written by the box.", Arity = ArgumentArity.OneOrMore };
-        var output = new Option<FileInfo>("--out") { Description = "The picture to write; .svg or .png picks the format. With several runs (trace, braking) each gets its own file: NAME-run1.svg, NAME-run2.svg…", Required = true };
-        var kind = new Option<string>("--kind") { Description = "trace: speed, distance and acceleration of each run; overlay: every run on one chart; braking: each run's stop against time and distance.", DefaultValueFactory = _ => "trace" };
+        var output = new Option<FileInfo>("--out") { Description = "The picture to write; .svg or .png picks the format. With several runs (trace, launch, braking) each gets its own file: NAME-run1.svg, NAME-run2.svg…", Required = true };
+        var kind = new Option<string>("--kind") { Description = "trace: speed, distance and acceleration of each run; launch: the same, close up on the start and the rollout mark; overlay: every run on one chart; braking: each run's stop against time and distance.", DefaultValueFactory = _ => "trace" };
         kind.AcceptOnlyFromAmong(Kinds);
         var align = new Option<string>("--align") { Description = "For an overlay: zero of time at each run's first motion (standstill) or at its rollout mark (rollout).", DefaultValueFactory = _ => "standstill" };
         align.AcceptOnlyFromAmong(Alignments);
@@ -142,6 +142,9 @@ public static class PlotCommand
                 var stops = numbers.Where(n => session.Runs[n - 1].Braking != null).ToList();
                 skipped.AddRange(numbers.Except(stops).Select(n => $"run {n} does not end in a stop, so it has no braking picture"));
                 charts.AddRange(stops.Select(n => (PlotFiles.ForRun(request.Out, n, numbers.Count), (Func<Chart>)(() => RunCharts.Braking(session.Runs[n - 1], chart with { Title = $"Run {n}: stop from {Format.Speed(session.Runs[n - 1].Braking!.FromMps, request.Units)}" })))));
+                break;
+            case "launch":
+                charts.AddRange(numbers.Select(n => (PlotFiles.ForRun(request.Out, n, numbers.Count), (Func<Chart>)(() => RunCharts.Launch(session.Runs[n - 1], chart with { Title = $"Run {n}: the launch" })))));
                 break;
             default:
                 charts.AddRange(numbers.Select(n => (PlotFiles.ForRun(request.Out, n, numbers.Count), (Func<Chart>)(() => RunCharts.Trace(session.Runs[n - 1], chart with { Title = $"Run {n}: speed, distance and acceleration" })))));

@@ -9,7 +9,7 @@ public sealed record PlotRequest
     /// <summary>The picture to write (.svg or .png); several runs get NAME-runN files.</summary>
     public required string Out { get; init; }
 
-    /// <summary>trace, overlay or braking.</summary>
+    /// <summary>trace, launch, overlay or braking.</summary>
     public string Kind { get; init; } = "trace";
 
     /// <summary>For an overlay: standstill or rollout.</summary>
