@@ -30,6 +30,8 @@ public static class LaunchLoggerCommand
         ClassCommand.Create(),
         RunCommand.Create(),
         ReanalyseCommand.Create(),
+        CardCommand.Create(),
+        ResultsCommand.Create(),
     };
 
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>

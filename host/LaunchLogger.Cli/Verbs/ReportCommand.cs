@@ -66,6 +66,38 @@ public static class ReportCommand
     /// <summary>Runs the verb.</summary>
     public static ExitCode Run(ReportRequest request, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
+        Analysed? analysed = Analyse(request, "report", error, out ExitCode failed, cancel);
+        if (analysed is null)
+        {
+            return failed;
+        }
+
+        if (request.Json)
+        {
+            output.WriteLine(ReportJson.Serialize(analysed.Document));
+        }
+        else
+        {
+            ReportTableWriter.Write(analysed.Document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
+        }
+
+        return analysed.Code;
+    }
+
+    /// <summary>What <see cref="Analyse"/> made of a request.</summary>
+    /// <param name="Session">Every run analysed.</param>
+    /// <param name="Document">The report document (what --json writes).</param>
+    /// <param name="Code">The exit code the report gives: 0 only when every run asked for was
+    /// reported and judged valid; a doubtful or invalid run, or an input that yielded no run,
+    /// makes the result partial.</param>
+    public sealed record Analysed(SessionAnalysis Session, ReportDocument Document, ExitCode Code);
+
+    /// <summary>Reads, analyses and reports what <paramref name="request"/> names, as the report
+    /// verb does (other verbs that show the report's figures use this, so their numbers are the
+    /// report's); problems go to <paramref name="error"/> prefixed by <paramref name="verb"/>.</summary>
+    /// <returns>Null when nothing could be reported; then <paramref name="failed"/> says why.</returns>
+    public static Analysed? Analyse(ReportRequest request, string verb, TextWriter error, out ExitCode failed, CancellationToken cancel = default)
+    {
         AnalysisOptions options;
         Weather? weather;
         try
@@ -81,14 +113,16 @@ public static class ReportCommand
         }
         catch (FormatException e)
         {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.Usage;
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.Usage;
+            return null;
         }
 
         if (request.RolloutM is { } r && !(r > 0 && r < 10))
         {
-            error.WriteLine("launchlogger report: --rollout-m must be more than 0 and less than 10 m");
-            return ExitCode.Usage;
+            error.WriteLine($"launchlogger {verb}: --rollout-m must be more than 0 and less than 10 m");
+            failed = ExitCode.Usage;
+            return null;
         }
 
         List<RunInputs.Input> inputs;
@@ -108,13 +142,15 @@ public static class ReportCommand
         }
         catch (InputException e)
         {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.BadInput;
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.BadInput;
+            return null;
         }
         catch (UsageException e)
         {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.Usage;
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.Usage;
+            return null;
         }
 
         ReaderReport? reader = null;
@@ -124,7 +160,7 @@ public static class ReportCommand
             reader = ReaderReport.Sum(reader, input.Reader);
             foreach (string warning in input.Warnings ?? [])
             {
-                error.WriteLine($"launchlogger report: {input.Source}: {warning}");
+                error.WriteLine($"launchlogger {verb}: {input.Source}: {warning}");
             }
 
             if (input.Runs.Count == 0)
@@ -137,12 +173,13 @@ public static class ReportCommand
         failures.AddRange(session.Failures);
         foreach (string failure in failures)
         {
-            error.WriteLine($"launchlogger report: {failure}");
+            error.WriteLine($"launchlogger {verb}: {failure}");
         }
 
         if (session.Runs.Count == 0)
         {
-            return ExitCode.BadInput;
+            failed = ExitCode.BadInput;
+            return null;
         }
 
         List<(int A, int B)> pairs;
@@ -152,24 +189,17 @@ public static class ReportCommand
         }
         catch (UsageException e)
         {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.Usage;
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.Usage;
+            return null;
         }
 
         ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, string.Join(", ", inputs.Select(i => i.Source)), reader, weather, pairs);
-        if (request.Json)
-        {
-            output.WriteLine(ReportJson.Serialize(document));
-        }
-        else
-        {
-            ReportTableWriter.Write(document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
-        }
-
         // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
         // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
         bool allValid = session.Runs.All(r => r.Verdict is null || r.Verdict.Level == VerdictLevel.Valid);
-        return failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial;
+        failed = ExitCode.Ok;
+        return new Analysed(session, document, failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial);
     }
 
     private static (int A, int B) ParsePair(string text, int runs)
