@@ -32,6 +32,7 @@ public static class LaunchLoggerCommand
         ReanalyseCommand.Create(),
         CardCommand.Create(),
         ResultsCommand.Create(),
+        ServeCommand.Create(),
     };
 
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>

@@ -30,6 +30,7 @@ public static class HtmlPage
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
             .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
             .Append("<meta name=\"generator\" content=\"launchlogger\">\n")
+            .Append("<link rel=\"icon\" href=\"data:,\">\n")
             .Append("<title>").Append(Encode(title)).Append("</title>\n")
             .Append("<style>\n").Append(Stylesheet).Append("</style>\n</head>\n<body>\n")
             .Append(body)
