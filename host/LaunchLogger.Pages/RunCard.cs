@@ -40,7 +40,8 @@ public static class RunCard
         RunReport run = card.Run;
         DisplayUnits units = card.Units;
         string level = run.Verdict?.Level ?? "unjudged";
-        html.Append("<article class=\"card\" data-run=\"").Append(run.Run.ToString(CultureInfo.InvariantCulture)).Append('"');
+        html.Append("<article class=\"card\" data-run=\"").Append(run.Run.ToString(CultureInfo.InvariantCulture))
+            .Append("\" data-index=\"").Append(run.Index.ToString(CultureInfo.InvariantCulture)).Append('"');
         if (card.Filed is { } idFacts)
         {
             html.Append(" data-archive-run=\"").Append(idFacts.RunId.ToString(CultureInfo.InvariantCulture)).Append('"');
