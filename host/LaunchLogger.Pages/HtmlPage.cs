@@ -49,9 +49,9 @@ public static class HtmlPage
     public static string Number(double value, string format) => value.ToString(format, CultureInfo.InvariantCulture);
 
     /// <summary>The stylesheet. Screen: a sheet of cards on a grey desk. Print: black on white,
-    /// 12 mm margins, one card per page; every block is at most 186 mm wide and a card is laid
-    /// out to fit 255 mm of height, so it fits both A4 (210 × 297 mm) and US Letter
-    /// (215.9 × 279.4 mm) without scaling.</summary>
+    /// 12 mm margins, each card from a new page, tables and plots never split; every block is
+    /// at most 186 mm wide, which fits both A4 (210 mm wide) and US Letter (215.9 mm) less the
+    /// margins without scaling; the paper is the one chosen in the print dialogue.</summary>
     public const string Stylesheet =
         """
         :root { --ink: #1d232b; --muted: #5c6773; --rule: #c9d1da; --paper: #ffffff; --desk: #eef1f4;
@@ -92,7 +92,7 @@ public static class HtmlPage
         @media print {
           body { background: #fff; padding: 0; font-size: 10.5pt; }
           .sheet, .card { border: none; border-radius: 0; padding: 0; margin: 0; max-width: 186mm; }
-          .card { break-before: page; break-inside: avoid; max-height: 255mm; overflow: hidden; }
+          .card { break-before: page; break-inside: avoid; }
           table, .facts, figure.plot { break-inside: avoid; }
           figure.plot svg { max-height: 70mm; }
           a { color: inherit; text-decoration: none; }

@@ -1,19 +1,9 @@
 using System.Globalization;
 using LaunchLogger.Decoding.Metrics;
 
-// Shared by the command line's tables and the HTML pages (this project), so both show a figure
-// the same way; the namespace stays the command line's, where these were first used.
+// Compiled into LaunchLogger.Pages (linked from there), which the command line references: the
+// tables and the HTML pages show every figure alike. The namespace stays the command line's.
 namespace LaunchLogger.Cli.Output;
-
-/// <summary>The unit system a person reads: imperial (mph, ft) or metric (km/h, m).</summary>
-public enum DisplayUnits
-{
-    /// <summary>mph and feet.</summary>
-    Imperial,
-
-    /// <summary>km/h and metres.</summary>
-    Metric,
-}
 
 /// <summary>Formats SI values for people.</summary>
 public static class Format
@@ -23,14 +13,12 @@ public static class Format
     /// <summary>A speed with its unit, e.g. "61.2 mph".</summary>
     public static string Speed(double? mps, DisplayUnits units) => mps is not { } v
         ? "—"
-        : units == DisplayUnits.Imperial
-            ? (v / Units.MpsPerMph).ToString("0.0", Invariant) + " mph"
-            : (v / Units.MpsPerKmh).ToString("0.0", Invariant) + " km/h";
+        : units.Speed(v).ToString("0.0", Invariant) + " " + units.SpeedUnit();
 
     /// <summary>A speed's uncertainty in the same unit, e.g. "± 0.1".</summary>
     public static string SpeedSigma(double? mps, DisplayUnits units) => mps is not { } v
         ? ""
-        : "± " + (v / (units == DisplayUnits.Imperial ? Units.MpsPerMph : Units.MpsPerKmh)).ToString("0.0#", Invariant);
+        : "± " + units.Speed(v).ToString("0.0#", Invariant);
 
     /// <summary>A distance with its unit, e.g. "402.34 m" or "1320 ft": metres always to the
     /// centimetre, so every metric distance in a report reads with the same precision.</summary>

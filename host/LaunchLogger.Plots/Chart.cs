@@ -1,0 +1,96 @@
+using System.Globalization;
+using System.IO.Hashing;
+using System.Text;
+using System.Text.RegularExpressions;
+using ScottPlot;
+using SkiaSharp;
+
+namespace LaunchLogger.Plots;
+
+/// <summary>A drawn chart: one or more panels stacked or in a grid, ready to write as SVG or PNG.</summary>
+public sealed partial class Chart
+{
+    private readonly Multiplot figure;
+
+    internal Chart(Multiplot figure, ChartOptions options)
+    {
+        this.figure = figure;
+        Options = options;
+    }
+
+    /// <summary>The options it was drawn with.</summary>
+    public ChartOptions Options { get; }
+
+    /// <summary>The chart as a self-contained SVG document: an XML declaration, then one
+    /// &lt;svg&gt; element sized <see cref="ChartOptions.WidthPx"/> × <see cref="ChartOptions.HeightPx"/>
+    /// with a matching viewBox. Text is &lt;text font-family="DejaVu Sans"&gt;; nothing outside
+    /// the document is referenced.</summary>
+    public string ToSvg() => "<?xml version=\"1.0\" encoding=\"utf-8\" ?>\n" + ToInlineSvg();
+
+    /// <summary>The chart's &lt;svg&gt; element alone, to put inside an HTML page. Its internal
+    /// ids (clip paths) carry a prefix taken from the drawing itself, so two different charts
+    /// on one page never share an id.</summary>
+    public string ToInlineSvg()
+    {
+        int w = Options.WidthPx, h = Options.HeightPx;
+        PixelRect[] rects = Layout(w, h);
+        using var stream = new MemoryStream();
+        using (SKCanvas canvas = SKSvgCanvas.Create(new SKRect(0, 0, w, h), stream))
+        {
+            Draw(canvas, rects);
+        }
+
+        string svg = Encoding.UTF8.GetString(stream.ToArray());
+        svg = svg[svg.IndexOf("<svg", StringComparison.Ordinal)..].TrimEnd();
+        string prefix = "ll" + Convert.ToHexStringLower(XxHash32.Hash(Encoding.UTF8.GetBytes(svg)));
+        svg = ClipId().Replace(svg, m => m.Groups[1].Value + prefix + "_" + m.Groups[2].Value);
+        string size = string.Create(CultureInfo.InvariantCulture, $"width=\"{w}\" height=\"{h}\"");
+        return svg.Replace("<svg ", "<svg viewBox=\"0 0 " + w.ToString(CultureInfo.InvariantCulture) + " " + h.ToString(CultureInfo.InvariantCulture) + "\" ", StringComparison.Ordinal)
+            .Replace(size + ">", size + " role=\"img\">", StringComparison.Ordinal);
+    }
+
+    /// <summary>The chart as PNG bytes, <see cref="ChartOptions.WidthPx"/> ×
+    /// <see cref="ChartOptions.HeightPx"/> pixels.</summary>
+    public byte[] ToPng()
+    {
+        int w = Options.WidthPx, h = Options.HeightPx;
+        PixelRect[] rects = Layout(w, h);
+        using SKSurface surface = SKSurface.Create(new SKImageInfo(w, h, SKColorType.Rgba8888, SKAlphaType.Premul));
+        surface.Canvas.Clear(Palette.Paper.ToSKColor());
+        Draw(surface.Canvas, rects);
+        using SKImage image = surface.Snapshot();
+        using SKData png = image.Encode(SKEncodedImageFormat.Png, 100);
+        return png.ToArray();
+    }
+
+    /// <summary>Writes the chart to a stream in the given format.</summary>
+    public void Write(Stream stream, ChartFormat format)
+    {
+        byte[] bytes = format == ChartFormat.Svg ? Encoding.UTF8.GetBytes(ToSvg()) : ToPng();
+        stream.Write(bytes);
+    }
+
+    /// <summary>Each panel's rectangle, after laying the panels out once on a scratch raster (as
+    /// ScottPlot does before its own SVG output: axis limits and ticks settle on a first render).</summary>
+    private PixelRect[] Layout(int w, int h)
+    {
+        var whole = new PixelRect(0, w, h, 0);
+        PixelRect[] rects = figure.Layout.GetSubplotRectangles(figure.Subplots, whole);
+        using SKSurface scratch = SKSurface.Create(new SKImageInfo(w, h));
+        Draw(scratch.Canvas, rects);
+        return rects;
+    }
+
+    private void Draw(SKCanvas canvas, PixelRect[] rects)
+    {
+        Plot[] panels = figure.GetPlots();
+        for (int i = 0; i < panels.Length; i++)
+        {
+            panels[i].RenderManager.ClearCanvasBeforeEachRender = false;
+            panels[i].Render(canvas, rects[i]);
+        }
+    }
+
+    [GeneratedRegex("(id=\"|url\\(#)(cl_[0-9]+)")]
+    private static partial Regex ClipId();
+}
