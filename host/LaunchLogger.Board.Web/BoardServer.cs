@@ -327,13 +327,14 @@ public sealed class BoardServer : IAsyncDisposable
                 var fresh = new DOMParser().parseFromString(text, 'text/html').getElementById('board');
                 var old = document.getElementById('board');
                 if (fresh && old) { old.replaceWith(fresh); }
+                document.documentElement.setAttribute('data-redrawn', String(Number(document.documentElement.getAttribute('data-redrawn') || '0') + 1));
                 status.textContent = 'Live: board redrawn at ' + new Date().toLocaleTimeString() + '.';
               })
               .catch(function () { status.textContent = 'Live: could not redraw the board; retrying on the next change.'; })
               .then(function () { busy = false; if (again) { again = false; redraw(); } });
           }
           source.addEventListener('archive', redraw);
-          source.onopen = function () { status.textContent = 'Live: the board redraws itself as runs are filed.'; };
+          source.onopen = function () { document.documentElement.setAttribute('data-live', 'open'); status.textContent = 'Live: the board redraws itself as runs are filed.'; };
           source.onerror = function () { status.textContent = 'Live: connection to the server lost; reconnecting…'; };
         })();
         """;
