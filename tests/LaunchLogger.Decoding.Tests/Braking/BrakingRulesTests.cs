@@ -1,0 +1,116 @@
+using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Reconstruction;
+using LaunchLogger.Decoding.Tests.Metrics;
+
+namespace LaunchLogger.Decoding.Tests.Braking;
+
+/// <summary>The stop finder's rules one at a time, on closed-form stops
+/// (<see cref="ClosedFormTrajectory.Stop"/>; kinematics, any textbook).</summary>
+public class BrakingRulesTests
+{
+    private const double V100 = 100 / 3.6; // 100 km/h in m/s
+
+    [Fact]
+    public void StandstillIsWhereTheSpeedFallsBelowFiveCentimetresASecond()
+    {
+        // From 100 km/h at 8 m/s² from 1 s: v = V − 8·(t − 1) reaches 0.05 m/s at 1 + (V − 0.05)/8;
+        // the speed is linear there, so interpolating between 0.5-ms samples is exact.
+        BrakingResult r = BrakingAnalyzer.Analyze(ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]), [1.0])!;
+        Assert.Equal(1 + ((V100 - 0.05) / 8), r.StandstillS, 6);
+    }
+
+    [Fact]
+    public void PeakDecelerationIsTheHardestPartOfTheStop()
+    {
+        Trajectory twoStage = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(6, 0, 0.5 * V100 / 6), new StopPhase(9, 0, 0)]);
+        Assert.Equal(9, BrakingAnalyzer.Analyze(twoStage, [1.0])!.PeakDecelMps2, 9);
+    }
+
+    [Fact]
+    public void TheLastSwitchClosingBeforeStandstillIsTheOnsetAndItsSigmaCarriesThePedalFreePlay()
+    {
+        // A dab at 0.4 s, the real application at 1.0 s, and the switch again after the car stood.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
+        double standstill = 1 + (V100 / 8);
+        BrakingResult r = BrakingAnalyzer.Analyze(stop, [0.4, 1.0, standstill + 0.5])!;
+        Assert.Equal(1.0, r.OnsetS.Value);
+        Assert.Equal(Math.Sqrt((0.001 * 0.001) + (BrakingAnalyzer.SwitchDelaySigmaS * BrakingAnalyzer.SwitchDelaySigmaS)), r.OnsetS.Sigma, 12);
+
+        // Without a σ on the trajectory the distance's σ is the onset's times the speed there.
+        Assert.Equal(V100 * r.OnsetS.Sigma, r.StoppingDistanceM.Sigma, 9);
+
+        // A closing only after standstill is no onset: the deceleration gives it instead.
+        Assert.Equal("deceleration onset", BrakingAnalyzer.Analyze(stop, [standstill + 0.5])!.OnsetMethod);
+    }
+
+    [Fact]
+    public void TheTrajectorysDistanceSigmaAddsAtBothEnds()
+    {
+        // σ_d = 0.1 m at onset and at standstill, with the onset's own σ times the speed:
+        // root-sum-square of the three.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
+        var withSigma = new Trajectory { TimeS = stop.TimeS, DistanceM = stop.DistanceM, SpeedMps = stop.SpeedMps, AccelMps2 = stop.AccelMps2, DistanceSigmaM = [.. stop.TimeS.Select(_ => 0.1)] };
+        BrakingResult r = BrakingAnalyzer.Analyze(withSigma, [1.0])!;
+        Assert.Equal(Math.Sqrt((0.1 * 0.1) + (0.1 * 0.1) + Math.Pow(V100 * r.OnsetS.Sigma, 2)), r.StoppingDistanceM.Sigma, 9);
+    }
+
+    [Theory]
+    [InlineData(4.5, false)]
+    [InlineData(5.5, true)]
+    public void OnlyAStopFromAtLeastFiveMetresASecondCounts(double fromMps, bool counts)
+    {
+        Trajectory stop = ClosedFormTrajectory.Stop(fromMps, 1.0, [new StopPhase(4, 0, 0)]);
+        Assert.Equal(counts, BrakingAnalyzer.Analyze(stop, [1.0]) is not null);
+    }
+
+    [Fact]
+    public void TooShortOrAlwaysStandingTrajectoriesHaveNoStopAndNullIsACallerError()
+    {
+        Assert.Throws<ArgumentNullException>(() => BrakingAnalyzer.Analyze(null!));
+        var two = new Trajectory { TimeS = [0, 1], DistanceM = [0, 0], SpeedMps = [0, 0], AccelMps2 = [0, 0] };
+        Assert.Null(BrakingAnalyzer.Analyze(two));
+        var standing = new Trajectory { TimeS = [0, 1, 2, 3], DistanceM = [0, 0, 0, 0], SpeedMps = [0, 0.01, 0, 0], AccelMps2 = [0, 0, 0, 0] };
+        Assert.Null(BrakingAnalyzer.Analyze(standing));
+    }
+
+    [Fact]
+    public void TheBoundsAreTheTargetSpeedOverTheMeanDeceleration()
+    {
+        // t = v / a (kinematics) for 60 mph (26.8224 m/s, exact) and 100 km/h.
+        BrakingResult r = BrakingAnalyzer.Analyze(ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]), [1.0])!;
+        Assert.Equal(8, r.MeanDecelMps2, 2);
+        Assert.Equal(26.8224 / r.MeanDecelMps2, r.TractionBound0To60S, 9);
+        Assert.Equal(V100 / r.MeanDecelMps2, r.TractionBound0To100KmhS, 9);
+    }
+
+    [Fact]
+    public void ExtraNominalSpeedsAreCorrectedWithinTenPerCentAndLabelledInBothUnits()
+    {
+        // From 100 km/h: 80 km/h is 25 % off (not corrected); 105 km/h is 4.8 % off (corrected by
+        // (v_nom/v_act)², common practice).
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
+        BrakingResult r = BrakingAnalyzer.Analyze(stop, [1.0], nominalSpeedsMps: [80 / 3.6, 105 / 3.6])!;
+        Assert.Equal(["60-0 mph", "100-0 km/h", "49.7-0 mph (80-0 km/h)", "65.2-0 mph (105-0 km/h)"], r.CorrectedStops.Select(c => c.Label));
+        CorrectedStop eighty = r.CorrectedStops[2];
+        Assert.Null(eighty.CorrectedDistanceM);
+        Assert.Contains("is more than 10 % from 22.2 m/s", eighty.Method);
+        CorrectedStop oneFive = r.CorrectedStops[3];
+        Assert.Equal(r.StoppingDistanceM.Value * Math.Pow(105 / 100.0, 2), oneFive.CorrectedDistanceM!.Value, 6);
+        Assert.Equal(105 / 3.6, oneFive.NominalMps, 12);
+
+        // 60 mph is 96.56 km/h, 3.4 % below 100 km/h: corrected too.
+        Assert.NotNull(r.CorrectedStops[0].CorrectedDistanceM);
+    }
+
+    [Fact]
+    public void TheAccelerometersOwnSamplesTimeTheOnsetWhenGiven()
+    {
+        // The trajectory's acceleration rises at 1.3 s; the accelerometer's own samples (the
+        // same shape 0.1 s later, as a smoother would have spread it early) rise at 1.4 s.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(0, 0, 0.3), new StopPhase(0, 8 / 0.2, 0.2), new StopPhase(8, 0, 0)]);
+        double[] rawT = [.. stop.TimeS.Select(t => t + 0.1)];
+        BrakingResult fromRaw = BrakingAnalyzer.Analyze(stop, rawAccel: (rawT, stop.AccelMps2))!;
+        Assert.Equal(1.4, fromRaw.OnsetS.Value, 3);
+        Assert.Equal(1.3, BrakingAnalyzer.Analyze(stop)!.OnsetS.Value, 3);
+    }
+}
