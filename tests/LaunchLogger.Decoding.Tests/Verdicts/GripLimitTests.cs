@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Verdicts;
@@ -121,5 +122,23 @@ public class GripLimitTests
         RunAnalysis second = first with { Run = JudgedRun.Copy(first.Run, source: "judged.log run 2") };
         Assert.Equal("judged.log run 1", GripLimit.BestBound([], [first, second])!.Source);
         Assert.Equal("judged.log run 2", GripLimit.BestBound([], [second, first])!.Source);
+    }
+
+    [Fact]
+    public void LimitsGivenAreTheLimitsUsedAndNullRunsAreCallerErrors()
+    {
+        // With a plateau threshold of 0.5 g the gentle 0.5 g stop qualifies; by default it does not.
+        RunAnalysis gentle = JudgedRun.Clean(braking: JudgedRun.Stop(0.5 * G, mfdd: 0.5 * G, peak: 0.52 * G));
+        var lenient = new VerdictLimits { GripPlateauMps2 = 0.5 * G };
+        Assert.Equal(GripLimit.DecelerationPlateau, GripLimit.Assess(gentle, namedByUser: false, lenient)!.Basis);
+        Assert.Throws<ArgumentNullException>(() => GripLimit.BestBound(null!));
+        Assert.Throws<ArgumentNullException>(() => RolloutMarkWindow.For(null!));
+
+        // A wider allowed disagreement widens the rollout window by as much on each side.
+        RunAnalysis run = JudgedRun.Clean();
+        TimeWindow standard = RolloutMarkWindow.For(run)!.Value;
+        TimeWindow wide = RolloutMarkWindow.For(run, new VerdictLimits { RolloutDisagreementS = 0.030 })!.Value;
+        Assert.Equal(standard.StartS - 0.020, wide.StartS, 9);
+        Assert.Equal(standard.EndS + 0.020, wide.EndS, 9);
     }
 }

@@ -142,7 +142,9 @@ public class RunJudgeTests
 
         // Figures asked without 0-60 mph (a metric request, say) have no such target to miss.
         RunAnalysis metric = JudgedRun.Clean(topSpeedMps: 20);
-        Assert.Empty(Judge(metric with { Figures = metric.Figures with { SpeedIntervals = [.. metric.Figures.SpeedIntervals.Where(i => i.Interval.Label != "0-60 mph")] } }).Reasons);
+        RunAnalysis noSixty = metric with { Figures = metric.Figures with { SpeedIntervals = [.. metric.Figures.SpeedIntervals.Where(i => i.Interval.Label != "0-60 mph")] } };
+        Assert.Empty(Judge(noSixty).Reasons);
+        Assert.Empty(RunJudge.Judge(noSixty, grade: null, bound: Bound(2.0)).Reasons); // nothing for the bound to judge
     }
 
     [Fact]
