@@ -81,6 +81,7 @@ public class CorrectionRulesTests
         int before = FigureCalculator.FirstIndexAtOrAfter(t.TimeS, 0.5);
         int after = FigureCalculator.FirstIndexAtOrAfter(t.TimeS, 2.0);
         Assert.Equal(0, level.AccelMps2[before]);
+        Assert.Equal(4 + extra, level.AccelMps2[FigureCalculator.FirstIndexAtOrAfter(t.TimeS, 1.0)], 12); // moving from first motion on
         Assert.Equal(0, level.SpeedMps[before]);
         Assert.Equal(4 + extra, level.AccelMps2[after], 12);
         Assert.Equal((4 + extra) * 1.0, level.SpeedMps[after], 9);
@@ -131,6 +132,11 @@ public class CorrectionRulesTests
         Assert.Equal(99, w.DryPressureKPa, 12);
         Assert.Equal(1.0, w.CorrectionFactor, 12);
         Assert.Equal("weather temperature 61 is outside -40 to 60", Assert.Throws<FormatException>(() => Weather.Parse("61,1013,50")).Message);
+        Assert.Equal("weather pressure 499 is outside 500 to 1100", Assert.Throws<FormatException>(() => Weather.Parse("20,499,50")).Message);
+
+        // Humid air: the dry pressure is the total less the vapour's, e = RH·e_s; at 25 °C
+        // e_s = 3.1690 kPa (Buck 1981 table, as in AtmosphereReferenceTests), so 50 % gives 1.5845 kPa.
+        Assert.InRange(new Weather(25, 1013, 50).DryPressureKPa - (101.3 - 1.5845), -0.002, 0.002);
     }
 
     private static FigureSet Figures(double interval, double intervalSigma, double mark, double markSigma, double speed, double trapSigma, double peak, double top, double distance, double? meanAccel) => new()
