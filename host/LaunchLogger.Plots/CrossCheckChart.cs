@@ -63,11 +63,11 @@ internal static class CrossCheckChart
         difference.Add.HorizontalLine(0, 1, Palette.Zero);
         foreach (Plot panel in new[] { speed, difference })
         {
-            Panels.Mark(panel, 0, Palette.FirstMotion, panel == speed ? Marks.FirstMotion : null);
+            Panels.Mark(panel, 0, Palette.FirstMotion, panel == speed ? (ours.Reconstruction.Staged ? Marks.FirstMotion : Marks.RecordStart) : null);
         }
 
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
-        Panels.Label(difference, "time from our first motion (s)", $"difference ({units.SpeedUnit()})");
+        Panels.Label(difference, Marks.TimeAxis(ours, "our "), $"difference ({units.SpeedUnit()})");
         Panels.Legend(speed);
         Panels.Headroom(speed, mine.SpeedMps.Concat(theirs.SpeedMps).Select(x => units.Speed(x)));
         Panels.Legend(difference);

@@ -33,7 +33,7 @@ internal static class OverlayChart
         {
             ReconstructedRun recon = runs[i].Reconstruction;
             double? zero = alignment == RunAlignment.Standstill ? recon.FirstMotionS.Value : recon.RolloutTimeS?.Value;
-            if (zero is not { } z)
+            if (zero is not { } z || !recon.Staged)
             {
                 continue;
             }
@@ -51,7 +51,9 @@ internal static class OverlayChart
 
         if (drawn == 0)
         {
-            throw new ArgumentException("no run reached the rollout mark, so none can be aligned on it", nameof(runs));
+            throw new ArgumentException(alignment == RunAlignment.Rollout
+                ? "no run started from a standstill and reached the rollout mark, so none can be aligned on it"
+                : "no run started from a standstill, so none can be aligned on its first motion", nameof(runs));
         }
 
         foreach (Plot panel in new[] { speed, distance })

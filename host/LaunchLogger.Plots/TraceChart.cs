@@ -75,7 +75,7 @@ internal static class TraceChart
 
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
         Panels.Label(distance, "", $"distance ({units.DistanceUnit()})");
-        Panels.Label(accel, "time from first motion (s)", "acceleration (m/s²)");
+        Panels.Label(accel, Marks.TimeAxis(run), "acceleration (m/s²)");
         Panels.Legend(speed);
         Panels.Headroom(speed, speedSigma is { } top ? v.Zip(top, (x, e) => x + (e / units.MpsPerSpeedUnit())).Append(v.Min()) : v);
         Panels.SameX(figure, StartX(t), t[^1]);
