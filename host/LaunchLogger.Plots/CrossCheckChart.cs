@@ -20,7 +20,7 @@ internal static class CrossCheckChart
         Trajectory theirs = result.TheirTrajectory;
         double zero = ours.Reconstruction.FirstMotionS.Value;
 
-        Multiplot figure = Panels.Figure(2);
+        Multiplot figure = Panels.Figure(options, 2);
         Plot speed = figure.GetPlot(0), difference = figure.GetPlot(1);
         Panels.Title(speed, options.Title ?? $"Cross-check against {Path.GetFileName(result.Source)} ({result.SampleRateHz:0.#} Hz)");
 
