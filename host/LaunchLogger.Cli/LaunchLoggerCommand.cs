@@ -31,6 +31,9 @@ public static class LaunchLoggerCommand
         ClassCommand.Create(),
         RunCommand.Create(),
         ReanalyseCommand.Create(),
+        CardCommand.Create(),
+        ResultsCommand.Create(),
+        ServeCommand.Create(),
     };
 
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>

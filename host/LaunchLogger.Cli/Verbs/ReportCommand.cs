@@ -69,121 +69,33 @@ public static class ReportCommand
     /// <summary>Runs the verb.</summary>
     public static ExitCode Run(ReportRequest request, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
-        AnalysisOptions options;
-        Weather? weather;
-        try
-        {
-            weather = request.Weather is { } w ? Weather.Parse(w) : null;
-            options = new AnalysisOptions
-            {
-                Figures = FigureRequest.Standard.With(request.Intervals.Select(SpeedInterval.Parse)),
-                RolloutM = request.RolloutM,
-                Weather = weather,
-                StopFromMps = request.StopFrom.Select(SpeedInterval.ParseSpeedMps).ToList(),
-            };
-        }
-        catch (FormatException e)
-        {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.Usage;
-        }
-
         if (request.Plot is { } plotPath && ChartFormats.FromPath(plotPath) is null)
         {
             error.WriteLine($"launchlogger report: --plot '{plotPath}' must end in .svg or .png (the extension picks the format)");
             return ExitCode.Usage;
         }
 
-        if (request.RolloutM is { } r && !(r > 0 && r < 10))
+        Analysed? analysed = Analyse(request, "report", error, out ExitCode failed, cancel);
+        if (analysed is null)
         {
-            error.WriteLine("launchlogger report: --rollout-m must be more than 0 and less than 10 m");
-            return ExitCode.Usage;
+            return failed;
         }
 
-        List<RunInputs.Input> inputs;
-        List<DecodedRun> referenceRuns = [];
-        try
-        {
-            inputs = RunInputs.Load(request, cancel);
-            options = options with { Calibration = RunInputs.LoadSettings(request) };
-            if (request.BrakeReference is { } reference)
-            {
-                referenceRuns = [.. LogReader.ReadFile(reference.FullName, cancel).Runs];
-                if (referenceRuns.Count == 0)
-                {
-                    throw new InputException(reference.FullName, 0, "the braking reference holds no run");
-                }
-            }
-        }
-        catch (InputException e)
-        {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.BadInput;
-        }
-        catch (UsageException e)
-        {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.Usage;
-        }
-
-        ReaderReport? reader = null;
-        var failures = new List<string>();
-        foreach (RunInputs.Input input in inputs)
-        {
-            reader = ReaderReport.Sum(reader, input.Reader);
-            foreach (string warning in input.Warnings ?? [])
-            {
-                error.WriteLine($"launchlogger report: {input.Source}: {warning}");
-            }
-
-            if (input.Runs.Count == 0)
-            {
-                failures.Add($"{input.Source}: no runs in the input");
-            }
-        }
-
-        SessionAnalysis session = SessionAnalyzer.Analyze(inputs.SelectMany(i => i.Runs), options, referenceRuns, cancel);
-        failures.AddRange(session.Failures);
-        foreach (string failure in failures)
-        {
-            error.WriteLine($"launchlogger report: {failure}");
-        }
-
-        if (session.Runs.Count == 0)
-        {
-            return ExitCode.BadInput;
-        }
-
-        List<(int A, int B)> pairs;
-        try
-        {
-            pairs = request.Pairs.Select(p => ParsePair(p, session.Runs.Count)).ToList();
-        }
-        catch (UsageException e)
-        {
-            error.WriteLine($"launchlogger report: {e.Message}");
-            return ExitCode.Usage;
-        }
-
-        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, string.Join(", ", inputs.Select(i => i.Source)), reader, weather, pairs);
         if (request.Json)
         {
-            output.WriteLine(ReportJson.Serialize(document));
+            output.WriteLine(ReportJson.Serialize(analysed.Document));
         }
         else
         {
-            ReportTableWriter.Write(document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
+            ReportTableWriter.Write(analysed.Document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
         }
 
-        if (request.Plot is { } plotFile && !WritePlots(session, plotFile, request.Units, error, cancel))
+        if (request.Plot is { } plotFile && !WritePlots(analysed.Session, plotFile, request.Units, error, cancel))
         {
             return ExitCode.BadInput;
         }
 
-        // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
-        // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
-        bool allValid = session.Runs.All(r => r.Verdict is null || r.Verdict.Level == VerdictLevel.Valid);
-        return failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial;
+        return analysed.Code;
     }
 
     /// <summary>Writes each run's trace (one file, or NAME-runN for several); false, with the
@@ -210,6 +122,124 @@ public static class ReportCommand
         }
 
         return true;
+    }
+
+    /// <summary>What <see cref="Analyse"/> made of a request.</summary>
+    /// <param name="Session">Every run analysed.</param>
+    /// <param name="Document">The report document (what --json writes).</param>
+    /// <param name="Code">The exit code the report gives: 0 only when every run asked for was
+    /// reported and judged valid; a doubtful or invalid run, or an input that yielded no run,
+    /// makes the result partial.</param>
+    public sealed record Analysed(SessionAnalysis Session, ReportDocument Document, ExitCode Code);
+
+    /// <summary>Reads, analyses and reports what <paramref name="request"/> names, as the report
+    /// verb does (other verbs that show the report's figures use this, so their numbers are the
+    /// report's); problems go to <paramref name="error"/> prefixed by <paramref name="verb"/>.</summary>
+    /// <returns>Null when nothing could be reported; then <paramref name="failed"/> says why.</returns>
+    public static Analysed? Analyse(ReportRequest request, string verb, TextWriter error, out ExitCode failed, CancellationToken cancel = default)
+    {
+        AnalysisOptions options;
+        Weather? weather;
+        try
+        {
+            weather = request.Weather is { } w ? Weather.Parse(w) : null;
+            options = new AnalysisOptions
+            {
+                Figures = FigureRequest.Standard.With(request.Intervals.Select(SpeedInterval.Parse)),
+                RolloutM = request.RolloutM,
+                Weather = weather,
+                StopFromMps = request.StopFrom.Select(SpeedInterval.ParseSpeedMps).ToList(),
+            };
+        }
+        catch (FormatException e)
+        {
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.Usage;
+            return null;
+        }
+
+        if (request.RolloutM is { } r && !(r > 0 && r < 10))
+        {
+            error.WriteLine($"launchlogger {verb}: --rollout-m must be more than 0 and less than 10 m");
+            failed = ExitCode.Usage;
+            return null;
+        }
+
+        List<RunInputs.Input> inputs;
+        List<DecodedRun> referenceRuns = [];
+        try
+        {
+            inputs = RunInputs.Load(request, cancel);
+            options = options with { Calibration = RunInputs.LoadSettings(request) };
+            if (request.BrakeReference is { } reference)
+            {
+                referenceRuns = [.. LogReader.ReadFile(reference.FullName, cancel).Runs];
+                if (referenceRuns.Count == 0)
+                {
+                    throw new InputException(reference.FullName, 0, "the braking reference holds no run");
+                }
+            }
+        }
+        catch (InputException e)
+        {
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.BadInput;
+            return null;
+        }
+        catch (UsageException e)
+        {
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.Usage;
+            return null;
+        }
+
+        ReaderReport? reader = null;
+        var failures = new List<string>();
+        foreach (RunInputs.Input input in inputs)
+        {
+            reader = ReaderReport.Sum(reader, input.Reader);
+            foreach (string warning in input.Warnings ?? [])
+            {
+                error.WriteLine($"launchlogger {verb}: {input.Source}: {warning}");
+            }
+
+            if (input.Runs.Count == 0)
+            {
+                failures.Add($"{input.Source}: no runs in the input");
+            }
+        }
+
+        SessionAnalysis session = SessionAnalyzer.Analyze(inputs.SelectMany(i => i.Runs), options, referenceRuns, cancel);
+        failures.AddRange(session.Failures);
+        foreach (string failure in failures)
+        {
+            error.WriteLine($"launchlogger {verb}: {failure}");
+        }
+
+        if (session.Runs.Count == 0)
+        {
+            failed = ExitCode.BadInput;
+            return null;
+        }
+
+        List<(int A, int B)> pairs;
+        try
+        {
+            pairs = request.Pairs.Select(p => ParsePair(p, session.Runs.Count)).ToList();
+        }
+        catch (UsageException e)
+        {
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            failed = ExitCode.Usage;
+            return null;
+        }
+
+        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, string.Join(", ", inputs.Select(i => i.Source)), reader, weather, pairs);
+        // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
+        // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
+        bool allValid = session.Runs.All(r => r.Verdict is null || r.Verdict.Level == VerdictLevel.Valid);
+        failed = ExitCode.Ok;
+        return new Analysed(session, document, failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial);
     }
 
     private static (int A, int B) ParsePair(string text, int runs)
