@@ -20,6 +20,7 @@ public static class LaunchLoggerCommand
         SimulateCommand.Create(),
         CalibrateCommand.Create(),
         CrossCheckCommand.Create(),
+        PlotCommand.Create(),
         CaptureCommand.Create(),
         ImportCommand.Create(),
         BoardCommand.Create(),

@@ -53,15 +53,15 @@ internal static class BrakingChart
         double stopTime = stop.StandstillS - onset;
         foreach ((Plot panel, double end, bool named) in new[] { (speedT, stopTime, true), (speedX, stopDistance, false), (decelT, stopTime, false), (decelX, stopDistance, false) })
         {
-            Panels.Mark(panel, 0, Palette.BrakeOnset, named ? Marks.BrakeOnset : null, LinePattern.DenselyDashed);
-            Panels.Mark(panel, end, Palette.FirstMotion, named ? "standstill" : null, LinePattern.Dashed);
+            Panels.Mark(panel, 0, Palette.BrakeOnset, named ? Marks.BrakeOnset : null);
+            Panels.Mark(panel, end, Palette.FirstMotion, named ? "standstill" : null);
         }
 
         if (stop.MfddMps2 is { } mfdd)
         {
             foreach (Plot panel in new[] { decelT, decelX })
             {
-                var line = panel.Add.HorizontalLine(mfdd, 1.2f, Palette.Rollout, LinePattern.Dashed);
+                var line = panel.Add.HorizontalLine(mfdd, 1.2f, Palette.Rollout);
                 line.LegendText = panel == decelT ? MfddText + " (UN R13-H)" : "";
             }
         }

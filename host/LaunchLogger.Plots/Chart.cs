@@ -42,8 +42,28 @@ public sealed partial class Chart
 
         string svg = Encoding.UTF8.GetString(stream.ToArray());
         svg = svg[svg.IndexOf("<svg", StringComparison.Ordinal)..].TrimEnd();
+
+        // Skia numbers clip paths from a process-wide counter: renumber them in document order,
+        // so one chart always gives the same text, then prefix them with a hash of the drawing
+        // so that two different charts on one page never share an id.
+        var numbers = new Dictionary<string, int>(StringComparer.Ordinal);
+        svg = ClipId().Replace(svg, m =>
+        {
+            if (!numbers.TryGetValue(m.Groups[2].Value, out int n))
+            {
+                n = numbers.Count + 1;
+                numbers[m.Groups[2].Value] = n;
+            }
+
+            return m.Groups[1].Value + "clip" + n.ToString(CultureInfo.InvariantCulture);
+        });
         string prefix = "ll" + Convert.ToHexStringLower(XxHash32.Hash(Encoding.UTF8.GetBytes(svg)));
-        svg = ClipId().Replace(svg, m => m.Groups[1].Value + prefix + "_" + m.Groups[2].Value);
+        svg = OurClipId().Replace(svg, m => m.Groups[1].Value + prefix + "_" + m.Groups[2].Value);
+
+        // Skia writes glyph positions as "0, 9.2, " (a trailing comma browsers report as an
+        // error) and indents text content; keep plain number lists and the text alone.
+        svg = PositionList().Replace(svg, m => " " + m.Groups[1].Value + "=\"" + string.Join(' ', m.Groups[2].Value.Split([',', ' '], StringSplitOptions.RemoveEmptyEntries)) + "\"");
+        svg = TextContent().Replace(svg, m => ">" + m.Groups[1].Value + "</text>");
         string size = string.Create(CultureInfo.InvariantCulture, $"width=\"{w}\" height=\"{h}\"");
         return svg.Replace("<svg ", "<svg viewBox=\"0 0 " + w.ToString(CultureInfo.InvariantCulture) + " " + h.ToString(CultureInfo.InvariantCulture) + "\" ", StringComparison.Ordinal)
             .Replace(size + ">", size + " role=\"img\">", StringComparison.Ordinal);
@@ -91,6 +111,15 @@ public sealed partial class Chart
         }
     }
 
-    [GeneratedRegex("(id=\"|url\\(#)(cl_[0-9]+)")]
+    [GeneratedRegex("(id=\"|url\\(#)(cl_[0-9a-fA-F]+)")]
     private static partial Regex ClipId();
+
+    [GeneratedRegex("(id=\"|url\\(#)(clip[0-9]+)")]
+    private static partial Regex OurClipId();
+
+    [GeneratedRegex(" (x|y)=\"([-0-9., ]*)\"")]
+    private static partial Regex PositionList();
+
+    [GeneratedRegex(">\\s+([^<]*?)\\s+</text>")]
+    private static partial Regex TextContent();
 }

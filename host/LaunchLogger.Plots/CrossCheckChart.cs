@@ -26,11 +26,11 @@ internal static class CrossCheckChart
 
         double[] tMine = TraceChart.Shifted(mine.TimeS, zero);
         double[] tTheirs = TraceChart.Shifted(theirs.TimeS, zero);
-        Panels.Line(speed, tMine, mine.SpeedMps.Select(s => units.Speed(s)).ToArray(), Palette.Speed, OursText, options.WidthPx);
         var other = speed.Add.Scatter(tTheirs, theirs.SpeedMps.Select(s => units.Speed(s)).ToArray(), Palette.Theirs);
         other.LineWidth = 1.4f;
         other.MarkerSize = 4;
         other.LegendText = TheirsText;
+        Panels.Line(speed, tMine, mine.SpeedMps.Select(s => units.Speed(s)).ToArray(), Palette.Speed, OursText, options.WidthPx);
 
         // The difference where both records have the car: at their samples inside our run.
         var times = new List<double>();
@@ -60,10 +60,10 @@ internal static class CrossCheckChart
             line.LegendText = DifferenceText;
         }
 
-        difference.Add.HorizontalLine(0, 1, Palette.Zero, LinePattern.Dotted);
+        difference.Add.HorizontalLine(0, 1, Palette.Zero);
         foreach (Plot panel in new[] { speed, difference })
         {
-            Panels.Mark(panel, 0, Palette.FirstMotion, panel == speed ? Marks.FirstMotion : null, LinePattern.Dashed);
+            Panels.Mark(panel, 0, Palette.FirstMotion, panel == speed ? Marks.FirstMotion : null);
         }
 
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
@@ -72,7 +72,7 @@ internal static class CrossCheckChart
         Panels.Headroom(speed, mine.SpeedMps.Concat(theirs.SpeedMps).Select(x => units.Speed(x)));
         Panels.Legend(difference);
         Panels.Headroom(difference, diffs.Concat(sigmas).Concat(sigmas.Select(s => -s)).Append(0));
-        Panels.SameX(figure, Math.Max(tMine[0], -TraceChart.LeadS), tMine[^1]);
+        Panels.SameX(figure, TraceChart.StartX(tMine), tMine[^1]);
         Panels.LegendsOnlyOn(figure, speed, difference);
         return new Chart(figure, options);
     }

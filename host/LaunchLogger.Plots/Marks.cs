@@ -11,10 +11,16 @@ internal static class Marks
     /// <summary>Names used on the marks (tests look for them in the SVG).</summary>
     public const string FirstMotion = "first motion", Rollout = "rollout", BrakeOnset = "brake onset", RolloutZone = "rollout zone";
 
-    public static void Add(IReadOnlyList<Plot> panels, RunAnalysis run, double zeroS, DisplayUnits units)
+    /// <summary>Draws the marks that fall before <paramref name="untilX"/> (time from the zero, s).</summary>
+    public static void Add(IReadOnlyList<Plot> panels, RunAnalysis run, double zeroS, DisplayUnits units, double untilX)
     {
         double? rollout = run.Reconstruction.RolloutTimeS?.Value - zeroS;
         double? onset = run.Braking?.OnsetS.Value - zeroS;
+        if (onset > untilX)
+        {
+            onset = null;
+        }
+
         string rolloutText = $"{Rollout} {TraceChart.DistanceText(run.Reconstruction.RolloutM, units)}";
         for (int i = 0; i < panels.Count; i++)
         {
@@ -25,15 +31,15 @@ internal static class Marks
                 Panels.Zone(panel, 0, r, Palette.RolloutZone, named ? RolloutZone : "");
             }
 
-            Panels.Mark(panel, 0, Palette.FirstMotion, named ? FirstMotion : null, LinePattern.Dashed);
+            Panels.Mark(panel, 0, Palette.FirstMotion, named ? FirstMotion : null);
             if (rollout is { } r2)
             {
-                Panels.Mark(panel, r2, Palette.Rollout, named ? rolloutText : null, LinePattern.Solid);
+                Panels.Mark(panel, r2, Palette.Rollout, named ? rolloutText : null);
             }
 
             if (onset is { } b)
             {
-                Panels.Mark(panel, b, Palette.BrakeOnset, named ? BrakeOnset : null, LinePattern.DenselyDashed);
+                Panels.Mark(panel, b, Palette.BrakeOnset, named ? BrakeOnset : null);
             }
         }
     }

@@ -57,8 +57,7 @@ internal static class OverlayChart
         foreach (Plot panel in new[] { speed, distance })
         {
             Panels.Mark(panel, 0, alignment == RunAlignment.Standstill ? Palette.FirstMotion : Palette.Rollout,
-                panel == speed ? (alignment == RunAlignment.Standstill ? Marks.FirstMotion : Marks.Rollout) : null,
-                LinePattern.Dashed);
+                panel == speed ? (alignment == RunAlignment.Standstill ? Marks.FirstMotion : Marks.Rollout) : null);
         }
 
         string axis = alignment == RunAlignment.Standstill ? "time from first motion (s)" : "time from the rollout mark (s)";

@@ -76,10 +76,11 @@ internal static class Panels
         return band;
     }
 
-    /// <summary>A vertical mark at an instant, named in the legend when a name is given.</summary>
-    public static VerticalLine Mark(Plot panel, double x, Color colour, string? name, LinePattern pattern)
+    /// <summary>A vertical mark at an instant, named in the legend when a name is given. Solid:
+    /// SkiaSharp's SVG canvas cannot draw dashes, and SVG and PNG must show the same.</summary>
+    public static VerticalLine Mark(Plot panel, double x, Color colour, string? name)
     {
-        VerticalLine line = panel.Add.VerticalLine(x, 1.5f, colour, pattern);
+        VerticalLine line = panel.Add.VerticalLine(x, 1.5f, colour);
         line.LegendText = name ?? "";
         return line;
     }

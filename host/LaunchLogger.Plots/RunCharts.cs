@@ -23,6 +23,13 @@ public static class RunCharts
     public static string TraceSvg(RunAnalysis run, ChartOptions? options = null) =>
         Trace(run, options).ToSvg();
 
+    /// <summary>The start of one run, close up: as <see cref="Trace"/> from just before first
+    /// motion to a little past the rollout mark (at least 2 s, and 4 times the mark's time), with
+    /// the rollout distance drawn across the distance panel.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">The options' size is out of range.</exception>
+    public static Chart Launch(RunAnalysis run, ChartOptions? options = null) =>
+        TraceChart.DrawLaunch(run, Checked(options));
+
     /// <summary>Several runs' speed and distance on one time axis whose zero is each run's first
     /// motion or its rollout mark.</summary>
     /// <exception cref="ArgumentException">No run, or (aligned on the rollout) no run reached the mark.</exception>

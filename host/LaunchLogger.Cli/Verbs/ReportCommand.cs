@@ -7,6 +7,7 @@ using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reporting;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Decoding.Verdicts;
+using LaunchLogger.Plots;
 
 namespace LaunchLogger.Cli.Verbs;
 
@@ -33,9 +34,10 @@ public static class ReportCommand
         var brakeReference = new Option<FileInfo?>("--brake-reference") { Description = "A log with a stop made at the grip limit, whose braking grip bounds every launch (without it, only stops among the runs reported that show the limit bound them: a sliding wheel or a deceleration plateau)." };
         var stopFrom = new Option<string[]>("--stop-from") { Description = "Extra nominal speed to correct stopping distances to, e.g. 50mph (repeatable; 60 mph and 100 km/h always)." };
         var settings = new Option<FileInfo?>("--settings") { Description = "Calibration settings file from launchlogger calibrate: its circumference replaces the logs' and its mounting pitch feeds the grade estimate." };
+        var plot = new Option<FileInfo?>("--plot") { Description = "Also draw each run's speed, distance and acceleration to this file (.svg or .png); with several runs, NAME-run1.svg, NAME-run2.svg…" };
         var command = new Command("report", "Rebuild each run and report its figures from standstill and after the rollout.")
         {
-            logs, edges, counts, accel, metresPerPulse, pulsesPerRev, circumference, json, units, interval, rollout, weather, pair, brakeReference, stopFrom, settings,
+            logs, edges, counts, accel, metresPerPulse, pulsesPerRev, circumference, json, units, interval, rollout, weather, pair, brakeReference, stopFrom, settings, plot,
         };
         command.SetAction((parse, cancel) => Task.FromResult((int)Run(
             new ReportRequest
@@ -56,6 +58,7 @@ public static class ReportCommand
                 BrakeReference = parse.GetValue(brakeReference),
                 StopFrom = parse.GetValue(stopFrom) ?? [],
                 Settings = parse.GetValue(settings),
+                Plot = parse.GetValue(plot)?.FullName,
             },
             parse.InvocationConfiguration.Output,
             parse.InvocationConfiguration.Error,
@@ -66,6 +69,12 @@ public static class ReportCommand
     /// <summary>Runs the verb.</summary>
     public static ExitCode Run(ReportRequest request, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
+        if (request.Plot is { } plotPath && ChartFormats.FromPath(plotPath) is null)
+        {
+            error.WriteLine($"launchlogger report: --plot '{plotPath}' must end in .svg or .png (the extension picks the format)");
+            return ExitCode.Usage;
+        }
+
         Analysed? analysed = Analyse(request, "report", error, out ExitCode failed, cancel);
         if (analysed is null)
         {
@@ -81,7 +90,38 @@ public static class ReportCommand
             ReportTableWriter.Write(analysed.Document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
         }
 
+        if (request.Plot is { } plotFile && !WritePlots(analysed.Session, plotFile, request.Units, error, cancel))
+        {
+            return ExitCode.BadInput;
+        }
+
         return analysed.Code;
+    }
+
+    /// <summary>Writes each run's trace (one file, or NAME-runN for several); false, with the
+    /// reason on <paramref name="error"/>, when they could not be written (then none is).</summary>
+    private static bool WritePlots(SessionAnalysis session, string path, DisplayUnits units, TextWriter error, CancellationToken cancel)
+    {
+        int count = session.Runs.Count;
+        var charts = session.Runs.Select((run, i) => (
+            PlotFiles.ForRun(path, i + 1, count),
+            (Func<Chart>)(() => RunCharts.Trace(run, new ChartOptions { Units = units, Title = $"Run {i + 1}: speed, distance and acceleration" })))).ToList();
+        try
+        {
+            PlotFiles.Write(charts, cancel);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            error.WriteLine($"launchlogger report: cannot write the plot: {e.Message}");
+            return false;
+        }
+
+        foreach ((string file, _) in charts)
+        {
+            error.WriteLine($"launchlogger report: wrote {file}");
+        }
+
+        return true;
     }
 
     /// <summary>What <see cref="Analyse"/> made of a request.</summary>
