@@ -67,6 +67,12 @@ internal sealed partial class ReconstructionPass
             }
         }
 
+        else if (!Staged && accelOpeningSpeed is { } v0)
+        {
+            speed = v0.Value;
+            speedSigma = v0.Sigma;
+        }
+
         int stopIndex = int.MaxValue;
         if (stopS is { } s)
         {

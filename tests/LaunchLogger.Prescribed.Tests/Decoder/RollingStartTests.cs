@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Reporting;
 using LaunchLogger.Prescribed.Shapes;
@@ -24,6 +25,35 @@ public class RollingStartTests
         RunReport report = RunReportBuilder.Build(a);
         Assert.Null(report.FirstMotionS);
         Assert.Null(report.FirstMotionUncertaintyS);
+    }
+
+    [Theory]
+    [InlineData(40, 1)]
+    [InlineData(60, 2)]
+    public void An_accelerometer_only_record_that_opens_moving_and_ends_at_rest_is_a_rolling_start(double mph, int seed)
+    {
+        // The rest at the end fixes the speed at the start: minus the acceleration integrated
+        // back to it. Slower or longer records stay within the accelerometer's wander (a 20 mph
+        // start 25 s before the stop is not told from rest) and keep the accelerometer_only doubt.
+        PrescribedRecord r = (Records.Standing(seed) with { Shape = PrescribedShapes.RollingStart(mph * TruthUnits.MpsPerMph, new Random(seed)) }).Generate();
+        RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeAccelerometerOnly(r).Runs);
+
+        Assert.False(a.Reconstruction.Staged);
+        Assert.Equal(["rolling_start", "accelerometer_only"], a.Verdict!.Reasons.Select(x => x.Code));
+        Assert.Null(RunReportBuilder.Build(a).FirstMotionS);
+        Estimate opening = a.Reconstruction.StartSpeedMps!.Value;
+        Assert.InRange(opening.Value - (mph * TruthUnits.MpsPerMph), -3 * opening.Sigma, 3 * opening.Sigma);
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    public void An_accelerometer_only_standing_start_stays_staged(int seed)
+    {
+        PrescribedRecord r = Records.Standing(seed).Generate();
+        RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeAccelerometerOnly(r).Runs);
+        Assert.True(a.Reconstruction.Staged);
+        Assert.DoesNotContain(a.Verdict!.Reasons, x => x.Code == "rolling_start");
     }
 
     [Theory]
