@@ -65,6 +65,12 @@ internal sealed partial class ReconstructionPass
                 speed = j > 0 ? (pulses.Counts[j] - pulses.Counts[0]) * mpp / Math.Max(pulses.MidS(j) - pulses.MidS(0), 1e-3) : 0;
                 speedSigma = Math.Max(0.3 * speed, 0.5);
             }
+
+            // The first count was reached somewhere in its bracket, not at the bracket's middle
+            // where distances start: at speed that is v·w/√12 of distance (uniform), which a tight
+            // phase would force into a false speed transient at the start.
+            double firstBracketM = speed * (pulses.HiS[0] - pulses.LoS[0]) / Math.Sqrt(12);
+            phaseSigma = Math.Sqrt((phaseSigma * phaseSigma) + (firstBracketM * firstBracketM));
         }
 
         else if (!Staged && accelOpeningSpeed is { } v0)
