@@ -167,11 +167,15 @@ internal sealed partial class ReconstructionPass
             double scale = pulses is null ? options.AccelScaleSigma : options.PulseScaleSigma;
             double slipDistance = 0;
             double slipSpeed = 0;
-            if (slipSignal != null && fused.SlipKept)
+            if (slipSignal != null)
             {
-                slipDistance = options.SlipModelError * Math.Abs(fused.Slip.Value) * slipSignal[k];
+                // A kept slip is wrong by the part the linear law misses; a slip held at zero
+                // by as much as the data leave room for (its estimate and σ), since a driven
+                // wheel whose slip hides in the accelerometer's bias still counts too far.
+                double unexplained = fused.SlipKept ? options.SlipModelError * Math.Abs(fused.Slip.Value) : Math.Abs(fused.Slip.Value) + fused.Slip.Sigma;
+                slipDistance = unexplained * slipSignal[k];
                 double rate = k + 1 < n ? (slipSignal[k + 1] - slipSignal[k]) / (grid[k + 1] - grid[k]) : 0;
-                slipSpeed = options.SlipModelError * Math.Abs(fused.Slip.Value) * rate;
+                slipSpeed = unexplained * rate;
             }
 
             double dSys = (scale * d) + slipDistance;
