@@ -14,7 +14,8 @@ public static class SessionAnalyzer
         options ??= AnalysisOptions.Default;
         var analyses = new List<RunAnalysis>();
         var failures = new List<string>();
-        foreach (DecodedRun run in runs)
+        // A record holding several runs (stop, rest, relaunch) is judged run by run.
+        foreach (DecodedRun run in runs.SelectMany(RecordSplitter.Split))
         {
             cancel.ThrowIfCancellationRequested();
             try

@@ -137,7 +137,7 @@ internal sealed class FusionResult
     public required Estimate PhaseM { get; init; }
 
     /// <summary>Smoothed slip coefficient, s²/m (before any conditioning on k = 0).</summary>
-    public Estimate Slip { get; init; }
+    public Estimate Slip { get; set; }
 
     /// <summary>True when the slip coefficient was kept; false when it was too small to tell
     /// from no slip and the result was conditioned on k = 0.</summary>
@@ -182,7 +182,14 @@ internal static class FusionSmoother
 
         FusionResult without = RunOnce(s, slipAllowed: false);
         double needed = s.SlipEvidence + (s.SlipEvidencePerPulse * withSlip.PulsesUsed);
-        return 2 * (withSlip.LogLikelihood - without.LogLikelihood) >= needed ? withSlip : without;
+        // Without the slip kept, its estimate still says how much slip the data leave room for.
+        if (2 * (withSlip.LogLikelihood - without.LogLikelihood) >= needed)
+        {
+            return withSlip;
+        }
+
+        without.Slip = withSlip.Slip;
+        return without;
     }
 
     private static FusionResult RunOnce(FusionSettings s, bool slipAllowed)

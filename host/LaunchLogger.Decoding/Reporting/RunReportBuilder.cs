@@ -162,8 +162,9 @@ public static class RunReportBuilder
             Run = runNumber,
             Method = method,
             Staged = staged,
-            FirstMotionS = figures.FirstMotionS.Value,
-            FirstMotionUncertaintyS = figures.FirstMotionS.Sigma,
+            // A run that opened moving left no standstill: its start is where the data begins, not a first motion.
+            FirstMotionS = staged ? figures.FirstMotionS.Value : null,
+            FirstMotionUncertaintyS = staged ? figures.FirstMotionS.Sigma : null,
             Rollout = new RolloutReport
             {
                 DistanceM = figures.RolloutDistanceM,

@@ -77,7 +77,8 @@ public static class RunJudge
             }
         }
 
-        if (figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph") is { FromStandstillS: null } && figures.MaxSpeedMps > 5)
+        // A rolling start has no 0-60 by nature: rolling_start already says why.
+        if (rec.Staged && figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph") is { FromStandstillS: null } && figures.MaxSpeedMps > 5)
         {
             reasons.Add(new(VerdictLevel.Doubtful, "target_not_reached", Invariant($"60 mph was not reached (top speed {figures.MaxSpeedMps / Units.MpsPerMph:0.0} mph)")));
         }
