@@ -117,23 +117,25 @@ public static class ReportCommand
             return ExitCode.Usage;
         }
 
+        // Runs are read, analysed and reported one at a time; only each run's report entry and
+        // figures are kept, so a season's log takes the memory of its largest run.
+        StreamedSession<RunReport> session = SessionAnalyzer.AnalyzeEach(inputs.SelectMany(i => i.Runs), (analysis, index) => RunReportBuilder.Build(analysis, index), options, referenceRuns, cancel);
         ReaderReport? reader = null;
         var failures = new List<string>();
         foreach (RunInputs.Input input in inputs)
         {
             reader = ReaderReport.Sum(reader, input.Reader);
-            foreach (string warning in input.Warnings ?? [])
+            foreach (string warning in input.Warnings)
             {
                 error.WriteLine($"launchlogger report: {input.Source}: {warning}");
             }
 
-            if (input.Runs.Count == 0)
+            if (input.RunCount == 0)
             {
                 failures.Add($"{input.Source}: no runs in the input");
             }
         }
 
-        SessionAnalysis session = SessionAnalyzer.Analyze(inputs.SelectMany(i => i.Runs), options, referenceRuns, cancel);
         failures.AddRange(session.Failures);
         foreach (string failure in failures)
         {
@@ -168,7 +170,7 @@ public static class ReportCommand
 
         // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
         // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
-        bool allValid = session.Runs.All(r => r.Verdict is null || r.Verdict.Level == VerdictLevel.Valid);
+        bool allValid = session.Runs.All(r => r.Verdict.Level == VerdictLevel.Valid);
         return failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial;
     }
 
