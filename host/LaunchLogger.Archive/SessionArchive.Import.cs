@@ -61,23 +61,56 @@ public sealed partial class SessionArchive
             ("$h", log.Sha256), ("$source", log.Source), ("$at", now), ("$n", log.Bytes.LongLength), ("$bytes", log.Bytes),
             ("$gaps", gaps is { Count: > 0 } ? JsonSerializer.Serialize(gaps, ReportJson.Options) : null)));
         var filed = new List<(long, AnalysedRun)>(log.Runs.Count);
+        var known = new List<KnownRun>();
         foreach (AnalysedRun run in log.Runs)
         {
+            if (FindCopy(run, transaction) is { } copy)
+            {
+                // The same run is filed already from another copy of the box's bytes (a live
+                // capture, then the card). The copy that lost fewer frames carries the run.
+                bool fuller = run.FramesLost < copy.FramesLost;
+                if (fuller)
+                {
+                    Execute(
+                        "UPDATE runs SET log_id = $log, position = $pos, source = $source, frames_lost = $lost WHERE id = $id",
+                        transaction, ("$log", logId), ("$pos", run.Position), ("$source", run.Source), ("$lost", run.FramesLost), ("$id", copy.RunId));
+                    AddResult(copy.RunId, run, log.ToolVersion, transaction);
+                }
+
+                known.Add(new KnownRun(copy.RunId, run, fuller));
+                continue;
+            }
+
             long runId = Convert.ToInt64(Scalar(
                 """
-                INSERT INTO runs (log_id, position, box_run, firmware, source, added_at, event_id, car_id, car_settings_id, driver_id, class_id)
-                VALUES ($log, $pos, $box, $fw, $source, $at, $event, $car, $settings, $driver, $class) RETURNING id
+                INSERT INTO runs (log_id, position, box_run, firmware, source, added_at, event_id, car_id, car_settings_id, driver_id, class_id, fingerprint, frames_lost)
+                VALUES ($log, $pos, $box, $fw, $source, $at, $event, $car, $settings, $driver, $class, $print, $lost) RETURNING id
                 """,
                 transaction,
                 ("$log", logId), ("$pos", run.Position), ("$box", run.BoxRun), ("$fw", run.Firmware), ("$source", run.Source), ("$at", now),
                 ("$event", assignment.EventId), ("$car", assignment.CarId), ("$settings", assignment.CarSettingsId),
-                ("$driver", assignment.DriverId), ("$class", assignment.ClassId)));
+                ("$driver", assignment.DriverId), ("$class", assignment.ClassId), ("$print", run.Fingerprint), ("$lost", run.FramesLost)));
             AddResult(runId, run, log.ToolVersion, transaction);
             filed.Add((runId, run));
         }
 
         transaction.Commit();
-        return new ImportOutcome(log.Source, logId, true, filed);
+        return new ImportOutcome(log.Source, logId, true, filed) { Known = known };
+    }
+
+    /// <summary>The archived run that is <paramref name="run"/> read from another copy of the
+    /// box's bytes, with the frames that copy lost; null when there is none.</summary>
+    private (long RunId, long FramesLost)? FindCopy(AnalysedRun run, SqliteTransaction? transaction)
+    {
+        if (run.Fingerprint is null)
+        {
+            return null;
+        }
+
+        using SqliteCommand command = Command(
+            "SELECT id, COALESCE(frames_lost, 0) FROM runs WHERE fingerprint = $print ORDER BY id LIMIT 1", transaction, ("$print", run.Fingerprint));
+        using SqliteDataReader reader = command.ExecuteReader();
+        return reader.Read() ? (reader.GetInt64(0), reader.GetInt64(1)) : null;
     }
 
     /// <summary>The raw bytes of a log, exactly as filed.</summary>

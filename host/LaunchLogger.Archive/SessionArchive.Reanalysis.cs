@@ -40,67 +40,98 @@ public sealed partial class SessionArchive
         string source = (string)Scalar("SELECT source FROM logs WHERE id = $id", null, ("$id", logId))!;
         byte[] bytes = LogBytes(logId);
 
-        // The runs of one log come from one box in one car: analyse with the settings version
-        // and event weather its first run was filed with, as at import.
-        long? settingsId = null;
-        Weather? weather = null;
+        // Each run is analysed with its own car settings version and its own event's weather:
+        // a run moved to another event or car since import is judged as it is filed now. The
+        // log is analysed once per distinct pair (nearly always one).
+        var existing = new Dictionary<int, ExistingRun>();
         using (SqliteCommand command = Command(
-            "SELECT r.car_settings_id, e.weather FROM runs r LEFT JOIN events e ON e.id = r.event_id WHERE r.log_id = $log ORDER BY r.position LIMIT 1",
+            """
+            SELECT r.position, r.id, res.verdict, r.car_settings_id, e.weather
+            FROM runs r LEFT JOIN results res ON res.id = r.result_id LEFT JOIN events e ON e.id = r.event_id
+            WHERE r.log_id = $log ORDER BY r.position
+            """,
             null, ("$log", logId)))
-        using (SqliteDataReader reader = command.ExecuteReader())
-        {
-            if (reader.Read())
-            {
-                settingsId = reader.IsDBNull(0) ? null : reader.GetInt64(0);
-                weather = reader.IsDBNull(1) ? null : Weather.Parse(reader.GetString(1));
-            }
-        }
-
-        AnalysedLog analysed = LogAnalyzer.Analyze(bytes, source, toolVersion, SettingsCalibration(settingsId), weather, cancel);
-        using SqliteTransaction transaction = connection.BeginTransaction();
-        var existing = new Dictionary<int, (long Id, string? Verdict)>();
-        using (SqliteCommand command = Command(
-            "SELECT r.position, r.id, res.verdict FROM runs r LEFT JOIN results res ON res.id = r.result_id WHERE r.log_id = $log", transaction, ("$log", logId)))
         using (SqliteDataReader reader = command.ExecuteReader())
         {
             while (reader.Read())
             {
-                existing[reader.GetInt32(0)] = (reader.GetInt64(1), reader.IsDBNull(2) ? null : reader.GetString(2));
+                existing[reader.GetInt32(0)] = new ExistingRun(
+                    reader.GetInt64(1),
+                    reader.IsDBNull(2) ? null : reader.GetString(2),
+                    reader.IsDBNull(3) ? null : reader.GetInt64(3),
+                    reader.IsDBNull(4) ? null : reader.GetString(4));
             }
         }
 
-        int changed = 0;
-        foreach (AnalysedRun run in analysed.Runs)
+        // A run the log holds that an earlier reader did not find is analysed like its
+        // log-mates: with the first run's settings and weather.
+        ExistingRun? first = existing.Count > 0 ? existing[existing.Keys.Min()] : null;
+        var analyses = new Dictionary<(long?, string?), AnalysedLog>();
+        AnalysedLog AnalysisFor(ExistingRun? row)
         {
-            long runId;
-            if (existing.TryGetValue(run.Position, out var known))
+            (long?, string?) key = (row?.SettingsId, row?.Weather);
+            if (!analyses.TryGetValue(key, out AnalysedLog? log))
             {
+                Weather? weather = row?.Weather is { } w ? Weather.Parse(w) : null;
+                log = LogAnalyzer.Analyze(bytes, source, toolVersion, SettingsCalibration(row?.SettingsId), weather, cancel);
+                analyses[key] = log;
+            }
+
+            return log;
+        }
+
+        AnalysedLog plan = AnalysisFor(first);
+        using SqliteTransaction transaction = connection.BeginTransaction();
+        int changed = 0, runs = 0;
+        for (int i = 0; i < plan.Runs.Count; i++)
+        {
+            int position = plan.Runs[i].Position;
+            long runId;
+            AnalysedRun run;
+            if (existing.TryGetValue(position, out ExistingRun? known))
+            {
+                run = AnalysisFor(known).Runs[i];
                 runId = known.Id;
                 changed += known.Verdict == run.Verdict ? 0 : 1;
+                Execute(
+                    "UPDATE runs SET fingerprint = $print, frames_lost = $lost WHERE id = $id",
+                    transaction, ("$print", run.Fingerprint), ("$lost", run.FramesLost), ("$id", runId));
+            }
+            else if (FindCopy(plan.Runs[i], transaction) is not null)
+            {
+                // Another copy of the box's bytes carries this run already.
+                continue;
             }
             else
             {
                 // This reader finds a run an earlier one did not: file it beside its log-mates.
+                run = plan.Runs[i];
                 runId = Convert.ToInt64(Scalar(
                     """
-                    INSERT INTO runs (log_id, position, box_run, firmware, source, added_at, event_id, car_id, car_settings_id, driver_id, class_id)
-                    SELECT $log, $pos, $box, $fw, $source, $at, m.event_id, m.car_id, m.car_settings_id, m.driver_id, m.class_id
+                    INSERT INTO runs (log_id, position, box_run, firmware, source, added_at, event_id, car_id, car_settings_id, driver_id, class_id, fingerprint, frames_lost)
+                    SELECT $log, $pos, $box, $fw, $source, $at, m.event_id, m.car_id, m.car_settings_id, m.driver_id, m.class_id, $print, $lost
                     FROM (SELECT 1) LEFT JOIN (SELECT * FROM runs WHERE log_id = $log ORDER BY position LIMIT 1) m RETURNING id
                     """,
-                    transaction, ("$log", logId), ("$pos", run.Position), ("$box", run.BoxRun), ("$fw", run.Firmware), ("$source", run.Source), ("$at", Now())));
+                    transaction, ("$log", logId), ("$pos", run.Position), ("$box", run.BoxRun), ("$fw", run.Firmware), ("$source", run.Source), ("$at", Now()),
+                    ("$print", run.Fingerprint), ("$lost", run.FramesLost)));
                 changed++;
             }
 
             AddResult(runId, run, toolVersion, transaction);
+            runs++;
         }
 
-        foreach ((int position, (long id, string? verdict)) in existing.Where(e => e.Key > analysed.Runs.Count))
+        foreach ((int position, ExistingRun gone) in existing.Where(e => e.Key > plan.Runs.Count))
         {
-            AddResult(id, new AnalysedRun(position, 0, "", source, null, "this tool no longer finds the run in its log"), toolVersion, transaction);
-            changed += verdict == "failed" ? 0 : 1;
+            AddResult(gone.Id, new AnalysedRun(position, 0, "", source, null, "this tool no longer finds the run in its log"), toolVersion, transaction);
+            changed += gone.Verdict == "failed" ? 0 : 1;
+            runs++;
         }
 
         transaction.Commit();
-        return (analysed.Runs.Count + existing.Keys.Count(p => p > analysed.Runs.Count), changed);
+        return (runs, changed);
     }
+
+    /// <summary>A run of the log being analysed again, as filed.</summary>
+    private sealed record ExistingRun(long Id, string? Verdict, long? SettingsId, string? Weather);
 }

@@ -49,24 +49,28 @@ public sealed partial class SessionArchive
         ArgumentNullException.ThrowIfNull(assignment);
         RequireRun(runId);
         bool carChanged = false;
-        using SqliteTransaction transaction = connection.BeginTransaction();
-        void Set(string column, RecordKind kind, string? name)
-        {
-            if (name is null)
-            {
-                return;
-            }
 
-            long? id = name.Trim().Length == 0 ? null : RequireId(kind, name);
-            Execute($"UPDATE runs SET {column} = $v WHERE id = $id", transaction, ("$v", id), ("$id", runId));
+        // Names are looked up before the transaction opens: a lookup outside it would be refused
+        // while it is pending.
+        long? Lookup(RecordKind kind, string? name) => name is null || name.Trim().Length == 0 ? null : RequireId(kind, name);
+        long? eventId = Lookup(RecordKind.Event, assignment.Event);
+        long? driverId = Lookup(RecordKind.Driver, assignment.Driver);
+        long? classId = Lookup(RecordKind.Class, assignment.Class);
+        long? carId = Lookup(RecordKind.Car, assignment.Car);
+        using SqliteTransaction transaction = connection.BeginTransaction();
+        void Set(string column, string? name, long? id)
+        {
+            if (name is not null)
+            {
+                Execute($"UPDATE runs SET {column} = $v WHERE id = $id", transaction, ("$v", id), ("$id", runId));
+            }
         }
 
-        Set("event_id", RecordKind.Event, assignment.Event);
-        Set("driver_id", RecordKind.Driver, assignment.Driver);
-        Set("class_id", RecordKind.Class, assignment.Class);
-        if (assignment.Car is { } car)
+        Set("event_id", assignment.Event, eventId);
+        Set("driver_id", assignment.Driver, driverId);
+        Set("class_id", assignment.Class, classId);
+        if (assignment.Car is not null)
         {
-            long? carId = car.Trim().Length == 0 ? null : RequireId(RecordKind.Car, car);
             long? settingsId = carId is { } c ? CurrentCarSettings(c, transaction).SettingsId : null;
             carChanged = Execute("UPDATE runs SET car_id = $car, car_settings_id = $s WHERE id = $id AND car_id IS NOT $car", transaction,
                 ("$car", carId), ("$s", settingsId), ("$id", runId)) > 0;

@@ -12,6 +12,9 @@ public class ImportKillTests
     private const int Kills = 50;
     private const int Logs = 3;
 
+    // Three different runs: copies of one run in two logs would be filed as one run.
+    private static readonly byte[][] Distinct = [TestLogs.Hatch, TestLogs.Roadster, TestLogs.SecondHatch];
+
     [Fact]
     public void An_import_killed_at_random_points_leaves_the_archive_consistent_and_a_reimport_completes_it()
     {
@@ -19,7 +22,7 @@ public class ImportKillTests
         string card = Directory.CreateDirectory(temp.File("card")).FullName;
         for (int i = 0; i < Logs; i++)
         {
-            File.WriteAllBytes(Path.Combine(card, $"run{i:000}.log"), TestLogs.Variant(i % 2 == 0 ? TestLogs.Hatch : TestLogs.Roadster, i + 1));
+            File.WriteAllBytes(Path.Combine(card, $"run{i:000}.log"), TestLogs.Variant(Distinct[i], i + 1));
         }
 
         // Each kill falls at a random point of the filing: when the archive's write-ahead log has

@@ -23,6 +23,7 @@ public class ExitCodeTests
         "bench accuracy --runs many",
         "bench braking --seed x",
         "bench core --bogus",
+        "bench crosscheck --runs x",
         "calibrate distance --metres",
         "calibrate mounting --bogus",
         "calibrate teeth --bogus",

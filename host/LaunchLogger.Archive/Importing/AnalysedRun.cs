@@ -13,4 +13,11 @@ public sealed record AnalysedRun(int Position, int BoxRun, string Firmware, stri
 {
     /// <summary>"valid", "doubtful", "invalid" or "failed".</summary>
     public string Verdict => Report?.Verdict?.Level ?? "failed";
+
+    /// <summary>What names this run whichever copy of the box's bytes it came from (the live
+    /// capture or the card): see <see cref="LogAnalyzer.Fingerprint"/>. Null when unknown.</summary>
+    public string? Fingerprint { get; init; }
+
+    /// <summary>Frames the reader found missing in this copy of the run.</summary>
+    public long FramesLost { get; init; }
 }

@@ -15,6 +15,21 @@ public static class LogAnalyzer
     /// <summary>The content hash of a log: SHA-256 (FIPS 180-4), lower-case hex.</summary>
     public static string Hash(ReadOnlySpan<byte> bytes) => Convert.ToHexStringLower(SHA256.HashData(bytes));
 
+    /// <summary>What names a run whichever copy of the box's bytes holds it: the firmware, the
+    /// box's run number, the box clock's time when the run opened and its pickup, hashed. A run
+    /// captured live over a link with gaps and the same run read later from the box's card give
+    /// the same fingerprint although their bytes differ; two runs of one box never share one,
+    /// since within one power-up the box's clock only moves forward.</summary>
+    public static string Fingerprint(DecodedRun run)
+    {
+        ArgumentNullException.ThrowIfNull(run);
+        RunConfiguration c = run.Configuration;
+        string key = string.Create(
+            System.Globalization.CultureInfo.InvariantCulture,
+            $"{c.FirmwareVersion}|{c.RunNumber}|{Math.Round(c.OpenedS * 1e6):F0}|{c.PulsesPerRevolution}|{c.FormatVersion}");
+        return Hash(System.Text.Encoding.UTF8.GetBytes(key))[..32];
+    }
+
     /// <summary>Analyses every run of <paramref name="bytes"/>.</summary>
     /// <param name="bytes">The whole log.</param>
     /// <param name="source">Its name.</param>
@@ -40,7 +55,11 @@ public static class LogAnalyzer
                 run.Configuration.FirmwareVersion,
                 run.Source,
                 analysis is null ? null : RunReportBuilder.Build(analysis, i + 1),
-                analysis is null ? session.Failures.FirstOrDefault(f => f.Contains(run.Source, StringComparison.Ordinal)) ?? "the run could not be analysed" : null));
+                analysis is null ? session.Failures.FirstOrDefault(f => f.Contains(run.Source, StringComparison.Ordinal)) ?? "the run could not be analysed" : null)
+            {
+                Fingerprint = Fingerprint(run),
+                FramesLost = run.FramesLost,
+            });
         }
 
         return new AnalysedLog(Hash(bytes), source, bytes, analysed, read.Warnings, toolVersion);

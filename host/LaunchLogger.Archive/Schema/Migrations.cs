@@ -120,6 +120,15 @@ internal static class Migrations
             PRIMARY KEY (result_id, figure)
         ) WITHOUT ROWID;
         """,
+
+        // 2: a run's fingerprint (the box's run number and opening time, hashed), so that a run
+        // captured live and the same run read later from the card are one run; and how many
+        // frames each copy lost, so the fuller copy can take over.
+        """
+        ALTER TABLE runs ADD COLUMN fingerprint TEXT;
+        ALTER TABLE runs ADD COLUMN frames_lost INTEGER;
+        CREATE INDEX runs_fingerprint ON runs (fingerprint);
+        """,
     ];
 
     /// <summary>The schema version this tool writes.</summary>

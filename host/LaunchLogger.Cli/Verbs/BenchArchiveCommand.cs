@@ -19,7 +19,8 @@ namespace LaunchLogger.Cli.Verbs;
 /// filed copy has its own bytes (extra trailing frame delimiters, which readers skip) and its
 /// figures scaled by a random factor of a few per cent, so the board has something to rank. The
 /// import rate is measured separately on the full path — read, hash, decode, reconstruct,
-/// judge, file — into that season archive.</remarks>
+/// judge, file — into that season archive (copies of one simulated run are recognised as that
+/// run and filed once; they are read, decoded and judged all the same).</remarks>
 public static class BenchArchiveCommand
 {
     /// <summary>The goals the issue sets.</summary>
@@ -93,7 +94,9 @@ public static class BenchArchiveCommand
                     Sha256 = LogAnalyzer.Hash(bytes),
                     Source = string.Create(inv, $"season-{i:00000}.log"),
                     Bytes = bytes,
-                    Runs = template.Runs.Select(r => r with { Report = r.Report is { } rep ? Scale(rep, scale) : null }).ToList(),
+                    // Each copy stands for another run of the season: its own fingerprint, or the
+                    // archive would take it for the template run read from another copy.
+                    Runs = template.Runs.Select(r => r with { Report = r.Report is { } rep ? Scale(rep, scale) : null, Fingerprint = string.Create(inv, $"season-{i}-{r.Position}") }).ToList(),
                 };
                 int driver = random.Next(drivers.Count);
                 archive.File(log, archive.Resolve(new RunAssignment { Event = events[random.Next(events.Count)], Driver = drivers[driver], Car = $"car {driver:00}" }));

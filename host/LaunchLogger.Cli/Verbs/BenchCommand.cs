@@ -17,6 +17,7 @@ public static class BenchCommand
             BenchBrakingCommand.Create(),
             BenchArchiveCommand.Create(),
             BenchRobustnessCommand.Create(),
+            BenchCrossCheckCommand.Create(),
         };
     }
 }

@@ -142,6 +142,14 @@ public static class ImportCommand
                     r.Run.Verdict,
                     r.Run.Failure,
                 })),
+                KnownRuns = outcomes.SelectMany(o => o.Known.Select(k => new
+                {
+                    Log = o.Source,
+                    Run = k.RunId,
+                    k.Run.BoxRun,
+                    k.Run.FramesLost,
+                    k.TookOver,
+                })),
                 Skipped = outcomes.Where(o => !o.IsNew).Select(o => o.Source),
                 Problems = problems,
             }, ArchiveTableWriter.JsonOptions));
@@ -160,6 +168,13 @@ public static class ImportCommand
             foreach ((long runId, AnalysedRun run) in o.Runs)
             {
                 output.WriteLine($"  run {runId,-6} box run {run.BoxRun,-3} {run.Verdict}{(run.Failure is { } f ? ": " + f : "")}");
+            }
+
+            foreach (KnownRun known in o.Known)
+            {
+                output.WriteLine(known.TookOver
+                    ? $"  run {known.RunId,-6} box run {known.Run.BoxRun,-3} filed before from a copy that lost frames; this copy now carries it ({known.Run.Verdict})"
+                    : $"  run {known.RunId,-6} box run {known.Run.BoxRun,-3} filed before from another copy; kept as it was");
             }
         }
 

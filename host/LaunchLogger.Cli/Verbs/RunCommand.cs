@@ -74,6 +74,10 @@ public static class RunCommand
             {
                 output.WriteLine($"run {runId}: the car changed; `launchlogger reanalyse --all` applies its settings to the figures");
             }
+            else if (assignment.Event is not null)
+            {
+                output.WriteLine($"run {runId}: the event changed; `launchlogger reanalyse --all` applies its weather to the figures");
+            }
 
             if (parsed is { } s)
             {
