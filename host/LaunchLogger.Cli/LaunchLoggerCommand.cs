@@ -20,6 +20,7 @@ public static class LaunchLoggerCommand
         SimulateCommand.Create(),
         CalibrateCommand.Create(),
         CrossCheckCommand.Create(),
+        PlotCommand.Create(),
         CaptureCommand.Create(),
         ImportCommand.Create(),
         BoardCommand.Create(),
@@ -30,6 +31,9 @@ public static class LaunchLoggerCommand
         ClassCommand.Create(),
         RunCommand.Create(),
         ReanalyseCommand.Create(),
+        CardCommand.Create(),
+        ResultsCommand.Create(),
+        ServeCommand.Create(),
     };
 
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>

@@ -40,10 +40,7 @@ public static class LogAnalyzer
     public static AnalysedLog Analyze(byte[] bytes, string source, string toolVersion, CalibrationSettings? calibration = null, Weather? weather = null, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(bytes);
-        LogReadResult read = LogReader.Read(bytes, source);
-        List<DecodedRun> runs = read.Runs.Select(r => calibration is null ? r : CalibrationApplier.Apply(r, calibration)).ToList();
-        var options = AnalysisOptions.Default with { Calibration = calibration, Weather = weather };
-        SessionAnalysis session = SessionAnalyzer.Analyze(runs, options, null, cancel);
+        (LogReadResult read, List<DecodedRun> runs, SessionAnalysis session) = AnalyzeSession(bytes, source, calibration, weather, cancel);
         var analysed = new List<AnalysedRun>(runs.Count);
         for (int i = 0; i < runs.Count; i++)
         {
@@ -63,5 +60,17 @@ public static class LogAnalyzer
         }
 
         return new AnalysedLog(Hash(bytes), source, bytes, analysed, read.Warnings, toolVersion);
+    }
+
+    /// <summary>Reads and analyses every run of <paramref name="bytes"/> as the report does: the
+    /// log as read, its runs with the calibration applied, and the session's analysis (what the
+    /// run cards draw their plots and the session's grip bound from).</summary>
+    public static (LogReadResult Read, List<DecodedRun> Runs, SessionAnalysis Session) AnalyzeSession(byte[] bytes, string source, CalibrationSettings? calibration = null, Weather? weather = null, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(bytes);
+        LogReadResult read = LogReader.Read(bytes, source);
+        List<DecodedRun> runs = read.Runs.Select(r => calibration is null ? r : CalibrationApplier.Apply(r, calibration)).ToList();
+        var options = AnalysisOptions.Default with { Calibration = calibration, Weather = weather };
+        return (read, runs, SessionAnalyzer.Analyze(runs, options, null, cancel));
     }
 }

@@ -101,7 +101,7 @@ public sealed class LiveStatus
     }
 
     /// <summary>The status line, e.g. "run 3  moving  41.2 mph  88.0 ft  rollout passed at 12.698 s".</summary>
-    public string Line(Output.DisplayUnits units)
+    public string Line(DisplayUnits units)
     {
         CultureInfo inv = CultureInfo.InvariantCulture;
         string rollout = RolloutS is { } r ? $"  rollout passed at {r.ToString("0.000", inv)} s" : "";

@@ -23,11 +23,18 @@ internal static class ArchiveSupport
 
     /// <summary>Opens the archive and runs <paramref name="work"/>; archive, input and usage
     /// failures become one line on <paramref name="error"/> and an exit code.</summary>
-    public static ExitCode With(string? archivePath, string verb, TextWriter error, Func<SessionArchive, ExitCode> work)
+    public static ExitCode With(string? archivePath, string verb, TextWriter error, Func<SessionArchive, ExitCode> work) =>
+        With(archivePath, verb, error, work, readOnly: false);
+
+    /// <summary>As <see cref="With(string?, string, TextWriter, Func{SessionArchive, ExitCode})"/>,
+    /// opening an existing archive for reading only when <paramref name="readOnly"/> (nothing
+    /// created, nothing written).</summary>
+    public static ExitCode With(string? archivePath, string verb, TextWriter error, Func<SessionArchive, ExitCode> work, bool readOnly)
     {
         try
         {
-            using SessionArchive archive = SessionArchive.Open(archivePath ?? ArchiveLocation.Default);
+            string path = archivePath ?? ArchiveLocation.Default;
+            using SessionArchive archive = readOnly ? SessionArchive.OpenReadOnly(path) : SessionArchive.Open(path);
             return work(archive);
         }
         catch (ArchiveException e)
@@ -55,7 +62,20 @@ internal static class ArchiveSupport
             error.WriteLine($"launchlogger {verb}: {e.Message}");
             return ExitCode.BadInput;
         }
+        catch (UnauthorizedAccessException e)
+        {
+            error.WriteLine($"launchlogger {verb}: {e.Message}");
+            return ExitCode.BadInput;
+        }
     }
+
+    /// <summary>Writes one text file whole or not at all (<see cref="AtomicFile"/>), UTF-8 without a byte-order mark.</summary>
+    public static void WriteText(FileInfo file, string text, CancellationToken cancel = default) =>
+        AtomicFile.WriteAll([(file.FullName, stream =>
+        {
+            using var writer = new StreamWriter(stream, new System.Text.UTF8Encoding(false), leaveOpen: true);
+            writer.Write(text);
+        })], cancel);
 
     /// <summary>Writes a table as text, or JSON when asked.</summary>
     public static void Write(ArchiveTable table, bool json, TextWriter output)

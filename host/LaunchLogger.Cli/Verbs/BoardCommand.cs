@@ -1,10 +1,8 @@
 using System.CommandLine;
-using System.Globalization;
 using System.Text.Json;
 using LaunchLogger.Archive;
 using LaunchLogger.Archive.Board;
 using LaunchLogger.Cli.Output;
-using LaunchLogger.Decoding.Metrics;
 
 namespace LaunchLogger.Cli.Verbs;
 
@@ -52,27 +50,9 @@ public static class BoardCommand
         BoardRequest request;
         try
         {
-            request = new BoardRequest
-            {
-                Figure = BoardFigures.Find(figure) ?? throw new UsageException($"--figure {figure}: give one of {BoardFigures.Codes}"),
-                Convention = from.ToLowerInvariant() switch
-                {
-                    "standstill" => Convention.Standstill,
-                    "rollout" => Convention.Rollout,
-                    _ => throw new UsageException($"--from {from}: give standstill or rollout"),
-                },
-                Accept = accept.ToLowerInvariant() switch
-                {
-                    "valid" => Acceptance.Valid,
-                    "doubtful" => Acceptance.Doubtful,
-                    "all" => Acceptance.All,
-                    _ => throw new UsageException($"--accept {accept}: give valid, doubtful or all"),
-                },
-                Filter = filter,
-                EveryRun = everyRun,
-            };
+            request = BoardRequest.Parse(figure, from, accept, filter, everyRun);
         }
-        catch (UsageException e)
+        catch (FormatException e)
         {
             error.WriteLine($"launchlogger board: {e.Message}");
             return ExitCode.Usage;
@@ -144,7 +124,7 @@ public static class BoardCommand
             var table = new ArchiveTable(["#", "driver", "car", board.Description, "±", "verdict", "runs", "run"]);
             foreach (BoardRow r in section.Rows)
             {
-                table.Rows.Add([r.Rank, r.Driver ?? "—", r.Car ?? "—", Value(board, r.Value, units), Value(board, r.Uncertainty, units, sigma: true), r.Verdict, r.Runs, r.Run]);
+                table.Rows.Add([r.Rank, r.Driver ?? "—", r.Car ?? "—", Format.BoardValue(board.Unit, r.Value, units), Format.BoardValue(board.Unit, r.Uncertainty, units, sigma: true), r.Verdict, r.Runs, r.Run]);
             }
 
             ArchiveTableWriter.WriteText(table, output);
@@ -156,7 +136,7 @@ public static class BoardCommand
             output.WriteLine("not counted:");
             foreach (BoardRow r in board.NotCounted)
             {
-                output.WriteLine($"  run {r.Run} ({r.Driver ?? r.Car ?? "unassigned"}, {Value(board, r.Value, units)}): {r.Standing}: {r.StandingReason}");
+                output.WriteLine($"  run {r.Run} ({r.Driver ?? r.Car ?? "unassigned"}, {Format.BoardValue(board.Unit, r.Value, units)}): {r.Standing}: {r.StandingReason}");
             }
         }
 
@@ -168,21 +148,5 @@ public static class BoardCommand
 
         output.WriteLine();
         output.WriteLine($"ties: {board.Ties}");
-    }
-
-    private static string Value(BoardResult board, double? value, DisplayUnits units, bool sigma = false)
-    {
-        if (value is not { } v)
-        {
-            return "";
-        }
-
-        CultureInfo inv = CultureInfo.InvariantCulture;
-        return board.Unit switch
-        {
-            "m/s" => units == DisplayUnits.Imperial ? (v / Units.MpsPerMph).ToString("0.00", inv) + (sigma ? "" : " mph") : (v / Units.MpsPerKmh).ToString("0.00", inv) + (sigma ? "" : " km/h"),
-            "m" => units == DisplayUnits.Imperial ? (v / Units.MetresPerFoot).ToString("0.0", inv) + (sigma ? "" : " ft") : v.ToString("0.00", inv) + (sigma ? "" : " m"),
-            _ => v.ToString("0.000", inv) + (sigma ? "" : " s"),
-        };
     }
 }

@@ -6,6 +6,8 @@ using LaunchLogger.Decoding.CrossCheck;
 using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Reporting;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Cli.Output;
+using LaunchLogger.Plots;
 using Spectre.Console;
 
 namespace LaunchLogger.Cli.Verbs;
@@ -26,21 +28,31 @@ public static class CrossCheckCommand
         var speedSigma = new Option<double>("--speed-sigma") { Description = "The other record's speed noise, m/s (1-σ).", DefaultValueFactory = _ => CrossChecker.DefaultSpeedSigmaMps };
         var run = new Option<int>("--run") { Description = "Which of the log's runs, from 1.", DefaultValueFactory = _ => 1 };
         var json = new Option<bool>("--json") { Description = "Write the comparison as JSON." };
+        var plot = new Option<FileInfo?>("--plot") { Description = "Also draw both speed traces and their difference to this file (.svg or .png)." };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units on the plot's axes: imperial (mph) or metric (km/h).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var command = new Command("crosscheck", "Compare one of our runs with another instrument's record of it: clock offset, every figure from both, their difference and whether it lies within the combined uncertainty.")
         {
-            log, with, format, columns, speedUnit, timeUnit, speedSigma, run, json,
+            log, with, format, columns, speedUnit, timeUnit, speedSigma, run, json, plot, units,
         };
         command.SetAction((parse, cancel) => Task.FromResult((int)Run(
             parse.GetValue(log)!, parse.GetValue(with)!, parse.GetValue(format)!, parse.GetValue(columns), parse.GetValue(speedUnit)!, parse.GetValue(timeUnit)!,
             parse.GetValue(speedSigma), parse.GetValue(run), parse.GetValue(json),
-            parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel)));
+            parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(plot)?.FullName, parse.GetValue(units))));
         return command;
     }
 
-    /// <summary>Runs the verb. Exit 0 when every figure agrees within ±2 combined σ, 1 when some do not.</summary>
-    public static ExitCode Run(FileInfo log, FileInfo with, string format, string? columns, string speedUnit, string timeUnit, double speedSigma, int runNumber, bool json, TextWriter output, TextWriter error, CancellationToken cancel = default)
+    /// <summary>Runs the verb. Exit 0 when every figure agrees within ±2 combined σ, 1 when some
+    /// do not. With <paramref name="plot"/>, also draws both speed traces and their difference
+    /// there (.svg or .png).</summary>
+    public static ExitCode Run(FileInfo log, FileInfo with, string format, string? columns, string speedUnit, string timeUnit, double speedSigma, int runNumber, bool json, TextWriter output, TextWriter error, CancellationToken cancel = default, string? plot = null, DisplayUnits plotUnits = DisplayUnits.Imperial)
     {
         const string Verb = "launchlogger crosscheck";
+        if (plot != null && ChartFormats.FromPath(plot) is null)
+        {
+            error.WriteLine($"{Verb}: --plot '{plot}' must end in .svg or .png (the extension picks the format)");
+            return ExitCode.Usage;
+        }
+
         if (!(speedSigma > 0 && speedSigma < 10))
         {
             error.WriteLine($"{Verb}: --speed-sigma must be more than 0 and less than 10 m/s");
@@ -67,6 +79,7 @@ public static class CrossCheckCommand
         }
 
         CrossCheckResult result;
+        RunAnalysis ours;
         try
         {
             IReadOnlyList<DecodedRun> runs = LogReader.ReadFile(log.FullName, cancel).Runs;
@@ -81,7 +94,7 @@ public static class CrossCheckCommand
                 "gpx" => GpxTraceReader.Read(with.FullName),
                 _ => CsvTraceReader.Read(with.FullName, map!),
             };
-            RunAnalysis ours = RunAnalyzer.Analyze(runs[runNumber - 1]);
+            ours = RunAnalyzer.Analyze(runs[runNumber - 1]);
             result = CrossChecker.Compare(ours, theirs, speedSigma);
         }
         catch (InputException e)
@@ -93,6 +106,21 @@ public static class CrossCheckCommand
         {
             error.WriteLine($"{Verb}: {log.FullName}: {e.Message}");
             return ExitCode.BadInput;
+        }
+
+        if (plot != null)
+        {
+            try
+            {
+                PlotFiles.Write([(plot, () => RunCharts.CrossCheck(ours, result, new ChartOptions { Units = plotUnits }))], cancel);
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                error.WriteLine($"{Verb}: cannot write the plot: {e.Message}");
+                return ExitCode.BadInput;
+            }
+
+            error.WriteLine($"{Verb}: wrote {plot}");
         }
 
         if (json)

@@ -50,6 +50,9 @@ public sealed record ReportRequest
     /// <summary>Extra nominal speeds to correct stops to, as typed, e.g. "50mph".</summary>
     public IReadOnlyList<string> StopFrom { get; init; } = [];
 
+    /// <summary>A picture of each run's trace to write (.svg or .png); several runs get NAME-runN files.</summary>
+    public string? Plot { get; init; }
+
     /// <summary>Calibration settings file (from <c>launchlogger calibrate</c>) to apply to every run.</summary>
     public FileInfo? Settings { get; init; }
 }

@@ -258,6 +258,10 @@ public sealed record RunReport
     /// <summary>The figures corrected to level ground and to standard air, where known.</summary>
     public IReadOnlyList<CorrectedFiguresReport> Corrections { get; init; } = [];
 
+    /// <summary>The box and its sensors as configured for this run, and the calibration applied;
+    /// null in documents written before this field existed.</summary>
+    public BoxReport? Box { get; init; }
+
     /// <summary>Everything the reader, importer and reconstruction noticed.</summary>
     public required IReadOnlyList<string> Warnings { get; init; }
 }
@@ -402,4 +406,39 @@ public sealed record DistanceMarkReport
 
     /// <summary>1-σ of <see cref="TrapSpeedMps"/>, m/s.</summary>
     public double? TrapSpeedUncertaintyMps { get; init; }
+}
+
+/// <summary>The box that recorded a run: its firmware, its sensors as configured (after any
+/// calibration settings were applied), and what calibration changed.</summary>
+public sealed record BoxReport
+{
+    /// <summary>Firmware version, "major.minor.patch"; empty for plain-text inputs.</summary>
+    public required string FirmwareVersion { get; init; }
+
+    /// <summary>Log format version; 0 for plain-text inputs.</summary>
+    public required int LogFormatVersion { get; init; }
+
+    /// <summary>Pulses per wheel revolution of the distance channel; 0 when not known.</summary>
+    public required int PulsesPerRevolution { get; init; }
+
+    /// <summary>Rolling circumference of the distance channel's wheel, m (0 when not known).</summary>
+    public required double CircumferenceM { get; init; }
+
+    /// <summary>Distance per pulse of the distance channel, m.</summary>
+    public required double MetresPerPulse { get; init; }
+
+    /// <summary>True when a second pulse channel was recorded.</summary>
+    public required bool SecondChannel { get; init; }
+
+    /// <summary>Nominal accelerometer output rate, Hz; null without an accelerometer.</summary>
+    public double? AccelRateHz { get; init; }
+
+    /// <summary>Accelerometer full scale, m/s²; null without an accelerometer.</summary>
+    public double? AccelFullScaleMps2 { get; init; }
+
+    /// <summary>The rollout distance the box used, m.</summary>
+    public required double RolloutM { get; init; }
+
+    /// <summary>What the calibration settings changed, in words (empty: none applied).</summary>
+    public required IReadOnlyList<string> Calibration { get; init; }
 }

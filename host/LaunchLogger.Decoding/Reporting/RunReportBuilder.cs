@@ -41,6 +41,27 @@ public static class RunReportBuilder
             Verdict = analysis.Verdict is { } v ? Verdict(v) : null,
             Grade = analysis.Grade is { } g ? new GradeReport { Percent = g.Percent, UncertaintyPercent = Math.Tan(g.SigmaRad) * 100, MountingCalibrated = g.MountingCalibrated } : null,
             Corrections = corrections,
+            Box = Box(analysis.Run.Configuration, analysis.Warnings),
+        };
+    }
+
+    /// <summary>The report of the box's configuration; <paramref name="notes"/> are the run's
+    /// notes, of which those of the calibration settings (prefixed "calibration:") are kept.</summary>
+    public static BoxReport Box(LaunchLogger.Decoding.Runs.RunConfiguration configuration, IEnumerable<string> notes)
+    {
+        ArgumentNullException.ThrowIfNull(configuration);
+        return new BoxReport
+        {
+            FirmwareVersion = configuration.FirmwareVersion,
+            LogFormatVersion = configuration.FormatVersion,
+            PulsesPerRevolution = configuration.PulsesPerRevolution,
+            CircumferenceM = configuration.CircumferenceM,
+            MetresPerPulse = configuration.MetresPerPulse,
+            SecondChannel = configuration.HasSecondChannel,
+            AccelRateHz = configuration.HasAccelerometer ? configuration.AccelNominalRateHz : null,
+            AccelFullScaleMps2 = configuration.HasAccelerometer ? configuration.AccelFullScaleMps2 : null,
+            RolloutM = configuration.RolloutM,
+            Calibration = notes.Where(n => n.StartsWith("calibration:", StringComparison.Ordinal)).ToList(),
         };
     }
 

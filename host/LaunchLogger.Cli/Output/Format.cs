@@ -1,17 +1,9 @@
 using System.Globalization;
 using LaunchLogger.Decoding.Metrics;
 
+// Compiled into LaunchLogger.Pages (linked from there), which the command line references: the
+// tables and the HTML pages show every figure alike. The namespace stays the command line's.
 namespace LaunchLogger.Cli.Output;
-
-/// <summary>The unit system a person reads: imperial (mph, ft) or metric (km/h, m).</summary>
-public enum DisplayUnits
-{
-    /// <summary>mph and feet.</summary>
-    Imperial,
-
-    /// <summary>km/h and metres.</summary>
-    Metric,
-}
 
 /// <summary>Formats SI values for people.</summary>
 public static class Format
@@ -21,14 +13,12 @@ public static class Format
     /// <summary>A speed with its unit, e.g. "61.2 mph".</summary>
     public static string Speed(double? mps, DisplayUnits units) => mps is not { } v
         ? "—"
-        : units == DisplayUnits.Imperial
-            ? (v / Units.MpsPerMph).ToString("0.0", Invariant) + " mph"
-            : (v / Units.MpsPerKmh).ToString("0.0", Invariant) + " km/h";
+        : units.Speed(v).ToString("0.0", Invariant) + " " + units.SpeedUnit();
 
     /// <summary>A speed's uncertainty in the same unit, e.g. "± 0.1".</summary>
     public static string SpeedSigma(double? mps, DisplayUnits units) => mps is not { } v
         ? ""
-        : "± " + (v / (units == DisplayUnits.Imperial ? Units.MpsPerMph : Units.MpsPerKmh)).ToString("0.0#", Invariant);
+        : "± " + units.Speed(v).ToString("0.0#", Invariant);
 
     /// <summary>A distance with its unit, e.g. "402.34 m" or "1320 ft": metres always to the
     /// centimetre, so every metric distance in a report reads with the same precision.</summary>
@@ -53,4 +43,21 @@ public static class Format
     public static string Accel(double? mps2) => mps2 is { } a
         ? a.ToString("0.00", Invariant) + " m/s² (" + (a / Units.StandardGravity).ToString("0.00", Invariant) + " g)"
         : "—";
+
+    /// <summary>A board's figure in its unit ("s", "m/s" or "m", SI), e.g. "5.472 s",
+    /// "98.41 mph", "36.1 ft"; the bare number for a σ; empty when missing.</summary>
+    public static string BoardValue(string unit, double? value, DisplayUnits units, bool sigma = false)
+    {
+        if (value is not { } v)
+        {
+            return "";
+        }
+
+        return unit switch
+        {
+            "m/s" => units == DisplayUnits.Imperial ? (v / Units.MpsPerMph).ToString("0.00", Invariant) + (sigma ? "" : " mph") : (v / Units.MpsPerKmh).ToString("0.00", Invariant) + (sigma ? "" : " km/h"),
+            "m" => units == DisplayUnits.Imperial ? (v / Units.MetresPerFoot).ToString("0.0", Invariant) + (sigma ? "" : " ft") : v.ToString("0.00", Invariant) + (sigma ? "" : " m"),
+            _ => v.ToString("0.000", Invariant) + (sigma ? "" : " s"),
+        };
+    }
 }
