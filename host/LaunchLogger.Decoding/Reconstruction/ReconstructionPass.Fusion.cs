@@ -119,6 +119,7 @@ internal sealed partial class ReconstructionPass
             SlipSignal = slipSignal,
             SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
             SlipMinimum = options.WheelSlipMinimum,
+            MaxStoredSteps = options.FilterStatesKept,
         };
     }
 
