@@ -32,6 +32,7 @@ namespace LaunchLogger.Firmware
         private int maxSamplesPerStep;
         private bool accelBacklog;
         private bool markWasActive;
+        private bool poweredUp;
         private bool phaseShown;
         private RunPhase shownPhase;
         private Capture.PulseObservation observation;
@@ -108,6 +109,13 @@ namespace LaunchLogger.Firmware
         /// <summary>One pass of the loop.</summary>
         public void Step()
         {
+            if (!poweredUp)
+            {
+                // The first pass after power-up marks it in the log before anything else.
+                poweredUp = true;
+                recorder.PowerUp(clock.NowMicros());
+            }
+
             PulseObservationDrain();
             long now = clock.NowMicros();
             if (accelerometer != null && (accelBacklog || now >= nextAccelMicros))

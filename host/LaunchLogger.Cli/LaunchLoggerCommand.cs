@@ -39,11 +39,20 @@ public static class LaunchLoggerCommand
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>
     /// <remarks>System.CommandLine reports a parse error (unknown option, missing or unparsable
     /// value) with exit code 1; here it becomes <see cref="ExitCode.Usage"/> (3), as ExitCode.cs
-    /// and the README promise.</remarks>
+    /// and the README promise. When <paramref name="cancel"/> fires (Ctrl+C) and the verb does not
+    /// finish cleanly, the code is <see cref="ExitCode.Cancelled"/> (130): a verb that gives up
+    /// with OperationCanceledException would otherwise end with 1. The caller handles the
+    /// signals (Program.cs); System.CommandLine's own handler, which is set up only after a
+    /// synchronous verb has already done its work, is switched off.</remarks>
     public static async Task<int> InvokeAsync(string[] args, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
         ParseResult parsed = Create().Parse(args);
-        int code = await parsed.InvokeAsync(new InvocationConfiguration { Output = output, Error = error }, cancel);
-        return parsed.Errors.Count > 0 ? (int)ExitCode.Usage : code;
+        int code = await parsed.InvokeAsync(new InvocationConfiguration { Output = output, Error = error, ProcessTerminationTimeout = null }, cancel);
+        if (parsed.Errors.Count > 0)
+        {
+            return (int)ExitCode.Usage;
+        }
+
+        return cancel.IsCancellationRequested && code != (int)ExitCode.Ok ? (int)ExitCode.Cancelled : code;
     }
 }

@@ -41,6 +41,7 @@ public static class ArchiveCards
         {
             Run = run,
             TractionBound = sameTool ? document.TractionBound : null,
+            BoundNote = sameTool ? null : $"This result was made by launchlogger {filed.ToolVersion}; the grip bound it was judged against is not derived again here (launchlogger reanalyse brings the archive's results up to this version, {toolVersion}).",
             Weather = document.Weather,
             Filed = filed,
             ToolVersion = filed.ToolVersion ?? toolVersion,

@@ -13,6 +13,10 @@ public sealed record CardInput
     /// <summary>The braking bound the run was held against (the document's), when any.</summary>
     public TractionBoundReport? TractionBound { get; init; }
 
+    /// <summary>Said instead of the bound when <see cref="TractionBound"/> is null for a reason other
+    /// than there being none (plain text).</summary>
+    public string? BoundNote { get; init; }
+
     /// <summary>The weather the figures were corrected with (the document's), when any.</summary>
     public WeatherReport? Weather { get; init; }
 

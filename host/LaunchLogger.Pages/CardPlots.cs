@@ -12,7 +12,7 @@ public static class CardPlots
 
     /// <summary>The plots of one analysed run, in the order the card shows them: the run's trace
     /// (speed, distance and acceleration against time with first motion, the rollout mark and
-    /// brake onset), then its stop when it ends with one.</summary>
+    /// brake onset), the start close up for a standing start, then its stop when it ends with one.</summary>
     public static IReadOnlyList<PlotFigure> For(RunAnalysis analysis, DisplayUnits units)
     {
         ArgumentNullException.ThrowIfNull(analysis);
@@ -21,6 +21,12 @@ public static class CardPlots
             new("Speed, distance and acceleration against time, with first motion, the rollout mark and brake onset marked and the rollout zone shaded.",
                 RunCharts.Trace(analysis, Options(units)).ToInlineSvg()),
         };
+        if (analysis.Reconstruction.Staged && analysis.Figures.RolloutTimeS is not null)
+        {
+            plots.Add(new("The start close up: first motion, the rollout zone and the rollout mark, where the two conventions start their clocks.",
+                RunCharts.Launch(analysis, Options(units)).ToInlineSvg()));
+        }
+
         if (analysis.Braking is not null)
         {
             plots.Add(new("The stop: speed and deceleration from brake onset to standstill.", RunCharts.Braking(analysis, Options(units)).ToInlineSvg()));

@@ -84,7 +84,7 @@ public static class HtmlPage
         figure.plot { margin: 8px 0; } figure.plot svg { width: 100%; height: auto; display: block; }
         figure.plot.missing { border: 1px dashed var(--rule); padding: 10px; color: var(--muted); font-size: 12px; }
         .note { color: var(--muted); font-size: 12px; }
-        .board-class { margin-bottom: 14px; }
+        .board-class { margin-bottom: 14px; } .board-class td:last-child { white-space: nowrap; }
         .live { font-size: 12px; color: var(--muted); }
         .page-foot { max-width: 186mm; margin: 8px auto; font-size: 11px; color: var(--muted); }
         .page-foot .caution { color: var(--ink); }

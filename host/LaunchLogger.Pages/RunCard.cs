@@ -54,7 +54,7 @@ public static class RunCard
         Conventions(html, run, units);
         Plots(html, card.Plots);
         Motion(html, run, units);
-        Stop(html, run, card.TractionBound, units);
+        Stop(html, run, card.TractionBound, card.BoundNote, units);
         Corrections(html, run, card.Weather, card.Filed, units);
         Box(html, run, card.Filed, units);
         Notes(html, run);
@@ -249,7 +249,7 @@ public static class RunCard
         html.Append("</dl>\n");
     }
 
-    private static void Stop(StringBuilder html, RunReport run, TractionBoundReport? bound, DisplayUnits units)
+    private static void Stop(StringBuilder html, RunReport run, TractionBoundReport? bound, string? boundNote, DisplayUnits units)
     {
         html.Append("<h2>The stop and the grip bound</h2>\n");
         if (run.Braking is { } b)
@@ -298,7 +298,7 @@ public static class RunCard
         }
         else
         {
-            html.Append("<p class=\"note\" data-role=\"bound\">No stop at the grip limit was known when this run was judged, so no grip bound was held against it.</p>\n");
+            html.Append("<p class=\"note\" data-role=\"bound\">").Append(HtmlPage.Encode(boundNote ?? "No stop at the grip limit was known when this run was judged, so no grip bound was held against it.")).Append("</p>\n");
         }
     }
 

@@ -31,7 +31,7 @@ internal static class BrakingChart
         double[] v = path.SpeedMps[first..last].Select(s => units.Speed(s)).ToArray();
         double[] decel = path.AccelMps2[first..last].Select(a => -a).ToArray();
 
-        Multiplot figure = Panels.Figure(4, columns: 2);
+        Multiplot figure = Panels.Figure(options, 4, columns: 2);
         Plot speedT = figure.GetPlot(0), speedX = figure.GetPlot(1), decelT = figure.GetPlot(2), decelX = figure.GetPlot(3);
         Panels.Title(speedT, options.Title ?? "Stop from " + Format(units.Speed(stop.FromMps)) + " " + units.SpeedUnit());
         Panels.Title(speedX, "against distance");

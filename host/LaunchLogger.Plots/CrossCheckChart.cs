@@ -20,7 +20,7 @@ internal static class CrossCheckChart
         Trajectory theirs = result.TheirTrajectory;
         double zero = ours.Reconstruction.FirstMotionS.Value;
 
-        Multiplot figure = Panels.Figure(2);
+        Multiplot figure = Panels.Figure(options, 2);
         Plot speed = figure.GetPlot(0), difference = figure.GetPlot(1);
         Panels.Title(speed, options.Title ?? $"Cross-check against {Path.GetFileName(result.Source)} ({result.SampleRateHz:0.#} Hz)");
 
@@ -63,11 +63,11 @@ internal static class CrossCheckChart
         difference.Add.HorizontalLine(0, 1, Palette.Zero);
         foreach (Plot panel in new[] { speed, difference })
         {
-            Panels.Mark(panel, 0, Palette.FirstMotion, panel == speed ? Marks.FirstMotion : null);
+            Panels.Mark(panel, 0, Palette.FirstMotion, panel == speed ? (ours.Reconstruction.Staged ? Marks.FirstMotion : Marks.RecordStart) : null);
         }
 
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
-        Panels.Label(difference, "time from our first motion (s)", $"difference ({units.SpeedUnit()})");
+        Panels.Label(difference, Marks.TimeAxis(ours, "our "), $"difference ({units.SpeedUnit()})");
         Panels.Legend(speed);
         Panels.Headroom(speed, mine.SpeedMps.Concat(theirs.SpeedMps).Select(x => units.Speed(x)));
         Panels.Legend(difference);

@@ -22,7 +22,7 @@ internal static class OverlayChart
         }
 
         DisplayUnits units = options.Units;
-        Multiplot figure = Panels.Figure(2);
+        Multiplot figure = Panels.Figure(options, 2);
         Plot speed = figure.GetPlot(0), distance = figure.GetPlot(1);
         string zeroName = alignment == RunAlignment.Standstill ? "first motion" : "the rollout mark";
         Panels.Title(speed, options.Title ?? $"{runs.Count} runs aligned on {zeroName}");
@@ -33,7 +33,7 @@ internal static class OverlayChart
         {
             ReconstructedRun recon = runs[i].Reconstruction;
             double? zero = alignment == RunAlignment.Standstill ? recon.FirstMotionS.Value : recon.RolloutTimeS?.Value;
-            if (zero is not { } z)
+            if (zero is not { } z || !recon.Staged)
             {
                 continue;
             }
@@ -51,7 +51,9 @@ internal static class OverlayChart
 
         if (drawn == 0)
         {
-            throw new ArgumentException("no run reached the rollout mark, so none can be aligned on it", nameof(runs));
+            throw new ArgumentException(alignment == RunAlignment.Rollout
+                ? "no run started from a standstill and reached the rollout mark, so none can be aligned on it"
+                : "no run started from a standstill, so none can be aligned on its first motion", nameof(runs));
         }
 
         foreach (Plot panel in new[] { speed, distance })
@@ -65,7 +67,7 @@ internal static class OverlayChart
         Panels.Label(distance, axis, $"distance ({units.DistanceUnit()})");
         Panels.Legend(speed, Alignment.UpperCenter, drawn <= 5 ? Orientation.Horizontal : Orientation.Vertical);
         Panels.Headroom(speed, runs.SelectMany(r => r.Reconstruction.Trajectory.SpeedMps).Select(x => units.Speed(x)));
-        Panels.SameX(figure, fromX, toX);
+        Panels.SameX(figure, Math.Min(fromX, -0.015 * (toX - fromX)), toX);
         Panels.LegendsOnlyOn(figure, speed);
         return new Chart(figure, options);
     }

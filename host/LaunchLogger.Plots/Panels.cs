@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using ScottPlot;
 using ScottPlot.Plottables;
 
@@ -9,34 +10,51 @@ internal static class Panels
 {
     private const float LeftPx = 78, RightPx = 24, BottomPx = 46, TopPx = 12, TitlePx = 40;
 
-    /// <summary>A new figure whose panels are stacked in rows (or a grid of the given columns).</summary>
-    public static Multiplot Figure(int panels, int columns = 1)
+    /// <summary>A panel narrower or shorter than this (pixels) is drawn compact: smaller text and
+    /// a legend in one column, so that nothing runs off it.</summary>
+    private const int CompactWidthPx = 640, CompactHeightPx = 170;
+
+    /// <summary>The panels drawn compact.</summary>
+    private static readonly ConditionalWeakTable<Plot, object> CompactPanels = [];
+
+    /// <summary>A new figure of the options' size whose panels are stacked in rows (or a grid of
+    /// the given columns).</summary>
+    public static Multiplot Figure(ChartOptions options, int panels, int columns = 1)
     {
         PlotFont.Register();
+        int rows = (panels + columns - 1) / columns;
+        bool compact = options.WidthPx / columns < CompactWidthPx || options.HeightPx / rows < CompactHeightPx;
         var figure = new Multiplot();
         figure.RemovePlot(figure.GetPlot(0));
         for (int i = 0; i < panels; i++)
         {
-            figure.AddPlot(NewPanel());
+            figure.AddPlot(NewPanel(compact));
         }
 
-        figure.Layout = columns == 1 ? new ScottPlot.MultiplotLayouts.Rows() : new ScottPlot.MultiplotLayouts.Grid((panels + columns - 1) / columns, columns);
+        figure.Layout = columns == 1 ? new ScottPlot.MultiplotLayouts.Rows() : new ScottPlot.MultiplotLayouts.Grid(rows, columns);
         return figure;
     }
 
-    private static Plot NewPanel()
+    private static Plot NewPanel(bool compact)
     {
         var plot = new Plot();
+        if (compact)
+        {
+            CompactPanels.Add(plot, true);
+        }
+
         plot.Font.Set(PlotFont.Family);
         plot.FigureBackground.Color = Palette.Paper;
         plot.DataBackground.Color = Palette.DataArea;
         plot.Axes.Color(Palette.Ink);
         plot.Grid.MajorLineColor = Palette.Grid;
-        plot.Axes.Left.Label.FontSize = 13;
-        plot.Axes.Bottom.Label.FontSize = 13;
+        plot.Axes.Left.Label.FontSize = compact ? 11 : 13;
+        plot.Axes.Bottom.Label.FontSize = compact ? 11 : 13;
+        plot.Axes.Left.TickLabelStyle.FontSize = compact ? 10 : 12;
+        plot.Axes.Bottom.TickLabelStyle.FontSize = compact ? 10 : 12;
         plot.Axes.Left.Label.Bold = false;
         plot.Axes.Bottom.Label.Bold = false;
-        plot.Axes.Title.Label.FontSize = 15;
+        plot.Axes.Title.Label.FontSize = compact ? 12 : 15;
         plot.Layout.Fixed(new PixelPadding(LeftPx, RightPx, BottomPx, TopPx));
         return plot;
     }
@@ -98,8 +116,11 @@ internal static class Panels
     /// the traces (see <see cref="Headroom"/>).</summary>
     public static void Legend(Plot panel, Alignment where = Alignment.UpperCenter, Orientation orientation = Orientation.Horizontal)
     {
-        Legend legend = panel.ShowLegend(where, orientation);
-        legend.FontSize = 11;
+        bool compact = CompactPanels.TryGetValue(panel, out _);
+        Legend legend = compact
+            ? panel.ShowLegend(where is Alignment.LowerCenter or Alignment.LowerLeft or Alignment.LowerRight ? Alignment.LowerLeft : Alignment.UpperLeft, Orientation.Vertical)
+            : panel.ShowLegend(where, orientation);
+        legend.FontSize = compact ? 9 : 11;
         legend.BackgroundColor = Palette.Paper.WithAlpha(230);
         legend.OutlineColor = Palette.Grid;
         legend.FontColor = Palette.Ink;

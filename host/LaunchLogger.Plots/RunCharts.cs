@@ -31,8 +31,10 @@ public static class RunCharts
         TraceChart.DrawLaunch(run, Checked(options));
 
     /// <summary>Several runs' speed and distance on one time axis whose zero is each run's first
-    /// motion or its rollout mark.</summary>
-    /// <exception cref="ArgumentException">No run, or (aligned on the rollout) no run reached the mark.</exception>
+    /// motion or its rollout mark. Runs without that zero (records that opened moving; runs that
+    /// never reached the mark) are left out.</summary>
+    /// <exception cref="ArgumentException">No run, a name count that differs from the run count,
+    /// or no run with the zero asked for.</exception>
     /// <exception cref="ArgumentOutOfRangeException">The options' size is out of range.</exception>
     public static Chart Overlay(IReadOnlyList<RunAnalysis> runs, RunAlignment alignment, ChartOptions? options = null, IReadOnlyList<string>? names = null) =>
         OverlayChart.Draw(runs, alignment, Checked(options), names);

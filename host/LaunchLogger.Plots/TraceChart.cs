@@ -41,7 +41,7 @@ internal static class TraceChart
         int to = untilS is { } u ? Math.Min(all.Length, Math.Max(from + 2, Array.FindLastIndex(all, x => x <= u) + 2)) : all.Length;
         double[] t = all[from..to];
 
-        Multiplot figure = Panels.Figure(3);
+        Multiplot figure = Panels.Figure(options, 3);
         Plot speed = figure.GetPlot(0), distance = figure.GetPlot(1), accel = figure.GetPlot(2);
         Panels.Title(speed, options.Title ?? heading + Path.GetFileName(run.Run.Source));
 
@@ -75,7 +75,7 @@ internal static class TraceChart
 
         Panels.Label(speed, "", $"speed ({units.SpeedUnit()})");
         Panels.Label(distance, "", $"distance ({units.DistanceUnit()})");
-        Panels.Label(accel, "time from first motion (s)", "acceleration (m/s²)");
+        Panels.Label(accel, Marks.TimeAxis(run), "acceleration (m/s²)");
         Panels.Legend(speed);
         Panels.Headroom(speed, speedSigma is { } top ? v.Zip(top, (x, e) => x + (e / units.MpsPerSpeedUnit())).Append(v.Min()) : v);
         Panels.SameX(figure, StartX(t), t[^1]);

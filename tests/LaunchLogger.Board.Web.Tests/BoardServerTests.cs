@@ -54,7 +54,7 @@ public class BoardServerTests
             JsonNode shown = JsonNode.Parse(CliOk("run", "show", "1", "--json", "--archive", archive))!;
             var numbers = article.QuerySelectorAll("[data-src]").Select(e => new PageNumbers.Shown(e.GetAttribute("data-src")!, e.TextContent));
             Assert.True(PageNumbers.CheckAll(numbers, shown["report"]!, null, imperial: true) > 30);
-            Assert.Equal(2, article.QuerySelectorAll("figure.plot svg").Length);
+            Assert.Equal(3, article.QuerySelectorAll("figure.plot svg").Length);
 
             // Read-only: nothing but GET; unknown runs and pages are 404.
             foreach (HttpMethod method in new[] { HttpMethod.Post, HttpMethod.Put, HttpMethod.Delete, HttpMethod.Patch })

@@ -94,6 +94,7 @@ public sealed class PlotCommandTests
     [Theory]
     [InlineData("--kind", "pie")]
     [InlineData("--align", "finish")]
+    [InlineData("--align", "rollout")]
     [InlineData("--size", "10x10")]
     [InlineData("--size", "wide")]
     [InlineData("--run", "9")]

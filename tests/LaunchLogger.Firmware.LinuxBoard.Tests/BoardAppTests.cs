@@ -122,7 +122,9 @@ public sealed class BoardAppTests : IDisposable
         Assert.Equal(Enumerable.Range(0, frames.Count), frames.Select(f => f.Sequence));
         Assert.Single(frames, f => f.Type == FrameType.Configuration);
         Assert.Single(frames, f => f.Type == FrameType.Summary);
-        Assert.Equal(FrameType.Configuration, frames[0].Type);
+        Assert.Equal(LogFormat.Delimiter, log[0]); // the lone delimiter before the power-up frame (LOG-FORMAT.md, 0x07)
+        Assert.Equal(FrameType.PowerUp, frames[0].Type);
+        Assert.Equal(FrameType.Configuration, frames[1].Type);
         Assert.Equal(FrameType.Summary, frames[^1].Type);
         Assert.Contains(frames, f => f.Type == FrameType.Pulses);
         Assert.Contains(frames, f => f.Type == FrameType.Acceleration);

@@ -45,8 +45,8 @@ public class CardPageTests
         Assert.Equal(run["verdict"]!["level"]!.GetValue<string>(), card.QuerySelector("[data-role=verdict]")!.TextContent);
         Assert.Equal(["From standstill", "After rollout"], card.QuerySelector("table[data-role=speed_intervals]")!.QuerySelectorAll("th.conv").Select(t => t.TextContent));
 
-        // The run's trace and its stop are drawn inline.
-        Assert.Equal(2, card.QuerySelectorAll("figure.plot svg").Length);
+        // The run's trace, its start close up and its stop are drawn inline.
+        Assert.Equal(3, card.QuerySelectorAll("figure.plot svg").Length);
     }
 
     [Fact]

@@ -89,6 +89,22 @@ public sealed partial class RunChartsSvgTests
     }
 
     [Fact]
+    public void A_record_that_opened_moving_shows_no_first_motion_and_no_rollout()
+    {
+        RunAnalysis rolling = SimulatedRuns.OpenedMoving(SimulatedRuns.Launch);
+        IReadOnlyList<string> texts = new SvgDocument(RunCharts.TraceSvg(rolling)).Texts;
+        Assert.Contains("record start (rolling)", texts);
+        Assert.Contains("time from the record's start (s)", texts);
+        Assert.DoesNotContain("first motion", texts);
+        Assert.DoesNotContain("rollout zone", texts);
+        Assert.DoesNotContain("rollout 1 ft", texts);
+
+        // Neither convention's zero exists for it, so an overlay of it alone has nothing to align.
+        Assert.Throws<ArgumentException>(() => RunCharts.Overlay([rolling], RunAlignment.Standstill));
+        Assert.Throws<ArgumentException>(() => RunCharts.Overlay([rolling], RunAlignment.Rollout));
+    }
+
+    [Fact]
     public void No_band_is_drawn_when_the_trajectory_has_no_sigma()
     {
         IReadOnlyList<string> texts = new SvgDocument(RunCharts.TraceSvg(SimulatedRuns.WithoutSigma(SimulatedRuns.Launch))).Texts;

@@ -30,9 +30,16 @@ public static class SimulatedRuns
     /// <summary>The run as if its trajectory came without σ columns (as a truth trajectory does).</summary>
     public static RunAnalysis WithoutSigma(RunAnalysis run)
     {
+        Trajectory t = run.Reconstruction.Trajectory;
+        return Rebuilt(run, new Trajectory { TimeS = t.TimeS, DistanceM = t.DistanceM, SpeedMps = t.SpeedMps, AccelMps2 = t.AccelMps2 }, staged: true);
+    }
+
+    /// <summary>The run as if its record had opened moving (no standstill seen).</summary>
+    public static RunAnalysis OpenedMoving(RunAnalysis run) => Rebuilt(run, run.Reconstruction.Trajectory, staged: false);
+
+    private static RunAnalysis Rebuilt(RunAnalysis run, Trajectory bare, bool staged)
+    {
         ReconstructedRun r = run.Reconstruction;
-        Trajectory t = r.Trajectory;
-        var bare = new Trajectory { TimeS = t.TimeS, DistanceM = t.DistanceM, SpeedMps = t.SpeedMps, AccelMps2 = t.AccelMps2 };
         var recon = new ReconstructedRun
         {
             Source = r.Source,
@@ -43,6 +50,7 @@ public static class SimulatedRuns
             RolloutM = r.RolloutM,
             Method = r.Method,
             Warnings = r.Warnings,
+            Staged = staged,
         };
         return run with { Reconstruction = recon };
     }

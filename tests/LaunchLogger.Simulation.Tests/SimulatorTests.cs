@@ -16,12 +16,19 @@ public sealed class SimulatorTests
         LogFrames log = LogFrames.Parse(r.LogBytes);
 
         // LOG-FORMAT.md: every frame checks (COBS, CRC-32/ISO-HDLC), sequence numbers run on by
-        // one, and a run is one configuration frame first and one summary frame last.
+        // one from the power-up frame (0x07, after a lone delimiter), and a run is one
+        // configuration frame first and one summary frame last, with copies of the configuration
+        // (0x08) between.
+        Assert.Equal(LogFormat.Delimiter, r.LogBytes[0]);
         Assert.Equal(0, log.BadFrames);
         Assert.Equal(1, r.BoxRuns);
+        Assert.Equal(FrameType.PowerUp, log.Frames[0].Type);
+        Assert.Equal(0, log.Frames[0].Sequence);
         Assert.Single(log.OfType(FrameType.Configuration));
         Assert.Single(log.OfType(FrameType.Summary));
-        Assert.Equal(FrameType.Configuration, log.Frames[0].Type);
+        Assert.NotEmpty(log.OfType(FrameType.ConfigurationCopy));
+        Assert.All(log.OfType(FrameType.ConfigurationCopy), c => Assert.Equal(log.OfType(FrameType.Configuration).Single().Body, c.Body));
+        Assert.Equal(FrameType.Configuration, log.Frames[1].Type);
         Assert.Equal(FrameType.Summary, log.Frames[^1].Type);
         for (int i = 1; i < log.Frames.Count; i++)
         {

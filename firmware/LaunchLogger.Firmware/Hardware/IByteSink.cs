@@ -1,7 +1,8 @@
 namespace LaunchLogger.Firmware.Hardware
 {
     /// <summary>Where finished log bytes go: a file on storage, a serial port, or both.</summary>
-    /// <remarks>Each call hands over one whole frame, delimiter included. An implementation must
+    /// <remarks>Each call hands over one whole frame, delimiter included, or (once, at power-up)
+    /// a lone delimiter, the empty frame that ends whatever a power cut left unfinished. An implementation must
     /// not keep a reference to the buffer after returning: the writer reuses it.</remarks>
     public interface IByteSink
     {

@@ -358,6 +358,10 @@ namespace LaunchLogger.Firmware.Run
             if (nowMicros >= nextHealthMicros)
             {
                 WriteHealth(nowMicros);
+
+                // The run's configuration again: a reader that lost the first copy (one bad bit)
+                // opens the run from this one (LOG-FORMAT.md, 0x08).
+                WriteConfiguration(FrameType.ConfigurationCopy);
                 nextHealthMicros = nowMicros + settings.HealthIntervalMicros;
             }
 
@@ -365,6 +369,22 @@ namespace LaunchLogger.Firmware.Run
             {
                 CloseRun(nowMicros, true);
             }
+        }
+
+        /// <summary>Marks a power-up in the log: a lone delimiter, then the PowerUp frame
+        /// (LOG-FORMAT.md, 0x07), so that a reader tells this power-up from the one before it even
+        /// when a power cut left that one's last frame unfinished in the same file. Call once,
+        /// before anything else is written.</summary>
+        /// <param name="nowMicros">The clock when the core first ran.</param>
+        public void PowerUp(long nowMicros)
+        {
+            writer.WriteDelimiter();
+            writer.Begin(FrameType.PowerUp);
+            writer.PutVarint(nowMicros < 0 ? 0 : nowMicros);
+            writer.PutByte(FirmwareVersion.Major);
+            writer.PutByte(FirmwareVersion.Minor);
+            writer.PutByte(FirmwareVersion.Patch);
+            writer.End();
         }
 
         /// <summary>Closes an open run without a stop (power going down, user request).</summary>
@@ -600,7 +620,7 @@ namespace LaunchLogger.Firmware.Run
                 batches[c].Reset();
             }
 
-            WriteConfiguration();
+            WriteConfiguration(FrameType.Configuration);
             if (staged && settings.AccelPresent)
             {
                 WriteEvent(EventKind.Staged, stagedSinceMicros);
@@ -751,9 +771,9 @@ namespace LaunchLogger.Firmware.Run
             writer.End();
         }
 
-        private void WriteConfiguration()
+        private void WriteConfiguration(FrameType type)
         {
-            writer.Begin(FrameType.Configuration);
+            writer.Begin(type);
             writer.PutByte(LogFormat.Version);
             writer.PutByte(FirmwareVersion.Major);
             writer.PutByte(FirmwareVersion.Minor);

@@ -19,6 +19,7 @@ namespace LaunchLogger.Firmware.Wire
         private readonly HealthCounters health;
         private readonly byte[] encoded = new byte[LogFormat.MaxEncodedFrameBytes];
         private readonly byte[] scratch = new byte[Varint.MaxBytes];
+        private readonly byte[] delimiter = new byte[] { LogFormat.Delimiter };
         private readonly byte[] packed = new byte[2 * PackedShorts];
         private readonly uint[] crcTable = Crc32.SharedTable;
         private int length;
@@ -44,6 +45,19 @@ namespace LaunchLogger.Firmware.Wire
 
             this.sink = sink;
             this.health = health;
+        }
+
+        /// <summary>Writes a lone delimiter: it ends whatever a power cut left unfinished at the
+        /// end of the log (LOG-FORMAT.md, 0x07), so the next frame cannot be read as its tail.</summary>
+        /// <returns>False when the sink refused the byte.</returns>
+        public bool WriteDelimiter()
+        {
+            if (open)
+            {
+                throw new System.InvalidOperationException("a delimiter cannot go inside a frame");
+            }
+
+            return sink.Write(delimiter, 0, 1);
         }
 
         /// <summary>Frames finished since power-up (refused ones included).</summary>

@@ -64,7 +64,9 @@ public static class ReportTableWriter
         string verdictMark = run.Verdict is { } v ? $" · {VerdictMarkup(v.Level)}" : "";
         console.Write(new Rule($"[bold]#{run.Index}: run {run.Run}[/] · {Markup.Escape(Path.GetFileName(run.Source))} · {Markup.Escape(run.Method)}{(run.Staged ? "" : " · rolling start")}{verdictMark}").LeftJustified());
         var facts = new Grid().AddColumn().AddColumn();
-        facts.AddRow("First motion", $"{Format.SecondsWithSigma(run.FirstMotionS, run.FirstMotionUncertaintyS)} on the input's clock");
+        facts.AddRow("First motion", run.FirstMotionS is { } firstMotion
+            ? $"{Format.SecondsWithSigma(firstMotion, run.FirstMotionUncertaintyS)} on the input's clock"
+            : "none: the run opened moving");
         RolloutReport r = run.Rollout;
         facts.AddRow(
             $"Rollout ({Format.Distance(r.DistanceM, units)})",

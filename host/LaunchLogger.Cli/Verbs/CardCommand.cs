@@ -102,13 +102,13 @@ public static class CardCommand
         }
         else
         {
-            ReportCommand.Analysed? analysed = ReportCommand.Analyse(logs, "card", error, out ExitCode failed, cancel);
+            ReportCommand.Analysed? analysed = ReportCommand.Analyse(logs, "card", error, out ExitCode failed, cancel, keepRuns: true);
             if (analysed is null)
             {
                 return failed;
             }
 
-            cards = analysed.Document.Runs.Select((run, i) => Card(analysed.Document, run, units, CardPlots.For(analysed.Session.Runs[i], units))).ToList();
+            cards = analysed.Document.Runs.Select((run, i) => Card(analysed.Document, run, units, CardPlots.For(analysed.Session!.Runs[i], units))).ToList();
             code = analysed.Code;
         }
 

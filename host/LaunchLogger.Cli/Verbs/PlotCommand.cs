@@ -23,7 +23,7 @@ public static class PlotCommand
         var output = new Option<FileInfo>("--out") { Description = "The picture to write; .svg or .png picks the format. With several runs (trace, launch, braking) each gets its own file: NAME-run1.svg, NAME-run2.svg…", Required = true };
         var kind = new Option<string>("--kind") { Description = "trace: speed, distance and acceleration of each run; launch: the same, close up on the start and the rollout mark; overlay: every run on one chart; braking: each run's stop against time and distance.", DefaultValueFactory = _ => "trace" };
         kind.AcceptOnlyFromAmong(Kinds);
-        var align = new Option<string>("--align") { Description = "For an overlay: zero of time at each run's first motion (standstill) or at its rollout mark (rollout).", DefaultValueFactory = _ => "standstill" };
+        var align = new Option<string?>("--align") { Description = "For an overlay: zero of time at each run's first motion (standstill, the default) or at its rollout mark (rollout)." };
         align.AcceptOnlyFromAmong(Alignments);
         var run = new Option<int[]>("--run") { Description = "Only this run, by its number in the report, from 1 (repeatable; default every run).", AllowMultipleArgumentsPerToken = false };
         var units = new Option<DisplayUnits>("--units") { Description = "Units on the axes: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
@@ -40,7 +40,7 @@ public static class PlotCommand
                 Logs = parse.GetValue(logs) ?? [],
                 Out = parse.GetValue(output)!.FullName,
                 Kind = parse.GetValue(kind)!,
-                Align = parse.GetValue(align)!,
+                Align = parse.GetValue(align),
                 Runs = parse.GetValue(run) ?? [],
                 Units = parse.GetValue(units),
                 Size = parse.GetValue(size)!,
@@ -68,9 +68,14 @@ public static class PlotCommand
                 throw new UsageException($"--kind '{request.Kind}' must be one of {string.Join(", ", Kinds)}");
             }
 
-            if (!Alignments.Contains(request.Align))
+            if (request.Align is { } a && !Alignments.Contains(a))
             {
-                throw new UsageException($"--align '{request.Align}' must be standstill or rollout");
+                throw new UsageException($"--align '{a}' must be standstill or rollout");
+            }
+
+            if (request.Align != null && request.Kind != "overlay")
+            {
+                throw new UsageException("--align is for --kind overlay (a single run's charts start at its first motion)");
             }
 
             if (request.RolloutM is { } r && !(r > 0 && r < 10))
@@ -130,8 +135,11 @@ public static class PlotCommand
         {
             case "overlay":
                 RunAlignment alignment = request.Align == "rollout" ? RunAlignment.Rollout : RunAlignment.Standstill;
-                var chosen = numbers.Where(n => alignment == RunAlignment.Standstill || session.Runs[n - 1].Reconstruction.RolloutTimeS != null).ToList();
-                skipped.AddRange(numbers.Except(chosen).Select(n => $"run {n} never reached the rollout mark, so it is left out of the overlay"));
+                var chosen = numbers.Where(n => session.Runs[n - 1].Reconstruction.Staged
+                    && (alignment == RunAlignment.Standstill || session.Runs[n - 1].Reconstruction.RolloutTimeS != null)).ToList();
+                skipped.AddRange(numbers.Except(chosen).Select(n => session.Runs[n - 1].Reconstruction.Staged
+                    ? $"run {n} never reached the rollout mark, so it is left out of the overlay"
+                    : $"run {n} opened while rolling (no standstill), so it is left out of the overlay"));
                 if (chosen.Count > 0)
                 {
                     charts.Add((request.Out, () => RunCharts.Overlay(chosen.Select(n => session.Runs[n - 1]).ToList(), alignment, chart, chosen.Select(n => $"run {n}").ToList())));

@@ -12,8 +12,8 @@ public sealed record PlotRequest
     /// <summary>trace, launch, overlay or braking.</summary>
     public string Kind { get; init; } = "trace";
 
-    /// <summary>For an overlay: standstill or rollout.</summary>
-    public string Align { get; init; } = "standstill";
+    /// <summary>For an overlay: standstill or rollout; null for the default (standstill).</summary>
+    public string? Align { get; init; }
 
     /// <summary>Run numbers to draw, from 1; empty for every run.</summary>
     public IReadOnlyList<int> Runs { get; init; } = [];

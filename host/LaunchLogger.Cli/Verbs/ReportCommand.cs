@@ -75,7 +75,7 @@ public static class ReportCommand
             return ExitCode.Usage;
         }
 
-        Analysed? analysed = Analyse(request, "report", error, out ExitCode failed, cancel);
+        Analysed? analysed = Analyse(request, "report", error, out ExitCode failed, cancel, keepRuns: request.Plot is not null);
         if (analysed is null)
         {
             return failed;
@@ -90,7 +90,7 @@ public static class ReportCommand
             ReportTableWriter.Write(analysed.Document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
         }
 
-        if (request.Plot is { } plotFile && !WritePlots(analysed.Session, plotFile, request.Units, error, cancel))
+        if (request.Plot is { } plotFile && !WritePlots(analysed.Session!, plotFile, request.Units, error, cancel))
         {
             return ExitCode.BadInput;
         }
@@ -125,18 +125,21 @@ public static class ReportCommand
     }
 
     /// <summary>What <see cref="Analyse"/> made of a request.</summary>
-    /// <param name="Session">Every run analysed.</param>
+    /// <param name="Session">Every run analysed, with its reconstruction; null unless asked for
+    /// (keepRuns): kept, a long log's runs take memory in proportion to the log.</param>
     /// <param name="Document">The report document (what --json writes).</param>
     /// <param name="Code">The exit code the report gives: 0 only when every run asked for was
     /// reported and judged valid; a doubtful or invalid run, or an input that yielded no run,
     /// makes the result partial.</param>
-    public sealed record Analysed(SessionAnalysis Session, ReportDocument Document, ExitCode Code);
+    public sealed record Analysed(SessionAnalysis? Session, ReportDocument Document, ExitCode Code);
 
     /// <summary>Reads, analyses and reports what <paramref name="request"/> names, as the report
     /// verb does (other verbs that show the report's figures use this, so their numbers are the
     /// report's); problems go to <paramref name="error"/> prefixed by <paramref name="verb"/>.</summary>
     /// <returns>Null when nothing could be reported; then <paramref name="failed"/> says why.</returns>
-    public static Analysed? Analyse(ReportRequest request, string verb, TextWriter error, out ExitCode failed, CancellationToken cancel = default)
+    /// <remarks>With <c>keepRuns</c> every run's whole analysis (for plots and cards) is kept in
+    /// <see cref="Analysed.Session"/>; otherwise runs are let go as they are reported.</remarks>
+    public static Analysed? Analyse(ReportRequest request, string verb, TextWriter error, out ExitCode failed, CancellationToken cancel = default, bool keepRuns = false)
     {
         AnalysisOptions options;
         Weather? weather;
@@ -193,23 +196,33 @@ public static class ReportCommand
             return null;
         }
 
+        // Runs are read, analysed and reported one at a time; only each run's report entry and
+        // figures are kept (and its whole analysis only when asked), so a season's log takes the
+        // memory of its largest run.
+        StreamedSession<(RunReport Report, RunAnalysis? Analysis)> streamed = SessionAnalyzer.AnalyzeEach(
+            inputs.SelectMany(i => i.Runs), (analysis, index) => (RunReportBuilder.Build(analysis, index), keepRuns ? analysis : null), options, referenceRuns, cancel);
+        var session = new StreamedSession<RunReport>
+        {
+            Runs = streamed.Runs.Select(r => new StreamedRun<RunReport>(r.Kept.Report, r.Figures, r.Verdict)).ToList(),
+            Bound = streamed.Bound,
+            Failures = streamed.Failures,
+        };
         ReaderReport? reader = null;
         var failures = new List<string>();
         foreach (RunInputs.Input input in inputs)
         {
             reader = ReaderReport.Sum(reader, input.Reader);
-            foreach (string warning in input.Warnings ?? [])
+            foreach (string warning in input.Warnings)
             {
                 error.WriteLine($"launchlogger {verb}: {input.Source}: {warning}");
             }
 
-            if (input.Runs.Count == 0)
+            if (input.RunCount == 0)
             {
                 failures.Add($"{input.Source}: no runs in the input");
             }
         }
 
-        SessionAnalysis session = SessionAnalyzer.Analyze(inputs.SelectMany(i => i.Runs), options, referenceRuns, cancel);
         failures.AddRange(session.Failures);
         foreach (string failure in failures)
         {
@@ -237,9 +250,12 @@ public static class ReportCommand
         ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, string.Join(", ", inputs.Select(i => i.Source)), reader, weather, pairs);
         // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
         // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
-        bool allValid = session.Runs.All(r => r.Verdict is null || r.Verdict.Level == VerdictLevel.Valid);
+        bool allValid = session.Runs.All(r => r.Verdict.Level == VerdictLevel.Valid);
+        SessionAnalysis? kept = keepRuns
+            ? new SessionAnalysis { Runs = streamed.Runs.Select(r => r.Kept.Analysis!.WithVerdict(r.Verdict)).ToList(), Bound = streamed.Bound, Failures = streamed.Failures }
+            : null;
         failed = ExitCode.Ok;
-        return new Analysed(session, document, failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial);
+        return new Analysed(kept, document, failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial);
     }
 
     private static (int A, int B) ParsePair(string text, int runs)

@@ -9,8 +9,64 @@ namespace LaunchLogger.Cli.Verbs;
 /// files — into runs.</summary>
 public static class RunInputs
 {
-    /// <summary>One input and the runs it held.</summary>
-    public sealed record Input(string Source, ReaderReport? Reader, IReadOnlyList<DecodedRun> Runs, IReadOnlyList<string>? Warnings = null);
+    /// <summary>One input and its runs. A log's runs are read as they are enumerated (once), one
+    /// at a time, so that a long log is never held whole; its reader counters and warnings are
+    /// known once they have all been read.</summary>
+    public sealed class Input
+    {
+        private readonly IEnumerable<DecodedRun> runs;
+
+        /// <summary>An input whose runs are all known.</summary>
+        public Input(string source, IReadOnlyList<DecodedRun> runs)
+        {
+            Source = source;
+            this.runs = runs;
+            Done = true;
+        }
+
+        /// <summary>A log read lazily from <paramref name="path"/> (opened now: a missing file fails here).</summary>
+        /// <exception cref="InputException">The file is missing or cannot be opened.</exception>
+        public Input(string path, CalibrationSettings? settings, CancellationToken cancel)
+        {
+            Source = Path.GetFileName(path);
+            runs = LogReader.ReadFileRuns(path, Finish, cancel).Select(r => Calibrate(r, settings));
+        }
+
+        /// <summary>The input's name.</summary>
+        public string Source { get; }
+
+        /// <summary>The runs, read as enumerated; enumerate once.</summary>
+        public IEnumerable<DecodedRun> Runs => Counted();
+
+        /// <summary>How many runs have been read.</summary>
+        public int RunCount { get; private set; }
+
+        /// <summary>True once every run has been read.</summary>
+        public bool Done { get; private set; }
+
+        /// <summary>The reader's counters (logs, once read).</summary>
+        public ReaderReport? Reader { get; private set; }
+
+        /// <summary>The log's own warnings (once read).</summary>
+        public IReadOnlyList<string> Warnings { get; private set; } = [];
+
+        private IEnumerable<DecodedRun> Counted()
+        {
+            foreach (DecodedRun run in runs)
+            {
+                RunCount++;
+                yield return run;
+            }
+
+            Done = true;
+        }
+
+        private void Finish(LogReadResult end)
+        {
+            Reader = ReaderReport.From(end.Stats);
+            Warnings = end.Warnings;
+        }
+    }
 
     /// <summary>Loads the calibration settings file the request names, or null for none.</summary>
     /// <exception cref="InputException">The file is missing or not a settings file.</exception>
@@ -21,7 +77,8 @@ public static class RunInputs
     public static DecodedRun Calibrate(DecodedRun run, CalibrationSettings? settings) =>
         settings is null ? run : CalibrationApplier.Apply(run, settings);
 
-    /// <summary>Loads every input the request names, with its calibration settings (if any) applied to every run.</summary>
+    /// <summary>Opens every input the request names, with its calibration settings (if any) applied
+    /// to every run; logs are read as their runs are enumerated.</summary>
     /// <exception cref="InputException">A file is missing or unusable (one line, naming it).</exception>
     /// <exception cref="UsageException">The request mixes or lacks inputs.</exception>
     public static List<Input> Load(ReportRequest request, CancellationToken cancel)
@@ -48,7 +105,7 @@ public static class RunInputs
                 AccelPath = request.Accel?.FullName,
                 Scale = PulseScale.FromOptions(request.MetresPerPulse, request.PulsesPerRevolution, request.CircumferenceM),
             });
-            inputs.Add(new Input(run.Source, null, [Calibrate(run, settings)]));
+            inputs.Add(new Input(run.Source, [Calibrate(run, settings)]));
             return inputs;
         }
 
@@ -59,8 +116,7 @@ public static class RunInputs
 
         foreach (FileInfo log in request.Logs)
         {
-            LogReadResult result = LogReader.ReadFile(log.FullName, cancel);
-            inputs.Add(new Input(result.Source, ReaderReport.From(result.Stats), result.Runs.Select(r => Calibrate(r, settings)).ToList(), result.Warnings));
+            inputs.Add(new Input(log.FullName, settings, cancel));
         }
 
         return inputs;

@@ -36,7 +36,7 @@ public static class RunAnalyzer
 
         double[] brakeOn = run.Events.Where(e => e.Kind == EventKind.BrakeOn).Select(e => e.TimeS - options.BrakeSwitchDelayS).ToArray();
         (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
-        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel);
+        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions));
 
         // Nothing reached after brake onset is an acceleration figure.
         double? onset = braking?.OnsetS.Value;
@@ -61,5 +61,24 @@ public static class RunAnalyzer
             LevelFigures = level,
             StandardAirFigures = standardAir,
         };
+    }
+
+    /// <summary>1-σ of one pulse observation's position near the end of the run, m: the tooth
+    /// spacing error, and the top speed times the median bracket width (uniform: /√12).</summary>
+    private static double PulsePositionSigma(DecodedRun run, ReconstructedRun reconstruction, ReconstructionOptions options)
+    {
+        IReadOnlyList<PulseRecord> pulses = reconstruction.DistanceChannel == 1 ? run.SecondPulses : run.Pulses;
+        double mpp = reconstruction.DistanceChannel == 1 ? run.Configuration.SecondMetresPerPulse : run.Configuration.MetresPerPulse;
+        if (pulses.Count < 3 || !(mpp > 0))
+        {
+            return 0;
+        }
+
+        double[] widths = pulses.Skip(pulses.Count / 2).Select(p => p.WidthS).Order().ToArray();
+        double width = widths[widths.Length / 2];
+        double speed = reconstruction.Trajectory.SpeedMps.Max();
+        double tooth = options.ToothSpacingErrorFraction * mpp;
+        double bracket = speed * width / Math.Sqrt(12);
+        return Math.Sqrt((tooth * tooth) + (bracket * bracket));
     }
 }

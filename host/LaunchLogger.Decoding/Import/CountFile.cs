@@ -10,7 +10,9 @@ namespace LaunchLogger.Decoding.Import;
 /// <para>The count column is cumulative from an arbitrary origin (whatever the counter held when
 /// the capture started). The origin — the count before the run's first pulse — is taken as:
 /// the first row's count when the second row repeats it (a capture that writes every poll,
-/// standing still at first: the first row is a reading, not a pulse); otherwise the first row's
+/// standing still at first: the first row is a reading, not a pulse) or when the first row's
+/// bracket has no width and the second's has (an opening reading of a record that starts moving);
+/// otherwise the first row's
 /// count minus one (a capture that writes only changes: the first row is the first pulse, and a
 /// first bracket that held more than one pulse cannot be told apart from one that held one).
 /// Counts in the result are relative to that origin, so the first pulse has count 1 or more.</para>
@@ -71,7 +73,9 @@ public static class CountFile
         }
 
         table.RequireRows(2);
-        bool firstIsReading = rows[1].Count == rows[0].Count;
+        // A zero-width first row ahead of brackets with width is the capture's opening reading
+        // too (a record that opens moving changes the count at once): no pulse's bracket is empty.
+        bool firstIsReading = rows[1].Count == rows[0].Count || (rows[0].Hi == rows[0].Lo && rows[1].Hi > rows[1].Lo);
         long origin = firstIsReading ? rows[0].Count : rows[0].Count - 1;
         var records = new List<PulseRecord>();
         long last = origin;

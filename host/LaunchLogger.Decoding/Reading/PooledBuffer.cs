@@ -7,7 +7,9 @@ namespace LaunchLogger.Decoding.Reading;
 /// the collection step of reading a log, reused from run to run so that a long log grows it
 /// once instead of once per run.</summary>
 /// <remarks>Only for types without references (the pool does not clear what it gets back).
-/// <see cref="Dispose"/> gives the array back; a buffer never disposed is simply collected.</remarks>
+/// <see cref="Dispose"/> gives the array back; a buffer never disposed is simply collected.
+/// Its arrays come from <see cref="ScratchArrays"/>: a long run's buffers (and the smaller ones
+/// they grew from) are not kept in the pool after the run.</remarks>
 internal sealed class PooledBuffer<T> : IDisposable
     where T : unmanaged
 {
@@ -15,7 +17,7 @@ internal sealed class PooledBuffer<T> : IDisposable
 
     public PooledBuffer(int initialCapacity)
     {
-        items = ArrayPool<T>.Shared.Rent(Math.Max(initialCapacity, 16));
+        items = Rent(Math.Max(initialCapacity, 16));
     }
 
     /// <summary>Values held.</summary>
@@ -61,17 +63,29 @@ internal sealed class PooledBuffer<T> : IDisposable
     /// <summary>Empties the buffer, keeping its array.</summary>
     public void Clear() => Count = 0;
 
+    /// <summary>Empties the buffer and lets go of its array if it is too large to pool (a long
+    /// run's), so that it is not held while the next, likely shorter, run is read.</summary>
+    public void ClearAndShrink()
+    {
+        Count = 0;
+        if ((long)items.Length * Unsafe.SizeOf<T>() > ScratchArrays.MaxPooledBytes)
+        {
+            items = Rent(16);
+        }
+    }
+
     /// <summary>Gives the array back to the pool; the buffer must not be used afterwards.</summary>
     public void Dispose()
     {
         T[] array = items;
         items = [];
         Count = 0;
-        if (array.Length > 0)
-        {
-            ArrayPool<T>.Shared.Return(array);
-        }
+        GiveBack(array);
     }
+
+    private static T[] Rent(int size) => ScratchArrays.Rent<T>(size);
+
+    private static void GiveBack(T[] array) => ScratchArrays.Return(array);
 
     [MethodImpl(MethodImplOptions.NoInlining)]
     private void AddWithGrowth(T item)
@@ -93,13 +107,10 @@ internal sealed class PooledBuffer<T> : IDisposable
             throw new OutOfMemoryException("a run holds more values than an array can");
         }
 
-        T[] larger = ArrayPool<T>.Shared.Rent(size);
+        T[] larger = Rent(size);
         items.AsSpan(0, Count).CopyTo(larger);
         T[] old = items;
         items = larger;
-        if (old.Length > 0)
-        {
-            ArrayPool<T>.Shared.Return(old);
-        }
+        GiveBack(old);
     }
 }

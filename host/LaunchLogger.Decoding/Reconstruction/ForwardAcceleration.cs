@@ -116,6 +116,14 @@ internal sealed class ForwardAcceleration
         CorrelationFactor = 1;
     }
 
+    /// <summary>Replaces the resting level (keeping the noise taken with it) by one found another
+    /// way, e.g. from a stretch whose acceleration the pulses tell.</summary>
+    public void MoveRestLevel(double levelMps2, double sigmaMps2)
+    {
+        RestLevelMps2 = levelMps2;
+        RestLevelSigmaMps2 = sigmaMps2;
+    }
+
     /// <summary>Forward acceleration with the resting level removed and, when the vertical axis
     /// was measured, the body's pitch under load taken out.</summary>
     /// <remarks>

@@ -1,4 +1,3 @@
-using System.Buffers;
 
 namespace LaunchLogger.Decoding.Reconstruction;
 
@@ -17,6 +16,9 @@ internal enum FusionMode
 internal sealed class FusionSettings
 {
     public required FusionMode Mode { get; init; }
+
+    /// <summary>The most grid points whose filtered states are kept whole (<see cref="ReconstructionOptions.FilterStatesKept"/>).</summary>
+    public int MaxStoredSteps { get; init; } = 1 << 18;
 
     /// <summary>Grid times, ascending, seconds.</summary>
     public required double[] GridS { get; init; }
@@ -137,7 +139,7 @@ internal sealed class FusionResult
     public required Estimate PhaseM { get; init; }
 
     /// <summary>Smoothed slip coefficient, s²/m (before any conditioning on k = 0).</summary>
-    public Estimate Slip { get; init; }
+    public Estimate Slip { get; set; }
 
     /// <summary>True when the slip coefficient was kept; false when it was too small to tell
     /// from no slip and the result was conditioned on k = 0.</summary>
@@ -182,7 +184,14 @@ internal static class FusionSmoother
 
         FusionResult without = RunOnce(s, slipAllowed: false);
         double needed = s.SlipEvidence + (s.SlipEvidencePerPulse * withSlip.PulsesUsed);
-        return 2 * (withSlip.LogLikelihood - without.LogLikelihood) >= needed ? withSlip : without;
+        // Without the slip kept, its estimate still says how much slip the data leave room for.
+        if (2 * (withSlip.LogLikelihood - without.LogLikelihood) >= needed)
+        {
+            return withSlip;
+        }
+
+        without.Slip = withSlip.Slip;
+        return without;
     }
 
     private static FusionResult RunOnce(FusionSettings s, bool slipAllowed)
@@ -192,118 +201,129 @@ internal static class FusionSmoother
         int n = grid.Length;
         int k0 = FirstIndexAfter(grid, s.StartS);
         int m = Math.Max(n - k0, 0);
-        // The filtered states, kept for the backward pass: rented, as they are large and short-lived.
-        Vec[] xf = ArrayPool<Vec>.Shared.Rent(Math.Max(m, 1));
-        Sym[] pf = ArrayPool<Sym>.Shared.Rent(Math.Max(m, 1));
         byte[] jump = Marks(s, grid, k0);
-
-        var x = new Vec { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean, K = slipAllowed ? s.SlipMean : 0 };
-        var p = new Sym
+        var f = new FilterState
         {
-            P11 = s.InitialSpeedSigma * s.InitialSpeedSigma,
-            P22 = s.ThirdSigma * s.ThirdSigma,
-            P33 = s.PhaseSigma * s.PhaseSigma,
-            P44 = Math.Max(slipPrior * slipPrior, 1e-30),
+            X = new Vec { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean, K = slipAllowed ? s.SlipMean : 0 },
+            P = new Sym
+            {
+                P11 = s.InitialSpeedSigma * s.InitialSpeedSigma,
+                P22 = s.ThirdSigma * s.ThirdSigma,
+                P33 = s.PhaseSigma * s.PhaseSigma,
+                P44 = Math.Max(slipPrior * slipPrior, 1e-30),
+            },
         };
-        double[]? slip = s.SlipSignal;
-
-        int used = 0;
-        int outliers = 0;
-        double logLikelihood = 0;
         if (m > 0)
         {
-            Predict(s, ref x, ref p, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, marks: 0, stepVariance: 0);
+            Predict(s, ref f.X, ref f.P, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, marks: 0, stepVariance: 0);
         }
 
         PulseChannel? pulses = s.Pulses;
-        int ip = 0;
         if (pulses != null)
         {
-            while (ip < pulses.Length && pulses.MidS(ip) <= s.StartS)
+            while (f.Ip < pulses.Length && pulses.MidS(f.Ip) <= s.StartS)
             {
-                ip++;
+                f.Ip++;
             }
         }
 
+        // The filtered states, kept for the backward pass (or, for a long run, every
+        // CheckpointSteps-th filter state, from which the backward pass replays them).
+        var states = new FilteredStates(s, grid, jump, k0, m);
+        try
+        {
+            for (int k = k0; k < n; k++)
+            {
+                states.BeforeStep(k - k0, in f);
+                FilterStep(s, grid, jump, k0, k, ref f);
+                states.AfterStep(k - k0, in f);
+            }
+
+            return Smooth(s, slipPrior, grid, k0, states, jump, f.Used, f.Outliers, f.LogLikelihood);
+        }
+        finally
+        {
+            states.Dispose();
+        }
+    }
+
+    /// <summary>One step of the forward (filter) pass at grid point <paramref name="k"/>: the
+    /// pulse observations before the next grid point, the hold at a stop, the filtered state
+    /// (<see cref="FilterState.FilteredX"/>, <see cref="FilterState.FilteredP"/>), then the
+    /// prediction to the next grid point. It depends on nothing but its arguments, so that a
+    /// stretch of the pass can be replayed from a saved state with the same result.</summary>
+    private static void FilterStep(FusionSettings s, double[] grid, byte[] jump, int k0, int k, ref FilterState f)
+    {
+        int n = grid.Length;
+        PulseChannel? pulses = s.Pulses;
+        double[]? slip = s.SlipSignal;
         double mpp = s.MetresPerPulse;
         double toothVar = s.ToothSigmaM * s.ToothSigmaM;
         double jitterVar = s.EdgeJitterS * s.EdgeJitterS;
         bool accelMode = s.Mode == FusionMode.Accelerometer;
-        for (int k = k0; k < n; k++)
+        double tk = grid[k];
+        double tNext = k + 1 < n ? grid[k + 1] : double.PositiveInfinity;
+        double meanInput = k + 1 < n && accelMode ? s.StepSpeedM[k] / (tNext - tk) : 0;
+        bool frozen = k >= s.StopIndex;
+        while (pulses != null && f.Ip < pulses.Length && pulses.MidS(f.Ip) < tNext)
         {
-            double tk = grid[k];
-            double tNext = k + 1 < n ? grid[k + 1] : double.PositiveInfinity;
-            double meanInput = k + 1 < n && accelMode ? s.StepSpeedM[k] / (tNext - tk) : 0;
-            bool frozen = k >= s.StopIndex;
-            while (pulses != null && ip < pulses.Length && pulses.MidS(ip) < tNext)
+            int ip = f.Ip;
+            double mid = pulses.MidS(ip);
+            if (!frozen && !InSpin(s.SpinWindows, mid) && !InSpin(s.BrakeWindows, mid))
             {
-                double mid = pulses.MidS(ip);
-                if (!frozen && !InSpin(s.SpinWindows, mid) && !InSpin(s.BrakeWindows, mid))
+                double speed = Math.Max(f.X.V, 0);
+                double lo = pulses.LoS[ip];
+                double hi = pulses.HiS[ip];
+                pulses.PulsePeriod(ip, out double period, out double periodSigma);
+                BracketModel.LastEdge(lo, hi, pulses.Increment(ip), period, Math.Min(0.5, periodSigma + (3 * s.ToothSigmaM / Math.Max(mpp, 1e-9))), out lo, out hi);
+
+                double delta = (0.5 * (lo + hi)) - tk;
+                double w = hi - lo;
+                double z = pulses.Counts[ip] * mpp;
+                double h2 = 0.5 * delta * delta;
+                if (accelMode)
                 {
-                    double speed = Math.Max(x.V, 0);
-                    double lo = pulses.LoS[ip];
-                    double hi = pulses.HiS[ip];
-                    pulses.PulsePeriod(ip, out double period, out double periodSigma);
-                    BracketModel.LastEdge(lo, hi, pulses.Increment(ip), period, Math.Min(0.5, periodSigma + (3 * s.ToothSigmaM / Math.Max(mpp, 1e-9))), out lo, out hi);
-
-                    double delta = (0.5 * (lo + hi)) - tk;
-                    double w = hi - lo;
-                    double z = pulses.Counts[ip] * mpp;
-                    double h2 = 0.5 * delta * delta;
-                    if (accelMode)
-                    {
-                        z -= meanInput * h2;
-                        h2 = -h2;
-                    }
-
-                    double r = toothVar + (speed * speed * ((w * w / 12) + jitterVar)) + 1e-12;
-                    double h4 = 0;
-                    if (slip != null)
-                    {
-                        double f = k + 1 < n ? delta / (tNext - tk) : 0;
-                        h4 = slip[k] + (f * ((k + 1 < n ? slip[k + 1] : slip[k]) - slip[k]));
-                    }
-
-                    Update(ref x, ref p, 1, delta, h2, 1, h4, z, r, gate: used >= 6, out bool ok, ref logLikelihood);
-                    if (ok)
-                    {
-                        used++;
-                    }
-                    else
-                    {
-                        outliers++;
-                    }
+                    z -= meanInput * h2;
+                    h2 = -h2;
                 }
 
-                ip++;
+                double r = toothVar + (speed * speed * ((w * w / 12) + jitterVar)) + 1e-12;
+                double h4 = 0;
+                if (slip != null)
+                {
+                    double fraction = k + 1 < n ? delta / (tNext - tk) : 0;
+                    h4 = slip[k] + (fraction * ((k + 1 < n ? slip[k + 1] : slip[k]) - slip[k]));
+                }
+
+                Update(ref f.X, ref f.P, 1, delta, h2, 1, h4, z, r, gate: f.Used >= 6, out bool ok, ref f.LogLikelihood);
+                if (ok)
+                {
+                    f.Used++;
+                }
+                else
+                {
+                    f.Outliers++;
+                }
             }
 
-            if (frozen)
-            {
-                Update(ref x, ref p, 0, 1, 0, 0, 0, 0, 1e-8, gate: false, out _, ref logLikelihood);
-            }
-
-            xf[k - k0] = x;
-            pf[k - k0] = p;
-            if (k + 1 < n)
-            {
-                bool noInput = s.NoInput != null && s.NoInput[k];
-                Predict(s, ref x, ref p, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]));
-            }
+            f.Ip++;
         }
 
-        try
+        if (frozen)
         {
-            return Smooth(s, slipPrior, grid, k0, xf, pf, jump, used, outliers, logLikelihood);
+            Update(ref f.X, ref f.P, 0, 1, 0, 0, 0, 0, 1e-8, gate: false, out _, ref f.LogLikelihood);
         }
-        finally
+
+        f.FilteredX = f.X;
+        f.FilteredP = f.P;
+        if (k + 1 < n)
         {
-            ArrayPool<Vec>.Shared.Return(xf);
-            ArrayPool<Sym>.Shared.Return(pf);
+            bool noInput = s.NoInput != null && s.NoInput[k];
+            Predict(s, ref f.X, ref f.P, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]));
         }
     }
 
-    private static FusionResult Smooth(FusionSettings s, double slipPrior, double[] grid, int k0, Vec[] xf, Sym[] pf, byte[] jump, int used, int outliers, double logLikelihood)
+    private static FusionResult Smooth(FusionSettings s, double slipPrior, double[] grid, int k0, FilteredStates filtered, byte[] jump, int used, int outliers, double logLikelihood)
     {
         int n = grid.Length;
         var d = new double[n];
@@ -326,8 +346,7 @@ internal static class FusionSmoother
             };
         }
 
-        Vec xs = xf[n - 1 - k0];
-        Sym ps = pf[n - 1 - k0];
+        filtered.Get(n - 1 - k0, out Vec xs, out Sym ps);
 
         // The slip coefficient is constant, so its last filtered value is already the smoothed
         // one: decide now whether the wheel slips at all. If not, every smoothed state is
@@ -344,11 +363,12 @@ internal static class FusionSmoother
             bool frozen = k >= s.StopIndex;
             bool noInput = s.NoInput != null && s.NoInput[k];
             double dt = grid[k + 1] - grid[k];
-            Vec xp = xf[j];
-            Sym pp = pf[j];
+            filtered.Get(j, out Vec xj, out Sym pj);
+            Vec xp = xj;
+            Sym pp = pj;
             Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]));
             Transition(s.Mode, dt, frozen, out double f01, out double f02, out double f12);
-            SmoothStep(xf[j], pf[j], xp, pp, f01, f02, f12, ref xs, ref ps);
+            SmoothStep(xj, pj, xp, pp, f01, f02, f12, ref xs, ref ps);
             Emit(k, xs, ps, d, v, sd, sv, third, sthird, slipShift, slipInverse);
         }
 
@@ -792,6 +812,123 @@ internal static class FusionSmoother
         p.P33 = a33;
         p.P34 = a34;
         p.P44 = a44;
+    }
+
+    /// <summary>Everything the forward pass carries from one grid point to the next.</summary>
+    private struct FilterState
+    {
+        /// <summary>The state and covariance predicted for the next grid point.</summary>
+        public Vec X;
+
+        public Sym P;
+
+        /// <summary>The filtered state and covariance at the grid point just done.</summary>
+        public Vec FilteredX;
+
+        public Sym FilteredP;
+
+        /// <summary>The next pulse observation.</summary>
+        public int Ip;
+
+        public int Used;
+
+        public int Outliers;
+
+        public double LogLikelihood;
+    }
+
+    /// <summary>The filtered states of the forward pass, as the backward pass asks for them (last
+    /// first). A short run keeps them all (160 bytes a grid point); a long one (more than
+    /// <see cref="FusionSettings.MaxStoredSteps"/> points: 30 minutes on the 2-ms grid would be 150 MB) keeps the
+    /// filter's state every <see cref="CheckpointSteps"/> points and replays one stretch at a
+    /// time when the backward pass reaches it — the same arithmetic on the same inputs, so the
+    /// same states, for one more forward pass of work and memory of O(√n).</summary>
+    private sealed class FilteredStates : IDisposable
+    {
+        /// <summary>Grid points per replayed stretch.</summary>
+        public const int CheckpointSteps = 1024;
+
+        private readonly FusionSettings s;
+        private readonly double[] grid;
+        private readonly byte[] jump;
+        private readonly int k0;
+        private readonly int count;
+        private readonly bool replay;
+        private readonly FilterState[] checkpoints;
+        private Vec[] xf;
+        private Sym[] pf;
+        private int loaded = -1;
+
+        public FilteredStates(FusionSettings s, double[] grid, byte[] jump, int k0, int count)
+        {
+            this.s = s;
+            this.grid = grid;
+            this.jump = jump;
+            this.k0 = k0;
+            this.count = count;
+            replay = count > Math.Max(s.MaxStoredSteps, CheckpointSteps);
+            int stored = replay ? CheckpointSteps : Math.Max(count, 1);
+            checkpoints = replay ? new FilterState[((count - 1) / CheckpointSteps) + 1] : [];
+            xf = ScratchArrays.Rent<Vec>(stored);
+            pf = ScratchArrays.Rent<Sym>(stored);
+        }
+
+        /// <summary>Called with the state before step <paramref name="j"/> (grid point k0 + j).</summary>
+        public void BeforeStep(int j, in FilterState state)
+        {
+            if (replay && j % CheckpointSteps == 0)
+            {
+                checkpoints[j / CheckpointSteps] = state;
+            }
+        }
+
+        /// <summary>Called with the state after step <paramref name="j"/>.</summary>
+        public void AfterStep(int j, in FilterState state)
+        {
+            if (!replay)
+            {
+                xf[j] = state.FilteredX;
+                pf[j] = state.FilteredP;
+            }
+        }
+
+        /// <summary>The filtered state at step <paramref name="j"/>.</summary>
+        public void Get(int j, out Vec x, out Sym p)
+        {
+            if (!replay)
+            {
+                x = xf[j];
+                p = pf[j];
+                return;
+            }
+
+            int stretch = j / CheckpointSteps;
+            if (stretch != loaded)
+            {
+                FilterState f = checkpoints[stretch];
+                int first = stretch * CheckpointSteps;
+                int last = Math.Min(first + CheckpointSteps, count);
+                for (int i = first; i < last; i++)
+                {
+                    FilterStep(s, grid, jump, k0, k0 + i, ref f);
+                    xf[i - first] = f.FilteredX;
+                    pf[i - first] = f.FilteredP;
+                }
+
+                loaded = stretch;
+            }
+
+            x = xf[j - (stretch * CheckpointSteps)];
+            p = pf[j - (stretch * CheckpointSteps)];
+        }
+
+        public void Dispose()
+        {
+            ScratchArrays.Return(xf);
+            ScratchArrays.Return(pf);
+            xf = [];
+            pf = [];
+        }
     }
 
     /// <summary>Distance, speed, third state, phase, slip coefficient.</summary>

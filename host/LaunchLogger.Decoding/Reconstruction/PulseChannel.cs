@@ -54,23 +54,40 @@ internal sealed class PulseChannel
     /// and above all across a long stall of the loop, it is where the edge can have been.</summary>
     public double EdgeS(int i)
     {
-        if (edges is null)
-        {
-            var result = new double[Length];
-            for (int k = 0; k < result.Length; k++)
-            {
-                PulsePeriod(k, out double period, out double sigma);
-                BracketModel.LastEdge(LoS[k], HiS[k], Increment(k), period, Math.Min(0.5, sigma), out double from, out double to);
-                result[k] = 0.5 * (from + to);
-            }
+        PlaceEdges();
+        return edges![i];
+    }
 
-            edges = result;
+    /// <summary>1-σ of <see cref="EdgeS"/>: the interval's width over √12 (uniform), seconds.</summary>
+    public double EdgeSigmaS(int i)
+    {
+        PlaceEdges();
+        return edgeSigmas![i];
+    }
+
+    private void PlaceEdges()
+    {
+        if (edges is not null)
+        {
+            return;
         }
 
-        return edges[i];
+        var result = new double[Length];
+        var sigmas = new double[Length];
+        for (int k = 0; k < result.Length; k++)
+        {
+            PulsePeriod(k, out double period, out double sigma);
+            BracketModel.LastEdge(LoS[k], HiS[k], Increment(k), period, Math.Min(0.5, sigma), out double from, out double to);
+            result[k] = 0.5 * (from + to);
+            sigmas[k] = (to - from) / Math.Sqrt(12);
+        }
+
+        edgeSigmas = sigmas;
+        edges = result;
     }
 
     private double[]? edges;
+    private double[]? edgeSigmas;
 
     /// <summary>Pulses each side of an observation that <see cref="PulsePeriod"/> counts over.</summary>
     public const int PeriodWindowPulses = 12;

@@ -24,6 +24,13 @@ public sealed record ReconstructionOptions
     /// exactly, so the step only sets how finely the result is reported.</summary>
     public double GridStepS { get; init; } = 0.002;
 
+    /// <summary>The most grid points whose filtered states the smoother keeps whole (160 bytes
+    /// each; the default, 262,144, is about 9 minutes at 2 ms). A longer run keeps every 1024th
+    /// filter state and replays the rest as the backward pass needs them: the same result for
+    /// about a third more time, in memory that no longer grows with the run. A memory knob, not
+    /// a modelling choice.</summary>
+    public int FilterStatesKept { get; init; } = 1 << 18;
+
     /// <summary>1-σ error of each edge's position around the pulse ring as a fraction of the
     /// pulse pitch (machining and sensor threshold spread; about 1 % is common practice).</summary>
     public double ToothSpacingErrorFraction { get; init; } = 0.01;

@@ -126,6 +126,10 @@ internal sealed partial class ReconstructionPass
         }
     }
 
+    /// <summary>Stretch after the first pulse over which a record that opens moving takes the
+    /// accelerometer's level against the first pulses' acceleration, s.</summary>
+    private const double OpeningLevelSpanS = 0.3;
+
     private void PrepareAccelerometer(ForwardAcceleration a)
     {
         double? reference = Min(pulses?.LoS[0], motionHintS);
@@ -150,6 +154,14 @@ internal sealed partial class ReconstructionPass
                 a.SetRest(a.ForwardMps2[0], 0.05);
                 warnings.Add("too few accelerometer samples before first motion: the first sample is taken as the resting level");
             }
+        }
+
+        if (!Staged && pulses != null && opening is { } open && a.SetRest(a.IndexAtOrAfter(pulses.LoS[0]), a.IndexAtOrAfter(pulses.LoS[0] + OpeningLevelSpanS)))
+        {
+            // No rest to read the level from: over the opening stretch the accelerometer reads the
+            // level plus the acceleration the first pulses show.
+            double sigma = Math.Sqrt((a.RestLevelSigmaMps2 * a.RestLevelSigmaMps2) + (open.AccelMps2.Sigma * open.AccelMps2.Sigma));
+            a.MoveRestLevel(a.RestLevelMps2 - open.AccelMps2.Value, sigma);
         }
 
         FindOnset(a);

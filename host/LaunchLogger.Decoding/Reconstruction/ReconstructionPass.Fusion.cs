@@ -65,6 +65,18 @@ internal sealed partial class ReconstructionPass
                 speed = j > 0 ? (pulses.Counts[j] - pulses.Counts[0]) * mpp / Math.Max(pulses.MidS(j) - pulses.MidS(0), 1e-3) : 0;
                 speedSigma = Math.Max(0.3 * speed, 0.5);
             }
+
+            // The first count was reached somewhere in its bracket, not at the bracket's middle
+            // where distances start: at speed that is v·w/√12 of distance (uniform), which a tight
+            // phase would force into a false speed transient at the start.
+            double firstBracketM = speed * (pulses.HiS[0] - pulses.LoS[0]) / Math.Sqrt(12);
+            phaseSigma = Math.Sqrt((phaseSigma * phaseSigma) + (firstBracketM * firstBracketM));
+        }
+
+        else if (!Staged && accelOpeningSpeed is { } v0)
+        {
+            speed = v0.Value;
+            speedSigma = v0.Sigma;
         }
 
         int stopIndex = int.MaxValue;
@@ -107,6 +119,7 @@ internal sealed partial class ReconstructionPass
             SlipSignal = slipSignal,
             SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
             SlipMinimum = options.WheelSlipMinimum,
+            MaxStoredSteps = options.FilterStatesKept,
         };
     }
 
@@ -155,11 +168,15 @@ internal sealed partial class ReconstructionPass
             double scale = pulses is null ? options.AccelScaleSigma : options.PulseScaleSigma;
             double slipDistance = 0;
             double slipSpeed = 0;
-            if (slipSignal != null && fused.SlipKept)
+            if (slipSignal != null)
             {
-                slipDistance = options.SlipModelError * Math.Abs(fused.Slip.Value) * slipSignal[k];
+                // A kept slip is wrong by the part the linear law misses; a slip held at zero
+                // by as much as the data leave room for (its estimate and σ), since a driven
+                // wheel whose slip hides in the accelerometer's bias still counts too far.
+                double unexplained = fused.SlipKept ? options.SlipModelError * Math.Abs(fused.Slip.Value) : Math.Abs(fused.Slip.Value) + fused.Slip.Sigma;
+                slipDistance = unexplained * slipSignal[k];
                 double rate = k + 1 < n ? (slipSignal[k + 1] - slipSignal[k]) / (grid[k + 1] - grid[k]) : 0;
-                slipSpeed = options.SlipModelError * Math.Abs(fused.Slip.Value) * rate;
+                slipSpeed = unexplained * rate;
             }
 
             double dSys = (scale * d) + slipDistance;

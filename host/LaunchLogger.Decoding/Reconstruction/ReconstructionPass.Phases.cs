@@ -17,7 +17,9 @@ internal sealed partial class ReconstructionPass
 
         if (!Staged)
         {
-            warnings.Add("the run opened while rolling and has no pulses: distances count from the start of the samples");
+            warnings.Add(accelOpeningSpeed is { } v0
+                ? FormattableString.Invariant($"the run opened while rolling, at {v0.Value:F1} m/s ± {v0.Sigma:F1} by the acceleration integrated back from the rest at its end, and has no pulses: there is no standstill, so no standing-start figure; distances count from the start of the samples")
+                : "the run opened while rolling and has no pulses: distances count from the start of the samples");
             return new Estimate(accel!.TimeS[0], 0);
         }
 
@@ -80,6 +82,52 @@ internal sealed partial class ReconstructionPass
         double start = motionHintS ?? accel!.TimeS[0];
         warnings.Add("the accelerometer shows no clear onset of motion: first motion is taken from the box's own mark or the start of the samples");
         return new Estimate(start, 0.05);
+    }
+
+    /// <summary>Below this speed a record counts as opening at rest, m/s.</summary>
+    private const double CrawlMps = 0.3;
+
+    /// <summary>How fast an accelerometer-only record that ends at rest opened, when that is
+    /// clearly more than a crawl; null when it opened at rest or cannot tell.</summary>
+    /// <remarks>At rest at the end the speed is zero, so the speed at the first sample is minus
+    /// the acceleration integrated from there to the stop, taken against the level read at the
+    /// final rest (whatever level was removed before cancels). Its σ: that level's own σ and
+    /// the accelerometer's wander (<see cref="ReconstructionOptions.AccelOnlyBiasWanderDensity"/>,
+    /// a random walk: variance q·T³/3 in speed over T) over the time back to the first sample,
+    /// and the scale error. Opening moving needs the speed 3 σ clear of a crawl.</remarks>
+    private Estimate? AccelOpeningSpeed()
+    {
+        ForwardAcceleration a = accel!;
+        if (FindStop(a.TimeS[0], a.TimeS[^1]) is not { } stop)
+        {
+            return null;
+        }
+
+        int s = Math.Max(1, a.IndexAtOrAfter(stop));
+        int n = a.Count - s;
+        if (n < 8)
+        {
+            return null;
+        }
+
+        double level = 0;
+        for (int i = s; i < a.Count; i++)
+        {
+            level += accelInput[i];
+        }
+
+        level /= n;
+        double gained = 0;
+        for (int i = 1; i < s; i++)
+        {
+            gained += (0.5 * (accelInput[i - 1] + accelInput[i]) - level) * (a.TimeS[i] - a.TimeS[i - 1]);
+        }
+
+        double speed = -gained;
+        double span = stop - a.TimeS[0];
+        double levelSigma = a.NoiseMps2 * a.CorrelationFactor / Math.Sqrt(n);
+        double sigma = Math.Sqrt(Square(levelSigma * span) + (options.AccelOnlyBiasWanderDensity * span * span * span / 3) + Square(options.AccelScaleSigma * speed));
+        return speed - (3 * sigma) > CrawlMps ? new Estimate(speed, sigma) : null;
     }
 
     private double? FindStop(double startS, double endOfData)

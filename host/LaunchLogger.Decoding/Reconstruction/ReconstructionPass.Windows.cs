@@ -11,7 +11,7 @@ internal sealed partial class ReconstructionPass
         }
 
         List<TimeWindow> windows = WheelspinDetector.Find(
-            pulses, mpp, accel.TimeS, accelInput, startS, endS, braking, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
+            pulses, mpp, options.ToothSpacingErrorFraction * mpp, accel.TimeS, accelInput, startS, endS, braking, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
         if (spinning.Count > 0)
         {
             string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));

@@ -20,7 +20,8 @@ internal sealed partial class ReconstructionPass
     private readonly ForwardAcceleration? accel;
     private readonly double? motionHintS;
     private readonly StartMotion? opening;
-    private readonly bool staged;
+    private bool staged;
+    private Estimate? accelOpeningSpeed;
 
     private double[] accelInput = [];
     private double pitchRad;
@@ -95,6 +96,12 @@ internal sealed partial class ReconstructionPass
         if (accel != null)
         {
             PrepareAccelerometer(accel);
+            if (pulses is null && staged && AccelOpeningSpeed() is { } v0)
+            {
+                staged = false;
+                accelOpeningSpeed = v0;
+                onset = null;
+            }
         }
 
         if (pulses != null && Staged)
@@ -168,7 +175,7 @@ internal sealed partial class ReconstructionPass
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             DistanceChannel = channel,
             Staged = Staged,
-            StartSpeedMps = Staged ? null : opening?.SpeedMps,
+            StartSpeedMps = Staged ? null : opening?.SpeedMps ?? accelOpeningSpeed,
         };
     }
 

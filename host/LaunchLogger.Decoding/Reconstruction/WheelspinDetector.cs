@@ -9,13 +9,16 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// robustly — iteratively reweighted least squares with Tukey's biweight (P. J. Huber, "Robust
 /// Statistics", 1981; Holland &amp; Welsch 1977) — and windows standing well above it are spin,
 /// well below it a slide. Stretches the caller already sets aside (firm braking) are left out of
-/// the fit.</remarks>
+/// the fit. A window's pulse speed is only as good as its two edge times (a coarse pickup's edge
+/// polled across a loop stall is known to a bracket of tens of ms, <see cref="PulseChannel.EdgeSigmaS"/>)
+/// and the two teeth's spacing: a window is flagged only when it stands above the baseline by four
+/// times the spread of the rest and its own σ together — a gap the brackets explain is no spin.</remarks>
 internal static class WheelspinDetector
 {
     private const double WindowS = 0.04;
 
     public static List<TimeWindow> Find(
-        PulseChannel pulses, double mpp, double[] accelT, double[] input, double startS, double endS, List<TimeWindow> skip,
+        PulseChannel pulses, double mpp, double toothSigmaM, double[] accelT, double[] input, double startS, double endS, List<TimeWindow> skip,
         double minExcessMps, double fraction, out double largestAhead, out double largestBehind, out List<TimeWindow> spinning)
     {
         largestAhead = 0;
@@ -30,6 +33,7 @@ internal static class WheelspinDetector
         var accelSpeeds = new List<double>();
         var starts = new List<double>();
         var ends = new List<double>();
+        var sigmas = new List<double>();
         int i = 0;
         while (i < pulses.Length)
         {
@@ -64,6 +68,11 @@ internal static class WheelspinDetector
                     accelSpeeds.Add(va);
                     starts.Add(ti);
                     ends.Add(tj);
+
+                    // σ of the window's pulse speed: the two edge times, and the two teeth.
+                    double timing = vp * Math.Sqrt(Square(pulses.EdgeSigmaS(i)) + Square(pulses.EdgeSigmaS(j))) / span;
+                    double teeth = Math.Sqrt(2) * toothSigmaM / span;
+                    sigmas.Add(Math.Sqrt((timing * timing) + (teeth * teeth)));
                 }
             }
 
@@ -131,7 +140,7 @@ internal static class WheelspinDetector
         var slide = new bool[n];
         for (int k = 0; k < n; k++)
         {
-            double limit = Math.Max(Math.Max(minExcessMps, fraction * Math.Max(accelSpeeds[k], 0)), 4 * scale);
+            double limit = Math.Max(Math.Max(minExcessMps, fraction * Math.Max(accelSpeeds[k], 0)), 4 * Math.Sqrt((scale * scale) + (sigmas[k] * sigmas[k])));
             spin[k] = residual[k] > limit;
             slide[k] = residual[k] < -limit;
             double share = residual[k] / Math.Max(accelSpeeds[k], 1);
@@ -145,6 +154,8 @@ internal static class WheelspinDetector
         found.Sort((a, b) => a.StartS.CompareTo(b.StartS));
         return found;
     }
+
+    private static double Square(double x) => x * x;
 
     private static bool Overlaps(List<TimeWindow> windows, double from, double to)
     {

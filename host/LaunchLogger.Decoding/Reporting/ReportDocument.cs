@@ -221,11 +221,12 @@ public sealed record RunReport
     /// <summary>True when the run opened from standstill after staging.</summary>
     public required bool Staged { get; init; }
 
-    /// <summary>First motion on the input's own time axis, s.</summary>
-    public required double FirstMotionS { get; init; }
+    /// <summary>First motion on the input's own time axis, s; null when the run opened moving
+    /// (there was no standstill to leave).</summary>
+    public required double? FirstMotionS { get; init; }
 
-    /// <summary>1-σ of <see cref="FirstMotionS"/>, s.</summary>
-    public required double FirstMotionUncertaintyS { get; init; }
+    /// <summary>1-σ of <see cref="FirstMotionS"/>, s; null with it.</summary>
+    public required double? FirstMotionUncertaintyS { get; init; }
 
     /// <summary>The rollout mark.</summary>
     public required RolloutReport Rollout { get; init; }

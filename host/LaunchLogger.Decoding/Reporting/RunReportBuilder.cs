@@ -69,13 +69,26 @@ public static class RunReportBuilder
     public static ReportDocument Document(SessionAnalysis session, string toolVersion, string source, ReaderReport? reader, Weather? weather, IReadOnlyList<(int A, int B)> pairs)
     {
         ArgumentNullException.ThrowIfNull(session);
+        return Document(session.Runs.Select((a, i) => Build(a, i + 1)).ToList(), i => session.Runs[i].Figures, session.Bound, toolVersion, source, reader, weather, pairs);
+    }
+
+    /// <summary>The report of a session analysed one run at a time, whose runs kept their
+    /// entries (<see cref="Build(RunAnalysis, int)"/>); each entry gets its final verdict.</summary>
+    public static ReportDocument Document(StreamedSession<RunReport> session, string toolVersion, string source, ReaderReport? reader, Weather? weather, IReadOnlyList<(int A, int B)> pairs)
+    {
+        ArgumentNullException.ThrowIfNull(session);
+        return Document(session.Runs.Select(r => r.Kept with { Verdict = Verdict(r.Verdict) }).ToList(), i => session.Runs[i].Figures, session.Bound, toolVersion, source, reader, weather, pairs);
+    }
+
+    private static ReportDocument Document(List<RunReport> runs, Func<int, FigureSet> figuresAt, TractionBound? bound, string toolVersion, string source, ReaderReport? reader, Weather? weather, IReadOnlyList<(int A, int B)> pairs)
+    {
         return new ReportDocument
         {
             ToolVersion = toolVersion,
             Source = source,
             Reader = reader,
-            Runs = session.Runs.Select((a, i) => Build(a, i + 1)).ToList(),
-            TractionBound = session.Bound is { } b ? new TractionBoundReport
+            Runs = runs,
+            TractionBound = bound is { } b ? new TractionBoundReport
             {
                 Source = b.Source,
                 MeanDecelMps2 = b.MeanDecelMps2,
@@ -97,7 +110,7 @@ public static class RunReportBuilder
             },
             Pairs = pairs.Select(p =>
             {
-                FigureSet mean = PairAverage.Mean(session.Runs[p.A - 1].Figures, session.Runs[p.B - 1].Figures);
+                FigureSet mean = PairAverage.Mean(figuresAt(p.A - 1), figuresAt(p.B - 1));
                 return new PairReport { Runs = [p.A, p.B], Method = PairAverage.Method, SpeedIntervals = Intervals(mean), DistanceMarks = Marks(mean) };
             }).ToList(),
         };
@@ -162,8 +175,9 @@ public static class RunReportBuilder
             Run = runNumber,
             Method = method,
             Staged = staged,
-            FirstMotionS = figures.FirstMotionS.Value,
-            FirstMotionUncertaintyS = figures.FirstMotionS.Sigma,
+            // A run that opened moving left no standstill: its start is where the data begins, not a first motion.
+            FirstMotionS = staged ? figures.FirstMotionS.Value : null,
+            FirstMotionUncertaintyS = staged ? figures.FirstMotionS.Sigma : null,
             Rollout = new RolloutReport
             {
                 DistanceM = figures.RolloutDistanceM,

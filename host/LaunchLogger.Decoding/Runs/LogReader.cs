@@ -37,6 +37,68 @@ public static class LogReader
     public static LogReadResult Read(Stream stream, string sourceName, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(stream);
+        ArgumentNullException.ThrowIfNull(sourceName);
+        var runs = new List<DecodedRun>();
+        LogReadResult? end = null;
+        foreach (DecodedRun run in ReadRuns(stream, sourceName, r => end = r, cancellationToken))
+        {
+            runs.Add(run);
+        }
+
+        return new LogReadResult { Source = end!.Source, Runs = runs, Stats = end.Stats, Warnings = end.Warnings };
+    }
+
+    /// <summary>Reads a log file.</summary>
+    /// <param name="path">The file.</param>
+    /// <param name="cancellationToken">Stops reading between blocks.</param>
+    /// <exception cref="InputException">The file is missing or cannot be opened.</exception>
+    /// <exception cref="OperationCanceledException">Cancelled.</exception>
+    /// <exception cref="IOException">Reading failed after the file was opened.</exception>
+    public static LogReadResult ReadFile(string path, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        using FileStream stream = InputFiles.Open(path);
+        return Read(stream, Path.GetFileName(path), cancellationToken);
+    }
+
+    /// <summary>Reads a log from a stream one run at a time: each run is handed out as soon as it
+    /// closes and nothing of it is kept, so memory is bounded by the largest run, not the log.</summary>
+    /// <param name="stream">A readable stream; it is not closed. Enumerate the result once.</param>
+    /// <param name="sourceName">Its name, used in run sources and messages.</param>
+    /// <param name="completed">Called once after the last run with the reader's counters and the
+    /// log's own warnings (its <see cref="LogReadResult.Runs"/> is empty: they were handed out).</param>
+    /// <param name="cancellationToken">Stops reading between blocks.</param>
+    /// <exception cref="ArgumentNullException">An argument is null.</exception>
+    public static IEnumerable<DecodedRun> ReadRuns(Stream stream, string sourceName, Action<LogReadResult>? completed = null, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        ArgumentNullException.ThrowIfNull(sourceName);
+        return Blocks(stream, sourceName, completed, cancellationToken);
+    }
+
+    /// <summary>As <see cref="ReadRuns(Stream, string, Action{LogReadResult}?, CancellationToken)"/>
+    /// for a file, which is opened now (a missing file fails here) and closed when the runs end.</summary>
+    /// <exception cref="InputException">The file is missing or cannot be opened.</exception>
+    public static IEnumerable<DecodedRun> ReadFileRuns(string path, Action<LogReadResult>? completed = null, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        FileStream stream = InputFiles.Open(path);
+        return Closing(stream, Blocks(stream, Path.GetFileName(path), completed, cancellationToken));
+
+        static IEnumerable<DecodedRun> Closing(FileStream stream, IEnumerable<DecodedRun> runs)
+        {
+            using (stream)
+            {
+                foreach (DecodedRun run in runs)
+                {
+                    yield return run;
+                }
+            }
+        }
+    }
+
+    private static IEnumerable<DecodedRun> Blocks(Stream stream, string sourceName, Action<LogReadResult>? completed, CancellationToken cancellationToken)
+    {
         var assembler = new RunAssembler(sourceName);
         var reader = default(FrameReader);
         byte[] payload = new byte[LogFormat.MaxPayloadBytes];
@@ -53,24 +115,23 @@ public static class LogReader
             // The reader leaves at most one unfinished frame (≤ MaxEncodedFrameBytes) unconsumed.
             block.AsSpan(used, filled - used).CopyTo(block);
             filled -= used;
+            while (assembler.TryTakeRun(out DecodedRun? run))
+            {
+                yield return run;
+            }
+
             if (final)
             {
-                return assembler.Complete(reader.Stats);
+                LogReadResult end = assembler.Complete(reader.Stats);
+                foreach (DecodedRun run in end.Runs)
+                {
+                    yield return run;
+                }
+
+                completed?.Invoke(new LogReadResult { Source = end.Source, Runs = [], Stats = end.Stats, Warnings = end.Warnings });
+                yield break;
             }
         }
-    }
-
-    /// <summary>Reads a log file.</summary>
-    /// <param name="path">The file.</param>
-    /// <param name="cancellationToken">Stops reading between blocks.</param>
-    /// <exception cref="InputException">The file is missing or cannot be opened.</exception>
-    /// <exception cref="OperationCanceledException">Cancelled.</exception>
-    /// <exception cref="IOException">Reading failed after the file was opened.</exception>
-    public static LogReadResult ReadFile(string path, CancellationToken cancellationToken = default)
-    {
-        ArgumentNullException.ThrowIfNull(path);
-        using FileStream stream = InputFiles.Open(path);
-        return Read(stream, Path.GetFileName(path), cancellationToken);
     }
 
     /// <summary>Reads every frame the input holds into the assembler; returns the bytes used.</summary>

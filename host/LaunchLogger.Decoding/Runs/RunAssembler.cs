@@ -61,8 +61,26 @@ public sealed class RunAssembler
         source = sourceName;
     }
 
-    /// <summary>Runs finished so far, in log order (a live reader can show them as they close).</summary>
+    /// <summary>Runs finished so far and not taken, in log order (a live reader can show them as
+    /// they close).</summary>
     public IReadOnlyList<DecodedRun> Runs => runs;
+
+    /// <summary>Hands over the oldest finished run and forgets it, so that a reader working
+    /// through a long log holds one run at a time (<see cref="Complete"/> returns only the runs
+    /// not taken).</summary>
+    /// <returns>False when no finished run is waiting.</returns>
+    public bool TryTakeRun([System.Diagnostics.CodeAnalysis.NotNullWhen(true)] out DecodedRun? run)
+    {
+        if (runs.Count == 0)
+        {
+            run = null;
+            return false;
+        }
+
+        run = runs[0];
+        runs.RemoveAt(0);
+        return true;
+    }
 
     /// <summary>Takes one good frame.</summary>
     /// <param name="frame">A frame <see cref="FrameReader.TryReadFrame"/> returned with Done.</param>
@@ -223,7 +241,8 @@ public sealed class RunAssembler
         return true;
     }
 
-    /// <summary>Ends the log: closes a run left open as cut off and returns everything.</summary>
+    /// <summary>Ends the log: closes a run left open as cut off and returns everything (of the
+    /// runs, those not taken with <see cref="TryTakeRun"/>).</summary>
     /// <param name="readerStats">The reader's counters after its final call.</param>
     /// <exception cref="InvalidOperationException">Called twice.</exception>
     public LogReadResult Complete(in ReaderStats readerStats)
@@ -397,6 +416,10 @@ public sealed class RunAssembler
         }
 
         runs.Add(run.Build(baseline));
+
+        // The run holds its own arrays now: a long run's collection buffers are let go before the
+        // reader's caller works on it.
+        scratch.ClearAndShrink();
         previousConfiguration = run.Configuration;
         previousRunNumber = runNumber;
         previousRunPowerUp = powerUp;

@@ -36,6 +36,17 @@ internal sealed class RunScratch : IDisposable
         BurstOfFrame.Clear();
     }
 
+    /// <summary>Empties every buffer, letting go of those a long run made too large to pool.</summary>
+    public void ClearAndShrink()
+    {
+        Channel0.ClearAndShrink();
+        Channel1.ClearAndShrink();
+        AccelSamples.ClearAndShrink();
+        AccelFrames.ClearAndShrink();
+        Bursts.ClearAndShrink();
+        BurstOfFrame.ClearAndShrink();
+    }
+
     public void Dispose()
     {
         Channel0.Dispose();

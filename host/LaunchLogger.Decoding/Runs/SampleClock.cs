@@ -1,4 +1,3 @@
-using System.Buffers;
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using MathNet.Numerics.Statistics;
@@ -126,10 +125,10 @@ public sealed class SampleClock
             segments = Math.Max(segments, b.Segment + 1);
         }
 
-        bool[] activeArray = ArrayPool<bool>.Shared.Rent(bursts.Length);
-        double[] residualArray = ArrayPool<double>.Shared.Rent(bursts.Length);
-        double[] sumArray = ArrayPool<double>.Shared.Rent(2 * segments);
-        int[] countArray = ArrayPool<int>.Shared.Rent(segments);
+        bool[] activeArray = ScratchArrays.Rent<bool>(bursts.Length);
+        double[] residualArray = ScratchArrays.Rent<double>(bursts.Length);
+        double[] sumArray = ScratchArrays.Rent<double>(2 * segments);
+        int[] countArray = ScratchArrays.Rent<int>(segments);
         try
         {
             Span<bool> active = activeArray.AsSpan(0, bursts.Length);
@@ -164,10 +163,10 @@ public sealed class SampleClock
         }
         finally
         {
-            ArrayPool<int>.Shared.Return(countArray);
-            ArrayPool<double>.Shared.Return(sumArray);
-            ArrayPool<double>.Shared.Return(residualArray);
-            ArrayPool<bool>.Shared.Return(activeArray);
+            ScratchArrays.Return(countArray);
+            ScratchArrays.Return(sumArray);
+            ScratchArrays.Return(residualArray);
+            ScratchArrays.Return(activeArray);
         }
     }
 
@@ -309,10 +308,10 @@ public sealed class SampleClock
     private static double[] Origins(ReadOnlySpan<BurstReading> bursts, ReadOnlySpan<bool> active, int segments, double period, out double meanLatencyS)
     {
         var origin = new double[segments];
-        int[] startArray = ArrayPool<int>.Shared.Rent(segments + 1);
-        int[] orderArray = ArrayPool<int>.Shared.Rent(bursts.Length);
-        long[] keyArray = ArrayPool<long>.Shared.Rent(bursts.Length);
-        double[] hullArray = ArrayPool<double>.Shared.Rent(2 * bursts.Length);
+        int[] startArray = ScratchArrays.Rent<int>(segments + 1);
+        int[] orderArray = ScratchArrays.Rent<int>(bursts.Length);
+        long[] keyArray = ScratchArrays.Rent<long>(bursts.Length);
+        double[] hullArray = ScratchArrays.Rent<double>(2 * bursts.Length);
         try
         {
             Span<int> start = startArray.AsSpan(0, segments + 1);
@@ -370,10 +369,10 @@ public sealed class SampleClock
         }
         finally
         {
-            ArrayPool<double>.Shared.Return(hullArray);
-            ArrayPool<long>.Shared.Return(keyArray);
-            ArrayPool<int>.Shared.Return(orderArray);
-            ArrayPool<int>.Shared.Return(startArray);
+            ScratchArrays.Return(hullArray);
+            ScratchArrays.Return(keyArray);
+            ScratchArrays.Return(orderArray);
+            ScratchArrays.Return(startArray);
         }
 
         double latencySum = 0.0;

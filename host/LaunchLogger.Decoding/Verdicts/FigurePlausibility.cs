@@ -41,8 +41,11 @@ public static class FigurePlausibility
     }
 
     /// <summary>The verdict with the plausibility reason added, when there is one.</summary>
-    public static Verdict Apply(Verdict verdict, RunAnalysis analysis) =>
-        Check(analysis) is { } reason ? new Verdict([.. verdict.Reasons, reason]) : verdict;
+    public static Verdict Apply(Verdict verdict, RunAnalysis analysis) => Apply(verdict, Check(analysis));
+
+    /// <summary>The verdict with <paramref name="reason"/> (from <see cref="Check"/>) added, when there is one.</summary>
+    public static Verdict Apply(Verdict verdict, VerdictReason? reason) =>
+        reason is null ? verdict : new Verdict([.. verdict.Reasons, reason]);
 
     private static void Walk(object? value, string path, List<string> problems, int depth)
     {

@@ -67,20 +67,34 @@ public static class GripLimit
     public static TractionBound? BestBound(IEnumerable<RunAnalysis> runs, IEnumerable<RunAnalysis>? references = null, VerdictLimits? limits = null)
     {
         ArgumentNullException.ThrowIfNull(runs);
-        RunAnalysis? best = null;
-        GripEvidence? bestEvidence = null;
-        foreach ((RunAnalysis run, bool named) in (references ?? []).Select(r => (r, true)).Concat(runs.Select(r => (r, false))))
+        return Best((references ?? []).Select(r => Candidate(r, namedByUser: true, limits)).Concat(runs.Select(r => Candidate(r, namedByUser: false, limits))));
+    }
+
+    /// <summary>The bound the stop of <paramref name="analysis"/> would set, or null when it has
+    /// no stop at the grip limit: all a session needs to keep of a run for its bound.</summary>
+    /// <param name="analysis">The run.</param>
+    /// <param name="namedByUser">The user named this stop as the braking reference.</param>
+    /// <param name="limits">Thresholds; <see cref="VerdictLimits.Default"/> when null.</param>
+    public static TractionBound? Candidate(RunAnalysis analysis, bool namedByUser, VerdictLimits? limits = null) =>
+        Assess(analysis, namedByUser, limits) is { } evidence && analysis.Braking is { } b
+            ? new TractionBound(analysis.Run.Source, b.MeanDecelMps2, b.TractionBound0To60S, b.TractionBound0To100KmhS, evidence.Basis, evidence.Text)
+            : null;
+
+    /// <summary>Of the candidates (<see cref="Candidate"/>; nulls skipped), the one with the
+    /// highest mean deceleration, the first of equals.</summary>
+    public static TractionBound? Best(IEnumerable<TractionBound?> candidates)
+    {
+        ArgumentNullException.ThrowIfNull(candidates);
+        TractionBound? best = null;
+        foreach (TractionBound? candidate in candidates)
         {
-            if (Assess(run, named, limits) is { } evidence && (best is null || run.Braking!.MeanDecelMps2 > best.Braking!.MeanDecelMps2))
+            if (candidate is not null && (best is null || candidate.MeanDecelMps2 > best.MeanDecelMps2))
             {
-                best = run;
-                bestEvidence = evidence;
+                best = candidate;
             }
         }
 
-        return best?.Braking is { } b
-            ? new TractionBound(best.Run.Source, b.MeanDecelMps2, b.TractionBound0To60S, b.TractionBound0To100KmhS, bestEvidence!.Basis, bestEvidence.Text)
-            : null;
+        return best;
     }
 
     private static string Invariant(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);

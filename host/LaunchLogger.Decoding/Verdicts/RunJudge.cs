@@ -15,7 +15,15 @@ public static class RunJudge
     /// <param name="grade">Its grade, when known.</param>
     /// <param name="bound">A braking bound to hold its acceleration against, when one is known.</param>
     /// <param name="limits">Thresholds; <see cref="VerdictLimits.Default"/> when null.</param>
-    public static Verdict Judge(RunAnalysis analysis, GradeEstimate? grade, TractionBound? bound, VerdictLimits? limits = null)
+    public static Verdict Judge(RunAnalysis analysis, GradeEstimate? grade, TractionBound? bound, VerdictLimits? limits = null) =>
+        Finish(OwnReasons(analysis, grade, limits), analysis.Figures, bound);
+
+    /// <summary>The reasons found in the run itself, in the order found: everything but the
+    /// session's braking bound, which may come from a later run.</summary>
+    /// <param name="analysis">The run.</param>
+    /// <param name="grade">Its grade, when known.</param>
+    /// <param name="limits">Thresholds; <see cref="VerdictLimits.Default"/> when null.</param>
+    public static List<VerdictReason> OwnReasons(RunAnalysis analysis, GradeEstimate? grade, VerdictLimits? limits = null)
     {
         ArgumentNullException.ThrowIfNull(analysis);
         limits ??= VerdictLimits.Default;
@@ -77,7 +85,8 @@ public static class RunJudge
             }
         }
 
-        if (figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph") is { FromStandstillS: null } && figures.MaxSpeedMps > 5)
+        // A rolling start has no 0-60 by nature: rolling_start already says why.
+        if (rec.Staged && figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph") is { FromStandstillS: null } && figures.MaxSpeedMps > 5)
         {
             reasons.Add(new(VerdictLevel.Doubtful, "target_not_reached", Invariant($"60 mph was not reached (top speed {figures.MaxSpeedMps / Units.MpsPerMph:0.0} mph)")));
         }
@@ -94,13 +103,7 @@ public static class RunJudge
             reasons.Add(new(VerdictLevel.Doubtful, "accelerometer_only", "no pulses: distance and speed come from the accelerometer alone and drift"));
         }
 
-        if (bound is { } b && figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph")?.FromStandstillS is { } zeroTo60 && zeroTo60 < b.Bound0To60S)
-        {
-            reasons.Add(new(VerdictLevel.Doubtful, "beats_braking_grip", Invariant($"0-60 mph in {zeroTo60:0.000} s is faster than the braking grip allows ({b.Bound0To60S:0.000} s from {b.Source}): check calibration, slope, wheel size")));
-        }
-
-        reasons.Sort((x, y) => y.Level.CompareTo(x.Level));
-        return new Verdict(reasons);
+        return reasons;
 
         void Count(string name, VerdictLevel level, string code, string text)
         {
@@ -109,6 +112,25 @@ public static class RunJudge
                 reasons.Add(new(level, code, Invariant($"{text} ({n})")));
             }
         }
+    }
+
+    /// <summary>The verdict from a run's own reasons (<see cref="OwnReasons"/>) and the session's
+    /// braking bound, most serious reason first.</summary>
+    /// <param name="ownReasons">The run's own reasons.</param>
+    /// <param name="figures">Its figures.</param>
+    /// <param name="bound">A braking bound to hold its acceleration against, when one is known.</param>
+    public static Verdict Finish(IEnumerable<VerdictReason> ownReasons, FigureSet figures, TractionBound? bound)
+    {
+        ArgumentNullException.ThrowIfNull(ownReasons);
+        ArgumentNullException.ThrowIfNull(figures);
+        var reasons = new List<VerdictReason>(ownReasons);
+        if (bound is { } b && figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph")?.FromStandstillS is { } zeroTo60 && zeroTo60 < b.Bound0To60S)
+        {
+            reasons.Add(new(VerdictLevel.Doubtful, "beats_braking_grip", Invariant($"0-60 mph in {zeroTo60:0.000} s is faster than the braking grip allows ({b.Bound0To60S:0.000} s from {b.Source}): check calibration, slope, wheel size")));
+        }
+
+        reasons.Sort((x, y) => y.Level.CompareTo(x.Level));
+        return new Verdict(reasons);
     }
 
     private static string Invariant(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);

@@ -124,10 +124,7 @@ public static class BuiltInScenarios
         Environment = new EnvironmentSpec { GradePercent = 0.5, HeadwindMps = 1.5, AirDensityKgM3 = 1.21 },
         Plan = new RunPlan { StageS = 3.0, TargetSpeedMps = 29.06, CoastS = 0.5, BrakeToStop = true, BrakeDemandG = 0.45, StandStillAfterS = 3.0 },
         Pickup = new PulsePickupSpec { Axle = Axle.Rear, Teeth = 12, EdgesPerTooth = 1, ToothSpacingErrorFraction = 0.015 },
-        // Polled faster than an ESP32 under nanoFramework manages: at the 1 ms loop with 20 ms
-        // stalls the wheelspin check still takes this coarse 12-tooth pickup's long pulse gaps for
-        // spin on an undriven wheel, a known false alarm being worked on.
-        Capture = new CaptureSpec { Kind = CaptureKind.PolledCounter, LoopPeriodMicros = 300, LoopJitterMicros = 60 },
+        Capture = EspPolledLoop(),
         Accelerometer = new AccelerometerSpec
         {
             OutputDataRateHz = 400, ClockDriftPpm = -2500, FifoDepth = 32, ReadIntervalMicros = 20_000,

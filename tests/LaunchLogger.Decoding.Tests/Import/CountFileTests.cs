@@ -27,6 +27,18 @@ public class CountFileTests
     }
 
     [Fact]
+    public void AnOpeningReadingOfNoWidthIsTheOriginEvenWhenTheCountMovesAtOnce()
+    {
+        // A record that opens moving: the capture's first reading (no bracket) then a change at
+        // every poll. The reading is where the count stood, not a pulse at that instant.
+        const string text = "t_lo_s,t_hi_s,count\n0.000,0.000,500\n0.000,0.005,502\n0.005,0.010,503\n";
+
+        IReadOnlyList<PulseRecord> records = CountFile.Read(new StringReader(text), "counts.csv");
+
+        Assert.Equal(new[] { new PulseRecord(2, 0.000, 0.005), new PulseRecord(3, 0.005, 0.010) }, records);
+    }
+
+    [Fact]
     public void OverlappingBracketsOfAPollingBoardAreAccepted()
     {
         const string text = "t_lo_s,t_hi_s,count\n1.0000,1.0020,5\n1.0019,1.0040,6\n";

@@ -32,6 +32,13 @@ internal sealed record SyntheticRun
     /// <summary>1-σ jitter of each poll period, seconds.</summary>
     public double PollJitterS { get; init; }
 
+    /// <summary>Stalls of the polling loop per second (a frame written, a collection), each
+    /// <see cref="PollStallS"/> long.</summary>
+    public double PollStallsPerSecond { get; init; }
+
+    /// <summary>Length of one stall of the polling loop, seconds.</summary>
+    public double PollStallS { get; init; }
+
     public bool WithPulses { get; init; } = true;
 
     public bool WithAccelerometer { get; init; } = true;
@@ -187,6 +194,11 @@ internal sealed record SyntheticRun
                     if (now <= previous)
                     {
                         now = previous + (0.1 * poll);
+                    }
+
+                    if (PollStallsPerSecond > 0 && random.NextDouble() < PollStallsPerSecond * poll)
+                    {
+                        now += PollStallS;
                     }
 
                     while (next < edges.Count && edges[next] <= now)

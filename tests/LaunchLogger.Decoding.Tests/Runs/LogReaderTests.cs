@@ -176,12 +176,49 @@ public class LogReaderTests
         LaunchDriver driver = IdealLaunch();
         byte[] log = driver.Sink.ToArray();
 
-        // A capture that started mid-run: the first ten frames are missing.
-        LogReadResult result = LogReader.Read(log.AsSpan(driver.Sink.Frames[10].Offset), "late.log");
+        // A capture that started mid-run, after the run's last configuration copy: nothing in
+        // what was captured says how to decode the run.
+        int start = LastFrameIndex(driver, log, FrameType.ConfigurationCopy) + 1;
+        LogReadResult result = LogReader.Read(log.AsSpan(driver.Sink.Frames[start].Offset), "late.log");
 
         Assert.Empty(result.Runs);
-        Assert.Equal(driver.Sink.Frames.Count - 10, result.Stats.OrphanFrames);
+        Assert.Equal(driver.Sink.Frames.Count - start, result.Stats.OrphanFrames);
         Assert.Contains(result.Warnings, w => w.Contains("outside any run", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void ACaptureThatStartedMidRunIsDecodedFromTheNextConfigurationCopy()
+    {
+        LaunchDriver driver = IdealLaunch();
+        byte[] log = driver.Sink.ToArray();
+        DecodedRun whole = LogReader.Read(log, "whole.log").Runs.Single();
+
+        // The first ten frames (the configuration among them) are missing; a copy follows.
+        LogReadResult result = LogReader.Read(log.AsSpan(driver.Sink.Frames[10].Offset), "late.log");
+
+        DecodedRun run = Assert.Single(result.Runs);
+        Assert.True(run.Complete);
+        Assert.Contains(run.Warnings, w => w.Contains("repeated copy", StringComparison.Ordinal));
+        Assert.Equal(0, result.Stats.OrphanFrames);
+        Assert.Equal(whole.Configuration, run.Configuration);
+        Assert.Equal(whole.Pulses.TakeLast(run.Pulses.Count), run.Pulses);
+    }
+
+    private static int LastFrameIndex(LaunchDriver driver, byte[] log, FrameType type)
+    {
+        int last = -1;
+        for (int i = 0; i < driver.Sink.Frames.Count; i++)
+        {
+            (int offset, int length) = driver.Sink.Frames[i];
+            var payload = new byte[length];
+            if (Cobs.Decode(log, offset, length - 1, payload, 0) > 0 && payload[0] == (byte)type)
+            {
+                last = i;
+            }
+        }
+
+        Assert.True(last >= 0, "the log has no frame of that type");
+        return last;
     }
 
     [Fact]

@@ -20,6 +20,13 @@ internal static class LogFrames
                 continue;
             }
 
+            if (i == start)
+            {
+                // An empty frame, which readers ignore: the lone delimiter written at power-up.
+                start = i + 1;
+                continue;
+            }
+
             int n = Cobs.Decode(log, start, i - start, payload, 0);
             start = i + 1;
             if (n < LogFormat.MinPayloadBytes)

@@ -28,9 +28,10 @@ public sealed class MemorySink : IByteSink
     public bool Write(byte[] buffer, int offset, int count)
     {
         Writes++;
-        if (count < 2 || buffer[offset + count - 1] != 0 || Array.IndexOf(buffer, (byte)0, offset, count - 1) >= 0)
+        // A lone delimiter (count 1) is the empty frame written at power-up.
+        if (count < 1 || buffer[offset + count - 1] != 0 || Array.IndexOf(buffer, (byte)0, offset, count - 1) >= 0)
         {
-            throw new InvalidOperationException("a write must be one stuffed frame ending in its only zero byte");
+            throw new InvalidOperationException("a write must be one stuffed frame (or a lone delimiter) ending in its only zero byte");
         }
 
         if (RefuseAll || RefuseNext > 0)

@@ -30,6 +30,21 @@ public static class DecoderHarness
         }
     }
 
+    /// <summary>The record's accelerometer file alone, imported and analysed.</summary>
+    public static SessionAnalysis AnalyzeAccelerometerOnly(PrescribedRecord record)
+    {
+        string folder = Path.Combine(Path.GetTempPath(), "launchlogger-prescribed-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            (_, string? accel) = record.WriteFiles(folder);
+            return SessionAnalyzer.Analyze([TextRunImporter.Import(new TextImportRequest { AccelPath = accel })]);
+        }
+        finally
+        {
+            Directory.Delete(folder, true);
+        }
+    }
+
     /// <summary>The record written as a log by the firmware core, read and analysed.</summary>
     public static SessionAnalysis AnalyzeLog(PrescribedRecord record)
     {

@@ -30,7 +30,15 @@ internal sealed class LogFrames
                 continue;
             }
 
-            int n = i > start ? Cobs.Decode(log, start, i - start, payload, 0) : 0;
+            if (i == start)
+            {
+                // An empty frame (LOG-FORMAT.md, section 1: readers ignore them): the lone
+                // delimiter the box writes at power-up.
+                start = i + 1;
+                continue;
+            }
+
+            int n = Cobs.Decode(log, start, i - start, payload, 0);
             start = i + 1;
             if (n < LogFormat.MinPayloadBytes)
             {

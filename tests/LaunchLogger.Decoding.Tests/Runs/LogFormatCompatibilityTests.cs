@@ -1,0 +1,86 @@
+using System.Buffers;
+using LaunchLogger.Decoding.Reading;
+using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Firmware.Wire;
+
+namespace LaunchLogger.Decoding.Tests.Runs;
+
+/// <summary>The firmware's golden log of one fixed run, as written before and after the box
+/// began writing power-up frames and configuration copies (LOG-FORMAT.md, 0x07 and 0x08): both
+/// read into the same run, and the copy rescues the run when its configuration frame is damaged.</summary>
+public class LogFormatCompatibilityTests
+{
+    [Fact]
+    public void TheOldAndTheNewFormatOfTheSameRunReadAlike()
+    {
+        LogReadResult old = LogReader.Read(Golden("before-power-up", "loop-polled-accel.log"), "old.log");
+        LogReadResult now = LogReader.Read(Golden("loop-polled-accel.log"), "new.log");
+
+        DecodedRun a = Assert.Single(old.Runs);
+        DecodedRun b = Assert.Single(now.Runs);
+        Assert.False(old.Stats.HasDamage);
+        Assert.False(now.Stats.HasDamage);
+        Assert.Equal(0, now.Stats.OrphanFrames);
+        Assert.True(a.Complete && b.Complete);
+        Assert.Equal(a.Pulses, b.Pulses);
+        Assert.Equal(a.Accel!.TimeS, b.Accel!.TimeS);
+        Assert.Equal(a.Accel.ForwardMps2, b.Accel.ForwardMps2);
+        Assert.Equal(a.Events.Select(e => (e.Kind, e.TimeS)), b.Events.Select(e => (e.Kind, e.TimeS)));
+        Assert.Equal(a.Health, b.Health);
+        Assert.Equal(a.Warnings, b.Warnings);
+
+        // The new log adds a power-up frame and a configuration copy after each periodic health frame.
+        Assert.True(now.Stats.Frames > old.Stats.Frames, $"{now.Stats.Frames} frames against {old.Stats.Frames}");
+    }
+
+    [Fact]
+    public void TheNewFormatOpensWithALoneDelimiterAndAPowerUpFrame()
+    {
+        byte[] log = Golden("loop-polled-accel.log");
+        Assert.Equal(LogFormat.Delimiter, log[0]);
+
+        var reader = default(FrameReader);
+        byte[] payload = new byte[LogFormat.MaxPayloadBytes];
+        Assert.Equal(OperationStatus.Done, reader.TryReadFrame(log, payload, isFinalBlock: true, out int used, out Frame first));
+        Assert.Equal(FrameType.PowerUp, first.Type);
+        Assert.Equal(0, first.Sequence);
+        Assert.Equal(OperationStatus.Done, reader.TryReadFrame(log.AsSpan(used), payload, isFinalBlock: true, out _, out Frame second));
+        Assert.Equal(FrameType.Configuration, second.Type);
+    }
+
+    [Fact]
+    public void ADamagedConfigurationFrameCostsOnlyItselfWhenTheBoxWritesCopies()
+    {
+        byte[] log = Golden("loop-polled-accel.log");
+        DecodedRun intact = LogReader.Read(log, "intact.log").Runs.Single();
+
+        // The configuration frame is the second: after the lone delimiter and the power-up frame.
+        int powerUpEnd = Array.IndexOf(log, LogFormat.Delimiter, 1);
+        int configurationEnd = Array.IndexOf(log, LogFormat.Delimiter, powerUpEnd + 1);
+        byte[] damaged = (byte[])log.Clone();
+        int at = (powerUpEnd + configurationEnd) / 2;
+        damaged[at] = (byte)(damaged[at] == 0x55 ? 0x56 : 0x55); // one byte changed, framing kept
+
+        LogReadResult read = LogReader.Read(damaged, "damaged.log");
+
+        DecodedRun run = Assert.Single(read.Runs);
+        Assert.Equal(1, read.Stats.CrcErrors + read.Stats.MalformedFrames);
+        Assert.Contains(run.Warnings, w => w.Contains("repeated copy", StringComparison.Ordinal));
+        Assert.Equal(intact.Pulses, run.Pulses);
+        Assert.Equal(intact.Accel!.ForwardMps2, run.Accel!.ForwardMps2);
+        Assert.True(run.Complete);
+    }
+
+    private static byte[] Golden(params string[] parts)
+    {
+        for (DirectoryInfo? dir = new(AppContext.BaseDirectory); dir != null; dir = dir.Parent)
+        {
+            if (File.Exists(Path.Combine(dir.FullName, "LaunchLogger.sln")))
+            {
+                return File.ReadAllBytes(Path.Combine([dir.FullName, "tests", "LaunchLogger.Firmware.Tests", "Golden", .. parts]));
+            }
+        }
+
+        throw new InvalidOperationException("LaunchLogger.sln not found above " + AppContext.BaseDirectory);
+    }
+}
