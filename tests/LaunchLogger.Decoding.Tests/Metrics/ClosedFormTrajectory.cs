@@ -9,34 +9,32 @@ internal static class ClosedFormTrajectory
     /// (kinematics, any textbook: v = a·t, d = a·t²/2), sampled every <paramref name="stepS"/>.</summary>
     public static Trajectory ConstantAcceleration(double accelMps2, double t0, double endS, double stepS = 0.001, double sigmaDistanceM = 0, double sigmaSpeedMps = 0)
     {
-        int n = (int)Math.Round(endS / stepS) + 1;
-        var t = new double[n];
-        var d = new double[n];
-        var v = new double[n];
-        var a = new double[n];
-        for (int i = 0; i < n; i++)
-        {
-            t[i] = i * stepS;
-            double tau = Math.Max(0, t[i] - t0);
-            a[i] = t[i] >= t0 ? accelMps2 : 0;
-            v[i] = accelMps2 * tau;
-            d[i] = 0.5 * accelMps2 * tau * tau;
-        }
-
+        Trajectory exact = Sample(t0, endS, stepS, tau => (0.5 * accelMps2 * tau * tau, accelMps2 * tau, accelMps2));
+        int n = exact.TimeS.Length;
         return new Trajectory
         {
-            TimeS = t,
-            DistanceM = d,
-            SpeedMps = v,
-            AccelMps2 = a,
+            TimeS = exact.TimeS,
+            DistanceM = exact.DistanceM,
+            SpeedMps = exact.SpeedMps,
+            AccelMps2 = exact.AccelMps2,
             DistanceSigmaM = sigmaDistanceM > 0 ? Enumerable.Repeat(sigmaDistanceM, n).ToArray() : null,
             SpeedSigmaMps = sigmaSpeedMps > 0 ? Enumerable.Repeat(sigmaSpeedMps, n).ToArray() : null,
         };
     }
+
     /// <summary>Still until <paramref name="t0"/>, then constant power per unit mass p with no
     /// drag or traction limit (½·v² = p·τ, any mechanics textbook): v = √(2·p·τ),
     /// d = (2/3)·√(2·p)·τ^(3/2), a = √(p/(2·τ)), sampled every <paramref name="stepS"/>.</summary>
-    public static Trajectory ConstantPower(double powerPerMassWPerKg, double t0, double endS, double stepS = 0.001)
+    public static Trajectory ConstantPower(double powerPerMassWPerKg, double t0, double endS, double stepS = 0.001) =>
+        Sample(t0, endS, stepS, tau => (
+            2.0 / 3 * Math.Sqrt(2 * powerPerMassWPerKg) * Math.Pow(tau, 1.5),
+            Math.Sqrt(2 * powerPerMassWPerKg * tau),
+            tau > 0 ? Math.Sqrt(powerPerMassWPerKg / (2 * tau)) : 0));
+
+    /// <summary>A motion given as (distance, speed, acceleration) against the time τ since
+    /// <paramref name="t0"/>, sampled every <paramref name="stepS"/> from 0 to
+    /// <paramref name="endS"/>; before <paramref name="t0"/> the car stands still.</summary>
+    private static Trajectory Sample(double t0, double endS, double stepS, Func<double, (double D, double V, double A)> motion)
     {
         int n = (int)Math.Round(endS / stepS) + 1;
         var t = new double[n];
@@ -46,10 +44,11 @@ internal static class ClosedFormTrajectory
         for (int i = 0; i < n; i++)
         {
             t[i] = i * stepS;
-            double tau = Math.Max(0, t[i] - t0);
-            v[i] = Math.Sqrt(2 * powerPerMassWPerKg * tau);
-            d[i] = 2.0 / 3 * Math.Sqrt(2 * powerPerMassWPerKg) * Math.Pow(tau, 1.5);
-            a[i] = tau > 0 ? Math.Sqrt(powerPerMassWPerKg / (2 * tau)) : 0;
+            (d[i], v[i], a[i]) = motion(Math.Max(0, t[i] - t0));
+            if (t[i] < t0)
+            {
+                a[i] = 0;
+            }
         }
 
         return new Trajectory { TimeS = t, DistanceM = d, SpeedMps = v, AccelMps2 = a };
