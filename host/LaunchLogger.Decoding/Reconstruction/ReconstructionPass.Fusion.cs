@@ -156,6 +156,7 @@ internal sealed partial class ReconstructionPass
         double growthDistance = 0;
         double circumferenceSigma = pulses is null ? 0 : options.CircumferenceSigmaFraction;
         double growthSigma = pulses is null ? 0 : options.TyreGrowthSigmaAt30Mps;
+        double[]? launchSlip = LaunchSlip(steps, startS, k0, fused);
         for (int k = k0; k < n; k++)
         {
             bool atRest = grid[k] >= stop;
@@ -189,7 +190,8 @@ internal sealed partial class ReconstructionPass
 
             double clock = options.TimebaseSigma * (grid[k] - startS);
             double dScale = circumferenceSigma * d;
-            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + Square(speed[k] * clock));
+            double launch = launchSlip?[k] ?? 0;
+            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + Square(speed[k] * clock) + (launch * launch));
             sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + Square(options.TimebaseSigma * speed[k]));
             if (atRest)
             {
@@ -248,6 +250,22 @@ internal sealed partial class ReconstructionPass
             DistanceSigmaM = sd,
             SpeedSigmaMps = sv,
         };
+    }
+
+    /// <summary>The launch slip the accelerometer shows beyond its own error
+    /// (<see cref="LaunchSlipAllowance"/>); null without both sensors or without a standstill.</summary>
+    private double[]? LaunchSlip(StepGrid steps, double startS, int k0, FusionResult fused)
+    {
+        if (accel is null || pulses is null || !Staged)
+        {
+            return null;
+        }
+
+        double bias = Math.Sqrt(Square(accel.RestLevelSigmaMps2) + Square(options.BiasPriorMps2));
+        double pulseScale = Math.Sqrt(Square(options.CircumferenceSigmaFraction) + Square(options.PulseScaleSigma));
+        return LaunchSlipAllowance.DistanceSigma(
+            steps.TimeS, k0, startS, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM,
+            fused.DistanceM, fused.DistanceSigmaM, bias, options.AccelScaleSigma, pulseScale);
     }
 
     private static Estimate MeanBias(double[] grid, double startS, double? stopS, FusionResult fused)
