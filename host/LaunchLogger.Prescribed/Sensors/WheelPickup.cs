@@ -27,6 +27,9 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
 
     private const double RevolutionTolerance = 1e-12;
 
+    /// <summary>Least distance at which an edge is placed, m (a nanometre: far below any figure).</summary>
+    private const double FirstEdgeDistanceM = 1e-9;
+
     /// <summary>Distance per pulse the decoder is told, m.</summary>
     public double StatedMetresPerPulse => Tyre.StatedCircumferenceM / Teeth;
 
@@ -50,7 +53,9 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         double after = 0;
         for (long k = 1; ; k++)
         {
-            double d = (k - 1 + PhaseFraction) * pitch;
+            // A tooth sitting exactly at the pickup (φ = 0) fires as the wheel first turns, not
+            // at the record's start: its crossing is taken just beyond the rest position.
+            double d = Math.Max((k - 1 + PhaseFraction) * pitch, FirstEdgeDistanceM);
             if (d > total)
             {
                 break;
