@@ -154,6 +154,7 @@ internal sealed partial class ReconstructionPass
         double stop = stopS ?? double.PositiveInfinity;
         double previous = 0;
         double growthDistance = 0;
+        double pulsesOnlySlip = 0;
         double circumferenceSigma = pulses is null ? 0 : options.CircumferenceSigmaFraction;
         double growthSigma = pulses is null ? 0 : options.TyreGrowthSigmaAt30Mps;
         double[]? launchSlip = LaunchSlip(steps, startS, k0, fused);
@@ -178,6 +179,21 @@ internal sealed partial class ReconstructionPass
                 slipDistance = unexplained * slipSignal[k];
                 double rate = k + 1 < n ? (slipSignal[k + 1] - slipSignal[k]) / (grid[k + 1] - grid[k]) : 0;
                 slipSpeed = unexplained * rate;
+            }
+            else if (accel is null && pulses != null && options.WheelSlipSigma > 0)
+            {
+                // Pulses alone cannot tell a driven wheel from an undriven one: its slip under
+                // drive, up to the slip law's prior, is in σ (the fitted acceleration stands in
+                // for the accelerometer), and so is the launch slip near the tyre's grip limit.
+                double drive = Math.Max(fused.Third[k] + (options.DragPerMassPerSpeedSquared * speed[k] * speed[k]) + (options.RollingResistance * G0), 0);
+                if (k > k0)
+                {
+                    pulsesOnlySlip += speed[k] * drive * (grid[k] - grid[k - 1]);
+                }
+
+                double fade = options.LaunchSlipFadeM;
+                slipDistance = (options.WheelSlipSigma * pulsesOnlySlip) + (Staged ? options.PulsesOnlyLaunchSlip * fade * (1 - Math.Exp(-d / fade)) : 0);
+                slipSpeed = options.WheelSlipSigma * speed[k] * drive;
             }
 
             double dSys = (scale * d) + slipDistance;

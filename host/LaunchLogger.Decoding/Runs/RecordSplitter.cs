@@ -172,6 +172,7 @@ public static class RecordSplitter
             SamplePeriodS = accel.SamplePeriodS,
             SamplePeriodUncertaintyS = accel.SamplePeriodUncertaintyS,
             SampleIndex = accel.SampleIndex?[lo..hi],
+            ClockOriginS = accel.ClockOriginS ?? accel.TimeS[0],
             Axes = accel.Axes,
         };
     }
