@@ -108,6 +108,24 @@ public sealed record ReconstructionOptions
     /// control: about 30 ppm, from memory). Every time the box measures stretches by it.</summary>
     public double TimebaseSigma { get; init; } = 30e-6;
 
+    /// <summary>1-σ rate error of an accelerometer's own clock against the box's, as a fraction,
+    /// for sample times read from a plain-text file: nothing there ties them to the pulses' clock,
+    /// and two crystal clocks differ by up to about 100 ppm (from memory), σ 58 ppm for a spread
+    /// uniform over ±100 ppm. Over a long wait at rest before the launch that slides the
+    /// accelerometer's onset against the pulses by milliseconds (6 ms after 60 s at 100 ppm).</summary>
+    public double TextAccelClockRateSigma { get; init; } = 58e-6;
+
+    /// <summary>1-σ of a driven wheel's slip at the launch, as a fraction of the distance, for runs
+    /// with pulses only (nothing then shows whether the wheel is driven): a driven tyre launching
+    /// near its grip limit slips by 5–15 % (the peak of its force–slip curve; H. B. Pacejka, "Tire
+    /// and Vehicle Dynamics", ch. 1, figures from memory), fading as the speed builds
+    /// (<see cref="LaunchSlipFadeM"/>). With an accelerometer the slip is measured instead
+    /// (<see cref="LaunchSlipAllowance"/>).</summary>
+    public double PulsesOnlyLaunchSlip { get; init; } = 0.05;
+
+    /// <summary>Distance over which a launch slip fades, m (ours: the first couple of feet).</summary>
+    public double LaunchSlipFadeM { get; init; } = 0.5;
+
     /// <summary>Share of a driven wheel's estimated slip correction taken as 1-σ model error: the
     /// slip law is linear, and real tyres slip more near their grip limit, as in a hard launch
     /// (sized on simulated launches so that the rollout mark stays within ±2 σ).</summary>

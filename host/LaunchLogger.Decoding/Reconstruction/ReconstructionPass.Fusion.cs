@@ -154,8 +154,10 @@ internal sealed partial class ReconstructionPass
         double stop = stopS ?? double.PositiveInfinity;
         double previous = 0;
         double growthDistance = 0;
+        double pulsesOnlySlip = 0;
         double circumferenceSigma = pulses is null ? 0 : options.CircumferenceSigmaFraction;
         double growthSigma = pulses is null ? 0 : options.TyreGrowthSigmaAt30Mps;
+        double[]? launchSlip = LaunchSlip(steps, startS, k0, fused);
         for (int k = k0; k < n; k++)
         {
             bool atRest = grid[k] >= stop;
@@ -178,6 +180,21 @@ internal sealed partial class ReconstructionPass
                 double rate = k + 1 < n ? (slipSignal[k + 1] - slipSignal[k]) / (grid[k + 1] - grid[k]) : 0;
                 slipSpeed = unexplained * rate;
             }
+            else if (accel is null && pulses != null && options.WheelSlipSigma > 0)
+            {
+                // Pulses alone cannot tell a driven wheel from an undriven one: its slip under
+                // drive, up to the slip law's prior, is in σ (the fitted acceleration stands in
+                // for the accelerometer), and so is the launch slip near the tyre's grip limit.
+                double drive = Math.Max(fused.Third[k] + (options.DragPerMassPerSpeedSquared * speed[k] * speed[k]) + (options.RollingResistance * G0), 0);
+                if (k > k0)
+                {
+                    pulsesOnlySlip += speed[k] * drive * (grid[k] - grid[k - 1]);
+                }
+
+                double fade = options.LaunchSlipFadeM;
+                slipDistance = (options.WheelSlipSigma * pulsesOnlySlip) + (Staged ? options.PulsesOnlyLaunchSlip * fade * (1 - Math.Exp(-d / fade)) : 0);
+                slipSpeed = options.WheelSlipSigma * speed[k] * drive;
+            }
 
             double dSys = (scale * d) + slipDistance;
             double vSys = (scale * speed[k]) + slipSpeed;
@@ -189,7 +206,8 @@ internal sealed partial class ReconstructionPass
 
             double clock = options.TimebaseSigma * (grid[k] - startS);
             double dScale = circumferenceSigma * d;
-            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + Square(speed[k] * clock));
+            double launch = launchSlip?[k] ?? 0;
+            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + Square(speed[k] * clock) + (launch * launch));
             sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + Square(options.TimebaseSigma * speed[k]));
             if (atRest)
             {
@@ -248,6 +266,22 @@ internal sealed partial class ReconstructionPass
             DistanceSigmaM = sd,
             SpeedSigmaMps = sv,
         };
+    }
+
+    /// <summary>The launch slip the accelerometer shows beyond its own error
+    /// (<see cref="LaunchSlipAllowance"/>); null without both sensors or without a standstill.</summary>
+    private double[]? LaunchSlip(StepGrid steps, double startS, int k0, FusionResult fused)
+    {
+        if (accel is null || pulses is null || !Staged)
+        {
+            return null;
+        }
+
+        double bias = Math.Sqrt(Square(accel.RestLevelSigmaMps2) + Square(options.BiasPriorMps2));
+        double pulseScale = Math.Sqrt(Square(options.CircumferenceSigmaFraction) + Square(options.PulseScaleSigma));
+        return LaunchSlipAllowance.DistanceSigma(
+            steps.TimeS, k0, startS, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM,
+            fused.DistanceM, fused.DistanceSigmaM, bias, options.AccelScaleSigma, pulseScale);
     }
 
     private static Estimate MeanBias(double[] grid, double startS, double? stopS, FusionResult fused)

@@ -27,7 +27,7 @@ internal sealed partial class ReconstructionPass
         // sensor's own clock: each is placed to within about a sample period (uniform: σ = T/√12),
         // which the onset fit on those instants cannot see.
         double samplePlacement = accel is null ? 0 : accel.PeriodS / Math.Sqrt(12);
-        Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, Math.Sqrt((o.SigmaS * o.SigmaS) + (samplePlacement * samplePlacement))) : null;
+        Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, Math.Sqrt((o.SigmaS * o.SigmaS) + (samplePlacement * samplePlacement) + Square(TimeAxisOffsetSigma(o.TimeS)))) : null;
         if (fromAccel is { } fa && pulses != null && fa.Value >= pulses.HiS[0])
         {
             warnings.Add("the accelerometer onset came after the first pulse; it was not used");
@@ -83,6 +83,16 @@ internal sealed partial class ReconstructionPass
         warnings.Add("the accelerometer shows no clear onset of motion: first motion is taken from the box's own mark or the start of the samples");
         return new Estimate(start, 0.05);
     }
+
+    /// <summary>How far the accelerometer's time axis may have slid against the pulses' by
+    /// <paramref name="timeS"/>, s: for sample times given in a plain-text file (not rebuilt from
+    /// the box's burst read times, which tie them to the box's clock), the sensor's clock rate
+    /// error (<see cref="ReconstructionOptions.TextAccelClockRateSigma"/>) times the time since the
+    /// record's first sample; 0 for logs.</summary>
+    private double TimeAxisOffsetSigma(double timeS) =>
+        run.Accel is { SampleIndex: null } samples && samples.Count > 0
+            ? options.TextAccelClockRateSigma * Math.Max(0, timeS - (samples.ClockOriginS ?? samples.TimeS[0]))
+            : 0;
 
     /// <summary>Below this speed a record counts as opening at rest, m/s.</summary>
     private const double CrawlMps = 0.3;

@@ -30,6 +30,11 @@ public sealed class AccelSeries
     /// <summary>The sensor's index of each sample (logs only; null for plain-text inputs).</summary>
     public long[]? SampleIndex { get; init; }
 
+    /// <summary>For plain-text inputs cut from a longer record: the time of the record's first
+    /// sample, where the sensor's own clock was last tied to the input's axis (null: this series'
+    /// own first sample).</summary>
+    public double? ClockOriginS { get; init; }
+
     /// <summary>Which sensor axes became forward, lateral and vertical (logs only).</summary>
     public AxisMapping? Axes { get; init; }
 

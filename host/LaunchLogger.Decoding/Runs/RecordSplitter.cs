@@ -13,7 +13,9 @@ namespace LaunchLogger.Decoding.Runs;
 /// samples and events go to the piece their time falls in.</para>
 /// <para>A piece with too little motion (a stray pulse while parked: fewer than
 /// <see cref="MinPulses"/> pulses or under <see cref="MinMotionM"/>) is no run and stays with its
-/// neighbour. Records without pulses (accelerometer only) are not split.</para>
+/// neighbour. Records without pulses (accelerometer only) are cut in the middle of each rest
+/// <see cref="AccelRestFinder"/> finds (a quiet stretch where the speed, integrated back from the
+/// rest the record ends in, is near zero).</para>
 /// </remarks>
 public static class RecordSplitter
 {
@@ -30,6 +32,11 @@ public static class RecordSplitter
     public static IReadOnlyList<DecodedRun> Split(DecodedRun record)
     {
         ArgumentNullException.ThrowIfNull(record);
+        if (record.Pulses.Count == 0 && record.Accel is { } accel)
+        {
+            return SplitByAccelerometer(record, AccelRestFinder.Cuts(accel));
+        }
+
         IReadOnlyList<int> starts = RunStarts(record);
         if (starts.Count <= 1)
         {
@@ -46,6 +53,26 @@ public static class RecordSplitter
             double to = k + 1 < starts.Count ? 0.5 * (pulses[end - 1].HiS + pulses[end].LoS) : double.PositiveInfinity;
             long origin = first > 0 ? pulses[first - 1].Count : 0;
             pieces.Add(Piece(record, k, starts.Count, from, to, first, end, origin));
+            from = to;
+        }
+
+        return pieces;
+    }
+
+    /// <summary>A record without pulses cut at <paramref name="cuts"/> (see <see cref="AccelRestFinder"/>).</summary>
+    private static IReadOnlyList<DecodedRun> SplitByAccelerometer(DecodedRun record, IReadOnlyList<double> cuts)
+    {
+        if (cuts.Count == 0)
+        {
+            return [record];
+        }
+
+        var pieces = new List<DecodedRun>(cuts.Count + 1);
+        double from = double.NegativeInfinity;
+        for (int k = 0; k <= cuts.Count; k++)
+        {
+            double to = k < cuts.Count ? cuts[k] : double.PositiveInfinity;
+            pieces.Add(Piece(record, k, cuts.Count + 1, from, to, 0, 0, 0));
             from = to;
         }
 
@@ -172,6 +199,7 @@ public static class RecordSplitter
             SamplePeriodS = accel.SamplePeriodS,
             SamplePeriodUncertaintyS = accel.SamplePeriodUncertaintyS,
             SampleIndex = accel.SampleIndex?[lo..hi],
+            ClockOriginS = accel.ClockOriginS ?? accel.TimeS[0],
             Axes = accel.Axes,
         };
     }

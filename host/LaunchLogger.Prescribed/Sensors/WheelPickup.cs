@@ -10,7 +10,7 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// The wheel turns R(t) = ∫ v / C(v) dt revolutions; pulse k (k = 1, 2, …) comes when
 /// R = (k − 1 + φ)/N, with N teeth and φ the fraction of a tooth pitch before the first tooth
 /// reaches the pickup. With a rigid tyre R = x / C, and each pulse time is a distance crossing
-/// of the trajectory. With growth, R is integrated over chunks of at most
+/// of the trajectory. With growth or drive slip (v·(1 + κ) in place of v), R is integrated over chunks of at most
 /// <see cref="ChunkS"/> by Gauss–Legendre quadrature, its error checked by comparing 12 and 24
 /// points (subdividing until they agree to 1e-12 revolutions), and each pulse time is then a
 /// root of R found by Brent's method.
@@ -18,12 +18,17 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// <param name="Teeth">Pulses per revolution (8–100 in practice).</param>
 /// <param name="Tyre">The tyre.</param>
 /// <param name="PhaseFraction">φ in [0, 1): where the first tooth sits.</param>
-public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5)
+/// <param name="Slip">Drive slip when the wheel is driven (its rate is then v·(1 + κ) / C(v),
+/// integrated as with growth); null for an undriven wheel.</param>
+public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null)
 {
     /// <summary>Longest span integrated in one piece, s.</summary>
     public const double ChunkS = 0.05;
 
     private const double RevolutionTolerance = 1e-12;
+
+    /// <summary>Least distance at which an edge is placed, m (a nanometre: far below any figure).</summary>
+    private const double FirstEdgeDistanceM = 1e-9;
 
     /// <summary>Distance per pulse the decoder is told, m.</summary>
     public double StatedMetresPerPulse => Tyre.StatedCircumferenceM / Teeth;
@@ -37,7 +42,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
             throw new ArgumentOutOfRangeException(nameof(Teeth), "at least one tooth and a phase in [0, 1)");
         }
 
-        return Tyre.Rigid ? RigidEdges(profile) : GrowingEdges(profile);
+        return Tyre.Rigid && Slip is null ? RigidEdges(profile) : GrowingEdges(profile);
     }
 
     private double[] RigidEdges(MotionProfile profile)
@@ -48,7 +53,9 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         double after = 0;
         for (long k = 1; ; k++)
         {
-            double d = (k - 1 + PhaseFraction) * pitch;
+            // A tooth sitting exactly at the pickup (φ = 0) fires as the wheel first turns, not
+            // at the record's start: its crossing is taken just beyond the rest position.
+            double d = Math.Max((k - 1 + PhaseFraction) * pitch, FirstEdgeDistanceM);
             if (d > total)
             {
                 break;
@@ -107,8 +114,10 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
 
         double Rate(double t)
         {
-            double v = s.StateAt(t - s.StartS).SpeedMps;
-            return v / Tyre.CircumferenceAt(v);
+            MotionState state = s.StateAt(t - s.StartS);
+            double v = state.SpeedMps;
+            double slip = Slip?.At(state.DistanceM, state.AccelMps2) ?? 0;
+            return v * (1 + slip) / Tyre.CircumferenceAt(v);
         }
 
         double coarse = GaussLegendreRule.Integrate(Rate, a, b, 12);

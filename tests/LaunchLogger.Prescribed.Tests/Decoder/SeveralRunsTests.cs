@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Verdicts;
+using LaunchLogger.Prescribed.Motion;
 using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Shapes;
 using LaunchLogger.Prescribed.Truth;
@@ -61,5 +62,39 @@ public class SeveralRunsTests
                 expected.SequenceEqual(a.Verdict!.Reasons.Select(x => x.Code)),
                 $"{r.Spec}, run {k + 1}: {a.Verdict.Level} {string.Join("; ", a.Verdict.Reasons.Select(x => x.Code + ": " + x.Text))}");
         }
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(5)]
+    public void An_accelerometer_only_stop_and_go_record_is_cut_into_its_two_runs(int seed)
+    {
+        // Without pulses the rest between the runs is a quiet stretch at zero speed, the speed
+        // integrated back from the rest at the end; a steady cruise is quiet too but not at rest.
+        PrescribedRecord r = (Records.Standing(seed) with { Shape = PrescribedShapes.StopAndGo(new Random(seed), 3 + seed) }).Generate();
+        SessionAnalysis s = DecoderHarness.AnalyzeAccelerometerOnly(r);
+
+        Assert.Equal(2, s.Runs.Count);
+        for (int k = 0; k < 2; k++)
+        {
+            // Each run opens at rest, and its first motion is the generator's (the accelerometer
+            // alone: within 3σ and the 5 ms goal).
+            RunAnalysis a = s.Runs[k];
+            Assert.True(a.Reconstruction.Staged, $"{r.Spec}, run {k + 1}: not staged");
+            FigureCheck check = new("first motion", a.Figures.FirstMotionS.Value, a.Figures.FirstMotionS.Sigma, r.Truth[k].FirstMotionS!.Value, 5e-3, 2e-4);
+            Assert.True(check.Failure is null, $"{r.Spec}, run {k + 1}: {check.Failure}");
+        }
+    }
+
+    [Fact]
+    public void An_accelerometer_only_launch_with_a_long_cruise_before_the_stop_stays_one_run()
+    {
+        // The 4 s cruise at 15 m/s is as quiet as a rest; only the speed tells them apart.
+        var b = new MotionProfileBuilder().Hold(2).Ramp(0.2, 0, 3).Constant(4.8, 3).Ramp(0.2, 3, 0).Hold(4).BrakeToStop(0.3, 6).Hold(3);
+        var shape = new Shape("launch, 4 s cruise, stop", ShapeKind.StandingStart, b.Build());
+        PrescribedRecord r = (Records.Standing(3) with { Shape = shape }).Generate();
+        RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeAccelerometerOnly(r).Runs);
+        Assert.True(a.Reconstruction.Staged);
     }
 }
