@@ -2,9 +2,10 @@ using LaunchLogger.Pages;
 
 namespace LaunchLogger.Cli.Output;
 
-/// <summary>Run plots drawn while a log is streamed, kept in a temporary file (deleted when the
-/// spool is disposed, or by the system when the process dies) until the page that shows them is
-/// written, so that a long log's pictures are never held in memory together.</summary>
+/// <summary>Run plots drawn while a log is streamed, kept in a temporary file until the page that
+/// shows them is written, so that a long log's pictures are never held in memory together.</summary>
+/// <remarks>On Unix the file's name is removed as soon as it is open, so nothing is left behind
+/// even if the process is killed; elsewhere it is deleted when the spool is disposed.</remarks>
 public sealed class PlotSpool : IDisposable
 {
     private readonly FileStream file;
@@ -17,7 +18,12 @@ public sealed class PlotSpool : IDisposable
     public PlotSpool()
     {
         string path = Path.Combine(Path.GetTempPath(), $"launchlogger-plots-{Environment.ProcessId}-{Guid.NewGuid():N}.tmp");
-        file = new FileStream(path, FileMode.CreateNew, FileAccess.ReadWrite, FileShare.None, 65536, FileOptions.DeleteOnClose);
+        file = new FileStream(path, FileMode.CreateNew, FileAccess.ReadWrite, FileShare.Delete, 65536, FileOptions.DeleteOnClose);
+        if (!OperatingSystem.IsWindows())
+        {
+            File.Delete(path);
+        }
+
         writer = new BinaryWriter(file, System.Text.Encoding.UTF8, leaveOpen: true);
         reader = new BinaryReader(file, System.Text.Encoding.UTF8, leaveOpen: true);
     }

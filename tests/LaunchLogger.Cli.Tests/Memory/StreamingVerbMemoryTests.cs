@@ -8,21 +8,22 @@ namespace LaunchLogger.Cli.Tests.Memory;
 /// <summary>Each verb that reads logs keeps the memory of its largest run, not of the file: the
 /// verb runs in-process on a short log and then on a long one made of the same run repeated,
 /// while a second thread samples the live heap (forced full collections, GC counters); the long
-/// log's peak may exceed the short one's by at most a couple of runs — kept, its runs would add
-/// one run read and analysed each.</summary>
+/// log's peak may exceed the short one's by at most a few runs — kept, its twelve more runs would
+/// add one run read and analysed each.</summary>
 [Collection(VerbMemoryCollection.Name)]
 public class StreamingVerbMemoryTests
 {
     /// <summary>Runs in the short log.</summary>
-    private const int Short = 2;
+    private const int Short = 3;
 
     /// <summary>Runs in the long log.</summary>
-    private const int Long = 12;
+    private const int Long = 15;
 
     /// <summary>How much more the verb may hold at its peak on the long log than on the short
-    /// one, in runs read and analysed (the next run read while one is analysed, what is kept per
-    /// run: report entries, names). Keeping every run would add <see cref="Long"/> − <see cref="Short"/>.</summary>
-    private const double GrowthInRuns = 2;
+    /// one, in runs read and analysed: the next run read while one is analysed, what is kept per
+    /// run (report entries, names), and room for a peak the sampler missed on the short log.
+    /// Keeping every run would add <see cref="Long"/> − <see cref="Short"/>.</summary>
+    private const double GrowthInRuns = 4;
 
     /// <summary>One run as read and its analysis, both held (what a verb keeping runs keeps per run), bytes.</summary>
     private static readonly Lazy<long> OneRun = new(() =>
@@ -111,8 +112,9 @@ public class StreamingVerbMemoryTests
             $"{verb} peaked at {longPeak:N0} bytes live on {Long} runs and {shortPeak:N0} on {Short}; one run read and analysed is {OneRun.Value:N0} bytes, the growth allowed {Allowed:N0}");
     }
 
-    /// <summary>The verb's peak live heap above its start on the short and on the long log (after
-    /// a first pass on the short log, so that what the verb sets up once is there in both).
+    /// <summary>The verb's peak live heap above its start on the short log (the higher of two
+    /// passes) and on the long log, after a first pass on the short log, so that what the verb
+    /// sets up once is there in all.
     /// <paramref name="run"/> runs the verb and returns the checks of its output, made after the
     /// measurement (reading a long output back would count against the verb).</summary>
     private static (long Short, long Long) Peaks(Func<string, string, int, Action> run)
@@ -121,8 +123,14 @@ public class StreamingVerbMemoryTests
         string shortLog = Season(folder, Short);
         string longLog = Season(folder, Long);
         run(shortLog, Path.Combine(folder.Path, "warm"), Short)();
-        (Action checkShort, long shortPeak) = VerbMemoryCollection.PeakLiveDuring(() => run(shortLog, folder.Path, Short));
-        checkShort();
+        long shortPeak = 0;
+        foreach (string pass in new[] { "first", "second" })
+        {
+            (Action checkShort, long peak) = VerbMemoryCollection.PeakLiveDuring(() => run(shortLog, Path.Combine(folder.Path, pass), Short));
+            checkShort();
+            shortPeak = Math.Max(shortPeak, peak);
+        }
+
         (Action checkLong, long longPeak) = VerbMemoryCollection.PeakLiveDuring(() => run(longLog, folder.Path, Long));
         checkLong();
         return (shortPeak, longPeak);
