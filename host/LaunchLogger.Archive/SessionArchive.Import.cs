@@ -55,11 +55,21 @@ public sealed partial class SessionArchive
         }
 
         string now = Now();
-        long logId = Convert.ToInt64(Scalar(
-            "INSERT INTO logs (sha256, source, added_at, byte_count, bytes, link_gaps) VALUES ($h, $source, $at, $n, $bytes, $gaps) RETURNING id",
-            transaction,
-            ("$h", log.Sha256), ("$source", log.Source), ("$at", now), ("$n", log.Bytes.LongLength), ("$bytes", log.Bytes),
-            ("$gaps", gaps is { Count: > 0 } ? JsonSerializer.Serialize(gaps, ReportJson.Options) : null)));
+        string? linkGaps = gaps is { Count: > 0 } ? JsonSerializer.Serialize(gaps, ReportJson.Options) : null;
+        long logId = log.BytesFile is { } bytesFile
+            ? Convert.ToInt64(Scalar(
+                "INSERT INTO logs (sha256, source, added_at, byte_count, bytes, link_gaps) VALUES ($h, $source, $at, $n, zeroblob($n), $gaps) RETURNING id",
+                transaction,
+                ("$h", log.Sha256), ("$source", log.Source), ("$at", now), ("$n", log.ByteCount), ("$gaps", linkGaps)))
+            : Convert.ToInt64(Scalar(
+                "INSERT INTO logs (sha256, source, added_at, byte_count, bytes, link_gaps) VALUES ($h, $source, $at, $n, $bytes, $gaps) RETURNING id",
+                transaction,
+                ("$h", log.Sha256), ("$source", log.Source), ("$at", now), ("$n", log.ByteCount), ("$bytes", log.Bytes), ("$gaps", linkGaps)));
+        if (log.BytesFile is { } file)
+        {
+            CopyBytes(file, logId, log.Sha256, log.ByteCount);
+        }
+
         var filed = new List<(long, AnalysedRun)>(log.Runs.Count);
         var known = new List<KnownRun>();
         foreach (AnalysedRun run in log.Runs)
@@ -111,6 +121,30 @@ public sealed partial class SessionArchive
             "SELECT id, COALESCE(frames_lost, 0) FROM runs WHERE fingerprint = $print ORDER BY id LIMIT 1", transaction, ("$print", run.Fingerprint));
         using SqliteDataReader reader = command.ExecuteReader();
         return reader.Read() ? (reader.GetInt64(0), reader.GetInt64(1)) : null;
+    }
+
+    /// <summary>Copies a log's bytes from its file into its row's blob in blocks (the open
+    /// transaction covers it), checking that the file still holds the bytes that were analysed.</summary>
+    /// <exception cref="ArchiveException">The file changed since it was analysed (nothing is filed).</exception>
+    private void CopyBytes(string file, long logId, string sha256, long length)
+    {
+        using var blob = new SqliteBlob(connection, "logs", "bytes", logId);
+        using FileStream source = System.IO.File.OpenRead(file);
+        using var hash = System.Security.Cryptography.IncrementalHash.CreateHash(System.Security.Cryptography.HashAlgorithmName.SHA256);
+        byte[] block = new byte[1 << 16];
+        long copied = 0;
+        int got;
+        while ((got = source.Read(block, 0, block.Length)) > 0 && copied + got <= length)
+        {
+            blob.Write(block, 0, got);
+            hash.AppendData(block, 0, got);
+            copied += got;
+        }
+
+        if (copied != length || got > 0 || Convert.ToHexStringLower(hash.GetHashAndReset()) != sha256)
+        {
+            throw new ArchiveException($"{file} changed while it was being filed: import it again");
+        }
     }
 
     /// <summary>The raw bytes of a log, exactly as filed.</summary>

@@ -27,14 +27,30 @@ public static class HtmlPage
     public static string Document(string title, string body, string footerNote, string? script = null)
     {
         var html = new StringBuilder(body.Length + 8192);
-        html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+        html.Append(Head(title)).Append(body).Append(Foot(footerNote, script));
+        return html.ToString();
+    }
+
+    /// <summary>A page's start, up to and including <c>&lt;body&gt;</c>: with <see cref="Foot"/>,
+    /// a page written piece by piece (a long one is never held whole), the same as <see cref="Document"/>.</summary>
+    /// <param name="title">The document title (plain text; encoded here).</param>
+    public static string Head(string title) =>
+        new StringBuilder(Stylesheet.Length + 512)
+            .Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
             .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
             .Append("<meta name=\"generator\" content=\"launchlogger\">\n")
             .Append("<link rel=\"icon\" href=\"data:,\">\n")
             .Append("<title>").Append(Encode(title)).Append("</title>\n")
             .Append("<style>\n").Append(Stylesheet).Append("</style>\n</head>\n<body>\n")
-            .Append(body)
-            .Append("<footer class=\"page-foot\"><p class=\"caution\"><strong>Safety.</strong> ").Append(Encode(SafetyCaution)).Append("</p>")
+            .ToString();
+
+    /// <summary>A page's end after its body: the footer with the safety caution, the script, the closing tags.</summary>
+    /// <param name="footerNote">Plain text for the footer beside the caution (encoded here).</param>
+    /// <param name="script">An optional inline script (the live board's); null for static pages.</param>
+    public static string Foot(string footerNote, string? script = null)
+    {
+        var html = new StringBuilder(1024);
+        html.Append("<footer class=\"page-foot\"><p class=\"caution\"><strong>Safety.</strong> ").Append(Encode(SafetyCaution)).Append("</p>")
             .Append("<p class=\"made\">").Append(Encode(footerNote)).Append("</p></footer>\n");
         if (script is not null)
         {

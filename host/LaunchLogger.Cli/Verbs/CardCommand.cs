@@ -72,12 +72,10 @@ public static class CardCommand
                     return ExitCode.Partial;
                 }
 
-                return Write(file, RunCard.Page(card), [card], output, error, cancel);
+                return WritePage(file, [card.Run.Index], _ => card, RunCard.FootNote(card.ToolVersion), ExitCode.Ok, output, error, cancel);
             }, readOnly: true);
         }
 
-        List<CardInput> cards;
-        ExitCode code;
         if (reportJson is not null)
         {
             ReportDocument? document;
@@ -97,58 +95,72 @@ public static class CardCommand
                 return ExitCode.BadInput;
             }
 
-            cards = document.Runs.Select(run => Card(document, run, units, [])).ToList();
-            code = document.Runs.All(r => r.Verdict is null || r.Verdict.Level == "valid") ? ExitCode.Ok : ExitCode.Partial;
+            ExitCode judged = document.Runs.All(r => r.Verdict is null || r.Verdict.Level == "valid") ? ExitCode.Ok : ExitCode.Partial;
+            return WriteCards(file, document, index, units, _ => [], judged, output, error, cancel);
         }
-        else
+
+        // Each run's plots are drawn as it is analysed and spooled to a temporary file, then the run
+        // is let go; the cards are written one at a time at the end, when the verdicts are final
+        // (the session's braking bound is known only then), so a long log takes the memory of its
+        // largest run, not of every run and its plots.
+        using var spool = new PlotSpool();
+        ReportCommand.Analysed? analysed = ReportCommand.Analyse(logs, "card", error, out ExitCode failed, cancel, (run, position) =>
         {
-            ReportCommand.Analysed? analysed = ReportCommand.Analyse(logs, "card", error, out ExitCode failed, cancel, keepRuns: true);
-            if (analysed is null)
+            if (index is null || index == position)
             {
-                return failed;
+                spool.Add(position, CardPlots.For(run, units));
             }
-
-            cards = analysed.Document.Runs.Select((run, i) => Card(analysed.Document, run, units, CardPlots.For(analysed.Session!.Runs[i], units))).ToList();
-            code = analysed.Code;
+        });
+        if (analysed is null)
+        {
+            return failed;
         }
 
+        return WriteCards(file, analysed.Document, index, units, spool.Read, analysed.Code, output, error, cancel);
+    }
+
+    /// <summary>Writes the document's cards (or only card <paramref name="index"/>) to one page,
+    /// card after card, each with the plots <paramref name="plotsOf"/> gives for its 1-based position.</summary>
+    private static ExitCode WriteCards(FileInfo file, ReportDocument document, int? index, DisplayUnits units, Func<int, IReadOnlyList<PlotFigure>> plotsOf, ExitCode code, TextWriter output, TextWriter error, CancellationToken cancel)
+    {
+        IReadOnlyList<RunReport> runs = document.Runs;
+        List<int> positions = Enumerable.Range(1, runs.Count).ToList();
         if (index is { } wanted)
         {
-            if (wanted < 1 || wanted > cards.Count)
+            if (wanted < 1 || wanted > runs.Count)
             {
-                error.WriteLine($"launchlogger card: --index {wanted}: the input has runs 1 to {cards.Count}");
+                error.WriteLine($"launchlogger card: --index {wanted}: the input has runs 1 to {runs.Count}");
                 return ExitCode.Usage;
             }
 
-            cards = [cards[wanted - 1]];
+            positions = [wanted];
         }
 
-        var body = new StringBuilder();
-        foreach (CardInput card in cards)
-        {
-            RunCard.Append(body, card);
-        }
-
-        string title = cards.Count == 1 ? RunCard.Title(cards[0]) : $"Run cards: {cards.Count} runs";
-        ExitCode written = Write(file, HtmlPage.Document(title, body.ToString(), RunCard.FootNote(ToolInfo.Version)), cards, output, error, cancel);
-        return written == ExitCode.Ok ? code : written;
+        return WritePage(file, positions, position => Card(document, runs[position - 1], units, plotsOf(position)), RunCard.FootNote(ToolInfo.Version), code, output, error, cancel);
     }
 
-    private static CardInput Card(ReportDocument document, RunReport run, DisplayUnits units, IReadOnlyList<PlotFigure> plots) => new()
+    /// <summary>Writes the cards at <paramref name="positions"/> to one page, card after card
+    /// (only one card's HTML is held at a time), all or nothing.</summary>
+    private static ExitCode WritePage(FileInfo file, IReadOnlyList<int> positions, Func<int, CardInput> cardAt, string footNote, ExitCode code, TextWriter output, TextWriter error, CancellationToken cancel)
     {
-        Run = run,
-        TractionBound = document.TractionBound,
-        Weather = document.Weather,
-        ToolVersion = document.ToolVersion,
-        Units = units,
-        Plots = plots,
-    };
-
-    private static ExitCode Write(FileInfo file, string html, IReadOnlyList<CardInput> cards, TextWriter output, TextWriter error, CancellationToken cancel)
-    {
+        string title = positions.Count == 1 ? RunCard.Title(cardAt(positions[0])) : $"Run cards: {positions.Count} runs";
         try
         {
-            ArchiveSupport.WriteText(file, html, cancel);
+            AtomicFile.WriteAll([(file.FullName, stream =>
+            {
+                using var writer = new StreamWriter(stream, new UTF8Encoding(false), leaveOpen: true);
+                writer.Write(HtmlPage.Head(title));
+                var html = new StringBuilder(65536);
+                foreach (int position in positions)
+                {
+                    cancel.ThrowIfCancellationRequested();
+                    html.Clear();
+                    RunCard.Append(html, cardAt(position));
+                    writer.Write(html);
+                }
+
+                writer.Write(HtmlPage.Foot(footNote));
+            })], cancel);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
@@ -161,7 +173,17 @@ public static class CardCommand
             return ExitCode.Cancelled;
         }
 
-        output.WriteLine($"wrote {cards.Count} card(s) to {file.FullName}; open it in a browser and print it from there (A4 or Letter)");
-        return ExitCode.Ok;
+        output.WriteLine($"wrote {positions.Count} card(s) to {file.FullName}; open it in a browser and print it from there (A4 or Letter)");
+        return code;
     }
+
+    private static CardInput Card(ReportDocument document, RunReport run, DisplayUnits units, IReadOnlyList<PlotFigure> plots) => new()
+    {
+        Run = run,
+        TractionBound = document.TractionBound,
+        Weather = document.Weather,
+        ToolVersion = document.ToolVersion,
+        Units = units,
+        Plots = plots,
+    };
 }

@@ -52,12 +52,14 @@ public static class ImportCommand
             var outcomes = new List<ImportOutcome>();
             var problems = new List<string>();
 
-            // Hash first, so logs already filed are not analysed again; analyse the rest on every
-            // core, and file them one by one, in order, each in its own transaction.
+            // Hash first (reading each file in blocks), so logs already filed are not analysed
+            // again; analyse the rest on every core, each read one run at a time, and file them
+            // one by one, in order, each in its own transaction, its bytes copied from its file.
+            // No log is ever held whole, so memory is bounded by the largest runs being analysed.
             var work = files
-                .Select(f => (File: f, Bytes: TryRead(f, problems)))
-                .Where(w => w.Bytes is not null)
-                .Select(w => (w.File, Bytes: w.Bytes!, Hash: LogAnalyzer.Hash(w.Bytes!)))
+                .Select(f => (File: f, Hash: TryHash(f, problems)))
+                .Where(w => w.Hash is not null)
+                .Select(w => (w.File, Hash: w.Hash!))
                 .ToList();
             var skipped = work.Where(w => archive.FindLog(w.Hash) is not null).ToList();
             foreach (var s in skipped)
@@ -68,10 +70,23 @@ public static class ImportCommand
             var analysed = work.Except(skipped)
                 .DistinctBy(w => w.Hash)
                 .AsParallel().AsOrdered().WithCancellation(cancel)
-                .Select(w => LogAnalyzer.Analyze(w.Bytes, Path.GetFileName(w.File), ToolInfo.Version, resolved.Calibration, resolved.Weather, cancel));
-            foreach (AnalysedLog log in analysed)
+                .Select(w => TryAnalyse(w.File, w.Hash, resolved, cancel));
+            foreach ((AnalysedLog? log, string? problem) in analysed)
             {
-                outcomes.Add(archive.File(log, resolved));
+                if (log is null)
+                {
+                    problems.Add(problem!);
+                    continue;
+                }
+
+                try
+                {
+                    outcomes.Add(archive.File(log, resolved));
+                }
+                catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArchiveException)
+                {
+                    problems.Add($"{log.BytesFile}: not filed: {e.Message}");
+                }
             }
 
             Report(outcomes, problems, json, output, error);
@@ -106,16 +121,28 @@ public static class ImportCommand
         return files;
     }
 
-    private static byte[]? TryRead(string file, List<string> problems)
+    private static string? TryHash(string file, List<string> problems)
     {
         try
         {
-            return File.ReadAllBytes(file);
+            return LogAnalyzer.HashFile(file);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             problems.Add($"{file}: cannot read: {e.Message}");
             return null;
+        }
+    }
+
+    private static (AnalysedLog? Log, string? Problem) TryAnalyse(string file, string hash, ResolvedAssignment resolved, CancellationToken cancel)
+    {
+        try
+        {
+            return (LogAnalyzer.AnalyzeFile(file, hash, Path.GetFileName(file), ToolInfo.Version, resolved.Calibration, resolved.Weather, cancel), null);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return (null, $"{file}: cannot read: {e.Message}");
         }
     }
 

@@ -92,13 +92,23 @@ public static class PlotCommand
             return ExitCode.Usage;
         }
 
-        SessionAnalysis session;
+        // Runs are read, analysed and drawn one at a time, each picture written to its temporary
+        // file as soon as it is drawn and the run let go, so a long log takes the memory of its
+        // largest run (an overlay keeps the runs it overlays). The files are moved into place
+        // together at the end, when their names are known (one run keeps the name as given).
+        List<int>? wanted = request.Runs.Count == 0 ? null : [.. request.Runs.Distinct()];
+        var skipped = new List<string>();
+        var drawn = new List<int>();
+        var overlaid = new List<(int Number, RunAnalysis Run)>();
+        RunAlignment alignment = request.Align == "rollout" ? RunAlignment.Rollout : RunAlignment.Standstill;
+        using var files = new AtomicFile.Set();
+        StreamedSession<int> session;
         try
         {
             var inputRequest = new ReportRequest { Logs = request.Logs, Settings = request.Settings };
             var inputs = RunInputs.Load(inputRequest, cancel);
             var options = new AnalysisOptions { RolloutM = request.RolloutM, Calibration = RunInputs.LoadSettings(inputRequest) };
-            session = SessionAnalyzer.Analyze(inputs.SelectMany(i => i.Runs), options, [], cancel);
+            session = SessionAnalyzer.AnalyzeEach(inputs.SelectMany(i => i.Runs), (run, n) => Draw(run, n), options, [], cancel);
         }
         catch (InputException e)
         {
@@ -109,6 +119,11 @@ public static class PlotCommand
         {
             error.WriteLine($"{Verb}: {e.Message}");
             return ExitCode.Usage;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            error.WriteLine($"{Verb}: cannot write the picture: {e.Message}");
+            return ExitCode.BadInput;
         }
 
         foreach (string failure in session.Failures)
@@ -122,41 +137,10 @@ public static class PlotCommand
             return ExitCode.BadInput;
         }
 
-        List<int> numbers = request.Runs.Count == 0 ? Enumerable.Range(1, session.Runs.Count).ToList() : [.. request.Runs.Distinct()];
-        if (numbers.FirstOrDefault(n => n < 1 || n > session.Runs.Count) is var bad && bad != 0)
+        if (wanted?.FirstOrDefault(n => n < 1 || n > session.Runs.Count) is int bad && bad != 0)
         {
             error.WriteLine($"{Verb}: --run {bad}: the input holds runs 1 to {session.Runs.Count}");
             return ExitCode.Usage;
-        }
-
-        var skipped = new List<string>();
-        var charts = new List<(string Path, Func<Chart> Draw)>();
-        switch (request.Kind)
-        {
-            case "overlay":
-                RunAlignment alignment = request.Align == "rollout" ? RunAlignment.Rollout : RunAlignment.Standstill;
-                var chosen = numbers.Where(n => session.Runs[n - 1].Reconstruction.Staged
-                    && (alignment == RunAlignment.Standstill || session.Runs[n - 1].Reconstruction.RolloutTimeS != null)).ToList();
-                skipped.AddRange(numbers.Except(chosen).Select(n => session.Runs[n - 1].Reconstruction.Staged
-                    ? $"run {n} never reached the rollout mark, so it is left out of the overlay"
-                    : $"run {n} opened while rolling (no standstill), so it is left out of the overlay"));
-                if (chosen.Count > 0)
-                {
-                    charts.Add((request.Out, () => RunCharts.Overlay(chosen.Select(n => session.Runs[n - 1]).ToList(), alignment, chart, chosen.Select(n => $"run {n}").ToList())));
-                }
-
-                break;
-            case "braking":
-                var stops = numbers.Where(n => session.Runs[n - 1].Braking != null).ToList();
-                skipped.AddRange(numbers.Except(stops).Select(n => $"run {n} does not end in a stop, so it has no braking picture"));
-                charts.AddRange(stops.Select(n => (PlotFiles.ForRun(request.Out, n, numbers.Count), (Func<Chart>)(() => RunCharts.Braking(session.Runs[n - 1], chart with { Title = $"Run {n}: stop from {Format.Speed(session.Runs[n - 1].Braking!.FromMps, request.Units)}" })))));
-                break;
-            case "launch":
-                charts.AddRange(numbers.Select(n => (PlotFiles.ForRun(request.Out, n, numbers.Count), (Func<Chart>)(() => RunCharts.Launch(session.Runs[n - 1], chart with { Title = $"Run {n}: the launch" })))));
-                break;
-            default:
-                charts.AddRange(numbers.Select(n => (PlotFiles.ForRun(request.Out, n, numbers.Count), (Func<Chart>)(() => RunCharts.Trace(session.Runs[n - 1], chart with { Title = $"Run {n}: speed, distance and acceleration" })))));
-                break;
         }
 
         foreach (string note in skipped)
@@ -164,15 +148,31 @@ public static class PlotCommand
             error.WriteLine($"{Verb}: {note}");
         }
 
-        if (charts.Count == 0)
-        {
-            error.WriteLine($"{Verb}: nothing to draw");
-            return ExitCode.BadInput;
-        }
-
+        var targets = new List<string>();
         try
         {
-            PlotFiles.Write(charts, cancel);
+            if (request.Kind == "overlay")
+            {
+                if (overlaid.Count > 0)
+                {
+                    files.Write(request.Out, stream => RunCharts.Overlay(overlaid.Select(o => o.Run).ToList(), alignment, chart, overlaid.Select(o => $"run {o.Number}").ToList())
+                        .Write(stream, PlotFiles.FormatOf(request.Out, "--out")));
+                    targets.Add(request.Out);
+                }
+            }
+            else
+            {
+                int count = wanted?.Count ?? session.Runs.Count;
+                targets.AddRange(drawn.Select(n => PlotFiles.ForRun(request.Out, n, count)));
+            }
+
+            if (targets.Count == 0)
+            {
+                error.WriteLine($"{Verb}: nothing to draw");
+                return ExitCode.BadInput;
+            }
+
+            files.Commit(targets, cancel);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
@@ -180,11 +180,67 @@ public static class PlotCommand
             return ExitCode.BadInput;
         }
 
-        foreach ((string path, _) in charts)
+        foreach (string path in targets)
         {
             output.WriteLine($"wrote {path}");
         }
 
         return skipped.Count == 0 && session.Failures.Count == 0 ? ExitCode.Ok : ExitCode.Partial;
+
+        // Draws run n (when chosen) to its temporary file, or keeps it for the overlay.
+        int Draw(RunAnalysis run, int n)
+        {
+            if (wanted != null && !wanted.Contains(n))
+            {
+                return n;
+            }
+
+            Func<Chart>? draw = null;
+            switch (request.Kind)
+            {
+                case "overlay":
+                    if (!run.Reconstruction.Staged)
+                    {
+                        skipped.Add($"run {n} opened while rolling (no standstill), so it is left out of the overlay");
+                    }
+                    else if (alignment == RunAlignment.Rollout && run.Reconstruction.RolloutTimeS == null)
+                    {
+                        skipped.Add($"run {n} never reached the rollout mark, so it is left out of the overlay");
+                    }
+                    else
+                    {
+                        overlaid.Add((n, run));
+                    }
+
+                    break;
+                case "braking":
+                    if (run.Braking == null)
+                    {
+                        skipped.Add($"run {n} does not end in a stop, so it has no braking picture");
+                    }
+                    else
+                    {
+                        draw = () => RunCharts.Braking(run, chart with { Title = $"Run {n}: stop from {Format.Speed(run.Braking.FromMps, request.Units)}" });
+                    }
+
+                    break;
+                case "launch":
+                    draw = () => RunCharts.Launch(run, chart with { Title = $"Run {n}: the launch" });
+                    break;
+                default:
+                    draw = () => RunCharts.Trace(run, chart with { Title = $"Run {n}: speed, distance and acceleration" });
+                    break;
+            }
+
+            if (draw != null)
+            {
+                // Named as one of several for now: the folder is the same whatever the final name.
+                cancel.ThrowIfCancellationRequested();
+                files.Write(PlotFiles.ForRun(request.Out, n, 2), stream => draw().Write(stream, PlotFiles.FormatOf(request.Out, "--out")));
+                drawn.Add(n);
+            }
+
+            return n;
+        }
     }
 }

@@ -75,7 +75,11 @@ public static class ReportCommand
             return ExitCode.Usage;
         }
 
-        Analysed? analysed = Analyse(request, "report", error, out ExitCode failed, cancel, keepRuns: request.Plot is not null);
+        // Each run's trace is drawn as the run is analysed and written to a temporary file, then
+        // the run is let go; the pictures are moved into place together once all are drawn.
+        using AtomicFile.Set? plots = request.Plot is null ? null : new AtomicFile.Set();
+        string? plotFailure = null;
+        Analysed? analysed = Analyse(request, "report", error, out ExitCode failed, cancel, plots is null ? null : DrawPlot);
         if (analysed is null)
         {
             return failed;
@@ -90,25 +94,46 @@ public static class ReportCommand
             ReportTableWriter.Write(analysed.Document, output, request.Units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
         }
 
-        if (request.Plot is { } plotFile && !WritePlots(analysed.Session!, plotFile, request.Units, error, cancel))
+        if (plots is not null && request.Plot is { } plotFile && !CommitPlots(plots, plotFile, analysed.Document.Runs.Count, plotFailure, error, cancel))
         {
             return ExitCode.BadInput;
         }
 
         return analysed.Code;
+
+        void DrawPlot(RunAnalysis run, int index)
+        {
+            if (plotFailure is not null)
+            {
+                return;
+            }
+
+            try
+            {
+                // Named as one of several for now: the folder is the same whatever the final name.
+                plots!.Write(PlotFiles.ForRun(request.Plot!, index, 2), stream => RunCharts.Trace(run, new ChartOptions { Units = request.Units, Title = $"Run {index}: speed, distance and acceleration" })
+                    .Write(stream, PlotFiles.FormatOf(request.Plot!, "--plot")));
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                plotFailure = e.Message;
+            }
+        }
     }
 
-    /// <summary>Writes each run's trace (one file, or NAME-runN for several); false, with the
-    /// reason on <paramref name="error"/>, when they could not be written (then none is).</summary>
-    private static bool WritePlots(SessionAnalysis session, string path, DisplayUnits units, TextWriter error, CancellationToken cancel)
+    /// <summary>Moves each run's trace into place (one file, or NAME-runN for several); false, with
+    /// the reason on <paramref name="error"/>, when they could not be written (then none is).</summary>
+    private static bool CommitPlots(AtomicFile.Set plots, string path, int runs, string? failure, TextWriter error, CancellationToken cancel)
     {
-        int count = session.Runs.Count;
-        var charts = session.Runs.Select((run, i) => (
-            PlotFiles.ForRun(path, i + 1, count),
-            (Func<Chart>)(() => RunCharts.Trace(run, new ChartOptions { Units = units, Title = $"Run {i + 1}: speed, distance and acceleration" })))).ToList();
+        List<string> targets = Enumerable.Range(1, runs).Select(i => PlotFiles.ForRun(path, i, runs)).ToList();
         try
         {
-            PlotFiles.Write(charts, cancel);
+            if (failure is not null || plots.Count != runs)
+            {
+                throw new IOException(failure ?? "a run's picture was not drawn");
+            }
+
+            plots.Commit(targets, cancel);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
@@ -116,7 +141,7 @@ public static class ReportCommand
             return false;
         }
 
-        foreach ((string file, _) in charts)
+        foreach (string file in targets)
         {
             error.WriteLine($"launchlogger report: wrote {file}");
         }
@@ -125,21 +150,20 @@ public static class ReportCommand
     }
 
     /// <summary>What <see cref="Analyse"/> made of a request.</summary>
-    /// <param name="Session">Every run analysed, with its reconstruction; null unless asked for
-    /// (keepRuns): kept, a long log's runs take memory in proportion to the log.</param>
     /// <param name="Document">The report document (what --json writes).</param>
     /// <param name="Code">The exit code the report gives: 0 only when every run asked for was
     /// reported and judged valid; a doubtful or invalid run, or an input that yielded no run,
     /// makes the result partial.</param>
-    public sealed record Analysed(SessionAnalysis? Session, ReportDocument Document, ExitCode Code);
+    public sealed record Analysed(ReportDocument Document, ExitCode Code);
 
     /// <summary>Reads, analyses and reports what <paramref name="request"/> names, as the report
     /// verb does (other verbs that show the report's figures use this, so their numbers are the
     /// report's); problems go to <paramref name="error"/> prefixed by <paramref name="verb"/>.</summary>
     /// <returns>Null when nothing could be reported; then <paramref name="failed"/> says why.</returns>
-    /// <remarks>With <c>keepRuns</c> every run's whole analysis (for plots and cards) is kept in
-    /// <see cref="Analysed.Session"/>; otherwise runs are let go as they are reported.</remarks>
-    public static Analysed? Analyse(ReportRequest request, string verb, TextWriter error, out ExitCode failed, CancellationToken cancel = default, bool keepRuns = false)
+    /// <remarks>Runs are let go as they are reported; a caller that needs more of each run (its
+    /// plots) takes it from <paramref name="eachRun"/>, given every run's whole analysis and its
+    /// 1-based index in the report as soon as it is analysed.</remarks>
+    public static Analysed? Analyse(ReportRequest request, string verb, TextWriter error, out ExitCode failed, CancellationToken cancel = default, Action<RunAnalysis, int>? eachRun = null)
     {
         AnalysisOptions options;
         Weather? weather;
@@ -169,18 +193,15 @@ public static class ReportCommand
         }
 
         List<RunInputs.Input> inputs;
-        List<DecodedRun> referenceRuns = [];
+        RunInputs.Input? referenceLog = null;
         try
         {
             inputs = RunInputs.Load(request, cancel);
             options = options with { Calibration = RunInputs.LoadSettings(request) };
             if (request.BrakeReference is { } reference)
             {
-                referenceRuns = [.. LogReader.ReadFile(reference.FullName, cancel).Runs];
-                if (referenceRuns.Count == 0)
-                {
-                    throw new InputException(reference.FullName, 0, "the braking reference holds no run");
-                }
+                // Read as its runs are analysed, one at a time, like the logs reported.
+                referenceLog = new RunInputs.Input(reference.FullName, null, cancel);
             }
         }
         catch (InputException e)
@@ -197,16 +218,24 @@ public static class ReportCommand
         }
 
         // Runs are read, analysed and reported one at a time; only each run's report entry and
-        // figures are kept (and its whole analysis only when asked), so a season's log takes the
-        // memory of its largest run.
-        StreamedSession<(RunReport Report, RunAnalysis? Analysis)> streamed = SessionAnalyzer.AnalyzeEach(
-            inputs.SelectMany(i => i.Runs), (analysis, index) => (RunReportBuilder.Build(analysis, index), keepRuns ? analysis : null), options, referenceRuns, cancel);
-        var session = new StreamedSession<RunReport>
+        // figures are kept, so a season's log takes the memory of its largest run.
+        StreamedSession<RunReport> session = SessionAnalyzer.AnalyzeEach(
+            inputs.SelectMany(i => i.Runs),
+            (analysis, index) =>
+            {
+                eachRun?.Invoke(analysis, index);
+                return RunReportBuilder.Build(analysis, index);
+            },
+            options,
+            referenceLog?.Runs,
+            cancel);
+        if (referenceLog is { RunCount: 0 })
         {
-            Runs = streamed.Runs.Select(r => new StreamedRun<RunReport>(r.Kept.Report, r.Figures, r.Verdict)).ToList(),
-            Bound = streamed.Bound,
-            Failures = streamed.Failures,
-        };
+            error.WriteLine($"launchlogger {verb}: {new InputException(request.BrakeReference!.FullName, 0, "the braking reference holds no run").Message}");
+            failed = ExitCode.BadInput;
+            return null;
+        }
+
         ReaderReport? reader = null;
         var failures = new List<string>();
         foreach (RunInputs.Input input in inputs)
@@ -251,11 +280,8 @@ public static class ReportCommand
         // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
         // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
         bool allValid = session.Runs.All(r => r.Verdict.Level == VerdictLevel.Valid);
-        SessionAnalysis? kept = keepRuns
-            ? new SessionAnalysis { Runs = streamed.Runs.Select(r => r.Kept.Analysis!.WithVerdict(r.Verdict)).ToList(), Bound = streamed.Bound, Failures = streamed.Failures }
-            : null;
         failed = ExitCode.Ok;
-        return new Analysed(kept, document, failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial);
+        return new Analysed(document, failures.Count == 0 && allValid ? ExitCode.Ok : ExitCode.Partial);
     }
 
     private static (int A, int B) ParsePair(string text, int runs)

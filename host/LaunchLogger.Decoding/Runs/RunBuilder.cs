@@ -1,7 +1,6 @@
 using System.Buffers.Binary;
 using System.Globalization;
 using System.Runtime.CompilerServices;
-using System.Runtime.InteropServices;
 using LaunchLogger.Decoding.Reading;
 using LaunchLogger.Firmware.Wire;
 using static System.FormattableString;
@@ -124,8 +123,8 @@ internal sealed class RunBuilder
         };
 
         WarnDamage();
-        List<PulseRecord> channel0 = PulseRecords(0);
-        List<PulseRecord> channel1 = PulseRecords(1);
+        PulseRecord[] channel0 = PulseRecords(0);
+        PulseRecord[] channel1 = PulseRecords(1);
         WarnWideBrackets(channel0, channel1, configuration.BracketLimitS);
         var runEvents = events
             .Select(e => new RunEvent(e.Kind, LogUnits.Seconds(e.TimeMicros), e.Values))
@@ -201,34 +200,32 @@ internal sealed class RunBuilder
         }
     }
 
-    /// <summary>The channel's observations in seconds, in a list of exactly their number,
+    /// <summary>The channel's observations in seconds, in an array of exactly their number,
     /// dropping any that repeat or go back on an earlier count.</summary>
+    /// <remarks>One pass into an array of the observations' number, written before it is seen
+    /// (so the allocator need not clear it), cut to the number kept when any were dropped.</remarks>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private List<PulseRecord> PulseRecords(int channel)
+    private PulseRecord[] PulseRecords(int channel)
     {
         ReadOnlySpan<PulseMicros> observed = (channel == 0 ? scratch.Channel0 : scratch.Channel1).Span;
         var filter = new PulseFilter(MaxCount(channel), InputLimits.MaxPlausibleSpeedMps / 1e6 / MetresPerPulse(channel), earliestMicros, latestMicros);
+        PulseRecord[] records = observed.Length == 0 ? [] : GC.AllocateUninitializedArray<PulseRecord>(observed.Length);
         int kept = 0;
-        foreach (ref readonly PulseMicros p in observed)
-        {
-            kept += filter.Keep(p) ? 1 : 0;
-        }
-
-        var records = new List<PulseRecord>(kept);
-        CollectionsMarshal.SetCount(records, kept);
-        Span<PulseRecord> into = CollectionsMarshal.AsSpan(records);
-        int at = 0;
-        int outOfBounds = filter.OutOfBounds;
-        int tooFast = filter.TooFast;
-        filter = new PulseFilter(filter.MaxCount, filter.MaxPulsesPerMicro, earliestMicros, latestMicros);
         foreach (ref readonly PulseMicros p in observed)
         {
             if (filter.Keep(p))
             {
-                into[at++] = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
+                records[kept++] = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
             }
         }
 
+        if (kept < records.Length)
+        {
+            Array.Resize(ref records, kept);
+        }
+
+        int outOfBounds = filter.OutOfBounds;
+        int tooFast = filter.TooFast;
         if (outOfBounds > 0)
         {
             Warn(Invariant($"{outOfBounds} pulse observation(s) of channel {channel} lay outside the run's bounds ({InputLimits.MaxPreRunS} s before its opening to {InputLimits.MaxRunSpanS} s after) and were dropped"));
@@ -270,10 +267,6 @@ internal sealed class RunBuilder
         private long lastCount;
         private long lastLo = long.MinValue;
 
-        public readonly long MaxCount => maxCount;
-
-        public readonly double MaxPulsesPerMicro => maxPulsesPerMicro;
-
         public int OutOfBounds { get; private set; }
 
         public int TooFast { get; private set; }
@@ -306,7 +299,7 @@ internal sealed class RunBuilder
         }
     }
 
-    private void WarnWideBrackets(List<PulseRecord> channel0, List<PulseRecord> channel1, double limitS)
+    private void WarnWideBrackets(PulseRecord[] channel0, PulseRecord[] channel1, double limitS)
     {
         if (!(limitS > 0))
         {
@@ -315,8 +308,8 @@ internal sealed class RunBuilder
 
         int wide = 0;
         double widest = 0;
-        CountWide(CollectionsMarshal.AsSpan(channel0), limitS, ref wide, ref widest);
-        CountWide(CollectionsMarshal.AsSpan(channel1), limitS, ref wide, ref widest);
+        CountWide(channel0, limitS, ref wide, ref widest);
+        CountWide(channel1, limitS, ref wide, ref widest);
         if (wide > 0)
         {
             Warn(Invariant($"{wide} pulse observation(s) have brackets wider than the {limitS * 1000:0.###} ms limit (widest {widest * 1000:0.###} ms): edge times are uncertain there"));
