@@ -61,7 +61,8 @@ public static class BenchCrossCheckCommand
         IReadOnlyList<Scenario> scenarios = BuiltInScenarios.Scenarios;
         List<Case> cases = Enumerable.Range(0, runs).Select(i =>
         {
-            var random = new Random(HashCode.Combine(seed, i));
+            // Not HashCode.Combine: its seed changes with every process, so the drives would too.
+            var random = new Random(unchecked((seed * 1_000_003) + i));
             return new Case(i, scenarios[i % scenarios.Count], seed + i, i / scenarios.Count % 2 == 0 ? 10 : 20, 1000 + (random.NextDouble() * 80_000), generated);
         }).ToList();
 

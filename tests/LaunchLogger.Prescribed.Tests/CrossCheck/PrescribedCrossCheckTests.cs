@@ -2,7 +2,9 @@ using System.Globalization;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.CrossCheck;
 using LaunchLogger.Decoding.Metrics;
+using LaunchLogger.Prescribed.Motion;
 using LaunchLogger.Prescribed.Output;
+using LaunchLogger.Prescribed.Shapes;
 using LaunchLogger.Prescribed.Tests.Decoder;
 using LaunchLogger.Prescribed.Truth;
 using Xunit.Abstractions;
@@ -103,6 +105,30 @@ public class PrescribedCrossCheckTests(ITestOutputHelper output)
 
         Assert.True(failures.Count == 0, string.Join("\n", failures));
         Assert.True(rows.Count >= 12 * 8, $"{rows.Count} rows");
+    }
+
+    [Theory]
+    [InlineData(0.25, 0.4, 10)]
+    [InlineData(0.25, 0.4, 20)]
+    [InlineData(0.4, 0.3, 20)]
+    [InlineData(0.9, 0.05, 10)]
+    public void The_receivers_start_covers_a_launch_that_builds_slowly_or_at_once(double peakG, double riseS, double rateHz)
+    {
+        // The acceleration rises at a steady rate to its peak, holds for 8 s, then the car stops:
+        // at 0.25 g over 0.4 s the speed stays below the receiver's 0.05 m/s noise for 0.13 s
+        // (v = a·t²/(2·rise)), so the last sample that reads at rest comes after the start.
+        double a = peakG * 9.80665;
+        var shape = new Shape(Invariant($"{peakG} g building over {riseS} s"), ShapeKind.StandingStart,
+            new MotionProfileBuilder().Hold(2).Ramp(riseS, 0, a).Constant(8, a).BrakeToStop(0.2, 0.8 * 9.80665).Hold(3).Build());
+        PrescribedRecord record = (Records.Standing(4) with { Shape = shape }).Generate();
+        RunAnalysis ours = Assert.Single(DecoderHarness.AnalyzeLog(record).Runs);
+        var receiver = new NmeaTrace { RateHz = rateHz };
+        SpeedTrace theirs = NmeaTraceReader.Read(new StringReader(receiver.Write(shape.Profile, 7)), "receiver.nmea");
+        CrossCheckRow start = CrossChecker.Compare(ours, theirs, receiver.SpeedNoiseMps).Rows[0];
+
+        double truth = Assert.Single(record.Truth).FirstMotionS!.Value;
+        Assert.True(Math.Abs(start.Theirs - truth) <= 2 * start.TheirsSigma, Invariant($"{shape.Name} at {rateHz} Hz: their start {start.Theirs - truth:0.000} s from the truth, σ {start.TheirsSigma:0.000} s"));
+        Assert.True(start.WithinUncertainty, Invariant($"{shape.Name}: theirs − ours {start.Difference:0.000} s, σc {start.CombinedSigma:0.000} s"));
     }
 
     [Fact]
