@@ -95,6 +95,24 @@ public class WireEdgeTests
         Assert.Equal(Hex.Format(payload), Hex.Format(stuffed, 8, 254));
     }
 
+    [Fact]
+    public void APowerUpIsALoneDelimiterThenItsFrameAndNoDelimiterGoesInsideAFrame()
+    {
+        var sink = new MemorySink();
+        var recorder = new RunRecorder(new LoggerSettings { AccelPresent = false }, sink, new HealthCounters());
+        recorder.PowerUp(100);
+        Assert.Equal(0x00, sink.Bytes[0]);
+        Frame frame = Assert.Single(sink.Frames);
+        Assert.Equal(FrameType.PowerUp, frame.Type);
+
+        // LOG-FORMAT.md 0x07: the clock (varint 100 = 0x64), then the firmware version.
+        Assert.Equal(new byte[] { 0x64, FirmwareVersion.Major, FirmwareVersion.Minor, FirmwareVersion.Patch }, frame.Payload.Skip(LogFormat.HeaderBytes).Take(4));
+
+        var writer = new FrameWriter(new MemorySink(), new HealthCounters());
+        writer.Begin(FrameType.Event);
+        Assert.Throws<InvalidOperationException>(() => writer.WriteDelimiter());
+    }
+
     private static void Put(FrameWriter writer, string put, int n)
     {
         switch (put)
