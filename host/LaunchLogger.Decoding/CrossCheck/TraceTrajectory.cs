@@ -8,13 +8,18 @@ namespace LaunchLogger.Decoding.CrossCheck;
 /// times its figures by our definitions.</summary>
 /// <remarks>
 /// <para>First motion: the car is at rest until the first of three samples in a row at or above
-/// the rest threshold (three times the speed noise, at least 0.2 m/s). The start lies after the
-/// last sample that reads at rest (not above the speed noise) and no later than where a line
-/// through the first moving samples below 8 m/s meets zero (a launch's speed bends upward at
-/// first). The estimate is the interval's middle and its σ half the interval (at least one
-/// sample period and 0.1 s wide), so ±2σ spans the interval and as much again on each side, for a slow
-/// creep hidden in the noise: a 10 Hz trace cannot see a 1-ft rollout, and its standing-start
-/// figures say so.</para>
+/// the rest threshold (three times the speed noise, at least 0.2 m/s). The start lies no later
+/// than where a line through the first moving samples below 8 m/s meets zero (a launch's speed
+/// bends upward at first), and no earlier than the last sample that reads at rest (not above the
+/// speed noise) or, when earlier, where a line through the square roots of those speeds meets
+/// zero: while the acceleration still rises from zero at a steady rate the speed grows with the
+/// square of the time, so the car may have crept below the noise well before the last sample
+/// that reads at rest (a 0.3 g launch building over 0.4 s takes 0.12 s to reach 0.05 m/s), and
+/// that line finds such a start. Launches between a step of acceleration (speed linear in time)
+/// and a steady rise (speed quadratic) start between the two lines. The estimate is the
+/// interval's middle and its σ half the interval (at least one sample period and 0.1 s wide), so
+/// ±2σ spans the interval and as much again on each side: a 10 Hz trace cannot see a 1-ft
+/// rollout, and its standing-start figures say so.</para>
 /// <para>Distance: the trapezoid rule on the speeds from first motion (speed 0 there). σ of the
 /// distance: the first motion's σ times the speed, with the speed noise integrated as a random
 /// walk. σ of the speed: the stated noise with the linear-interpolation error between samples,
@@ -64,10 +69,12 @@ public static class TraceTrajectory
 
         double restS = t[restIndex];
         double movingS = t[first];
-        (double lineS, double lineSigmaS) = BackExtrapolate(t, v, first);
+        (double lineS, double lineSigmaS) = BackExtrapolate(t, v, first, x => x);
         double latestS = Math.Clamp(lineS, restS, movingS);
-        double t0 = (restS + latestS) / 2;
-        double width = Math.Max(Math.Max(latestS - restS, t[first] - t[first - 1]), MinimumStartWindowS);
+        (double rootS, _) = BackExtrapolate(t, v, first, Math.Sqrt);
+        double earliestS = Math.Clamp(rootS, t[first] - 1, restS);
+        double t0 = (earliestS + latestS) / 2;
+        double width = Math.Max(Math.Max(latestS - earliestS, t[first] - t[first - 1]), MinimumStartWindowS);
         double t0Sigma = Math.Sqrt((lineSigmaS * lineSigmaS) + (width * width / 4));
 
         int last = first;
@@ -133,10 +140,13 @@ public static class TraceTrajectory
         return -1;
     }
 
-    private static (double TimeS, double SigmaS) BackExtrapolate(double[] t, double[] v, int first)
+    /// <summary>Where a line through <paramref name="transform"/> of the first moving speeds (up
+    /// to five, below 8 m/s) meets zero, with its σ from the fit's residuals.</summary>
+    private static (double TimeS, double SigmaS) BackExtrapolate(double[] t, double[] speeds, int first, Func<double, double> transform)
     {
+        double[] v = speeds.Select(transform).ToArray();
         int end = first;
-        while (end + 1 < t.Length && v[end + 1] < LineFitCeilingMps && end - first < 4)
+        while (end + 1 < t.Length && speeds[end + 1] < LineFitCeilingMps && end - first < 4)
         {
             end++;
         }

@@ -77,6 +77,24 @@ public class GripLimitTests
     }
 
     [Fact]
+    public void FreshlyMadeLimitsPutThePlateauAtPointEightG()
+    {
+        // The same stops as above judged with limits made here rather than the shared default:
+        // 0.79 g is below the plateau, 0.81 g above it, 0.5 g far below.
+        var limits = new VerdictLimits();
+        Assert.Null(GripLimit.Assess(JudgedRun.Clean(braking: JudgedRun.Stop(0.78 * G, mfdd: 0.79 * G, peak: 0.8 * G)), false, limits));
+        Assert.Null(GripLimit.Assess(JudgedRun.Clean(braking: JudgedRun.Stop(0.5 * G, mfdd: 0.5 * G, peak: 0.52 * G)), false, limits));
+        Assert.Equal(GripLimit.DecelerationPlateau, GripLimit.Assess(JudgedRun.Clean(braking: JudgedRun.Stop(0.8 * G, mfdd: 0.81 * G, peak: 0.82 * G)), false, limits)!.Basis);
+    }
+
+    [Fact]
+    public void NullCandidatesOrFiguresAreCallerErrors()
+    {
+        Assert.Throws<ArgumentNullException>(() => GripLimit.Best(null!));
+        Assert.Throws<ArgumentNullException>(() => RunJudge.Finish([], null!, null));
+    }
+
+    [Fact]
     public void TheBoundComesFromTheQualifyingStopWithTheMostGrip()
     {
         RunAnalysis gentleButHarder = JudgedRun.Clean(braking: JudgedRun.Stop(1.2 * G, mfdd: 0.5 * G, peak: 1.3 * G));

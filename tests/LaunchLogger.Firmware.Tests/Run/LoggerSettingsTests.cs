@@ -71,6 +71,18 @@ public class LoggerSettingsTests
     }
 
     [Fact]
+    public void APreTriggerRingAsLongAsTheConfirmWindowIsEnough()
+    {
+        Assert.Null(new LoggerSettings { PreTriggerSamples = 16, MotionConfirmSamples = 16 }.Validate());
+    }
+
+    [Fact]
+    public void ARangeMessageGivesTheRangeAndTheValue()
+    {
+        Assert.Equal("StillBandMilliG must be from 1 to 2000 (was 0)", new LoggerSettings { StillBandMilliG = 0 }.Validate());
+    }
+
+    [Fact]
     public void TheDefaultsAreValid()
     {
         Assert.Null(new LoggerSettings().Validate());

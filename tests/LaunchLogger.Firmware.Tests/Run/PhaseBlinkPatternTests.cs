@@ -75,4 +75,10 @@ public class PhaseBlinkPatternTests
         Assert.Equal(150, lit);
         Assert.Equal(3, rises);
     }
+
+    [Fact]
+    public void APhaseOutsideTheKnownOnesKeepsTheLightOff()
+    {
+        Assert.All(new long[] { 0, 50, 150, 999 }, ms => Assert.False(PhaseBlinkPattern.IsOn((RunPhase)99, ms)));
+    }
 }

@@ -1,3 +1,5 @@
+using LaunchLogger.Firmware.Capture;
+using LaunchLogger.Firmware.Clock;
 using LaunchLogger.Firmware.Run;
 using LaunchLogger.Firmware.Tests.Fakes;
 using LaunchLogger.Firmware.Wire;
@@ -51,6 +53,21 @@ public class StepBudgetTests
         Assert.Contains("PulseFrameMaxBodyBytes", new LoggerSettings { PulseFrameMaxBodyBytes = 5 }.Validate());
         Assert.Contains("PreTriggerSamplesPerStep", new LoggerSettings { PreTriggerSamplesPerStep = -1 }.Validate());
         Assert.Null(new LoggerSettings { PulseFrameMaxBodyBytes = 3 * Varint.MaxBytes, PreTriggerSamplesPerStep = 1 }.Validate());
+    }
+
+    [Fact]
+    public void TheBudgetIsWhatApplySets()
+    {
+        var settings = new LoggerSettings();
+        StepBudget.Apply(settings);
+        Assert.Equal((StepBudget.PulseFrameMaxBodyBytes, StepBudget.PreTriggerSamplesPerStep), (settings.PulseFrameMaxBodyBytes, settings.PreTriggerSamplesPerStep));
+        Assert.Null(settings.Validate());
+
+        var counter = new FakeMicrosecondCounter();
+        var recorder = new RunRecorder(new LoggerSettings { AccelPresent = false }, new MemorySink(), null!);
+        var loop = new CaptureLoop(new MonotonicClock(counter, null!), new EdgeObservationQueue(8, null!), null!, null!, null!, null!, recorder, 32, 20_000);
+        StepBudget.Apply(loop);
+        Assert.Equal(StepBudget.AccelSamplesPerStep, loop.MaxAccelSamplesPerStep);
     }
 
     private static IReadOnlyList<Frame> Record(LoggerSettings settings)
