@@ -149,6 +149,7 @@ internal sealed partial class ReconstructionPass
         double[] speed = fused.SpeedMps;
         double[] sd = fused.DistanceSigmaM;
         double[] sv = fused.SpeedSigmaMps;
+        var shared = new double[n];
         var accelOut = new double[n];
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         double stop = stopS ?? double.PositiveInfinity;
@@ -189,7 +190,8 @@ internal sealed partial class ReconstructionPass
 
             double clock = options.TimebaseSigma * (grid[k] - startS);
             double dScale = circumferenceSigma * d;
-            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + Square(speed[k] * clock));
+            shared[k] = Math.Sqrt((dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance));
+            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (shared[k] * shared[k]) + Square(speed[k] * clock));
             sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + Square(options.TimebaseSigma * speed[k]));
             if (atRest)
             {
@@ -246,6 +248,7 @@ internal sealed partial class ReconstructionPass
             SpeedMps = speed,
             AccelMps2 = accelOut,
             DistanceSigmaM = sd,
+            SharedDistanceSigmaM = shared,
             SpeedSigmaMps = sv,
         };
     }

@@ -54,6 +54,24 @@ public class BrakingRulesTests
         Assert.Equal(Math.Sqrt((0.1 * 0.1) + (0.1 * 0.1) + Math.Pow(V100 * r.OnsetS.Sigma, 2)), r.StoppingDistanceM.Sigma, 9);
     }
 
+    [Fact]
+    public void AScaleErrorSharedAlongThePathCountsOnTheStopsLengthOnly()
+    {
+        // The stop begins 400 m down the road. A 1 % scale error shared along the path puts both
+        // ends 1 % out, so their difference — the stopping distance — is 1 % of itself out (a tape
+        // stretched by 1 % reads every interval 1 % long; common practice); each end also has
+        // 2 cm of its own, independent of the other.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
+        double[] d = [.. stop.DistanceM.Select(x => x + 400)];
+        double[] shared = [.. d.Select(x => 0.01 * x)];
+        double[] sd = [.. shared.Select(s => Math.Sqrt((s * s) + (0.02 * 0.02)))];
+        var withSigma = new Trajectory { TimeS = stop.TimeS, DistanceM = d, SpeedMps = stop.SpeedMps, AccelMps2 = stop.AccelMps2, DistanceSigmaM = sd, SharedDistanceSigmaM = shared };
+        BrakingResult r = BrakingAnalyzer.Analyze(withSigma, [1.0])!;
+        double length = V100 * V100 / 16; // v²/(2a), kinematics
+        Assert.Equal(length, r.StoppingDistanceM.Value, 2);
+        Assert.Equal(Math.Sqrt(Math.Pow(0.01 * length, 2) + (2 * 0.02 * 0.02) + Math.Pow(V100 * r.OnsetS.Sigma, 2)), r.StoppingDistanceM.Sigma, 4);
+    }
+
     [Theory]
     [InlineData(4.5, false)]
     [InlineData(5.5, true)]
