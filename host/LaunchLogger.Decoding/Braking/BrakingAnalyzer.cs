@@ -42,6 +42,13 @@ public static class BrakingAnalyzer
     /// 80–100 teeth and exact edges, where the position noise alone explains under 10 ms.</summary>
     public const double SmootherSpreadS = 0.02;
 
+    /// <summary>Longitudinal slip stiffness of a braked tyre per unit load: slip = (braking force ÷
+    /// load) ÷ this, 20–30 for car tyres (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1); the
+    /// softer end is taken. A wheel braked at 0.6 g turns some 3 % slower than the road passes, so
+    /// pulses count a stop about that much short; no sensor here tells the tyre's stiffness, so
+    /// the shortfall counts in the stopping distance's σ wherever pulses give the distance.</summary>
+    public const double BrakeSlipStiffness = 20;
+
     /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
     public const double CorrectionTolerance = 0.10;
 
@@ -139,8 +146,9 @@ public static class BrakingAnalyzer
         // The path's own σ between onset and standstill (a circumference error counts on the stop's
         // length, not on the whole run's), and the onset's σ at the speed there.
         double pathSigma = trajectory.IntervalSigmaM(onset.Value, standstillS);
-        double distanceSigma = Math.Sqrt((pathSigma * pathSigma) + Math.Pow(fromMps * onset.Sigma, 2));
         double meanDecel = BrakingFormulas.MeanDecelerationMps2(fromMps, stopDistance);
+        double slipSigma = pulsePositionSigmaM > 0 ? BrakeSlipShare(meanDecel) * stopDistance : 0;
+        double distanceSigma = Math.Sqrt((pathSigma * pathSigma) + Math.Pow(fromMps * onset.Sigma, 2) + (slipSigma * slipSigma));
 
         return new BrakingResult
         {
@@ -247,6 +255,11 @@ public static class BrakingAnalyzer
         double sigma = Math.Sqrt(Math.Pow(scatter / slope, 2) + (gridStep * gridStep / 12));
         return new Estimate(Math.Clamp(-intercept / slope, t[peak], t[hi]), sigma);
     }
+
+    /// <summary>The share of a stop's distance a braked wheel's pulses miss: its slip, deceleration
+    /// over g0 ÷ <see cref="BrakeSlipStiffness"/> at every moment; over the stop ∫ s·v dt =
+    /// (mean deceleration / (g0·C))·distance.</summary>
+    public static double BrakeSlipShare(double meanDecelMps2) => Math.Max(meanDecelMps2, 0) / Units.StandardGravity / BrakeSlipStiffness;
 
     private static bool Agree(Estimate line, Estimate fit) =>
         Math.Abs(line.Value - fit.Value) <= AgreementSigmas * Math.Sqrt((line.Sigma * line.Sigma) + (fit.Sigma * fit.Sigma));

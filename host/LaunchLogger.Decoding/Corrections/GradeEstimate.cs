@@ -19,6 +19,13 @@ public sealed record GradeEstimate(double AngleRad, double SigmaRad, bool Mounti
     /// radians. A calibrated mounting pitch (which includes the offset) replaces it.</summary>
     public const double UncalibratedMountingSigmaRad = 2.3 * Math.PI / 180;
 
+    /// <summary>1-σ scale error of each accelerometer axis, as a fraction (about 1 % for consumer
+    /// MEMS parts; common practice). The pitch is read as asin(f_x / |f|): the forward axis' scale
+    /// error s_x and the others' (through |f|, mostly the vertical axis' s_z) tilt it by about
+    /// (s_x − s_z)·θ on a slope θ beyond what the mounting calibration on level ground took out,
+    /// so √2 of this times the grade counts in σ.</summary>
+    public const double AxisScaleSigma = 0.01;
+
     /// <summary>Grade from the resting pitch at staging minus the box's calibrated mounting pitch.</summary>
     /// <param name="restingPitchRad">Pitch of the box at rest (nose up positive), with its σ.</param>
     /// <param name="mountingPitchRad">Calibrated mounting pitch, or null to take the box as level.</param>
@@ -30,6 +37,7 @@ public sealed record GradeEstimate(double AngleRad, double SigmaRad, bool Mounti
         bool calibrated = mountingPitchRad is not null;
         double angle = restingPitchRad.Value - (mountingPitchRad ?? 0);
         double mountingSigma = calibrated ? mountingPitchSigmaRad : uncalibratedSigmaRad;
-        return new GradeEstimate(angle, Math.Sqrt((restingPitchRad.Sigma * restingPitchRad.Sigma) + (mountingSigma * mountingSigma)), calibrated);
+        double scaleSigma = Math.Sqrt(2) * AxisScaleSigma * angle;
+        return new GradeEstimate(angle, Math.Sqrt((restingPitchRad.Sigma * restingPitchRad.Sigma) + (mountingSigma * mountingSigma) + (scaleSigma * scaleSigma)), calibrated);
     }
 }

@@ -72,6 +72,23 @@ public class BrakingRulesTests
         Assert.Equal(Math.Sqrt(Math.Pow(0.01 * length, 2) + (2 * 0.02 * 0.02) + Math.Pow(V100 * r.OnsetS.Sigma, 2)), r.StoppingDistanceM.Sigma, 4);
     }
 
+    [Fact]
+    public void WhereThePulsesGiveTheDistanceTheBrakedWheelsSlipCountsInSigma()
+    {
+        // 100 km/h at 8 m/s²: a braked tyre of slip stiffness 20 per unit load (Pacejka, "Tire and
+        // Vehicle Dynamics", ch. 1, the softer end of 20–30) turns (8 / 9.80665) / 20 = 4.08 %
+        // slower than the road passes; over the stop that is 4.08 % of its v²/(2a) = 48.23 m.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
+        BrakingResult pulses = BrakingAnalyzer.Analyze(stop, [1.0], pulsePositionSigmaM: 0.001)!;
+        double length = V100 * V100 / 16;
+        double slip = 8 / 9.80665 / 20 * length;
+        Assert.Equal(Math.Sqrt(Math.Pow(V100 * pulses.OnsetS.Sigma, 2) + (slip * slip)), pulses.StoppingDistanceM.Sigma, 3);
+
+        // From the accelerometer alone no wheel slips: only the onset's σ remains.
+        BrakingResult accelOnly = BrakingAnalyzer.Analyze(stop, [1.0])!;
+        Assert.Equal(V100 * accelOnly.OnsetS.Sigma, accelOnly.StoppingDistanceM.Sigma, 9);
+    }
+
     [Theory]
     [InlineData(4.5, false)]
     [InlineData(5.5, true)]
