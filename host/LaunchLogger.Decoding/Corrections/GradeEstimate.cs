@@ -26,6 +26,13 @@ public sealed record GradeEstimate(double AngleRad, double SigmaRad, bool Mounti
     /// so √2 of this times the grade counts in σ.</summary>
     public const double AxisScaleSigma = 0.01;
 
+    /// <summary>The body's pitch on its suspension per unit of along-road gravity, radians per g: on
+    /// a slope θ the weight's component g0·sin θ acts at the centre of gravity above the tyres
+    /// that hold the car, and pitches the body as an acceleration of sin θ g would (nose up
+    /// uphill) — which the box, fixed to the body, reads as more slope. Cars pitch some 1–3° per
+    /// g on their suspension (from memory); 0.05 rad (2.9°) per g as 1-σ covers them.</summary>
+    public const double BodyPitchPerG = 0.05;
+
     /// <summary>Grade from the resting pitch at staging minus the box's calibrated mounting pitch.</summary>
     /// <param name="restingPitchRad">Pitch of the box at rest (nose up positive), with its σ.</param>
     /// <param name="mountingPitchRad">Calibrated mounting pitch, or null to take the box as level.</param>
@@ -38,6 +45,7 @@ public sealed record GradeEstimate(double AngleRad, double SigmaRad, bool Mounti
         double angle = restingPitchRad.Value - (mountingPitchRad ?? 0);
         double mountingSigma = calibrated ? mountingPitchSigmaRad : uncalibratedSigmaRad;
         double scaleSigma = Math.Sqrt(2) * AxisScaleSigma * angle;
-        return new GradeEstimate(angle, Math.Sqrt((restingPitchRad.Sigma * restingPitchRad.Sigma) + (mountingSigma * mountingSigma) + (scaleSigma * scaleSigma)), calibrated);
+        double bodySigma = BodyPitchPerG * Math.Sin(angle);
+        return new GradeEstimate(angle, Math.Sqrt((restingPitchRad.Sigma * restingPitchRad.Sigma) + (mountingSigma * mountingSigma) + (scaleSigma * scaleSigma) + (bodySigma * bodySigma)), calibrated);
     }
 }
