@@ -46,6 +46,18 @@ public class BrakeOnsetFitTests
     }
 
     [Fact]
+    public void WhatHappensLongAfterTheRiseDoesNotMoveIt()
+    {
+        // The driver presses harder 3.5 s after the brakes came on (7 → 9.5 m/s² at 7.5 s): the
+        // fit sees the stop only up to 3 s past its half-way point, so the onset stays put.
+        Signal s = Signal.Make(levelDecel: 0.3, onsetS: 4.0037, riseS: 0.3, plateauDecel: 7, standstillS: 11);
+        double[] a = [.. s.A.Select((x, i) => s.T[i] >= 7.5 ? -9.5 : x)];
+        Estimate onset = BrakeOnsetFit.Fit(s.T, a, null, null, 0, s.PeakS, s.StandstillS, out double rise)!.Value;
+        Assert.Equal(4.0037, onset.Value, 0.0005);
+        Assert.Equal(0.3, rise, 0.006);
+    }
+
+    [Fact]
     public void WithoutNoiseSigmaIsTheSampleStepAndTheShapeOfTheRise()
     {
         // The stated rule: the statistical width at least a sample period over √12, with a model
