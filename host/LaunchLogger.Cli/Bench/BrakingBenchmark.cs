@@ -53,7 +53,17 @@ public sealed record BrakingCase(int Index, int Seed, Scenario Scenario, Scenari
 }
 
 /// <summary>Errors of one stop (estimate − truth): stopping distance (m), onset (s), grade (°).</summary>
-public sealed record BrakingOutcome(BrakingCase Case, double? DistanceErrorM, double? OnsetErrorS, double? GradeErrorDeg, double? MfddErrorMps2, string? Failure);
+public sealed record BrakingOutcome(BrakingCase Case, double? DistanceErrorM, double? OnsetErrorS, double? GradeErrorDeg, double? MfddErrorMps2, string? Failure)
+{
+    /// <summary>Our stated 1-σ of the stopping distance, m.</summary>
+    public double? DistanceSigmaM { get; init; }
+
+    /// <summary>Our stated 1-σ of the onset, s.</summary>
+    public double? OnsetSigmaS { get; init; }
+
+    /// <summary>Our stated 1-σ of the grade, °.</summary>
+    public double? GradeSigmaDeg { get; init; }
+}
 
 /// <summary>Simulates and measures one stop.</summary>
 public static class BrakingBenchmark
@@ -97,7 +107,12 @@ public static class BrakingBenchmark
                 b.OnsetS.Value - truthOnset,
                 analysis.Grade is { } g ? g.Degrees - gradeTruthDeg : null,
                 b.MfddMps2 - truthStop?.MfddMps2,
-                null);
+                null)
+            {
+                DistanceSigmaM = b.StoppingDistanceM.Sigma,
+                OnsetSigmaS = b.OnsetS.Sigma,
+                GradeSigmaDeg = analysis.Grade?.SigmaRad * 180 / Math.PI,
+            };
         }
         catch (AnalysisException e)
         {

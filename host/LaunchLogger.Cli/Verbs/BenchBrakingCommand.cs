@@ -83,9 +83,20 @@ public static class BenchBrakingCommand
         Row("brake onset", "ms", Percentiles.AbsSorted(group.Select(o => o.OnsetErrorS), 1000));
         Row("MFDD", "m/s²", Percentiles.AbsSorted(group.Select(o => o.MfddErrorMps2)));
         Row("grade", "°", Percentiles.AbsSorted(group.Select(o => o.GradeErrorDeg)));
+        output.WriteLine("  truth within our ±2σ / ±3σ:");
+        Cover("stopping distance", group.Select(o => (o.DistanceErrorM, o.DistanceSigmaM)));
+        Cover("brake onset", group.Select(o => (o.OnsetErrorS, o.OnsetSigmaS)));
+        Cover("grade", group.Select(o => (o.GradeErrorDeg, o.GradeSigmaDeg)));
 
         void Row(string name, string unit, double[] sorted) =>
             output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {name,-22} {unit,4} | {Percentiles.Of(sorted, 0.5),7:0.000} {Percentiles.Of(sorted, 0.95),7:0.000} {Percentiles.Max(sorted),7:0.000}"));
+
+        void Cover(string name, IEnumerable<(double? Error, double? Sigma)> pairs)
+        {
+            var z = pairs.Where(p => p.Error is not null && p.Sigma > 0).Select(p => Math.Abs(p.Error!.Value) / p.Sigma!.Value).ToList();
+            double Share(double k) => z.Count == 0 ? double.NaN : 100.0 * z.Count(x => x <= k) / z.Count;
+            output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"    {name,-20} {Share(2),6:0.0} % {Share(3),6:0.0} %   (n {z.Count})"));
+        }
     }
 
     private static void Goal(TextWriter output, string text, double value, double limit, string unit) =>

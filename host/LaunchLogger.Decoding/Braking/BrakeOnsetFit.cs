@@ -41,6 +41,11 @@ internal static class BrakeOnsetFit
     /// <summary>Smoothed acceleration above this is drive, not coasting, m/s².</summary>
     public const double DriveMps2 = 0.5;
 
+    /// <summary>The deceleration must stay past half its full value this long for the rise to
+    /// count, s: brake rises hold for the rest of the stop, a smoother's swing at a lift-off
+    /// lasts some 50–100 ms.</summary>
+    public const double SustainS = 0.2;
+
     /// <summary>Onset σ for the shape of a real rise, per second of rise.</summary>
     public const double ModelErrorPerRise = 0.01;
 
@@ -198,11 +203,7 @@ internal static class BrakeOnsetFit
 
         // Smoothed deceleration: the half-way point, the foot of the rise, the last drive before it.
         double[] smooth = MovingMean(a, half);
-        int mid = peak;
-        while (mid < stop && -smooth[mid] < 0.5 * full)
-        {
-            mid++;
-        }
+        int mid = HalfWay(t, smooth, peak, stop, 0.5 * full);
 
         // Walk back to the foot of the rise, then on while the acceleration stays within
         // DriveMps2 of the level there: a lift-off from drive ends the window, so that only the
@@ -224,8 +225,46 @@ internal static class BrakeOnsetFit
             }
         }
 
+        // A swing past half the deceleration before the rise is no level either: open after it.
+        for (int i = mid - 1; i > lo; i--)
+        {
+            if (-smooth[i] >= 0.5 * full)
+            {
+                lo = Math.Min(i + half + 1, mid - 1);
+                break;
+            }
+        }
+
         int hi = Math.Min(stop, Index(t, t[mid] + PlateauS));
         return mid > lo && hi > mid ? (t[lo], t[mid], t[hi]) : null;
+    }
+
+    /// <summary>The first sample from which the smoothed deceleration stays at
+    /// <paramref name="half"/> or more for <see cref="SustainS"/> (or a quarter of the stop, if
+    /// shorter): a brief swing past it (a smoother's at a lift-off, a bump) is no brake rise.
+    /// <paramref name="stop"/> when there is none.</summary>
+    private static int HalfWay(double[] t, double[] smooth, int peak, int stop, double half)
+    {
+        double sustain = Math.Min(SustainS, 0.25 * (t[stop] - t[peak]));
+        int from = -1;
+        for (int i = peak; i < stop; i++)
+        {
+            if (-smooth[i] < half)
+            {
+                from = -1;
+            }
+            else if (from < 0)
+            {
+                from = i;
+            }
+
+            if (from >= 0 && t[i] - t[from] >= sustain)
+            {
+                return from;
+            }
+        }
+
+        return from >= 0 ? from : stop;
     }
 
     private static int Index(double[] t, double at)

@@ -30,6 +30,25 @@ public static class BrakingAnalyzer
     /// <summary>A brake rise at least this long is timed by the ramp fit, s.</summary>
     public const double SlowRiseS = 0.5;
 
+    /// <summary>The line through a quick rise is kept only while it lies within this many
+    /// combined σ of the ramp fit: further off, it has taken something else for the rise (the
+    /// lift-off into a coast whose drag and the box's tilt read as 20 % of the stop, or a smoother's
+    /// swing at a lift-off) and the fit, which places its window after the last drive, is taken.</summary>
+    public const double AgreementSigmas = 3;
+
+    /// <summary>1-σ of the onset read off a trajectory smoothed from pulses alone, beyond the
+    /// position noise's spread, s: the smoother meets a brake rise with a swing that starts early.
+    /// Measured on the simulator's pulses-only stops (rise 0.15–0.2 s): 12–28 ms early even with
+    /// 80–100 teeth and exact edges, where the position noise alone explains under 10 ms.</summary>
+    public const double SmootherSpreadS = 0.02;
+
+    /// <summary>Longitudinal slip stiffness of a braked tyre per unit load: slip = (braking force ÷
+    /// load) ÷ this, 20–30 for car tyres (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1); the
+    /// softer end is taken. A wheel braked at 0.6 g turns some 3 % slower than the road passes, so
+    /// pulses count a stop about that much short; no sensor here tells the tyre's stiffness, so
+    /// the shortfall counts in the stopping distance's σ wherever pulses give the distance.</summary>
+    public const double BrakeSlipStiffness = 20;
+
     /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
     public const double CorrectionTolerance = 0.10;
 
@@ -110,12 +129,12 @@ public static class BrakingAnalyzer
             Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS);
             Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
             onset = fitted is not { } f ? line
-                : riseS >= SlowRiseS ? f
+                : riseS >= SlowRiseS || !Agree(line, f) ? f
                 : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
-            if (rawAccel is not { } r || r.TimeS.Length <= 10)
+            if ((rawAccel is not { } r || r.TimeS.Length <= 10) && pulsePositionSigmaM > 0)
             {
-                double spread = pulsePositionSigmaM > 0 && peakDecel > 0 ? 2 * Math.Sqrt(pulsePositionSigmaM / peakDecel) : 0;
-                onset = onset with { Sigma = Math.Sqrt((onset.Sigma * onset.Sigma) + (spread * spread)) };
+                double spread = peakDecel > 0 ? 2 * Math.Sqrt(pulsePositionSigmaM / peakDecel) : 0;
+                onset = onset with { Sigma = Math.Sqrt((onset.Sigma * onset.Sigma) + (spread * spread) + (SmootherSpreadS * SmootherSpreadS)) };
             }
 
             onsetMethod = "deceleration onset";
@@ -124,10 +143,12 @@ public static class BrakingAnalyzer
         double fromMps = trajectory.ValueAt(v, onset.Value);
         double fromDistance = trajectory.ValueAt(trajectory.DistanceM, onset.Value);
         double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance;
-        double distanceSigma = trajectory.DistanceSigmaM is { } ds
-            ? Math.Sqrt(Math.Pow(trajectory.ValueAt(ds, onset.Value), 2) + Math.Pow(trajectory.ValueAt(ds, standstillS), 2) + Math.Pow(fromMps * onset.Sigma, 2))
-            : fromMps * onset.Sigma;
+        // The path's own σ between onset and standstill (a circumference error counts on the stop's
+        // length, not on the whole run's), and the onset's σ at the speed there.
+        double pathSigma = trajectory.IntervalSigmaM(onset.Value, standstillS);
         double meanDecel = BrakingFormulas.MeanDecelerationMps2(fromMps, stopDistance);
+        double slipSigma = pulsePositionSigmaM > 0 ? BrakeSlipShare(meanDecel) * stopDistance : 0;
+        double distanceSigma = Math.Sqrt((pathSigma * pathSigma) + Math.Pow(fromMps * onset.Sigma, 2) + (slipSigma * slipSigma));
 
         return new BrakingResult
         {
@@ -234,6 +255,14 @@ public static class BrakingAnalyzer
         double sigma = Math.Sqrt(Math.Pow(scatter / slope, 2) + (gridStep * gridStep / 12));
         return new Estimate(Math.Clamp(-intercept / slope, t[peak], t[hi]), sigma);
     }
+
+    /// <summary>The share of a stop's distance a braked wheel's pulses miss: its slip, deceleration
+    /// over g0 ÷ <see cref="BrakeSlipStiffness"/> at every moment; over the stop ∫ s·v dt =
+    /// (mean deceleration / (g0·C))·distance.</summary>
+    public static double BrakeSlipShare(double meanDecelMps2) => Math.Max(meanDecelMps2, 0) / Units.StandardGravity / BrakeSlipStiffness;
+
+    private static bool Agree(Estimate line, Estimate fit) =>
+        Math.Abs(line.Value - fit.Value) <= AgreementSigmas * Math.Sqrt((line.Sigma * line.Sigma) + (fit.Sigma * fit.Sigma));
 
     private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop)
     {

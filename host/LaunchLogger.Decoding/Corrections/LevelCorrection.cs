@@ -42,6 +42,7 @@ public static class LevelCorrection
             SpeedMps = v,
             AccelMps2 = a,
             DistanceSigmaM = trajectory.DistanceSigmaM,
+            SharedDistanceSigmaM = trajectory.SharedDistanceSigmaM,
             SpeedSigmaMps = trajectory.SpeedSigmaMps,
         };
     }

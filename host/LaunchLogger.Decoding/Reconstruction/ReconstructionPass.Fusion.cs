@@ -149,6 +149,7 @@ internal sealed partial class ReconstructionPass
         double[] speed = fused.SpeedMps;
         double[] sd = fused.DistanceSigmaM;
         double[] sv = fused.SpeedSigmaMps;
+        var shared = new double[n];
         var accelOut = new double[n];
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         double stop = stopS ?? double.PositiveInfinity;
@@ -207,7 +208,11 @@ internal sealed partial class ReconstructionPass
             double clock = options.TimebaseSigma * (grid[k] - startS);
             double dScale = circumferenceSigma * d;
             double launch = launchSlip?[k] ?? 0;
-            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + Square(speed[k] * clock) + (launch * launch));
+
+            // The launch slip is held once the car is away, so like the circumference and growth
+            // terms it is shared along the path: a distance between two later times does not carry it.
+            shared[k] = Math.Sqrt((dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + (launch * launch));
+            sd[k] = Math.Sqrt((sd[k] * sd[k]) + (shared[k] * shared[k]) + Square(speed[k] * clock));
             sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + Square(options.TimebaseSigma * speed[k]));
             if (atRest)
             {
@@ -264,6 +269,7 @@ internal sealed partial class ReconstructionPass
             SpeedMps = speed,
             AccelMps2 = accelOut,
             DistanceSigmaM = sd,
+            SharedDistanceSigmaM = shared,
             SpeedSigmaMps = sv,
         };
     }

@@ -22,6 +22,12 @@ public sealed class Trajectory
     /// <summary>1-σ of <see cref="DistanceM"/>, metres; null when exact (truth).</summary>
     public double[]? DistanceSigmaM { get; init; }
 
+    /// <summary>The part of <see cref="DistanceSigmaM"/> every later sample shares, m: errors of
+    /// scale along the path (circumference, tyre growth, wheel slip) that a distance between two
+    /// times carries only as the growth between them; null when not known apart (then the two
+    /// ends' σ add as if independent). See <see cref="IntervalSigmaM"/>.</summary>
+    public double[]? SharedDistanceSigmaM { get; init; }
+
     /// <summary>1-σ of <see cref="SpeedMps"/>, m/s; null when exact (truth).</summary>
     public double[]? SpeedSigmaMps { get; init; }
 
@@ -54,6 +60,35 @@ public sealed class Trajectory
         return series[i - 1] + (f * (series[i] - series[i - 1]));
     }
 
+    /// <summary>1-σ of the distance covered from <paramref name="fromS"/> to <paramref name="toS"/>, m:
+    /// each end's own σ (what is not shared along the path) root-sum-squared with the growth of
+    /// the shared part between them. Exact when the shared errors grow in proportion to each
+    /// other (a circumference error alone); 0 for a trajectory without σ.</summary>
+    /// <remarks><code>
+    /// σ_s(t)  = SharedDistanceSigmaM(t)
+    /// σ_o(t)² = DistanceSigmaM(t)² − σ_s(t)²
+    /// σ²      = σ_o(from)² + σ_o(to)² + (σ_s(to) − σ_s(from))²
+    /// </code></remarks>
+    public double IntervalSigmaM(double fromS, double toS)
+    {
+        if (DistanceSigmaM is not { } sd)
+        {
+            return 0;
+        }
+
+        double from = ValueAt(sd, fromS), to = ValueAt(sd, toS);
+        if (SharedDistanceSigmaM is not { } shared)
+        {
+            return Math.Sqrt((from * from) + (to * to));
+        }
+
+        double sharedFrom = ValueAt(shared, fromS), sharedTo = ValueAt(shared, toS);
+        double ownFrom = Math.Max((from * from) - (sharedFrom * sharedFrom), 0);
+        double ownTo = Math.Max((to * to) - (sharedTo * sharedTo), 0);
+        double growth = sharedTo - sharedFrom;
+        return Math.Sqrt(ownFrom + ownTo + (growth * growth));
+    }
+
     /// <summary>Checks the arrays agree in length and the times ascend.</summary>
     /// <exception cref="ArgumentException">They do not.</exception>
     public void Validate()
@@ -61,6 +96,7 @@ public sealed class Trajectory
         int n = TimeS.Length;
         if (DistanceM.Length != n || SpeedMps.Length != n || AccelMps2.Length != n
             || (DistanceSigmaM != null && DistanceSigmaM.Length != n)
+            || (SharedDistanceSigmaM != null && SharedDistanceSigmaM.Length != n)
             || (SpeedSigmaMps != null && SpeedSigmaMps.Length != n))
         {
             throw new ArgumentException("trajectory arrays differ in length");

@@ -71,6 +71,44 @@ public class BrakingAnalyzerTests
     }
 
     [Fact]
+    public void ALiftOffIntoACoastIsNotTakenForTheOnsetWhenTheBoxIsTilted()
+    {
+        // Drive at 1 m/s² for 2 s, lift off into a 0.5 s coast at 0.7 m/s² (drag), then the
+        // brakes: a rise to 5 m/s² over 0.2 s. Closed form (piecewise constant jerk; kinematics):
+        // onset at 1 + 2 + 0.5 = 3.5 s. The accelerometer is tilted nose down by 3.3°, so its own
+        // samples read g0·sin 3.3° = 0.56 m/s² lower throughout: the coast then reads 1.26 m/s²,
+        // more than 20 % of the stop, and a line through the rise walked back through the coast
+        // to the lift-off, 0.5 s early (seen on the simulator's club-hatch runs).
+        Trajectory trajectory = DriveCoastStop(liftOffS: 3.0, coastS: 0.5);
+        double[] raw = [.. trajectory.AccelMps2.Select(a => a - 0.56)];
+        BrakingResult result = BrakingAnalyzer.Analyze(trajectory, rawAccel: (trajectory.TimeS, raw))!;
+        Assert.Equal("deceleration onset", result.OnsetMethod);
+        Assert.Equal(3.5, result.OnsetS.Value, 0.003);
+        Assert.InRange(Math.Abs(result.OnsetS.Value - 3.5), 0, 3 * result.OnsetS.Sigma);
+    }
+
+    [Fact]
+    public void ABriefSwingAtALiftOffIsNotTakenForTheRise()
+    {
+        // The same drive, coast and stop read off a trajectory smoothed from pulses alone: the
+        // smoother meets the lift-off with a swing to −6 m/s² for 60 ms (seen on the simulator's
+        // pulses-only runs), deeper than half the stop's 5 m/s² but gone long before the brakes.
+        Trajectory smooth = DriveCoastStop(liftOffS: 3.0, coastS: 0.5);
+        double[] a = [.. smooth.AccelMps2];
+        for (int i = 0; i < a.Length; i++)
+        {
+            if (smooth.TimeS[i] >= 3.0 && smooth.TimeS[i] < 3.06)
+            {
+                a[i] = -6;
+            }
+        }
+
+        var swung = new Trajectory { TimeS = smooth.TimeS, DistanceM = smooth.DistanceM, SpeedMps = smooth.SpeedMps, AccelMps2 = a };
+        BrakingResult result = BrakingAnalyzer.Analyze(swung)!;
+        Assert.Equal(3.5, result.OnsetS.Value, 0.003);
+    }
+
+    [Fact]
     public void StopsNearTheNominalSpeedAreCorrectedAndOthersAreNot()
     {
         // 101.5 km/h is within 10 % of 100 km/h and of 60 mph (96.56 km/h); 130 km/h is not.
@@ -103,6 +141,12 @@ public class BrakingAnalyzerTests
         Trajectory rolling = Stop(V100, switchAtS: 1.0, deadTimeS: 0, rampS: 0, decel: 8, endEarlyS: 1.2);
         Assert.Null(BrakingAnalyzer.Analyze(rolling, [1.0]));
     }
+
+    /// <summary>Cruise at 25 m/s to 1 s, drive at 1 m/s² to <paramref name="liftOffS"/>, coast at
+    /// 0.7 m/s² for <paramref name="coastS"/>, then a brake rise to 5 m/s² over 0.2 s and a
+    /// constant 5 m/s² to standstill.</summary>
+    private static Trajectory DriveCoastStop(double liftOffS, double coastS) =>
+        ClosedFormTrajectory.Stop(25, 1.0, [new StopPhase(-1, 0, liftOffS - 1), new StopPhase(0.7, 0, coastS), new StopPhase(0.7, (5 - 0.7) / 0.2, 0.2), new StopPhase(5, 0, 0)]);
 
     /// <summary>Cruise at <paramref name="v0"/>, brake switch at <paramref name="switchAtS"/>, dead
     /// time, a linear rise of deceleration over <paramref name="rampS"/>, then constant

@@ -54,6 +54,108 @@ public class BrakingRulesTests
         Assert.Equal(Math.Sqrt((0.1 * 0.1) + (0.1 * 0.1) + Math.Pow(V100 * r.OnsetS.Sigma, 2)), r.StoppingDistanceM.Sigma, 9);
     }
 
+    [Fact]
+    public void AScaleErrorSharedAlongThePathCountsOnTheStopsLengthOnly()
+    {
+        // The stop begins 400 m down the road. A 1 % scale error shared along the path puts both
+        // ends 1 % out, so their difference — the stopping distance — is 1 % of itself out (a tape
+        // stretched by 1 % reads every interval 1 % long; common practice); each end also has
+        // 2 cm of its own, independent of the other.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
+        double[] d = [.. stop.DistanceM.Select(x => x + 400)];
+        double[] shared = [.. d.Select(x => 0.01 * x)];
+        double[] sd = [.. shared.Select(s => Math.Sqrt((s * s) + (0.02 * 0.02)))];
+        var withSigma = new Trajectory { TimeS = stop.TimeS, DistanceM = d, SpeedMps = stop.SpeedMps, AccelMps2 = stop.AccelMps2, DistanceSigmaM = sd, SharedDistanceSigmaM = shared };
+        BrakingResult r = BrakingAnalyzer.Analyze(withSigma, [1.0])!;
+        double length = V100 * V100 / 16; // v²/(2a), kinematics
+        Assert.Equal(length, r.StoppingDistanceM.Value, 2);
+        Assert.Equal(Math.Sqrt(Math.Pow(0.01 * length, 2) + (2 * 0.02 * 0.02) + Math.Pow(V100 * r.OnsetS.Sigma, 2)), r.StoppingDistanceM.Sigma, 4);
+    }
+
+    [Fact]
+    public void WhereThePulsesGiveTheDistanceTheBrakedWheelsSlipCountsInSigma()
+    {
+        // 100 km/h at 8 m/s²: a braked tyre of slip stiffness 20 per unit load (Pacejka, "Tire and
+        // Vehicle Dynamics", ch. 1, the softer end of 20–30) turns (8 / 9.80665) / 20 = 4.08 %
+        // slower than the road passes; over the stop that is 4.08 % of its v²/(2a) = 48.23 m.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
+        BrakingResult pulses = BrakingAnalyzer.Analyze(stop, [1.0], pulsePositionSigmaM: 0.001)!;
+        double length = V100 * V100 / 16;
+        double slip = 8 / 9.80665 / 20 * length;
+        Assert.Equal(Math.Sqrt(Math.Pow(V100 * pulses.OnsetS.Sigma, 2) + (slip * slip)), pulses.StoppingDistanceM.Sigma, 3);
+
+        // From the accelerometer alone no wheel slips: only the onset's σ remains.
+        BrakingResult accelOnly = BrakingAnalyzer.Analyze(stop, [1.0])!;
+        Assert.Equal(V100 * accelOnly.OnsetS.Sigma, accelOnly.StoppingDistanceM.Sigma, 9);
+    }
+
+    [Fact]
+    public void TheLevelBeforeTheRiseIsSubtractedBeforeTheLineIsDrawn()
+    {
+        // Coasting at 0.5 m/s² of drag for 2 s from 1 s, then a rise of 75 m/s³ to 8 m/s²: the
+        // brakes came on at 3.0 s. Measured from zero instead of the drag, the line would cross
+        // 0.5 / 75 s = 6.7 ms early (kinematics of the prescribed stop).
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(0.5, 0, 2.0), new StopPhase(0.5, 75, 0.1), new StopPhase(8, 0, 0)]);
+        BrakingResult r = BrakingAnalyzer.Analyze(stop)!;
+        Assert.Equal(3.0, r.OnsetS.Value, 0.001);
+    }
+
+    [Fact]
+    public void ASlowRiseIsTimedByTheRampFitAndAQuickOneByTheLineWithTheFitsSigmaBeside()
+    {
+        // Noise-free rises from cruise at 2.0 s (closed form). A rise of 1 s is the fit's alone: its
+        // σ is the fit's. A rise of 0.2 s is the line's, whose σ carries the fit's beside its own.
+        foreach ((double rise, bool fitAlone) in new[] { (1.0, true), (0.2, false) })
+        {
+            Trajectory stop = ClosedFormTrajectory.Stop(V100, 2.0, [new StopPhase(0, 8 / rise, rise), new StopPhase(8, 0, 0)]);
+            BrakingResult r = BrakingAnalyzer.Analyze(stop)!;
+            int peak = 0;
+            double standstill = r.StandstillS;
+            Estimate fit = BrakeOnsetFit.Fit(stop.TimeS, stop.AccelMps2, stop.TimeS, stop.AccelMps2, stop.TimeS[0], stop.TimeS[peak], standstill, out _)!.Value;
+            Assert.Equal(2.0, r.OnsetS.Value, 0.001);
+            if (fitAlone)
+            {
+                Assert.Equal(fit.Sigma, r.OnsetS.Sigma, 12);
+            }
+            else
+            {
+                Assert.True(r.OnsetS.Sigma > fit.Sigma * 1.000001, $"σ {r.OnsetS.Sigma} against the fit's {fit.Sigma}");
+            }
+        }
+    }
+
+    [Fact]
+    public void FromPulsesAloneTheOnsetsSigmaCarriesThePositionNoiseAndTheSmoothersSpread()
+    {
+        // The rule as stated: 2·√(σ_position / deceleration) for the position noise (D·τ²/2 = σ),
+        // and the smoother's spread, in quadrature with the fit's own σ.
+        Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(0, 0, 0.3), new StopPhase(0, 8 / 0.2, 0.2), new StopPhase(8, 0, 0)]);
+        double own = BrakingAnalyzer.Analyze(stop)!.OnsetS.Sigma;
+        double pulses = BrakingAnalyzer.Analyze(stop, pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma;
+        double spread = 2 * Math.Sqrt(0.0005 / 8);
+        Assert.Equal(Math.Sqrt((own * own) + (spread * spread) + (BrakingAnalyzer.SmootherSpreadS * BrakingAnalyzer.SmootherSpreadS)), pulses, 9);
+
+        // With the accelerometer's own samples the onset does not rest on the smoothed trajectory.
+        Assert.Equal(own, BrakingAnalyzer.Analyze(stop, rawAccel: (stop.TimeS, stop.AccelMps2), pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma, 12);
+
+        // Ten samples or fewer are no accelerometer record: the trajectory's rule applies.
+        Assert.Equal(pulses, BrakingAnalyzer.Analyze(stop, rawAccel: (stop.TimeS[..10], stop.AccelMps2[..10]), pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma, 12);
+    }
+
+    [Theory]
+    [InlineData(0.4, true)]
+    [InlineData(0.6, false)]
+    public void ASwitchClosingUpToHalfASecondBeforeTheTopSpeedCounts(double beforePeakS, bool counts)
+    {
+        // Drive at 1 m/s² until 3 s (the top speed), coast, brakes at 3.5 s. A foot resting on the
+        // pedal may close the switch just before the lift-off; earlier than 0.5 s it belongs to
+        // something else.
+        Trajectory stop = ClosedFormTrajectory.Stop(25, 1.0, [new StopPhase(-1, 0, 2.0), new StopPhase(0.7, 0, 0.5), new StopPhase(0.7, (5 - 0.7) / 0.2, 0.2), new StopPhase(5, 0, 0)]);
+        BrakingResult r = BrakingAnalyzer.Analyze(stop, [3.0 - beforePeakS])!;
+        Assert.Equal(counts ? "brake switch" : "deceleration onset", r.OnsetMethod);
+        Assert.Equal(counts ? 3.0 - beforePeakS : 3.5, r.OnsetS.Value, 0.003);
+    }
+
     [Theory]
     [InlineData(4.5, false)]
     [InlineData(5.5, true)]

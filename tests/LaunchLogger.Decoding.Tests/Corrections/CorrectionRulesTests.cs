@@ -94,12 +94,13 @@ public class CorrectionRulesTests
     [Fact]
     public void AGradeInDegreesAndItsUncertaintyWithoutAMountingCalibration()
     {
-        // 1° is π/180 rad; an uncalibrated mounting adds 2.3° in quadrature (GradeEstimate's allowance).
+        // 1° is π/180 rad; an uncalibrated mounting adds 2.3° in quadrature (GradeEstimate's
+        // allowance), the axes' scale errors √2 · 1 % of the angle and the body's pitch 0.05 rad per g of slope.
         GradeEstimate g = GradeEstimate.FromRest(new Estimate(Math.PI / 90, 0.001), mountingPitchRad: Math.PI / 180);
         Assert.Equal(1.0, g.Degrees, 12);
         GradeEstimate uncalibrated = GradeEstimate.FromRest(new Estimate(0.03, 0.001), mountingPitchRad: null);
         Assert.Equal(0.03, uncalibrated.AngleRad, 12);
-        Assert.Equal(Math.Sqrt((0.001 * 0.001) + Math.Pow(2.3 * Math.PI / 180, 2)), uncalibrated.SigmaRad, 12);
+        Assert.Equal(Math.Sqrt((0.001 * 0.001) + Math.Pow(2.3 * Math.PI / 180, 2) + (2 * Math.Pow(0.01 * 0.03, 2)) + Math.Pow(0.05 * Math.Sin(0.03), 2)), uncalibrated.SigmaRad, 12);
     }
 
     [Theory]

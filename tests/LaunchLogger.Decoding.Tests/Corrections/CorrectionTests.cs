@@ -79,13 +79,57 @@ public class CorrectionTests
     {
         GradeEstimate g = GradeEstimate.FromRest(new Estimate(0.030, 0.001), mountingPitchRad: 0.020, mountingPitchSigmaRad: 0.002);
         Assert.Equal(0.010, g.AngleRad, 12);
-        Assert.Equal(Math.Sqrt(0.001 * 0.001 + 0.002 * 0.002), g.SigmaRad, 12);
+        Assert.Equal(Math.Sqrt((0.001 * 0.001) + (0.002 * 0.002) + (2 * Math.Pow(GradeEstimate.AxisScaleSigma * 0.010, 2)) + Math.Pow(GradeEstimate.BodyPitchPerG * Math.Sin(0.010), 2)), g.SigmaRad, 12);
         Assert.True(g.MountingCalibrated);
         Assert.Equal(Math.Tan(0.010) * 100, g.Percent, 12);
 
         GradeEstimate uncalibrated = GradeEstimate.FromRest(new Estimate(0.030, 0.001), mountingPitchRad: null);
         Assert.False(uncalibrated.MountingCalibrated);
         Assert.True(uncalibrated.SigmaRad > 0.015, "an uncalibrated mounting must widen the grade's uncertainty");
+    }
+
+    [Theory]
+    [InlineData(0.05, 0.02, 0.01, -0.01)]
+    [InlineData(0.08, -0.03, -0.01, 0.01)]
+    [InlineData(-0.06, 0.01, 0.01, -0.005)]
+    public void TheGradesSigmaCarriesTheAxesScaleErrors(double slope, double mountPitch, double scaleX, double scaleZ)
+    {
+        // A box pitched mountPitch on its bracket, its forward and vertical axes reading (1 + s)
+        // of the specific force along them. At rest the reaction to gravity, g straight up, is seen
+        // along the box's axes turned by the road's slope and the mounting (rotation about the
+        // lateral axis; definition of specific force), and the pitch is read as asin(f_x / |f|).
+        // Calibrated on level ground, then staged on the slope: the grade is off by about
+        // (s_x − s_z)·θ, which σ must carry. Scale errors of ±1 % are one σ each (common practice).
+        static double Pitch(double angle, double sx, double sz)
+        {
+            double fx = Math.Sin(angle) * (1 + sx), fz = Math.Cos(angle) * (1 + sz);
+            return Math.Asin(fx / Math.Sqrt((fx * fx) + (fz * fz)));
+        }
+
+        double theta = Math.Atan(slope);
+        double mounting = Pitch(mountPitch, scaleX, scaleZ);
+        GradeEstimate g = GradeEstimate.FromRest(new Estimate(Pitch(theta + mountPitch, scaleX, scaleZ), 1e-5), mounting, 1e-5);
+        double error = g.AngleRad - theta;
+        Assert.True(Math.Abs(error) > 10 * 1e-5, "the scale errors must show beyond the readings' own σ");
+        Assert.InRange(Math.Abs(error), 0, 2 * g.SigmaRad);
+        Assert.InRange(g.SigmaRad, 0, (3 * Math.Abs(error)) + (GradeEstimate.BodyPitchPerG * Math.Abs(Math.Sin(theta))) + 5e-5);
+    }
+
+    [Theory]
+    [InlineData(0.02)]
+    [InlineData(-0.05)]
+    public void TheGradesSigmaCarriesTheBodysPitchOnItsSuspension(double slope)
+    {
+        // Statics: at rest on a slope θ the weight's along-road part m·g0·sin θ acts at the centre
+        // of gravity, h above the tyres that hold the car, and the body turns on its pitch stiffness
+        // K by φ = m·g0·sin θ·h / K (moment balance). A 1500 kg car, h = 0.5 m, K = 170 kN·m/rad
+        // (the braking test car of our simulator) pitches 0.043 rad per g, nose up uphill: the
+        // box reads θ + φ, and the grade's σ must cover φ.
+        double theta = Math.Atan(slope);
+        double phi = 1500 * G0 * Math.Sin(theta) * 0.5 / 170_000;
+        GradeEstimate g = GradeEstimate.FromRest(new Estimate(0.01 + theta + phi, 1e-5), 0.01, 1e-5);
+        Assert.InRange(Math.Abs(g.AngleRad - theta), 0, 2 * g.SigmaRad);
+        Assert.True(Math.Abs(g.AngleRad - theta) > 10 * 1.5e-5, "the body's pitch must show beyond the readings' own σ");
     }
 
     private static double Zero60(FigureSet f) => f.SpeedIntervals.Single(i => i.Interval.Label == "0-60 mph").FromStandstillS!.Value;
