@@ -1,4 +1,3 @@
-using System.Buffers.Binary;
 using System.Globalization;
 using System.Runtime.CompilerServices;
 using LaunchLogger.Decoding.Reading;
@@ -379,88 +378,121 @@ internal sealed class RunBuilder
             }
         }
 
-        // Every element is written before the arrays are seen (they are cut to the samples
-        // kept), so the allocator need not clear them first.
-        int n = AccelSampleCount;
-        double[] time = GC.AllocateUninitializedArray<double>(n);
-        long[] index = GC.AllocateUninitializedArray<long>(n);
-        double[] forward = GC.AllocateUninitializedArray<double>(n);
-        double[] lateral = GC.AllocateUninitializedArray<double>(n);
-        double[] vertical = GC.AllocateUninitializedArray<double>(n);
-        int kept = FillSamples(frames, clock, axes, time, index, forward, lateral, vertical);
-        if (kept < n)
+        PackedAccelSamples packed = PackSamples(frames, clock, axes);
+        if (packed.Count < AccelSampleCount)
         {
-            Warn(Invariant($"{n - kept} accelerometer sample(s) repeated or out of order were dropped"));
-            Array.Resize(ref time, kept);
-            Array.Resize(ref index, kept);
-            Array.Resize(ref forward, kept);
-            Array.Resize(ref lateral, kept);
-            Array.Resize(ref vertical, kept);
+            Warn(Invariant($"{AccelSampleCount - packed.Count} accelerometer sample(s) repeated or out of order were dropped"));
         }
 
-        return new AccelSeries
+        return new AccelSeries(packed)
         {
-            TimeS = time,
-            ForwardMps2 = forward,
-            LateralMps2 = lateral,
-            VerticalMps2 = vertical,
             HasAllAxes = true,
             SamplePeriodS = clock.PeriodS,
             SamplePeriodUncertaintyS = clock.PeriodSigmaS,
-            SampleIndex = index,
             Axes = axes,
         };
     }
 
-    /// <summary>Times each sample on the clock and turns it into the car's axes in m/s²,
-    /// skipping samples whose index or time does not move forward; returns how many were kept.</summary>
+    /// <summary>Keeps the samples whose index and time move forward and lie within the run's
+    /// bounds, as written (6 bytes each), with the stretches of unbroken numbering they form.</summary>
+    /// <remarks>Times are computed as <see cref="SampleClock.TimeOf"/> does, with the segment's
+    /// origin looked up once per frame; kept samples are copied a stretch at a time.</remarks>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private int FillSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes, Span<double> time, Span<long> index, Span<double> forward, Span<double> lateral, Span<double> vertical)
+    private PackedAccelSamples PackSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes)
     {
         ReadOnlySpan<byte> samples = scratch.AccelSamples.Span;
         ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
-        ReadOnlySpan<double> mps2 = LogUnits.SampleMps2;
-        double forwardSign = axes.ForwardSign;
-        double lateralSign = axes.LateralSign;
-        double verticalSign = axes.VerticalSign;
-        int forwardAt = 2 * axes.ForwardAxis;
-        int lateralAt = 2 * axes.LateralAxis;
-        int verticalAt = 2 * axes.VerticalAxis;
+        var stretches = new StretchList(frames.Length);
+        byte[] kept = GC.AllocateUninitializedArray<byte>(samples.Length);
         double periodS = clock.PeriodS;
         double earliestS = LogUnits.Seconds(earliestMicros);
         double latestS = LogUnits.Seconds(latestMicros);
-        int kept = 0;
+        int keptCount = 0;
         long lastIndex = long.MinValue;
         double lastTime = double.NegativeInfinity;
         for (int f = 0; f < frames.Length; f++)
         {
             RunScratch.AccelFrame frame = frames[f];
             double originS = clock.OriginS(bursts[burstOfFrame[f]].Segment);
-            ReadOnlySpan<byte> bytes = samples.Slice(frame.Offset * AccelerationBody.BytesPerSample, frame.Count * AccelerationBody.BytesPerSample);
+            int runFrom = -1;
             for (int i = 0; i < frame.Count; i++)
             {
-                // As SampleClock.TimeOf, with the segment's origin looked up once per frame.
                 long sampleIndex = frame.FirstIndex + i;
                 double t = originS + (periodS * sampleIndex);
                 if (sampleIndex <= lastIndex || !(t > lastTime) || !(t >= earliestS && t <= latestS))
                 {
+                    if (runFrom >= 0)
+                    {
+                        keptCount = Copy(samples, frame, runFrom, i, kept, keptCount);
+                        runFrom = -1;
+                    }
+
                     continue;
                 }
 
-                ReadOnlySpan<byte> sample = bytes.Slice(i * AccelerationBody.BytesPerSample, AccelerationBody.BytesPerSample);
-                forward[kept] = forwardSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[forwardAt..]) - short.MinValue];
-                lateral[kept] = lateralSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[lateralAt..]) - short.MinValue];
-                vertical[kept] = verticalSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[verticalAt..]) - short.MinValue];
-                time[kept] = t;
-                index[kept] = sampleIndex;
-                kept++;
+                if (runFrom < 0)
+                {
+                    runFrom = i;
+                    stretches.Add(keptCount, sampleIndex, originS);
+                }
+
                 lastIndex = sampleIndex;
                 lastTime = t;
             }
+
+            if (runFrom >= 0)
+            {
+                keptCount = Copy(samples, frame, runFrom, frame.Count, kept, keptCount);
+            }
         }
 
-        return kept;
+        return new PackedAccelSamples(kept, keptCount, stretches.Starts(), stretches.FirstIndices(), stretches.Origins(), periodS, axes);
+
+        static int Copy(ReadOnlySpan<byte> samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
+        {
+            const int size = AccelerationBody.BytesPerSample;
+            samples.Slice((frame.Offset + from) * size, (to - from) * size).CopyTo(into.AsSpan(at * size));
+            return at + to - from;
+        }
+    }
+
+    /// <summary>The stretches of kept samples with unbroken numbering: where each starts among
+    /// the kept samples, its first sample's index and its clock origin. A new stretch starts at
+    /// each frame (the next frame's numbering need not follow on).</summary>
+    private sealed class StretchList(int capacity)
+    {
+        private int[] starts = new int[Math.Max(capacity, 1)];
+        private long[] firstIndices = new long[Math.Max(capacity, 1)];
+        private double[] origins = new double[Math.Max(capacity, 1)];
+        private int count;
+
+        public void Add(int start, long firstIndex, double originS)
+        {
+            if (count > 0 && origins[count - 1] == originS && firstIndices[count - 1] + (start - starts[count - 1]) == firstIndex)
+            {
+                // Follows on from the last stretch on the same origin: one stretch.
+                return;
+            }
+
+            if (count == starts.Length)
+            {
+                Array.Resize(ref starts, 2 * count);
+                Array.Resize(ref firstIndices, 2 * count);
+                Array.Resize(ref origins, 2 * count);
+            }
+
+            starts[count] = start;
+            firstIndices[count] = firstIndex;
+            origins[count] = originS;
+            count++;
+        }
+
+        public int[] Starts() => starts[..count];
+
+        public long[] FirstIndices() => firstIndices[..count];
+
+        public double[] Origins() => origins[..count];
     }
 
     /// <summary>One reading per burst: consecutive frames that share a read time are parts of
