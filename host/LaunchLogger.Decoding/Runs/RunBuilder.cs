@@ -122,9 +122,10 @@ internal sealed class RunBuilder
         };
 
         WarnDamage();
-        PulseRecord[] channel0 = PulseRecords(0);
-        PulseRecord[] channel1 = PulseRecords(1);
-        WarnWideBrackets(channel0, channel1, configuration.BracketLimitS);
+        var wide = new WideBrackets(configuration.BracketLimitS);
+        IReadOnlyList<PulseRecord> channel0 = PulseRecords(0, ref wide);
+        IReadOnlyList<PulseRecord> channel1 = PulseRecords(1, ref wide);
+        WarnWideBrackets(wide);
         var runEvents = events
             .Select(e => new RunEvent(e.Kind, LogUnits.Seconds(e.TimeMicros), e.Values))
             .OrderBy(e => e.TimeS)
@@ -199,22 +200,80 @@ internal sealed class RunBuilder
         }
     }
 
-    /// <summary>The channel's observations in seconds, in an array of exactly their number,
-    /// dropping any that repeat or go back on an earlier count.</summary>
+    /// <summary>The channel's observations in seconds, dropping any that repeat or go back on an
+    /// earlier count, packed 12 bytes each (<see cref="PackedPulses"/>) when every value fits,
+    /// else in an array of exactly their number; counts the wide brackets into <paramref name="wide"/>.</summary>
     /// <remarks>One pass into an array of the observations' number, written before it is seen
-    /// (so the allocator need not clear it), cut to the number kept when any were dropped.</remarks>
+    /// (so the allocator need not clear it).</remarks>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private PulseRecord[] PulseRecords(int channel)
+    private IReadOnlyList<PulseRecord> PulseRecords(int channel, ref WideBrackets wide)
     {
         ReadOnlySpan<PulseMicros> observed = (channel == 0 ? scratch.Channel0 : scratch.Channel1).Span;
-        var filter = new PulseFilter(MaxCount(channel), InputLimits.MaxPlausibleSpeedMps / 1e6 / MetresPerPulse(channel), earliestMicros, latestMicros);
-        PulseRecord[] records = observed.Length == 0 ? [] : GC.AllocateUninitializedArray<PulseRecord>(observed.Length);
+        if (observed.Length == 0)
+        {
+            return [];
+        }
+
+        var filter = NewPulseFilter(channel);
+        WideBrackets wideHere = wide;
+        uint[] packed = GC.AllocateUninitializedArray<uint>(3 * observed.Length);
+        bool fits = latestMicros - earliestMicros <= uint.MaxValue;
+        long baseCount = 0;
         int kept = 0;
+        foreach (ref readonly PulseMicros p in observed)
+        {
+            if (!fits || !filter.Keep(p))
+            {
+                continue;
+            }
+
+            if (kept == 0)
+            {
+                baseCount = p.Count;
+            }
+
+            if (p.Count - baseCount > uint.MaxValue)
+            {
+                fits = false;
+                continue;
+            }
+
+            int at = 3 * kept++;
+            packed[at] = (uint)(p.Count - baseCount);
+            packed[at + 1] = (uint)(p.LoMicros - earliestMicros);
+            packed[at + 2] = (uint)(p.HiMicros - earliestMicros);
+            wideHere.Count(LogUnits.Seconds(p.HiMicros) - LogUnits.Seconds(p.LoMicros));
+        }
+
+        IReadOnlyList<PulseRecord> records;
+        if (fits)
+        {
+            records = new PackedPulses(packed, kept, baseCount, earliestMicros);
+            wide = wideHere;
+        }
+        else
+        {
+            filter = NewPulseFilter(channel);
+            records = PulseArray(observed, ref filter, ref wide, out kept);
+        }
+
+        WarnFiltered(channel, observed.Length, kept, filter);
+        return records;
+    }
+
+    /// <summary>As <see cref="PulseRecords"/>, into an array of <see cref="PulseRecord"/>, for
+    /// observations whose values do not all fit the packed form.</summary>
+    private static PulseRecord[] PulseArray(ReadOnlySpan<PulseMicros> observed, ref PulseFilter filter, ref WideBrackets wide, out int kept)
+    {
+        PulseRecord[] records = GC.AllocateUninitializedArray<PulseRecord>(observed.Length);
+        kept = 0;
         foreach (ref readonly PulseMicros p in observed)
         {
             if (filter.Keep(p))
             {
-                records[kept++] = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
+                var record = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
+                wide.Count(record.WidthS);
+                records[kept++] = record;
             }
         }
 
@@ -223,6 +282,14 @@ internal sealed class RunBuilder
             Array.Resize(ref records, kept);
         }
 
+        return records;
+    }
+
+    private PulseFilter NewPulseFilter(int channel) =>
+        new(MaxCount(channel), InputLimits.MaxPlausibleSpeedMps / 1e6 / MetresPerPulse(channel), earliestMicros, latestMicros);
+
+    private void WarnFiltered(int channel, int observed, int kept, in PulseFilter filter)
+    {
         int outOfBounds = filter.OutOfBounds;
         int tooFast = filter.TooFast;
         if (outOfBounds > 0)
@@ -235,13 +302,30 @@ internal sealed class RunBuilder
             Warn(Invariant($"{tooFast} pulse observation(s) of channel {channel} counted faster than {InputLimits.MaxPlausibleSpeedMps} m/s since the one before and were dropped"));
         }
 
-        int dropped = observed.Length - kept - outOfBounds - tooFast;
+        int dropped = observed - kept - outOfBounds - tooFast;
         if (dropped > 0)
         {
             Warn(Invariant($"{dropped} pulse observation(s) of channel {channel} repeated or went back on an earlier count and were dropped"));
         }
+    }
 
-        return records;
+    /// <summary>Brackets wider than the configured limit: how many and the widest, seconds.</summary>
+    private struct WideBrackets(double limitS)
+    {
+        public readonly double LimitS = limitS;
+
+        public int Wide;
+
+        public double Widest;
+
+        public void Count(double widthS)
+        {
+            if (widthS > LimitS && LimitS > 0)
+            {
+                Wide++;
+                Widest = Math.Max(Widest, widthS);
+            }
+        }
     }
 
     /// <summary>The distance per pulse of a channel, m.</summary>
@@ -298,33 +382,11 @@ internal sealed class RunBuilder
         }
     }
 
-    private void WarnWideBrackets(PulseRecord[] channel0, PulseRecord[] channel1, double limitS)
+    private void WarnWideBrackets(in WideBrackets wide)
     {
-        if (!(limitS > 0))
+        if (wide.Wide > 0)
         {
-            return;
-        }
-
-        int wide = 0;
-        double widest = 0;
-        CountWide(channel0, limitS, ref wide, ref widest);
-        CountWide(channel1, limitS, ref wide, ref widest);
-        if (wide > 0)
-        {
-            Warn(Invariant($"{wide} pulse observation(s) have brackets wider than the {limitS * 1000:0.###} ms limit (widest {widest * 1000:0.###} ms): edge times are uncertain there"));
-        }
-    }
-
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void CountWide(ReadOnlySpan<PulseRecord> records, double limitS, ref int wide, ref double widest)
-    {
-        foreach (ref readonly PulseRecord p in records)
-        {
-            if (p.WidthS > limitS)
-            {
-                wide++;
-                widest = Math.Max(widest, p.WidthS);
-            }
+            Warn(Invariant($"{wide.Wide} pulse observation(s) have brackets wider than the {wide.LimitS * 1000:0.###} ms limit (widest {wide.Widest * 1000:0.###} ms): edge times are uncertain there"));
         }
     }
 
@@ -415,6 +477,15 @@ internal sealed class RunBuilder
         {
             RunScratch.AccelFrame frame = frames[f];
             double originS = clock.OriginS(bursts[burstOfFrame[f]].Segment);
+            if (WholeFrameKept(frame, originS, periodS, lastIndex, lastTime, earliestS, latestS, out double frameLastTime))
+            {
+                stretches.Add(keptCount, frame.FirstIndex, originS);
+                keptCount = Copy(samples, frame, 0, frame.Count, kept, keptCount);
+                lastIndex = frame.FirstIndex + frame.Count - 1;
+                lastTime = frameLastTime;
+                continue;
+            }
+
             int runFrom = -1;
             for (int i = 0; i < frame.Count; i++)
             {
@@ -448,6 +519,23 @@ internal sealed class RunBuilder
         }
 
         return new PackedAccelSamples(kept, keptCount, stretches.Starts(), stretches.FirstIndices(), stretches.Origins(), periodS, axes);
+
+        // True when the sample-by-sample test below would keep every sample of the frame: the
+        // first moves index and time forward, the first and last lie within the bounds, and
+        // the period is wider than the rounding of any two neighbouring times, so that times
+        // rise strictly from sample to sample (each time is origin + period × index, rounded
+        // twice; the rounding moves it by at most one unit in the last place of the product and
+        // of the sum, each below 2^-52 of their size).
+        static bool WholeFrameKept(in RunScratch.AccelFrame frame, double originS, double periodS, long lastIndex, double lastTime, double earliestS, double latestS, out double lastS)
+        {
+            long first = frame.FirstIndex;
+            long last = first + frame.Count - 1;
+            double firstS = originS + (periodS * first);
+            lastS = originS + (periodS * last);
+            double largest = Math.Max(Math.Abs(firstS), Math.Abs(lastS)) + (periodS * Math.Max(Math.Abs((double)first), Math.Abs((double)last)));
+            return frame.Count > 0 && first > lastIndex && firstS > lastTime && firstS >= earliestS && lastS <= latestS
+                && periodS > 0 && periodS > 4 * largest / (1L << 52);
+        }
 
         static int Copy(ReadOnlySpan<byte> samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
         {
