@@ -122,7 +122,7 @@ internal sealed class RunBuilder
         };
 
         WarnDamage();
-        var wide = new WideBrackets(configuration.BracketLimitS);
+        var wide = new WideBrackets(Configuration.BracketLimitMicros);
         IReadOnlyList<PulseRecord> channel0 = PulseRecords(0, ref wide);
         IReadOnlyList<PulseRecord> channel1 = PulseRecords(1, ref wide);
         WarnWideBrackets(wide);
@@ -242,7 +242,7 @@ internal sealed class RunBuilder
             packed[at] = (uint)(p.Count - baseCount);
             packed[at + 1] = (uint)(p.LoMicros - earliestMicros);
             packed[at + 2] = (uint)(p.HiMicros - earliestMicros);
-            wideHere.Count(LogUnits.Seconds(p.HiMicros) - LogUnits.Seconds(p.LoMicros));
+            wideHere.Count(p.LoMicros, p.HiMicros);
         }
 
         IReadOnlyList<PulseRecord> records;
@@ -272,7 +272,7 @@ internal sealed class RunBuilder
             if (filter.Keep(p))
             {
                 var record = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
-                wide.Count(record.WidthS);
+                wide.Count(p.LoMicros, p.HiMicros);
                 records[kept++] = record;
             }
         }
@@ -310,17 +310,27 @@ internal sealed class RunBuilder
     }
 
     /// <summary>Brackets wider than the configured limit: how many and the widest, seconds.</summary>
-    private struct WideBrackets(double limitS)
+    /// <remarks>A bracket is wide when its width in seconds (each end turned into seconds, as
+    /// its <see cref="PulseRecord"/> holds it) exceeds the limit. One whole microsecond narrower
+    /// than the limit is far more than that rounding, so only brackets at least as wide as the
+    /// limit in µs are turned into seconds.</remarks>
+    private struct WideBrackets(long limitMicros)
     {
-        public readonly double LimitS = limitS;
+        public readonly double LimitS = LogUnits.Seconds(limitMicros);
 
         public int Wide;
 
         public double Widest;
 
-        public void Count(double widthS)
+        public void Count(long loMicros, long hiMicros)
         {
-            if (widthS > LimitS && LimitS > 0)
+            if (hiMicros - loMicros < limitMicros || !(LimitS > 0))
+            {
+                return;
+            }
+
+            double widthS = LogUnits.Seconds(hiMicros) - LogUnits.Seconds(loMicros);
+            if (widthS > LimitS)
             {
                 Wide++;
                 Widest = Math.Max(Widest, widthS);
