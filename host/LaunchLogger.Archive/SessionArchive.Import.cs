@@ -147,6 +147,23 @@ public sealed partial class SessionArchive
         }
     }
 
+    /// <summary>The raw bytes of a log, exactly as filed, as a read-only stream over the stored
+    /// blob: a long log is read a block at a time, never held whole. Dispose it before the
+    /// archive is closed.</summary>
+    /// <exception cref="ArchiveException">No such log.</exception>
+    /// <remarks>Opened without a command, so it may be read inside a transaction of the archive.</remarks>
+    public Stream OpenLog(long logId)
+    {
+        try
+        {
+            return new SqliteBlob(connection, "logs", "bytes", logId, readOnly: true);
+        }
+        catch (SqliteException e)
+        {
+            throw new ArchiveException($"no log {logId}: {e.Message}");
+        }
+    }
+
     /// <summary>The raw bytes of a log, exactly as filed.</summary>
     /// <exception cref="ArchiveException">No such log.</exception>
     public byte[] LogBytes(long logId) =>

@@ -125,7 +125,7 @@ public sealed partial class SessionArchive
     /// <summary>What a run was analysed from: its log's bytes and name, its place in the log, and
     /// the calibration and weather its result was made with (as import and re-analysis use them).</summary>
     /// <exception cref="ArchiveException">No such run.</exception>
-    public (byte[] Bytes, string Source, int Position, CalibrationSettings? Calibration, Weather? Weather) RunInput(long runId)
+    public (long LogId, string Source, int Position, CalibrationSettings? Calibration, Weather? Weather) RunInput(long runId)
     {
         long logId;
         int position;
@@ -149,7 +149,7 @@ public sealed partial class SessionArchive
             source = reader.GetString(4);
         }
 
-        return (LogBytes(logId), source, position, SettingsCalibration(settingsId), weather is null ? null : Weather.Parse(weather));
+        return (logId, source, position, SettingsCalibration(settingsId), weather is null ? null : Weather.Parse(weather));
     }
 
     /// <summary>An event's name, date, venue, surface and weather as filed.</summary>

@@ -4,7 +4,8 @@ using Microsoft.Data.Sqlite;
 
 namespace LaunchLogger.Archive;
 
-// Re-analysis: the stored raw bytes read again by this tool; earlier results are kept.
+// Re-analysis: the stored raw bytes read again by this tool, run by run from the stored blob;
+// earlier results are kept.
 public sealed partial class SessionArchive
 {
     /// <summary>Analyses stored logs again with this tool and makes the new results current
@@ -38,7 +39,7 @@ public sealed partial class SessionArchive
     private (int Runs, int Changed) ReanalyseLog(long logId, string toolVersion, CancellationToken cancel)
     {
         string source = (string)Scalar("SELECT source FROM logs WHERE id = $id", null, ("$id", logId))!;
-        byte[] bytes = LogBytes(logId);
+        string sha256 = (string)Scalar("SELECT sha256 FROM logs WHERE id = $id", null, ("$id", logId))!;
 
         // Each run is analysed with its own car settings version and its own event's weather:
         // a run moved to another event or car since import is judged as it is filed now. The
@@ -73,7 +74,12 @@ public sealed partial class SessionArchive
             if (!analyses.TryGetValue(key, out AnalysedLog? log))
             {
                 Weather? weather = row?.Weather is { } w ? Weather.Parse(w) : null;
-                log = LogAnalyzer.Analyze(bytes, source, toolVersion, SettingsCalibration(row?.SettingsId), weather, cancel);
+                // Read from the stored blob a block at a time: the log is never held whole.
+                using (Stream bytes = OpenLog(logId))
+                {
+                    log = LogAnalyzer.AnalyzeStream(bytes, sha256, source, toolVersion, SettingsCalibration(row?.SettingsId), weather, cancel);
+                }
+
                 analyses[key] = log;
             }
 

@@ -4,14 +4,16 @@ using LaunchLogger.Archive.Importing;
 using LaunchLogger.Archive.Records;
 using LaunchLogger.Cli.Output;
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Reporting;
+using LaunchLogger.Decoding.Runs;
 
 namespace LaunchLogger.Pages;
 
 /// <summary>Cards of archived runs. The figures are the run's current result as filed (the
 /// report entry the board ranks by); the plots, and the session's grip bound and weather, come
 /// from reading the run's stored log again with its filed calibration and weather, exactly as
-/// import does (<see cref="LogAnalyzer.AnalyzeSession"/>).</summary>
+/// import does, one run at a time from the stored blob.</summary>
 public static class ArchiveCards
 {
     /// <summary>The card of archive run <paramref name="runId"/>, or null when its analysis failed
@@ -29,9 +31,34 @@ public static class ArchiveCards
 
         RunReport run = JsonSerializer.Deserialize<RunReport>(filed.ReportJson, ReportJson.Options)
             ?? throw new ArchiveException($"run {runId}: its stored report entry is empty");
-        (byte[] bytes, string source, int position, var calibration, var weather) = archive.RunInput(runId);
-        var (_, _, session) = LogAnalyzer.AnalyzeSession(bytes, source, calibration, weather, cancel);
-        RunAnalysis? analysis = position >= 1 && position <= session.Runs.Count ? session.Runs[position - 1] : null;
+        (long logId, string source, int position, var calibration, var weather) = archive.RunInput(runId);
+
+        // The stored log is read from its blob and analysed run by run, as import did; of each
+        // run only its report entry is kept (for the session's grip bound), and of this run its
+        // plots, so a long log costs the memory of its largest run.
+        IReadOnlyList<PlotFigure>? plots = null;
+        StreamedSession<RunReport> session;
+        using (Stream log = archive.OpenLog(logId))
+        {
+            IEnumerable<DecodedRun> runs = LogReader.ReadRuns(log, source, null, cancel)
+                .Select(r => calibration is null ? r : CalibrationApplier.Apply(r, calibration));
+            var options = AnalysisOptions.Default with { Calibration = calibration, Weather = weather };
+            session = SessionAnalyzer.AnalyzeEach(
+                runs,
+                (analysis, at) =>
+                {
+                    if (at == position)
+                    {
+                        plots = CardPlots.For(analysis, units);
+                    }
+
+                    return RunReportBuilder.Build(analysis, at);
+                },
+                options,
+                null,
+                cancel);
+        }
+
         ReportDocument document = RunReportBuilder.Document(session, toolVersion, source, null, weather, []);
 
         // The session's bound belongs to this result only when this tool made the result.
@@ -46,7 +73,7 @@ public static class ArchiveCards
             Filed = filed,
             ToolVersion = filed.ToolVersion ?? toolVersion,
             Units = units,
-            Plots = analysis is null ? [] : CardPlots.For(analysis, units),
+            Plots = plots ?? [],
         };
     }
 

@@ -31,6 +31,22 @@ public class ImportTests
         using SessionArchive opened = SessionArchive.Open(archive);
         Assert.Equal(2, opened.ListRuns().Rows.Count);
         Assert.Equal(TestLogs.Hatch, opened.LogBytes(1));
+
+        // The stored log read as a stream, a block at a time, is the same bytes; a log that is
+        // not there is the archive's error, not the database's.
+        using (Stream stream = opened.OpenLog(1))
+        {
+            var copy = new MemoryStream();
+            byte[] block = new byte[1000];
+            for (int got; (got = stream.Read(block, 0, block.Length)) > 0;)
+            {
+                copy.Write(block, 0, got);
+            }
+
+            Assert.Equal(TestLogs.Hatch, copy.ToArray());
+        }
+
+        Assert.Throws<ArchiveException>(() => opened.OpenLog(99));
     }
 
     [Fact]

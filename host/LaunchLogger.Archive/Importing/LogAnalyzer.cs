@@ -72,6 +72,22 @@ public static class LogAnalyzer
         return new AnalysedLog(sha256, source, [], runs, warnings, toolVersion) { BytesFile = Path.GetFullPath(path), BytesFileLength = length };
     }
 
+    /// <summary>As <see cref="Analyze"/> for a log read from a stream (a stored log's blob), one
+    /// run at a time: memory is bounded by its largest run, not by the log.</summary>
+    /// <param name="stream">The log; read to its end, not closed.</param>
+    /// <param name="sha256">Its content hash, as filed.</param>
+    /// <param name="source">Its name.</param>
+    /// <param name="toolVersion">The tool version recorded with the results.</param>
+    /// <param name="calibration">The car's calibration settings, when known.</param>
+    /// <param name="weather">The event's weather, when known.</param>
+    /// <param name="cancel">Stops between runs.</param>
+    public static AnalysedLog AnalyzeStream(Stream stream, string sha256, string source, string toolVersion, CalibrationSettings? calibration = null, Weather? weather = null, CancellationToken cancel = default)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        (List<AnalysedRun> runs, IReadOnlyList<string> warnings) = AnalyzeRuns(stream, source, calibration, weather, cancel);
+        return new AnalysedLog(sha256, source, [], runs, warnings, toolVersion);
+    }
+
     /// <summary>Reads, analyses and reports the runs of a log as the report does, one at a time,
     /// keeping of each only its report entry (with the session's final verdict) and what names it.</summary>
     private static (List<AnalysedRun> Runs, IReadOnlyList<string> Warnings) AnalyzeRuns(Stream stream, string source, CalibrationSettings? calibration, Weather? weather, CancellationToken cancel)
@@ -111,17 +127,5 @@ public static class LogAnalyzer
         }
 
         return (analysed, warnings);
-    }
-
-    /// <summary>Reads and analyses every run of <paramref name="bytes"/> as the report does: the
-    /// log as read, its runs with the calibration applied, and the session's analysis (what the
-    /// run cards draw their plots and the session's grip bound from).</summary>
-    public static (LogReadResult Read, List<DecodedRun> Runs, SessionAnalysis Session) AnalyzeSession(byte[] bytes, string source, CalibrationSettings? calibration = null, Weather? weather = null, CancellationToken cancel = default)
-    {
-        ArgumentNullException.ThrowIfNull(bytes);
-        LogReadResult read = LogReader.Read(bytes, source);
-        List<DecodedRun> runs = read.Runs.Select(r => calibration is null ? r : CalibrationApplier.Apply(r, calibration)).ToList();
-        var options = AnalysisOptions.Default with { Calibration = calibration, Weather = weather };
-        return (read, runs, SessionAnalyzer.Analyze(runs, options, null, cancel));
     }
 }

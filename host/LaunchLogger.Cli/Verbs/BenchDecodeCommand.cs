@@ -85,16 +85,34 @@ public static class BenchDecodeCommand
         }
 
         Array.Sort(times);
+
+        // The reader keeps accelerometer samples packed; reconstruction's first read of the times,
+        // forward and vertical axes builds them. Timed here on freshly read runs, so that the
+        // cost the reader no longer pays is shown where it is paid.
+        var expand = new double[repeats];
+        for (int i = 0; i < repeats; i++)
+        {
+            AccelSeries? fresh1 = LogReader.Read(one, "one.log").Runs.Single().Accel;
+            clock.Restart();
+            _ = fresh1?.TimeS;
+            _ = fresh1?.ForwardMps2;
+            _ = fresh1?.VerticalMps2;
+            clock.Stop();
+            expand[i] = clock.Elapsed.TotalMilliseconds;
+        }
+
+        Array.Sort(expand);
         double runSeconds = run.Accel is { Count: > 0 } a ? a.TimeS[^1] - a.TimeS[0] : run.Pulses[^1].HiS - run.Configuration.OpenedS;
         output.WriteLine("bench decode: one core, this machine");
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  log                      {log.Length / 1e6,10:0.0} MB, {frames:N0} frames ({one.Length:N0}-byte run repeated)"));
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  frame reader             {log.Length / 1e6 / frameSeconds,10:0} MB/s   (goal ≥ 400 MB/s; frames checked and unstuffed, bodies not parsed)"));
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  whole reader into runs   {log.Length / 1e6 / fresh.Seconds,10:0} MB/s   fresh buffers: every run kept ({fresh.Runs:N0} runs; {log.Length / 1e6 / fresh.CpuSeconds:0} MB per CPU-second; {fresh.Allocated / 1e6:0} MB allocated) (goal ≥ 400 MB/s)"));
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  whole reader into runs   {log.Length / 1e6 / reused.Seconds,10:0} MB/s   reused buffers: runs streamed, each let go ({reused.Runs:N0} runs; {log.Length / 1e6 / reused.CpuSeconds:0} MB per CPU-second; {reused.Allocated / 1e6:0} MB allocated) (goal ≥ 400 MB/s)"));
-        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  the runs' arrays alone   {log.Length / 1e6 / floorKept.Seconds,10:0} MB/s   kept; {log.Length / 1e6 / floorLetGo.Seconds:0} MB/s let go ({floorKept.Allocated / 1e6:0} MB: each run's pulse and accelerometer arrays made and written, nothing read — the floor under the whole reader)"));
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  the runs' arrays alone   {log.Length / 1e6 / floorKept.Seconds,10:0} MB/s   kept; {log.Length / 1e6 / floorLetGo.Seconds:0} MB/s let go ({floorKept.Allocated / 1e6:0} MB: each run's packed pulses and accelerometer samples made and written, nothing read — the floor under the whole reader)"));
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  machine load             {Environment.ProcessorCount} cores, load average {LoadAverage()} (wall-clock rates fall with it; CPU-second rates much less)"));
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  one run                  {runSeconds,10:0.0} s logged, {run.Pulses.Count:N0} pulse observations, {run.Accel?.Count ?? 0:N0} accelerometer samples at {1 / (run.Accel?.SamplePeriodS ?? double.NaN):0} Hz"));
         output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  reconstruction + figures {times[times.Length / 2],10:0.0} ms median, {times[0]:0.0} ms best, {times[^1]:0.0} ms worst of {repeats}   (goal ≤ 20 ms per 30-s run)"));
+        output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  + samples expanded       {expand[expand.Length / 2],10:0.00} ms median per run (times, forward and vertical axes built from the packed samples on reconstruction's first read; not in the line above)"));
         return ExitCode.Ok;
     }
 
@@ -129,28 +147,25 @@ public static class BenchDecodeCommand
         int samples = like.Accel?.Count ?? 0;
         for (int r = 0; r < runs; r++)
         {
-            PulseRecord[] records = GC.AllocateUninitializedArray<PulseRecord>(pulses);
+            // Pulse observations are kept packed, 12 bytes each (count and bracket ends as offsets).
+            uint[] records = GC.AllocateUninitializedArray<uint>(3 * pulses);
             for (int i = 0; i < records.Length; i++)
             {
-                records[i] = new PulseRecord(i, i, i);
+                records[i] = (uint)i;
             }
 
-            double[][] axes = [GC.AllocateUninitializedArray<double>(samples), GC.AllocateUninitializedArray<double>(samples), GC.AllocateUninitializedArray<double>(samples), GC.AllocateUninitializedArray<double>(samples)];
-            long[] index = GC.AllocateUninitializedArray<long>(samples);
-            for (int i = 0; i < samples; i++)
+            // The accelerometer samples are kept packed as the box wrote them (6 bytes each);
+            // their arrays of doubles are built only when reconstruction reads them.
+            byte[] packed = GC.AllocateUninitializedArray<byte>(samples * 6);
+            for (int i = 0; i < packed.Length; i++)
             {
-                axes[0][i] = i;
-                axes[1][i] = i;
-                axes[2][i] = i;
-                axes[3][i] = i;
-                index[i] = i;
+                packed[i] = (byte)i;
             }
 
             if (keep)
             {
                 kept.Add(records);
-                kept.Add(axes);
-                kept.Add(index);
+                kept.Add(packed);
             }
         }
 

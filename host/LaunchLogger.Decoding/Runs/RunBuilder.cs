@@ -1,4 +1,3 @@
-using System.Buffers.Binary;
 using System.Globalization;
 using System.Runtime.CompilerServices;
 using LaunchLogger.Decoding.Reading;
@@ -123,9 +122,10 @@ internal sealed class RunBuilder
         };
 
         WarnDamage();
-        PulseRecord[] channel0 = PulseRecords(0);
-        PulseRecord[] channel1 = PulseRecords(1);
-        WarnWideBrackets(channel0, channel1, configuration.BracketLimitS);
+        var wide = new WideBrackets(Configuration.BracketLimitMicros);
+        IReadOnlyList<PulseRecord> channel0 = PulseRecords(0, ref wide);
+        IReadOnlyList<PulseRecord> channel1 = PulseRecords(1, ref wide);
+        WarnWideBrackets(wide);
         var runEvents = events
             .Select(e => new RunEvent(e.Kind, LogUnits.Seconds(e.TimeMicros), e.Values))
             .OrderBy(e => e.TimeS)
@@ -200,22 +200,80 @@ internal sealed class RunBuilder
         }
     }
 
-    /// <summary>The channel's observations in seconds, in an array of exactly their number,
-    /// dropping any that repeat or go back on an earlier count.</summary>
+    /// <summary>The channel's observations in seconds, dropping any that repeat or go back on an
+    /// earlier count, packed 12 bytes each (<see cref="PackedPulses"/>) when every value fits,
+    /// else in an array of exactly their number; counts the wide brackets into <paramref name="wide"/>.</summary>
     /// <remarks>One pass into an array of the observations' number, written before it is seen
-    /// (so the allocator need not clear it), cut to the number kept when any were dropped.</remarks>
+    /// (so the allocator need not clear it).</remarks>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private PulseRecord[] PulseRecords(int channel)
+    private IReadOnlyList<PulseRecord> PulseRecords(int channel, ref WideBrackets wide)
     {
         ReadOnlySpan<PulseMicros> observed = (channel == 0 ? scratch.Channel0 : scratch.Channel1).Span;
-        var filter = new PulseFilter(MaxCount(channel), InputLimits.MaxPlausibleSpeedMps / 1e6 / MetresPerPulse(channel), earliestMicros, latestMicros);
-        PulseRecord[] records = observed.Length == 0 ? [] : GC.AllocateUninitializedArray<PulseRecord>(observed.Length);
+        if (observed.Length == 0)
+        {
+            return [];
+        }
+
+        var filter = NewPulseFilter(channel);
+        WideBrackets wideHere = wide;
+        uint[] packed = GC.AllocateUninitializedArray<uint>(3 * observed.Length);
+        bool fits = latestMicros - earliestMicros <= uint.MaxValue;
+        long baseCount = 0;
         int kept = 0;
+        foreach (ref readonly PulseMicros p in observed)
+        {
+            if (!fits || !filter.Keep(p))
+            {
+                continue;
+            }
+
+            if (kept == 0)
+            {
+                baseCount = p.Count;
+            }
+
+            if (p.Count - baseCount > uint.MaxValue)
+            {
+                fits = false;
+                continue;
+            }
+
+            int at = 3 * kept++;
+            packed[at] = (uint)(p.Count - baseCount);
+            packed[at + 1] = (uint)(p.LoMicros - earliestMicros);
+            packed[at + 2] = (uint)(p.HiMicros - earliestMicros);
+            wideHere.Count(p.LoMicros, p.HiMicros);
+        }
+
+        IReadOnlyList<PulseRecord> records;
+        if (fits)
+        {
+            records = new PackedPulses(packed, kept, baseCount, earliestMicros);
+            wide = wideHere;
+        }
+        else
+        {
+            filter = NewPulseFilter(channel);
+            records = PulseArray(observed, ref filter, ref wide, out kept);
+        }
+
+        WarnFiltered(channel, observed.Length, kept, filter);
+        return records;
+    }
+
+    /// <summary>As <see cref="PulseRecords"/>, into an array of <see cref="PulseRecord"/>, for
+    /// observations whose values do not all fit the packed form.</summary>
+    private static PulseRecord[] PulseArray(ReadOnlySpan<PulseMicros> observed, ref PulseFilter filter, ref WideBrackets wide, out int kept)
+    {
+        PulseRecord[] records = GC.AllocateUninitializedArray<PulseRecord>(observed.Length);
+        kept = 0;
         foreach (ref readonly PulseMicros p in observed)
         {
             if (filter.Keep(p))
             {
-                records[kept++] = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
+                var record = new PulseRecord(p.Count, LogUnits.Seconds(p.LoMicros), LogUnits.Seconds(p.HiMicros));
+                wide.Count(p.LoMicros, p.HiMicros);
+                records[kept++] = record;
             }
         }
 
@@ -224,6 +282,14 @@ internal sealed class RunBuilder
             Array.Resize(ref records, kept);
         }
 
+        return records;
+    }
+
+    private PulseFilter NewPulseFilter(int channel) =>
+        new(MaxCount(channel), InputLimits.MaxPlausibleSpeedMps / 1e6 / MetresPerPulse(channel), earliestMicros, latestMicros);
+
+    private void WarnFiltered(int channel, int observed, int kept, in PulseFilter filter)
+    {
         int outOfBounds = filter.OutOfBounds;
         int tooFast = filter.TooFast;
         if (outOfBounds > 0)
@@ -236,13 +302,40 @@ internal sealed class RunBuilder
             Warn(Invariant($"{tooFast} pulse observation(s) of channel {channel} counted faster than {InputLimits.MaxPlausibleSpeedMps} m/s since the one before and were dropped"));
         }
 
-        int dropped = observed.Length - kept - outOfBounds - tooFast;
+        int dropped = observed - kept - outOfBounds - tooFast;
         if (dropped > 0)
         {
             Warn(Invariant($"{dropped} pulse observation(s) of channel {channel} repeated or went back on an earlier count and were dropped"));
         }
+    }
 
-        return records;
+    /// <summary>Brackets wider than the configured limit: how many and the widest, seconds.</summary>
+    /// <remarks>A bracket is wide when its width in seconds (each end turned into seconds, as
+    /// its <see cref="PulseRecord"/> holds it) exceeds the limit. One whole microsecond narrower
+    /// than the limit is far more than that rounding, so only brackets at least as wide as the
+    /// limit in µs are turned into seconds.</remarks>
+    private struct WideBrackets(long limitMicros)
+    {
+        public readonly double LimitS = LogUnits.Seconds(limitMicros);
+
+        public int Wide;
+
+        public double Widest;
+
+        public void Count(long loMicros, long hiMicros)
+        {
+            if (hiMicros - loMicros < limitMicros || !(LimitS > 0))
+            {
+                return;
+            }
+
+            double widthS = LogUnits.Seconds(hiMicros) - LogUnits.Seconds(loMicros);
+            if (widthS > LimitS)
+            {
+                Wide++;
+                Widest = Math.Max(Widest, widthS);
+            }
+        }
     }
 
     /// <summary>The distance per pulse of a channel, m.</summary>
@@ -299,33 +392,11 @@ internal sealed class RunBuilder
         }
     }
 
-    private void WarnWideBrackets(PulseRecord[] channel0, PulseRecord[] channel1, double limitS)
+    private void WarnWideBrackets(in WideBrackets wide)
     {
-        if (!(limitS > 0))
+        if (wide.Wide > 0)
         {
-            return;
-        }
-
-        int wide = 0;
-        double widest = 0;
-        CountWide(channel0, limitS, ref wide, ref widest);
-        CountWide(channel1, limitS, ref wide, ref widest);
-        if (wide > 0)
-        {
-            Warn(Invariant($"{wide} pulse observation(s) have brackets wider than the {limitS * 1000:0.###} ms limit (widest {widest * 1000:0.###} ms): edge times are uncertain there"));
-        }
-    }
-
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void CountWide(ReadOnlySpan<PulseRecord> records, double limitS, ref int wide, ref double widest)
-    {
-        foreach (ref readonly PulseRecord p in records)
-        {
-            if (p.WidthS > limitS)
-            {
-                wide++;
-                widest = Math.Max(widest, p.WidthS);
-            }
+            Warn(Invariant($"{wide.Wide} pulse observation(s) have brackets wider than the {wide.LimitS * 1000:0.###} ms limit (widest {wide.Widest * 1000:0.###} ms): edge times are uncertain there"));
         }
     }
 
@@ -379,88 +450,147 @@ internal sealed class RunBuilder
             }
         }
 
-        // Every element is written before the arrays are seen (they are cut to the samples
-        // kept), so the allocator need not clear them first.
-        int n = AccelSampleCount;
-        double[] time = GC.AllocateUninitializedArray<double>(n);
-        long[] index = GC.AllocateUninitializedArray<long>(n);
-        double[] forward = GC.AllocateUninitializedArray<double>(n);
-        double[] lateral = GC.AllocateUninitializedArray<double>(n);
-        double[] vertical = GC.AllocateUninitializedArray<double>(n);
-        int kept = FillSamples(frames, clock, axes, time, index, forward, lateral, vertical);
-        if (kept < n)
+        PackedAccelSamples packed = PackSamples(frames, clock, axes);
+        if (packed.Count < AccelSampleCount)
         {
-            Warn(Invariant($"{n - kept} accelerometer sample(s) repeated or out of order were dropped"));
-            Array.Resize(ref time, kept);
-            Array.Resize(ref index, kept);
-            Array.Resize(ref forward, kept);
-            Array.Resize(ref lateral, kept);
-            Array.Resize(ref vertical, kept);
+            Warn(Invariant($"{AccelSampleCount - packed.Count} accelerometer sample(s) repeated or out of order were dropped"));
         }
 
-        return new AccelSeries
+        return new AccelSeries(packed)
         {
-            TimeS = time,
-            ForwardMps2 = forward,
-            LateralMps2 = lateral,
-            VerticalMps2 = vertical,
             HasAllAxes = true,
             SamplePeriodS = clock.PeriodS,
             SamplePeriodUncertaintyS = clock.PeriodSigmaS,
-            SampleIndex = index,
             Axes = axes,
         };
     }
 
-    /// <summary>Times each sample on the clock and turns it into the car's axes in m/s²,
-    /// skipping samples whose index or time does not move forward; returns how many were kept.</summary>
+    /// <summary>Keeps the samples whose index and time move forward and lie within the run's
+    /// bounds, as written (6 bytes each), with the stretches of unbroken numbering they form.</summary>
+    /// <remarks>Times are computed as <see cref="SampleClock.TimeOf"/> does, with the segment's
+    /// origin looked up once per frame; kept samples are copied a stretch at a time.</remarks>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private int FillSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes, Span<double> time, Span<long> index, Span<double> forward, Span<double> lateral, Span<double> vertical)
+    private PackedAccelSamples PackSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes)
     {
         ReadOnlySpan<byte> samples = scratch.AccelSamples.Span;
         ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
-        ReadOnlySpan<double> mps2 = LogUnits.SampleMps2;
-        double forwardSign = axes.ForwardSign;
-        double lateralSign = axes.LateralSign;
-        double verticalSign = axes.VerticalSign;
-        int forwardAt = 2 * axes.ForwardAxis;
-        int lateralAt = 2 * axes.LateralAxis;
-        int verticalAt = 2 * axes.VerticalAxis;
+        var stretches = new StretchList(frames.Length);
+        byte[] kept = GC.AllocateUninitializedArray<byte>(samples.Length);
         double periodS = clock.PeriodS;
         double earliestS = LogUnits.Seconds(earliestMicros);
         double latestS = LogUnits.Seconds(latestMicros);
-        int kept = 0;
+        int keptCount = 0;
         long lastIndex = long.MinValue;
         double lastTime = double.NegativeInfinity;
         for (int f = 0; f < frames.Length; f++)
         {
             RunScratch.AccelFrame frame = frames[f];
             double originS = clock.OriginS(bursts[burstOfFrame[f]].Segment);
-            ReadOnlySpan<byte> bytes = samples.Slice(frame.Offset * AccelerationBody.BytesPerSample, frame.Count * AccelerationBody.BytesPerSample);
+            if (WholeFrameKept(frame, originS, periodS, lastIndex, lastTime, earliestS, latestS, out double frameLastTime))
+            {
+                stretches.Add(keptCount, frame.FirstIndex, originS);
+                keptCount = Copy(samples, frame, 0, frame.Count, kept, keptCount);
+                lastIndex = frame.FirstIndex + frame.Count - 1;
+                lastTime = frameLastTime;
+                continue;
+            }
+
+            int runFrom = -1;
             for (int i = 0; i < frame.Count; i++)
             {
-                // As SampleClock.TimeOf, with the segment's origin looked up once per frame.
                 long sampleIndex = frame.FirstIndex + i;
                 double t = originS + (periodS * sampleIndex);
                 if (sampleIndex <= lastIndex || !(t > lastTime) || !(t >= earliestS && t <= latestS))
                 {
+                    if (runFrom >= 0)
+                    {
+                        keptCount = Copy(samples, frame, runFrom, i, kept, keptCount);
+                        runFrom = -1;
+                    }
+
                     continue;
                 }
 
-                ReadOnlySpan<byte> sample = bytes.Slice(i * AccelerationBody.BytesPerSample, AccelerationBody.BytesPerSample);
-                forward[kept] = forwardSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[forwardAt..]) - short.MinValue];
-                lateral[kept] = lateralSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[lateralAt..]) - short.MinValue];
-                vertical[kept] = verticalSign * mps2[BinaryPrimitives.ReadInt16LittleEndian(sample[verticalAt..]) - short.MinValue];
-                time[kept] = t;
-                index[kept] = sampleIndex;
-                kept++;
+                if (runFrom < 0)
+                {
+                    runFrom = i;
+                    stretches.Add(keptCount, sampleIndex, originS);
+                }
+
                 lastIndex = sampleIndex;
                 lastTime = t;
             }
+
+            if (runFrom >= 0)
+            {
+                keptCount = Copy(samples, frame, runFrom, frame.Count, kept, keptCount);
+            }
         }
 
-        return kept;
+        return new PackedAccelSamples(kept, keptCount, stretches.Starts(), stretches.FirstIndices(), stretches.Origins(), periodS, axes);
+
+        // True when the sample-by-sample test below would keep every sample of the frame: the
+        // first moves index and time forward, the first and last lie within the bounds, and
+        // the period is wider than the rounding of any two neighbouring times, so that times
+        // rise strictly from sample to sample (each time is origin + period × index, rounded
+        // twice; the rounding moves it by at most one unit in the last place of the product and
+        // of the sum, each below 2^-52 of their size).
+        static bool WholeFrameKept(in RunScratch.AccelFrame frame, double originS, double periodS, long lastIndex, double lastTime, double earliestS, double latestS, out double lastS)
+        {
+            long first = frame.FirstIndex;
+            long last = first + frame.Count - 1;
+            double firstS = originS + (periodS * first);
+            lastS = originS + (periodS * last);
+            double largest = Math.Max(Math.Abs(firstS), Math.Abs(lastS)) + (periodS * Math.Max(Math.Abs((double)first), Math.Abs((double)last)));
+            return frame.Count > 0 && first > lastIndex && firstS > lastTime && firstS >= earliestS && lastS <= latestS
+                && periodS > 0 && periodS > 4 * largest / (1L << 52);
+        }
+
+        static int Copy(ReadOnlySpan<byte> samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
+        {
+            const int size = AccelerationBody.BytesPerSample;
+            samples.Slice((frame.Offset + from) * size, (to - from) * size).CopyTo(into.AsSpan(at * size));
+            return at + to - from;
+        }
+    }
+
+    /// <summary>The stretches of kept samples with unbroken numbering: where each starts among
+    /// the kept samples, its first sample's index and its clock origin. A new stretch starts at
+    /// each frame (the next frame's numbering need not follow on).</summary>
+    private sealed class StretchList(int capacity)
+    {
+        private int[] starts = new int[Math.Max(capacity, 1)];
+        private long[] firstIndices = new long[Math.Max(capacity, 1)];
+        private double[] origins = new double[Math.Max(capacity, 1)];
+        private int count;
+
+        public void Add(int start, long firstIndex, double originS)
+        {
+            if (count > 0 && origins[count - 1] == originS && firstIndices[count - 1] + (start - starts[count - 1]) == firstIndex)
+            {
+                // Follows on from the last stretch on the same origin: one stretch.
+                return;
+            }
+
+            if (count == starts.Length)
+            {
+                Array.Resize(ref starts, 2 * count);
+                Array.Resize(ref firstIndices, 2 * count);
+                Array.Resize(ref origins, 2 * count);
+            }
+
+            starts[count] = start;
+            firstIndices[count] = firstIndex;
+            origins[count] = originS;
+            count++;
+        }
+
+        public int[] Starts() => starts[..count];
+
+        public long[] FirstIndices() => firstIndices[..count];
+
+        public double[] Origins() => origins[..count];
     }
 
     /// <summary>One reading per burst: consecutive frames that share a read time are parts of

@@ -89,6 +89,61 @@ public class StreamingVerbMemoryTests
     });
 
     [Fact]
+    public void ArchivedCardHoldsAFewRunsNotTheLog() => AssertBounded(
+        "card --archived",
+        (log, folder, runs) =>
+        {
+            // The filed run is the log's first; its card reads the whole stored log again for
+            // the session's grip bound (the other copies are known copies of the same box run).
+            string page = Path.Combine(folder, $"archived{runs}.html");
+            ExitCode code = CardCommand.Run(new ReportRequest(), null, 1, ArchiveOf(log), null, new FileInfo(page), DisplayUnits.Metric, TextWriter.Null, TextWriter.Null);
+            return () =>
+            {
+                Assert.Equal(ExitCode.Ok, code);
+                Assert.Equal(1, CountOf(File.ReadAllText(page), "<article class=\"card\""));
+            };
+        },
+        FileInArchive);
+
+    [Fact]
+    public void ReanalysisReadsTheStoredLogInBlocks()
+    {
+        // The same three runs filed twice, once followed by 48 MB the reader skips as damage:
+        // re-analysing holds no more for the longer log than a block of it, where holding the
+        // stored bytes whole would add all 48 MB.
+        const int fillerBytes = 48 * 1024 * 1024;
+        using var folder = new TempFolder();
+        string plain = Season(folder, Short);
+        string padded = folder.File("padded.log");
+        using (FileStream file = File.Create(padded))
+        {
+            file.Write(File.ReadAllBytes(plain));
+            byte[] filler = new byte[1024 * 1024];
+            Array.Fill(filler, (byte)0x55);
+            for (int written = 0; written < fillerBytes; written += filler.Length)
+            {
+                file.Write(filler);
+            }
+        }
+
+        FileInArchive(plain);
+        FileInArchive(padded);
+        long[] peaks = new long[2];
+        string[] logs = [plain, padded];
+        for (int pass = 0; pass < 3; pass++)
+        {
+            for (int i = 0; i < logs.Length; i++)
+            {
+                (ExitCode code, long peak) = VerbMemoryCollection.PeakLiveDuring(() => ReanalyseCommand.Run(ArchiveOf(logs[i]), all: true, json: false, TextWriter.Null, TextWriter.Null));
+                Assert.True(code is ExitCode.Ok or ExitCode.Partial, $"reanalyse exited {code}");
+                peaks[i] = pass == 0 ? 0 : Math.Max(peaks[i], peak);
+            }
+        }
+
+        Assert.True(peaks[1] - peaks[0] < fillerBytes / 4, $"reanalyse peaked at {peaks[1]:N0} bytes live with {fillerBytes:N0} bytes of damage after the runs and at {peaks[0]:N0} without");
+    }
+
+    [Fact]
     public void TheBoundCatchesAVerbThatKeepsEveryRun()
     {
         // The check can fail: the whole-session analysis, which keeps every run's analysis, grows
@@ -103,9 +158,9 @@ public class StreamingVerbMemoryTests
 
     private static long Allowed => (long)(GrowthInRuns * OneRun.Value);
 
-    private static void AssertBounded(string verb, Func<string, string, int, Action> run)
+    private static void AssertBounded(string verb, Func<string, string, int, Action> run, Action<string>? prepare = null)
     {
-        (long shortPeak, long longPeak) = Peaks(run);
+        (long shortPeak, long longPeak) = Peaks(run, prepare);
         Assert.True(OneRun.Value > 1_000_000, $"one run read and analysed should be sizeable ({OneRun.Value:N0} bytes)");
         Assert.True(
             longPeak - shortPeak < Allowed,
@@ -116,12 +171,15 @@ public class StreamingVerbMemoryTests
     /// passes) and on the long log, after a first pass on the short log, so that what the verb
     /// sets up once is there in all.
     /// <paramref name="run"/> runs the verb and returns the checks of its output, made after the
-    /// measurement (reading a long output back would count against the verb).</summary>
-    private static (long Short, long Long) Peaks(Func<string, string, int, Action> run)
+    /// measurement (reading a long output back would count against the verb).
+    /// <paramref name="prepare"/>, when given, is done to each log before anything is measured.</summary>
+    private static (long Short, long Long) Peaks(Func<string, string, int, Action> run, Action<string>? prepare = null)
     {
         using var folder = new TempFolder();
         string shortLog = Season(folder, Short);
         string longLog = Season(folder, Long);
+        prepare?.Invoke(shortLog);
+        prepare?.Invoke(longLog);
         run(shortLog, Path.Combine(folder.Path, "warm"), Short)();
         long shortPeak = 0;
         foreach (string pass in new[] { "first", "second" })
@@ -134,6 +192,16 @@ public class StreamingVerbMemoryTests
         (Action checkLong, long longPeak) = VerbMemoryCollection.PeakLiveDuring(() => run(longLog, folder.Path, Long));
         checkLong();
         return (shortPeak, longPeak);
+    }
+
+    /// <summary>The archive a log is filed in by <see cref="FileInArchive"/>.</summary>
+    private static string ArchiveOf(string log) => log + ".db";
+
+    /// <summary>Files a log in an archive of its own (<see cref="ArchiveOf"/>).</summary>
+    private static void FileInArchive(string log)
+    {
+        ExitCode code = ImportCommand.Run(ArchiveOf(log), [log], RunAssignment.None, json: false, TextWriter.Null, TextWriter.Null);
+        Assert.True(code is ExitCode.Ok or ExitCode.Partial, $"import exited {code}");
     }
 
     /// <summary>A season-like log: one simulated run's bytes repeated (each copy is a power-up of its own).</summary>
