@@ -11,12 +11,14 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// first motion, read on the accelerometer's axis, is off by as much.</para>
 /// <para>Model, over the launch window (τ = t − t_s from a moment at rest before the onset):
 /// <code>
-/// N_i·m = φ + D(t_i + δ)·(1 + s) − b·τ_i²/2 + e_i
-///       ≈ φ + D(t_i) + δ·V(t_i) + s·D(t_i) − b·τ_i²/2 + e_i
+/// N_i·m = φ + D(t_i + δ)·(1 + s) − b·τ_i²/2 + G·∫(V/30)²·V dt + e_i
+///       ≈ φ + D(t_i) + (δ + ρ·(t_i − t_onset))·V(t_i) + s·D(t_i) − b·τ_i²/2 + G·∫(V/30)²·V dt + e_i
 /// </code>
 /// with D and V the accelerometer's input integrated twice and once from t_s on its own axis,
-/// φ the tooth phase, s a scale error (circumference, accelerometer scale), b a bias, δ the
-/// offset (accelerometer time = pulse time + δ). The errors are those of the fusion: the input's
+/// φ the tooth phase, s a scale error (circumference, accelerometer scale), b a bias, G the tyre's
+/// growth at 30 m/s (it grows with the square of speed, so over a long window it is not a scale),
+/// δ the offset at the onset (accelerometer time = pulse time + δ) and ρ the clocks' rate
+/// difference, held by its prior. The errors are those of the fusion: the input's
 /// noise density q integrated twice (a random walk of speed, so
 /// Cov(e_i, e_j) = q·(m²·M/2 − m³/6), m and M the smaller and larger τ) plus each edge's
 /// placement (V·σ_t)² and the tooth spacing's spread. Generalised least squares
@@ -27,6 +29,11 @@ internal static class AccelClockFit
 {
     /// <summary>Most pulse observations used (evenly spread over the window): the covariance is dense.</summary>
     public const int MaxPoints = 240;
+
+    private const int Columns = 6;
+
+    /// <summary>Speed at which the tyre's growth coefficient is stated, m/s.</summary>
+    private const double GrowthReferenceMps = 30;
 
     /// <summary>Fits δ, seconds (accelerometer time − pulse time), or null when the window holds
     /// too few pulses.</summary>
@@ -53,11 +60,13 @@ internal static class AccelClockFit
         // Speed and distance integrated on the accelerometer's axis (trapezoid rule).
         var speed = new double[n];
         var distance = new double[n];
+        var growth = new double[n];
         for (int j = start + 1; j < n; j++)
         {
             double dt = timeS[j] - timeS[j - 1];
             speed[j] = speed[j - 1] + (0.5 * dt * (input[j - 1] + input[j]));
             distance[j] = distance[j - 1] + (0.5 * dt * (speed[j - 1] + speed[j]));
+            growth[j] = growth[j - 1] + (0.5 * dt * ((speed[j - 1] * speed[j - 1] * speed[j - 1]) + (speed[j] * speed[j] * speed[j])));
         }
 
         var chosen = new List<int>();
@@ -76,7 +85,7 @@ internal static class AccelClockFit
         }
 
         int m = Math.Min(chosen.Count, MaxPoints);
-        var x = Matrix<double>.Build.Dense(m, 5);
+        var x = Matrix<double>.Build.Dense(m, Columns);
         var y = Vector<double>.Build.Dense(m);
         var c = Matrix<double>.Build.Dense(m, m);
         var tau = new double[m];
@@ -97,6 +106,7 @@ internal static class AccelClockFit
             x[r, 2] = d;
             x[r, 3] = -0.5 * tau[r] * tau[r];
             x[r, 4] = v * (t - onsetS);
+            x[r, 5] = (growth[k - 1] + (w * (growth[k] - growth[k - 1]))) / (GrowthReferenceMps * GrowthReferenceMps);
             double edge = v * pulses.EdgeSigmaS(i);
             c[r, r] = (edge * edge) + (toothSigmaM * toothSigmaM);
         }
@@ -127,7 +137,7 @@ internal static class AccelClockFit
             Vector<double> theta = covariance * x.TransposeThisAndMultiply(cy);
             Vector<double> residual = y - (x * theta);
             double chi2 = residual.DotProduct(cholesky.Solve(residual));
-            double inflate = Math.Max(1, Math.Sqrt(chi2 / Math.Max(m - 5, 1)));
+            double inflate = Math.Max(1, Math.Sqrt(chi2 / Math.Max(m - Columns, 1)));
             double sigma = Math.Sqrt(Math.Max(covariance[1, 1], 0)) * inflate;
             return double.IsFinite(theta[1]) && double.IsFinite(sigma) && sigma > 0 ? new Estimate(theta[1], sigma) : null;
         }

@@ -39,6 +39,24 @@ public class AccelClockFitTests
         Assert.True(f.Sigma < 1e-3, $"σ {f.Sigma * 1e3:F3} ms");
     }
 
+    [Theory]
+    [InlineData(-6e-3, 7)]
+    [InlineData(5e-3, 8)]
+    public void An_uncalibrated_tyre_that_grows_with_speed_does_not_move_the_offset(double offsetS, int seed)
+    {
+        // The pulses count a circumference 1.5 % short and a tyre growing by 0.4 % at 30 m/s
+        // (with the square of speed): counted = (1 + s)·(d + G·∫(v/30)²·v dt), v³ integrated in
+        // closed form over each constant-acceleration stretch, ((v₀ + aτ)⁴ − v₀⁴)/(4a).
+        (double[] time, double[] input, PulseChannel pulses) = Launch(offsetS, seed, biasMps2: 0.02, scale: -0.015, growthAt30Mps: 0.004);
+
+        Estimate? fit = AccelClockFit.Fit(time, input, StartS + offsetS - 0.3, StartS + offsetS, StartS + 6, pulses, MetresPerPulse, 1e-4, NoiseMps2 * NoiseMps2 / RateHz, 58e-6);
+
+        Assert.NotNull(fit);
+        Estimate f = fit.Value;
+        Assert.True(Math.Abs(f.Value - offsetS) <= 3 * f.Sigma, $"δ {f.Value * 1e3:F3} ms ± {f.Sigma * 1e3:F3}, truth {offsetS * 1e3:F3}");
+        Assert.True(f.Sigma < 1e-3, $"σ {f.Sigma * 1e3:F3} ms");
+    }
+
     [Fact]
     public void Too_few_pulses_in_the_window_give_no_estimate()
     {
@@ -78,14 +96,30 @@ public class AccelClockFitTests
         return d;
     }
 
-    private static double TimeAt(double distance)
+    private static double CubeIntegral(double tau)
+    {
+        double v = 0;
+        double sum = 0;
+        for (int j = 0; j < SegmentStartS.Length && tau > SegmentStartS[j]; j++)
+        {
+            double end = j + 1 < SegmentStartS.Length ? Math.Min(tau, SegmentStartS[j + 1]) : tau;
+            double a = SegmentAccelMps2[j];
+            double v1 = v + (a * (end - SegmentStartS[j]));
+            sum += ((v1 * v1 * v1 * v1) - (v * v * v * v)) / (4 * a);
+            v = v1;
+        }
+
+        return sum;
+    }
+
+    private static double TimeAt(double distance, double scale, double growthAt30Mps)
     {
         double lo = 0;
         double hi = 10;
         for (int i = 0; i < 100; i++)
         {
             double mid = 0.5 * (lo + hi);
-            if (Distance(mid) < distance)
+            if ((1 + scale) * (Distance(mid) + (growthAt30Mps / 900 * CubeIntegral(mid))) < distance)
             {
                 lo = mid;
             }
@@ -98,7 +132,7 @@ public class AccelClockFitTests
         return 0.5 * (lo + hi);
     }
 
-    private static (double[] Time, double[] Input, PulseChannel Pulses) Launch(double offsetS, int seed, double biasMps2)
+    private static (double[] Time, double[] Input, PulseChannel Pulses) Launch(double offsetS, int seed, double biasMps2, double scale = 0, double growthAt30Mps = 0)
     {
         var random = new Random(seed);
         int n = (int)(7 * RateHz);
@@ -121,7 +155,7 @@ public class AccelClockFitTests
         for (long k = 1; ; k++)
         {
             double distance = ((k - 1) * MetresPerPulse) + phase;
-            double t = StartS + TimeAt(distance);
+            double t = StartS + TimeAt(distance, scale, growthAt30Mps);
             if (t > StartS + 6)
             {
                 break;
