@@ -36,6 +36,20 @@ public class BenchAccuracyCommandTests
     }
 
     [Fact]
+    public void Naming_a_group_decodes_and_prints_only_that_group()
+    {
+        var output = new StringWriter();
+        ExitCode code = BenchAccuracyCommand.Run(8, 2, list: true, calibratedTyre: true, output, new StringWriter(), groups: [LaunchLogger.Cli.Bench.BenchGroup.GeneratedStanding]);
+
+        string text = output.ToString();
+        Assert.Equal(ExitCode.Ok, code);
+        Assert.Contains("only the groups GeneratedStanding", text);
+        Assert.Contains("Generated (independent truth), standing starts", text);
+        Assert.DoesNotContain("Generated, records that open moving", text);
+        Assert.DoesNotContain("Simulated, accelerometer", text);
+    }
+
+    [Fact]
     public void Fewer_than_two_runs_is_a_usage_error()
     {
         var error = new StringWriter();

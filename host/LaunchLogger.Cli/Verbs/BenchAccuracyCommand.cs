@@ -16,13 +16,14 @@ public static class BenchAccuracyCommand
         var seed = new Option<int>("--seed") { Description = "Seed for the variations and the sensors' noise.", DefaultValueFactory = _ => 1 };
         var list = new Option<bool>("--list") { Description = "Also print every run's errors." };
         var calibrated = new Option<bool>("--calibrated-tyre") { Description = "Take the tyre as calibrated at speed (true rolling circumference, no growth); by default the box is told the static circumference and the tyre grows with speed." };
-        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated };
-        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel)));
+        var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
+        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, only };
+        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only))));
         return command;
     }
 
     /// <summary>Runs the benchmark.</summary>
-    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default)
+    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null)
     {
         if (runs < 2 || runs > 100_000)
         {
@@ -31,8 +32,9 @@ public static class BenchAccuracyCommand
         }
 
         int simulatedRuns = runs / 2;
-        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre);
-        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre);
+        bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
+        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre).Where(c => Wanted(c.Group)).ToList();
+        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre).Where(c => Wanted(c.Group)).ToList();
         var started = System.Diagnostics.Stopwatch.StartNew();
         List<CaseOutcome> all;
         try
@@ -48,6 +50,11 @@ public static class BenchAccuracyCommand
 
         string tyre = calibratedTyre ? "tyre taken as calibrated at speed" : "tyre NOT calibrated (static circumference told, grows with speed)";
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records, seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
+        if (groups is { Count: > 0 })
+        {
+            output.WriteLine($"only the groups {string.Join(", ", groups)}: {simulated.Count + generated.Count} of those runs decoded");
+        }
+
         output.WriteLine("naive = first pulse as the start, speed from pulses counted over a sliding 0.1 s window, crossings interpolated linearly (same figure code)");
         foreach (CaseOutcome failed in all.Where(o => o.Failure != null))
         {
@@ -55,7 +62,7 @@ public static class BenchAccuracyCommand
         }
 
         List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
-        foreach (BenchGroup group in Enum.GetValues<BenchGroup>())
+        foreach (BenchGroup group in Enum.GetValues<BenchGroup>().Where(Wanted))
         {
             WriteGroup(group, decoded.Where(o => o.Group == group).ToList(), all.Count(o => o.Group == group && !o.RunsAsExpected), calibratedTyre, output);
         }
@@ -182,7 +189,7 @@ public static class BenchAccuracyCommand
     private static void WriteList(List<CaseOutcome> all, TextWriter output)
     {
         output.WriteLine();
-        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m):");
+        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m; ours beyond ±2σ shows its error in σ):");
         foreach (CaseOutcome o in all)
         {
             var cells = new List<string>();
@@ -194,7 +201,8 @@ public static class BenchAccuracyCommand
                 }
 
                 double scale = BenchFigure.All[m].Scale;
-                cells.Add(Text($"{o.Ours[m] * scale:+0.00;-0.00;0}/{o.Naive[m] * scale:+0.0;-0.0;0}"));
+                string miss = o.Ours[m] is { } e && o.OurSigmas[m] is { } sd && sd > 0 && Math.Abs(e / sd) > 2 ? Text($"({e / sd:+0.0;-0.0}σ)") : "";
+                cells.Add(Text($"{o.Ours[m] * scale:+0.00;-0.00;0}{miss}/{o.Naive[m] * scale:+0.0;-0.0;0}"));
             }
 
             output.WriteLine($"  {o.Index,4} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");

@@ -28,7 +28,7 @@ internal enum OnsetShape
 /// rise has reached a quarter of its early height, with t₀ on a grid of a quarter sample. The shape is
 /// chosen by the Bayesian information criterion; the σ of t₀ is the half-width of the profile
 /// where the residual sum of squares stays within one noise variance of its minimum, widened by
-/// the spread of the shapes that fit almost as well.</summary>
+/// the other shapes' onsets weighted by their odds.</summary>
 /// <remarks>Change-point estimation by least squares with a profile over the change time:
 /// D. V. Hinkley (1970), "Inference about the change-point in a sequence of random variables",
 /// Biometrika 57(1); segmented regression with a continuous join: D. J. Hudson (1966), "Fitting
@@ -159,21 +159,30 @@ internal static class AccelOnsetFit
         double rise = noiseVar * correlation * correlation * scale;
         Fine best = Refine(t, y, start, end, total, first, period, coarse[bestShape], bestShape, rise);
 
-        // Shapes that fit almost as well widen the answer by their spread.
-        double spread = 0;
+        // The other shapes widen the answer by their onsets' second moment about the chosen one,
+        // each weighted by its posterior odds exp(−ΔBIC/2) (Schwarz's approximation; model
+        // averaging as in Hoeting et al. 1999, "Bayesian model averaging: a tutorial", Statist.
+        // Sci. 14(4)): a shape the data all but rule out adds nothing, one nearly as good adds
+        // its whole distance.
+        double weightSum = 1;
+        double moment = 0;
         for (int m = 0; m < Shapes; m++)
         {
-            if (m != bestShape && bic[m] <= bic[bestShape] + 2)
+            double odds = m == bestShape ? 0 : Math.Exp(-0.5 * (bic[m] - bic[bestShape]));
+            if (odds > 1e-4)
             {
                 Fine other = Refine(t, y, start, end, total, first, period, coarse[m], m, rise);
-                spread = Math.Max(spread, Math.Abs(other.TimeS - best.TimeS));
+                weightSum += odds;
+                moment += odds * (other.TimeS - best.TimeS) * (other.TimeS - best.TimeS);
             }
         }
+
+        double spreadSquared = moment / weightSum;
 
         // What lies below the noise cannot be seen: the longer the fitted onset stays under the
         // detection level, the more the unseen part of its shape matters.
         double hidden = 0.25 * Math.Max(0, tCross - best.TimeS);
-        double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + (0.25 * spread * spread) + (hidden * hidden) + (period * period / 192));
+        double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + spreadSquared + (hidden * hidden) + (period * period / 192));
         return new AccelOnset(best.TimeS, sigmaT, (OnsetShape)bestShape, tCross);
     }
 

@@ -22,7 +22,19 @@ internal sealed class ForwardAcceleration
     /// <summary>Mean vertical reading at rest, m/s² (0 without a vertical axis).</summary>
     public double RestVerticalMps2 { get; private set; }
 
-    public double[] TimeS { get; }
+    public double[] TimeS { get; private set; }
+
+    /// <summary>Moves the time axis by <paramref name="shiftS"/> (a copy: the run's own samples stay as read).</summary>
+    public void ShiftTime(double shiftS)
+    {
+        var moved = new double[TimeS.Length];
+        for (int i = 0; i < moved.Length; i++)
+        {
+            moved[i] = TimeS[i] + shiftS;
+        }
+
+        TimeS = moved;
+    }
 
     /// <summary>Forward specific force as read, m/s².</summary>
     public double[] ForwardMps2 { get; }

@@ -18,6 +18,14 @@ internal sealed partial class ReconstructionPass
         }
     }
 
+    /// <summary>Noise density of the accelerometer's input from <paramref name="startS"/> on, m²/s³:
+    /// the moving noise per sample and what the model misses.</summary>
+    private double InputDensity(ForwardAcceleration a, double startS)
+    {
+        double noise = options.AccelNoiseMps2 ?? a.MovingNoise(a.IndexAtOrAfter(startS), a.Count);
+        return (noise * noise * a.PeriodS * a.CorrelationFactor * a.CorrelationFactor) + options.AccelModelNoiseDensity;
+    }
+
     private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, List<TimeWindow> braking, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
@@ -28,8 +36,7 @@ internal sealed partial class ReconstructionPass
         if (withAccel)
         {
             ForwardAcceleration a = accel!;
-            double noise = options.AccelNoiseMps2 ?? a.MovingNoise(a.IndexAtOrAfter(startS), a.Count);
-            inputDensity = (noise * noise * a.PeriodS * a.CorrelationFactor * a.CorrelationFactor) + options.AccelModelNoiseDensity;
+            inputDensity = InputDensity(a, startS);
             thirdSigma = Math.Sqrt((a.RestLevelSigmaMps2 * a.RestLevelSigmaMps2) + (options.BiasPriorMps2 * options.BiasPriorMps2));
         }
         else

@@ -90,9 +90,67 @@ internal sealed partial class ReconstructionPass
     /// error (<see cref="ReconstructionOptions.TextAccelClockRateSigma"/>) times the time since the
     /// record's first sample; 0 for logs.</summary>
     private double TimeAxisOffsetSigma(double timeS) =>
-        run.Accel is { SampleIndex: null } samples && samples.Count > 0
+        accelClockOffsetSigmaS ?? (run.Accel is { SampleIndex: null } samples && samples.Count > 0
             ? options.TextAccelClockRateSigma * Math.Max(0, timeS - (samples.ClockOriginS ?? samples.TimeS[0]))
-            : 0;
+            : 0);
+
+    /// <summary>How long after the onset the accelerometer's clock is matched to the pulses', s.</summary>
+    private const double ClockFitWindowS = 15.0;
+
+    /// <summary>Mean deceleration over 0.1 s that ends the clock fit's window, m/s².</summary>
+    private const double ClockFitDecelerationMps2 = 0.5;
+
+    /// <summary>For an accelerometer timed by its own clock (a plain-text file), finds its offset
+    /// from the pulses' clock at the launch (<see cref="AccelClockFit"/>), combines it with the
+    /// prior the clock rate allows over the time since the first sample, and moves the samples'
+    /// time axis onto the pulses' clock; first motion then carries the combined σ instead.</summary>
+    private void AlignAccelerometerClock(ForwardAcceleration a)
+    {
+        if (pulses is null || !Staged || onset is not { } o)
+        {
+            return;
+        }
+
+        // Only when the clock can have slid by more than a sample's own placement (T/√12).
+        double prior = TimeAxisOffsetSigma(o.TimeS);
+        if (!(prior > a.PeriodS / Math.Sqrt(12)))
+        {
+            return;
+        }
+
+        // Drive only: braking pitches the body the other way and reads as another scale.
+        double endS = Math.Min(o.TimeS + ClockFitWindowS, a.TimeS[^1]);
+        int half = Math.Max(1, (int)Math.Round(0.05 / a.PeriodS));
+        for (int i = a.IndexAtOrAfter(o.TimeS + 0.5); i + half < a.Count && a.TimeS[i] < endS; i++)
+        {
+            double sum = 0;
+            for (int j = i - half; j <= i + half; j++)
+            {
+                sum += accelInput[j];
+            }
+
+            if (sum / ((2 * half) + 1) < -ClockFitDecelerationMps2)
+            {
+                endS = a.TimeS[i] - 0.2;
+                break;
+            }
+        }
+
+        if (AccelClockFit.Fit(a.TimeS, accelInput, o.TimeS - 0.3, o.TimeS, endS, pulses, mpp, options.ToothSpacingErrorFraction * mpp, InputDensity(a, o.TimeS), options.TextAccelClockRateSigma) is not { } fit)
+        {
+            return;
+        }
+
+        // Inverse-variance combination with the prior δ = 0 ± prior.
+        double wPrior = 1 / (prior * prior);
+        double wFit = 1 / (fit.Sigma * fit.Sigma);
+        double offset = wFit * fit.Value / (wPrior + wFit);
+        double sigma = Math.Sqrt(1 / (wPrior + wFit));
+        a.ShiftTime(-offset);
+        onset = o with { TimeS = o.TimeS - offset, DetectedS = o.DetectedS - offset };
+        accelClockOffsetSigmaS = sigma;
+        warnings.Add(FormattableString.Invariant($"the accelerometer's clock was matched to the pulses' over the launch: its samples moved by {-offset * 1e3:F1} ms ± {sigma * 1e3:F1}"));
+    }
 
     /// <summary>Below this speed a record counts as opening at rest, m/s.</summary>
     private const double CrawlMps = 0.3;

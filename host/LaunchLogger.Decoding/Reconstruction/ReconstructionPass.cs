@@ -27,6 +27,7 @@ internal sealed partial class ReconstructionPass
     private double pitchRad;
     private double pitchSigmaRad;
     private AccelOnset? onset;
+    private double? accelClockOffsetSigmaS;
     private KinematicStart? kinematic;
 
     public ReconstructionPass(DecodedRun run, ReconstructionOptions options)
@@ -96,6 +97,7 @@ internal sealed partial class ReconstructionPass
         if (accel != null)
         {
             PrepareAccelerometer(accel);
+            AlignAccelerometerClock(accel);
             if (pulses is null && staged && AccelOpeningSpeed() is { } v0)
             {
                 staged = false;

@@ -1,0 +1,150 @@
+using MathNet.Numerics.LinearAlgebra;
+
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>How far an accelerometer's time axis sits from the pulses' over a launch, found from
+/// the data: the accelerometer's double integral matched to the distances the pulses count.</summary>
+/// <remarks>
+/// <para>A plain-text accelerometer file gives sample times on the sensor's own clock (often a
+/// nominal rate from its first sample), which runs a little fast or slow against the clock that
+/// timed the pulses; after a long idle the two axes stand milliseconds apart at the launch, and
+/// first motion, read on the accelerometer's axis, is off by as much.</para>
+/// <para>Model, over the launch window (τ = t − t_s from a moment at rest before the onset):
+/// <code>
+/// N_i·m = φ + D(t_i + δ)·(1 + s) − b·τ_i²/2 + G·∫(V/30)²·V dt + e_i
+///       ≈ φ + D(t_i) + (δ + ρ·(t_i − t_onset))·V(t_i) + s·D(t_i) − b·τ_i²/2 + G·∫(V/30)²·V dt + e_i
+/// </code>
+/// with D and V the accelerometer's input integrated twice and once from t_s on its own axis,
+/// φ the tooth phase, s a scale error (circumference, accelerometer scale), b a bias, G the tyre's
+/// growth at 30 m/s (it grows with the square of speed, so over a long window it is not a scale),
+/// δ the offset at the onset (accelerometer time = pulse time + δ) and ρ the clocks' rate
+/// difference, held by its prior. The errors are those of the fusion: the input's
+/// noise density q integrated twice (a random walk of speed, so
+/// Cov(e_i, e_j) = q·(m²·M/2 − m³/6), m and M the smaller and larger τ) plus each edge's
+/// placement (V·σ_t)² and the tooth spacing's spread. Generalised least squares
+/// (Aitken 1935; any regression text, e.g. Kariya &amp; Kurata, "Generalized Least Squares", ch. 2)
+/// gives δ and its σ, widened by √(χ²/dof) when the residuals say the errors are larger.</para>
+/// </remarks>
+internal static class AccelClockFit
+{
+    /// <summary>Most pulse observations used (evenly spread over the window): the covariance is dense.</summary>
+    public const int MaxPoints = 240;
+
+    private const int Columns = 6;
+
+    /// <summary>Speed at which the tyre's growth coefficient is stated, m/s.</summary>
+    private const double GrowthReferenceMps = 30;
+
+    /// <summary>Fits δ, seconds (accelerometer time − pulse time), or null when the window holds
+    /// too few pulses.</summary>
+    /// <param name="timeS">Sample times on the accelerometer's axis.</param>
+    /// <param name="input">Forward acceleration with the resting level removed, m/s².</param>
+    /// <param name="restS">A moment at rest before the onset, where integration starts.</param>
+    /// <param name="onsetS">The onset of motion, where δ is wanted (the clocks' rate difference
+    /// lets δ drift along the window: δ + ρ·(t − onset)).</param>
+    /// <param name="endS">End of the window (drive only), on the pulses' axis.</param>
+    /// <param name="pulses">The pulse observations.</param>
+    /// <param name="metresPerPulse">Distance per pulse, m.</param>
+    /// <param name="toothSigmaM">σ of a tooth's position, m.</param>
+    /// <param name="inputDensity">Noise density of the input, m²/s³.</param>
+    /// <param name="rateSigma">Prior σ of the clocks' rate difference ρ (a pseudo-observation ρ = 0).</param>
+    public static Estimate? Fit(double[] timeS, double[] input, double restS, double onsetS, double endS, PulseChannel pulses, double metresPerPulse, double toothSigmaM, double inputDensity, double rateSigma)
+    {
+        int start = Math.Max(0, Array.BinarySearch(timeS, restS) is int f && f >= 0 ? f : ~f);
+        int n = timeS.Length;
+        if (n - start < 8 || endS <= restS)
+        {
+            return null;
+        }
+
+        // Speed and distance integrated on the accelerometer's axis (trapezoid rule).
+        var speed = new double[n];
+        var distance = new double[n];
+        var growth = new double[n];
+        for (int j = start + 1; j < n; j++)
+        {
+            double dt = timeS[j] - timeS[j - 1];
+            speed[j] = speed[j - 1] + (0.5 * dt * (input[j - 1] + input[j]));
+            distance[j] = distance[j - 1] + (0.5 * dt * (speed[j - 1] + speed[j]));
+            growth[j] = growth[j - 1] + (0.5 * dt * ((speed[j - 1] * speed[j - 1] * speed[j - 1]) + (speed[j] * speed[j] * speed[j])));
+        }
+
+        var chosen = new List<int>();
+        for (int i = 0; i < pulses.Length; i++)
+        {
+            double t = pulses.EdgeS(i);
+            if (t > restS && t <= endS && t < timeS[^1])
+            {
+                chosen.Add(i);
+            }
+        }
+
+        if (chosen.Count < 8)
+        {
+            return null;
+        }
+
+        int m = Math.Min(chosen.Count, MaxPoints);
+        var x = Matrix<double>.Build.Dense(m, Columns);
+        var y = Vector<double>.Build.Dense(m);
+        var c = Matrix<double>.Build.Dense(m, m);
+        var tau = new double[m];
+        for (int r = 0; r < m; r++)
+        {
+            int i = chosen[(int)((long)r * (chosen.Count - 1) / Math.Max(m - 1, 1))];
+            double t = pulses.EdgeS(i);
+            int k = Array.BinarySearch(timeS, t);
+            k = k >= 0 ? k : ~k;
+            k = Math.Clamp(k, start + 1, n - 1);
+            double w = (t - timeS[k - 1]) / (timeS[k] - timeS[k - 1]);
+            double v = speed[k - 1] + (w * (speed[k] - speed[k - 1]));
+            double d = distance[k - 1] + (w * (distance[k] - distance[k - 1]));
+            tau[r] = t - timeS[start];
+            y[r] = (pulses.Counts[i] * metresPerPulse) - d;
+            x[r, 0] = 1;
+            x[r, 1] = v;
+            x[r, 2] = d;
+            x[r, 3] = -0.5 * tau[r] * tau[r];
+            x[r, 4] = v * (t - onsetS);
+            x[r, 5] = (growth[k - 1] + (w * (growth[k] - growth[k - 1]))) / (GrowthReferenceMps * GrowthReferenceMps);
+            double edge = v * pulses.EdgeSigmaS(i);
+            c[r, r] = (edge * edge) + (toothSigmaM * toothSigmaM);
+        }
+
+        for (int a = 0; a < m; a++)
+        {
+            for (int b = 0; b <= a; b++)
+            {
+                double lo = Math.Min(tau[a], tau[b]);
+                double hi = Math.Max(tau[a], tau[b]);
+                double walk = inputDensity * ((lo * lo * hi / 2) - (lo * lo * lo / 6));
+                c[a, b] += walk;
+                if (a != b)
+                {
+                    c[b, a] += walk;
+                }
+            }
+        }
+
+        try
+        {
+            var cholesky = c.Cholesky();
+            Matrix<double> cx = cholesky.Solve(x);
+            Vector<double> cy = cholesky.Solve(y);
+            Matrix<double> information = x.TransposeThisAndMultiply(cx);
+            information[4, 4] += 1 / (rateSigma * rateSigma);
+            Matrix<double> covariance = information.Inverse();
+            Vector<double> theta = covariance * x.TransposeThisAndMultiply(cy);
+            Vector<double> residual = y - (x * theta);
+            double chi2 = residual.DotProduct(cholesky.Solve(residual));
+            double inflate = Math.Max(1, Math.Sqrt(chi2 / Math.Max(m - Columns, 1)));
+            double sigma = Math.Sqrt(Math.Max(covariance[1, 1], 0)) * inflate;
+            return double.IsFinite(theta[1]) && double.IsFinite(sigma) && sigma > 0 ? new Estimate(theta[1], sigma) : null;
+        }
+        catch (ArgumentException)
+        {
+            // Not positive definite (a degenerate window): no estimate.
+            return null;
+        }
+    }
+}
