@@ -41,6 +41,10 @@ internal static class BrakeOnsetFit
     /// <summary>Smoothed acceleration above this is drive, not coasting, m/s².</summary>
     public const double DriveMps2 = 0.5;
 
+    /// <summary>Before the half-way point the rise is where the deceleration stays above this
+    /// fraction of the full one; a swing past half must come before it.</summary>
+    public const double RiseFloorFraction = 0.2;
+
     /// <summary>The deceleration must stay past half its full value this long for the rise to
     /// count, s: brake rises hold for the rest of the stop, a smoother's swing at a lift-off
     /// lasts some 50–100 ms.</summary>
@@ -226,7 +230,16 @@ internal static class BrakeOnsetFit
         }
 
         // A swing past half the deceleration before the rise is no level either: open after it.
-        for (int i = mid - 1; i > lo; i--)
+        // The rise itself runs back from the half-way point while the deceleration stays above
+        // RiseFloorFraction of its full value; noise about the half-way point of a slow rise,
+        // which crosses half more than once, is no swing.
+        int rise = mid - 1;
+        while (rise > lo && -smooth[rise] > RiseFloorFraction * full)
+        {
+            rise--;
+        }
+
+        for (int i = rise; i > lo; i--)
         {
             if (-smooth[i] >= 0.5 * full)
             {
