@@ -255,11 +255,11 @@ internal static class BrakeOnsetFit
     /// <summary>The first sample from which the smoothed deceleration stays at
     /// <paramref name="half"/> or more for <see cref="SustainS"/> (or a quarter of the stop, if
     /// shorter): a brief swing past it (a smoother's at a lift-off, a bump) is no brake rise.
-    /// <paramref name="stop"/> when there is none.</summary>
+    /// When no stretch holds that long, the first one; <paramref name="stop"/> when there is none.</summary>
     private static int HalfWay(double[] t, double[] smooth, int peak, int stop, double half)
     {
         double sustain = Math.Min(SustainS, 0.25 * (t[stop] - t[peak]));
-        int from = -1;
+        int from = -1, first = -1;
         for (int i = peak; i < stop; i++)
         {
             if (-smooth[i] < half)
@@ -269,6 +269,7 @@ internal static class BrakeOnsetFit
             else if (from < 0)
             {
                 from = i;
+                first = first < 0 ? i : first;
             }
 
             if (from >= 0 && t[i] - t[from] >= sustain)
@@ -277,7 +278,9 @@ internal static class BrakeOnsetFit
             }
         }
 
-        return from >= 0 ? from : stop;
+        // No stretch held (a pumped pedal: presses shorter than SustainS with releases between):
+        // the first press is the brakes coming on.
+        return first >= 0 ? first : stop;
     }
 
     private static int Index(double[] t, double at)

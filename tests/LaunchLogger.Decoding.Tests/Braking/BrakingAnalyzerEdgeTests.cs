@@ -93,6 +93,31 @@ public class BrakingAnalyzerEdgeTests
         Assert.Equal(8, r.MfddMps2!.Value, 0.01);
     }
 
+    [Fact]
+    public void APumpedPedalIsTimedFromItsFirstPress()
+    {
+        // Cadence braking from 25 m/s: from 2.0 s the pedal is pressed and released every 0.3 s
+        // (0.03-s rises to 8 m/s², 0.12 s held, 0.03-s falls to 0.5 m/s², 0.12 s released), so
+        // no press holds past half the stop's deceleration for 0.2 s. The brakes came on at the
+        // first press (closed form, by construction); timed at the last one, the onset was 5.7 s
+        // late. Measured error 2 ms against a σ of 5.7 ms: within 3σ.
+        var phases = new List<StopPhase>();
+        for (int k = 0; k < 40; k++)
+        {
+            phases.Add(new StopPhase(0.5, 7.5 / 0.03, 0.03));
+            phases.Add(new StopPhase(8, 0, 0.12));
+            phases.Add(new StopPhase(8, -7.5 / 0.03, 0.03));
+            phases.Add(new StopPhase(0.5, 0, 0.12));
+        }
+
+        phases.Add(new StopPhase(0.5, 0, 0));
+        Trajectory stop = ClosedFormTrajectory.Stop(25, 2.0, [.. phases]);
+        BrakingResult r = BrakingAnalyzer.Analyze(stop)!;
+        Assert.Equal("deceleration onset", r.OnsetMethod);
+        Assert.InRange(Math.Abs(r.OnsetS.Value - 2.0), 0, 3 * r.OnsetS.Sigma);
+        Assert.InRange(r.OnsetS.Sigma, 0.001, 0.02);
+    }
+
     /// <summary>Cruise at 25 m/s to 1 s, drive at 1 m/s² to 3 s, coast at 0.7 m/s² for 0.5 s,
     /// then a brake rise to 5 m/s² over 0.2 s and a constant 5 m/s² to standstill.</summary>
     private static Trajectory DriveCoastStop() =>
