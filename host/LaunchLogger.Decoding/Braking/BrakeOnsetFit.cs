@@ -41,6 +41,10 @@ internal static class BrakeOnsetFit
     /// <summary>Smoothed acceleration above this is drive, not coasting, m/s².</summary>
     public const double DriveMps2 = 0.5;
 
+    /// <summary>Before the half-way point the rise is where the deceleration stays above this
+    /// fraction of the full one; a swing past half must come before it.</summary>
+    public const double RiseFloorFraction = 0.2;
+
     /// <summary>The deceleration must stay past half its full value this long for the rise to
     /// count, s: brake rises hold for the rest of the stop, a smoother's swing at a lift-off
     /// lasts some 50–100 ms.</summary>
@@ -226,7 +230,16 @@ internal static class BrakeOnsetFit
         }
 
         // A swing past half the deceleration before the rise is no level either: open after it.
-        for (int i = mid - 1; i > lo; i--)
+        // The rise itself runs back from the half-way point while the deceleration stays above
+        // RiseFloorFraction of its full value; noise about the half-way point of a slow rise,
+        // which crosses half more than once, is no swing.
+        int rise = mid - 1;
+        while (rise > lo && -smooth[rise] > RiseFloorFraction * full)
+        {
+            rise--;
+        }
+
+        for (int i = rise; i > lo; i--)
         {
             if (-smooth[i] >= 0.5 * full)
             {
@@ -242,11 +255,11 @@ internal static class BrakeOnsetFit
     /// <summary>The first sample from which the smoothed deceleration stays at
     /// <paramref name="half"/> or more for <see cref="SustainS"/> (or a quarter of the stop, if
     /// shorter): a brief swing past it (a smoother's at a lift-off, a bump) is no brake rise.
-    /// <paramref name="stop"/> when there is none.</summary>
+    /// When no stretch holds that long, the first one; <paramref name="stop"/> when there is none.</summary>
     private static int HalfWay(double[] t, double[] smooth, int peak, int stop, double half)
     {
         double sustain = Math.Min(SustainS, 0.25 * (t[stop] - t[peak]));
-        int from = -1;
+        int from = -1, first = -1;
         for (int i = peak; i < stop; i++)
         {
             if (-smooth[i] < half)
@@ -256,6 +269,7 @@ internal static class BrakeOnsetFit
             else if (from < 0)
             {
                 from = i;
+                first = first < 0 ? i : first;
             }
 
             if (from >= 0 && t[i] - t[from] >= sustain)
@@ -264,7 +278,9 @@ internal static class BrakeOnsetFit
             }
         }
 
-        return from >= 0 ? from : stop;
+        // No stretch held (a pumped pedal: presses shorter than SustainS with releases between):
+        // the first press is the brakes coming on.
+        return first >= 0 ? first : stop;
     }
 
     private static int Index(double[] t, double at)

@@ -117,7 +117,7 @@ public class BrakeOnsetFitTests
 
     /// <summary>Samples at <see cref="RateHz"/> of a = −deceleration: drive (optional), a level,
     /// a linear rise, a plateau to standstill.</summary>
-    private sealed record Signal(double[] T, double[] A, double PeakS, double StandstillS)
+    internal sealed record Signal(double[] T, double[] A, double PeakS, double StandstillS)
     {
         public static Signal Make(double levelDecel, double onsetS, double riseS, double plateauDecel, double standstillS, double driveUntilS = 0, double driveMps2 = 0, double noise = 0, int seed = 1)
         {

@@ -158,6 +158,7 @@ public class BrakingRulesTests
 
     [Theory]
     [InlineData(4.5, false)]
+    [InlineData(5.0, true)]
     [InlineData(5.5, true)]
     public void OnlyAStopFromAtLeastFiveMetresASecondCounts(double fromMps, bool counts)
     {
