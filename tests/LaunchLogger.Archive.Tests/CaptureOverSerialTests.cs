@@ -38,12 +38,13 @@ public class CaptureOverSerialTests
 
         var sent = new MemoryStream();
         var output = new StringWriter();
+        TextWriter said = TextWriter.Synchronized(output);
         using var stop = new CancellationTokenSource();
         PseudoTerminalPair pair = PseudoTerminalPair.Open(port);
         PseudoTerminalPair? replugged = null;
         try
         {
-            Task<ExitCode> capture = Task.Run(() => CaptureCommand.Run(port, CaptureCommand.BoxBaudRate, raw, archive, RunAssignment.None, DisplayUnits.Metric, false, TextWriter.Synchronized(output), new StringWriter(), stop.Token));
+            Task<ExitCode> capture = Task.Run(() => CaptureCommand.Run(port, CaptureCommand.BoxBaudRate, raw, archive, RunAssignment.None, DisplayUnits.Metric, false, said, new StringWriter(), stop.Token));
             var random = new Random(11);
             var pace = Stopwatch.StartNew();
             long paced = 0;
@@ -58,6 +59,11 @@ public class CaptureOverSerialTests
                     await Task.Delay(600);
                     at += lostBytes;
                     replugged = PseudoTerminalPair.Open(port);
+
+                    // Bytes the box sends before capture has the port open again are lost, as on a
+                    // real cable (opening a serial port discards what waits in its buffer); the
+                    // lost stretch above stands for them, so send again only once capture says so.
+                    await WaitForOutput(said, output, "link back");
                 }
 
                 int end = at < pullAt ? Math.Min(pullAt, at + random.Next(16, 768)) : Math.Min(stream.Length, at + random.Next(16, 768));
@@ -106,6 +112,25 @@ public class CaptureOverSerialTests
                 FigureValue expected = figure.Read(report.Runs[i])!;
                 Assert.Equal(convention == Convention.Rollout ? expected.Rollout : expected.Standstill, rows[i].Value);
             }
+        }
+    }
+
+    private static async Task WaitForOutput(TextWriter said, StringWriter output, string text)
+    {
+        var clock = Stopwatch.StartNew();
+        while (true)
+        {
+            // The synchronized writer locks on itself; take the same lock to read what it wrote.
+            lock (said)
+            {
+                if (output.ToString().Contains(text, StringComparison.Ordinal))
+                {
+                    return;
+                }
+            }
+
+            Assert.True(clock.Elapsed < Patience, $"capture never said \"{text}\"");
+            await Task.Delay(20);
         }
     }
 
