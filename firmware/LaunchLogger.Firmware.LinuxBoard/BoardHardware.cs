@@ -27,6 +27,10 @@ public sealed class BoardHardware : IDisposable
     /// <summary>The mark button, or null.</summary>
     public IDigitalInput? MarkButton { get; init; }
 
+    /// <summary>How long a new level of the brake switch or mark button must hold (µs); the
+    /// core's loop debounces the raw inputs (<see cref="CaptureLoop.SwitchHoldMicros"/>).</summary>
+    public long SwitchHoldMicros { get; init; }
+
     /// <summary>The status LED, or null.</summary>
     public IStatusIndicator? Indicator { get; init; }
 

@@ -50,7 +50,10 @@ public sealed class BoardRunner
             hardware.Indicator,
             Recorder,
             fifoDepth,
-            accelIntervalMicros);
+            accelIntervalMicros)
+        {
+            SwitchHoldMicros = hardware.SwitchHoldMicros,
+        };
     }
 
     /// <summary>The run recorder being fed.</summary>

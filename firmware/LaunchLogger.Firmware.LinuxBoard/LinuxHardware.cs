@@ -65,21 +65,22 @@ public static class LinuxHardware
             IDigitalInput? brake = null;
             IDigitalInput? mark = null;
             IStatusIndicator? led = null;
+            long debounceMicros = 0;
             if (settings.Inputs is { } i && (i.BrakePin.HasValue || i.MarkPin.HasValue || i.LedPin.HasValue))
             {
                 GpioController controller = i.GpioChip.HasValue
                     ? new GpioController(new LibGpiodDriver(i.GpioChip.Value))
                     : new GpioController();
                 parts.Add(controller);
-                long debounceMicros = i.DebounceMs * 1000L;
+                debounceMicros = i.DebounceMs * 1000L;
                 if (i.BrakePin.HasValue)
                 {
-                    brake = new GpioDigitalInput(controller, i.BrakePin.Value, i.BrakeActiveLow, PinMode.Input, debounceMicros);
+                    brake = new GpioDigitalInput(controller, i.BrakePin.Value, i.BrakeActiveLow, PinMode.Input);
                 }
 
                 if (i.MarkPin.HasValue)
                 {
-                    mark = new GpioDigitalInput(controller, i.MarkPin.Value, i.MarkActiveLow, PinMode.Input, debounceMicros);
+                    mark = new GpioDigitalInput(controller, i.MarkPin.Value, i.MarkActiveLow, PinMode.Input);
                 }
 
                 if (i.LedPin.HasValue)
@@ -111,6 +112,7 @@ public static class LinuxHardware
                 AccelFifoDepth = Lis3dhFifoAccelerometer.FifoDepth,
                 BrakeSwitch = brake,
                 MarkButton = mark,
+                SwitchHoldMicros = debounceMicros,
                 Indicator = led,
                 Sink = sink,
                 Report = () => Report(file, serial, tee),

@@ -31,7 +31,9 @@ namespace LaunchLogger.Firmware
         private long sampleIndex;
         private int maxSamplesPerStep;
         private bool accelBacklog;
-        private bool markWasActive;
+        private Capture.Debouncer brakeLevel = new Capture.Debouncer(0, false);
+        private Capture.Debouncer markLevel = new Capture.Debouncer(0, false);
+        private long switchHoldMicros;
         private bool poweredUp;
         private bool phaseShown;
         private RunPhase shownPhase;
@@ -106,6 +108,31 @@ namespace LaunchLogger.Firmware
             }
         }
 
+        /// <summary>How long a new level of the brake switch or the mark button must hold before
+        /// it counts (µs, default 0: every reading counts). The inputs are read raw once a pass;
+        /// an accepted change is dated to the pass that first saw it, and a brake switch's event
+        /// also records the time since the pass before (LOG-FORMAT.md, events 5 and 6): the switch
+        /// changed in between. Set it before the first <see cref="Step"/>.</summary>
+        public long SwitchHoldMicros
+        {
+            get
+            {
+                return switchHoldMicros;
+            }
+
+            set
+            {
+                if (value < 0)
+                {
+                    throw new System.ArgumentOutOfRangeException("value");
+                }
+
+                switchHoldMicros = value;
+                brakeLevel = new Capture.Debouncer(value, false);
+                markLevel = new Capture.Debouncer(value, false);
+            }
+        }
+
         /// <summary>One pass of the loop.</summary>
         public void Step()
         {
@@ -130,18 +157,17 @@ namespace LaunchLogger.Firmware
 
             if (brakeSwitch != null)
             {
-                recorder.OnBrakeSwitch(brakeSwitch.IsActive(), now);
+                bool applied = brakeLevel.Update(brakeSwitch.IsActive(), now);
+                recorder.OnBrakeSwitch(applied, brakeLevel.ChangedAtMicros, brakeLevel.ChangeGapMicros);
             }
 
             if (markButton != null)
             {
-                bool active = markButton.IsActive();
-                if (active && !markWasActive)
+                bool was = markLevel.State;
+                if (markLevel.Update(markButton.IsActive(), now) && !was)
                 {
-                    recorder.OnManualMark(now);
+                    recorder.OnManualMark(markLevel.ChangedAtMicros);
                 }
-
-                markWasActive = active;
             }
 
             recorder.Tick(clock.NowMicros());

@@ -53,8 +53,8 @@ namespace LaunchLogger.Esp32
                 recorder.SetCounterOrigin(c, 0);
             }
 
-            IDigitalInput brake = new DebouncedInput(gpio, PinMap.BrakeSwitch, true, 20000);
-            IDigitalInput mark = new DebouncedInput(gpio, PinMap.MarkButton, true, 20000);
+            IDigitalInput brake = new PolledInput(gpio, PinMap.BrakeSwitch, true);
+            IDigitalInput mark = new PolledInput(gpio, PinMap.MarkButton, true);
             CaptureLoop loop = new CaptureLoop(
                 clock,
                 pulses,
@@ -65,6 +65,10 @@ namespace LaunchLogger.Esp32
                 recorder,
                 Lis3dhFifoReader.FifoDepth,
                 StepBudget.AccelIntervalMicros);
+
+            // Switch levels count after holding 20 ms (contact bounce), dated to the pass that
+            // first saw them.
+            loop.SwitchHoldMicros = 20000;
 
             // Bounded work per pass (hardware-notes/esp32-and-linux-boards.md): a few samples per
             // read, small pulse frames, the pre-trigger samples written a share at a time.

@@ -117,6 +117,39 @@ public class CaptureLoopTests
         Assert.Equal(3_001_000, frames.SingleEvent(EventKind.BrakeOn).TimeMicros);
         Assert.Equal(3_201_000, frames.SingleEvent(EventKind.Mark).TimeMicros);
         Assert.Equal(3_501_000, frames.SingleEvent(EventKind.BrakeOff).TimeMicros);
+
+        // The switch's events say when the pass before read the old level: a change within 1 ms before.
+        Assert.Equal(1_000, frames.SingleEvent(EventKind.BrakeOn).ReadGapMicros);
+        Assert.Equal(1_000, frames.SingleEvent(EventKind.BrakeOff).ReadGapMicros);
+    }
+
+    [Fact]
+    public void ADebouncedSwitchIsDatedToThePassThatFirstSawIt()
+    {
+        // Boards take a new level only after it held 20 ms (contact bounce); the event still
+        // carries the first pass that read it, and the gap from the pass before.
+        var rig = new Rig(MotionProfile.Launch(2.5, HalfG));
+        rig.Loop.SwitchHoldMicros = 20_000;
+        rig.RunTo(3_000_000);
+        rig.Brake.Active = true;
+        rig.RunTo(3_005_000);
+        rig.Brake.Active = false; // a bounce: open again for 3 ms
+        rig.RunTo(3_008_000);
+        rig.Brake.Active = true;
+        rig.RunTo(3_020_000);
+        Assert.Empty(rig.Sink.Frames.Events(EventKind.BrakeOn));
+        rig.RunTo(3_100_000);
+        rig.Mark.Active = true;
+        rig.RunTo(3_110_000);
+        rig.Mark.Active = false; // a 10 ms touch is no press
+        rig.RunTo(3_200_000);
+        rig.Recorder.Shutdown(3_200_000);
+
+        EventFrame on = rig.Sink.Frames.SingleEvent(EventKind.BrakeOn);
+        Assert.Equal(3_009_000, on.TimeMicros);
+        Assert.Equal(1_000, on.ReadGapMicros);
+        Assert.Empty(rig.Sink.Frames.Events(EventKind.Mark));
+        Assert.Throws<ArgumentOutOfRangeException>(() => { rig.Loop.SwitchHoldMicros = -1; });
     }
 
     [Fact]

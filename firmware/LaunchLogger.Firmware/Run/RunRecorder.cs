@@ -300,8 +300,17 @@ namespace LaunchLogger.Firmware.Run
             stillOpen = false;
         }
 
-        /// <summary>The brake switch changed state.</summary>
+        /// <summary>The brake switch changed state, read at <paramref name="timeMicros"/> (the
+        /// time of the change is not known more closely).</summary>
         public void OnBrakeSwitch(bool applied, long timeMicros)
+        {
+            OnBrakeSwitch(applied, timeMicros, 0);
+        }
+
+        /// <summary>The brake switch changed state: first read at <paramref name="timeMicros"/>,
+        /// unchanged at the reading <paramref name="readGapMicros"/> earlier (0: not known). The
+        /// gap is written with the event (LOG-FORMAT.md, events 5 and 6).</summary>
+        public void OnBrakeSwitch(bool applied, long timeMicros, long readGapMicros)
         {
             if (applied == brakeApplied)
             {
@@ -312,6 +321,11 @@ namespace LaunchLogger.Firmware.Run
             if (runOpen)
             {
                 WriteEvent(applied ? EventKind.BrakeOn : EventKind.BrakeOff, timeMicros);
+                if (readGapMicros > 0)
+                {
+                    writer.PutVarint(readGapMicros);
+                }
+
                 writer.End();
             }
         }

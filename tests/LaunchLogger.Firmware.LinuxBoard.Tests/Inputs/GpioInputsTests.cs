@@ -19,7 +19,7 @@ public class GpioInputsTests
         using var controller = new GpioController(driver);
         driver.SetInput(27, level == 1 ? PinValue.High : PinValue.Low);
 
-        var input = new GpioDigitalInput(controller, 27, activeLow, PinMode.InputPullUp, debounceMicros: 0);
+        var input = new GpioDigitalInput(controller, 27, activeLow, PinMode.InputPullUp);
 
         Assert.Equal(PinMode.InputPullUp, driver.Mode(27));
         Assert.Equal(expected, input.IsActive());
@@ -31,7 +31,7 @@ public class GpioInputsTests
     public void Output_modes_are_refused_for_an_input()
     {
         using var controller = new GpioController(new FakeGpioDriver());
-        Assert.Throws<ArgumentException>(() => new GpioDigitalInput(controller, 5, true, PinMode.Output, 0));
+        Assert.Throws<ArgumentException>(() => new GpioDigitalInput(controller, 5, true, PinMode.Output));
     }
 
     [Fact]

@@ -49,6 +49,28 @@ public class DebouncerTests
     }
 
     [Fact]
+    public void An_accepted_level_is_dated_to_the_reading_that_first_saw_it()
+    {
+        var d = new Debouncer(holdMicros: 20_000, initial: false);
+        Assert.Equal(0, d.ChangedAtMicros);
+
+        d.Update(false, 1_000);
+        d.Update(true, 2_500);  // first seen closed; the reading before was 1.5 ms earlier
+        d.Update(false, 3_000); // bounce
+        d.Update(true, 3_700);  // closed again: this reading, 0.7 ms after the last open one, counts
+        Assert.False(d.Update(true, 23_000));
+        Assert.True(d.Update(true, 23_700));
+        Assert.Equal(3_700, d.ChangedAtMicros);
+        Assert.Equal(700, d.ChangeGapMicros);
+
+        // The very first reading has no reading before it: gap unknown.
+        var first = new Debouncer(holdMicros: 0, initial: false);
+        Assert.True(first.Update(true, 5_000));
+        Assert.Equal(5_000, first.ChangedAtMicros);
+        Assert.Equal(0, first.ChangeGapMicros);
+    }
+
+    [Fact]
     public void A_negative_hold_is_refused()
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => new Debouncer(-1, false));

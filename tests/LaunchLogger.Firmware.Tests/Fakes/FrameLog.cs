@@ -171,6 +171,7 @@ public static class FrameLog
             EventKind.Motion => e with { Cause = (MotionCause)r.U8() },
             EventKind.Rollout => e with { SpeedMillimetresPerSecond = r.Varint() },
             EventKind.AccelGap => e with { LostSamples = r.Varint() },
+            EventKind.BrakeOn or EventKind.BrakeOff when !r.AtEnd => e with { ReadGapMicros = r.Varint() },
             _ => e,
         };
     }

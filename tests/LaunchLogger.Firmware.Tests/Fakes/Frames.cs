@@ -64,6 +64,8 @@ public sealed record EventFrame(int Sequence, EventKind Kind, long TimeMicros) :
     public long? SpeedMillimetresPerSecond { get; init; }
 
     public long? LostSamples { get; init; }
+
+    public long? ReadGapMicros { get; init; }
 }
 
 /// <summary>Frame 0x05.</summary>

@@ -233,6 +233,26 @@ public class RunRecorderTests
         Assert.Equal(new long[] { 3_000_100 }, frames.Events(EventKind.Mark).Select(e => e.TimeMicros));
         Assert.Equal(new long[] { 4_000_050 }, frames.Events(EventKind.BrakeOn).Select(e => e.TimeMicros));
         Assert.Equal(new long[] { 4_500_070 }, frames.Events(EventKind.BrakeOff).Select(e => e.TimeMicros));
+
+        // Without the loop's gap the events carry none (a reader takes the gap as not known).
+        Assert.All(frames.Events(EventKind.BrakeOn).Concat(frames.Events(EventKind.BrakeOff)), e => Assert.Null(e.ReadGapMicros));
+    }
+
+    [Fact]
+    public void TheSwitchReadingsGapIsWrittenWithItsEvent()
+    {
+        LoggerSettings settings = PulsesOnly();
+        var (recorder, sink, _) = ScriptedRun.NewRecorder(settings);
+        var run = new ScriptedRun(recorder, settings, MotionProfile.LaunchAndStop(2.0, HalfG, 4.0, BrakeDecel));
+        run.RunUntil(4_000_000);
+        recorder.OnBrakeSwitch(true, 4_000_050, 21_000);
+        run.RunUntil(4_500_000);
+        recorder.OnBrakeSwitch(false, 4_500_070, 0);
+        run.RunUntil(9_000_000);
+
+        IReadOnlyList<Frame> frames = sink.Frames;
+        Assert.Equal(21_000, frames.SingleEvent(EventKind.BrakeOn).ReadGapMicros);
+        Assert.Null(frames.SingleEvent(EventKind.BrakeOff).ReadGapMicros);
     }
 
     [Fact]
