@@ -201,7 +201,11 @@ public static class Simulator
                 null,
                 recorder,
                 accelerometer is null ? 1 : scenario.Accelerometer.FifoDepth,
-                accelerometer is null ? 1_000_000 : scenario.Accelerometer.ReadIntervalMicros);
+                accelerometer is null ? 1_000_000 : scenario.Accelerometer.ReadIntervalMicros)
+            {
+                // The boards' debounce of the switch inputs.
+                SwitchHoldMicros = 20_000,
+            };
 
             int[] delivered = new int[pickups.Length];
             long loopMicros = 0;

@@ -30,9 +30,13 @@ public sealed record AnalysisOptions
     /// <summary>Weather during the runs, when given: figures are also shown corrected to standard air.</summary>
     public Weather? Weather { get; init; }
 
-    /// <summary>How long the brake switch takes to close after the pedal starts to move, s
-    /// (measured on the bench or by calibration); subtracted from the switch's time.</summary>
-    public double BrakeSwitchDelayS { get; init; }
+    /// <summary>How long the brake switch takes to close after the pedal starts to move, s,
+    /// when measured (on the bench or by calibration); subtracted from the switch's time. Null:
+    /// not measured, taken as uniform over 0–30 ms (<see cref="Braking.BrakeSwitchTiming"/>).</summary>
+    public double? BrakeSwitchDelayS { get; init; }
+
+    /// <summary>1-σ of a measured <see cref="BrakeSwitchDelayS"/>, s.</summary>
+    public double BrakeSwitchDelaySigmaS { get; init; } = 0.001;
 
     /// <summary>Verdict thresholds.</summary>
     public VerdictLimits Limits { get; init; } = VerdictLimits.Default;

@@ -34,7 +34,7 @@ public static class RunAnalyzer
             throw new AnalysisException($"{run.Source}: {e.Message}", e);
         }
 
-        double[] brakeOn = run.Events.Where(e => e.Kind == EventKind.BrakeOn).Select(e => e.TimeS - options.BrakeSwitchDelayS).ToArray();
+        Estimate[] brakeOn = BrakeSwitchOnsets(run, reconstruction, options);
         (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
         BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions));
 
@@ -61,6 +61,25 @@ public static class RunAnalyzer
             LevelFigures = level,
             StandardAirFigures = standardAir,
         };
+    }
+
+    /// <summary>The pedal's first movement at each closing of the brake switch: the event's time,
+    /// less the loop's lag (from the gap the event records, or from the run's brackets) and the
+    /// switch's delay (measured, or the prior).</summary>
+    private static Estimate[] BrakeSwitchOnsets(DecodedRun run, ReconstructedRun reconstruction, AnalysisOptions options)
+    {
+        RunEvent[] closings = run.Events.Where(e => e.Kind == EventKind.BrakeOn).ToArray();
+        if (closings.Length == 0)
+        {
+            return [];
+        }
+
+        Estimate loopLag = BrakeSwitchTiming.LagOfLoop(reconstruction.DistanceChannel == 1 ? run.SecondPulses : run.Pulses);
+        return closings.Select(e => BrakeSwitchTiming.Onset(
+            e.TimeS,
+            e.Values is [> 0 and var gapMicros] ? BrakeSwitchTiming.LagOfGap(gapMicros * 1e-6) : loopLag,
+            options.BrakeSwitchDelayS,
+            options.BrakeSwitchDelaySigmaS)).ToArray();
     }
 
     /// <summary>1-σ of one pulse observation's position near the end of the run, m: the tooth

@@ -6,20 +6,18 @@ namespace LaunchLogger.Decoding.Braking;
 /// <summary>Finds the final stop of a trajectory and measures it.</summary>
 /// <remarks>
 /// The stop is the fall from the highest speed to standstill at the end of the run. Onset is the
-/// brake switch's closing where the box had one wired (SAE J299 measures stopping distance from
-/// the first movement of the brake control; the switch closes within a few millimetres of pedal
-/// travel). Otherwise it is estimated from the deceleration by fitting a level, a linear rise and
+/// pedal's first movement where the box had a brake switch wired (SAE J299 measures stopping
+/// distance from the first movement of the brake control), found from the switch's reading by
+/// <see cref="BrakeSwitchTiming"/> (the loop's lag and the switch's delay subtracted, both in σ).
+/// Otherwise it is estimated from the deceleration by fitting a level, a linear rise and
 /// a plateau together (<see cref="BrakeOnsetFit"/>); where that fit finds no rise, a straight
 /// line through the rise between 20 % and 80 % of the full deceleration, extrapolated back to
 /// the level before it.
 /// </remarks>
 public static class BrakingAnalyzer
 {
-    /// <summary>1-σ of the time from the first movement of the brake pedal to the switch closing,
-    /// s: the pedal's free play before a brake-light switch closes takes some 0–30 ms of a firm
-    /// application (from memory). Unknown unless measured (the report's switch-delay setting), so it
-    /// counts in the onset's σ.</summary>
-    public const double SwitchDelaySigmaS = 0.01;
+    /// <summary>1-σ of a pedal onset time given directly (the overload taking plain times), s.</summary>
+    public const double GivenOnsetSigmaS = 0.001;
 
     /// <summary>Below this speed the car counts as standing, m/s.</summary>
     public const double StandstillMps = 0.05;
@@ -54,7 +52,9 @@ public static class BrakingAnalyzer
 
     /// <summary>Measures the final stop, or returns null when the trajectory does not end with one.</summary>
     /// <param name="trajectory">The run.</param>
-    /// <param name="brakeSwitchOnS">Times the brake switch closed, when wired.</param>
+    /// <param name="brakeSwitchOnS">Times the pedal started to move, each known to
+    /// <see cref="GivenOnsetSigmaS"/> (from a brake switch whose delay and reading are already
+    /// accounted for).</param>
     /// <param name="nominalSpeedsMps">Extra nominal speeds to correct to (60 mph and 100 km/h are always included).</param>
     /// <param name="rawAccel">The accelerometer's own longitudinal samples (time, m/s²), when there
     /// are any: the onset fit then uses them rather than the trajectory's smoothed acceleration,
@@ -67,9 +67,21 @@ public static class BrakingAnalyzer
     /// onset's σ. Measured on the simulator's pulses-only stops: onset 13–17 ms early with exact
     /// edges on 36 teeth (τ = √(0.5 mm / 5 m/s²) = 10 ms), 106 ms early polled every 7.5 ms on
     /// 16 teeth (τ = √(58 mm / 5 m/s²) = 108 ms).</param>
-    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<double>? brakeSwitchOnS = null, IReadOnlyList<double>? nominalSpeedsMps = null, (double[] TimeS, double[] AccelMps2)? rawAccel = null, double pulsePositionSigmaM = 0)
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<double>? brakeSwitchOnS = null, IReadOnlyList<double>? nominalSpeedsMps = null, (double[] TimeS, double[] AccelMps2)? rawAccel = null, double pulsePositionSigmaM = 0) =>
+        Analyze(trajectory, (brakeSwitchOnS ?? []).Select(s => new Estimate(s, GivenOnsetSigmaS)).ToArray(), nominalSpeedsMps, rawAccel, pulsePositionSigmaM);
+
+    /// <summary>Measures the final stop, or returns null when the trajectory does not end with one.</summary>
+    /// <param name="trajectory">The run.</param>
+    /// <param name="brakeSwitchOnsets">The pedal's first movement at each closing of the brake
+    /// switch, with σ (<see cref="BrakeSwitchTiming.Onset"/>); the last one from 0.5 s before the
+    /// top speed to standstill times the stop.</param>
+    /// <param name="nominalSpeedsMps">As in the other overload.</param>
+    /// <param name="rawAccel">As in the other overload.</param>
+    /// <param name="pulsePositionSigmaM">As in the other overload.</param>
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
+        ArgumentNullException.ThrowIfNull(brakeSwitchOnsets);
         double[] t = trajectory.TimeS;
         double[] v = trajectory.SpeedMps;
         double[] a = trajectory.AccelMps2;
@@ -111,13 +123,13 @@ public static class BrakingAnalyzer
             peakDecel = Math.Max(peakDecel, -a[i]);
         }
 
-        double? switchOn = brakeSwitchOnS?.Where(s => s >= t[peak] - 0.5 && s < standstillS).Select(s => (double?)s).LastOrDefault();
+        Estimate? switchOn = brakeSwitchOnsets.Where(s => s.Value >= t[peak] - 0.5 && s.Value < standstillS).Select(s => (Estimate?)s).LastOrDefault();
 
         Estimate onset;
         string onsetMethod;
         if (switchOn is { } sw)
         {
-            onset = new Estimate(sw, Math.Sqrt((0.001 * 0.001) + (SwitchDelaySigmaS * SwitchDelaySigmaS)));
+            onset = sw;
             onsetMethod = "brake switch";
         }
         else

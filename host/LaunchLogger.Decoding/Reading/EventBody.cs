@@ -7,5 +7,5 @@ namespace LaunchLogger.Decoding.Reading;
 /// <param name="TimeMicros">When, µs.</param>
 /// <param name="Values">The kind's extra fields in log order: Staged: rest x, y, z (milli-g),
 /// samples averaged; Motion: cause; Rollout: speed (mm/s); AccelGap: samples presumed lost;
-/// empty for the others.</param>
+/// BrakeOn, BrakeOff: the loop's gap before the reading (µs) where the log has it; empty for the others.</param>
 public sealed record EventBody(EventKind Kind, long TimeMicros, long[] Values);

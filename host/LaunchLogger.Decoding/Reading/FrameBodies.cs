@@ -194,6 +194,7 @@ public static class FrameBodies
             EventKind.Motion => [r.ReadByte()],
             EventKind.Rollout => [r.ReadVarint()],
             EventKind.AccelGap => [r.ReadVarint()],
+            EventKind.BrakeOn or EventKind.BrakeOff when r.Remaining > 0 => [r.ReadVarint()],
             _ => [],
         };
         if (r.Failed)

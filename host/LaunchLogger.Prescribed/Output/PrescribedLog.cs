@@ -68,7 +68,10 @@ public static class PrescribedLog
             accelSamples, settings.AccelOutputDataRateMilliHz, settings.AccelFullScaleMilliG, options.FifoDepth);
         SpanSwitch? brakeSwitch = options.BrakeSwitchDelayS is { } delay ? new SpanSwitch(BrakeSpans(profile, delay)) : null;
         int readMicros = (int)Math.Max(1000, Math.Min(10_000, 0.5 * options.FifoDepth / options.AccelRateHz * 1e6));
-        var loop = new CaptureLoop(clock, (IPulseSource?)polled ?? queue!, accelerometer, brakeSwitch, null, null, recorder, options.FifoDepth, readMicros);
+        var loop = new CaptureLoop(clock, (IPulseSource?)polled ?? queue!, accelerometer, brakeSwitch, null, null, recorder, options.FifoDepth, readMicros)
+        {
+            SwitchHoldMicros = options.SwitchHoldMicros,
+        };
 
         int delivered = 0;
         foreach (double t in loopTimes)
@@ -142,6 +145,10 @@ public sealed record LogOptions
 
     /// <summary>The brake switch's delay after onset, s; null for no switch.</summary>
     public double? BrakeSwitchDelayS { get; init; }
+
+    /// <summary>How long a switch level must hold before the core takes it, µs (20 ms, a
+    /// board's usual debounce).</summary>
+    public long SwitchHoldMicros { get; init; } = 20_000;
 
     /// <summary>The box clock's reading at the record's time 0, µs.</summary>
     public long ClockStartMicros { get; init; }

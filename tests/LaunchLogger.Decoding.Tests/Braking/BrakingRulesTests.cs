@@ -27,14 +27,18 @@ public class BrakingRulesTests
     }
 
     [Fact]
-    public void TheLastSwitchClosingBeforeStandstillIsTheOnsetAndItsSigmaCarriesThePedalFreePlay()
+    public void TheLastSwitchClosingBeforeStandstillIsTheOnsetWithItsOwnSigma()
     {
         // A dab at 0.4 s, the real application at 1.0 s, and the switch again after the car stood.
         Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
         double standstill = 1 + (V100 / 8);
         BrakingResult r = BrakingAnalyzer.Analyze(stop, [0.4, 1.0, standstill + 0.5])!;
         Assert.Equal(1.0, r.OnsetS.Value);
-        Assert.Equal(Math.Sqrt((0.001 * 0.001) + (BrakingAnalyzer.SwitchDelaySigmaS * BrakingAnalyzer.SwitchDelaySigmaS)), r.OnsetS.Sigma, 12);
+        Assert.Equal(BrakingAnalyzer.GivenOnsetSigmaS, r.OnsetS.Sigma, 12);
+
+        // Onsets with their own σ (from the switch's reading) are taken as they are.
+        BrakingResult own = BrakingAnalyzer.Analyze(stop, [new Estimate(0.4, 0.003), new Estimate(1.0, 0.009), new Estimate(standstill + 0.5, 0.001)], null, null, 0)!;
+        Assert.Equal(new Estimate(1.0, 0.009), own.OnsetS);
 
         // Without a σ on the trajectory the distance's σ is the onset's times the speed there.
         Assert.Equal(V100 * r.OnsetS.Sigma, r.StoppingDistanceM.Sigma, 9);

@@ -116,7 +116,9 @@ public class FrameBodiesTests
         { "motion", new BodyBuilder().Byte(2).Varint(500).Byte(2).ToArray(), EventKind.Motion, new long[] { 2 } },
         { "rollout", new BodyBuilder().Byte(3).Varint(500).Varint(1729).ToArray(), EventKind.Rollout, new long[] { 1729 } },
         { "stopped", new BodyBuilder().Byte(4).Varint(500).ToArray(), EventKind.Stopped, Array.Empty<long>() },
-        { "brake on", new BodyBuilder().Byte(5).Varint(500).ToArray(), EventKind.BrakeOn, Array.Empty<long>() },
+        { "brake on, older log", new BodyBuilder().Byte(5).Varint(500).ToArray(), EventKind.BrakeOn, Array.Empty<long>() },
+        { "brake on with the loop's gap", new BodyBuilder().Byte(5).Varint(500).Varint(1020).ToArray(), EventKind.BrakeOn, new long[] { 1020 } },
+        { "brake off with the loop's gap", new BodyBuilder().Byte(6).Varint(500).Varint(20_400).ToArray(), EventKind.BrakeOff, new long[] { 20_400 } },
         { "accel gap", new BodyBuilder().Byte(8).Varint(500).Varint(37).ToArray(), EventKind.AccelGap, new long[] { 37 } },
         { "unknown kind", new BodyBuilder().Byte(99).Varint(500).Byte(1).ToArray(), (EventKind)99, Array.Empty<long>() },
     };
