@@ -34,6 +34,10 @@ public enum BenchGroup
     /// <summary>Generator: steady cruise, then a stop with a brake rise of 0.05–2 s or a steady rise.</summary>
     GeneratedCruiseStop,
 
+    /// <summary>Generator: the stops above again, written as logs with a brake switch (delay
+    /// 5–25 ms, not told to the decoder); polled loops stall 20 ms about once a second.</summary>
+    GeneratedCruiseStopSwitch,
+
     /// <summary>Generator: two standing runs in one record.</summary>
     GeneratedStopAndGo,
 }

@@ -4,6 +4,7 @@ using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Simulation;
 using LaunchLogger.Simulation.Scenarios;
+using static System.FormattableString;
 
 namespace LaunchLogger.Cli.Bench;
 
@@ -19,12 +20,14 @@ public sealed record BrakingCase(int Index, int Seed, Scenario Scenario, Scenari
     public bool HasSwitch => Scenario.BrakeSwitch.Present;
 
     /// <summary>Builds the cases: the braking test car from just above 60 mph, on slopes of
-    /// −2 % to +2 %, with or without a brake switch, 24–100 teeth, both capture paths.</summary>
+    /// −2 % to +2 %, with or without a brake switch (its delay 5–25 ms, drawn apart so that the
+    /// other variations stay as they were), 24–100 teeth, both capture paths.</summary>
     public static IReadOnlyList<BrakingCase> Build(int runs, int seed)
     {
         Scenario baseline = BuiltInScenarios.Get("brake-test-60");
         int[] teeth = [24, 36, 48, 60, 80, 100];
         var random = new Random(seed);
+        var switchRandom = new Random(unchecked((seed * 104_729) + 3));
         var cases = new List<BrakingCase>(runs);
         for (int i = 0; i < runs; i++)
         {
@@ -33,6 +36,7 @@ public sealed record BrakingCase(int Index, int Seed, Scenario Scenario, Scenari
             int toothCount = teeth[random.Next(teeth.Length)];
             bool exact = random.NextDouble() < 0.5;
             double fromMph = 61 + (random.NextDouble() * 6);
+            double switchDelayS = 0.005 + (0.02 * switchRandom.NextDouble());
             Scenario level = baseline with
             {
                 Name = $"brake-bench-{i}",
@@ -40,11 +44,11 @@ public sealed record BrakingCase(int Index, int Seed, Scenario Scenario, Scenari
                 Plan = baseline.Plan with { TargetSpeedMps = fromMph * 0.44704, TargetDistanceM = null, BrakeToStop = true },
                 Pickup = baseline.Pickup with { Teeth = toothCount },
                 Capture = baseline.Capture with { Kind = exact ? CaptureKind.ExactEdges : CaptureKind.PolledCounter },
-                BrakeSwitch = baseline.BrakeSwitch with { Present = sw },
+                BrakeSwitch = baseline.BrakeSwitch with { Present = sw, DelayS = switchDelayS },
                 Environment = baseline.Environment with { GradePercent = 0 },
             };
             Scenario sloped = level with { Environment = level.Environment with { GradePercent = grade } };
-            string summary = FormattableString.Invariant($"from {fromMph:0.0} mph, grade {grade:+0.00;-0.00} %, {toothCount} teeth, {(exact ? "edge timestamps" : "polled")}, {(sw ? "brake switch" : "no switch")}");
+            string summary = FormattableString.Invariant($"from {fromMph:0.0} mph, grade {grade:+0.00;-0.00} %, {toothCount} teeth, {(exact ? "edge timestamps" : "polled")}, {(sw ? Invariant($"brake switch {switchDelayS * 1e3:0.0} ms") : "no switch")}");
             cases.Add(new BrakingCase(i, unchecked((seed * 7919) + i), sloped, level, summary));
         }
 
@@ -63,6 +67,12 @@ public sealed record BrakingOutcome(BrakingCase Case, double? DistanceErrorM, do
 
     /// <summary>Our stated 1-σ of the grade, °.</summary>
     public double? GradeSigmaDeg { get; init; }
+
+    /// <summary>With a switch whose delay is not told: stopping distance error and σ, m.</summary>
+    public (double Error, double Sigma)? UnmeasuredDelayDistanceM { get; init; }
+
+    /// <summary>With a switch whose delay is not told: onset error and σ, s.</summary>
+    public (double Error, double Sigma)? UnmeasuredDelayOnsetS { get; init; }
 }
 
 /// <summary>Simulates and measures one stop.</summary>
@@ -99,6 +109,9 @@ public static class BrakingBenchmark
             }
 
             double? truthOnset = sloped.Events.BrakeOnsetS;
+
+            // The same stop as a user decodes it who never measured the switch: the delay's prior.
+            BrakingResult? unmeasured = c.HasSwitch ? RunAnalyzer.Analyze(run, options with { BrakeSwitchDelayS = null }).Braking : null;
             BrakingResult? truthStop = truthOnset is { } t ? BrakingAnalyzer.Analyze(sloped.Truth, [t]) : null;
             double gradeTruthDeg = Math.Atan(c.Scenario.Environment.GradePercent / 100) * 180 / Math.PI;
             return new BrakingOutcome(
@@ -112,6 +125,8 @@ public static class BrakingBenchmark
                 DistanceSigmaM = b.StoppingDistanceM.Sigma,
                 OnsetSigmaS = b.OnsetS.Sigma,
                 GradeSigmaDeg = analysis.Grade?.SigmaRad * 180 / Math.PI,
+                UnmeasuredDelayDistanceM = unmeasured is { } u && sloped.Events.StoppingDistanceM is { } sd ? (u.StoppingDistanceM.Value - sd, u.StoppingDistanceM.Sigma) : null,
+                UnmeasuredDelayOnsetS = unmeasured is { } w && truthOnset is { } to ? (w.OnsetS.Value - to, w.OnsetS.Sigma) : null,
             };
         }
         catch (AnalysisException e)

@@ -29,7 +29,9 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// 0.05–2 s, or a steady rise through the stop) and 3 stop-and-go records; 8–100 teeth; edge
     /// timestamps with 0–20 µs jitter or a counter polled every 0.1–1 ms; an accelerometer at
     /// 100–1600 Hz with bias, tilt, noise and a drifting clock; half as logs written by the
-    /// firmware core, half as CSV files.</summary>
+    /// firmware core, half as CSV files. Every stop from cruise is then added once more, after
+    /// those, as a log with a brake switch (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>),
+    /// its delay drawn from a stream of its own so the records above stay as they are.</summary>
     public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre)
     {
         int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
@@ -78,6 +80,19 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             bool asLog = i % 2 == 1;
             string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz; {(asLog ? "log" : "CSV")}");
             cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary));
+        }
+
+        var switchRandom = new Random(unchecked((seed * 131) + 11));
+        foreach (PrescribedBenchCase stop in cases.Where(c => c.Group == BenchGroup.GeneratedCruiseStop).ToList())
+        {
+            double delay = 0.005 + (0.02 * switchRandom.NextDouble());
+            PrescribedRecordSpec spec = stop.Spec with
+            {
+                BrakeSwitchDelayS = delay,
+                Polled = stop.Spec.Polled is { } p ? p with { StallS = 0.02 } : null,
+            };
+            string summary = Invariant($"{stop.Summary.Replace("; CSV", "; log", StringComparison.Ordinal)}; brake switch {delay * 1e3:0.0} ms{(spec.Polled is null ? "" : ", 20 ms stalls")}");
+            cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary));
         }
 
         return cases;

@@ -46,7 +46,8 @@ public static class BenchBrakingCommand
         }
 
         List<BrakingOutcome> ok = all.Where(o => o.Failure == null).ToList();
-        Group("With a brake switch (delay calibrated)", ok.Where(o => o.Case.HasSwitch).ToList(), output);
+        Group("With a brake switch (delay measured, told to ±1 ms)", ok.Where(o => o.Case.HasSwitch).ToList(), output);
+        Unmeasured(ok.Where(o => o.Case.HasSwitch).ToList(), output);
         Group("Without a switch (onset from the deceleration)", ok.Where(o => !o.Case.HasSwitch).ToList(), output);
         Group("All stops", ok, output);
         double[] distance = Percentiles.AbsSorted(ok.Select(o => o.DistanceErrorM));
@@ -96,6 +97,31 @@ public static class BenchBrakingCommand
             var z = pairs.Where(p => p.Error is not null && p.Sigma > 0).Select(p => Math.Abs(p.Error!.Value) / p.Sigma!.Value).ToList();
             double Share(double k) => z.Count == 0 ? double.NaN : 100.0 * z.Count(x => x <= k) / z.Count;
             output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"    {name,-20} {Share(2),6:0.0} % {Share(3),6:0.0} %   (n {z.Count})"));
+        }
+    }
+
+    /// <summary>The switch stops decoded again without the switch's delay (its 0–30 ms prior).</summary>
+    private static void Unmeasured(List<BrakingOutcome> group, TextWriter output)
+    {
+        var distance = group.Where(o => o.UnmeasuredDelayDistanceM is not null).Select(o => o.UnmeasuredDelayDistanceM!.Value).ToList();
+        var onset = group.Where(o => o.UnmeasuredDelayOnsetS is not null).Select(o => o.UnmeasuredDelayOnsetS!.Value).ToList();
+        output.WriteLine();
+        output.WriteLine($"With a brake switch, delay not measured (uniform 0–30 ms prior): {onset.Count} stops");
+        if (onset.Count == 0)
+        {
+            return;
+        }
+
+        output.WriteLine("  figure                 unit |    p50     p95     max  | within ±2σ / ±3σ");
+        Row("stopping distance", "m", distance, 1);
+        Row("brake onset", "ms", onset, 1000);
+
+        void Row(string name, string unit, List<(double Error, double Sigma)> pairs, double scale)
+        {
+            double[] sorted = Percentiles.AbsSorted(pairs.Select(p => (double?)p.Error), scale);
+            var z = pairs.Where(p => p.Sigma > 0).Select(p => Math.Abs(p.Error) / p.Sigma).ToList();
+            double Share(double k) => z.Count == 0 ? double.NaN : 100.0 * z.Count(x => x <= k) / z.Count;
+            output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {name,-22} {unit,4} | {Percentiles.Of(sorted, 0.5),7:0.000} {Percentiles.Of(sorted, 0.95),7:0.000} {Percentiles.Max(sorted),7:0.000}  | {Share(2),6:0.0} % {Share(3),6:0.0} %"));
         }
     }
 
