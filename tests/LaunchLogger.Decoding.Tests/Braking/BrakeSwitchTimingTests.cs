@@ -36,6 +36,8 @@ public class BrakeSwitchTimingTests
     [InlineData(0.001, 0.02, 1.0, 0.0015)]
     [InlineData(0.0005, 0.02, 2.0, 0.0008)]
     [InlineData(0.004, 0.005, 0.5, 0.003)]
+    [InlineData(0.001, 0, 0, 0.003)] // no stalls, two passes in three without a pulse: the lag of
+                                     // the unbracketed time decides σ
     public void The_loop_lag_from_pulse_brackets_matches_closings_at_random_moments(double stepS, double stallS, double stallsPerS, double pulsePeriodS)
     {
         // A loop of seeded steps (±25 %) and stalls, a pickup pulsing every pulsePeriodS: the
@@ -97,5 +99,44 @@ public class BrakeSwitchTimingTests
         double squareMs = (0.98 / 3) + (0.02 * 400 / 3);
         Assert.Equal(meanMs * 1e-3, lag.Value, 1e-9);
         Assert.Equal(Math.Sqrt(squareMs - (meanMs * meanMs)) * 1e-3, lag.Sigma, 1e-9);
+    }
+
+    [Fact]
+    public void A_standing_stretch_leaves_the_loop_lag_as_the_moving_stretch_gives_it()
+    {
+        // Moving: brackets back to back, 0.5 and 2.5 ms in turn, for 3 s. Standing: a pulse every
+        // 0.5 s for 5 s (each bracket 1 ms), where stalls leave no bracket. The stall-free pulses
+        // at rest must not pull the lag towards their own widths.
+        var moving = new List<PulseRecord>();
+        double t = 0;
+        for (int k = 1; t < 3; k++)
+        {
+            double width = k % 2 == 0 ? 0.0025 : 0.0005;
+            moving.Add(new PulseRecord(k, t, t + width));
+            t += width;
+        }
+
+        var both = new List<PulseRecord>(moving);
+        for (int k = 1; k <= 10; k++)
+        {
+            double hi = t + (0.5 * k);
+            both.Add(new PulseRecord(moving.Count + k, hi - 0.001, hi));
+        }
+
+        Estimate alone = BrakeSwitchTiming.LagOfLoop(moving);
+        Estimate withRest = BrakeSwitchTiming.LagOfLoop(both);
+        Assert.Equal(alone.Value, withRest.Value, 1e-12);
+        Assert.Equal(alone.Sigma, withRest.Sigma, 1e-12);
+    }
+
+    [Fact]
+    public void Pulses_too_far_apart_to_show_the_loop_give_the_lag_of_their_median_bracket()
+    {
+        // A crawl: a pulse every 0.2 s in a 2 ms bracket. No stretch counts as moving, so the
+        // median bracket stands for the loop's gap: uniform on it, 1 ms ± 2/√12 ms.
+        var crawl = Enumerable.Range(1, 20).Select(k => new PulseRecord(k, (k * 0.2) - 0.002, k * 0.2)).ToList();
+        Estimate lag = BrakeSwitchTiming.LagOfLoop(crawl);
+        Assert.Equal(0.001, lag.Value, 1e-12);
+        Assert.Equal(0.002 / Math.Sqrt(12), lag.Sigma, 1e-12);
     }
 }
