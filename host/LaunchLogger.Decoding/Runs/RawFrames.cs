@@ -39,6 +39,10 @@ internal sealed class RawFrames : IDisposable
         used += size;
     }
 
+    /// <summary><paramref name="length"/> kept bytes from <paramref name="offset"/> in chunk
+    /// <paramref name="chunk"/> (a place a <see cref="Reader"/> gave).</summary>
+    public ReadOnlySpan<byte> Bytes(int chunk, int offset, int length) => chunks[chunk].AsSpan(offset, length);
+
     /// <summary>The bodies in the order they were added.</summary>
     public Reader Read()
     {
@@ -83,6 +87,12 @@ internal sealed class RawFrames : IDisposable
         private int chunk;
         private int offset;
 
+        /// <summary>The chunk of the body <see cref="TryNext"/> gave last.</summary>
+        public int Chunk { get; private set; }
+
+        /// <summary>Where in its chunk the body <see cref="TryNext"/> gave last starts.</summary>
+        public int BodyOffset { get; private set; }
+
         /// <summary>The next body and its frame type; false after the last.</summary>
         public bool TryNext(out FrameType type, out ReadOnlySpan<byte> body)
         {
@@ -94,6 +104,8 @@ internal sealed class RawFrames : IDisposable
                     type = (FrameType)bytes[offset];
                     int length = BinaryPrimitives.ReadUInt16LittleEndian(bytes.AsSpan(offset + 1));
                     body = bytes.AsSpan(offset + HeaderBytes, length);
+                    Chunk = chunk;
+                    BodyOffset = offset + HeaderBytes;
                     offset += HeaderBytes + length;
                     return true;
                 }

@@ -83,7 +83,8 @@ internal sealed class RunBuilder
                 parsed = FrameBodies.TryReadAcceleration(body, out AccelerationBody accel);
                 if (parsed)
                 {
-                    AddAcceleration(accel);
+                    // The samples end the body; they are read where they were kept.
+                    AddAcceleration(accel, kept.Chunk, kept.BodyOffset + body.Length - accel.Samples.Length);
                 }
             }
 
@@ -96,7 +97,7 @@ internal sealed class RunBuilder
     }
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void AddAcceleration(in AccelerationBody body)
+    private void AddAcceleration(in AccelerationBody body, int chunk, int byteOffset)
     {
         if (!InBounds(body.ReadMicros) || body.FirstIndex > MaxSampleIndex)
         {
@@ -104,8 +105,14 @@ internal sealed class RunBuilder
             return;
         }
 
-        scratch.AccelFrames.Add(new RunScratch.AccelFrame(body.ReadMicros, body.FirstIndex, body.Count, AccelSampleCount));
-        scratch.AccelSamples.AddRange(body.Samples);
+        if ((long)(AccelSampleCount + body.Count) * AccelerationBody.BytesPerSample > Array.MaxLength)
+        {
+            // The samples kept must fit one array (as when they were collected into one).
+            throw new OutOfMemoryException("a run holds more values than an array can");
+        }
+
+        scratch.AccelFrames.Add(new RunScratch.AccelFrame(body.ReadMicros, body.FirstIndex, body.Count, chunk, byteOffset));
+        AccelSampleCount += body.Count;
     }
 
     public void AddEvent(EventBody evt)
@@ -215,7 +222,7 @@ internal sealed class RunBuilder
     private const long MaxSampleIndex = 1L << 40;
 
     /// <summary>Accelerometer samples read so far.</summary>
-    private int AccelSampleCount => scratch.AccelSamples.Count / AccelerationBody.BytesPerSample;
+    private int AccelSampleCount { get; set; }
 
     private bool InBounds(long micros) => micros >= earliestMicros && micros <= latestMicros;
 
@@ -524,11 +531,10 @@ internal sealed class RunBuilder
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private PackedAccelSamples PackSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes)
     {
-        ReadOnlySpan<byte> samples = scratch.AccelSamples.Span;
         ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
         var stretches = new StretchList(frames.Length);
-        byte[] kept = GC.AllocateUninitializedArray<byte>(samples.Length);
+        byte[] kept = GC.AllocateUninitializedArray<byte>(AccelSampleCount * AccelerationBody.BytesPerSample);
         double periodS = clock.PeriodS;
         double earliestS = LogUnits.Seconds(earliestMicros);
         double latestS = LogUnits.Seconds(latestMicros);
@@ -542,7 +548,7 @@ internal sealed class RunBuilder
             if (WholeFrameKept(frame, originS, periodS, lastIndex, lastTime, earliestS, latestS, out double frameLastTime))
             {
                 stretches.Add(keptCount, frame.FirstIndex, originS);
-                keptCount = Copy(samples, frame, 0, frame.Count, kept, keptCount);
+                keptCount = Copy(raw, frame, 0, frame.Count, kept, keptCount);
                 lastIndex = frame.FirstIndex + frame.Count - 1;
                 lastTime = frameLastTime;
                 continue;
@@ -557,7 +563,7 @@ internal sealed class RunBuilder
                 {
                     if (runFrom >= 0)
                     {
-                        keptCount = Copy(samples, frame, runFrom, i, kept, keptCount);
+                        keptCount = Copy(raw, frame, runFrom, i, kept, keptCount);
                         runFrom = -1;
                     }
 
@@ -576,7 +582,7 @@ internal sealed class RunBuilder
 
             if (runFrom >= 0)
             {
-                keptCount = Copy(samples, frame, runFrom, frame.Count, kept, keptCount);
+                keptCount = Copy(raw, frame, runFrom, frame.Count, kept, keptCount);
             }
         }
 
@@ -599,10 +605,10 @@ internal sealed class RunBuilder
                 && periodS > 0 && periodS > 4 * largest / (1L << 52);
         }
 
-        static int Copy(ReadOnlySpan<byte> samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
+        static int Copy(RawFrames samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
         {
             const int size = AccelerationBody.BytesPerSample;
-            samples.Slice((frame.Offset + from) * size, (to - from) * size).CopyTo(into.AsSpan(at * size));
+            samples.Bytes(frame.Chunk, frame.ByteOffset + (from * size), (to - from) * size).CopyTo(into.AsSpan(at * size));
             return at + to - from;
         }
     }
