@@ -22,7 +22,7 @@ public static class LogReader
     /// <param name="bytes">The whole log.</param>
     /// <param name="sourceName">Its name, used in run sources and messages.</param>
     /// <exception cref="ArgumentNullException"><paramref name="sourceName"/> is null.</exception>
-    public static LogReadResult Read(ReadOnlySpan<byte> bytes, string sourceName) => Read(bytes, sourceName, new RunPipeline(RunBuilding.Parallel));
+    public static LogReadResult Read(ReadOnlySpan<byte> bytes, string sourceName) => Read(bytes, sourceName, RunPipeline.ForThisMachine());
 
     /// <summary>As <see cref="Read(ReadOnlySpan{byte}, string)"/>, with the runs built by
     /// <paramref name="pipeline"/>, which is disposed at the end.</summary>
@@ -101,7 +101,7 @@ public static class LogReader
     {
         ArgumentNullException.ThrowIfNull(stream);
         ArgumentNullException.ThrowIfNull(sourceName);
-        return Blocks(stream, sourceName, completed, () => new RunPipeline(RunBuilding.Parallel), cancellationToken);
+        return Blocks(stream, sourceName, completed, () => RunPipeline.ForThisMachine(), cancellationToken);
     }
 
     /// <summary>As <see cref="ReadRuns(Stream, string, Action{LogReadResult}?, CancellationToken)"/>,
@@ -121,7 +121,7 @@ public static class LogReader
     {
         ArgumentNullException.ThrowIfNull(path);
         FileStream stream = InputFiles.Open(path);
-        return Closing(stream, Blocks(stream, Path.GetFileName(path), completed, () => new RunPipeline(RunBuilding.Parallel), cancellationToken));
+        return Closing(stream, Blocks(stream, Path.GetFileName(path), completed, () => RunPipeline.ForThisMachine(), cancellationToken));
 
         static IEnumerable<DecodedRun> Closing(FileStream stream, IEnumerable<DecodedRun> runs)
         {

@@ -135,6 +135,9 @@ internal sealed class RunBuilder
 
     public void Warn(string message) => warnings.Add(message);
 
+    /// <summary>Gives back the kept bodies of a run that will not be built.</summary>
+    public void Abandon() => raw.Dispose();
+
     /// <summary>Builds the run, once, and gives back the kept bodies.</summary>
     /// <param name="healthBaseline">Counters to difference the run's last health frame against
     /// (null: from zero, for the first run after power-up).</param>
