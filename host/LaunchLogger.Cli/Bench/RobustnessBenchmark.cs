@@ -63,10 +63,7 @@ public static class RobustnessBenchmark
     /// <summary>Runs case <paramref name="index"/> of the set seeded by <paramref name="seed"/>.</summary>
     public static Outcome RunCase(IReadOnlyList<byte[]> bases, int seed, int index, Limits limits)
     {
-        var random = new Random(HashCode.Combine(seed, index, 0x5eed));
-        var kind = (Kind)(index % Enum.GetValues<Kind>().Length);
-        byte[] original = bases[random.Next(bases.Count)];
-        (byte[] log, List<(int Start, int End)> damaged) = Mutate(kind, original, bases, random);
+        (Kind kind, byte[] original, byte[] log, List<(int Start, int End)> damaged) = Case(bases, seed, index);
         long undamaged = 0;
         long recovered = 0;
         if (kind is Kind.BitFlips or Kind.Cut or Kind.Garbage)
@@ -96,6 +93,24 @@ public static class RobustnessBenchmark
         worker.Start();
         bool finished = worker.Join(limits.PerCase);
         return new Outcome(index, kind, crash, !finished, allocated, clock.Elapsed.TotalSeconds, undamaged, recovered);
+    }
+
+    /// <summary>The damaged log of case <paramref name="index"/> of the set seeded by
+    /// <paramref name="seed"/> (as <see cref="RunCase"/> decodes it), and its kind of damage.</summary>
+    public static (byte[] Log, Kind Kind) DamagedLog(IReadOnlyList<byte[]> bases, int seed, int index)
+    {
+        (Kind kind, _, byte[] log, _) = Case(bases, seed, index);
+        return (log, kind);
+    }
+
+    private static (Kind Kind, byte[] Original, byte[] Log, List<(int Start, int End)> Damaged) Case(IReadOnlyList<byte[]> bases, int seed, int index)
+    {
+        // Not HashCode.Combine: its seed changes with every process, so the cases would too.
+        var random = new Random(unchecked((seed * 1_000_003) + (index * 7919) + 0x5eed));
+        var kind = (Kind)(index % Enum.GetValues<Kind>().Length);
+        byte[] original = bases[random.Next(bases.Count)];
+        (byte[] log, List<(int Start, int End)> damaged) = Mutate(kind, original, bases, random);
+        return (kind, original, log, damaged);
     }
 
     /// <summary>The whole decoder, as <c>report --json</c> runs it.</summary>

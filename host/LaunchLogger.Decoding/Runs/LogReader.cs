@@ -1,5 +1,6 @@
 using System.Buffers;
 using System.Runtime.CompilerServices;
+using System.Runtime.ExceptionServices;
 using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Reading;
 using LaunchLogger.Firmware.Wire;
@@ -9,7 +10,10 @@ namespace LaunchLogger.Decoding.Runs;
 /// <summary>Reads a whole log — bytes in memory, a stream or a file — into runs: the entry point
 /// that joins <see cref="FrameReader"/> and <see cref="RunAssembler"/>.</summary>
 /// <remarks>Damaged or cut-off input never throws: it shows in the result's counters and
-/// warnings. A stream is read in blocks and never buffered whole.</remarks>
+/// warnings. A stream is read in blocks and never buffered whole. The frames are read on the
+/// caller's thread; each run, once closed, is built on the thread pool while the frames after it
+/// are read (<see cref="RunPipeline"/>), and the runs come out in log order, the same as when
+/// built one after the other.</remarks>
 public static class LogReader
 {
     private const int StreamBlockBytes = 64 * 1024;
@@ -18,13 +22,37 @@ public static class LogReader
     /// <param name="bytes">The whole log.</param>
     /// <param name="sourceName">Its name, used in run sources and messages.</param>
     /// <exception cref="ArgumentNullException"><paramref name="sourceName"/> is null.</exception>
-    public static LogReadResult Read(ReadOnlySpan<byte> bytes, string sourceName)
+    public static LogReadResult Read(ReadOnlySpan<byte> bytes, string sourceName) => Read(bytes, sourceName, RunPipeline.ForThisMachine());
+
+    /// <summary>As <see cref="Read(ReadOnlySpan{byte}, string)"/>, with the runs built by
+    /// <paramref name="pipeline"/>, which is disposed at the end.</summary>
+    internal static LogReadResult Read(ReadOnlySpan<byte> bytes, string sourceName, RunPipeline pipeline)
     {
-        var assembler = new RunAssembler(sourceName);
+        ArgumentNullException.ThrowIfNull(sourceName);
+        using RunPipeline owned = pipeline;
+        var assembler = new RunAssembler(sourceName, pipeline.Post);
         var reader = default(FrameReader);
         Span<byte> payload = stackalloc byte[LogFormat.MaxPayloadBytes];
-        Pump(ref reader, bytes, isFinalBlock: true, payload, assembler);
-        return assembler.Complete(reader.Stats);
+        var runs = new List<DecodedRun>();
+        int used = 0;
+        bool paused;
+        do
+        {
+            used += Pump(ref reader, bytes[used..], isFinalBlock: true, payload, assembler, pipeline, out paused);
+            while (pipeline.IsFull || pipeline.OldestBuilt)
+            {
+                runs.Add(pipeline.Take());
+            }
+        }
+        while (paused);
+
+        LogReadResult end = assembler.Complete(reader.Stats);
+        while (pipeline.Count > 0)
+        {
+            runs.Add(pipeline.Take());
+        }
+
+        return Finished(end, pipeline, runs);
     }
 
     /// <summary>Reads a log from a stream to its end (a file, a captured serial stream).</summary>
@@ -73,7 +101,17 @@ public static class LogReader
     {
         ArgumentNullException.ThrowIfNull(stream);
         ArgumentNullException.ThrowIfNull(sourceName);
-        return Blocks(stream, sourceName, completed, cancellationToken);
+        return Blocks(stream, sourceName, completed, () => RunPipeline.ForThisMachine(), cancellationToken);
+    }
+
+    /// <summary>As <see cref="ReadRuns(Stream, string, Action{LogReadResult}?, CancellationToken)"/>,
+    /// with the runs built by <paramref name="pipeline"/>, which is disposed when the runs end.</summary>
+    internal static IEnumerable<DecodedRun> ReadRuns(Stream stream, string sourceName, RunPipeline pipeline, Action<LogReadResult>? completed = null, CancellationToken cancellationToken = default)
+    {
+        ArgumentNullException.ThrowIfNull(stream);
+        ArgumentNullException.ThrowIfNull(sourceName);
+        ArgumentNullException.ThrowIfNull(pipeline);
+        return Blocks(stream, sourceName, completed, () => pipeline, cancellationToken);
     }
 
     /// <summary>As <see cref="ReadRuns(Stream, string, Action{LogReadResult}?, CancellationToken)"/>
@@ -83,7 +121,7 @@ public static class LogReader
     {
         ArgumentNullException.ThrowIfNull(path);
         FileStream stream = InputFiles.Open(path);
-        return Closing(stream, Blocks(stream, Path.GetFileName(path), completed, cancellationToken));
+        return Closing(stream, Blocks(stream, Path.GetFileName(path), completed, () => RunPipeline.ForThisMachine(), cancellationToken));
 
         static IEnumerable<DecodedRun> Closing(FileStream stream, IEnumerable<DecodedRun> runs)
         {
@@ -97,48 +135,89 @@ public static class LogReader
         }
     }
 
-    private static IEnumerable<DecodedRun> Blocks(Stream stream, string sourceName, Action<LogReadResult>? completed, CancellationToken cancellationToken)
+    /// <remarks>A stop between blocks — cancellation, or the stream failing — comes after every run
+    /// closed before it has been handed out, as when runs were built inline; a run whose build
+    /// threw throws when its turn comes. Leaving the loop early waits for the builds under way.</remarks>
+    private static IEnumerable<DecodedRun> Blocks(Stream stream, string sourceName, Action<LogReadResult>? completed, Func<RunPipeline> newPipeline, CancellationToken cancellationToken)
     {
-        var assembler = new RunAssembler(sourceName);
+        using RunPipeline pipeline = newPipeline();
+        var assembler = new RunAssembler(sourceName, pipeline.Post);
         var reader = default(FrameReader);
         byte[] payload = new byte[LogFormat.MaxPayloadBytes];
         byte[] block = new byte[StreamBlockBytes];
         int filled = 0;
         while (true)
         {
-            cancellationToken.ThrowIfCancellationRequested();
-            int got = stream.Read(block, filled, block.Length - filled);
+            int got = 0;
+            ExceptionDispatchInfo? stop = null;
+            try
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+                got = stream.Read(block, filled, block.Length - filled);
+            }
+            catch (Exception e)
+            {
+                stop = ExceptionDispatchInfo.Capture(e);
+            }
+
+            if (stop != null)
+            {
+                while (pipeline.Count > 0)
+                {
+                    yield return pipeline.Take();
+                }
+
+                stop.Throw();
+            }
+
             filled += got;
             bool final = got == 0;
-            int used = Pump(ref reader, block.AsSpan(0, filled), final, payload, assembler);
+            int used = 0;
+            bool paused;
+            do
+            {
+                used += Pump(ref reader, block.AsSpan(used, filled - used), final, payload, assembler, pipeline, out paused);
+                while (pipeline.IsFull || pipeline.OldestBuilt)
+                {
+                    yield return pipeline.Take();
+                }
+            }
+            while (paused);
 
             // The reader leaves at most one unfinished frame (≤ MaxEncodedFrameBytes) unconsumed.
             block.AsSpan(used, filled - used).CopyTo(block);
             filled -= used;
-            while (assembler.TryTakeRun(out DecodedRun? run))
-            {
-                yield return run;
-            }
-
             if (final)
             {
                 LogReadResult end = assembler.Complete(reader.Stats);
-                foreach (DecodedRun run in end.Runs)
+                while (pipeline.Count > 0)
                 {
-                    yield return run;
+                    yield return pipeline.Take();
                 }
 
-                completed?.Invoke(new LogReadResult { Source = end.Source, Runs = [], Stats = end.Stats, Warnings = end.Warnings });
+                completed?.Invoke(Finished(end, pipeline, []));
                 yield break;
             }
         }
     }
 
-    /// <summary>Reads every frame the input holds into the assembler; returns the bytes used.</summary>
+    /// <summary>The assembler's result with <paramref name="runs"/> and the bodies found corrupt
+    /// when the runs were built.</summary>
+    private static LogReadResult Finished(LogReadResult end, RunPipeline pipeline, IReadOnlyList<DecodedRun> runs) => new()
+    {
+        Source = end.Source,
+        Runs = runs,
+        Stats = end.Stats with { CorruptBodies = end.Stats.CorruptBodies + pipeline.CorruptBodies },
+        Warnings = end.Warnings,
+    };
+
+    /// <summary>Reads the input's frames into the assembler until it needs more data, or until
+    /// <paramref name="pipeline"/> is full (<paramref name="paused"/>: call again with the rest
+    /// once a run has been taken); returns the bytes used.</summary>
     /// <remarks>Fully optimised from the first call: a whole log in memory is one long call,
     /// which tiered compilation would otherwise run in its less optimised on-stack-replacement code.</remarks>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static int Pump(ref FrameReader reader, ReadOnlySpan<byte> input, bool isFinalBlock, Span<byte> payload, RunAssembler assembler)
+    private static int Pump(ref FrameReader reader, ReadOnlySpan<byte> input, bool isFinalBlock, Span<byte> payload, RunAssembler assembler, RunPipeline pipeline, out bool paused)
     {
         int offset = 0;
         while (true)
@@ -148,9 +227,15 @@ public static class LogReader
             if (status == OperationStatus.Done)
             {
                 assembler.Add(frame, reader.Stats);
+                if (pipeline.IsFull)
+                {
+                    paused = true;
+                    return offset;
+                }
             }
             else if (status == OperationStatus.NeedMoreData)
             {
+                paused = false;
                 return offset;
             }
         }

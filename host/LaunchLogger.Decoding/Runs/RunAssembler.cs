@@ -21,13 +21,17 @@ namespace LaunchLogger.Decoding.Runs;
 /// health frame of the previous run of the same power-up (or against zero for run 1); when that
 /// run is not in the log, against the run's own first health frame. The widest bracket is a
 /// maximum and is reported as read.</para>
+/// <para>A closed run is built here, before <see cref="Add"/> returns — or, for
+/// <see cref="LogReader"/>, handed to a <see cref="RunPipeline"/> that builds it on another
+/// thread: everything a build needs is settled when its run closes.</para>
 /// </remarks>
 public sealed class RunAssembler
 {
     private readonly string source;
     private readonly List<DecodedRun> runs = [];
     private readonly List<string> warnings = [];
-    private readonly RunScratch scratch = new();
+    private readonly Action<RunBuilder, long[]?>? handOff;
+    private RunScratch? scratch;
     private RunBuilder? open;
     private ReaderStats seen;
     private long corruptBodies;
@@ -59,6 +63,17 @@ public sealed class RunAssembler
     {
         ArgumentNullException.ThrowIfNull(sourceName);
         source = sourceName;
+    }
+
+    /// <summary>Starts assembling runs that are handed, as each closes, to
+    /// <paramref name="closed"/> with the health baseline to build it with, instead of being
+    /// built here: <see cref="Runs"/> stays empty, and the bodies that fail to parse at build
+    /// time (<see cref="RunBuilder.CorruptBodiesAtBuild"/>) are not in the counters
+    /// <see cref="Complete"/> returns.</summary>
+    internal RunAssembler(string sourceName, Action<RunBuilder, long[]?> closed)
+        : this(sourceName)
+    {
+        handOff = closed;
     }
 
     /// <summary>Runs finished so far and not taken, in log order (a live reader can show them as
@@ -123,15 +138,9 @@ public sealed class RunAssembler
         switch (type)
         {
             case FrameType.Pulses:
-                parsed = run.AddPulses(body);
-                break;
             case FrameType.Acceleration:
-                parsed = FrameBodies.TryReadAcceleration(body, out AccelerationBody accel);
-                if (parsed)
-                {
-                    run.AddAcceleration(accel);
-                }
-
+                // Parsed when the run is built (and counted then if they do not parse).
+                run.Keep(type, body);
                 break;
             case FrameType.Event:
                 parsed = FrameBodies.TryReadEvent(body, out EventBody evt);
@@ -257,7 +266,7 @@ public sealed class RunAssembler
                 : "cut off: the log ends before this run's summary (power lost or capture stopped)");
         }
 
-        scratch.Dispose();
+        scratch?.Dispose();
         ReaderStats stats = readerStats with { CorruptBodies = corruptBodies, OrphanFrames = orphanFrames };
         WarnOutsideRuns(stats);
         return new LogReadResult
@@ -388,7 +397,7 @@ public sealed class RunAssembler
         string name = powerUp == 0
             ? Invariant($"{source} run {configuration.RunNumber}")
             : Invariant($"{source} run {configuration.RunNumber} (after restart {powerUp})");
-        open = new RunBuilder(configuration, name, scratch);
+        open = new RunBuilder(configuration, name);
     }
 
     private void Close(string? cutOffReason)
@@ -415,11 +424,21 @@ public sealed class RunAssembler
             baseline = run.FirstHealth?.Counters;
         }
 
-        runs.Add(run.Build(baseline));
+        if (handOff != null)
+        {
+            handOff(run, baseline);
+        }
+        else
+        {
+            scratch ??= new RunScratch();
+            runs.Add(run.Build(baseline, scratch));
+            corruptBodies += run.CorruptBodiesAtBuild;
 
-        // The run holds its own arrays now: a long run's collection buffers are let go before the
-        // reader's caller works on it.
-        scratch.ClearAndShrink();
+            // The run holds its own arrays now: a long run's collection buffers are let go before
+            // the reader's caller works on it.
+            scratch.ClearAndShrink();
+        }
+
         previousConfiguration = run.Configuration;
         previousRunNumber = runNumber;
         previousRunPowerUp = powerUp;

@@ -8,10 +8,14 @@ namespace LaunchLogger.Decoding.Runs;
 
 /// <summary>Collects the frames of one run as the log gives them, then turns them into a
 /// <see cref="DecodedRun"/> in SI units with accelerometer times and warnings.</summary>
+/// <remarks>Collecting is cheap and in log order: pulse and acceleration bodies are only kept
+/// (<see cref="RawFrames"/>); <see cref="Build"/> parses them and does the rest, and depends on
+/// nothing but this run, so it may run on another thread once the run has closed.</remarks>
 internal sealed class RunBuilder
 {
-    private readonly RunScratch scratch;
+    private readonly RawFrames raw = new();
     private readonly List<EventBody> events = [];
+    private RunScratch scratch = null!;
     private readonly List<string> warnings = [];
 
     // The run's time bounds (InputLimits): observations outside them cannot belong to the run
@@ -21,17 +25,14 @@ internal sealed class RunBuilder
     private long eventsOutOfBounds;
     private long accelFramesOutOfBounds;
 
-    /// <summary>Opens a run collecting into <paramref name="scratch"/>, which it empties first
-    /// and must have to itself until <see cref="Build"/>.</summary>
-    public RunBuilder(ConfigurationBody configuration, string source, RunScratch scratch)
+    /// <summary>Opens a run.</summary>
+    public RunBuilder(ConfigurationBody configuration, string source)
     {
         Configuration = configuration;
         earliestMicros = configuration.OpenedMicros - (long)(InputLimits.MaxPreRunS * 1e6);
         latestMicros = configuration.OpenedMicros + (long)(InputLimits.MaxRunSpanS * 1e6);
         Source = source;
         Frames = 1;
-        this.scratch = scratch;
-        scratch.Clear();
     }
 
     public ConfigurationBody Configuration { get; }
@@ -49,6 +50,10 @@ internal sealed class RunBuilder
 
     public long CorruptBodies { get; set; }
 
+    /// <summary>Pulse and acceleration bodies that did not parse when the run was built (also in
+    /// <see cref="CorruptBodies"/>): the log's count of corrupt bodies takes them in then.</summary>
+    public long CorruptBodiesAtBuild { get; private set; }
+
     public long UnknownFrames { get; set; }
 
     public HealthBody? FirstHealth { get; private set; }
@@ -57,11 +62,42 @@ internal sealed class RunBuilder
 
     public SummaryBody? Summary { get; set; }
 
-    /// <summary>Parses a pulses body into this run's observations; false when it does not parse.</summary>
-    public bool AddPulses(ReadOnlySpan<byte> body) => FrameBodies.TryReadPulses(body, out _, scratch.Channel0, scratch.Channel1);
+    /// <summary>Keeps a pulses or acceleration body, parsed when the run is built.</summary>
+    public void Keep(FrameType type, ReadOnlySpan<byte> body) => raw.Add(type, body);
+
+    /// <summary>Parses the kept bodies into <see cref="scratch"/>, in log order; counts those
+    /// that do not parse.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void ParseKept()
+    {
+        RawFrames.Reader kept = raw.Read();
+        while (kept.TryNext(out FrameType type, out ReadOnlySpan<byte> body))
+        {
+            bool parsed;
+            if (type == FrameType.Pulses)
+            {
+                parsed = FrameBodies.TryReadPulses(body, out _, scratch.Channel0, scratch.Channel1);
+            }
+            else
+            {
+                parsed = FrameBodies.TryReadAcceleration(body, out AccelerationBody accel);
+                if (parsed)
+                {
+                    // The samples end the body; they are read where they were kept.
+                    AddAcceleration(accel, kept.Chunk, kept.BodyOffset + body.Length - accel.Samples.Length);
+                }
+            }
+
+            if (!parsed)
+            {
+                CorruptBodiesAtBuild++;
+                CorruptBodies++;
+            }
+        }
+    }
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public void AddAcceleration(in AccelerationBody body)
+    private void AddAcceleration(in AccelerationBody body, int chunk, int byteOffset)
     {
         if (!InBounds(body.ReadMicros) || body.FirstIndex > MaxSampleIndex)
         {
@@ -69,8 +105,14 @@ internal sealed class RunBuilder
             return;
         }
 
-        scratch.AccelFrames.Add(new RunScratch.AccelFrame(body.ReadMicros, body.FirstIndex, body.Count, AccelSampleCount));
-        scratch.AccelSamples.AddRange(body.Samples);
+        if ((long)(AccelSampleCount + body.Count) * AccelerationBody.BytesPerSample > Array.MaxLength)
+        {
+            // The samples kept must fit one array (as when they were collected into one).
+            throw new OutOfMemoryException("a run holds more values than an array can");
+        }
+
+        scratch.AccelFrames.Add(new RunScratch.AccelFrame(body.ReadMicros, body.FirstIndex, body.Count, chunk, byteOffset));
+        AccelSampleCount += body.Count;
     }
 
     public void AddEvent(EventBody evt)
@@ -93,10 +135,30 @@ internal sealed class RunBuilder
 
     public void Warn(string message) => warnings.Add(message);
 
-    /// <summary>Builds the run.</summary>
+    /// <summary>Gives back the kept bodies of a run that will not be built.</summary>
+    public void Abandon() => raw.Dispose();
+
+    /// <summary>Builds the run, once, and gives back the kept bodies.</summary>
     /// <param name="healthBaseline">Counters to difference the run's last health frame against
     /// (null: from zero, for the first run after power-up).</param>
-    public DecodedRun Build(long[]? healthBaseline)
+    /// <param name="workspace">Buffers to parse into, emptied first, this build's alone until it returns.</param>
+    public DecodedRun Build(long[]? healthBaseline, RunScratch workspace)
+    {
+        scratch = workspace;
+        scratch.Clear();
+        try
+        {
+            ParseKept();
+            return BuildParsed(healthBaseline);
+        }
+        finally
+        {
+            raw.Dispose();
+            scratch = null!;
+        }
+    }
+
+    private DecodedRun BuildParsed(long[]? healthBaseline)
     {
         ConfigurationBody c = Configuration;
         var configuration = new RunConfiguration
@@ -163,7 +225,7 @@ internal sealed class RunBuilder
     private const long MaxSampleIndex = 1L << 40;
 
     /// <summary>Accelerometer samples read so far.</summary>
-    private int AccelSampleCount => scratch.AccelSamples.Count / AccelerationBody.BytesPerSample;
+    private int AccelSampleCount { get; set; }
 
     private bool InBounds(long micros) => micros >= earliestMicros && micros <= latestMicros;
 
@@ -472,11 +534,10 @@ internal sealed class RunBuilder
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private PackedAccelSamples PackSamples(ReadOnlySpan<RunScratch.AccelFrame> frames, SampleClock clock, AxisMapping axes)
     {
-        ReadOnlySpan<byte> samples = scratch.AccelSamples.Span;
         ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
         var stretches = new StretchList(frames.Length);
-        byte[] kept = GC.AllocateUninitializedArray<byte>(samples.Length);
+        byte[] kept = GC.AllocateUninitializedArray<byte>(AccelSampleCount * AccelerationBody.BytesPerSample);
         double periodS = clock.PeriodS;
         double earliestS = LogUnits.Seconds(earliestMicros);
         double latestS = LogUnits.Seconds(latestMicros);
@@ -490,7 +551,7 @@ internal sealed class RunBuilder
             if (WholeFrameKept(frame, originS, periodS, lastIndex, lastTime, earliestS, latestS, out double frameLastTime))
             {
                 stretches.Add(keptCount, frame.FirstIndex, originS);
-                keptCount = Copy(samples, frame, 0, frame.Count, kept, keptCount);
+                keptCount = Copy(raw, frame, 0, frame.Count, kept, keptCount);
                 lastIndex = frame.FirstIndex + frame.Count - 1;
                 lastTime = frameLastTime;
                 continue;
@@ -505,7 +566,7 @@ internal sealed class RunBuilder
                 {
                     if (runFrom >= 0)
                     {
-                        keptCount = Copy(samples, frame, runFrom, i, kept, keptCount);
+                        keptCount = Copy(raw, frame, runFrom, i, kept, keptCount);
                         runFrom = -1;
                     }
 
@@ -524,7 +585,7 @@ internal sealed class RunBuilder
 
             if (runFrom >= 0)
             {
-                keptCount = Copy(samples, frame, runFrom, frame.Count, kept, keptCount);
+                keptCount = Copy(raw, frame, runFrom, frame.Count, kept, keptCount);
             }
         }
 
@@ -547,10 +608,10 @@ internal sealed class RunBuilder
                 && periodS > 0 && periodS > 4 * largest / (1L << 52);
         }
 
-        static int Copy(ReadOnlySpan<byte> samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
+        static int Copy(RawFrames samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
         {
             const int size = AccelerationBody.BytesPerSample;
-            samples.Slice((frame.Offset + from) * size, (to - from) * size).CopyTo(into.AsSpan(at * size));
+            samples.Bytes(frame.Chunk, frame.ByteOffset + (from * size), (to - from) * size).CopyTo(into.AsSpan(at * size));
             return at + to - from;
         }
     }

@@ -13,9 +13,6 @@ internal sealed class RunScratch : IDisposable
     /// <summary>Pulse observations of channel 1, as read.</summary>
     public PooledBuffer<PulseMicros> Channel1 { get; } = new(16);
 
-    /// <summary>Accelerometer samples as written (x, y, z as i16 LE), frame after frame.</summary>
-    public PooledBuffer<byte> AccelSamples { get; } = new(6 * 1024);
-
     /// <summary>One entry per acceleration frame.</summary>
     public PooledBuffer<AccelFrame> AccelFrames { get; } = new(256);
 
@@ -30,7 +27,6 @@ internal sealed class RunScratch : IDisposable
     {
         Channel0.Clear();
         Channel1.Clear();
-        AccelSamples.Clear();
         AccelFrames.Clear();
         Bursts.Clear();
         BurstOfFrame.Clear();
@@ -41,7 +37,6 @@ internal sealed class RunScratch : IDisposable
     {
         Channel0.ClearAndShrink();
         Channel1.ClearAndShrink();
-        AccelSamples.ClearAndShrink();
         AccelFrames.ClearAndShrink();
         Bursts.ClearAndShrink();
         BurstOfFrame.ClearAndShrink();
@@ -51,16 +46,17 @@ internal sealed class RunScratch : IDisposable
     {
         Channel0.Dispose();
         Channel1.Dispose();
-        AccelSamples.Dispose();
         AccelFrames.Dispose();
         Bursts.Dispose();
         BurstOfFrame.Dispose();
     }
 
-    /// <summary>An acceleration frame's header and where its samples start in <see cref="AccelSamples"/>.</summary>
+    /// <summary>An acceleration frame's header and where its samples (as written: x, y, z as
+    /// i16 LE) lie among the run's kept bodies (<see cref="RawFrames.Bytes"/>).</summary>
     /// <param name="ReadMicros">When the box read the burst, µs.</param>
     /// <param name="FirstIndex">The sensor's index of the frame's first sample.</param>
     /// <param name="Count">Samples in the frame.</param>
-    /// <param name="Offset">The frame's first sample's position among the run's samples.</param>
-    public readonly record struct AccelFrame(long ReadMicros, long FirstIndex, int Count, int Offset);
+    /// <param name="Chunk">The kept chunk holding the samples.</param>
+    /// <param name="ByteOffset">Where in that chunk the first sample starts.</param>
+    public readonly record struct AccelFrame(long ReadMicros, long FirstIndex, int Count, int Chunk, int ByteOffset);
 }
