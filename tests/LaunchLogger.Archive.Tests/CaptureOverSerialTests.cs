@@ -45,6 +45,9 @@ public class CaptureOverSerialTests
         try
         {
             Task<ExitCode> capture = Task.Run(() => CaptureCommand.Run(port, CaptureCommand.BoxBaudRate, raw, archive, RunAssignment.None, DisplayUnits.Metric, false, said, new StringWriter(), stop.Token));
+            // The box starts sending once capture has the port open: bytes written before that are
+            // discarded when it opens (as on a real port), and the test would count them as sent.
+            await WaitForOutput(said, output, "Ctrl+C to stop");
             var random = new Random(11);
             var pace = Stopwatch.StartNew();
             long paced = 0;
