@@ -74,10 +74,13 @@ public static class RunAnalyzer
             return [];
         }
 
-        Estimate loopLag = BrakeSwitchTiming.LagOfLoop(reconstruction.DistanceChannel == 1 ? run.SecondPulses : run.Pulses);
+        // The run's brackets are gone through only for a closing whose event has no gap (older logs).
+        Estimate? loopLag = null;
         return closings.Select(e => BrakeSwitchTiming.Onset(
             e.TimeS,
-            e.Values is [> 0 and var gapMicros] ? BrakeSwitchTiming.LagOfGap(gapMicros * 1e-6) : loopLag,
+            e.Values is [> 0 and var gapMicros]
+                ? BrakeSwitchTiming.LagOfGap(gapMicros * 1e-6)
+                : loopLag ??= BrakeSwitchTiming.LagOfLoop(reconstruction.DistanceChannel == 1 ? run.SecondPulses : run.Pulses),
             options.BrakeSwitchDelayS,
             options.BrakeSwitchDelaySigmaS)).ToArray();
     }
