@@ -1,4 +1,5 @@
 using LaunchLogger.Firmware.Capture;
+using LaunchLogger.Firmware.Hardware;
 using LaunchLogger.Firmware.LinuxBoard.Accelerometers.Lis3dh;
 using LaunchLogger.Firmware.LinuxBoard.Configuration;
 using LaunchLogger.Firmware.LinuxBoard.GpioLineEvents;
@@ -36,6 +37,75 @@ public sealed class BoardAppTests : IDisposable
     [Fact]
     public void A_run_stopped_by_ctrl_c_leaves_a_log_whose_frames_all_verify()
     {
+        (int exit, string output, byte[] log, int samplesLost, uint edges) = RunLaunch(brakeClosedAt: null, switchHoldMicros: 0);
+
+        Assert.Equal(BoardApp.ExitOk, exit);
+        Assert.Contains("stopped after 1 run(s)", output);
+        List<LogFrames.Frame> frames = LogFrames.Decode(log);
+
+        Assert.Equal(0, LogFrames.TrailingBytes(log));
+        Assert.NotEmpty(frames);
+        Assert.All(frames, f => Assert.True(f.CrcOk));
+        Assert.Equal(Enumerable.Range(0, frames.Count), frames.Select(f => f.Sequence));
+        Assert.Single(frames, f => f.Type == FrameType.Configuration);
+        Assert.Single(frames, f => f.Type == FrameType.Summary);
+        Assert.Equal(LogFormat.Delimiter, log[0]); // the lone delimiter before the power-up frame (LOG-FORMAT.md, 0x07)
+        Assert.Equal(FrameType.PowerUp, frames[0].Type);
+        Assert.Equal(FrameType.Configuration, frames[1].Type);
+        Assert.Equal(FrameType.Summary, frames[^1].Type);
+        Assert.Contains(frames, f => f.Type == FrameType.Pulses);
+        Assert.Contains(frames, f => f.Type == FrameType.Acceleration);
+
+        // Summary flags (LOG-FORMAT.md 0x06, last byte before the CRC): staged start, rollout
+        // reached, and not closed by a stop — Ctrl+C came while the car was still rolling.
+        byte flags = frames[^1].Payload[^5];
+        Assert.Equal(LogFormat.SummaryFlagStaged | LogFormat.SummaryFlagRolloutReached, flags);
+        Assert.Equal(0, samplesLost);
+        Assert.True(edges > 300);
+    }
+
+    [Theory]
+    [InlineData(20_000, new long[] { 4_008_000 })]
+    [InlineData(0, new long[] { 4_001_000, 4_008_000 })]
+    public void The_board_hands_its_switch_hold_time_to_the_loop(long holdMicros, long[] brakeOnMicros)
+    {
+        // The switch closes for 4 ms, bounces open for 3 ms, then stays closed. The loop passes
+        // every 1 ms; with the board's 20 ms hold only the lasting closing is an event, dated to
+        // the pass that first read it (LOG-FORMAT.md, event kind 5), with the 1 ms gap to the
+        // pass before; with no hold (the control) the bounce is an event too.
+        (int exit, _, byte[] log, _, _) = RunLaunch(now => (now >= 4_000_500 && now < 4_004_500) || now >= 4_007_500, holdMicros);
+
+        Assert.Equal(BoardApp.ExitOk, exit);
+        var closings = LogFrames.Decode(log)
+            .Where(f => f.Type == FrameType.Event && f.Payload[3] == (byte)EventKind.BrakeOn)
+            .Select(f =>
+            {
+                int end = f.Payload.Length - 4;
+                int at = 4 + Varint.Read(f.Payload, 4, end, out ulong time);
+                Varint.Read(f.Payload, at, end, out ulong gap);
+                return (Time: (long)time, Gap: (long)gap);
+            })
+            .ToList();
+        Assert.Equal(brakeOnMicros, closings.Select(c => c.Time));
+        Assert.All(closings, c => Assert.Equal(1_000, c.Gap));
+    }
+
+    [Fact]
+    public void A_device_that_cannot_be_opened_is_reported_with_its_own_message()
+    {
+        BoardSettings settings = BoardSettingsFile.Parse(
+            """{ "car": { "pulses_per_revolution": 48, "circumference_millimetres": 1960 }, "pulses": { "line": 17 }, "log": { "folder": "x" } }""",
+            "test");
+        var output = new StringWriter();
+
+        int exit = BoardApp.Run(settings, _ => throw new IOException("cannot open /dev/gpiochip9: No such file or directory (errno 2)"), CancellationToken.None, output);
+
+        Assert.Equal(BoardApp.ExitHardware, exit);
+        Assert.Contains("/dev/gpiochip9", output.ToString());
+    }
+
+    private (int Exit, string Output, byte[] Log, int SamplesLost, uint Edges) RunLaunch(Func<long, bool>? brakeClosedAt, long switchHoldMicros)
+    {
         BoardSettings settings = BoardSettingsFile.Parse(
             """
             {
@@ -70,6 +140,8 @@ public sealed class BoardAppTests : IDisposable
                     Accelerometer = new Lis3dhFifoAccelerometer(chip, 1344, 8),
                     AccelFifoDepth = Lis3dhFifoAccelerometer.FifoDepth,
                     Sink = new FileByteSink(logPath),
+                    BrakeSwitch = brakeClosedAt is null ? null : new ScriptedSwitch(() => brakeClosedAt(counter.NowMicros)),
+                    SwitchHoldMicros = switchHoldMicros,
                 };
                 hardware.Own((Lis3dhFifoAccelerometer)hardware.Accelerometer);
                 hardware.Own((FileByteSink)hardware.Sink);
@@ -111,49 +183,18 @@ public sealed class BoardAppTests : IDisposable
                 }
             });
 
-        Assert.Equal(BoardApp.ExitOk, exit);
-        Assert.Contains("stopped after 1 run(s)", output.ToString());
-        byte[] log = File.ReadAllBytes(logPath);
-        List<LogFrames.Frame> frames = LogFrames.Decode(log);
-
-        Assert.Equal(0, LogFrames.TrailingBytes(log));
-        Assert.NotEmpty(frames);
-        Assert.All(frames, f => Assert.True(f.CrcOk));
-        Assert.Equal(Enumerable.Range(0, frames.Count), frames.Select(f => f.Sequence));
-        Assert.Single(frames, f => f.Type == FrameType.Configuration);
-        Assert.Single(frames, f => f.Type == FrameType.Summary);
-        Assert.Equal(LogFormat.Delimiter, log[0]); // the lone delimiter before the power-up frame (LOG-FORMAT.md, 0x07)
-        Assert.Equal(FrameType.PowerUp, frames[0].Type);
-        Assert.Equal(FrameType.Configuration, frames[1].Type);
-        Assert.Equal(FrameType.Summary, frames[^1].Type);
-        Assert.Contains(frames, f => f.Type == FrameType.Pulses);
-        Assert.Contains(frames, f => f.Type == FrameType.Acceleration);
-
-        // Summary flags (LOG-FORMAT.md 0x06, last byte before the CRC): staged start, rollout
-        // reached, and not closed by a stop — Ctrl+C came while the car was still rolling.
-        byte flags = frames[^1].Payload[^5];
-        Assert.Equal(LogFormat.SummaryFlagStaged | LogFormat.SummaryFlagRolloutReached, flags);
-        Assert.Equal(0, chip.SamplesLost);
-        Assert.True(edges > 300);
-    }
-
-    [Fact]
-    public void A_device_that_cannot_be_opened_is_reported_with_its_own_message()
-    {
-        BoardSettings settings = BoardSettingsFile.Parse(
-            """{ "car": { "pulses_per_revolution": 48, "circumference_millimetres": 1960 }, "pulses": { "line": 17 }, "log": { "folder": "x" } }""",
-            "test");
-        var output = new StringWriter();
-
-        int exit = BoardApp.Run(settings, _ => throw new IOException("cannot open /dev/gpiochip9: No such file or directory (errno 2)"), CancellationToken.None, output);
-
-        Assert.Equal(BoardApp.ExitHardware, exit);
-        Assert.Contains("/dev/gpiochip9", output.ToString());
+        return (exit, output.ToString(), File.ReadAllBytes(logPath), chip.SamplesLost, edges);
     }
 
     private static short Raw8g(int milliG)
     {
         // ±8 g: 4096 counts per g, 12-bit data left-justified (low 4 bits zero).
         return (short)((milliG * 4096 / 1000) & ~0xF);
+    }
+
+    /// <summary>A raw input whose level follows the board's clock.</summary>
+    private sealed class ScriptedSwitch(Func<bool> active) : IDigitalInput
+    {
+        public bool IsActive() => active();
     }
 }
