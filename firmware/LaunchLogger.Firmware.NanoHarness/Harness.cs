@@ -16,6 +16,9 @@ namespace LaunchLogger.Firmware.NanoHarness
         /// <summary>Simulated time between two passes of the loop (µs).</summary>
         public const int StepMicros = 1000;
 
+        /// <summary>How long a switch level must hold before it counts (µs), as on both boards.</summary>
+        public const int SwitchHoldMicros = 20000;
+
         /// <summary>Runs every section.</summary>
         public static void Main()
         {
@@ -108,8 +111,30 @@ namespace LaunchLogger.Firmware.NanoHarness
             Out.Line("clock " + before.ToString() + " " + after.ToString() + " " + later.ToString() + " wraps " + health.ClockWraps.ToString());
         }
 
+        /// <summary>Raw changes of the mark button (µs): a bouncing press and release before the
+        /// run (not logged: no run is open), a bouncing press during the run (logged once, dated
+        /// 4 304 000, the pass that first read its last closing), and a 10 ms touch (no press).</summary>
+        private static readonly long[] MarkChanges =
+        {
+            1500000, 1502000, 1503000, 1600000,
+            4300000, 4301000, 4304000, 4500000, 4501000, 4502000,
+            5200000, 5210000,
+        };
+
+        /// <summary>Raw changes of the brake switch (µs): a 5 ms spike (noise, no event), a
+        /// bouncing closing as braking starts (BrakeOn dated 6 499 000, gap 1 000), and an opening
+        /// after a bounce, made while a slow pass skips 9 300 000-9 306 000 (BrakeOff dated
+        /// 9 306 000, the first pass to read it, gap 7 000 from the pass before).</summary>
+        private static readonly long[] BrakeChanges =
+        {
+            5000000, 5005000,
+            6496000, 6497000, 6499000,
+            9290000, 9292000, 9302000,
+        };
+
         /// <summary>A car stands, launches at 4 m/s² for 4 s, brakes at 8 m/s² to a stop and
-        /// stands again; the loop is stepped every <see cref="StepMicros"/>, as on the box.</summary>
+        /// stands again; the loop is stepped every <see cref="StepMicros"/>, as on the box, with
+        /// the brake switch and mark button read raw and debounced by the loop.</summary>
         private static void Launch()
         {
             HandClock counter = new HandClock();
@@ -118,6 +143,8 @@ namespace LaunchLogger.Firmware.NanoHarness
             KeepingSink sink = new KeepingSink(131072);
             MonotonicClock clock = new MonotonicClock(counter, health);
             HandAccelerometer accelerometer = new HandAccelerometer(counter, 400);
+            ScriptedSwitch brake = new ScriptedSwitch(BrakeChanges);
+            ScriptedSwitch mark = new ScriptedSwitch(MarkChanges);
 
             // As the ESP32 box runs it: a 400 Hz accelerometer with a 32-sample FIFO, and the
             // step budget's bounds.
@@ -127,7 +154,8 @@ namespace LaunchLogger.Firmware.NanoHarness
             RunRecorder recorder = new RunRecorder(settings, sink, health);
             recorder.SetCounterOrigin(0, 0);
             PolledPulseSource source = new PolledPulseSource(pulses, clock);
-            CaptureLoop loop = new CaptureLoop(clock, source, accelerometer, null, null, null, recorder, HandAccelerometer.Depth, StepBudget.AccelIntervalMicros);
+            CaptureLoop loop = new CaptureLoop(clock, source, accelerometer, brake, mark, null, recorder, HandAccelerometer.Depth, StepBudget.AccelIntervalMicros);
+            loop.SwitchHoldMicros = SwitchHoldMicros;
             StepBudget.Apply(loop);
             RunPhase shown = recorder.Phase;
             Out.Line("phase " + PhaseName(shown) + " at 0");
@@ -146,11 +174,19 @@ namespace LaunchLogger.Firmware.NanoHarness
                     t += 100000;
                 }
 
+                if (t == 9300000)
+                {
+                    // One slow pass: the brake switch opens while it runs.
+                    t += 6000;
+                }
+
                 counter.Micros = t;
                 long count = DistanceMicrometres(t) * settings.PulsesPerRevolution / settings.CircumferenceMicrometres;
                 bool changed = count != pulses.Count;
                 pulses.Count = count;
                 accelerometer.ForwardMilliG = ForwardMilliG(t);
+                brake.MoveTo(t);
+                mark.MoveTo(t);
                 int bytesBefore = sink.Bytes;
                 long samplesBefore = accelerometer.SamplesRead;
                 Out.Line("#a");
@@ -177,6 +213,93 @@ namespace LaunchLogger.Firmware.NanoHarness
             }
 
             Out.Line("health" + counters);
+            Events(sink);
+        }
+
+        /// <summary>Reads the log back: every event frame with its kind, time and extra fields,
+        /// and the frames whose CRC-32 does not match (LOG-FORMAT.md).</summary>
+        private static void Events(KeepingSink sink)
+        {
+            byte[] encoded = new byte[Cobs.MaxEncodedLength(LogFormat.MaxPayloadBytes)];
+            byte[] payload = new byte[LogFormat.MaxPayloadBytes + 1];
+            int badFrames = 0;
+            int start = 0;
+            for (int i = 0; i < sink.Bytes; i++)
+            {
+                if (sink.At(i) != LogFormat.Delimiter)
+                {
+                    continue;
+                }
+
+                int count = i - start;
+                if (count > 0 && count <= encoded.Length)
+                {
+                    for (int k = 0; k < count; k++)
+                    {
+                        encoded[k] = sink.At(start + k);
+                    }
+
+                    int n = Cobs.Decode(encoded, 0, count, payload, 0);
+                    if (n < 7 || Crc32.Compute(payload, 0, n - 4) != LittleEndian32(payload, n - 4))
+                    {
+                        badFrames++;
+                    }
+                    else if (payload[0] == (byte)FrameType.Event)
+                    {
+                        Event(payload, n - 4);
+                    }
+                }
+
+                start = i + 1;
+            }
+
+            Out.Line("frames with a bad crc " + badFrames.ToString());
+        }
+
+        private static void Event(byte[] payload, int end)
+        {
+            ulong time;
+            int at = 4 + Varint.Read(payload, 4, end, out time);
+            string line = "event " + EventName(payload[3]) + " at " + time.ToString();
+            ulong extra;
+            switch (payload[3])
+            {
+                case (byte)EventKind.BrakeOn:
+                case (byte)EventKind.BrakeOff:
+                    line += at < end && Varint.Read(payload, at, end, out extra) > 0 ? " gap " + extra.ToString() : " no gap";
+                    break;
+                case (byte)EventKind.Rollout:
+                case (byte)EventKind.AccelGap:
+                    Varint.Read(payload, at, end, out extra);
+                    line += " " + extra.ToString();
+                    break;
+                case (byte)EventKind.Motion:
+                    line += " cause " + payload[at].ToString();
+                    break;
+            }
+
+            Out.Line(line);
+        }
+
+        private static uint LittleEndian32(byte[] buffer, int offset)
+        {
+            return buffer[offset] | ((uint)buffer[offset + 1] << 8) | ((uint)buffer[offset + 2] << 16) | ((uint)buffer[offset + 3] << 24);
+        }
+
+        private static string EventName(byte kind)
+        {
+            switch (kind)
+            {
+                case (byte)EventKind.Staged: return "staged";
+                case (byte)EventKind.Motion: return "motion";
+                case (byte)EventKind.Rollout: return "rollout";
+                case (byte)EventKind.Stopped: return "stopped";
+                case (byte)EventKind.BrakeOn: return "brake-on";
+                case (byte)EventKind.BrakeOff: return "brake-off";
+                case (byte)EventKind.Mark: return "mark";
+                case (byte)EventKind.AccelGap: return "accel-gap";
+                default: return "kind-" + kind.ToString();
+            }
         }
 
         /// <summary>Distance rolled at <paramref name="t"/> µs, in µm (integer kinematics).</summary>

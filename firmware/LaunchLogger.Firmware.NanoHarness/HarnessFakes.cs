@@ -35,6 +35,37 @@ namespace LaunchLogger.Firmware.NanoHarness
         }
     }
 
+    /// <summary>A raw switch input (brake switch, mark button) whose level follows a script of
+    /// change times: active after an odd number of them, so a bouncing contact is a few changes
+    /// close together. The loop debounces it, as it does the boards' inputs.</summary>
+    public sealed class ScriptedSwitch : IDigitalInput
+    {
+        private readonly long[] changesMicros;
+        private int passed;
+
+        /// <summary>A switch that starts inactive and changes at each of
+        /// <paramref name="changesMicros"/> (ascending).</summary>
+        public ScriptedSwitch(long[] changesMicros)
+        {
+            this.changesMicros = changesMicros;
+        }
+
+        /// <summary>Sets the level for <paramref name="nowMicros"/> (times never go back).</summary>
+        public void MoveTo(long nowMicros)
+        {
+            while (passed < changesMicros.Length && changesMicros[passed] <= nowMicros)
+            {
+                passed++;
+            }
+        }
+
+        /// <inheritdoc/>
+        public bool IsActive()
+        {
+            return (passed & 1) == 1;
+        }
+    }
+
     /// <summary>An accelerometer whose FIFO fills at its data rate from a constant forward
     /// acceleration the harness sets; at most <see cref="Depth"/> samples are kept.</summary>
     public sealed class HandAccelerometer : IAccelerometer
@@ -123,6 +154,12 @@ namespace LaunchLogger.Firmware.NanoHarness
         public int Bytes
         {
             get { return length; }
+        }
+
+        /// <summary>Byte <paramref name="index"/> of the log kept (below <see cref="Bytes"/>).</summary>
+        public byte At(int index)
+        {
+            return log[index];
         }
 
         /// <summary>Frames kept (delimiters seen).</summary>

@@ -34,6 +34,8 @@ namespace LaunchLogger.Firmware
         private Capture.Debouncer brakeLevel = new Capture.Debouncer(0, false);
         private Capture.Debouncer markLevel = new Capture.Debouncer(0, false);
         private long switchHoldMicros;
+        private bool brakeApplied;
+        private bool markPressed;
         private bool poweredUp;
         private bool phaseShown;
         private RunPhase shownPhase;
@@ -155,16 +157,18 @@ namespace LaunchLogger.Firmware
                 ReadAccelerometer();
             }
 
-            if (brakeSwitch != null)
+            // The recorder hears of a switch only when its debounced level changes: most passes
+            // change nothing, and each call costs on the interpreter.
+            if (brakeSwitch != null && brakeLevel.Update(brakeSwitch.IsActive(), now) != brakeApplied)
             {
-                bool applied = brakeLevel.Update(brakeSwitch.IsActive(), now);
-                recorder.OnBrakeSwitch(applied, brakeLevel.ChangedAtMicros, brakeLevel.ChangeGapMicros);
+                brakeApplied = !brakeApplied;
+                recorder.OnBrakeSwitch(brakeApplied, brakeLevel.ChangedAtMicros, brakeLevel.ChangeGapMicros);
             }
 
-            if (markButton != null)
+            if (markButton != null && markLevel.Update(markButton.IsActive(), now) != markPressed)
             {
-                bool was = markLevel.State;
-                if (markLevel.Update(markButton.IsActive(), now) && !was)
+                markPressed = !markPressed;
+                if (markPressed)
                 {
                     recorder.OnManualMark(markLevel.ChangedAtMicros);
                 }

@@ -20,8 +20,6 @@ namespace LaunchLogger.Esp32
     /// as long as the box has power. Closed courses only.</summary>
     public static class Program
     {
-        /// <summary>Half the LIS3DH FIFO at 400 Hz (16 samples = 40 ms): read well before it fills.</summary>
-
         /// <summary>Entry point.</summary>
         public static void Main()
         {

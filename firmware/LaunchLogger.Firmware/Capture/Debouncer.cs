@@ -9,6 +9,9 @@ namespace LaunchLogger.Firmware.Capture
     public sealed class Debouncer
     {
         private readonly long holdMicros;
+        private bool state;
+        private long changedAtMicros;
+        private long changeGapMicros;
         private bool candidate;
         private long candidateSinceMicros;
         private long candidateGapMicros;
@@ -25,22 +28,33 @@ namespace LaunchLogger.Firmware.Capture
             }
 
             this.holdMicros = holdMicros;
-            State = initial;
+            state = initial;
             candidate = initial;
         }
 
         /// <summary>The debounced level.</summary>
-        public bool State { get; private set; }
+        public bool State
+        {
+            get { return state; }
+        }
 
         /// <summary>When the reading that first saw the present level was taken (µs; 0 before
         /// any change).</summary>
-        public long ChangedAtMicros { get; private set; }
+        public long ChangedAtMicros
+        {
+            get { return changedAtMicros; }
+        }
 
         /// <summary>Time from the reading before that one to it (µs): the level changed within
         /// this much before <see cref="ChangedAtMicros"/>; 0 when there was no earlier reading.</summary>
-        public long ChangeGapMicros { get; private set; }
+        public long ChangeGapMicros
+        {
+            get { return changeGapMicros; }
+        }
 
         /// <summary>Feeds a raw reading taken at <paramref name="nowMicros"/>; returns the debounced level.</summary>
+        /// <remarks>Called for every input on every pass of the device's loop: fields, not
+        /// properties, inside (each property access is a call on the interpreter).</remarks>
         public bool Update(bool raw, long nowMicros)
         {
             if (raw != candidate)
@@ -52,14 +66,14 @@ namespace LaunchLogger.Firmware.Capture
 
             read = true;
             lastReadMicros = nowMicros;
-            if (candidate != State && nowMicros - candidateSinceMicros >= holdMicros)
+            if (candidate != state && nowMicros - candidateSinceMicros >= holdMicros)
             {
-                State = candidate;
-                ChangedAtMicros = candidateSinceMicros;
-                ChangeGapMicros = candidateGapMicros;
+                state = candidate;
+                changedAtMicros = candidateSinceMicros;
+                changeGapMicros = candidateGapMicros;
             }
 
-            return State;
+            return state;
         }
     }
 }

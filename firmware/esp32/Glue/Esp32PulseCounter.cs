@@ -14,6 +14,10 @@ namespace LaunchLogger.Esp32.Glue
         private readonly GpioPulseCounter first;
         private readonly GpioPulseCounter second;
 
+        // A field, not a local: the device allocates struct locals on every method entry. The
+        // struct Read() returns is still made by the runtime on every read (platform API).
+        private GpioPulseCount reading;
+
         /// <summary>Sets the counters up (not yet counting: call <see cref="Start"/>).</summary>
         /// <param name="pin">The distance pickup's GPIO.</param>
         /// <param name="secondPin">A second pickup's GPIO, or -1.</param>
@@ -42,7 +46,7 @@ namespace LaunchLogger.Esp32.Glue
         /// <inheritdoc/>
         public long ReadCount(int channel)
         {
-            GpioPulseCount reading = channel == 0 ? first.Read() : second.Read();
+            reading = channel == 0 ? first.Read() : second.Read();
             return reading.Count;
         }
 

@@ -10,6 +10,9 @@ namespace LaunchLogger.Esp32.Glue
     {
         private readonly I2cDevice device;
 
+        // A field, not a local: the device allocates struct locals on every method entry.
+        private I2cTransferResult result;
+
         /// <summary>Wraps an open I2C device.</summary>
         public I2cRegisterBus(I2cDevice device)
         {
@@ -24,14 +27,14 @@ namespace LaunchLogger.Esp32.Glue
         /// <inheritdoc/>
         public bool Write(byte[] data)
         {
-            I2cTransferResult result = device.Write(data);
+            result = device.Write(data);
             return result.Status == I2cTransferStatus.FullTransfer;
         }
 
         /// <inheritdoc/>
         public bool WriteRead(byte[] write, byte[] read)
         {
-            I2cTransferResult result = device.WriteRead(write, read);
+            result = device.WriteRead(write, read);
             return result.Status == I2cTransferStatus.FullTransfer;
         }
     }

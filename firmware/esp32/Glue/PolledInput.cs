@@ -23,7 +23,9 @@ namespace LaunchLogger.Esp32.Glue
         /// <inheritdoc/>
         public bool IsActive()
         {
-            bool high = pin.Read() == PinValue.High;
+            // The level as a byte (0 low, 1 high): comparing with PinValue.High would build a
+            // second PinValue and pass both by value, each a heap object on the device.
+            bool high = (byte)pin.Read() != 0;
             return high != activeLow;
         }
     }

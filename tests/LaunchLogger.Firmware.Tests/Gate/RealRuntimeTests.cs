@@ -19,6 +19,8 @@ public class RealRuntimeTests
         Assert.Equal("harness 1", expected[0]);
         Assert.Equal("done", expected[^1]);
         Assert.Contains(expected, l => l.StartsWith("log ", StringComparison.Ordinal));
+        Assert.Contains("event brake-on at 6499000 gap 1000", expected);
+        Assert.Contains("frames with a bad crc 0", expected);
         Assert.Equal(expected, Lines(onDevice));
     }
 
@@ -51,6 +53,21 @@ public class RealRuntimeTests
         Assert.Contains(lines, l => l.StartsWith("run 1 motion ", StringComparison.Ordinal));
         Assert.Contains("phase rolled-out at 2905000", lines);
         Assert.Equal("done", lines[^1]);
+    }
+
+    [Fact]
+    public void TheHarnessDrivesTheSwitchesThroughTheLoopsDebouncing()
+    {
+        // The harness's switch script (Harness.cs, MarkChanges and BrakeChanges) against the
+        // event definitions of LOG-FORMAT.md (events 5-7): a level counts once it has held 20 ms
+        // and is dated to the pass that first read it, with the gap from the pass before. So a
+        // bouncing closing is dated to its last contact, a 5 ms spike and a 10 ms touch give no
+        // event, a press before the run opens is not logged, and an opening made during a slow
+        // pass (9 299 000 -> 9 306 000) carries that pass's 7 ms gap.
+        string[] events = Lines(Run("dotnet", Quote(HarnessOnCoreClr()))).Where(l => l.StartsWith("event ", StringComparison.Ordinal)).ToArray();
+        Assert.Equal(new[] { "event mark at 4304000" }, events.Where(l => l.StartsWith("event mark", StringComparison.Ordinal)));
+        Assert.Equal(new[] { "event brake-on at 6499000 gap 1000" }, events.Where(l => l.StartsWith("event brake-on", StringComparison.Ordinal)));
+        Assert.Equal(new[] { "event brake-off at 9306000 gap 7000" }, events.Where(l => l.StartsWith("event brake-off", StringComparison.Ordinal)));
     }
 
     /// <summary>The compared lines: everything but the step markers (#…), which an instrumented
