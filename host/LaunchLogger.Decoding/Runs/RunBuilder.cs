@@ -278,7 +278,7 @@ internal sealed class RunBuilder
 
         var filter = NewPulseFilter(channel);
         WideBrackets wideHere = wide;
-        uint[] packed = GC.AllocateUninitializedArray<uint>(3 * observed.Length);
+        var packed = new RecordChunks<uint>(PackedPulses.RecordLength, observed.Length);
         bool fits = latestMicros - earliestMicros <= uint.MaxValue;
         long baseCount = 0;
         int kept = 0;
@@ -300,21 +300,23 @@ internal sealed class RunBuilder
                 continue;
             }
 
-            int at = 3 * kept++;
-            packed[at] = (uint)(p.Count - baseCount);
-            packed[at + 1] = (uint)(p.LoMicros - earliestMicros);
-            packed[at + 2] = (uint)(p.HiMicros - earliestMicros);
+            Span<uint> record = packed.Record(kept++);
+            record[0] = (uint)(p.Count - baseCount);
+            record[1] = (uint)(p.LoMicros - earliestMicros);
+            record[2] = (uint)(p.HiMicros - earliestMicros);
             wideHere.Count(p.LoMicros, p.HiMicros);
         }
 
         IReadOnlyList<PulseRecord> records;
         if (fits)
         {
-            records = new PackedPulses(packed, kept, baseCount, earliestMicros);
+            packed.Shrink(kept);
+            records = new PackedPulses(packed, baseCount, earliestMicros);
             wide = wideHere;
         }
         else
         {
+            packed.Discard();
             filter = NewPulseFilter(channel);
             records = PulseArray(observed, ref filter, ref wide, out kept);
         }
@@ -537,7 +539,7 @@ internal sealed class RunBuilder
         ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
         var stretches = new StretchList(frames.Length);
-        byte[] kept = GC.AllocateUninitializedArray<byte>(AccelSampleCount * AccelerationBody.BytesPerSample);
+        var kept = new RecordChunks<byte>(AccelerationBody.BytesPerSample, AccelSampleCount);
         double periodS = clock.PeriodS;
         double earliestS = LogUnits.Seconds(earliestMicros);
         double latestS = LogUnits.Seconds(latestMicros);
@@ -589,7 +591,8 @@ internal sealed class RunBuilder
             }
         }
 
-        return new PackedAccelSamples(kept, keptCount, stretches.Starts(), stretches.FirstIndices(), stretches.Origins(), periodS, axes);
+        kept.Shrink(keptCount);
+        return new PackedAccelSamples(kept, stretches.Starts(), stretches.FirstIndices(), stretches.Origins(), periodS, axes);
 
         // True when the sample-by-sample test below would keep every sample of the frame: the
         // first moves index and time forward, the first and last lie within the bounds, and
@@ -608,10 +611,10 @@ internal sealed class RunBuilder
                 && periodS > 0 && periodS > 4 * largest / (1L << 52);
         }
 
-        static int Copy(RawFrames samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
+        static int Copy(RawFrames samples, in RunScratch.AccelFrame frame, int from, int to, RecordChunks<byte> into, int at)
         {
             const int size = AccelerationBody.BytesPerSample;
-            samples.Bytes(frame.Chunk, frame.ByteOffset + (from * size), (to - from) * size).CopyTo(into.AsSpan(at * size));
+            into.Write(at, samples.Bytes(frame.Chunk, frame.ByteOffset + (from * size), (to - from) * size));
             return at + to - from;
         }
     }
