@@ -282,6 +282,11 @@ internal sealed class RunBuilder
         bool fits = latestMicros - earliestMicros <= uint.MaxValue;
         long baseCount = 0;
         int kept = 0;
+
+        // Written a chunk at a time: the chunk being filled and the next place in it.
+        int chunk = 0;
+        Span<uint> into = packed.Chunk(0);
+        int at = 0;
         foreach (ref readonly PulseMicros p in observed)
         {
             if (!fits || !filter.Keep(p))
@@ -300,10 +305,17 @@ internal sealed class RunBuilder
                 continue;
             }
 
-            Span<uint> record = packed.Record(kept++);
-            record[0] = (uint)(p.Count - baseCount);
-            record[1] = (uint)(p.LoMicros - earliestMicros);
-            record[2] = (uint)(p.HiMicros - earliestMicros);
+            if (at == into.Length)
+            {
+                into = packed.Chunk(++chunk);
+                at = 0;
+            }
+
+            into[at] = (uint)(p.Count - baseCount);
+            into[at + 1] = (uint)(p.LoMicros - earliestMicros);
+            into[at + 2] = (uint)(p.HiMicros - earliestMicros);
+            at += PackedPulses.RecordLength;
+            kept++;
             wideHere.Count(p.LoMicros, p.HiMicros);
         }
 
