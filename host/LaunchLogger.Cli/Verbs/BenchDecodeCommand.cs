@@ -132,6 +132,10 @@ public static class BenchDecodeCommand
         Pass best = default;
         for (int pass = 0; pass < 3; pass++)
         {
+            // Each pass starts from a clean heap: the last pass's runs collected, and what their
+            // finalizers give back (a run's pooled chunks) handed back and its garbage collected.
+            GC.Collect();
+            GC.WaitForPendingFinalizers();
             GC.Collect();
             long before = GC.GetTotalAllocatedBytes(precise: true);
             int[] collections = [GC.CollectionCount(0), GC.CollectionCount(1), GC.CollectionCount(2)];
