@@ -46,12 +46,7 @@ public class StreamedSessionMemoryTests
         // and samples (large objects). Kept, every run needs its own; streamed and let go (a
         // collection after each, as the collector would make in time), the runs after the first
         // few take the chunks the earlier ones gave back.
-        Scenario baseline = BuiltInScenarios.Default;
-        Scenario scenario = baseline with
-        {
-            Accelerometer = baseline.Accelerometer with { OutputDataRateHz = 1000 },
-            Plan = baseline.Plan with { TargetSpeedMps = null, TargetDistanceM = 900 },
-        };
+        Scenario scenario = KilohertzRuns.Driven(900);
         byte[] one = Simulator.Run(scenario, seed: 3).LogBytes;
         const int copies = 24;
         byte[] log = Repeat(one, copies);
