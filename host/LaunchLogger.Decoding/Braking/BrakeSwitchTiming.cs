@@ -67,6 +67,11 @@ public static class BrakeSwitchTiming
                 continue; // standing or crawling: the stalls there left no bracket
             }
 
+            if (!(span > 0))
+            {
+                continue; // a bracket ending no later than the one before (damaged data) spans no time
+            }
+
             double w = Math.Clamp(pulses[i].WidthS, 0, span);
             double rest = span - w;
             time += w + rest;

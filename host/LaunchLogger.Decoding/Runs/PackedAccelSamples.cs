@@ -13,24 +13,23 @@ namespace LaunchLogger.Decoding.Runs;
 /// time = origin + period × index, and value = sign × <see cref="LogUnits.SampleMps2"/>.</remarks>
 internal sealed class PackedAccelSamples
 {
-    private readonly byte[] samples;
+    private readonly RecordChunks<byte> samples;
     private readonly int[] stretchStart;
     private readonly long[] stretchFirstIndex;
     private readonly double[] stretchOriginS;
     private readonly double periodS;
     private readonly AxisMapping axes;
 
-    /// <param name="samples">Exactly <paramref name="count"/> samples, 6 bytes each.</param>
-    /// <param name="count">Samples held.</param>
+    /// <param name="samples">The samples, 6 bytes each.</param>
     /// <param name="stretchStart">Where each stretch starts among the samples, ascending, the first 0.</param>
     /// <param name="stretchFirstIndex">The sensor's index of each stretch's first sample.</param>
     /// <param name="stretchOriginS">Each stretch's clock origin, seconds.</param>
     /// <param name="periodS">The sample period, seconds.</param>
     /// <param name="axes">Which sensor axes are forward, lateral and vertical.</param>
-    public PackedAccelSamples(byte[] samples, int count, int[] stretchStart, long[] stretchFirstIndex, double[] stretchOriginS, double periodS, AxisMapping axes)
+    public PackedAccelSamples(RecordChunks<byte> samples, int[] stretchStart, long[] stretchFirstIndex, double[] stretchOriginS, double periodS, AxisMapping axes)
     {
         this.samples = samples;
-        Count = count;
+        Count = samples.Count;
         this.stretchStart = stretchStart;
         this.stretchFirstIndex = stretchFirstIndex;
         this.stretchOriginS = stretchOriginS;
@@ -91,13 +90,19 @@ internal sealed class PackedAccelSamples
     {
         double[] values = GC.AllocateUninitializedArray<double>(Count);
         ReadOnlySpan<double> mps2 = LogUnits.SampleMps2;
-        ReadOnlySpan<byte> bytes = samples.AsSpan(0, Count * AccelerationBody.BytesPerSample);
         int at = 2 * sensorAxis;
-        for (int i = 0; i < values.Length; i++)
+        int i = 0;
+        for (int c = 0; c < samples.Chunks; c++)
         {
-            values[i] = sign * mps2[BinaryPrimitives.ReadInt16LittleEndian(bytes.Slice((i * AccelerationBody.BytesPerSample) + at, 2)) - short.MinValue];
+            ReadOnlySpan<byte> bytes = samples.Chunk(c);
+            for (int b = at; b < bytes.Length; b += AccelerationBody.BytesPerSample)
+            {
+                values[i++] = sign * mps2[BinaryPrimitives.ReadInt16LittleEndian(bytes.Slice(b, 2)) - short.MinValue];
+            }
         }
 
+        // The chunks stay this run's until the last sample is read (RecordChunks).
+        GC.KeepAlive(samples);
         return values;
     }
 }

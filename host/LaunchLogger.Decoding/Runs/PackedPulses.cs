@@ -10,21 +10,23 @@ namespace LaunchLogger.Decoding.Runs;
 /// counts need only stay within 2^32 of the first); otherwise the reader keeps an array.</remarks>
 internal sealed class PackedPulses : IReadOnlyList<PulseRecord>
 {
-    private readonly uint[] packed;
+    private readonly RecordChunks<uint> packed;
     private readonly long baseCount;
     private readonly long baseMicros;
 
-    /// <param name="packed">Count, bracket start and bracket end of each observation, in turn.</param>
-    /// <param name="count">Observations held.</param>
+    /// <param name="packed">Count, bracket start and bracket end of each observation, a record each.</param>
     /// <param name="baseCount">The count the stored counts are above.</param>
     /// <param name="baseMicros">The time, µs, the stored bracket ends are above.</param>
-    public PackedPulses(uint[] packed, int count, long baseCount, long baseMicros)
+    public PackedPulses(RecordChunks<uint> packed, long baseCount, long baseMicros)
     {
         this.packed = packed;
-        Count = count;
+        Count = packed.Count;
         this.baseCount = baseCount;
         this.baseMicros = baseMicros;
     }
+
+    /// <summary>Elements of a record: count, bracket start, bracket end.</summary>
+    public const int RecordLength = 3;
 
     /// <summary>Observations held.</summary>
     public int Count { get; }
@@ -40,8 +42,12 @@ internal sealed class PackedPulses : IReadOnlyList<PulseRecord>
                 throw new ArgumentOutOfRangeException(nameof(index));
             }
 
-            int at = 3 * index;
-            return new PulseRecord(baseCount + packed[at], LogUnits.Seconds(baseMicros + packed[at + 1]), LogUnits.Seconds(baseMicros + packed[at + 2]));
+            ReadOnlySpan<uint> record = packed.Record(index);
+            var read = new PulseRecord(baseCount + record[0], LogUnits.Seconds(baseMicros + record[1]), LogUnits.Seconds(baseMicros + record[2]));
+
+            // The chunks stay this run's until the record is read (RecordChunks).
+            GC.KeepAlive(packed);
+            return read;
         }
     }
 

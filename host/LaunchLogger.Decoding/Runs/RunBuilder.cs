@@ -278,10 +278,15 @@ internal sealed class RunBuilder
 
         var filter = NewPulseFilter(channel);
         WideBrackets wideHere = wide;
-        uint[] packed = GC.AllocateUninitializedArray<uint>(3 * observed.Length);
+        var packed = new RecordChunks<uint>(PackedPulses.RecordLength, observed.Length);
         bool fits = latestMicros - earliestMicros <= uint.MaxValue;
         long baseCount = 0;
         int kept = 0;
+
+        // Written a chunk at a time: the chunk being filled and the next place in it.
+        int chunk = 0;
+        Span<uint> into = packed.Chunk(0);
+        int at = 0;
         foreach (ref readonly PulseMicros p in observed)
         {
             if (!fits || !filter.Keep(p))
@@ -300,21 +305,30 @@ internal sealed class RunBuilder
                 continue;
             }
 
-            int at = 3 * kept++;
-            packed[at] = (uint)(p.Count - baseCount);
-            packed[at + 1] = (uint)(p.LoMicros - earliestMicros);
-            packed[at + 2] = (uint)(p.HiMicros - earliestMicros);
+            if (at == into.Length)
+            {
+                into = packed.Chunk(++chunk);
+                at = 0;
+            }
+
+            into[at] = (uint)(p.Count - baseCount);
+            into[at + 1] = (uint)(p.LoMicros - earliestMicros);
+            into[at + 2] = (uint)(p.HiMicros - earliestMicros);
+            at += PackedPulses.RecordLength;
+            kept++;
             wideHere.Count(p.LoMicros, p.HiMicros);
         }
 
         IReadOnlyList<PulseRecord> records;
         if (fits)
         {
-            records = new PackedPulses(packed, kept, baseCount, earliestMicros);
+            packed.Shrink(kept);
+            records = new PackedPulses(packed, baseCount, earliestMicros);
             wide = wideHere;
         }
         else
         {
+            packed.Discard();
             filter = NewPulseFilter(channel);
             records = PulseArray(observed, ref filter, ref wide, out kept);
         }
@@ -537,7 +551,7 @@ internal sealed class RunBuilder
         ReadOnlySpan<BurstReading> bursts = scratch.Bursts.Span;
         ReadOnlySpan<int> burstOfFrame = scratch.BurstOfFrame.Span;
         var stretches = new StretchList(frames.Length);
-        byte[] kept = GC.AllocateUninitializedArray<byte>(AccelSampleCount * AccelerationBody.BytesPerSample);
+        var kept = new RecordChunks<byte>(AccelerationBody.BytesPerSample, AccelSampleCount);
         double periodS = clock.PeriodS;
         double earliestS = LogUnits.Seconds(earliestMicros);
         double latestS = LogUnits.Seconds(latestMicros);
@@ -589,7 +603,8 @@ internal sealed class RunBuilder
             }
         }
 
-        return new PackedAccelSamples(kept, keptCount, stretches.Starts(), stretches.FirstIndices(), stretches.Origins(), periodS, axes);
+        kept.Shrink(keptCount);
+        return new PackedAccelSamples(kept, stretches.Starts(), stretches.FirstIndices(), stretches.Origins(), periodS, axes);
 
         // True when the sample-by-sample test below would keep every sample of the frame: the
         // first moves index and time forward, the first and last lie within the bounds, and
@@ -608,10 +623,10 @@ internal sealed class RunBuilder
                 && periodS > 0 && periodS > 4 * largest / (1L << 52);
         }
 
-        static int Copy(RawFrames samples, in RunScratch.AccelFrame frame, int from, int to, byte[] into, int at)
+        static int Copy(RawFrames samples, in RunScratch.AccelFrame frame, int from, int to, RecordChunks<byte> into, int at)
         {
             const int size = AccelerationBody.BytesPerSample;
-            samples.Bytes(frame.Chunk, frame.ByteOffset + (from * size), (to - from) * size).CopyTo(into.AsSpan(at * size));
+            into.Write(at, samples.Bytes(frame.Chunk, frame.ByteOffset + (from * size), (to - from) * size));
             return at + to - from;
         }
     }

@@ -130,6 +130,21 @@ public class BrakeSwitchTimingTests
     }
 
     [Fact]
+    public void A_bracket_ending_before_the_one_before_it_is_passed_over_not_thrown_on()
+    {
+        // Damaged data: a last observation whose bracket ends 5 ms before the one before it
+        // (counts still rise). It spans no time, so the lag is the one the rest give; it threw
+        // ("0 cannot be greater than -0.005") before.
+        var moving = Enumerable.Range(1, 200).Select(k => new PulseRecord(k, (k * 0.01) - 0.001, k * 0.01)).ToList();
+        var damaged = new List<PulseRecord>(moving) { new(201, 1.994, 1.995) };
+
+        Estimate alone = BrakeSwitchTiming.LagOfLoop(moving);
+        Estimate withBackStep = BrakeSwitchTiming.LagOfLoop(damaged);
+        Assert.Equal(alone.Value, withBackStep.Value, 1e-12);
+        Assert.Equal(alone.Sigma, withBackStep.Sigma, 1e-12);
+    }
+
+    [Fact]
     public void Pulses_too_far_apart_to_show_the_loop_give_the_lag_of_their_median_bracket()
     {
         // A crawl: a pulse every 0.2 s in a 2 ms bracket. No stretch counts as moving, so the

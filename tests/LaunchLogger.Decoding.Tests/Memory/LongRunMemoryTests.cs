@@ -19,12 +19,7 @@ public class LongRunMemoryTests
     {
         // A minute and more at 1 kHz: about 28,000 grid points, so that the kept states (about 4.5 MB)
         // are far larger than the working arrays small enough to come from the shared pool.
-        Scenario baseline = BuiltInScenarios.Default;
-        Scenario scenario = baseline with
-        {
-            Accelerometer = baseline.Accelerometer with { OutputDataRateHz = 1000 },
-            Plan = baseline.Plan with { TargetSpeedMps = null, TargetDistanceM = 2000 },
-        };
+        Scenario scenario = KilohertzRuns.Driven(2000);
         DecodedRun run = LogReader.Read(Simulator.Run(scenario, seed: 8).LogBytes, "run.log").Runs.Single();
         var kept = new ReconstructionOptions();
         ReconstructionOptions replayed = kept with { FilterStatesKept = 0 };

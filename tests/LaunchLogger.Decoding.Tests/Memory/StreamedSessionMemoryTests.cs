@@ -40,6 +40,46 @@ public class StreamedSessionMemoryTests
     }
 
     [Fact]
+    public void LetGoRunsGiveTheirLargeArraysToTheRunsAfterThem()
+    {
+        // 24 runs with a 1 kHz accelerometer, each holding about half a megabyte of packed pulses
+        // and samples (large objects). Kept, every run needs its own; streamed and let go (a
+        // collection after each, as the collector would make in time), the runs after the first
+        // few take the chunks the earlier ones gave back.
+        Scenario scenario = KilohertzRuns.Driven(900);
+        byte[] one = Simulator.Run(scenario, seed: 3).LogBytes;
+        const int copies = 24;
+        byte[] log = Repeat(one, copies);
+        DecodedRun sample = LogReader.Read(one, "one.log").Runs.Single();
+        long packedBytes = (12L * (sample.Pulses.Count + sample.SecondPulses.Count)) + (6L * sample.Accel!.Count); // 12 bytes a pulse, 6 a sample
+        Assert.True(packedBytes > 4 * RecordChunks<byte>.ChunkBytes, $"the sample run should hold several chunks ({packedBytes:N0} bytes)");
+
+        MemoryCollection.LiveBytes();
+        long before = GC.GetTotalAllocatedBytes(precise: true);
+        int kept = LogReader.Read(log, "kept.log").Runs.Count;
+        long keptAllocated = GC.GetTotalAllocatedBytes(precise: true) - before;
+
+        MemoryCollection.LiveBytes();
+        before = GC.GetTotalAllocatedBytes(precise: true);
+        int streamed = 0;
+        foreach (DecodedRun run in LogReader.ReadRuns(new MemoryStream(log), "streamed.log"))
+        {
+            streamed += run.Accel!.Count > 0 ? 1 : 0;
+            MemoryCollection.LiveBytes();
+        }
+
+        long streamedAllocated = GC.GetTotalAllocatedBytes(precise: true) - before;
+
+        Assert.Equal(copies, kept);
+        Assert.Equal(copies, streamed);
+        Assert.True(keptAllocated >= copies * packedBytes, $"kept, {copies} runs allocated {keptAllocated:N0} bytes; their packed data alone is {copies * packedBytes:N0}");
+        // At least half the runs took their chunks from runs let go before them (the first few
+        // are read while none has been let go: the reader builds runs ahead).
+        long saved = keptAllocated - streamedAllocated;
+        Assert.True(saved >= copies / 2 * packedBytes, $"streamed, {copies} runs allocated {streamedAllocated:N0} bytes, kept {keptAllocated:N0}: {saved:N0} saved, less than half their packed data ({copies / 2 * packedBytes:N0})");
+    }
+
+    [Fact]
     public void StreamingGivesTheSameReportAsTheWholeSession()
     {
         // A launch, a stop at the grip limit (which bounds the launch) and the launch again: the
