@@ -79,7 +79,9 @@ public class ReportClosedFormTests
         double distance = (v * RampS) - (FirstDecel * RampS * RampS / 6) + (((vr * vr) - (vh * vh)) / (2 * FirstDecel)) + (vh * vh / (2 * SecondDecel));
         Assert.Equal("deceleration onset", braking.GetProperty("onset_method").GetString());
         Near(BrakeOnsetS, braking.GetProperty("onset_s").GetDouble(), 0.001, "brake onset");
-        Near(v, braking.GetProperty("from_mps").GetDouble(), 0.01, "speed at brake onset");
+        // The wheel's slip under the launch is not told (the decoder's prior on it has σ
+        // 0.54·10⁻⁴ s²/m, UndrivenSlipPerMps2): its 1σ at the launch's end is σ·a·v = 0.017 m/s.
+        Near(v, braking.GetProperty("from_mps").GetDouble(), 0.02, "speed at brake onset");
         Near(distance, braking.GetProperty("stopping_distance_m").GetDouble(), 0.01, "stopping distance");
 
         // MFDD, UN Regulation No. 13-H Annex 3: v_b = 0.8·v0, v_e = 0.1·v0, both inside the
@@ -192,10 +194,18 @@ public class ReportClosedFormTests
         double stopM = halfM + (vh * vh / (2 * SecondDecel));
         double k = FirstDecel / RampS;
 
+        // The pickup's wheel is undriven: only its tyre spins it up, so under the launch it turns
+        // less than the road by s = I·a/(r²·N·C) (torque I·a/r for the wheel's inertia, passed by
+        // a tyre of slip stiffness C under load N; H. B. Pacejka, "Tire and Vehicle Dynamics",
+        // ch. 1): I 1.2 kg·m², r 0.30 m, N 4.0 kN, C 20 (a road car's; from memory), s = 0.08 %.
+        // Coasting and braking it turns with the road. Edge n comes at wheel distance n·m.
+        double lag = 1.2 * A / (0.30 * 0.30 * 4000 * 20);
         var edges = new StringBuilder("t_s\n");
-        for (int n = 1; n * MetresPerPulse < stopM - 1e-9; n++)
+        for (int n = 1; n * MetresPerPulse < stopM - (lag * LaunchEndM) - 1e-9; n++)
         {
-            edges.Append(TimeAt(n * MetresPerPulse).ToString("R", CultureInfo.InvariantCulture)).Append('\n');
+            double wheel = n * MetresPerPulse;
+            double road = wheel <= (1 - lag) * LaunchEndM ? wheel / (1 - lag) : wheel + (lag * LaunchEndM);
+            edges.Append(TimeAt(road).ToString("R", CultureInfo.InvariantCulture)).Append('\n');
         }
 
         var accel = new StringBuilder("t_s,ax_mps2\n");

@@ -28,7 +28,9 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// 3 after a 60 s idle, 8 rolling starts at 5–60 mph, 10 stops from cruise (brake rise
     /// 0.05–2 s, or a steady rise through the stop) and 3 stop-and-go records; 8–100 teeth; edge
     /// timestamps with 0–20 µs jitter or a counter polled every 0.1–1 ms; an accelerometer at
-    /// 100–1600 Hz with bias, tilt, noise and a drifting clock; half as logs written by the
+    /// 100–1600 Hz with bias, tilt, noise and a drifting clock; the pickup on an undriven wheel
+    /// that lags the road while it is spun up (<see cref="SpinUpLag.Draw"/>, from a stream of its
+    /// own, so every other part of a record is as it was without); half as logs written by the
     /// firmware core, half as CSV files. Every stop from cruise is then added once more, after
     /// those, as a log with a brake switch (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>),
     /// its delay drawn from a stream of its own so the records above stay as they are.</summary>
@@ -37,6 +39,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
         int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
         double[] rates = [100, 200, 400, 800, 1600];
         var random = new Random(unchecked((seed * 31) + 7));
+        var wheelRandom = new Random(unchecked((seed * 37) + 13));
         var cases = new List<PrescribedBenchCase>(runs);
         var made = new int[Shares.Length];
         for (int i = 0; i < runs; i++)
@@ -64,7 +67,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             var spec = new PrescribedRecordSpec
             {
                 Shape = shape,
-                Pickup = new WheelPickup(toothCount, tyre, random.NextDouble()),
+                Pickup = new WheelPickup(toothCount, tyre, random.NextDouble(), SpinUp: SpinUpLag.Draw(wheelRandom, circumference)),
                 Edges = new EdgeTiming(5e-6, 20e-6 * random.NextDouble()),
                 Polled = polled ? new PolledCounter(period, 0.1, 1, 5e-3) : null,
                 Accel = new AccelSensor

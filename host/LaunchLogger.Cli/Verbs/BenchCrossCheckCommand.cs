@@ -137,7 +137,8 @@ public static class BenchCrossCheckCommand
         }
     }
 
-    /// <summary>A generated standing start: the pickup (8–100 teeth), the accelerometer's rate
+    /// <summary>A generated standing start: the pickup (8–100 teeth, on an undriven wheel that lags
+    /// as it is spun up), the accelerometer's rate
     /// (100–1600 Hz) and the launch's shape drawn from the drive's seed, the receiver's NMEA 0183
     /// written from the same exact trajectory.</summary>
     private static Outcome MeasureGenerated(Case c)
@@ -147,7 +148,7 @@ public static class BenchCrossCheckCommand
             var spec = new PrescribedRecordSpec
             {
                 Shape = PrescribedShapes.StandingStart(new Random(c.Seed)),
-                Pickup = new WheelPickup(new[] { 8, 12, 24, 48, 60, 100 }[c.Index % 6], TyreModel.Calibrated(1.9 + (0.02 * (c.Seed % 10)))),
+                Pickup = new WheelPickup(new[] { 8, 12, 24, 48, 60, 100 }[c.Index % 6], TyreModel.Calibrated(1.9 + (0.02 * (c.Seed % 10))), SpinUp: SpinUpLag.Draw(new Random(c.Seed ^ 0x5917), 1.9 + (0.02 * (c.Seed % 10)))),
                 Accel = new AccelSensor { RateHz = new[] { 100, 200, 400, 800, 1600 }[c.Index % 5], NoiseMicroGPerRootHz = 150 },
                 Seed = c.Seed,
             };

@@ -17,6 +17,9 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// with D and V the accelerometer's input integrated twice and once from t_s on its own axis,
 /// φ the tooth phase, s a scale error (circumference, accelerometer scale), b a bias, G the tyre's
 /// growth at 30 m/s (it grows with the square of speed, so over a long window it is not a scale),
+/// k·V²/2 an undriven wheel's spin-up slip (k·∫V·a dt: the wheel falls behind by k·a while the car
+/// speeds up; <see cref="ReconstructionOptions.UndrivenSlipPerMps2"/>, taken out of the counts with
+/// its σ as an error shared by every point, as it changes with the acceleration, which no column follows),
 /// δ the offset at the onset (accelerometer time = pulse time + δ) and ρ the clocks' rate
 /// difference, held by its prior. The errors are those of the fusion: the input's
 /// noise density q integrated twice (a random walk of speed, so
@@ -48,7 +51,8 @@ internal static class AccelClockFit
     /// <param name="toothSigmaM">σ of a tooth's position, m.</param>
     /// <param name="inputDensity">Noise density of the input, m²/s³.</param>
     /// <param name="rateSigma">Prior σ of the clocks' rate difference ρ (a pseudo-observation ρ = 0).</param>
-    public static Estimate? Fit(double[] timeS, double[] input, double restS, double onsetS, double endS, PulseChannel pulses, double metresPerPulse, double toothSigmaM, double inputDensity, double rateSigma)
+    /// <param name="slip">An undriven wheel's slip per m/s² of acceleration and its σ, s²/m.</param>
+    public static Estimate? Fit(double[] timeS, double[] input, double restS, double onsetS, double endS, PulseChannel pulses, double metresPerPulse, double toothSigmaM, double inputDensity, double rateSigma, Estimate slip)
     {
         int start = Math.Max(0, Array.BinarySearch(timeS, restS) is int f && f >= 0 ? f : ~f);
         int n = timeS.Length;
@@ -89,6 +93,7 @@ internal static class AccelClockFit
         var y = Vector<double>.Build.Dense(m);
         var c = Matrix<double>.Build.Dense(m, m);
         var tau = new double[m];
+        var lag = new double[m];
         for (int r = 0; r < m; r++)
         {
             int i = chosen[(int)((long)r * (chosen.Count - 1) / Math.Max(m - 1, 1))];
@@ -100,7 +105,8 @@ internal static class AccelClockFit
             double v = speed[k - 1] + (w * (speed[k] - speed[k - 1]));
             double d = distance[k - 1] + (w * (distance[k] - distance[k - 1]));
             tau[r] = t - timeS[start];
-            y[r] = (pulses.Counts[i] * metresPerPulse) - d;
+            lag[r] = 0.5 * v * v;
+            y[r] = (pulses.Counts[i] * metresPerPulse) - d - (slip.Value * lag[r]);
             x[r, 0] = 1;
             x[r, 1] = v;
             x[r, 2] = d;
@@ -117,7 +123,7 @@ internal static class AccelClockFit
             {
                 double lo = Math.Min(tau[a], tau[b]);
                 double hi = Math.Max(tau[a], tau[b]);
-                double walk = inputDensity * ((lo * lo * hi / 2) - (lo * lo * lo / 6));
+                double walk = (inputDensity * ((lo * lo * hi / 2) - (lo * lo * lo / 6))) + (slip.Sigma * slip.Sigma * lag[a] * lag[b]);
                 c[a, b] += walk;
                 if (a != b)
                 {

@@ -102,9 +102,16 @@ internal sealed class FusionSettings
 
     public double SlipSigma { get; init; }
 
-    /// <summary>Slip coefficients smaller than this (or under three σ) count as no slip: the
-    /// result is then conditioned on k = 0, s²/m.</summary>
+    /// <summary>Slip coefficients smaller than this (or under three σ) are not kept: the result
+    /// is then conditioned on k ~ N(<see cref="UnkeptSlipMean"/>, <see cref="UnkeptSlipSigma"/>²), s²/m.</summary>
     public double SlipMinimum { get; init; }
+
+    /// <summary>What a slip coefficient not kept is taken to be, s²/m: an undriven wheel's
+    /// spin-up slip (0 for none).</summary>
+    public double UnkeptSlipMean { get; init; }
+
+    /// <summary>1-σ of <see cref="UnkeptSlipMean"/>, s²/m (0: conditioned on it exactly).</summary>
+    public double UnkeptSlipSigma { get; init; }
 
     /// <summary>How much better a kept slip coefficient must explain the pulses than no slip:
     /// twice the log-likelihood ratio, at least this (25: the evidence of a five-σ effect) plus
@@ -138,11 +145,15 @@ internal sealed class FusionResult
 
     public required Estimate PhaseM { get; init; }
 
-    /// <summary>Smoothed slip coefficient, s²/m (before any conditioning on k = 0).</summary>
+    /// <summary>Smoothed slip coefficient, s²/m (before any conditioning on an undriven wheel's).</summary>
     public Estimate Slip { get; set; }
 
+    /// <summary>The slip coefficient the states hold, s²/m: <see cref="Slip"/> when kept,
+    /// otherwise it conditioned on an undriven wheel's prior.</summary>
+    public Estimate SlipUsed { get; set; }
+
     /// <summary>True when the slip coefficient was kept; false when it was too small to tell
-    /// from no slip and the result was conditioned on k = 0.</summary>
+    /// from an undriven wheel's and the result was conditioned on that.</summary>
     public bool SlipKept { get; init; }
 
     public int PulsesUsed { get; init; }
@@ -170,7 +181,7 @@ internal sealed class FusionResult
 internal static class FusionSmoother
 {
     /// <summary>Runs the filter and smoother. With a slip state, a slip coefficient that passes
-    /// its own test is kept only when it also explains the pulses better than no slip at all by
+    /// its own test is kept only when it also explains the pulses better than an undriven wheel's slip by
     /// <see cref="FusionSettings.SlipEvidence"/> (twice the log-likelihood ratio of the two
     /// filters' innovations): under a steady drive a slip is all but indistinguishable from an
     /// accelerometer bias, and a coefficient that wandered there with the bias explains nothing.</summary>
@@ -191,6 +202,7 @@ internal static class FusionSmoother
         }
 
         without.Slip = withSlip.Slip;
+        without.SlipUsed = new Estimate(s.UnkeptSlipMean, 0);
         return without;
     }
 
@@ -204,7 +216,8 @@ internal static class FusionSmoother
         byte[] jump = Marks(s, grid, k0);
         var f = new FilterState
         {
-            X = new Vec { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean, K = slipAllowed ? s.SlipMean : 0 },
+            // Without a slip state k is held at an undriven wheel's (the null the kept slip must beat).
+            X = new Vec { V = s.InitialSpeedMps, T = s.ThirdMean, F = s.PhaseMean, K = slipAllowed ? s.SlipMean : s.UnkeptSlipMean },
             P = new Sym
             {
                 P11 = s.InitialSpeedSigma * s.InitialSpeedSigma,
@@ -349,13 +362,19 @@ internal static class FusionSmoother
         filtered.Get(n - 1 - k0, out Vec xs, out Sym ps);
 
         // The slip coefficient is constant, so its last filtered value is already the smoothed
-        // one: decide now whether the wheel slips at all. If not, every smoothed state is
-        // conditioned on k = 0 (Gaussian conditioning with the smoothed cross-covariances).
+        // one: decide now whether the wheel slips more than an undriven one. If not, every
+        // smoothed state is conditioned on k being the undriven wheel's, as a measurement
+        // k = μ ± σᵤ (Gaussian conditioning with the smoothed cross-covariances; σᵤ = 0 holds k
+        // at μ exactly). The filter's own prior on k is wide (a driven wheel's), so the data's
+        // estimate and the undriven prior combine as two independent measurements of k.
         double slipSigma = Math.Sqrt(Math.Max(ps.P44, 0));
         bool slipKept = slipPrior > 0 && Math.Abs(xs.K) >= s.SlipMinimum && Math.Abs(xs.K) >= 3 * slipSigma;
-        double slipShift = slipPrior > 0 && !slipKept && ps.P44 > 0 ? xs.K / ps.P44 : 0;
-        double slipInverse = slipPrior > 0 && !slipKept && ps.P44 > 0 ? 1 / ps.P44 : 0;
+        bool conditioned = slipPrior > 0 && !slipKept && ps.P44 > 0;
+        double slipInverse = conditioned ? 1 / (ps.P44 + (s.UnkeptSlipSigma * s.UnkeptSlipSigma)) : 0;
+        double slipShift = (xs.K - s.UnkeptSlipMean) * slipInverse;
         var slipEstimate = new Estimate(xs.K, slipSigma);
+        Estimate slipUsed = !conditioned ? (slipKept ? slipEstimate : new Estimate(0, 0))
+            : new Estimate(xs.K - (ps.P44 * slipShift), Math.Sqrt(Math.Max(ps.P44 - (ps.P44 * ps.P44 * slipInverse), 0)));
         Emit(n - 1, xs, ps, d, v, sd, sv, third, sthird, slipShift, slipInverse);
         for (int k = n - 2; k >= k0; k--)
         {
@@ -376,12 +395,12 @@ internal static class FusionSmoother
         {
             DistanceM = d, SpeedMps = v, DistanceSigmaM = sd, SpeedSigmaMps = sv, Third = third, ThirdSigma = sthird,
             PhaseM = new Estimate(xs.F - (ps.P34 * slipShift), Math.Sqrt(Math.Max(ps.P33 - (ps.P34 * ps.P34 * slipInverse), 0))),
-            Slip = slipEstimate, SlipKept = slipKept, PulsesUsed = used, Outliers = outliers, LogLikelihood = logLikelihood,
+            Slip = slipEstimate, SlipUsed = slipUsed, SlipKept = slipKept, PulsesUsed = used, Outliers = outliers, LogLikelihood = logLikelihood,
         };
     }
 
-    /// <summary>Stores a smoothed state, conditioned on k = 0 when <paramref name="shift"/> (k/Pkk)
-    /// and <paramref name="inverse"/> (1/Pkk) are not 0.</summary>
+    /// <summary>Stores a smoothed state, conditioned on k = μ ± σᵤ when <paramref name="shift"/>
+    /// ((k − μ)/(Pkk + σᵤ²)) and <paramref name="inverse"/> (1/(Pkk + σᵤ²)) are not 0.</summary>
     private static void Emit(int k, in Vec x, in Sym p, double[] d, double[] v, double[] sd, double[] sv, double[] third, double[] sthird, double shift, double inverse)
     {
         d[k] = x.D - (p.P04 * shift);

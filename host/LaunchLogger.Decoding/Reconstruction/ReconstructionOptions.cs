@@ -135,6 +135,23 @@ public sealed record ReconstructionOptions
     /// is 0.5 % of slip at 5 m/s² of drive.</summary>
     public double WheelSlipMinimum { get; init; } = 0.001;
 
+    /// <summary>An undriven pickup wheel's slip per m/s² of drive, s²/m: the centre of the prior
+    /// a slip coefficient not kept (<see cref="WheelSlipMinimum"/>) is conditioned on, in place of
+    /// no slip. Only its tyre turns an undriven wheel, so spinning it up at α = a / r takes a
+    /// force I·a / r² at the contact, which the tyre passes at a slip of that force ÷ (C·N) (the
+    /// linear part of the force–slip curve; H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1):
+    /// the wheel turns less than the car moves, k = −I / (r²·N·C). With I = 1.0 kg·m² (wheel, tyre,
+    /// brake disc and hub of a road car; from memory), r = 0.31 m (a road tyre's rolling radius;
+    /// common practice), N = 3.7 kN (a quarter of a 1,500 kg car; common practice) and C = 22 per
+    /// unit slip (passenger tyres; from memory): −1.28·10⁻⁴, 0.1 % at 8 m/s². 0 (with
+    /// <see cref="UndrivenSlipSigma"/> 0) conditions on no slip.</summary>
+    public double UndrivenSlipPerMps2 { get; init; } = -1.28e-4;
+
+    /// <summary>1-σ of <see cref="UndrivenSlipPerMps2"/>, s²/m: I ± 0.25 kg·m², r ± 0.02 m,
+    /// N ± 0.8 kN (1,000–2,000 kg cars, the load moving under drive) and C ± 5 (from memory), to
+    /// first order a relative √(0.25² + (2·0.065)² + 0.22² + 0.23²) = 42 % of the centre.</summary>
+    public double UndrivenSlipSigma { get; init; } = 0.54e-4;
+
     /// <summary>With two pulse channels, measure distance on the one that turns less under drive
     /// (the undriven wheel).</summary>
     public bool UseSecondChannel { get; init; } = true;

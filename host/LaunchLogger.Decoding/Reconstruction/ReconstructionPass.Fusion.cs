@@ -126,6 +126,8 @@ internal sealed partial class ReconstructionPass
             SlipSignal = slipSignal,
             SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
             SlipMinimum = options.WheelSlipMinimum,
+            UnkeptSlipMean = slipSignal is null ? 0 : options.UndrivenSlipPerMps2,
+            UnkeptSlipSigma = slipSignal is null ? 0 : options.UndrivenSlipSigma,
             MaxStoredSteps = options.FilterStatesKept,
         };
     }
@@ -180,10 +182,11 @@ internal sealed partial class ReconstructionPass
             double slipSpeed = 0;
             if (slipSignal != null)
             {
-                // A kept slip is wrong by the part the linear law misses; a slip held at zero
-                // by as much as the data leave room for (its estimate and σ), since a driven
-                // wheel whose slip hides in the accelerometer's bias still counts too far.
-                double unexplained = fused.SlipKept ? options.SlipModelError * Math.Abs(fused.Slip.Value) : Math.Abs(fused.Slip.Value) + fused.Slip.Sigma;
+                // A kept slip is wrong by the part the linear law misses; a slip not kept, held
+                // at an undriven wheel's, by as much as the data leave room for beyond it (their
+                // estimate's distance from it and σ), since a driven wheel whose slip hides in
+                // the accelerometer's bias still counts too far.
+                double unexplained = fused.SlipKept ? options.SlipModelError * Math.Abs(fused.Slip.Value) : Math.Abs(fused.Slip.Value - fused.SlipUsed.Value) + fused.Slip.Sigma;
                 slipDistance = unexplained * slipSignal[k];
                 double rate = k + 1 < n ? (slipSignal[k + 1] - slipSignal[k]) / (grid[k + 1] - grid[k]) : 0;
                 slipSpeed = unexplained * rate;

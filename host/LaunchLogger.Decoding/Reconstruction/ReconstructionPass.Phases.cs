@@ -136,7 +136,7 @@ internal sealed partial class ReconstructionPass
             }
         }
 
-        if (AccelClockFit.Fit(a.TimeS, accelInput, o.TimeS - 0.3, o.TimeS, endS, pulses, mpp, options.ToothSpacingErrorFraction * mpp, InputDensity(a, o.TimeS), options.TextAccelClockRateSigma) is not { } fit)
+        if (AccelClockFit.Fit(a.TimeS, accelInput, o.TimeS - 0.3, o.TimeS, endS, pulses, mpp, options.ToothSpacingErrorFraction * mpp, InputDensity(a, o.TimeS), options.TextAccelClockRateSigma, new Estimate(options.UndrivenSlipPerMps2, options.UndrivenSlipSigma)) is not { } fit)
         {
             return;
         }

@@ -10,7 +10,8 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// The wheel turns R(t) = ∫ v / C(v) dt revolutions; pulse k (k = 1, 2, …) comes when
 /// R = (k − 1 + φ)/N, with N teeth and φ the fraction of a tooth pitch before the first tooth
 /// reaches the pickup. With a rigid tyre R = x / C, and each pulse time is a distance crossing
-/// of the trajectory. With growth or drive slip (v·(1 + κ) in place of v), R is integrated over chunks of at most
+/// of the trajectory. With growth, drive slip (v·(1 + κ) in place of v) or the spin-up lag of an
+/// undriven wheel (v·(1 − s)), R is integrated over chunks of at most
 /// <see cref="ChunkS"/> by Gauss–Legendre quadrature, its error checked by comparing 12 and 24
 /// points (subdividing until they agree to 1e-12 revolutions), and each pulse time is then a
 /// root of R found by Brent's method.
@@ -20,7 +21,10 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// <param name="PhaseFraction">φ in [0, 1): where the first tooth sits.</param>
 /// <param name="Slip">Drive slip when the wheel is driven (its rate is then v·(1 + κ) / C(v),
 /// integrated as with growth); null for an undriven wheel.</param>
-public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null)
+/// <param name="SpinUp">An undriven wheel's lag while the car speeds up (its rate is then
+/// v·(1 − s) / C(v)); null for a wheel without inertia, as the closed-form tests take it. Not
+/// with <paramref name="Slip"/>: a driven wheel's axle spins it up.</param>
+public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null, SpinUpLag? SpinUp = null)
 {
     /// <summary>Longest span integrated in one piece, s.</summary>
     public const double ChunkS = 0.05;
@@ -42,7 +46,12 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
             throw new ArgumentOutOfRangeException(nameof(Teeth), "at least one tooth and a phase in [0, 1)");
         }
 
-        return Tyre.Rigid && Slip is null ? RigidEdges(profile) : GrowingEdges(profile);
+        if (Slip != null && SpinUp != null)
+        {
+            throw new ArgumentException("a driven wheel's slip and an undriven wheel's spin-up lag do not go together", nameof(profile));
+        }
+
+        return Tyre.Rigid && Slip is null && SpinUp is null ? RigidEdges(profile) : GrowingEdges(profile);
     }
 
     private double[] RigidEdges(MotionProfile profile)
@@ -116,7 +125,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         {
             MotionState state = s.StateAt(t - s.StartS);
             double v = state.SpeedMps;
-            double slip = Slip?.At(state.DistanceM, state.AccelMps2) ?? 0;
+            double slip = (Slip?.At(state.DistanceM, state.AccelMps2) ?? 0) - (SpinUp?.At(state.AccelMps2) ?? 0);
             return v * (1 + slip) / Tyre.CircumferenceAt(v);
         }
 

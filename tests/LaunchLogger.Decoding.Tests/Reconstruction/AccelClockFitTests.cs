@@ -31,7 +31,7 @@ public class AccelClockFitTests
         (double[] time, double[] input, PulseChannel pulses) = Launch(offsetS, seed, biasMps2: 0.03);
         double density = NoiseMps2 * NoiseMps2 / RateHz;
 
-        Estimate? fit = AccelClockFit.Fit(time, input, StartS + offsetS - 0.3, StartS + offsetS, StartS + 5, pulses, MetresPerPulse, 1e-4, density, 58e-6);
+        Estimate? fit = AccelClockFit.Fit(time, input, StartS + offsetS - 0.3, StartS + offsetS, StartS + 5, pulses, MetresPerPulse, 1e-4, density, 58e-6, new Estimate(0, 0));
 
         Assert.NotNull(fit);
         Estimate f = fit.Value;
@@ -49,7 +49,7 @@ public class AccelClockFitTests
         // closed form over each constant-acceleration stretch, ((v₀ + aτ)⁴ − v₀⁴)/(4a).
         (double[] time, double[] input, PulseChannel pulses) = Launch(offsetS, seed, biasMps2: 0.02, scale: -0.015, growthAt30Mps: 0.004);
 
-        Estimate? fit = AccelClockFit.Fit(time, input, StartS + offsetS - 0.3, StartS + offsetS, StartS + 6, pulses, MetresPerPulse, 1e-4, NoiseMps2 * NoiseMps2 / RateHz, 58e-6);
+        Estimate? fit = AccelClockFit.Fit(time, input, StartS + offsetS - 0.3, StartS + offsetS, StartS + 6, pulses, MetresPerPulse, 1e-4, NoiseMps2 * NoiseMps2 / RateHz, 58e-6, new Estimate(0, 0));
 
         Assert.NotNull(fit);
         Estimate f = fit.Value;
@@ -63,7 +63,7 @@ public class AccelClockFitTests
         (double[] time, double[] input, PulseChannel pulses) = Launch(0, 1, biasMps2: 0);
 
         // In its first 0.2 s the car covers a·τ²/2 = 0.08 m: two teeth.
-        Assert.Null(AccelClockFit.Fit(time, input, StartS - 0.3, StartS, StartS + 0.2, pulses, MetresPerPulse, 1e-4, 1e-5, 58e-6));
+        Assert.Null(AccelClockFit.Fit(time, input, StartS - 0.3, StartS, StartS + 0.2, pulses, MetresPerPulse, 1e-4, 1e-5, 58e-6, new Estimate(0, 0)));
     }
 
     private static readonly double[] SegmentStartS = [0, 2.0, 2.3];

@@ -24,7 +24,7 @@ public class BracketBiasTests
     public void BracketsOfAnyWidthGiveTheFiguresWithoutBias(double pollS, double accelMps2, int teeth)
     {
         Motion motion = ConstantLaunch(accelMps2);
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 3, Teeth = teeth, PollPeriodS = pollS, PollJitterS = 0.05 * pollS }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 3, Teeth = teeth, PollPeriodS = pollS, PollJitterS = 0.05 * pollS }.Build());
 
         // Truth in closed form: 60 mph at v/a, the quarter mile at √(2d/a) (exact units: 1 mph =
         // 0.44704 m/s, ¼ mile = 402.336 m).
@@ -51,7 +51,7 @@ public class BracketBiasTests
             double sum = 0;
             for (int seed = 1; seed <= 4; seed++)
             {
-                ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = seed, PollPeriodS = pollS, PollJitterS = 0.3 * pollS }.Build());
+                ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = seed, PollPeriodS = pollS, PollJitterS = 0.3 * pollS }.Build());
                 sum += TrajectoryProbe.TimeToSpeed(run, 60 * TrajectoryProbe.Mph, run.FirstMotionS.Value) - sixtyTruth;
             }
 
@@ -67,7 +67,7 @@ public class BracketBiasTests
     public void ADrivenWheelThatSlipsKeepsItsSlipAtAOneMillisecondPoll()
     {
         Motion motion = Motion.FromRestAt(StartS).Jerk(40, 0.15).Accelerate(6, 3).Accelerate(0.5, 0.4).Accelerate(4, 3).BrakeToStop(6);
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 18, DriveSlipPerMps2 = 0.005, PollPeriodS = 1e-3, PollJitterS = 0.3e-3 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 18, DriveSlipPerMps2 = 0.005, PollPeriodS = 1e-3, PollJitterS = 0.3e-3 }.Build());
 
         Assert.InRange(run.WheelSlipPerMps2!.Value.Value, 0.004, 0.006);
     }

@@ -22,7 +22,7 @@ public class CoarsePickupWheelspinTests
     [InlineData(40)]
     public void LoopStallsOnACoarseUndrivenPickupAreNoWheelspin(int seed)
     {
-        ReconstructedRun run = Reconstructor.Reconstruct(CoarsePolled(seed).Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(CoarsePolled(seed).Build());
 
         Assert.Empty(run.WheelspinWindows);
         Assert.DoesNotContain(run.Warnings, w => w.Contains("wheelspin", StringComparison.Ordinal));
@@ -36,7 +36,7 @@ public class CoarsePickupWheelspinTests
     {
         // The wheel spins up to 2 m/s faster than the car, 1.0–1.8 s after the start (about
         // 5–9 m/s: 25–40 % ahead at the peak).
-        ReconstructedRun run = Reconstructor.Reconstruct((CoarsePolled(seed) with { SpinPeakMps = 2.0, SpinStartS = StartS + 1.0, SpinLengthS = 0.8 }).Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct((CoarsePolled(seed) with { SpinPeakMps = 2.0, SpinStartS = StartS + 1.0, SpinLengthS = 0.8 }).Build());
 
         Assert.Contains(run.WheelspinWindows, w => w.StartS < StartS + 1.8 && w.EndS > StartS + 1.0);
         Assert.Contains(run.Warnings, w => w.Contains("wheelspin", StringComparison.Ordinal));

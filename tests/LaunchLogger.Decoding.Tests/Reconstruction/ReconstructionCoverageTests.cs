@@ -42,7 +42,7 @@ public class ReconstructionCoverageTests
         for (int seed = 1; seed <= Cases; seed++)
         {
             SyntheticRun synthetic = Case(seed, accelerometer);
-            ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
+            ReconstructedRun run = SyntheticRun.Reconstruct(synthetic.Build());
             if (Math.Abs(run.FirstMotionS.Value - StartS) <= 2 * run.FirstMotionS.Sigma)
             {
                 firstMotionInside++;
@@ -67,7 +67,7 @@ public class ReconstructionCoverageTests
         for (int seed = 1; seed <= Cases; seed++)
         {
             SyntheticRun synthetic = Case(seed, accelerometer: true);
-            ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
+            ReconstructedRun run = SyntheticRun.Reconstruct(synthetic.Build());
             firstMotion.Add(Math.Abs(run.FirstMotionS.Value - StartS));
             rollout.Add(Math.Abs(run.RolloutTimeS!.Value.Value - synthetic.Motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value));
         }

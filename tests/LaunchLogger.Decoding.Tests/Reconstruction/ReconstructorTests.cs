@@ -30,7 +30,7 @@ public class ReconstructorTests
     public void FusedRunReportsItsMethodAndAValidTrajectory()
     {
         DecodedRun input = new SyntheticRun { Motion = HalfGToSixtyAndStop() }.Build();
-        ReconstructedRun run = Reconstructor.Reconstruct(input);
+        ReconstructedRun run = SyntheticRun.Reconstruct(input);
 
         Assert.Same(input, run.Source);
         Assert.Equal(ReconstructionMethod.PulsesAndAccelerometer, run.Method);
@@ -53,7 +53,7 @@ public class ReconstructorTests
     {
         _ = capture;
         Motion motion = QuarterMileLaunch();
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 5, PollPeriodS = pollS, PollJitterS = 40e-6 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 5, PollPeriodS = pollS, PollJitterS = 40e-6 }.Build());
 
         double rolloutTruth = motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
         double sixtyTruth = motion.TimeAtSpeed(60 * TrajectoryProbe.Mph)!.Value;
@@ -72,7 +72,7 @@ public class ReconstructorTests
         // Over seeds 1-12 the mean first-motion error measured -0.13 ms with a spread of 0.54 ms
         // (0.16 ms on the mean): held within ±0.5 ms, so a shift of 1 ms anywhere fails.
         Motion motion = HalfGToSixtyAndStop();
-        double mean = Enumerable.Range(1, 12).Average(seed => Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = seed }.Build()).FirstMotionS.Value - StartS);
+        double mean = Enumerable.Range(1, 12).Average(seed => SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = seed }.Build()).FirstMotionS.Value - StartS);
         AssertWithin(mean, 0.0005);
     }
 
@@ -80,7 +80,7 @@ public class ReconstructorTests
     public void QuarterMileTimeAndTrapSpeedAreWithinThreeTimesTheirMeasuredError()
     {
         Motion motion = QuarterMileLaunch();
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 8, PollPeriodS = 250e-6, PollJitterS = 40e-6 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 8, PollPeriodS = 250e-6, PollJitterS = 40e-6 }.Build());
 
         // Trap: mean speed over the 66 ft ending at the quarter-mile line (common practice).
         double trapStart = TrajectoryProbe.QuarterMile - (66 * TrajectoryProbe.Foot);
@@ -100,7 +100,7 @@ public class ReconstructorTests
     public void AnyPickupFrom12To100PulsesWorks(int teeth, double firstMotionMs, double rolloutMs)
     {
         Motion motion = QuarterMileLaunch();
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 2, Teeth = teeth }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 2, Teeth = teeth }.Build());
 
         AssertWithin(run.FirstMotionS.Value - StartS, Tolerance(firstMotionMs));
         AssertWithin(run.RolloutTimeS!.Value.Value - motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value, Math.Min(0.002, Tolerance(rolloutMs)));
@@ -118,7 +118,7 @@ public class ReconstructorTests
     {
         // Constant acceleration then constant speed (kinematics, any textbook).
         Motion motion = Motion.FromRestAt(StartS).Accelerate(3.0, 4).Cruise(3).BrakeToStop(5);
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 4, Teeth = 12 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 4, Teeth = 12 }.Build());
 
         // Measured at most 0.0038 m/s over these times: held to 0.012 m/s.
         foreach (double t in new[] { 0.3, 1.0, 2.5, 4.0, 5.0, 6.5 })
@@ -132,7 +132,7 @@ public class ReconstructorTests
     {
         // Under constant power per mass p the kinetic energy rises linearly: v = √(v₀² + 2·p·τ).
         Motion motion = Motion.FromRestAt(StartS).Accelerate(4.0, 2.0).ConstantPower(60, 8).BrakeToStop(6);
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 6 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 6 }.Build());
 
         foreach (double tau in new[] { 0.5, 2.0, 4.0, 7.9 })
         {
@@ -147,7 +147,7 @@ public class ReconstructorTests
     {
         // Braking at a constant 6 m/s² from 29.4 m/s stops the car 4.9 s later, d = v²/(2a) further on.
         Motion motion = HalfGToSixtyAndStop();
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 9 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 9 }.Build());
 
         Assert.NotNull(run.StopS);
         Assert.InRange(run.StopS!.Value - motion.EndS, -0.05, 0.05);
@@ -171,7 +171,7 @@ public class ReconstructorTests
     public void PulsesOnlyBackExtrapolatesWithAnHonestUncertainty()
     {
         Motion motion = QuarterMileLaunch();
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 3, WithAccelerometer = false }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 3, WithAccelerometer = false }.Build());
         ReconstructedRun naive = NaiveReconstruction.Reconstruct(new SyntheticRun { Motion = motion, Seed = 3, WithAccelerometer = false }.Build());
 
         Assert.Equal(ReconstructionMethod.PulsesOnly, run.Method);
@@ -195,7 +195,7 @@ public class ReconstructorTests
     public void AccelerometerOnlyIntegratesAndWarnsOfDrift()
     {
         Motion motion = Motion.FromRestAt(StartS).Jerk(35, 5.0 / 35).Accelerate(5.0, 2.0).BrakeToStop(5);
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 10, WithPulses = false }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 10, WithPulses = false }.Build());
 
         Assert.Equal(ReconstructionMethod.AccelerometerOnly, run.Method);
         Assert.Contains(run.Warnings, w => w.Contains("drift"));
@@ -220,7 +220,7 @@ public class ReconstructorTests
         // adding 1.5 × 0.6 / 2 = 0.45 m of pulses the car never covered.
         Motion motion = QuarterMileLaunch();
         var synthetic = new SyntheticRun { Motion = motion, Seed = 12, SpinPeakMps = 1.5, SpinStartS = StartS + 0.5, SpinLengthS = 0.6 };
-        ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(synthetic.Build());
 
         Assert.NotEmpty(run.WheelspinWindows);
         Assert.Contains(run.WheelspinWindows, w => w.StartS < StartS + 1.1 && w.EndS > StartS + 0.5);
@@ -241,8 +241,8 @@ public class ReconstructorTests
         Motion motion = QuarterMileLaunch();
         var synthetic = new SyntheticRun { Motion = motion, Seed = 18, DriveSlipPerMps2 = 0.005 };
         DecodedRun input = synthetic.Build();
-        ReconstructedRun run = Reconstructor.Reconstruct(input);
-        ReconstructedRun ignoringSlip = Reconstructor.Reconstruct(input, new ReconstructionOptions { WheelSlipSigma = 0 });
+        ReconstructedRun run = SyntheticRun.Reconstruct(input);
+        ReconstructedRun ignoringSlip = SyntheticRun.Reconstruct(input, new ReconstructionOptions { WheelSlipSigma = 0 });
 
         Assert.InRange(run.WheelSlipPerMps2!.Value.Value, 0.004, 0.006);
         Assert.Contains(run.Warnings, w => w.Contains("slipping"));
@@ -260,7 +260,7 @@ public class ReconstructorTests
     [Fact]
     public void AnUndrivenWheelIsTakenAsNotSlipping()
     {
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = QuarterMileLaunch(), Seed = 19 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = QuarterMileLaunch(), Seed = 19 }.Build());
 
         Assert.Equal(new Estimate(0, 0), run.WheelSlipPerMps2);
         Assert.DoesNotContain(run.Warnings, w => w.Contains("slipping"));
@@ -272,7 +272,7 @@ public class ReconstructorTests
         // Channel 0 on a driven wheel slipping 1 % per m/s² (5 % at 5 m/s²), channel 1 on an
         // undriven wheel: the one that turns less under drive is the true measure.
         Motion motion = QuarterMileLaunch();
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 20, DriveSlipPerMps2 = 0.01, SecondTeeth = 48 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 20, DriveSlipPerMps2 = 0.01, SecondTeeth = 48 }.Build());
 
         Assert.Equal(1, run.DistanceChannel);
         Assert.Contains(run.Warnings, w => w.Contains("second pulse channel"));
@@ -288,7 +288,7 @@ public class ReconstructorTests
         // against seconds for the spinning wheel's count.
         Motion motion = QuarterMileLaunch();
         DecodedRun input = new SyntheticRun { Motion = motion, Seed = 21, DriveSlipPerMps2 = 0.1 }.Build();
-        ReconstructedRun run = Reconstructor.Reconstruct(input);
+        ReconstructedRun run = SyntheticRun.Reconstruct(input);
         ReconstructedRun naive = NaiveReconstruction.Reconstruct(input);
 
         Assert.Contains(run.Warnings, w => w.Contains("sustained wheelspin"));
@@ -304,7 +304,7 @@ public class ReconstructorTests
     {
         // Under braking the wheel falls up to 3 m/s behind the car for half a second.
         Motion motion = HalfGToSixtyAndStop();
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 22, SpinPeakMps = -3, SpinStartS = StartS + 8, SpinLengthS = 0.5 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 22, SpinPeakMps = -3, SpinStartS = StartS + 8, SpinLengthS = 0.5 }.Build());
 
         Assert.Contains(run.Warnings, w => w.Contains("slid"));
         Assert.Contains(run.WheelspinWindows.Concat(run.BrakingSlideWindows), w => w.StartS < StartS + 8.5 && w.EndS > StartS + 8);
@@ -322,8 +322,8 @@ public class ReconstructorTests
         double fromMps = 0.5 * G0 * 6;
         double closedForm = fromMps * fromMps / (2 * 6);
         var synthetic = new SyntheticRun { Motion = motion, Seed = 23, SpinPeakMps = -3, SpinStartS = brakeS + 0.05, SpinLengthS = 4.3 };
-        ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
-        ReconstructedRun pulsesThrough = Reconstructor.Reconstruct(synthetic.Build(), new ReconstructionOptions { BrakingDecelMps2 = 0, DetectWheelspin = false });
+        ReconstructedRun run = SyntheticRun.Reconstruct(synthetic.Build());
+        ReconstructedRun pulsesThrough = SyntheticRun.Reconstruct(synthetic.Build(), new ReconstructionOptions { BrakingDecelMps2 = 0, DetectWheelspin = false });
 
         Assert.Contains(run.Warnings, w => w.Contains("slid under braking"));
         Trajectory t = run.Trajectory;
@@ -339,7 +339,7 @@ public class ReconstructorTests
     [Fact]
     public void AWheelKeepingUpUnderBrakingKeepsItsPulses()
     {
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 24 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 24 }.Build());
 
         Assert.DoesNotContain(run.Warnings, w => w.Contains("slid"));
         Assert.Empty(run.WheelspinWindows);
@@ -349,7 +349,7 @@ public class ReconstructorTests
     public void RestingLevelAndPitchComeFromTheStillSamples()
     {
         var synthetic = new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 13 };
-        ReconstructedRun run = Reconstructor.Reconstruct(synthetic.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(synthetic.Build());
 
         // At rest the forward axis reads g·sin(pitch) plus its offset (specific force, level ground).
         double expectedLevel = (G0 * Math.Sin(synthetic.PitchRad)) + synthetic.AccelBiasMps2;
@@ -361,7 +361,7 @@ public class ReconstructorTests
     [Fact]
     public void WideBracketsAreReported()
     {
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 14, PollPeriodS = 0.003 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 14, PollPeriodS = 0.003 }.Build());
 
         Assert.Contains(run.Warnings, w => w.Contains("wider than 2.0 ms"));
         Assert.InRange(run.RolloutTimeS!.Value.Value - (StartS + 0.35260), -0.003, 0.003);
@@ -386,7 +386,7 @@ public class ReconstructorTests
     {
         Motion motion = Motion.FromRestAt(StartS).Accelerate(3, 3).Cruise(2);
         DecodedRun input = new SyntheticRun { Motion = motion, Seed = 16, Staged = false } .Build();
-        ReconstructedRun run = Reconstructor.Reconstruct(input);
+        ReconstructedRun run = SyntheticRun.Reconstruct(input);
 
         Assert.Equal(input.Pulses[0].MidS, run.FirstMotionS.Value, 6);
         Assert.Contains(run.Warnings, w => w.Contains("rolling"));
@@ -397,7 +397,7 @@ public class ReconstructorTests
     public void NoDataGivesAWarningNotAnException()
     {
         var empty = new DecodedRun { Source = "empty", Configuration = new RunConfiguration { OpenedS = 2.0 }, Pulses = [] };
-        ReconstructedRun run = Reconstructor.Reconstruct(empty);
+        ReconstructedRun run = SyntheticRun.Reconstruct(empty);
 
         Assert.Single(run.Warnings);
         Assert.Equal(2.0, run.FirstMotionS.Value);
@@ -407,14 +407,14 @@ public class ReconstructorTests
     [Fact]
     public void ThrowsOnANullRun()
     {
-        Assert.Throws<ArgumentNullException>(() => Reconstructor.Reconstruct(null!));
+        Assert.Throws<ArgumentNullException>(() => SyntheticRun.Reconstruct(null!));
     }
 
     [Fact]
     public void OptionsCanSwitchTheAccelerometerOffAndMoveTheRollout()
     {
         DecodedRun input = new SyntheticRun { Motion = HalfGToSixtyAndStop(), Seed = 17 }.Build();
-        ReconstructedRun run = Reconstructor.Reconstruct(input, new ReconstructionOptions { UseAccelerometer = false, RolloutM = 1.0 });
+        ReconstructedRun run = SyntheticRun.Reconstruct(input, new ReconstructionOptions { UseAccelerometer = false, RolloutM = 1.0 });
 
         Assert.Equal(ReconstructionMethod.PulsesOnly, run.Method);
         Assert.Equal(1.0, run.RolloutM);

@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Firmware.Wire;
 
@@ -151,6 +152,12 @@ internal sealed record SyntheticRun
 
         return records;
     }
+
+    /// <summary>Reconstructs <paramref name="run"/>, made here, whose wheel has no inertia: it
+    /// does not lag the road as it is spun up, and the reconstruction is told so
+    /// (<see cref="ReconstructionOptions.UndrivenSlipPerMps2"/> 0).</summary>
+    public static ReconstructedRun Reconstruct(DecodedRun run, ReconstructionOptions? options = null) =>
+        Reconstructor.Reconstruct(run, (options ?? ReconstructionOptions.Default) with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0 });
 
     public DecodedRun Build()
     {

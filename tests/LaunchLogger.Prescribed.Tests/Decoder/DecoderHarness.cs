@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Import;
+using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
 
 namespace LaunchLogger.Prescribed.Tests.Decoder;
@@ -22,7 +23,7 @@ public static class DecoderHarness
                 AccelPath = accel,
                 Scale = PulseScale.FromOptions(null, record.Spec.Pickup.Teeth, record.Spec.Pickup.Tyre.StatedCircumferenceM),
             });
-            return SessionAnalyzer.Analyze([run]);
+            return SessionAnalyzer.Analyze([run], Options(record));
         }
         finally
         {
@@ -49,6 +50,14 @@ public static class DecoderHarness
     public static SessionAnalysis AnalyzeLog(PrescribedRecord record)
     {
         LogReadResult log = LogReader.Read(record.ToLog(), record.Spec.Shape.Name);
-        return SessionAnalyzer.Analyze(log.Runs);
+        return SessionAnalyzer.Analyze(log.Runs, Options(record));
     }
+
+    /// <summary>A pickup wheel without inertia (no <see cref="Sensors.SpinUpLag"/>, the
+    /// generator's simplest wheel) does not lag the road as it is spun up: the decoder is told so,
+    /// as it is told the circumference. Any other wheel is decoded with the defaults.</summary>
+    private static AnalysisOptions? Options(PrescribedRecord record) =>
+        record.Spec.Pickup.SpinUp is null && record.Spec.Pickup.Slip is null
+            ? new AnalysisOptions { Reconstruction = ReconstructionOptions.Default with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0 } }
+            : null;
 }

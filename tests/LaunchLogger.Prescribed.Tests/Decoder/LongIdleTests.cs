@@ -8,7 +8,8 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 /// 100 ppm fast or slow against the box's. In a plain-text file nothing ties its times to the
 /// pulses' clock, so by the launch its onset has slid by drift × elapsed time (6 ms): the decoder
 /// matches the accelerometer's clock to the pulses' over the launch and takes the slide out, and
-/// first motion's σ carries what that match leaves. A log ties the samples to the box's clock through its burst read
+/// first motion's σ carries what that match leaves (the wheel lags the road as it is spun up,
+/// <see cref="Sensors.SpinUpLag"/>, which the match allows for). A log ties the samples to the box's clock through its burst read
 /// times, so there the goal (5 ms) holds.</summary>
 public class LongIdleTests
 {
@@ -58,7 +59,7 @@ public class LongIdleTests
 
     private static PrescribedRecord Record(int seed, double driftPpm)
     {
-        PrescribedRecordSpec spec = Records.Standing(seed) with { Shape = PrescribedShapes.LongIdle(new Random(seed)) };
+        PrescribedRecordSpec spec = Records.Standing(seed, spinUp: true) with { Shape = PrescribedShapes.LongIdle(new Random(seed)) };
         return (spec with { Accel = spec.Accel! with { ClockDriftPpm = driftPpm } }).Generate();
     }
 }

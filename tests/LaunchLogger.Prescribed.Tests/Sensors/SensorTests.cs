@@ -59,6 +59,78 @@ public class SensorTests
     }
 
     [Theory]
+    [InlineData(8, 0.5, 2.0)]
+    [InlineData(48, 0.1, 4.0)]
+    [InlineData(100, 0.9, 9.0)]
+    public void An_undriven_wheel_spun_up_by_its_tyre_counts_the_road_less_its_slip(int teeth, double phase, double accelMps2)
+    {
+        // Closed form. A wheel of inertia I turned only by its tyre needs F = I·α/r = I·a/r² at
+        // the contact; a tyre gives F = C·N·s (the linear part of its force–slip curve; H. B.
+        // Pacejka, "Tire and Vehicle Dynamics", ch. 1), so s = I·a/(r²·N·C), constant under a
+        // constant a. From rest the wheel turns (1 − s)·a·t²/2, so edge k comes where the road
+        // distance is (k + φ)·pitch / (1 − s). Once the speed holds (a = 0) the wheel keeps the lag
+        // it built and turns with the road again. Wheel figures: I 1.1 kg·m², r 0.31 m, N 3.9 kN,
+        // C 21 (plausible for a road car; from memory): s = 0.03–0.13 %, 2.5–51 mm over the
+        // launch, far above the 10⁻⁸ m the edges are checked to.
+        const double inertia = 1.1, radius = 0.31, load = 3900, stiffness = 21;
+        double slip = inertia * accelMps2 / (radius * radius * load * stiffness);
+        double circumference = 2 * Math.PI * radius;
+        MotionProfile p = new MotionProfileBuilder().Hold(1).Constant(3, accelMps2).Hold(2).Build();
+        var pickup = new WheelPickup(teeth, TyreModel.Calibrated(circumference), phase, SpinUp: new SpinUpLag(inertia, radius, load, stiffness));
+        double[] edges = pickup.EdgeTimes(p);
+        double pitch = circumference / teeth;
+        double launchEnd = 0.5 * accelMps2 * 9;
+        double wheelAtLaunchEnd = (1 - slip) * launchEnd;
+        double wheelTotal = wheelAtLaunchEnd + (accelMps2 * 3 * 2);
+        Assert.Equal((int)Math.Floor((wheelTotal / pitch) - phase) + 1, edges.Length);
+        for (int k = 0; k < edges.Length; k++)
+        {
+            double wheel = (k + phase) * pitch;
+            double road = wheel <= wheelAtLaunchEnd ? wheel / (1 - slip) : launchEnd + (wheel - wheelAtLaunchEnd);
+            Assert.Equal(road, p.StateAt(edges[k]).DistanceM, 8);
+        }
+    }
+
+    [Fact]
+    public void A_spun_up_wheel_lags_only_while_the_car_speeds_up()
+    {
+        // At a steady speed and while braking the wheel turns with the road (a braked wheel's slip
+        // is the brake's, which the generator leaves out): cruise, then a stop, gives the rigid
+        // wheel's edges.
+        MotionProfile p = new MotionProfileBuilder(25).Hold(2).BrakeToStop(0.3, 7).Hold(1).Build();
+        double[] rigid = new WheelPickup(36, TyreModel.Calibrated(1.9), 0.4).EdgeTimes(p);
+        double[] lagging = new WheelPickup(36, TyreModel.Calibrated(1.9), 0.4, SpinUp: new SpinUpLag(1.4, 0.3, 2500, 15)).EdgeTimes(p);
+        Assert.Equal(rigid.Length, lagging.Length);
+        for (int k = 0; k < rigid.Length; k++)
+        {
+            Assert.Equal(rigid[k], lagging[k], 8);
+        }
+    }
+
+    [Fact]
+    public void Drawn_wheels_stay_in_their_stated_ranges()
+    {
+        // I 0.7–1.4 kg·m², N 2.5–5.5 kN, C 15–30, r from the tyre: the slip per m/s² then lies
+        // between the corners I/(r²·N·C) of those ranges (r 0.3 m here).
+        var random = new Random(9);
+        double least = 0.7 / (0.09 * 5500 * 30);
+        double most = 1.4 / (0.09 * 2500 * 15);
+        for (int i = 0; i < 200; i++)
+        {
+            SpinUpLag wheel = SpinUpLag.Draw(random, 2 * Math.PI * 0.3);
+            Assert.Equal(0.3, wheel.RadiusM, 12);
+            Assert.InRange(wheel.PerMps2, least, most);
+        }
+    }
+
+    [Fact]
+    public void A_driven_wheel_cannot_also_lag_as_an_undriven_one()
+    {
+        var pickup = new WheelPickup(24, TyreModel.Calibrated(1.9), Slip: new DriveSlip(), SpinUp: new SpinUpLag(1, 0.3, 3700, 25));
+        Assert.Throws<ArgumentException>(() => pickup.EdgeTimes(Launch()));
+    }
+
+    [Theory]
     [InlineData(1e-4, 0.0, 0.0)]
     [InlineData(1e-3, 0.2, 0.0)]
     [InlineData(10e-3, 0.3, 5.0)]

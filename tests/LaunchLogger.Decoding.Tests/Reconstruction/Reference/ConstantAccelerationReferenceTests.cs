@@ -26,7 +26,7 @@ public class ConstantAccelerationReferenceTests
     public void FusedReconstructionReproducesThePublishedTimes()
     {
         Motion motion = Motion.FromRestAt(StartS).Accelerate(HalfG, 6).BrakeToStop(6);
-        ReconstructedRun run = Reconstructor.Reconstruct(new SyntheticRun { Motion = motion, Seed = 11 }.Build());
+        ReconstructedRun run = SyntheticRun.Reconstruct(new SyntheticRun { Motion = motion, Seed = 11 }.Build());
 
         // Tolerances: about three times the errors measured with this seed (beside each), so a
         // shift of a millisecond fails; the published values are the reference.
