@@ -9,7 +9,7 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 public static class DecoderHarness
 {
     /// <summary>The record's CSV files, imported and analysed.</summary>
-    public static SessionAnalysis AnalyzeText(PrescribedRecord record)
+    public static SessionAnalysis AnalyzeText(PrescribedRecord record, AnalysisOptions? options = null)
     {
         string folder = Path.Combine(Path.GetTempPath(), "launchlogger-prescribed-" + Guid.NewGuid().ToString("N"));
         try
@@ -22,7 +22,7 @@ public static class DecoderHarness
                 AccelPath = accel,
                 Scale = PulseScale.FromOptions(null, record.Spec.Pickup.Teeth, record.Spec.Pickup.Tyre.StatedCircumferenceM),
             });
-            return SessionAnalyzer.Analyze([run]);
+            return SessionAnalyzer.Analyze([run], options);
         }
         finally
         {
@@ -46,9 +46,9 @@ public static class DecoderHarness
     }
 
     /// <summary>The record written as a log by the firmware core, read and analysed.</summary>
-    public static SessionAnalysis AnalyzeLog(PrescribedRecord record)
+    public static SessionAnalysis AnalyzeLog(PrescribedRecord record, AnalysisOptions? options = null)
     {
         LogReadResult log = LogReader.Read(record.ToLog(), record.Spec.Shape.Name);
-        return SessionAnalyzer.Analyze(log.Runs);
+        return SessionAnalyzer.Analyze(log.Runs, options);
     }
 }
