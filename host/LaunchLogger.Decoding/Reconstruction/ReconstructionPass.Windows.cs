@@ -321,7 +321,7 @@ internal sealed partial class ReconstructionPass
             }
 
             double decel = dt > 0 ? Math.Abs(dv / dt) : 0;
-            double scale = options.ForwardScaleSigma * decel;
+            double scale = options.AccelScaleSigma * decel;
             result[i] = (scale * scale) + (options.BrakeBiasStepSigmaMps2 * options.BrakeBiasStepSigmaMps2);
         }
 
