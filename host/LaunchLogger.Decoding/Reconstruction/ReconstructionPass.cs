@@ -144,7 +144,7 @@ internal sealed partial class ReconstructionPass
         }
 
         circumferenceSigma = options.CircumferenceSigmaFraction;
-        if (MeasureRollingScale(steps, firstMotion.Value, stopS, spin, braking, fused) is { } measured)
+        if (MeasureRollingScale(steps, firstMotion.Value, stopS, spin, braking, fused) is not null)
         {
             fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         }
