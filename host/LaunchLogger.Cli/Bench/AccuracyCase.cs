@@ -10,6 +10,9 @@ namespace LaunchLogger.Cli.Bench;
 /// <param name="PollPeriodS">The counter's poll period, or null for edge timestamps.</param>
 public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string Summary, double? PollPeriodS)
 {
+    /// <summary>The accelerometer's scale as a calibration tells it, or null when not calibrated.</summary>
+    public Decoding.Estimate? AccelCalibration { get; init; }
+
     /// <summary>The group the case is reported in.</summary>
     public BenchGroup Group => (HasAccelerometer, DrivenPickup, PollPeriodS) switch
     {
@@ -40,8 +43,12 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
     /// tyre does not grow. False (the default): the box is told the static circumference and the
     /// tyre grows with speed, as for a user who has not calibrated at speed
     /// (<see cref="UncalibratedTyre"/>).</param>
-    public static IReadOnlyList<AccuracyCase> Build(int runs, int seed, bool calibratedTyre = false)
+    /// <param name="calibratedAccel">True: the decoder is told the forward axis' scale as a
+    /// calibration against gravity gives it (<see cref="AccelScaleDraw"/>). The scale error itself
+    /// (1 % σ) is drawn either way, from a stream of its own so the other variations stay.</param>
+    public static IReadOnlyList<AccuracyCase> Build(int runs, int seed, bool calibratedTyre = false, bool calibratedAccel = false)
     {
+        var scaleRandom = new Random(unchecked((seed * 977) + 3));
         int[] teeth = [12, 16, 24, 36, 48, 60, 80, 100];
         string[] cars = BuiltInScenarios.Names.Where(n => !n.Contains("brake", StringComparison.OrdinalIgnoreCase)).ToArray();
         var cases = new List<AccuracyCase>(runs);
@@ -59,6 +66,7 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
             double roll = (random.NextDouble() * 4) - 2;
             double yaw = (random.NextDouble() * 6) - 3;
             double noise = 100 + (random.NextDouble() * 200);
+            (double scaleError, Decoding.Estimate? told) = AccelScaleDraw.Draw(scaleRandom, calibratedAccel);
             Axle pickupAxle = driven ? DrivenAxleOf(baseline) : UndrivenAxleOf(baseline);
             Scenario scenario = baseline with
             {
@@ -80,11 +88,12 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
                     MountRollDeg = roll,
                     MountYawDeg = yaw,
                     NoiseDensityMicroGPerRootHz = noise,
+                    ScaleError = baseline.Accelerometer.ScaleError with { X = scaleError },
                 },
             };
             string summary = FormattableString.Invariant(
-                $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°)" : "no accelerometer")}");
-            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6));
+                $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°, scale {scaleError * 100:+0.00;-0.00} %)" : "no accelerometer")}");
+            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6) { AccelCalibration = accel ? told : null });
         }
 
         return cases;

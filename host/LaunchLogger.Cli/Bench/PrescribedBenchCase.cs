@@ -13,6 +13,9 @@ namespace LaunchLogger.Cli.Bench;
 /// <param name="Summary">The variation in a few words.</param>
 public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, BenchGroup Group, bool AsLog, string Summary)
 {
+    /// <summary>The accelerometer's scale as a calibration tells it, or null when not calibrated.</summary>
+    public LaunchLogger.Decoding.Estimate? AccelCalibration { get; init; }
+
     private const double Mph = 0.44704;
 
     private static readonly (BenchGroup Group, double Share)[] Shares =
@@ -34,12 +37,13 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// firmware core, half as CSV files. Every stop from cruise is then added once more, after
     /// those, as a log with a brake switch (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>),
     /// its delay drawn from a stream of its own so the records above stay as they are.</summary>
-    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre)
+    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false)
     {
         int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
         double[] rates = [100, 200, 400, 800, 1600];
         var random = new Random(unchecked((seed * 31) + 7));
         var wheelRandom = new Random(unchecked((seed * 37) + 13));
+        var scaleRandom = new Random(unchecked((seed * 977) + 5));
         var cases = new List<PrescribedBenchCase>(runs);
         var made = new int[Shares.Length];
         for (int i = 0; i < runs; i++)
@@ -64,6 +68,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             bool polled = random.NextDouble() < 0.5;
             double period = 1e-4 * Math.Pow(10, random.NextDouble());
             double rate = rates[random.Next(rates.Length)];
+            (double scaleError, LaunchLogger.Decoding.Estimate? told) = AccelScaleDraw.Draw(scaleRandom, calibratedAccel);
             var spec = new PrescribedRecordSpec
             {
                 Shape = shape,
@@ -77,12 +82,13 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
                     BiasXMps2 = 0.1 * (random.NextDouble() - 0.5),
                     PitchRad = 0.05 * (random.NextDouble() - 0.5) * 2,
                     ClockDriftPpm = 200 * (random.NextDouble() - 0.5),
+                    ScaleError = scaleError,
                 },
                 Seed = random.Next(),
             };
             bool asLog = i % 2 == 1;
-            string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz; {(asLog ? "log" : "CSV")}");
-            cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary));
+            string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz, scale {scaleError * 100:+0.00;-0.00} %; {(asLog ? "log" : "CSV")}");
+            cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary) { AccelCalibration = told });
         }
 
         var switchRandom = new Random(unchecked((seed * 131) + 11));
@@ -95,7 +101,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
                 Polled = stop.Spec.Polled is { } p ? p with { StallS = 0.02 } : null,
             };
             string summary = Invariant($"{stop.Summary.Replace("; CSV", "; log", StringComparison.Ordinal)}; brake switch {delay * 1e3:0.0} ms{(spec.Polled is null ? "" : ", 20 ms stalls")}");
-            cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary));
+            cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary) { AccelCalibration = stop.AccelCalibration });
         }
 
         return cases;

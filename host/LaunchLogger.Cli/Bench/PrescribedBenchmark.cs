@@ -18,7 +18,7 @@ public static class PrescribedBenchmark
         SessionAnalysis session;
         try
         {
-            session = c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, cancel: cancel) : AnalyzeFiles(record, cancel);
+            session = c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, AccelScaleDraw.Options(c.AccelCalibration), cancel: cancel) : AnalyzeFiles(record, AccelScaleDraw.Options(c.AccelCalibration), cancel);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException or InputException)
         {
@@ -59,7 +59,7 @@ public static class PrescribedBenchmark
         return outcomes;
     }
 
-    private static SessionAnalysis AnalyzeFiles(PrescribedRecord record, CancellationToken cancel)
+    private static SessionAnalysis AnalyzeFiles(PrescribedRecord record, AnalysisOptions? options, CancellationToken cancel)
     {
         string folder = Path.Combine(Path.GetTempPath(), "launchlogger-bench-" + Guid.NewGuid().ToString("N"));
         try
@@ -72,7 +72,7 @@ public static class PrescribedBenchmark
                 AccelPath = accel,
                 Scale = new PulseScale(record.StatedMetresPerPulse, record.Spec.Pickup.Teeth, record.Spec.Pickup.Tyre.StatedCircumferenceM),
             });
-            return SessionAnalyzer.Analyze([run], cancel: cancel);
+            return SessionAnalyzer.Analyze([run], options, cancel: cancel);
         }
         finally
         {

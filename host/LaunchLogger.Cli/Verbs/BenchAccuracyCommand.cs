@@ -16,14 +16,15 @@ public static class BenchAccuracyCommand
         var seed = new Option<int>("--seed") { Description = "Seed for the variations and the sensors' noise.", DefaultValueFactory = _ => 1 };
         var list = new Option<bool>("--list") { Description = "Also print every run's errors." };
         var calibrated = new Option<bool>("--calibrated-tyre") { Description = "Take the tyre as calibrated at speed (true rolling circumference, no growth); by default the box is told the static circumference and the tyre grows with speed." };
+        var calibratedAccel = new Option<bool>("--calibrated-accel") { Description = "Tell the decoder the accelerometer's forward scale as a calibration against gravity gives it (truth plus a drawn 0.2 % error); the tyre stays as --calibrated-tyre says." };
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
-        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, only };
-        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only))));
+        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only };
+        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel))));
         return command;
     }
 
     /// <summary>Runs the benchmark.</summary>
-    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null)
+    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false)
     {
         if (runs < 2 || runs > 100_000)
         {
@@ -33,8 +34,8 @@ public static class BenchAccuracyCommand
 
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
-        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre).Where(c => Wanted(c.Group)).ToList();
-        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre).Where(c => Wanted(c.Group)).ToList();
+        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();
+        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();
         var started = System.Diagnostics.Stopwatch.StartNew();
         List<CaseOutcome> all;
         try
@@ -48,7 +49,8 @@ public static class BenchAccuracyCommand
             return ExitCode.Cancelled;
         }
 
-        string tyre = calibratedTyre ? "tyre taken as calibrated at speed" : "tyre NOT calibrated (static circumference told, grows with speed)";
+        string tyre = (calibratedTyre ? "tyre taken as calibrated at speed" : "tyre NOT calibrated (static circumference told, grows with speed)")
+            + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)");
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch), seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (groups is { Count: > 0 })
         {

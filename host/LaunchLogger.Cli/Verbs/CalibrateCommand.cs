@@ -11,10 +11,11 @@ public static class CalibrateCommand
     {
         return new Command(
             "calibrate",
-            "Measure the rolling circumference, the accelerometer's mounting and the pickup's tooth spacing from logs, " +
+            "Measure the rolling circumference, the accelerometer's scale and mounting and the pickup's tooth spacing from logs, " +
             "and save them in a settings file for report --settings. Calibration runs are runs: closed ground only, never public roads.")
         {
             CalibrateDistanceCommand.Create(),
+            CalibrateAccelerometerCommand.Create(),
             CalibrateMountingCommand.Create(),
             CalibrateTeethCommand.Create(),
         };

@@ -24,6 +24,12 @@ public static class RunAnalyzer
             // A measured circumference brings its own σ in place of the static value's.
             reconstructionOptions = reconstructionOptions with { CircumferenceSigmaFraction = circumferenceSigma / circumference };
         }
+        if (options.Calibration is { AccelForwardScale: > 0 and { } accelScale, AccelForwardScaleSigma: { } accelScaleSigma })
+        {
+            // A calibrated forward axis: its scale is divided out, and the pulses' scale is measured against it.
+            reconstructionOptions = reconstructionOptions with { AccelScaleCalibration = new Estimate(accelScale, accelScaleSigma) };
+        }
+
         ReconstructedRun reconstruction;
         try
         {

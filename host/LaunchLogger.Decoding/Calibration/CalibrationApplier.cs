@@ -9,6 +9,9 @@ namespace LaunchLogger.Decoding.Calibration;
 /// <para>Applied: the rolling circumference, which replaces the configured one and with it the
 /// distance per pulse of the distance channel (the second channel, on another wheel, keeps its
 /// own). A note in the run's warnings says what changed.</para>
+/// <para>Applied by <see cref="Analysis.RunAnalyzer"/> through the reconstruction's options, not
+/// here: the accelerometer's forward scale (<see cref="CalibrationSettings.AccelForwardScale"/>),
+/// which divides the forward input and lets a standing start measure the pulses' scale.</para>
 /// <para>Not applied here: the mounting pitch, which the grade estimate subtracts from the
 /// resting pitch (<see cref="CalibrationSettings.MountingPitchRad"/>), and the yaw. The
 /// tooth-spacing map is not applied yet: the run's pulse records carry counts only, so per-pulse

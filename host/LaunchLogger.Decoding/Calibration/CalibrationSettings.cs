@@ -41,6 +41,22 @@ public sealed record CalibrationSettings
     /// <summary>1-σ of <see cref="MountingYawDeg"/>, degrees.</summary>
     public double? MountingYawSigmaDeg { get; init; }
 
+    /// <summary>Scale factor of the accelerometer's forward axis: it reads this many times the
+    /// specific force along it (1.004 reads 0.4 % high), from two rests against gravity
+    /// (<c>launchlogger calibrate accelerometer</c>).</summary>
+    public double? AccelForwardScale { get; init; }
+
+    /// <summary>1-σ of <see cref="AccelForwardScale"/>.</summary>
+    public double? AccelForwardScaleSigma { get; init; }
+
+    /// <summary>Offset of the accelerometer's forward axis, m/s² (what it reads with no force
+    /// along it), from the same two rests. Shown, not applied: every run takes its own resting
+    /// level at staging, which holds the offset of the day.</summary>
+    public double? AccelForwardBiasMps2 { get; init; }
+
+    /// <summary>1-σ of <see cref="AccelForwardBiasMps2"/>, m/s².</summary>
+    public double? AccelForwardBiasSigmaMps2 { get; init; }
+
     /// <summary>Relative length of each tooth gap of the distance channel, in pulse order from
     /// a reference tooth (mean 1.0); null when not mapped.</summary>
     /// <remarks>Entry k is the gap that ends at the edge where the box's hardware pulse counter

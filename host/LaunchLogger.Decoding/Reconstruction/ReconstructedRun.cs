@@ -70,6 +70,12 @@ public sealed class ReconstructedRun
     /// moving; null for a staged run.</summary>
     public Estimate? StartSpeedMps { get; init; }
 
+    /// <summary>The pulses' scale measured from the launch against a calibrated accelerometer:
+    /// rolling over told distance per pulse with its 1 σ, already applied to distance and speed;
+    /// null when not measured (no accelerometer calibration, no standing start with both sensors,
+    /// a driven wheel that slips, or too few pulses).</summary>
+    public Estimate? RollingScale { get; init; }
+
     /// <summary>The pulse channel used for distance: 0, or 1 when the second channel turned less
     /// under drive (the undriven wheel).</summary>
     public int DistanceChannel { get; init; }

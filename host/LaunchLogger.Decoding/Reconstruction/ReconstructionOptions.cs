@@ -54,6 +54,31 @@ public sealed record ReconstructionOptions
     /// proportion to them.</summary>
     public double AccelScaleSigma { get; init; } = 0.01;
 
+    /// <summary>The forward axis' measured scale factor (reads this many times the true specific
+    /// force) with its 1 σ, from <c>launchlogger calibrate accelerometer</c>; null when not
+    /// calibrated. When given, the forward input is divided by it, its σ takes the place of
+    /// <see cref="AccelScaleSigma"/>, and a standing start with pulses measures the pulses' own
+    /// scale against it (<see cref="RollingScaleFit"/>). Null leaves everything as it was.</summary>
+    public Estimate? AccelScaleCalibration { get; init; }
+
+    /// <summary>How fast the accelerometer's error may wander over the launch in the rolling-scale
+    /// fit, m²/s⁵: what the pitch compensation and the resting level leave (a body pitch half
+    /// compensated, cross-axis pick-up), far steadier than the filter's
+    /// <see cref="BiasWanderDensity"/>, which also stands for an uncalibrated scale error.
+    /// 1e-4 lets the error drift by 0.017 m/s² (1σ) over 3 s (ours).</summary>
+    public double RollingScaleBiasWanderDensity { get; init; } = 1e-4;
+
+    /// <summary>The longest launch the rolling-scale fit reads, seconds after first motion.</summary>
+    public double RollingScaleWindowS { get; init; } = 6;
+
+    /// <summary>The fit reads the launch only up to this speed, m/s, where the tyre's growth is
+    /// still small (a quarter of its growth at 30 m/s at 15 m/s).</summary>
+    public double RollingScaleTopSpeedMps { get; init; } = 20;
+
+    /// <summary>The scale error of the forward axis in force: the calibration's σ when calibrated,
+    /// else <see cref="AccelScaleSigma"/>.</summary>
+    internal double ForwardScaleSigma => AccelScaleCalibration?.Sigma ?? AccelScaleSigma;
+
     /// <summary>Extra white acceleration noise the accelerometer model allows (vibration, cross
     /// axis), spectral density m²/s³.</summary>
     public double AccelModelNoiseDensity { get; init; } = 2e-4;

@@ -172,6 +172,14 @@ internal sealed partial class ReconstructionPass
 
         (pitchRad, pitchSigmaRad) = RestingPitch(a);
         accelInput = a.Input(pitchRad, options.CompensateBodyPitch);
+        if (options.AccelScaleCalibration is { Value: > 0 } calibration)
+        {
+            // The forward axis reads its scale factor times the force: divide it out.
+            for (int i = 0; i < accelInput.Length; i++)
+            {
+                accelInput[i] /= calibration.Value;
+            }
+        }
     }
 
     private void FindOnset(ForwardAcceleration a)

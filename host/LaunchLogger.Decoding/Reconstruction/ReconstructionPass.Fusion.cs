@@ -165,7 +165,7 @@ internal sealed partial class ReconstructionPass
         double previous = 0;
         double growthDistance = 0;
         double pulsesOnlySlip = 0;
-        double circumferenceSigma = pulses is null ? 0 : options.CircumferenceSigmaFraction;
+        double circumferenceSigma = pulses is null ? 0 : this.circumferenceSigma;
         double growthSigma = pulses is null ? 0 : options.TyreGrowthSigmaAt30Mps;
         double[]? launchSlip = LaunchSlip(steps, startS, k0, fused);
         for (int k = k0; k < n; k++)
@@ -177,7 +177,7 @@ internal sealed partial class ReconstructionPass
             previous = d;
             distance[k] = d;
             speed[k] = atRest ? 0 : Math.Max(speed[k], 0);
-            double scale = pulses is null ? options.AccelScaleSigma : options.PulseScaleSigma;
+            double scale = pulses is null ? options.ForwardScaleSigma : options.PulseScaleSigma;
             double slipDistance = 0;
             double slipSpeed = 0;
             if (slipSignal != null)
@@ -294,10 +294,10 @@ internal sealed partial class ReconstructionPass
         }
 
         double bias = Math.Sqrt(Square(accel.RestLevelSigmaMps2) + Square(options.BiasPriorMps2));
-        double pulseScale = Math.Sqrt(Square(options.CircumferenceSigmaFraction) + Square(options.PulseScaleSigma));
+        double pulseScale = Math.Sqrt(Square(circumferenceSigma) + Square(options.PulseScaleSigma));
         return LaunchSlipAllowance.DistanceSigma(
             steps.TimeS, k0, startS, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM,
-            fused.DistanceM, fused.DistanceSigmaM, bias, options.AccelScaleSigma, pulseScale);
+            fused.DistanceM, fused.DistanceSigmaM, bias, options.ForwardScaleSigma, pulseScale);
     }
 
     private static Estimate MeanBias(double[] grid, double startS, double? stopS, FusionResult fused)

@@ -194,7 +194,7 @@ internal sealed partial class ReconstructionPass
         double speed = -gained;
         double span = stop - a.TimeS[0];
         double levelSigma = a.NoiseMps2 * a.CorrelationFactor / Math.Sqrt(n);
-        double sigma = Math.Sqrt(Square(levelSigma * span) + (options.AccelOnlyBiasWanderDensity * span * span * span / 3) + Square(options.AccelScaleSigma * speed));
+        double sigma = Math.Sqrt(Square(levelSigma * span) + (options.AccelOnlyBiasWanderDensity * span * span * span / 3) + Square(options.ForwardScaleSigma * speed));
         return speed - (3 * sigma) > CrawlMps ? new Estimate(speed, sigma) : null;
     }
 

@@ -13,7 +13,7 @@ internal sealed partial class ReconstructionPass
     private readonly RunConfiguration configuration;
     private readonly List<string> warnings = [];
     private readonly double rolloutM;
-    private readonly double mpp;
+    private double mpp;
     private readonly PulseChannel? pulses;
     private readonly int channel;
     private readonly string? channelNote;
@@ -29,6 +29,8 @@ internal sealed partial class ReconstructionPass
     private AccelOnset? onset;
     private double? accelClockOffsetSigmaS;
     private KinematicStart? kinematic;
+    private double circumferenceSigma;
+    private RollingScale? rollingScale;
 
     public ReconstructionPass(DecodedRun run, ReconstructionOptions options)
     {
@@ -141,6 +143,12 @@ internal sealed partial class ReconstructionPass
             fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         }
 
+        circumferenceSigma = options.CircumferenceSigmaFraction;
+        if (MeasureRollingScale(steps, firstMotion.Value, stopS, spin, braking, fused) is not null)
+        {
+            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
+        }
+
         ReportSlip(fused, slipSignal != null);
         if (braking.Count > 0)
         {
@@ -178,6 +186,7 @@ internal sealed partial class ReconstructionPass
             DistanceChannel = channel,
             Staged = Staged,
             StartSpeedMps = Staged ? null : opening?.SpeedMps ?? accelOpeningSpeed,
+            RollingScale = rollingScale?.Scale,
         };
     }
 

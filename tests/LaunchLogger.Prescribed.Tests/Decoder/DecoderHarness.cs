@@ -10,7 +10,7 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 public static class DecoderHarness
 {
     /// <summary>The record's CSV files, imported and analysed.</summary>
-    public static SessionAnalysis AnalyzeText(PrescribedRecord record)
+    public static SessionAnalysis AnalyzeText(PrescribedRecord record, AnalysisOptions? options = null)
     {
         string folder = Path.Combine(Path.GetTempPath(), "launchlogger-prescribed-" + Guid.NewGuid().ToString("N"));
         try
@@ -23,7 +23,7 @@ public static class DecoderHarness
                 AccelPath = accel,
                 Scale = PulseScale.FromOptions(null, record.Spec.Pickup.Teeth, record.Spec.Pickup.Tyre.StatedCircumferenceM),
             });
-            return SessionAnalyzer.Analyze([run], Options(record));
+            return SessionAnalyzer.Analyze([run], Options(record, options));
         }
         finally
         {
@@ -47,17 +47,24 @@ public static class DecoderHarness
     }
 
     /// <summary>The record written as a log by the firmware core, read and analysed.</summary>
-    public static SessionAnalysis AnalyzeLog(PrescribedRecord record)
+    public static SessionAnalysis AnalyzeLog(PrescribedRecord record, AnalysisOptions? options = null)
     {
         LogReadResult log = LogReader.Read(record.ToLog(), record.Spec.Shape.Name);
-        return SessionAnalyzer.Analyze(log.Runs, Options(record));
+        return SessionAnalyzer.Analyze(log.Runs, Options(record, options));
     }
 
     /// <summary>A pickup wheel without inertia (no <see cref="Sensors.SpinUpLag"/>, the
     /// generator's simplest wheel) does not lag the road as it is spun up: the decoder is told so,
-    /// as it is told the circumference. Any other wheel is decoded with the defaults.</summary>
-    private static AnalysisOptions? Options(PrescribedRecord record) =>
-        record.Spec.Pickup.SpinUp is null && record.Spec.Pickup.Slip is null
-            ? new AnalysisOptions { Reconstruction = ReconstructionOptions.Default with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0 } }
-            : null;
+    /// as it is told the circumference. Any other wheel is decoded with the defaults (or
+    /// <paramref name="options"/>, the test's own).</summary>
+    private static AnalysisOptions? Options(PrescribedRecord record, AnalysisOptions? options)
+    {
+        if (record.Spec.Pickup.SpinUp is not null || record.Spec.Pickup.Slip is not null)
+        {
+            return options;
+        }
+
+        AnalysisOptions given = options ?? new AnalysisOptions();
+        return given with { Reconstruction = given.Reconstruction with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0 } };
+    }
 }
