@@ -158,18 +158,18 @@ public static class BenchAccuracyCommand
     private static void AccuracyGoals(List<CaseOutcome> runs, double factor, bool calibratedTyre, TextWriter output)
     {
         string times = factor == 1 ? "" : Text($" ({factor:0.0}× the goal)");
-        Goal(runs, BenchFigure.FirstMotion, 5 * factor, $"first motion p95 ≤ {5 * factor} ms{times}", output);
-        Goal(runs, BenchFigure.Rollout, 2 * factor, $"rollout mark p95 ≤ {2 * factor} ms{times}", output);
+        Goal(runs, BenchFigure.FirstMotion, 5 * factor, Text($"first motion p95 ≤ {5 * factor:0.###} ms{times}"), output);
+        Goal(runs, BenchFigure.Rollout, 2 * factor, Text($"rollout mark p95 ≤ {2 * factor:0.###} ms{times}"), output);
         if (!calibratedTyre)
         {
             output.WriteLine("    0-60 mph, 1/4 mile ET and trap goals apply with a calibrated tyre: run with --calibrated-tyre");
             return;
         }
 
-        Goal(runs, BenchFigure.ZeroTo60, 5 * factor, Text($"0-60 mph from standstill p95 ≤ {5 * factor} ms"), output);
-        Goal(runs, BenchFigure.ZeroTo60AfterRollout, 5 * factor, Text($"0-60 mph after rollout p95 ≤ {5 * factor} ms"), output);
-        Goal(runs, BenchFigure.Quarter, 5 * factor, Text($"1/4 mile ET p95 ≤ {5 * factor} ms"), output);
-        Goal(runs, BenchFigure.Trap, 0.05 * factor, Text($"1/4 mile trap speed p95 ≤ {0.05 * factor} m/s"), output);
+        Goal(runs, BenchFigure.ZeroTo60, 5 * factor, Text($"0-60 mph from standstill p95 ≤ {5 * factor:0.###} ms"), output);
+        Goal(runs, BenchFigure.ZeroTo60AfterRollout, 5 * factor, Text($"0-60 mph after rollout p95 ≤ {5 * factor:0.###} ms"), output);
+        Goal(runs, BenchFigure.Quarter, 5 * factor, Text($"1/4 mile ET p95 ≤ {5 * factor:0.###} ms"), output);
+        Goal(runs, BenchFigure.Trap, 0.05 * factor, Text($"1/4 mile trap speed p95 ≤ {0.05 * factor:0.###} m/s"), output);
     }
 
     private static void Goal(List<CaseOutcome> runs, int m, double limit, string text, TextWriter output)
