@@ -23,7 +23,7 @@ public static class CalibrateAccelerometerCommand
     {
         var rests = new Argument<FileInfo[]>("rest")
         {
-            Description = "Two records, in this order: the forward axis pointing UP, then pointing DOWN. Logs, or accelerometer CSV files (t_s,ax_mps2[,ay_mps2,az_mps2]).",
+            Description = "Two records, in this order: the forward axis pointing UP, then pointing DOWN. Accelerometer CSV files (t_s,ax_mps2[,ay_mps2,az_mps2]), or logs whose run holds the rest (the box does not record a rest by itself yet).",
             Arity = new ArgumentArity(2, 2),
         }.RejectingUnknownOptions();
         var run = new Option<string[]>("--run") { Description = "Run N of a log (from 1, in log order), once per log when a log holds several runs." };
