@@ -7,7 +7,14 @@ namespace LaunchLogger.Cli.Capture;
 /// throws <see cref="ObjectDisposedException"/> (or <see cref="IOException"/>) while
 /// <see cref="SerialPort.IsOpen"/> stays true, and a write without a timeout can hang. Modem-line
 /// signals are never touched (pseudo-terminals refuse them). Every such failure is reported as
-/// <see cref="LinkLostException"/>, and the port is reopened from scratch.</remarks>
+/// <see cref="LinkLostException"/>, and the port is reopened from scratch.
+/// <para>Reads are never timed out inside System.IO.Ports. Its Unix stream times a read out by
+/// cancelling the request, and that races its I/O thread: when the cancel lands after the thread
+/// has taken the bytes from the device but before it hands them over, the read reports a timeout
+/// and the bytes (up to a whole block) are gone. So each connection keeps one read outstanding,
+/// with no timeout, into a buffer of its own; <see cref="ILinkConnection.Read"/> waits for it at
+/// most <c>readTimeoutMs</c> and, if it has not finished, leaves it running for the next call.
+/// Closing the port, or the peer going away, ends that read with an error.</para></remarks>
 public sealed class SerialLink(string portName, int baudRate, int readTimeoutMs = 200) : ILink
 {
     /// <inheritdoc />
@@ -29,7 +36,7 @@ public sealed class SerialLink(string portName, int baudRate, int readTimeoutMs 
         try
         {
             port.Open();
-            return new Connection(port);
+            return new Connection(port, readTimeoutMs);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or InvalidOperationException or ArgumentException)
         {
@@ -38,20 +45,47 @@ public sealed class SerialLink(string portName, int baudRate, int readTimeoutMs 
         }
     }
 
-    private sealed class Connection(SerialPort port) : ILinkConnection
+    private sealed class Connection(SerialPort port, int waitMs) : ILinkConnection
     {
+        private const int LandingBytes = 4096;
+        private readonly byte[] landing = new byte[LandingBytes];
+        private Task<int>? outstanding;
+        private int landedAt;
+        private int landedCount;
+
         public int Read(byte[] buffer)
         {
             try
             {
-                int n = port.Read(buffer, 0, buffer.Length);
-                return n > 0 ? n : throw new LinkLostException($"{port.PortName}: the port reported end of data");
+                if (landedCount == 0)
+                {
+                    // No cancellation token, no timeout: only bytes or an error end this read.
+                    outstanding ??= port.BaseStream.ReadAsync(landing, 0, landing.Length, CancellationToken.None);
+                    if (!Finished(outstanding))
+                    {
+                        return 0;
+                    }
+
+                    Task<int> done = outstanding;
+                    outstanding = null;
+                    int n = done.GetAwaiter().GetResult();
+                    if (n <= 0)
+                    {
+                        throw new LinkLostException($"{port.PortName}: the port reported end of data");
+                    }
+
+                    landedAt = 0;
+                    landedCount = n;
+                }
+
+                // A caller's buffer smaller than the landing one takes the rest on its next call.
+                int given = Math.Min(landedCount, buffer.Length);
+                landing.AsSpan(landedAt, given).CopyTo(buffer);
+                landedAt += given;
+                landedCount -= given;
+                return given;
             }
-            catch (TimeoutException)
-            {
-                return 0;
-            }
-            catch (Exception e) when (e is IOException or ObjectDisposedException or InvalidOperationException or UnauthorizedAccessException)
+            catch (Exception e) when (e is IOException or ObjectDisposedException or InvalidOperationException or UnauthorizedAccessException or OperationCanceledException)
             {
                 throw new LinkLostException($"{port.PortName}: link lost: {e.Message}", e);
             }
@@ -66,6 +100,23 @@ public sealed class SerialLink(string portName, int baudRate, int readTimeoutMs 
             catch (Exception e) when (e is IOException or ObjectDisposedException or InvalidOperationException)
             {
                 // The port is gone already; nothing is left to release.
+            }
+
+            // Closing the port ends the outstanding read with an error nobody waits for.
+            outstanding?.ContinueWith(static t => _ = t.Exception, CancellationToken.None, TaskContinuationOptions.OnlyOnFaulted | TaskContinuationOptions.ExecuteSynchronously, TaskScheduler.Default);
+        }
+
+        /// <summary>Whether <paramref name="read"/> has finished within the wait (its fault, if
+        /// any, is thrown by whoever takes its result).</summary>
+        private bool Finished(Task<int> read)
+        {
+            try
+            {
+                return read.Wait(waitMs);
+            }
+            catch (AggregateException)
+            {
+                return true;
             }
         }
     }
