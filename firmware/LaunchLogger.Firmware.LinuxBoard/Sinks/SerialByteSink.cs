@@ -60,7 +60,10 @@ public sealed class SerialByteSink : IByteSink, IDisposable
     /// <summary>Frames refused because the ring buffer was full.</summary>
     public long FramesRefused => queue.WritesRefused;
 
-    /// <summary>Bytes dropped because a port write timed out or the port failed.</summary>
+    /// <summary>Bytes dropped because a port write timed out or the port failed: an upper bound.
+    /// A timed-out chunk is counted whole, but System.IO.Ports' Unix stream times a write out by
+    /// cancelling it, which races its I/O thread, so some or all of such a chunk may have gone out
+    /// (the same race loses bytes on the reading side; DEVELOPERS.md, serial capture).</summary>
     public long BytesDropped { get; private set; }
 
     /// <summary>Bytes written to the port.</summary>
