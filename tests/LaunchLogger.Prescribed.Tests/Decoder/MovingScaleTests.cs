@@ -1,8 +1,5 @@
 using LaunchLogger.Decoding;
 using LaunchLogger.Decoding.Analysis;
-using LaunchLogger.Decoding.Calibration;
-using LaunchLogger.Decoding.Metrics;
-using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Shapes;
 using LaunchLogger.Prescribed.Truth;
 
@@ -15,8 +12,6 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 /// circumference told and growing by 0.1–0.6 % at 30 m/s. The truth is the generator's.</summary>
 public class MovingScaleTests
 {
-    private const double CalibrationSigma = 0.002;
-
     public static TheoryData<int, bool> Seeds => new() { { 1, false }, { 2, true }, { 3, false }, { 4, true } };
 
     [Theory]
@@ -83,26 +78,8 @@ public class MovingScaleTests
         Assert.True(errors.Skip(1).Sum(e => Math.Abs(e.Measured)) <= 0.5 * errors.Skip(1).Sum(e => Math.Abs(e.Told)), table);
     }
 
-    /// <summary>The record with an uncalibrated tyre and an accelerometer 1 % σ off in scale,
-    /// told to 0.2 %: the spec, the options that tell the calibration, and the true rolling/told ratio.</summary>
-    private static (PrescribedRecordSpec Spec, AnalysisOptions Options, double Truth) Draw(int seed, Shape shape, Random random)
-    {
-        PrescribedRecordSpec standing = Records.Standing(seed) with { Shape = shape };
-        double rolling = standing.Pickup.Tyre.RollingAtRestM;
-        double ratio = 0.98 + (0.01 * random.NextDouble());
-        double growth = 0.001 + (0.005 * random.NextDouble());
-        double scaleError = 0.01 * Gaussian(random);
-        double told = 1 + scaleError + (CalibrationSigma * Gaussian(random));
-        PrescribedRecordSpec spec = standing with
-        {
-            Pickup = standing.Pickup with { Tyre = new TyreModel(rolling / ratio, rolling, growth) },
-            Accel = standing.Accel! with { ScaleError = scaleError },
-        };
-        var options = new AnalysisOptions { Calibration = new CalibrationSettings { AccelForwardScale = told, AccelForwardScaleSigma = CalibrationSigma } };
-        return (spec, options, ratio);
-    }
-
-    // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
-    private static double Gaussian(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
+    /// <summary>The record with a tyre rolling 1–2 % below the circumference told (the error the
+    /// calibration is there to remove) and a calibrated accelerometer (<see cref="Records.OffScaleTyre"/>).</summary>
+    private static (PrescribedRecordSpec Spec, AnalysisOptions Options, double Truth) Draw(int seed, Shape shape, Random random) =>
+        Records.OffScaleTyre(Records.Standing(seed) with { Shape = shape }, random, ratioSpan: 0.01);
 }
