@@ -69,14 +69,15 @@ internal static class RollingScaleFit
     private const double GrowthReferenceMps = 30;
 
     /// <summary>The fit, or null when the launch holds too few pulses before the window closes.</summary>
-    /// <param name="gridS">Grid times; the first is at rest.</param>
+    /// <param name="gridS">Grid times; the first is at rest (moving: at the opening speed).</param>
     /// <param name="stepSpeedM">Input speed gained over each step, m/s.</param>
     /// <param name="stepDistanceM">Input distance gained over each step beyond v·Δt, m.</param>
     /// <param name="noInput">Steps the accelerometer does not cover.</param>
     /// <param name="pulses">The distance channel.</param>
     /// <param name="metresPerPulse">Distance per pulse told, m.</param>
     /// <param name="startS">First motion, seconds.</param>
-    /// <param name="endS">The window closes here at the latest (braking, wheelspin, the stop), seconds.</param>
+    /// <param name="endS">The pulses are read up to here at the latest (braking, wheelspin, the
+    /// stop), seconds; a window that ends at rest integrates on to its speed equations.</param>
     /// <param name="noise">The error and prior sizes.</param>
     /// <param name="moving">A window that opens moving and may end at rest; null: from rest at
     /// <c>gridS[0]</c>, as a launch.</param>
