@@ -71,6 +71,10 @@ internal sealed class FusionSettings
 
     public double MetresPerPulse { get; init; }
 
+    /// <summary>Distance the tyre's measured growth with speed adds at each pulse observation
+    /// beyond count × <see cref="MetresPerPulse"/>, m (null: none).</summary>
+    public double[]? PulseGrowthM { get; init; }
+
     public double ToothSigmaM { get; init; }
 
     public double EdgeJitterS { get; init; }
@@ -292,7 +296,7 @@ internal static class FusionSmoother
 
                 double delta = (0.5 * (lo + hi)) - tk;
                 double w = hi - lo;
-                double z = pulses.Counts[ip] * mpp;
+                double z = (pulses.Counts[ip] * mpp) + (s.PulseGrowthM?[ip] ?? 0);
                 double h2 = 0.5 * delta * delta;
                 if (accelMode)
                 {

@@ -71,6 +71,10 @@ public sealed record ReconstructionOptions
     /// <summary>The longest launch the rolling-scale fit reads, seconds after first motion.</summary>
     public double RollingScaleWindowS { get; init; } = 6;
 
+    /// <summary>The longest record that opens moving the rolling-scale fit reads, seconds after
+    /// its first pulse: a rolling start or a stop from cruise, down to the rest it ends in.</summary>
+    public double RollingScaleMovingWindowS { get; init; } = 40;
+
     /// <summary>The fit reads the launch only up to this speed, m/s, where the tyre's growth is
     /// still small (a quarter of its growth at 30 m/s at 15 m/s).</summary>
     public double RollingScaleTopSpeedMps { get; init; } = 20;

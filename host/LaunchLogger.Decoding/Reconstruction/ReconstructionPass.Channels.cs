@@ -1,3 +1,4 @@
+using LaunchLogger.Firmware.Wire;
 namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <content>Channel preparation: which pulse channel carries distance, bracket checks, the accelerometer's resting level, onset and pitch.</content>
@@ -162,6 +163,7 @@ internal sealed partial class ReconstructionPass
             // level plus the acceleration the first pulses show.
             double sigma = Math.Sqrt((a.RestLevelSigmaMps2 * a.RestLevelSigmaMps2) + (open.AccelMps2.Sigma * open.AccelMps2.Sigma));
             a.MoveRestLevel(a.RestLevelMps2 - open.AccelMps2.Value, sigma);
+            ReadLevelAtFinalRest(a);
         }
 
         FindOnset(a);
@@ -180,6 +182,43 @@ internal sealed partial class ReconstructionPass
                 accelInput[i] /= calibration.Value;
             }
         }
+    }
+
+    /// <summary>How long after the last pulse a record that ends at rest is surely standing, s.</summary>
+    private const double FinalRestAfterLastPulseS = 1.0;
+
+    /// <summary>How much the accelerometer's level may change between a record's opening and the
+    /// rest it ends in, m/s²: the road's grade changing by half a per cent over a stop's length
+    /// (ours), and the sensor's drift.</summary>
+    private const double FinalRestLevelChangeMps2 = 0.05;
+
+    /// <summary>A record that opens moving and ends at rest: the level read at the final rest (to
+    /// within its change since the opening, <see cref="FinalRestLevelChangeMps2"/>) joins the one
+    /// read against the first pulses' acceleration, inverse-variance weighted. The first pulses'
+    /// acceleration can be a poor guide (a coarse pickup at speed: σ of metres per second
+    /// squared), and a poor level tilts the resting pitch and with it the input's scale.</summary>
+    private void ReadLevelAtFinalRest(ForwardAcceleration a)
+    {
+        bool stoppedEvent = run.Events.Any(e => e.Kind == EventKind.Stopped);
+        double from = pulses!.HiS[^1] + FinalRestAfterLastPulseS;
+        int first = a.IndexAtOrAfter(from);
+        if (a.Count - first < 8 || a.TimeS[^1] - from < 0.25 || !(stoppedEvent || StopFinder.EndsAtRest(pulses, mpp)))
+        {
+            return;
+        }
+
+        (double opening, double openingSigma) = (a.RestLevelMps2, a.RestLevelSigmaMps2);
+        if (!a.SetRest(first, a.Count))
+        {
+            return;
+        }
+
+        double atEnd = a.RestLevelMps2;
+        double endSigma = Math.Sqrt(Square(a.RestLevelSigmaMps2) + Square(FinalRestLevelChangeMps2));
+        double wOpening = 1 / Math.Max(openingSigma * openingSigma, 1e-12);
+        double wEnd = 1 / (endSigma * endSigma);
+        a.MoveRestLevel(((wOpening * opening) + (wEnd * atEnd)) / (wOpening + wEnd), Math.Sqrt(1 / (wOpening + wEnd)));
+        finalRestFromS = from;
     }
 
     private void FindOnset(ForwardAcceleration a)

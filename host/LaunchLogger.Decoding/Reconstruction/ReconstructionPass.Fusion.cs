@@ -63,8 +63,8 @@ internal sealed partial class ReconstructionPass
             if (opening is { } s0)
             {
                 // The start fit's speed at the first observation; its σ widened for shapes the quadratic misses.
-                speed = s0.SpeedMps.Value;
-                speedSigma = Math.Max(3 * s0.SpeedMps.Sigma, 0.1);
+                speed = s0.SpeedMps.Value * MeasuredScale;
+                speedSigma = Math.Max(3 * s0.SpeedMps.Sigma * MeasuredScale, 0.1);
             }
             else
             {
@@ -114,6 +114,7 @@ internal sealed partial class ReconstructionPass
             StopIndex = stopIndex,
             Pulses = pulses,
             MetresPerPulse = mpp,
+            PulseGrowthM = pulseGrowthM,
             ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
             EdgeJitterS = options.EdgeJitterS,
             SpinWindows = [.. spin],
@@ -166,7 +167,7 @@ internal sealed partial class ReconstructionPass
         double growthDistance = 0;
         double pulsesOnlySlip = 0;
         double circumferenceSigma = pulses is null ? 0 : this.circumferenceSigma;
-        double growthSigma = pulses is null ? 0 : options.TyreGrowthSigmaAt30Mps;
+        double growthSigma = pulses is null ? 0 : this.growthSigma;
         double[]? launchSlip = LaunchSlip(steps, startS, k0, fused);
         for (int k = k0; k < n; k++)
         {
@@ -221,9 +222,12 @@ internal sealed partial class ReconstructionPass
 
             // The launch slip is held once the car is away, so like the circumference and growth
             // terms it is shared along the path: a distance between two later times does not carry it.
-            shared[k] = Math.Sqrt((dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + (launch * launch));
+            // A scale and growth measured together are correlated (growthCorrelation; 0 for priors).
+            double tyreCross = 2 * growthCorrelation * dScale * growthDistance;
+            double tyreSpeedCross = 2 * growthCorrelation * circumferenceSigma * growth * speed[k] * speed[k];
+            shared[k] = Math.Sqrt((dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + tyreCross + (launch * launch));
             sd[k] = Math.Sqrt((sd[k] * sd[k]) + (shared[k] * shared[k]) + Square(speed[k] * clock));
-            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + Square(options.TimebaseSigma * speed[k]));
+            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + tyreSpeedCross + Square(options.TimebaseSigma * speed[k]));
             if (atRest)
             {
                 accelOut[k] = 0;

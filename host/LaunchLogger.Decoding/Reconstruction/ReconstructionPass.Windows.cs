@@ -126,12 +126,20 @@ internal sealed partial class ReconstructionPass
     /// builds with the brake pressure), joined across gaps under 0.2 s, cut at the stop.</summary>
     private List<TimeWindow> BrakingWindows(StepGrid steps, double startS, double? stopS)
     {
-        var windows = new List<TimeWindow>();
         if (accel is null || pulses is null || !Staged || options.BrakingDecelMps2 <= 0)
         {
-            return windows;
+            return [];
         }
 
+        return BrakingWindows(steps, startS, stopS, options.BrakingDecelMps2, steps.StartSpeedM);
+    }
+
+    /// <summary>Stretches where the braking force per unit mass exceeds <paramref name="decelMps2"/>
+    /// (as above), the speed taken as <paramref name="startSpeedMps"/> at
+    /// <paramref name="startS"/> for the drag.</summary>
+    private List<TimeWindow> BrakingWindows(StepGrid steps, double startS, double? stopS, double decelMps2, double startSpeedMps)
+    {
+        var windows = new List<TimeWindow>();
         double[] grid = steps.TimeS;
         double[] dv = steps.StepSpeedM;
         double stop = stopS ?? double.PositiveInfinity;
@@ -141,7 +149,7 @@ internal sealed partial class ReconstructionPass
         double span = 0;
         int lo = k0;
         int hi = k0;
-        double speed = steps.StartSpeedM;
+        double speed = startSpeedMps;
         double open = double.NaN;
         double last = double.NaN;
         for (int k = k0; k + 1 < n && grid[k] < stop; k++)
@@ -163,7 +171,7 @@ internal sealed partial class ReconstructionPass
 
             speed = Math.Max(speed + dv[k], 0);
             double force = span > 0 ? (sum / span) + (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * speed * speed) : 0;
-            if (force < -options.BrakingDecelMps2)
+            if (force < -decelMps2)
             {
                 if (double.IsNaN(open))
                 {

@@ -31,6 +31,10 @@ internal sealed partial class ReconstructionPass
     private KinematicStart? kinematic;
     private double circumferenceSigma;
     private RollingScale? rollingScale;
+    private double growthSigma;
+    private double growthCorrelation;
+    private double[]? pulseGrowthM;
+    private double finalRestFromS = double.PositiveInfinity;
 
     public ReconstructionPass(DecodedRun run, ReconstructionOptions options)
     {
@@ -144,6 +148,7 @@ internal sealed partial class ReconstructionPass
         }
 
         circumferenceSigma = options.CircumferenceSigmaFraction;
+        growthSigma = options.TyreGrowthSigmaAt30Mps;
         if (MeasureRollingScale(steps, firstMotion.Value, stopS, spin, braking, fused) is not null)
         {
             fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
@@ -185,7 +190,7 @@ internal sealed partial class ReconstructionPass
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             DistanceChannel = channel,
             Staged = Staged,
-            StartSpeedMps = Staged ? null : opening?.SpeedMps ?? accelOpeningSpeed,
+            StartSpeedMps = Staged ? null : opening is { } s ? new Estimate(s.SpeedMps.Value * MeasuredScale, s.SpeedMps.Sigma * MeasuredScale) : accelOpeningSpeed,
             RollingScale = rollingScale?.Scale,
         };
     }

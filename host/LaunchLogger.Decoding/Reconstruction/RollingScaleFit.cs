@@ -10,7 +10,25 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <param name="WindowEndS">Time of the last one, seconds.</param>
 /// <param name="ResidualRatio">χ² of the residuals over their degrees of freedom (σ was widened
 /// by its square root when above 1).</param>
-internal readonly record struct RollingScale(Estimate Scale, int Checkpoints, double WindowEndS, double ResidualRatio);
+internal readonly record struct RollingScale(Estimate Scale, int Checkpoints, double WindowEndS, double ResidualRatio)
+{
+    /// <summary>Speed equations at rest after a stop (0 for a launch).</summary>
+    public int RestEquations { get; init; }
+
+    /// <summary>The tyre's growth at 30 m/s, a fraction, with its 1 σ.</summary>
+    public Estimate Growth { get; init; }
+
+    /// <summary>Correlation of the scale's and the growth's errors.</summary>
+    public double ScaleGrowthCorrelation { get; init; }
+}
+
+/// <summary>A window that opens moving (<see cref="RollingScaleFit"/>) and may end at rest.</summary>
+/// <param name="InitialSpeedMps">Speed at the window's first grid point, with its prior σ (wide), m/s.</param>
+/// <param name="RestS">Times at rest after the stop where the speed is zero (sorted; empty
+/// when the record does not end at rest), seconds.</param>
+/// <param name="BrakeSpanS">How long the brakes acted before that rest, seconds.</param>
+/// <param name="BrakeStepSigmaMps2">σ of the accelerometer's error stepping while braking, m/s².</param>
+internal readonly record struct MovingWindow(Estimate InitialSpeedMps, double[] RestS, double BrakeSpanS, double BrakeStepSigmaMps2);
 
 /// <summary>The pulses' scale (the tyre's rolling circumference over the one the box was told)
 /// measured from a standing start against an accelerometer whose scale is calibrated: the
@@ -51,17 +69,36 @@ internal static class RollingScaleFit
     private const double GrowthReferenceMps = 30;
 
     /// <summary>The fit, or null when the launch holds too few pulses before the window closes.</summary>
-    /// <param name="gridS">Grid times; the first is at rest.</param>
+    /// <param name="gridS">Grid times; the first is at rest (moving: at the opening speed).</param>
     /// <param name="stepSpeedM">Input speed gained over each step, m/s.</param>
     /// <param name="stepDistanceM">Input distance gained over each step beyond v·Δt, m.</param>
     /// <param name="noInput">Steps the accelerometer does not cover.</param>
     /// <param name="pulses">The distance channel.</param>
     /// <param name="metresPerPulse">Distance per pulse told, m.</param>
     /// <param name="startS">First motion, seconds.</param>
-    /// <param name="endS">The window closes here at the latest (braking, wheelspin, the stop), seconds.</param>
+    /// <param name="endS">The pulses are read up to here at the latest (braking, wheelspin, the
+    /// stop), seconds; a window that ends at rest integrates on to its speed equations.</param>
     /// <param name="noise">The error and prior sizes.</param>
+    /// <param name="moving">A window that opens moving and may end at rest; null: from rest at
+    /// <c>gridS[0]</c>, as a launch.</param>
+    /// <remarks>
+    /// <para>Opening at an unknown speed v₀, the accelerometer's double integral from the window's
+    /// first grid point is A(τ) = x(τ) − v₀·τ + ½·b·τ² + e(τ): v₀ is one more parameter (its
+    /// prior wide, from the first pulses at the told scale), and the distance at the first pulse
+    /// read, c, takes the phase's place (counts are taken from that pulse on). A steady speed then
+    /// says nothing of ρ (ρ·N·m against v₀·τ); the CHANGE of speed the accelerometer sees
+    /// against the pulses' does, and a stretch at steady speed measures the bias b.</para>
+    /// <para>A window that ends at rest adds speed equations: the input integrated once,
+    /// V(τ) = v(τ) − v₀ + b·τ + e_v(τ), is −v₀ + b·τ + e_v at rest, so the speed at the window's
+    /// opening (hence ρ, against the pulses there) comes from the acceleration integrated down
+    /// to the rest, without the braked wheel's pulses. e_v's covariances follow from the same
+    /// kernels, a speed at t integrating the white noise with weight 1 and the random walk with
+    /// (t − u) (<see cref="ErrorCovariance"/>). The accelerometer's error may step while braking
+    /// (body pitch left after compensation): σ_δ over the braking's span, shared by every speed
+    /// equation.</para>
+    /// </remarks>
     public static RollingScale? Fit(
-        double[] gridS, double[] stepSpeedM, double[] stepDistanceM, bool[]? noInput, PulseChannel pulses, double metresPerPulse, double startS, double endS, RollingScaleNoise noise)
+        double[] gridS, double[] stepSpeedM, double[] stepDistanceM, bool[]? noInput, PulseChannel pulses, double metresPerPulse, double startS, double endS, RollingScaleNoise noise, MovingWindow? moving = null)
     {
         ArgumentNullException.ThrowIfNull(gridS);
         ArgumentNullException.ThrowIfNull(pulses);
@@ -71,14 +108,19 @@ internal static class RollingScaleFit
             return null;
         }
 
-        // Speed V, distance A and growth integral Γ of the input at the grid points, from rest at grid[0].
+        double v0 = moving?.InitialSpeedMps.Value ?? 0;
+        double[] restAt = moving?.RestS ?? [];
+        double integrateTo = restAt.Length > 0 ? Math.Max(endS, restAt[^1]) : endS;
+
+        // Speed V, distance A and growth integral Γ of the input at the grid points, from rest
+        // (or, moving, from the speed guessed at grid[0], for Γ) at grid[0].
         var speed = new double[n];
         var distance = new double[n];
         var growth = new double[n];
         int last = 0;
         for (int k = 0; k + 1 < n; k++)
         {
-            if ((noInput != null && noInput[k]) || gridS[k + 1] > endS || speed[k] > noise.TopSpeedMps)
+            if ((noInput != null && noInput[k]) || gridS[k + 1] > integrateTo || v0 + speed[k] > noise.TopSpeedMps)
             {
                 break;
             }
@@ -86,12 +128,12 @@ internal static class RollingScaleFit
             double dt = gridS[k + 1] - gridS[k];
             speed[k + 1] = speed[k] + stepSpeedM[k];
             distance[k + 1] = distance[k] + (speed[k] * dt) + stepDistanceM[k];
-            double v = 0.5 * (speed[k] + speed[k + 1]);
+            double v = v0 + (0.5 * (speed[k] + speed[k + 1]));
             growth[k + 1] = growth[k] + (Square(v / GrowthReferenceMps) * v * dt);
             last = k + 1;
         }
 
-        double windowEnd = Math.Min(gridS[last], startS + noise.WindowS);
+        double windowEnd = Math.Min(Math.Min(gridS[last], endS), startS + noise.WindowS);
         var candidates = new List<int>();
         for (int i = 0; i < pulses.Length; i++)
         {
@@ -107,56 +149,91 @@ internal static class RollingScaleFit
             return null;
         }
 
+        int rests = 0;
+        while (rests < restAt.Length && restAt[rests] <= gridS[last])
+        {
+            rests++;
+        }
+
         int count = Math.Min(MaxCheckpoints, candidates.Count);
-        var h = Matrix<double>.Build.Dense(count, 4);
-        var y = Vector<double>.Build.Dense(count);
-        var tau = new double[count];
-        var pulseVariance = new double[count];
+        int rows = count + rests;
+        int columns = moving is null ? 4 : 5;
+        var h = Matrix<double>.Build.Dense(rows, columns);
+        var y = Vector<double>.Build.Dense(rows);
+        var tau = new double[rows];
+        var isSpeed = new bool[rows];
+        var ownVariance = new double[rows];
         double t0 = gridS[0];
+        long firstCount = moving is null ? 0 : pulses.Counts[candidates[0]];
         for (int j = 0; j < count; j++)
         {
             int i = candidates[(int)Math.Round((double)j * (candidates.Count - 1) / Math.Max(count - 1, 1))];
             double t = pulses.MidS(i);
-            int found = Array.BinarySearch(gridS, t);
-            int k = Math.Clamp(found >= 0 ? found : ~found - 1, 0, last - 1);
+            int k = GridIndex(gridS, t, last);
             double dt = gridS[k + 1] - gridS[k];
             double delta = t - gridS[k];
             double rate = stepSpeedM[k] / dt;
-            double v = speed[k] + (rate * delta);
+            double v = v0 + speed[k] + (rate * delta);
             y[j] = distance[k] + (speed[k] * delta) + (0.5 * rate * delta * delta);
             tau[j] = t - t0;
-            h[j, 0] = pulses.Counts[i] * metresPerPulse;
-            h[j, 1] = -1;
+            h[j, 0] = (pulses.Counts[i] - firstCount) * metresPerPulse;
+            h[j, 1] = moving is null ? -1 : 1;
             h[j, 2] = 0.5 * tau[j] * tau[j];
             h[j, 3] = growth[k] + (Square(v / GrowthReferenceMps) * v * delta);
+            if (moving is not null)
+            {
+                h[j, 4] = -tau[j];
+            }
+
             double w = pulses.HiS[i] - pulses.LoS[i];
-            pulseVariance[j] = Square(noise.ToothSigmaM) + (v * v * ((w * w / 12) + Square(noise.EdgeJitterS)));
+            ownVariance[j] = Square(noise.ToothSigmaM) + (v * v * ((w * w / 12) + Square(noise.EdgeJitterS)));
         }
 
-        var r = Matrix<double>.Build.Dense(count, count);
-        for (int a = 0; a < count; a++)
+        for (int j = count; j < rows; j++)
+        {
+            double t = restAt[j - count];
+            int k = GridIndex(gridS, t, last);
+            y[j] = speed[k] + (stepSpeedM[k] * (t - gridS[k]) / (gridS[k + 1] - gridS[k]));
+            tau[j] = t - t0;
+            isSpeed[j] = true;
+            h[j, 2] = tau[j];
+            h[j, 4] = -1;
+        }
+
+        var r = Matrix<double>.Build.Dense(rows, rows);
+        double brakeStep = moving is { } m ? Square(m.BrakeStepSigmaMps2 * m.BrakeSpanS) : 0;
+        for (int a = 0; a < rows; a++)
         {
             for (int b = 0; b <= a; b++)
             {
-                double s = Math.Min(tau[a], tau[b]);
-                double c = Math.Abs(tau[a] - tau[b]);
-                double e = (noise.InputDensity * ((s * s * (s + c) / 2) - (s * s * s / 6)))
-                    + (noise.BiasWanderDensity * ((c * c * s * s * s / 3) + (c * s * s * s * s / 2) + (s * s * s * s * s / 5)) / 4);
+                double e = ErrorCovariance(tau[a], isSpeed[a], tau[b], isSpeed[b], noise.InputDensity, noise.BiasWanderDensity)
+                    + (isSpeed[a] && isSpeed[b] ? brakeStep : 0);
                 r[a, b] = e;
                 r[b, a] = e;
             }
 
-            r[a, a] += pulseVariance[a] + 1e-12;
+            r[a, a] += ownVariance[a] + 1e-12;
         }
 
-        var prior = Vector<double>.Build.DenseOfArray([1, 0.5 * metresPerPulse, 0, 0]);
-        var priorInformation = Matrix<double>.Build.DenseOfDiagonalArray(
-        [
-            1 / Square(noise.CircumferenceSigma),
-            12 / Square(metresPerPulse),
-            1 / Square(Math.Max(noise.BiasSigmaMps2, 1e-6)),
-            1 / Square(Math.Max(noise.GrowthSigma, 1e-6)),
-        ]);
+        var prior = Vector<double>.Build.DenseOfArray(moving is { } open
+            ? [1, open.InitialSpeedMps.Value * (pulses.MidS(candidates[0]) - t0), 0, 0, open.InitialSpeedMps.Value]
+            : [1, 0.5 * metresPerPulse, 0, 0]);
+        var priorInformation = Matrix<double>.Build.DenseOfDiagonalArray(moving is { } wide
+            ?
+            [
+                1 / Square(noise.CircumferenceSigma),
+                1 / Square(Math.Max(wide.InitialSpeedMps.Sigma * (pulses.MidS(candidates[0]) - t0), metresPerPulse)),
+                1 / Square(Math.Max(noise.BiasSigmaMps2, 1e-6)),
+                1 / Square(Math.Max(noise.GrowthSigma, 1e-6)),
+                1 / Square(Math.Max(wide.InitialSpeedMps.Sigma, 1e-3)),
+            ]
+            :
+            [
+                1 / Square(noise.CircumferenceSigma),
+                12 / Square(metresPerPulse),
+                1 / Square(Math.Max(noise.BiasSigmaMps2, 1e-6)),
+                1 / Square(Math.Max(noise.GrowthSigma, 1e-6)),
+            ]);
         var chol = r.Cholesky();
         Matrix<double> rh = chol.Solve(h);
         Vector<double> ry = chol.Solve(y);
@@ -167,11 +244,55 @@ internal static class RollingScaleFit
         // Residuals against their own covariance: a launch the model misses (slip, a bump) widens σ.
         Vector<double> residual = y - (h * theta);
         double chi2 = residual.DotProduct(chol.Solve(residual));
-        double ratio = chi2 / Math.Max(count - 4, 1);
+        double ratio = chi2 / Math.Max(rows - columns, 1);
         double widen = Math.Max(1, ratio);
         double scale = theta[0];
         double sigma = Math.Sqrt((covariance[0, 0] * widen) + Square(scale * noise.AccelScaleSigma));
-        return new RollingScale(new Estimate(scale, sigma), count, pulses.MidS(candidates[^1]), ratio);
+        double growthSigma = Math.Sqrt(covariance[3, 3] * widen);
+        return new RollingScale(new Estimate(scale, sigma), count, pulses.MidS(candidates[^1]), ratio)
+        {
+            RestEquations = rests,
+            Growth = new Estimate(theta[3], growthSigma),
+            ScaleGrowthCorrelation = sigma > 0 && growthSigma > 0 ? Math.Clamp(covariance[0, 3] * widen / (sigma * growthSigma), -1, 1) : 0,
+        };
+    }
+
+    /// <summary>Covariance of the input's integration errors at two times, each a distance (the
+    /// input integrated twice from τ = 0) or a speed (once).</summary>
+    /// <remarks>White noise of density q enters a distance at s with the kernel (s − u) and a
+    /// speed at t with 1; a random walk of density r (a wandering bias) with (s − u)²/2 and
+    /// (t − u). Each covariance is the density times the integral of the two kernels' product
+    /// over the common span [0, min]; with m the earlier time and c the gap:
+    /// distance–distance q·(m²·(m + c)/2 − m³/6) and r·(c²·m³/3 + c·m⁴/2 + m⁵/5)/4;
+    /// speed–speed q·m and r·(m³/3 + c·m²/2); a speed at t and a distance at s,
+    /// q·s²/2 and r·(s⁴/8 + c·s³/6) when s ≤ t, q·(s·t − t²/2) and r·(t⁴/8 + c·t³/3 + c²·t²/4)
+    /// when t &lt; s.</remarks>
+    internal static double ErrorCovariance(double tauA, bool speedA, double tauB, bool speedB, double inputDensity, double wanderDensity)
+    {
+        double m = Math.Min(tauA, tauB);
+        double c = Math.Abs(tauA - tauB);
+        if (!speedA && !speedB)
+        {
+            return (inputDensity * ((m * m * (m + c) / 2) - (m * m * m / 6)))
+                + (wanderDensity * ((c * c * m * m * m / 3) + (c * m * m * m * m / 2) + (m * m * m * m * m / 5)) / 4);
+        }
+
+        if (speedA && speedB)
+        {
+            return (inputDensity * m) + (wanderDensity * ((m * m * m / 3) + (c * m * m / 2)));
+        }
+
+        double t = speedA ? tauA : tauB;
+        double s = speedA ? tauB : tauA;
+        return s <= t
+            ? (inputDensity * s * s / 2) + (wanderDensity * ((s * s * s * s / 8) + (c * s * s * s / 6)))
+            : (inputDensity * ((s * t) - (t * t / 2))) + (wanderDensity * ((t * t * t * t / 8) + (c * t * t * t / 3) + (c * c * t * t / 4)));
+    }
+
+    private static int GridIndex(double[] gridS, double t, int last)
+    {
+        int found = Array.BinarySearch(gridS, t);
+        return Math.Clamp(found >= 0 ? found : ~found - 1, 0, last - 1);
     }
 
     private static double Square(double x) => x * x;

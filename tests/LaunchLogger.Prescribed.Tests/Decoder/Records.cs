@@ -1,3 +1,5 @@
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Shapes;
 
@@ -26,4 +28,34 @@ public static class Records
         },
         Seed = seed,
     };
+
+    /// <summary>σ of the accelerometer scale's calibration against gravity, a fraction.</summary>
+    public const double AccelCalibrationSigma = 0.002;
+
+    /// <summary><paramref name="spec"/> with an uncalibrated tyre — rolling on a circumference
+    /// <paramref name="ratioFrom"/> to <paramref name="ratioFrom"/> + <paramref name="ratioSpan"/>
+    /// times the one told, growing by 0.1–0.6 % at 30 m/s — and an accelerometer 1 % σ off in
+    /// scale, told to <see cref="AccelCalibrationSigma"/> as a calibration against gravity gives
+    /// it: the spec, the options that tell the calibration, and the true rolling/told ratio.</summary>
+    public static (PrescribedRecordSpec Spec, AnalysisOptions Options, double Truth) OffScaleTyre(PrescribedRecordSpec spec, Random random, double ratioFrom = 0.98, double ratioSpan = 0.02)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        ArgumentNullException.ThrowIfNull(random);
+        double rolling = spec.Pickup.Tyre.RollingAtRestM;
+        double ratio = ratioFrom + (ratioSpan * random.NextDouble());
+        double growth = 0.001 + (0.005 * random.NextDouble());
+        double scaleError = 0.01 * Gaussian(random);
+        double told = 1 + scaleError + (AccelCalibrationSigma * Gaussian(random));
+        PrescribedRecordSpec drawn = spec with
+        {
+            Pickup = spec.Pickup with { Tyre = new TyreModel(rolling / ratio, rolling, growth) },
+            Accel = spec.Accel! with { ScaleError = scaleError },
+        };
+        var options = new AnalysisOptions { Calibration = new CalibrationSettings { AccelForwardScale = told, AccelForwardScaleSigma = AccelCalibrationSigma } };
+        return (drawn, options, ratio);
+    }
+
+    // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
+    private static double Gaussian(Random random) =>
+        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }

@@ -1,7 +1,6 @@
 using LaunchLogger.Decoding;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Calibration;
-using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Truth;
 
 namespace LaunchLogger.Prescribed.Tests.Decoder;
@@ -13,8 +12,6 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 public class RollingScaleTests
 {
     private const int Records = 16;
-
-    private const double CalibrationSigma = 0.002;
 
     [Fact]
     public void The_measured_rolling_scale_lies_within_its_sigma_of_the_generators_tyre()
@@ -78,24 +75,6 @@ public class RollingScaleTests
     /// <summary>A standing start with an uncalibrated tyre (rolling 0–2 % below the told
     /// circumference, growth 0.1–0.6 % at 30 m/s) and an accelerometer 1 % σ off in scale, told to
     /// 0.2 %: the spec, the options that tell the calibration, and the true rolling/told ratio.</summary>
-    private static (PrescribedRecordSpec Spec, AnalysisOptions Options, double Truth) Draw(int i, Random random)
-    {
-        PrescribedRecordSpec standing = Decoder.Records.Standing(i + 1);
-        double rolling = standing.Pickup.Tyre.RollingAtRestM;
-        double ratio = 0.98 + (0.02 * random.NextDouble());
-        double growth = 0.001 + (0.005 * random.NextDouble());
-        double scaleError = 0.01 * Gaussian(random);
-        double told = 1 + scaleError + (CalibrationSigma * Gaussian(random));
-        PrescribedRecordSpec spec = standing with
-        {
-            Pickup = standing.Pickup with { Tyre = new TyreModel(rolling / ratio, rolling, growth) },
-            Accel = standing.Accel! with { ScaleError = scaleError },
-        };
-        var options = new AnalysisOptions { Calibration = new CalibrationSettings { AccelForwardScale = told, AccelForwardScaleSigma = CalibrationSigma } };
-        return (spec, options, ratio);
-    }
-
-    // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
-    private static double Gaussian(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
+    private static (PrescribedRecordSpec Spec, AnalysisOptions Options, double Truth) Draw(int i, Random random) =>
+        Decoder.Records.OffScaleTyre(Decoder.Records.Standing(i + 1), random);
 }
