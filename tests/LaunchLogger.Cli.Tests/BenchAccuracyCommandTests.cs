@@ -36,6 +36,26 @@ public class BenchAccuracyCommandTests
     }
 
     [Fact]
+    public void A_calibrated_tyre_is_told_to_the_decoder_with_a_measurement_s_sigma_as_a_user_s_settings_would()
+    {
+        // Told only as a value, the decoder would keep its 1 % prior for a static circumference and
+        // let a run's own fit (0.5 % or so) replace an exact tyre.
+        var simulated = LaunchLogger.Cli.Bench.AccuracyCase.Build(6, 1, calibratedTyre: true);
+        var generated = LaunchLogger.Cli.Bench.PrescribedBenchCase.Build(6, 1, 6, calibratedTyre: true);
+        foreach (LaunchLogger.Decoding.Estimate? told in simulated.Select(c => c.TyreCalibration).Concat(generated.Select(c => c.TyreCalibration)))
+        {
+            Assert.NotNull(told);
+            var settings = LaunchLogger.Cli.Bench.AccelScaleDraw.Options(null, told)!.Calibration!;
+            Assert.Equal(0.001, settings.CircumferenceSigmaM!.Value / settings.CircumferenceM!.Value, 12);
+        }
+
+        Assert.All(simulated, c => Assert.Equal(c.Scenario.Box.ConfiguredCircumferenceM, c.TyreCalibration!.Value.Value));
+        Assert.All(generated, c => Assert.Equal(c.Spec.Pickup.Tyre.StatedCircumferenceM, c.TyreCalibration!.Value.Value));
+        Assert.All(LaunchLogger.Cli.Bench.AccuracyCase.Build(6, 1, calibratedTyre: false), c => Assert.Null(c.TyreCalibration));
+        Assert.Null(LaunchLogger.Cli.Bench.AccelScaleDraw.Options(null, null));
+    }
+
+    [Fact]
     public void Naming_a_group_decodes_and_prints_only_that_group()
     {
         var output = new StringWriter();

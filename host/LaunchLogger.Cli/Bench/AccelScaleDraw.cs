@@ -28,10 +28,21 @@ public static class AccelScaleDraw
         return (error, calibrated ? new Estimate(told, CalibrationSigma) : null);
     }
 
-    /// <summary>The analysis options that tell <paramref name="told"/> as a calibration; null for none.</summary>
-    public static Decoding.Analysis.AnalysisOptions? Options(Estimate? told) => told is { } t
-        ? new Decoding.Analysis.AnalysisOptions { Calibration = new Decoding.Calibration.CalibrationSettings { AccelForwardScale = t.Value, AccelForwardScaleSigma = t.Sigma } }
-        : null;
+    /// <summary>The analysis options that tell the calibrations a user would have: the forward
+    /// axis' scale (<paramref name="accel"/>) and a measured rolling circumference
+    /// (<paramref name="tyre"/>, metres, as <see cref="TyreCalibrationTold"/> gives it); null for none.</summary>
+    public static Decoding.Analysis.AnalysisOptions? Options(Estimate? accel, Estimate? tyre = null) => accel is null && tyre is null
+        ? null
+        : new Decoding.Analysis.AnalysisOptions
+        {
+            Calibration = new Decoding.Calibration.CalibrationSettings
+            {
+                AccelForwardScale = accel?.Value,
+                AccelForwardScaleSigma = accel?.Sigma,
+                CircumferenceM = tyre?.Value,
+                CircumferenceSigmaM = tyre?.Sigma,
+            },
+        };
 
     // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
     private static double Gaussian(Random random) =>

@@ -42,7 +42,7 @@ public static class AccuracyBenchmark
         FigureSet naive;
         try
         {
-            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration));
+            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration));
             naive = NaiveFigures(run);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException)

@@ -13,6 +13,9 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
     /// <summary>The accelerometer's scale as a calibration tells it, or null when not calibrated.</summary>
     public Decoding.Estimate? AccelCalibration { get; init; }
 
+    /// <summary>The rolling circumference told as a measurement gives it (metres, with its σ), when the tyre is calibrated.</summary>
+    public Decoding.Estimate? TyreCalibration { get; init; }
+
     /// <summary>The group the case is reported in.</summary>
     public BenchGroup Group => (HasAccelerometer, DrivenPickup, PollPeriodS) switch
     {
@@ -39,8 +42,8 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
     /// Every run goes a quarter mile and then stops.</summary>
     /// <param name="runs">How many.</param>
     /// <param name="seed">Seed of the variations.</param>
-    /// <param name="calibratedTyre">True: the box is told the true rolling circumference and the
-    /// tyre does not grow. False (the default): the box is told the static circumference and the
+    /// <param name="calibratedTyre">True: the tyre does not grow, and the box and the decoder are
+    /// told its rolling circumference as a measurement gives it (<see cref="TyreCalibrationTold"/>). False (the default): the box is told the static circumference and the
     /// tyre grows with speed, as for a user who has not calibrated at speed
     /// (<see cref="UncalibratedTyre"/>).</param>
     /// <param name="calibratedAccel">True: the decoder is told the forward axis' scale as a
@@ -67,12 +70,13 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
             double yaw = (random.NextDouble() * 6) - 3;
             double noise = 100 + (random.NextDouble() * 200);
             (double scaleError, Decoding.Estimate? told) = AccelScaleDraw.Draw(scaleRandom, calibratedAccel);
+            Decoding.Estimate tyreTold = TyreCalibrationTold.Told(2 * Math.PI * baseline.Tyre.RollingRadiusM);
             Axle pickupAxle = driven ? DrivenAxleOf(baseline) : UndrivenAxleOf(baseline);
             Scenario scenario = baseline with
             {
                 Name = $"{baseline.Name}-bench-{i}",
                 Tyre = baseline.Tyre with { RadiusGrowthAt30Mps = calibratedTyre ? 0 : growth },
-                Box = baseline.Box with { ConfiguredCircumferenceM = calibratedTyre ? null : 2 * Math.PI * baseline.Tyre.RollingRadiusM / rollingOverStatic },
+                Box = baseline.Box with { ConfiguredCircumferenceM = calibratedTyre ? tyreTold.Value : 2 * Math.PI * baseline.Tyre.RollingRadiusM / rollingOverStatic },
                 Plan = baseline.Plan with { TargetSpeedMps = null, TargetDistanceM = 420, BrakeToStop = true },
                 Pickup = baseline.Pickup with { Teeth = toothCount, Axle = pickupAxle },
                 Capture = baseline.Capture with
@@ -93,7 +97,7 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
             };
             string summary = FormattableString.Invariant(
                 $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°, scale {scaleError * 100:+0.00;-0.00} %)" : "no accelerometer")}");
-            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6) { AccelCalibration = accel ? told : null });
+            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6) { AccelCalibration = accel ? told : null, TyreCalibration = calibratedTyre ? tyreTold : null });
         }
 
         return cases;

@@ -16,6 +16,9 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// <summary>The accelerometer's scale as a calibration tells it, or null when not calibrated.</summary>
     public LaunchLogger.Decoding.Estimate? AccelCalibration { get; init; }
 
+    /// <summary>The rolling circumference told as a measurement gives it (metres, with its σ), when the tyre is calibrated.</summary>
+    public LaunchLogger.Decoding.Estimate? TyreCalibration { get; init; }
+
     private const double Mph = 0.44704;
 
     private static readonly (BenchGroup Group, double Share)[] Shares =
@@ -64,7 +67,8 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             int toothCount = teeth[random.Next(teeth.Length)];
             double circumference = 1.8 + (0.3 * random.NextDouble());
             (double ratio, double growth) = UncalibratedTyre.Draw(random);
-            TyreModel tyre = calibratedTyre ? TyreModel.Calibrated(circumference) : new TyreModel(circumference / ratio, circumference, growth);
+            LaunchLogger.Decoding.Estimate tyreTold = TyreCalibrationTold.Told(circumference);
+            TyreModel tyre = calibratedTyre ? new TyreModel(tyreTold.Value, circumference, 0) : new TyreModel(circumference / ratio, circumference, growth);
             bool polled = random.NextDouble() < 0.5;
             double period = 1e-4 * Math.Pow(10, random.NextDouble());
             double rate = rates[random.Next(rates.Length)];
@@ -88,7 +92,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             };
             bool asLog = i % 2 == 1;
             string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz, scale {scaleError * 100:+0.00;-0.00} %; {(asLog ? "log" : "CSV")}");
-            cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary) { AccelCalibration = told });
+            cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary) { AccelCalibration = told, TyreCalibration = calibratedTyre ? tyreTold : null });
         }
 
         var switchRandom = new Random(unchecked((seed * 131) + 11));
@@ -101,7 +105,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
                 Polled = stop.Spec.Polled is { } p ? p with { StallS = 0.02 } : null,
             };
             string summary = Invariant($"{stop.Summary.Replace("; CSV", "; log", StringComparison.Ordinal)}; brake switch {delay * 1e3:0.0} ms{(spec.Polled is null ? "" : ", 20 ms stalls")}");
-            cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary) { AccelCalibration = stop.AccelCalibration });
+            cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary) { AccelCalibration = stop.AccelCalibration, TyreCalibration = stop.TyreCalibration });
         }
 
         return cases;
