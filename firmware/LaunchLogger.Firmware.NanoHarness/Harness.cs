@@ -348,6 +348,7 @@ namespace LaunchLogger.Firmware.NanoHarness
                 case RunPhase.Moving: return "moving";
                 case RunPhase.RolledOut: return "rolled-out";
                 case RunPhase.Stopped: return "stopped";
+                case RunPhase.BenchRest: return "bench-rest";
                 default: return "other";
             }
         }
