@@ -138,26 +138,18 @@ namespace LaunchLogger.Firmware.NanoHarness
         /// the brake switch and mark button read raw and debounced by the loop.</summary>
         private static void Launch()
         {
-            HandClock counter = new HandClock();
-            HandPulseCounter pulses = new HandPulseCounter();
-            HealthCounters health = new HealthCounters();
-            KeepingSink sink = new KeepingSink(131072);
-            MonotonicClock clock = new MonotonicClock(counter, health);
-            HandAccelerometer accelerometer = new HandAccelerometer(counter, 400);
             ScriptedSwitch brake = new ScriptedSwitch(BrakeChanges);
             ScriptedSwitch mark = new ScriptedSwitch(MarkChanges);
-
-            // As the ESP32 box runs it: a 400 Hz accelerometer with a 32-sample FIFO, and the
-            // step budget's bounds.
-            LoggerSettings settings = new LoggerSettings();
-            settings.AccelOutputDataRateMilliHz = accelerometer.OutputDataRateMilliHz;
-            StepBudget.Apply(settings);
-            RunRecorder recorder = new RunRecorder(settings, sink, health);
-            recorder.SetCounterOrigin(0, 0);
-            PolledPulseSource source = new PolledPulseSource(pulses, clock);
-            CaptureLoop loop = new CaptureLoop(clock, source, accelerometer, brake, mark, null, recorder, HandAccelerometer.Depth, StepBudget.AccelIntervalMicros);
-            loop.SwitchHoldMicros = SwitchHoldMicros;
-            StepBudget.Apply(loop);
+            HarnessBox box = new HarnessBox(brake, mark, SwitchHoldMicros, 0);
+            HandClock counter = box.Counter;
+            HandPulseCounter pulses = box.Pulses;
+            HealthCounters health = box.Health;
+            KeepingSink sink = box.Sink;
+            HandAccelerometer accelerometer = box.Accelerometer;
+            LoggerSettings settings = box.Settings;
+            RunRecorder recorder = box.Recorder;
+            PolledPulseSource source = box.Source;
+            CaptureLoop loop = box.Loop;
             RunPhase shown = recorder.Phase;
             Out.Line("phase " + PhaseName(shown) + " at 0");
 
@@ -240,24 +232,16 @@ namespace LaunchLogger.Firmware.NanoHarness
         /// 5-s rest instead of the default 20 s keeps the run on the interpreter short.</summary>
         private static void BenchRest()
         {
-            HandClock counter = new HandClock();
-            HandPulseCounter pulses = new HandPulseCounter();
-            HealthCounters health = new HealthCounters();
-            KeepingSink sink = new KeepingSink(131072);
-            MonotonicClock clock = new MonotonicClock(counter, health);
-            HandAccelerometer accelerometer = new HandAccelerometer(counter, 400);
-            accelerometer.ForwardMilliG = 1000;
             ScriptedSwitch mark = new ScriptedSwitch(BenchMarkChanges);
-            LoggerSettings settings = new LoggerSettings();
-            settings.AccelOutputDataRateMilliHz = accelerometer.OutputDataRateMilliHz;
-            settings.BenchRestMicros = 5000000;
-            StepBudget.Apply(settings);
-            RunRecorder recorder = new RunRecorder(settings, sink, health);
-            recorder.SetCounterOrigin(0, 0);
-            PolledPulseSource source = new PolledPulseSource(pulses, clock);
-            CaptureLoop loop = new CaptureLoop(clock, source, accelerometer, null, mark, null, recorder, HandAccelerometer.Depth, StepBudget.AccelIntervalMicros);
-            loop.SwitchHoldMicros = SwitchHoldMicros;
-            StepBudget.Apply(loop);
+            HarnessBox box = new HarnessBox(null, mark, SwitchHoldMicros, 5000000);
+            box.Accelerometer.ForwardMilliG = 1000;
+            HandClock counter = box.Counter;
+            HandPulseCounter pulses = box.Pulses;
+            KeepingSink sink = box.Sink;
+            HandAccelerometer accelerometer = box.Accelerometer;
+            RunRecorder recorder = box.Recorder;
+            PolledPulseSource source = box.Source;
+            CaptureLoop loop = box.Loop;
             RunPhase shown = recorder.Phase;
             Out.Line("bench phase " + PhaseName(shown) + " at 0");
             for (long t = StepMicros; t <= 19000000; t += StepMicros)

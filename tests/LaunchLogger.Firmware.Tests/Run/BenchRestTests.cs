@@ -82,10 +82,7 @@ public class BenchRestTests
     public void A_pulse_during_the_rest_ends_it_as_spoiled()
     {
         var box = new Box();
-        box.RunTo(2_000_000);
-        box.Mark.Active = true;
-        box.RunTo(5_200_000);
-        box.Mark.Active = false;
+        box.Press(2_000_000, 5_200_000);
         box.RunTo(10_000_000);
         box.Pulses[0] += 1;
         box.RunTo(10_500_000);
@@ -117,10 +114,7 @@ public class BenchRestTests
     public void A_shutdown_during_the_rest_ends_it_as_cut_short()
     {
         var box = new Box();
-        box.RunTo(2_000_000);
-        box.Mark.Active = true;
-        box.RunTo(5_200_000);
-        box.Mark.Active = false;
+        box.Press(2_000_000, 5_200_000);
         box.RunTo(8_000_000);
         box.Recorder.Shutdown(8_000_000);
 
@@ -233,6 +227,16 @@ public class BenchRestTests
         public MemorySink Sink { get; } = new();
 
         public RunRecorder Recorder { get; }
+
+        /// <summary>Runs to <paramref name="fromMicros"/>, presses the mark button, runs to
+        /// <paramref name="toMicros"/> and lets it go.</summary>
+        public void Press(long fromMicros, long toMicros)
+        {
+            RunTo(fromMicros);
+            Mark.Active = true;
+            RunTo(toMicros);
+            Mark.Active = false;
+        }
 
         public void RunTo(long micros)
         {
