@@ -28,6 +28,7 @@ namespace LaunchLogger.Firmware.NanoHarness
             Varints();
             ClockWrap();
             Launch();
+            BenchRest();
             Out.Line("done");
         }
 
@@ -137,26 +138,18 @@ namespace LaunchLogger.Firmware.NanoHarness
         /// the brake switch and mark button read raw and debounced by the loop.</summary>
         private static void Launch()
         {
-            HandClock counter = new HandClock();
-            HandPulseCounter pulses = new HandPulseCounter();
-            HealthCounters health = new HealthCounters();
-            KeepingSink sink = new KeepingSink(131072);
-            MonotonicClock clock = new MonotonicClock(counter, health);
-            HandAccelerometer accelerometer = new HandAccelerometer(counter, 400);
             ScriptedSwitch brake = new ScriptedSwitch(BrakeChanges);
             ScriptedSwitch mark = new ScriptedSwitch(MarkChanges);
-
-            // As the ESP32 box runs it: a 400 Hz accelerometer with a 32-sample FIFO, and the
-            // step budget's bounds.
-            LoggerSettings settings = new LoggerSettings();
-            settings.AccelOutputDataRateMilliHz = accelerometer.OutputDataRateMilliHz;
-            StepBudget.Apply(settings);
-            RunRecorder recorder = new RunRecorder(settings, sink, health);
-            recorder.SetCounterOrigin(0, 0);
-            PolledPulseSource source = new PolledPulseSource(pulses, clock);
-            CaptureLoop loop = new CaptureLoop(clock, source, accelerometer, brake, mark, null, recorder, HandAccelerometer.Depth, StepBudget.AccelIntervalMicros);
-            loop.SwitchHoldMicros = SwitchHoldMicros;
-            StepBudget.Apply(loop);
+            HarnessBox box = new HarnessBox(brake, mark, SwitchHoldMicros, 0);
+            HandClock counter = box.Counter;
+            HandPulseCounter pulses = box.Pulses;
+            HealthCounters health = box.Health;
+            KeepingSink sink = box.Sink;
+            HandAccelerometer accelerometer = box.Accelerometer;
+            LoggerSettings settings = box.Settings;
+            RunRecorder recorder = box.Recorder;
+            PolledPulseSource source = box.Source;
+            CaptureLoop loop = box.Loop;
             RunPhase shown = recorder.Phase;
             Out.Line("phase " + PhaseName(shown) + " at 0");
 
@@ -187,15 +180,7 @@ namespace LaunchLogger.Firmware.NanoHarness
                 accelerometer.ForwardMilliG = ForwardMilliG(t);
                 brake.MoveTo(t);
                 mark.MoveTo(t);
-                int bytesBefore = sink.Bytes;
-                long samplesBefore = accelerometer.SamplesRead;
-                Out.Line("#a");
-                source.Poll();
-                loop.Step();
-                Out.Line("#b");
-                Out.Line(changed ? "#k o" : "#k -");
-                Out.Line(accelerometer.SamplesRead != samplesBefore ? "#k a" : "#k -");
-                Out.Line(sink.Bytes != bytesBefore ? "#k f" : "#k -");
+                Pass(source, loop, accelerometer, sink, changed);
                 if (recorder.Phase != shown)
                 {
                     shown = recorder.Phase;
@@ -213,6 +198,72 @@ namespace LaunchLogger.Firmware.NanoHarness
             }
 
             Out.Line("health" + counters);
+            Events(sink);
+        }
+
+        /// <summary>One pass of the loop between the step markers, then what it did: an
+        /// observation, an accelerometer read, frames written (for run-on-nanoclr.sh --counts).</summary>
+        private static void Pass(PolledPulseSource source, CaptureLoop loop, HandAccelerometer accelerometer, KeepingSink sink, bool changed)
+        {
+            int bytesBefore = sink.Bytes;
+            long samplesBefore = accelerometer.SamplesRead;
+            Out.Line("#a");
+            source.Poll();
+            loop.Step();
+            Out.Line("#b");
+            Out.Line(changed ? "#k o" : "#k -");
+            Out.Line(accelerometer.SamplesRead != samplesBefore ? "#k a" : "#k -");
+            Out.Line(sink.Bytes != bytesBefore ? "#k f" : "#k -");
+        }
+
+        /// <summary>Raw changes of the mark button on the bench (µs): a bouncing press held from
+        /// 2 000 000 and let go at 5 200 000 (a rest recorded from the pass that first read the
+        /// release, 5 203 000, for 5 s); a 1 s press once staged again (arms nothing); a press at 13 500 000 let go at
+        /// 16 600 000 (a second rest, which a pulse at 18 000 000 spoils).</summary>
+        private static readonly long[] BenchMarkChanges =
+        {
+            2000000, 2001000, 2002000, 5200000, 5201000, 5203000,
+            12000000, 13000000,
+            13500000, 16600000,
+        };
+
+        /// <summary>The box on the bench, standing on its end (x, its forward axis, up: +1 g): the
+        /// mark button held while staged records bench rests (LOG-FORMAT.md, 0x09 and 0x0A). A
+        /// 5-s rest instead of the default 20 s keeps the run on the interpreter short.</summary>
+        private static void BenchRest()
+        {
+            ScriptedSwitch mark = new ScriptedSwitch(BenchMarkChanges);
+            HarnessBox box = new HarnessBox(null, mark, SwitchHoldMicros, 5000000);
+            box.Accelerometer.ForwardMilliG = 1000;
+            HandClock counter = box.Counter;
+            HandPulseCounter pulses = box.Pulses;
+            KeepingSink sink = box.Sink;
+            HandAccelerometer accelerometer = box.Accelerometer;
+            RunRecorder recorder = box.Recorder;
+            PolledPulseSource source = box.Source;
+            CaptureLoop loop = box.Loop;
+            RunPhase shown = recorder.Phase;
+            Out.Line("bench phase " + PhaseName(shown) + " at 0");
+            for (long t = StepMicros; t <= 19000000; t += StepMicros)
+            {
+                counter.Micros = t;
+                bool changed = t == 18000000;
+                if (changed)
+                {
+                    pulses.Count = 1;
+                }
+
+                mark.MoveTo(t);
+                Pass(source, loop, accelerometer, sink, changed);
+                if (recorder.Phase != shown)
+                {
+                    shown = recorder.Phase;
+                    Out.Line("bench phase " + PhaseName(shown) + " at " + t.ToString());
+                }
+            }
+
+            Out.Line("bench rests " + recorder.BenchRestNumber.ToString() + " runs " + recorder.RunNumber.ToString());
+            Out.Line("bench log " + sink.Bytes.ToString() + " bytes " + sink.CountFrames().ToString() + " frames crc " + sink.Crc().ToString());
             Events(sink);
         }
 
@@ -248,6 +299,10 @@ namespace LaunchLogger.Firmware.NanoHarness
                     {
                         Event(payload, n - 4);
                     }
+                    else if (payload[0] == (byte)FrameType.BenchRest || payload[0] == (byte)FrameType.BenchRestEnd)
+                    {
+                        BenchRestFrame(payload, n - 4);
+                    }
                 }
 
                 start = i + 1;
@@ -276,6 +331,31 @@ namespace LaunchLogger.Firmware.NanoHarness
                 case (byte)EventKind.Motion:
                     line += " cause " + payload[at].ToString();
                     break;
+            }
+
+            Out.Line(line);
+        }
+
+        /// <summary>A bench rest's frame with its fields (LOG-FORMAT.md, 0x09 and 0x0A).</summary>
+        private static void BenchRestFrame(byte[] payload, int end)
+        {
+            bool opening = payload[0] == (byte)FrameType.BenchRest;
+            string line = opening ? "bench-rest" : "bench-rest-end";
+            int at = 3;
+            ulong value;
+            for (int field = 0; field < 7 && at < end; field++)
+            {
+                if (opening ? field >= 5 : field == 2)
+                {
+                    // The forward axis and sign, and the end's outcome, are single bytes.
+                    line += " " + payload[at].ToString();
+                    at++;
+                }
+                else
+                {
+                    at += Varint.Read(payload, at, end, out value);
+                    line += " " + value.ToString();
+                }
             }
 
             Out.Line(line);
@@ -348,6 +428,7 @@ namespace LaunchLogger.Firmware.NanoHarness
                 case RunPhase.Moving: return "moving";
                 case RunPhase.RolledOut: return "rolled-out";
                 case RunPhase.Stopped: return "stopped";
+                case RunPhase.BenchRest: return "bench-rest";
                 default: return "other";
             }
         }

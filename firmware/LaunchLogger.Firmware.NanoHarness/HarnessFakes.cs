@@ -1,4 +1,7 @@
+using LaunchLogger.Firmware.Capture;
+using LaunchLogger.Firmware.Clock;
 using LaunchLogger.Firmware.Hardware;
+using LaunchLogger.Firmware.Run;
 using LaunchLogger.Firmware.Wire;
 
 namespace LaunchLogger.Firmware.NanoHarness
@@ -195,5 +198,62 @@ namespace LaunchLogger.Firmware.NanoHarness
             length += count;
             return true;
         }
+    }
+
+    /// <summary>The core wired as the ESP32 box runs it: a 400 Hz accelerometer with a 32-sample
+    /// FIFO, the step budget's bounds, the switches read raw and debounced by the loop.</summary>
+    public sealed class HarnessBox
+    {
+        /// <summary>Wires the parts; <paramref name="benchRestMicros"/> 0 keeps the default rest length.</summary>
+        public HarnessBox(ScriptedSwitch brake, ScriptedSwitch mark, int switchHoldMicros, int benchRestMicros)
+        {
+            Counter = new HandClock();
+            Pulses = new HandPulseCounter();
+            Health = new HealthCounters();
+            Sink = new KeepingSink(131072);
+            MonotonicClock clock = new MonotonicClock(Counter, Health);
+            Accelerometer = new HandAccelerometer(Counter, 400);
+            Settings = new LoggerSettings();
+            Settings.AccelOutputDataRateMilliHz = Accelerometer.OutputDataRateMilliHz;
+            if (benchRestMicros > 0)
+            {
+                Settings.BenchRestMicros = benchRestMicros;
+            }
+
+            StepBudget.Apply(Settings);
+            Recorder = new RunRecorder(Settings, Sink, Health);
+            Recorder.SetCounterOrigin(0, 0);
+            Source = new PolledPulseSource(Pulses, clock);
+            Loop = new CaptureLoop(clock, Source, Accelerometer, brake, mark, null, Recorder, HandAccelerometer.Depth, StepBudget.AccelIntervalMicros);
+            Loop.SwitchHoldMicros = switchHoldMicros;
+            StepBudget.Apply(Loop);
+        }
+
+        /// <summary>The clock the harness moves.</summary>
+        public HandClock Counter { get; private set; }
+
+        /// <summary>The pulse counter the harness sets.</summary>
+        public HandPulseCounter Pulses { get; private set; }
+
+        /// <summary>The health counters.</summary>
+        public HealthCounters Health { get; private set; }
+
+        /// <summary>The log written.</summary>
+        public KeepingSink Sink { get; private set; }
+
+        /// <summary>The accelerometer.</summary>
+        public HandAccelerometer Accelerometer { get; private set; }
+
+        /// <summary>The recorder's settings.</summary>
+        public LoggerSettings Settings { get; private set; }
+
+        /// <summary>The run recorder.</summary>
+        public RunRecorder Recorder { get; private set; }
+
+        /// <summary>The polled pulse source.</summary>
+        public PolledPulseSource Source { get; private set; }
+
+        /// <summary>The capture loop.</summary>
+        public CaptureLoop Loop { get; private set; }
     }
 }

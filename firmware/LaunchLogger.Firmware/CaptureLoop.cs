@@ -168,10 +168,7 @@ namespace LaunchLogger.Firmware
             if (markButton != null && markLevel.Update(markButton.IsActive(), now) != markPressed)
             {
                 markPressed = !markPressed;
-                if (markPressed)
-                {
-                    recorder.OnManualMark(markLevel.ChangedAtMicros);
-                }
+                recorder.OnMarkButton(markPressed, markLevel.ChangedAtMicros);
             }
 
             recorder.Tick(clock.NowMicros());

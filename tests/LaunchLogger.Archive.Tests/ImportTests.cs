@@ -5,6 +5,7 @@ using LaunchLogger.Archive.Tests.Support;
 using LaunchLogger.Cli;
 using LaunchLogger.Cli.Verbs;
 using LaunchLogger.Decoding.Reporting;
+using LaunchLogger.Tests.Shared;
 
 namespace LaunchLogger.Archive.Tests;
 
@@ -47,6 +48,32 @@ public class ImportTests
         }
 
         Assert.Throws<ArchiveException>(() => opened.OpenLog(99));
+    }
+
+    /// <summary>A bench rest is no run: a card's log holding a run and then a rest files the run
+    /// alone, with its figures as from the log without the rest.</summary>
+    [Fact]
+    public void A_bench_rest_in_a_log_is_not_filed_as_a_run()
+    {
+        using var temp = new TempFolder();
+        string card = Directory.CreateDirectory(temp.File("card")).FullName;
+        File.WriteAllBytes(Path.Combine(card, "RUN001.LOG"), [.. TestLogs.Hatch, .. BenchRestLogs.Write(31, new BenchRestLogs.Rest(9.8))]);
+        string plain = Path.Combine(Directory.CreateDirectory(temp.File("plain")).FullName, "RUN001.LOG");
+        File.WriteAllBytes(plain, TestLogs.Hatch);
+        string archive = temp.File("a.db");
+        var output = new StringWriter();
+
+        Assert.Equal(ExitCode.Ok, ImportCommand.Run(archive, [card], RunAssignment.None, false, output, new StringWriter()));
+
+        Assert.Contains("1 new log(s), 1 run(s) filed", output.ToString());
+        var json = new StringWriter();
+        Assert.Equal(ExitCode.Ok, ReportCommand.Run(new ReportRequest { Logs = [new FileInfo(plain)], Json = true }, json, new StringWriter()));
+        RunReport expected = ReportJson.Deserialize(json.ToString())!.Runs.Single();
+        using SessionArchive opened = SessionArchive.Open(archive);
+        Assert.Single(opened.ListRuns().Rows);
+        (_, string? stored) = opened.ShowRun(1);
+        RunReport filed = System.Text.Json.JsonSerializer.Deserialize<RunReport>(stored!, ReportJson.Options)!;
+        Assert.Equal(ReportJson.Serialize(Wrap(expected)), ReportJson.Serialize(Wrap(filed)));
     }
 
     [Fact]

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using LaunchLogger.Cli.Verbs;
 using LaunchLogger.Decoding.Calibration;
+using LaunchLogger.Tests.Shared;
 
 namespace LaunchLogger.Cli.Tests;
 
@@ -35,6 +36,75 @@ public class CalibrateAccelerometerCommandTests
         Assert.True(Math.Abs(saved.AccelForwardScale!.Value - k) <= 3 * saved.AccelForwardScaleSigma!.Value, output.ToString());
         Assert.True(Math.Abs(saved.AccelForwardBiasMps2!.Value - b) <= 3 * saved.AccelForwardBiasSigmaMps2!.Value, output.ToString());
         Assert.Contains("scale", output.ToString(), StringComparison.Ordinal);
+    }
+
+    /// <summary>The box records the two rests itself (the firmware core, mark button held while
+    /// staged), its forward axis reading k·(±g) + b with k = 0.991, b = −0.045 m/s² at 47.2° N
+    /// (r↑ = k·g + b, r↓ = −k·g + b: specific force at rest is +g upward; common practice): the
+    /// verb finds the rests in the log and gives k back within its σ, as one log or as two.</summary>
+    [Fact]
+    public void Bench_rests_the_box_recorded_give_the_scale_back_within_its_sigma()
+    {
+        using var folder = new TempFolder();
+        const double k = 0.991;
+        const double b = -0.045;
+        double g = AccelerometerScaleCalibration.NormalGravityMps2(47.2);
+        string both = folder.File("bench.bin");
+        File.WriteAllBytes(both, BenchRestLogs.Write(7, new BenchRestLogs.Rest((k * g) + b), new BenchRestLogs.Rest((-k * g) + b)));
+        string up = folder.File("up.bin");
+        string down = folder.File("down.bin");
+        File.WriteAllBytes(up, BenchRestLogs.Write(8, new BenchRestLogs.Rest((k * g) + b)));
+        File.WriteAllBytes(down, BenchRestLogs.Write(9, new BenchRestLogs.Rest((-k * g) + b)));
+
+        foreach (FileInfo[] files in new[] { new[] { new FileInfo(both) }, new[] { new FileInfo(up), new FileInfo(down) } })
+        {
+            string settings = folder.File($"car-{files.Length}.json");
+            var output = new StringWriter();
+            var error = new StringWriter();
+
+            ExitCode code = CalibrateAccelerometerCommand.Run(
+                new CalibrateAccelerometerRequest { Rests = files, LatitudeDeg = 47.2, TiltDeg = 0, Settings = new FileInfo(settings) },
+                output,
+                error);
+
+            Assert.True(code == ExitCode.Ok, error.ToString());
+            CalibrationSettings saved = CalibrationFile.Load(settings);
+            Assert.True(Math.Abs(saved.AccelForwardScale!.Value - k) <= saved.AccelForwardScaleSigma!.Value, output.ToString());
+            Assert.True(Math.Abs(saved.AccelForwardBiasMps2!.Value - b) <= 2 * saved.AccelForwardBiasSigmaMps2!.Value, output.ToString());
+            Assert.Contains(files.Length == 1 ? "bench.bin rest 2" : "down.bin rest 1", output.ToString(), StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
+    public void A_rest_spoiled_by_a_wheel_pulse_is_refused_saying_so()
+    {
+        using var folder = new TempFolder();
+        string log = folder.File("moved.bin");
+        File.WriteAllBytes(log, BenchRestLogs.Write(10, new BenchRestLogs.Rest(9.8, PulseAtS: 6), new BenchRestLogs.Rest(-9.8)));
+        var error = new StringWriter();
+
+        ExitCode code = CalibrateAccelerometerCommand.Run(new CalibrateAccelerometerRequest { Rests = [new FileInfo(log)] }, new StringWriter(), error);
+
+        Assert.Equal(ExitCode.BadInput, code);
+        Assert.Contains("moved.bin rest 1: a wheel pulse came 6.0 s into the rest", error.ToString(), StringComparison.Ordinal);
+        Assert.Contains("record it again", error.ToString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Several_rests_in_a_log_need_rest_numbers()
+    {
+        using var folder = new TempFolder();
+        string log = folder.File("three.bin");
+        File.WriteAllBytes(log, BenchRestLogs.Write(11, new BenchRestLogs.Rest(9.8, PulseAtS: 2), new BenchRestLogs.Rest(9.81), new BenchRestLogs.Rest(-9.8)));
+        var error = new StringWriter();
+        var output = new StringWriter();
+
+        Assert.Equal(ExitCode.Usage, CalibrateAccelerometerCommand.Run(new CalibrateAccelerometerRequest { Rests = [new FileInfo(log)] }, new StringWriter(), error));
+        Assert.Contains("holds 3 bench rest(s)", error.ToString(), StringComparison.Ordinal);
+        Assert.Equal(ExitCode.Ok, CalibrateAccelerometerCommand.Run(new CalibrateAccelerometerRequest { Rests = [new FileInfo(log)], BenchRests = ["2", "3"] }, output, error));
+        Assert.Contains("three.bin rest 2", output.ToString(), StringComparison.Ordinal);
+        Assert.Equal(ExitCode.Usage, CalibrateAccelerometerCommand.Run(new CalibrateAccelerometerRequest { Rests = [new FileInfo(log)], BenchRests = ["4", "3"] }, new StringWriter(), error));
+        Assert.Contains("--rest 4: three.bin holds 3 bench rest(s)", error.ToString(), StringComparison.Ordinal);
     }
 
     [Fact]

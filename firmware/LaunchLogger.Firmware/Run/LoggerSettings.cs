@@ -30,6 +30,8 @@ namespace LaunchLogger.Firmware.Run
             UnstagedOpenMicrometres = 3000000;
             PulseFrameMaxAgeMicros = 100000;
             HealthIntervalMicros = 1000000;
+            BenchRestHoldMicros = 3000000;
+            BenchRestMicros = 20000000;
         }
 
         /// <summary>Pulses per wheel revolution on the distance channel (teeth × edges counted).</summary>
@@ -98,6 +100,14 @@ namespace LaunchLogger.Firmware.Run
         /// <summary>Interval between health frames during a run (µs).</summary>
         public int HealthIntervalMicros { get; set; }
 
+        /// <summary>How long the mark button must be held, while staged, to arm a bench rest (µs).
+        /// Not in the configuration frame (a run does not depend on it).</summary>
+        public int BenchRestHoldMicros { get; set; }
+
+        /// <summary>How long a bench rest records the accelerometer, from the button's release
+        /// (µs); written in the rest's own frame (LOG-FORMAT.md, 0x09).</summary>
+        public int BenchRestMicros { get; set; }
+
         /// <summary>Most body bytes in one pulses frame; 0 for as many as a frame holds. A small
         /// value bounds the work of writing one batch in a single loop pass (an interpreted
         /// device stuffs and checksums about 20–50 IL instructions per byte). Not in the
@@ -140,6 +150,8 @@ namespace LaunchLogger.Firmware.Run
             if (e == null) e = Range("PulseFrameMaxAgeMicros", PulseFrameMaxAgeMicros, 1000, 10000000);
             if (e == null) e = Range("HealthIntervalMicros", HealthIntervalMicros, 10000, 600000000);
             if (e == null && PulseFrameMaxBodyBytes != 0) e = Range("PulseFrameMaxBodyBytes", PulseFrameMaxBodyBytes, 3 * Wire.Varint.MaxBytes, 1000000);
+            if (e == null) e = Range("BenchRestHoldMicros", BenchRestHoldMicros, 500000, 60000000);
+            if (e == null) e = Range("BenchRestMicros", BenchRestMicros, 1000000, 600000000);
             if (e == null) e = Range("PreTriggerSamplesPerStep", PreTriggerSamplesPerStep, 0, 100000);
             if (e == null && AccelPresent && PreTriggerSamples < MotionConfirmSamples)
             {

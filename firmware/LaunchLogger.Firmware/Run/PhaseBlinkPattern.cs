@@ -9,6 +9,7 @@ namespace LaunchLogger.Firmware.Run
     /// <item><term>Moving</term><description>fast even flashing (5 Hz): run open, rollout not yet covered</description></item>
     /// <item><term>RolledOut</term><description>mostly on with short gaps: run open past the rollout mark</description></item>
     /// <item><term>Stopped</term><description>two short blinks every two seconds: run closed and written</description></item>
+    /// <item><term>BenchRest</term><description>one long blink (0.6 s) every two seconds: let go of the button, stand clear, keep the box still</description></item>
     /// <item><term>Fault (<see cref="IsFault"/>)</term><description>three fast blinks then a pause: no storage for the log</description></item>
     /// </list>
     /// </remarks>
@@ -30,6 +31,8 @@ namespace LaunchLogger.Firmware.Run
                 case RunPhase.Stopped:
                     long t = elapsedMs % 2000;
                     return t < 100 || (t >= 200 && t < 300);
+                case RunPhase.BenchRest:
+                    return elapsedMs % 2000 < 600;
                 default:
                     return false;
             }

@@ -17,5 +17,9 @@ namespace LaunchLogger.Firmware.Run
 
         /// <summary>The last run closed with a stop; behaves as <see cref="Idle"/>.</summary>
         Stopped = 4,
+
+        /// <summary>A bench rest: armed by the mark button held while staged, recording the
+        /// accelerometer from the button's release for the set time; then <see cref="Idle"/>.</summary>
+        BenchRest = 5,
     }
 }

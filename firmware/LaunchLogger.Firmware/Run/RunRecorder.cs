@@ -18,6 +18,12 @@ namespace LaunchLogger.Firmware.Run
     /// Rollout: the distance channel's count reaches the rollout distance; the time is
     /// interpolated linearly, in integer arithmetic, between the bracket midpoints on either side.
     /// Stop: no pulse for <see cref="LoggerSettings.StopHoldMicros"/>.
+    /// Bench rest (accelerometer only): the mark button held for <see cref="LoggerSettings.BenchRestHoldMicros"/>
+    /// while staged arms it (phase <see cref="RunPhase.BenchRest"/>; accelerometer onset is not
+    /// looked for while the button is down, as pressing it jolts the box); from the button's
+    /// release the samples are written, outside any run, for <see cref="LoggerSettings.BenchRestMicros"/>,
+    /// between a bench-rest frame and its end frame (LOG-FORMAT.md, 0x09 and 0x0A). A pulse on
+    /// any channel ends it as spoiled (the car moved). Then the box waits for stillness again.
     /// </remarks>
     public sealed class RunRecorder
     {
@@ -75,6 +81,16 @@ namespace LaunchLogger.Firmware.Run
         private long accelSamplesWritten;
         private long framesAtRunStart;
         private long nextHealthMicros;
+
+        // The mark button while no run is open, and the bench rest.
+        private bool markHeld;
+        private long markPressedMicros;
+        private bool restRecording;
+        private int restNumber;
+        private long restOpenedMicros;
+        private long restSamplesWritten;
+        private long restSamplesLost;
+        private long framesAtRestStart;
 
         /// <summary>Checks the settings and allocates every buffer.</summary>
         /// <exception cref="System.ArgumentException">The settings are unusable; the message says why.</exception>
@@ -146,6 +162,18 @@ namespace LaunchLogger.Firmware.Run
         public long RolloutMicros
         {
             get { return rolloutMicros; }
+        }
+
+        /// <summary>Bench rests opened since power-up (the open one's number while one records).</summary>
+        public int BenchRestNumber
+        {
+            get { return restNumber; }
+        }
+
+        /// <summary>True while a bench rest is recording (armed and released, not yet ended).</summary>
+        public bool BenchRestRecording
+        {
+            get { return restRecording; }
         }
 
         /// <summary>The resting gravity vector recorded at staging (mg).</summary>
@@ -222,6 +250,10 @@ namespace LaunchLogger.Firmware.Run
             {
                 AddToBatch(channel, count, loMicros, hiMicros);
             }
+            else if (phase == RunPhase.BenchRest)
+            {
+                CarMovedDuringBenchRest(hiMicros);
+            }
 
             lastCount[channel] = count;
         }
@@ -273,12 +305,20 @@ namespace LaunchLogger.Firmware.Run
             }
 
             ring.Add(xyzMilliG, count, firstIndex, readMicros);
+            if (restRecording)
+            {
+                // Also in the ring, so that a run opening after the rest finds its pre-trigger.
+                WriteAccelFrames(xyzMilliG, 0, count, firstIndex, readMicros);
+                restSamplesWritten += count;
+                return;
+            }
+
             for (int i = 0; i < count && !runOpen; i++)
             {
                 long sampleMicros = readMicros - ((count - 1 - i) * samplePeriodNanos / 1000);
                 int at = i * 3;
                 OnStillnessSample(xyzMilliG[at], xyzMilliG[at + 1], xyzMilliG[at + 2], sampleMicros);
-                if (phase == RunPhase.Staged)
+                if (phase == RunPhase.Staged && !markHeld)
                 {
                     OnOnsetSample(xyzMilliG[at + settings.ForwardAxis], sampleMicros, readMicros);
                 }
@@ -294,6 +334,10 @@ namespace LaunchLogger.Firmware.Run
                 WriteEvent(EventKind.AccelGap, readMicros);
                 writer.PutVarint(lostSamples < 0 ? 0 : lostSamples);
                 writer.End();
+            }
+            else if (restRecording && lostSamples > 0)
+            {
+                restSamplesLost += lostSamples;
             }
 
             // Samples are missing: stillness cannot be vouched for across the gap.
@@ -340,12 +384,57 @@ namespace LaunchLogger.Firmware.Run
             }
         }
 
+        /// <summary>The mark button's debounced level changed at <paramref name="timeMicros"/>:
+        /// a press marks an open run (<see cref="OnManualMark"/>); while staged, a hold arms a bench
+        /// rest (<see cref="Tick"/>) and its release starts the recording.</summary>
+        public void OnMarkButton(bool pressed, long timeMicros)
+        {
+            if (pressed)
+            {
+                OnManualMark(timeMicros);
+                markHeld = true;
+                markPressedMicros = timeMicros;
+                return;
+            }
+
+            markHeld = false;
+            if (phase == RunPhase.BenchRest && !restRecording)
+            {
+                OpenBenchRest(timeMicros);
+            }
+            else if (phase == RunPhase.Staged)
+            {
+                // The press may have jolted the box: onset starts over with fresh samples.
+                onsetFill = 0;
+                onsetPos = 0;
+                onsetSum = 0;
+            }
+        }
+
         /// <summary>Advances the time-driven parts: pulse-only staging, batch age, health
         /// frames and the stop.</summary>
         public void Tick(long nowMicros)
         {
             if (!runOpen)
             {
+                if (phase == RunPhase.BenchRest)
+                {
+                    if (restRecording && nowMicros - restOpenedMicros >= settings.BenchRestMicros)
+                    {
+                        CloseBenchRest(LogFormat.BenchRestComplete, nowMicros);
+                    }
+
+                    return;
+                }
+
+                if (markHeld && phase == RunPhase.Staged && settings.AccelPresent
+                    && nowMicros - markPressedMicros >= settings.BenchRestHoldMicros)
+                {
+                    // Armed: the indicator tells the user to let go; the release starts the recording.
+                    phase = RunPhase.BenchRest;
+                    return;
+                }
+
                 if (!settings.AccelPresent && (phase == RunPhase.Idle || phase == RunPhase.Stopped)
                     && nowMicros - lastPulseChangeMicros >= settings.StageHoldMicros)
                 {
@@ -408,6 +497,11 @@ namespace LaunchLogger.Firmware.Run
             {
                 CloseRun(nowMicros, false);
             }
+
+            if (restRecording)
+            {
+                CloseBenchRest(LogFormat.BenchRestCutShort, nowMicros);
+            }
         }
 
         private static bool IsClipped(short value, int fullScale)
@@ -419,6 +513,10 @@ namespace LaunchLogger.Firmware.Run
         {
             lastPulseChangeMicros = hiMicros;
             stillOpen = false;
+            if (phase == RunPhase.BenchRest)
+            {
+                CarMovedDuringBenchRest(hiMicros);
+            }
             switch (phase)
             {
                 case RunPhase.Staged:
@@ -627,6 +725,9 @@ namespace LaunchLogger.Firmware.Run
             framesAtRunStart = writer.FramesWritten;
             nextHealthMicros = openedMicros + settings.HealthIntervalMicros;
             idleRolling = false;
+
+            // A hold of the mark button begun before the run arms no bench rest after it.
+            markHeld = false;
             stillOpen = false;
             for (int c = 0; c < lastCount.Length; c++)
             {
@@ -717,6 +818,55 @@ namespace LaunchLogger.Firmware.Run
             lastPulseChangeMicros = byStop ? lastPulseHiMicros : nowMicros;
         }
 
+        /// <summary>A pulse while a bench rest is armed or recording: the car moved. A recording
+        /// ends spoiled and the box waits for stillness again; an armed rest is dropped and the
+        /// box is staged again, so that the pulse opens a run as it would have.</summary>
+        private void CarMovedDuringBenchRest(long pulseMicros)
+        {
+            if (restRecording)
+            {
+                CloseBenchRest(LogFormat.BenchRestSpoiledByPulse, pulseMicros);
+            }
+            else
+            {
+                phase = RunPhase.Staged;
+            }
+        }
+
+        private void OpenBenchRest(long releasedMicros)
+        {
+            restNumber++;
+            restRecording = true;
+            restOpenedMicros = releasedMicros;
+            restSamplesWritten = 0;
+            restSamplesLost = 0;
+            framesAtRestStart = writer.FramesWritten;
+            writer.Begin(FrameType.BenchRest);
+            writer.PutVarint(restNumber);
+            writer.PutVarint(releasedMicros);
+            writer.PutVarint(settings.BenchRestMicros);
+            writer.PutVarint(settings.AccelOutputDataRateMilliHz);
+            writer.PutVarint(settings.AccelFullScaleMilliG);
+            writer.PutByte((byte)settings.ForwardAxis);
+            writer.PutByte(settings.ForwardAxisReversed ? (byte)1 : (byte)0);
+            writer.End();
+        }
+
+        private void CloseBenchRest(byte outcome, long endedMicros)
+        {
+            writer.Begin(FrameType.BenchRestEnd);
+            writer.PutVarint(restNumber);
+            writer.PutVarint(endedMicros);
+            writer.PutByte(outcome);
+            writer.PutVarint(restSamplesWritten);
+            writer.PutVarint(restSamplesLost);
+            writer.PutVarint(writer.FramesWritten - framesAtRestStart + 1);
+            writer.End();
+            restRecording = false;
+            phase = RunPhase.Idle;
+            stillOpen = false;
+        }
+
         private void AddToBatch(int channel, long count, long loMicros, long hiMicros)
         {
             PulseBatch batch = batches[channel];
@@ -734,6 +884,12 @@ namespace LaunchLogger.Firmware.Run
         }
 
         private void WriteAccel(short[] xyzMilliG, int start, int count, long firstIndex, long readMicros)
+        {
+            WriteAccelFrames(xyzMilliG, start, count, firstIndex, readMicros);
+            accelSamplesWritten += count;
+        }
+
+        private void WriteAccelFrames(short[] xyzMilliG, int start, int count, long firstIndex, long readMicros)
         {
             int done = 0;
             while (done < count)
@@ -753,8 +909,6 @@ namespace LaunchLogger.Firmware.Run
                 writer.End();
                 done += n;
             }
-
-            accelSamplesWritten += count;
         }
 
         /// <summary>Writes up to <paramref name="maxSamples"/> of the ring's oldest samples (all of

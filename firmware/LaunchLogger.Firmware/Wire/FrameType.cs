@@ -28,5 +28,13 @@ namespace LaunchLogger.Firmware.Wire
         /// <summary>A repeat of the open run's configuration, written periodically, so a run whose
         /// configuration frame is damaged can still be decoded.</summary>
         ConfigurationCopy = 0x08,
+
+        /// <summary>A bench rest opens: the accelerometer is recorded with the box standing still,
+        /// outside any run, for the calibration against gravity.</summary>
+        BenchRest = 0x09,
+
+        /// <summary>A bench rest ends: how (its full length, spoiled by a pulse, cut short) and
+        /// what it holds.</summary>
+        BenchRestEnd = 0x0A,
     }
 }

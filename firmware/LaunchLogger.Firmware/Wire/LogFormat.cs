@@ -44,5 +44,14 @@ namespace LaunchLogger.Firmware.Wire
 
         /// <summary>Summary flag: the run closed because the car stopped.</summary>
         public const byte SummaryFlagClosedByStop = 0x04;
+
+        /// <summary>Bench rest end: recorded for its whole set length.</summary>
+        public const byte BenchRestComplete = 0;
+
+        /// <summary>Bench rest end: a wheel pulse came during it (the car moved); not a rest.</summary>
+        public const byte BenchRestSpoiledByPulse = 1;
+
+        /// <summary>Bench rest end: cut short before its set length (the box shut down).</summary>
+        public const byte BenchRestCutShort = 2;
     }
 }

@@ -44,6 +44,29 @@ public static class ReportTableWriter
             console.Write(FigureTables.Marks(pair.DistanceMarks, units));
         }
 
+        if (document.BenchRests.Count > 0)
+        {
+            console.WriteLine();
+            console.Write(new Rule("[bold]Bench rests[/] · not runs: the box standing still, for launchlogger calibrate accelerometer").LeftJustified());
+            foreach (BenchRestReport rest in document.BenchRests)
+            {
+                string outcome = rest.Outcome switch
+                {
+                    "complete" => "complete",
+                    "spoiled_by_pulse" => "spoiled: a wheel pulse came (the car moved), not usable",
+                    "cut_short" => "cut short: the box shut down",
+                    _ => "unfinished: its end is missing",
+                };
+                console.MarkupLine(Markup.Escape($"{rest.Source}: {outcome}"));
+                console.MarkupLine(Markup.Escape(FormattableString.Invariant(
+                    $"  opened at {rest.OpenedS:0.000} s, {(rest.DurationS is { } d ? $"{d:0.0} s" : "length not known")}, {rest.Samples} samples, forward mean {(rest.ForwardMeanMps2 is { } m ? $"{m:+0.000;-0.000} m/s²" : "none")}")));
+                foreach (string warning in rest.Warnings)
+                {
+                    console.MarkupLine("[dim]" + Markup.Escape("  " + warning) + "[/]");
+                }
+            }
+        }
+
         if (document.TractionBound is { } b)
         {
             console.WriteLine();

@@ -116,6 +116,12 @@ public static class CardCommand
             return failed;
         }
 
+        if (analysed.Document.Runs.Count == 0)
+        {
+            error.WriteLine("launchlogger card: no runs in the input (only bench rests: see launchlogger report)");
+            return ExitCode.BadInput;
+        }
+
         return WriteCards(file, analysed.Document, index, units, spool.Read, analysed.Code, output, error, cancel);
     }
 

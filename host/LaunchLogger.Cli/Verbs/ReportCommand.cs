@@ -246,7 +246,7 @@ public static class ReportCommand
                 error.WriteLine($"launchlogger {verb}: {input.Source}: {warning}");
             }
 
-            if (input.RunCount == 0)
+            if (input.RunCount == 0 && input.BenchRests.Count == 0)
             {
                 failures.Add($"{input.Source}: no runs in the input");
             }
@@ -258,7 +258,8 @@ public static class ReportCommand
             error.WriteLine($"launchlogger {verb}: {failure}");
         }
 
-        if (session.Runs.Count == 0)
+        List<BenchRestReport> rests = inputs.SelectMany(i => i.BenchRests).Select(BenchRestReport.From).ToList();
+        if (session.Runs.Count == 0 && rests.Count == 0)
         {
             failed = ExitCode.BadInput;
             return null;
@@ -276,7 +277,7 @@ public static class ReportCommand
             return null;
         }
 
-        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, string.Join(", ", inputs.Select(i => i.Source)), reader, weather, pairs);
+        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, string.Join(", ", inputs.Select(i => i.Source)), reader, weather, pairs) with { BenchRests = rests };
         // 0 only when every run asked for was reported and judged valid; a doubtful or invalid
         // run, or an input that yielded no run, makes the result partial (ExitCode.Partial).
         bool allValid = session.Runs.All(r => r.Verdict.Level == VerdictLevel.Valid);

@@ -47,6 +47,9 @@ public static class RunInputs
         /// <summary>The reader's counters (logs, once read).</summary>
         public ReaderReport? Reader { get; private set; }
 
+        /// <summary>The log's bench rests (once read): not runs.</summary>
+        public IReadOnlyList<BenchRestRecord> BenchRests { get; private set; } = [];
+
         /// <summary>The log's own warnings (once read).</summary>
         public IReadOnlyList<string> Warnings { get; private set; } = [];
 
@@ -65,6 +68,7 @@ public static class RunInputs
         {
             Reader = ReaderReport.From(end.Stats);
             Warnings = end.Warnings;
+            BenchRests = end.BenchRests;
         }
     }
 

@@ -25,6 +25,9 @@ public sealed class CalibrationLog
     /// <summary>The runs in log order.</summary>
     public IReadOnlyList<DecodedRun> Runs => Result.Runs;
 
+    /// <summary>The bench rests in log order (not runs).</summary>
+    public IReadOnlyList<BenchRestRecord> BenchRests => Result.BenchRests;
+
     /// <summary>Reads the log file at <paramref name="path"/>.</summary>
     /// <exception cref="InputException">Missing, a directory, or unreadable.</exception>
     /// <exception cref="OperationCanceledException">Cancelled.</exception>

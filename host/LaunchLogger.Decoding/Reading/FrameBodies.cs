@@ -233,6 +233,47 @@ public static class FrameBodies
         return true;
     }
 
+    /// <summary>Parses a bench-rest body (frame 0x09).</summary>
+    public static bool TryReadBenchRest(ReadOnlySpan<byte> body, out BenchRestBody rest)
+    {
+        var r = new BodyReader(body);
+        long number = r.ReadVarint();
+        long opened = r.ReadVarint();
+        long length = r.ReadVarint();
+        long rate = r.ReadVarint();
+        long fullScale = r.ReadVarint();
+        int forwardAxis = r.ReadByte();
+        int forwardSign = r.ReadByte();
+        if (r.Failed || forwardAxis > 2 || forwardSign > 1 || rate < 1)
+        {
+            rest = null!;
+            return false;
+        }
+
+        rest = new BenchRestBody(number, opened, length, rate, fullScale, forwardAxis, forwardSign == 1);
+        return true;
+    }
+
+    /// <summary>Parses a bench-rest end body (frame 0x0A).</summary>
+    public static bool TryReadBenchRestEnd(ReadOnlySpan<byte> body, out BenchRestEndBody end)
+    {
+        var r = new BodyReader(body);
+        long number = r.ReadVarint();
+        long ended = r.ReadVarint();
+        int outcome = r.ReadByte();
+        long samples = r.ReadVarint();
+        long lost = r.ReadVarint();
+        long frames = r.ReadVarint();
+        if (r.Failed)
+        {
+            end = null!;
+            return false;
+        }
+
+        end = new BenchRestEndBody(number, ended, outcome, samples, lost, frames);
+        return true;
+    }
+
     /// <summary>Parses a summary body.</summary>
     public static bool TryReadSummary(ReadOnlySpan<byte> body, out SummaryBody summary)
     {

@@ -35,6 +35,9 @@ public sealed record ReportDocument
 
     /// <summary>Runs paired in opposite directions, and their means.</summary>
     public IReadOnlyList<PairReport> Pairs { get; init; } = [];
+
+    /// <summary>The logs' bench rests (no runs: listed, never analysed), in input order.</summary>
+    public IReadOnlyList<BenchRestReport> BenchRests { get; init; } = [];
 }
 
 /// <summary>The best 0–60 mph the braking grip shown would allow.</summary>

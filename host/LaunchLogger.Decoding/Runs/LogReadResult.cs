@@ -12,6 +12,10 @@ public sealed class LogReadResult
     /// <summary>The runs in log order, complete or not.</summary>
     public required IReadOnlyList<DecodedRun> Runs { get; init; }
 
+    /// <summary>The bench rests in log order (LOG-FORMAT.md, 0x09): no runs, kept apart so that
+    /// nothing that takes runs sees them.</summary>
+    public IReadOnlyList<BenchRestRecord> BenchRests { get; init; } = [];
+
     /// <summary>Counters of frames, damage and gaps over the whole log.</summary>
     public required ReaderStats Stats { get; init; }
 

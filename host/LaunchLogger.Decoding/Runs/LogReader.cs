@@ -73,7 +73,7 @@ public static class LogReader
             runs.Add(run);
         }
 
-        return new LogReadResult { Source = end!.Source, Runs = runs, Stats = end.Stats, Warnings = end.Warnings };
+        return new LogReadResult { Source = end!.Source, Runs = runs, BenchRests = end.BenchRests, Stats = end.Stats, Warnings = end.Warnings };
     }
 
     /// <summary>Reads a log file.</summary>
@@ -207,6 +207,7 @@ public static class LogReader
     {
         Source = end.Source,
         Runs = runs,
+        BenchRests = end.BenchRests,
         Stats = end.Stats with { CorruptBodies = end.Stats.CorruptBodies + pipeline.CorruptBodies },
         Warnings = end.Warnings,
     };

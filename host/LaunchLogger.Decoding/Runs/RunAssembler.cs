@@ -17,6 +17,10 @@ namespace LaunchLogger.Decoding.Runs;
 /// configuration (a capture that started mid-run) or between a summary and the next configuration
 /// are counted in <see cref="ReaderStats.OrphanFrames"/>. Bodies that do not parse are counted in
 /// <see cref="ReaderStats.CorruptBodies"/> and skipped.</para>
+/// <para>A bench rest (frames 0x09 … 0x0A, only acceleration frames between) is no run: its
+/// samples go to a <see cref="BenchRestRecord"/> in <see cref="LogReadResult.BenchRests"/>, and
+/// the runs never see it. A run's configuration, a restart or the log's end before its end frame
+/// leaves it <see cref="BenchRestOutcome.Unfinished"/>.</para>
 /// <para>Health counters run since power-up, so each run's are differenced against the last
 /// health frame of the previous run of the same power-up (or against zero for run 1); when that
 /// run is not in the log, against the run's own first health frame. The widest bracket is a
@@ -29,6 +33,8 @@ public sealed class RunAssembler
 {
     private readonly string source;
     private readonly List<DecodedRun> runs = [];
+    private readonly List<BenchRestRecord> rests = [];
+    private BenchRestBuilder? rest;
     private readonly List<string> warnings = [];
     private readonly Action<RunBuilder, long[]?>? handOff;
     private RunScratch? scratch;
@@ -109,14 +115,37 @@ public sealed class RunAssembler
         switch (frame.Type)
         {
             case FrameType.Configuration:
+                CloseRest(null, "cut off: a run's configuration came before the rest's end frame");
                 Open(frame.Body, frame.Sequence, isCopy: false);
                 return;
             case FrameType.ConfigurationCopy:
+                CloseRest(null, "cut off: a run's configuration came before the rest's end frame");
                 Open(frame.Body, frame.Sequence, isCopy: true);
                 return;
             case FrameType.PowerUp:
                 // The restart it marks has been seen by the reader (ChargeDamage closed any open run).
                 return;
+            case FrameType.BenchRest:
+                OpenRest(frame.Body);
+                return;
+            case FrameType.BenchRestEnd:
+                EndRest(frame.Body);
+                return;
+        }
+
+        if (rest != null && open == null)
+        {
+            if (frame.Type == FrameType.Acceleration && FrameBodies.TryReadAcceleration(frame.Body, out AccelerationBody samples))
+            {
+                rest.Add(samples);
+            }
+            else if (frame.Type == FrameType.Acceleration)
+            {
+                corruptBodies++;
+                rest.FramesLost++;
+            }
+
+            return;
         }
 
         if (open == null)
@@ -266,6 +295,7 @@ public sealed class RunAssembler
                 : "cut off: the log ends before this run's summary (power lost or capture stopped)");
         }
 
+        CloseRest(null, "cut off: the log ends before the rest's end frame (power lost or capture stopped)");
         scratch?.Dispose();
         ReaderStats stats = readerStats with { CorruptBodies = corruptBodies, OrphanFrames = orphanFrames };
         WarnOutsideRuns(stats);
@@ -273,6 +303,7 @@ public sealed class RunAssembler
         {
             Source = source,
             Runs = runs.ToList(),
+            BenchRests = rests.ToList(),
             Stats = stats,
             Warnings = warnings.ToList(),
         };
@@ -299,6 +330,9 @@ public sealed class RunAssembler
         seen = now;
         if (restarts + breaks > 0)
         {
+            CloseRest(null, restarts > 0
+                ? "cut off: the box restarted before the rest's end frame (power lost)"
+                : "cut off: the sequence numbers jump back before the rest's end frame");
             if (open != null)
             {
                 Close(restarts > 0
@@ -314,6 +348,10 @@ public sealed class RunAssembler
             open.CrcErrors += crc;
             open.MalformedFrames += malformed;
             open.FramesLost += lost;
+        }
+        else if (rest != null)
+        {
+            rest.FramesLost += crc + malformed + lost;
         }
         else
         {
@@ -389,6 +427,56 @@ public sealed class RunAssembler
         else
         {
             DropOrphans();
+        }
+    }
+
+    /// <summary>A bench rest opens: a run still open was cut off, and so was an earlier rest.</summary>
+    private void OpenRest(ReadOnlySpan<byte> body)
+    {
+        if (!FrameBodies.TryReadBenchRest(body, out BenchRestBody opening))
+        {
+            corruptBodies++;
+            return;
+        }
+
+        if (open != null)
+        {
+            Close("cut off: a bench rest began before this run's summary");
+        }
+
+        CloseRest(null, "cut off: the next bench rest began before this one's end frame");
+        DropOrphans();
+        rest = new BenchRestBuilder(opening, powerUp == 0 ? source : Invariant($"{source} (after restart {powerUp})"));
+    }
+
+    /// <summary>The rest's end frame: the open rest is finished (one whose opening was lost
+    /// stays unread, its samples counted outside any run).</summary>
+    private void EndRest(ReadOnlySpan<byte> body)
+    {
+        if (!FrameBodies.TryReadBenchRestEnd(body, out BenchRestEndBody end))
+        {
+            corruptBodies++;
+            CloseRest(null, "its end frame is damaged: how it ended is not known");
+            return;
+        }
+
+        if (rest == null)
+        {
+            orphanFrames++;
+            return;
+        }
+
+        rests.Add(rest.Build(end, null));
+        rest = null;
+    }
+
+    /// <summary>Finishes the open rest, if any, without its end frame, saying why.</summary>
+    private void CloseRest(BenchRestEndBody? end, string why)
+    {
+        if (rest != null)
+        {
+            rests.Add(rest.Build(end, why));
+            rest = null;
         }
     }
 

@@ -78,6 +78,8 @@ public static class FrameLog
             FrameType.Event => ReadEvent(sequence, ref r),
             FrameType.Health => ReadHealth(sequence, ref r),
             FrameType.Summary => ReadSummary(sequence, ref r),
+            FrameType.BenchRest => new BenchRestFrame(sequence, r.Varint(), r.Varint(), r.Varint(), r.Varint(), r.Varint(), r.U8(), r.U8()),
+            FrameType.BenchRestEnd => new BenchRestEndFrame(sequence, r.Varint(), r.Varint(), r.U8(), r.Varint(), r.Varint(), r.Varint()),
             _ => new UnknownFrame(type, sequence),
         };
 

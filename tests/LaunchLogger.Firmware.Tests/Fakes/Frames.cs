@@ -86,5 +86,26 @@ public sealed record SummaryFrame(
     long FramesInRun,
     int Flags) : Frame(FrameType.Summary, Sequence);
 
+/// <summary>Frame 0x09: a bench rest opens.</summary>
+public sealed record BenchRestFrame(
+    int Sequence,
+    long RestNumber,
+    long OpenedMicros,
+    long LengthMicros,
+    long AccelRateMilliHz,
+    long AccelFullScaleMilliG,
+    int ForwardAxis,
+    int ForwardSign) : Frame(FrameType.BenchRest, Sequence);
+
+/// <summary>Frame 0x0A: a bench rest ends.</summary>
+public sealed record BenchRestEndFrame(
+    int Sequence,
+    long RestNumber,
+    long EndedMicros,
+    int Outcome,
+    long SamplesWritten,
+    long SamplesLost,
+    long FramesInRest) : Frame(FrameType.BenchRestEnd, Sequence);
+
 /// <summary>A frame of a type this decoder does not know.</summary>
 public sealed record UnknownFrame(FrameType Type, int Sequence) : Frame(Type, Sequence);

@@ -70,6 +70,23 @@ public class RealRuntimeTests
         Assert.Equal(new[] { "event brake-off at 9306000 gap 7000" }, events.Where(l => l.StartsWith("event brake-off", StringComparison.Ordinal)));
     }
 
+    [Fact]
+    public void TheHarnessRecordsBenchRestsThroughTheLoopsDebouncing()
+    {
+        // The harness's bench script (Harness.cs, BenchMarkChanges) against LOG-FORMAT.md 0x09 and
+        // 0x0A: the press, held 3 s once staged, arms a rest (dated from the last bouncing contact,
+        // 2 002 000); the release read at 5 203 000 opens it for its 5 s; a 1 s press arms nothing;
+        // a second rest is ended by a pulse (outcome 1), and no run opens.
+        string[] lines = Lines(Run("dotnet", Quote(HarnessOnCoreClr())));
+        Assert.Contains("bench phase bench-rest at 5002000", lines);
+        Assert.Contains("bench rests 2 runs 0", lines);
+        Assert.Equal(
+            new[] { "bench-rest 1 5203000 5000000 400000 8000 0 0", "bench-rest 2 16600000 5000000 400000 8000 0 0" },
+            lines.Where(l => l.StartsWith("bench-rest ", StringComparison.Ordinal)));
+        string[] ends = lines.Where(l => l.StartsWith("bench-rest-end ", StringComparison.Ordinal)).Select(l => l.Split(' ')).Select(f => string.Join(' ', f[1..4])).ToArray();
+        Assert.Equal(new[] { "1 10203000 0", "2 18000000 1" }, ends);
+    }
+
     /// <summary>The compared lines: everything but the step markers (#…), which an instrumented
     /// interpreter extends with its counters.</summary>
     private static string[] Lines(string output) =>

@@ -10,6 +10,7 @@ public class PhaseBlinkPatternTests
     [InlineData(RunPhase.Moving, 1000)]
     [InlineData(RunPhase.RolledOut, 1600)]
     [InlineData(RunPhase.Stopped, 200)]
+    [InlineData(RunPhase.BenchRest, 600)]
     public void Lit_milliseconds_per_two_seconds_tell_the_phases_apart(RunPhase phase, int litPerTwoSeconds)
     {
         int lit = 0;
@@ -46,7 +47,7 @@ public class PhaseBlinkPatternTests
     [Fact]
     public void Each_pattern_repeats_with_its_period()
     {
-        long[] periods = { 1000, 1, 200, 500, 2000 };
+        long[] periods = { 1000, 1, 200, 500, 2000, 2000 };
         foreach (RunPhase phase in Enum.GetValues<RunPhase>())
         {
             long period = periods[(int)phase];
