@@ -18,6 +18,18 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// the car (D within σ_acc), about |D| on one that clearly does not. Subtracting 2σ_acc or 1.5σ_acc
 /// instead left slips of a few millimetres on top of an uncalibrated tyre's own circumference
 /// error unexplained (driven-wheel rollout marks within 2σ in 85 % and 91 % of simulated runs).
+/// <para>On a wheel the run shows to be driven (a slip kept, or wheelspin) the moment estimate
+/// is not enough: it reads the accelerometer's error as part of the slip's, so an accelerometer
+/// that reads high by about the slip (D ≈ slip − s_a·d ≈ 0) leaves the slip out of σ entirely.
+/// There the fused distance's error y = x + u (x the slip, prior σ_x; u the pulses' scale and the
+/// filter's own error, σ_u² = (s_p·d)² + σ_f², already in σ) is measured by D = y − w against the
+/// accelerometer's error w (σ_w² = (b·τ²/2)² + (s_a·d)²); given D (Gaussian conditioning)
+/// <code>E[y² | D] = (D·σ_y² / (σ_y² + σ_w²))² + σ_y²·σ_w² / (σ_y² + σ_w²),  σ_y² = σ_x² + σ_u²</code>
+/// and the allowance is what that adds to σ_u²: e² = max(0, E[y² | D] − σ_u²). With a slip prior
+/// far wider than the accelerometer's error this is about D² + σ_w² − σ_u²: the distance is
+/// known only as well as the accelerometer that measured the slip. σ_x is the launch slip's prior
+/// (<see cref="ReconstructionOptions.PulsesOnlyLaunchSlip"/> fading over
+/// <see cref="ReconstructionOptions.LaunchSlipFadeM"/>).</para>
 /// </remarks>
 internal static class LaunchSlipAllowance
 {
@@ -42,9 +54,12 @@ internal static class LaunchSlipAllowance
     /// <param name="biasSigmaMps2">σ of the input's bias, m/s².</param>
     /// <param name="accelScaleSigma">σ of the input's scale, a fraction.</param>
     /// <param name="pulseScaleSigma">σ of the pulses' scale, a fraction.</param>
+    /// <param name="slipPrior">For a wheel shown to be driven: the launch slip's prior σ as a
+    /// fraction of the distance and the distance it fades over, m; null for the moment estimate.</param>
     public static double[] DistanceSigma(
         double[] grid, int k0, double startS, double startSpeedM, double startDistanceM, double[] stepSpeedM, double[] stepDistanceM,
-        double[] fusedDistanceM, double[] fusedSigmaM, double biasSigmaMps2, double accelScaleSigma, double pulseScaleSigma)
+        double[] fusedDistanceM, double[] fusedSigmaM, double biasSigmaMps2, double accelScaleSigma, double pulseScaleSigma,
+        (double Fraction, double FadeM)? slipPrior = null)
     {
         int n = grid.Length;
         var extra = new double[n];
@@ -67,9 +82,24 @@ internal static class LaunchSlipAllowance
             {
                 double d = fusedDistanceM[k];
                 double bias = 0.5 * biasSigmaMps2 * tau * tau;
-                double sigma2 = (bias * bias) + Square(accelScaleSigma * distance) + Square(pulseScaleSigma * d) + Square(fusedSigmaM[k]);
+                double accel2 = (bias * bias) + Square(accelScaleSigma * distance);
+                double fused2 = Square(pulseScaleSigma * d) + Square(fusedSigmaM[k]);
                 double gap = d - distance;
-                largest = Math.Max(largest, Math.Sqrt(Math.Max(0, (gap * gap) - sigma2)));
+                double slip2;
+                if (slipPrior is { } prior)
+                {
+                    double x = prior.Fraction * prior.FadeM * (1 - Math.Exp(-Math.Max(d, 0) / prior.FadeM));
+                    double y2 = (x * x) + fused2;
+                    double total = y2 + accel2;
+                    double mean = total > 0 ? gap * y2 / total : 0;
+                    slip2 = (mean * mean) + (total > 0 ? y2 * accel2 / total : 0) - fused2;
+                }
+                else
+                {
+                    slip2 = (gap * gap) - accel2 - fused2;
+                }
+
+                largest = Math.Max(largest, Math.Sqrt(Math.Max(0, slip2)));
             }
 
             extra[k] = largest;

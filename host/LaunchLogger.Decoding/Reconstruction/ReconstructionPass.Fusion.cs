@@ -149,7 +149,7 @@ internal sealed partial class ReconstructionPass
 
     private static double Square(double x) => x * x;
 
-    private Trajectory MakeTrajectory(StepGrid steps, double startS, double? stopS, FusionResult fused, double[]? slipSignal)
+    private Trajectory MakeTrajectory(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, FusionResult fused, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
         int n = grid.Length;
@@ -168,7 +168,7 @@ internal sealed partial class ReconstructionPass
         double pulsesOnlySlip = 0;
         double circumferenceSigma = pulses is null ? 0 : this.circumferenceSigma;
         double growthSigma = pulses is null ? 0 : this.growthSigma;
-        double[]? launchSlip = LaunchSlip(steps, startS, k0, fused);
+        double[]? launchSlip = LaunchSlip(steps, startS, k0, fused, driven: fused.SlipKept || spin.Count > 0);
         for (int k = k0; k < n; k++)
         {
             bool atRest = grid[k] >= stop;
@@ -289,8 +289,10 @@ internal sealed partial class ReconstructionPass
     }
 
     /// <summary>The launch slip the accelerometer shows beyond its own error
-    /// (<see cref="LaunchSlipAllowance"/>); null without both sensors or without a standstill.</summary>
-    private double[]? LaunchSlip(StepGrid steps, double startS, int k0, FusionResult fused)
+    /// (<see cref="LaunchSlipAllowance"/>); null without both sensors or without a standstill.
+    /// <paramref name="driven"/>: the run shows the wheel driven (a slip kept, or wheelspin), so the
+    /// launch slip's prior is a driven tyre's.</summary>
+    private double[]? LaunchSlip(StepGrid steps, double startS, int k0, FusionResult fused, bool driven)
     {
         if (accel is null || pulses is null || !Staged)
         {
@@ -301,7 +303,8 @@ internal sealed partial class ReconstructionPass
         double pulseScale = Math.Sqrt(Square(circumferenceSigma) + Square(options.PulseScaleSigma));
         return LaunchSlipAllowance.DistanceSigma(
             steps.TimeS, k0, startS, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM,
-            fused.DistanceM, fused.DistanceSigmaM, bias, options.ForwardScaleSigma, pulseScale);
+            fused.DistanceM, fused.DistanceSigmaM, bias, options.ForwardScaleSigma, pulseScale,
+            driven ? (options.PulsesOnlyLaunchSlip, options.LaunchSlipFadeM) : null);
     }
 
     private static Estimate MeanBias(double[] grid, double startS, double? stopS, FusionResult fused)

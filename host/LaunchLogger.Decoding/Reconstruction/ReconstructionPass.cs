@@ -166,7 +166,7 @@ internal sealed partial class ReconstructionPass
             warnings.Add($"{fused.Outliers} pulse observations disagreed with the rest by more than ten σ and were down-weighted");
         }
 
-        Trajectory trajectory = MakeTrajectory(steps, firstMotion.Value, stopS, fused, slipSignal);
+        Trajectory trajectory = MakeTrajectory(steps, firstMotion.Value, stopS, spin, fused, slipSignal);
         (Estimate? rolloutTime, Estimate? rolloutSpeed) = Rollout(trajectory, firstMotion.Value);
         AddModeWarnings(trajectory, firstMotion, stopS);
 
