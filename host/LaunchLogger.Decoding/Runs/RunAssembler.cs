@@ -115,11 +115,11 @@ public sealed class RunAssembler
         switch (frame.Type)
         {
             case FrameType.Configuration:
-                CloseRest(null, "cut off: a run's configuration came before the rest's end frame");
+                CloseRest("cut off: a run's configuration came before the rest's end frame");
                 Open(frame.Body, frame.Sequence, isCopy: false);
                 return;
             case FrameType.ConfigurationCopy:
-                CloseRest(null, "cut off: a run's configuration came before the rest's end frame");
+                CloseRest("cut off: a run's configuration came before the rest's end frame");
                 Open(frame.Body, frame.Sequence, isCopy: true);
                 return;
             case FrameType.PowerUp:
@@ -295,7 +295,7 @@ public sealed class RunAssembler
                 : "cut off: the log ends before this run's summary (power lost or capture stopped)");
         }
 
-        CloseRest(null, "cut off: the log ends before the rest's end frame (power lost or capture stopped)");
+        CloseRest("cut off: the log ends before the rest's end frame (power lost or capture stopped)");
         scratch?.Dispose();
         ReaderStats stats = readerStats with { CorruptBodies = corruptBodies, OrphanFrames = orphanFrames };
         WarnOutsideRuns(stats);
@@ -330,7 +330,7 @@ public sealed class RunAssembler
         seen = now;
         if (restarts + breaks > 0)
         {
-            CloseRest(null, restarts > 0
+            CloseRest(restarts > 0
                 ? "cut off: the box restarted before the rest's end frame (power lost)"
                 : "cut off: the sequence numbers jump back before the rest's end frame");
             if (open != null)
@@ -444,7 +444,7 @@ public sealed class RunAssembler
             Close("cut off: a bench rest began before this run's summary");
         }
 
-        CloseRest(null, "cut off: the next bench rest began before this one's end frame");
+        CloseRest("cut off: the next bench rest began before this one's end frame");
         DropOrphans();
         rest = new BenchRestBuilder(opening, powerUp == 0 ? source : Invariant($"{source} (after restart {powerUp})"));
     }
@@ -456,7 +456,7 @@ public sealed class RunAssembler
         if (!FrameBodies.TryReadBenchRestEnd(body, out BenchRestEndBody end))
         {
             corruptBodies++;
-            CloseRest(null, "its end frame is damaged: how it ended is not known");
+            CloseRest("its end frame is damaged: how it ended is not known");
             return;
         }
 
@@ -471,11 +471,11 @@ public sealed class RunAssembler
     }
 
     /// <summary>Finishes the open rest, if any, without its end frame, saying why.</summary>
-    private void CloseRest(BenchRestEndBody? end, string why)
+    private void CloseRest(string why)
     {
         if (rest != null)
         {
-            rests.Add(rest.Build(end, why));
+            rests.Add(rest.Build(null, why));
             rest = null;
         }
     }

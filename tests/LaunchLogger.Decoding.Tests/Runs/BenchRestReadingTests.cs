@@ -1,6 +1,8 @@
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Tests.Reading;
 using LaunchLogger.Decoding.Tests.Runs.Support;
 using LaunchLogger.Firmware.Run;
+using LaunchLogger.Firmware.Wire;
 using LaunchLogger.Tests.Shared;
 
 namespace LaunchLogger.Decoding.Tests.Runs;
@@ -73,6 +75,33 @@ public class BenchRestReadingTests
         Assert.Equal(BenchRestOutcome.Unfinished, cut.Outcome);
         Assert.Null(cut.EndedS);
         Assert.Contains(cut.Warnings, w => w.Contains("log ends before the rest's end", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void A_rest_that_never_ends_keeps_no_more_samples_than_its_set_length_allows()
+    {
+        // A damaged log: a 1-s rest at 100 Hz opens, then 2,000 samples and no end frame.
+        var frames = new List<byte[]>
+        {
+            TestFrames.Encode(FrameType.BenchRest, 1, new BodyBuilder().Varint(1).Varint(5_000_000).Varint(1_000_000).Varint(100_000).Varint(4_000).Byte(2).Byte(0).ToArray()),
+        };
+        for (int f = 0; f < 20; f++)
+        {
+            var body = new BodyBuilder().Varint(5_000_000 + ((f + 1) * 1_000_000L)).Varint(f * 100L).Varint(100);
+            for (int i = 0; i < 100; i++)
+            {
+                body.Int16(0).Int16(0).Int16(1000);
+            }
+
+            frames.Add(TestFrames.Encode(FrameType.Acceleration, f + 2, body.ToArray()));
+        }
+
+        BenchRestRecord rest = Assert.Single(LogReader.Read(TestFrames.Concat([.. frames]), "endless.log").BenchRests);
+
+        // 1 s × 100 Hz with a tenth to spare, and 1,024 more: 1,134 kept, 866 said.
+        Assert.Equal(BenchRestOutcome.Unfinished, rest.Outcome);
+        Assert.Equal(1_134, rest.Count);
+        Assert.Contains(rest.Warnings, w => w.StartsWith("866 samples beyond the rest's set length (1 s) left out", StringComparison.Ordinal));
     }
 
     [Fact]
