@@ -168,7 +168,7 @@ public static class CalibrateAccelerometerCommand
     /// <summary>Both rests from one log: the two named with <c>--rest</c>, or its only two.</summary>
     private static (Estimate Up, string UpName, Estimate Down, string DownName) ReadBothRests(FileInfo file, IReadOnlyList<string> specs, TextWriter error, CancellationToken cancel)
     {
-        CalibrationLog log = ReadRestLog(file, error, cancel);
+        CalibrationLog log = ReadLog(file, error, Verb, cancel, requireRuns: false);
         BenchRestRecord up;
         BenchRestRecord down;
         if (specs.Count == 2)
@@ -201,7 +201,7 @@ public static class CalibrateAccelerometerCommand
         }
         else
         {
-            CalibrationLog log = ReadRestLog(file, error, cancel);
+            CalibrationLog log = ReadLog(file, error, Verb, cancel, requireRuns: false);
             if (runSpec is null && (restSpec is not null || log.BenchRests.Count > 0))
             {
                 BenchRestRecord rest = restSpec is null ? OnlyRest(log) : SelectRest(log, restSpec);
@@ -223,18 +223,6 @@ public static class CalibrateAccelerometerCommand
         }
 
         return (AccelerometerScaleCalibration.RestLevel(series.TimeS, series.ForwardMps2, file.ToString()), file.Name);
-    }
-
-    /// <summary>Reads a log, passing its own warnings on.</summary>
-    private static CalibrationLog ReadRestLog(FileInfo file, TextWriter error, CancellationToken cancel)
-    {
-        CalibrationLog log = CalibrationLog.Read(file.FullName, cancel);
-        foreach (string warning in log.Result.Warnings)
-        {
-            error.WriteLine($"launchlogger calibrate {Verb}: {file.Name}: {warning}");
-        }
-
-        return log;
     }
 
     /// <summary>The log's only bench rest.</summary>

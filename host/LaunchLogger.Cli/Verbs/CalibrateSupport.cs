@@ -20,9 +20,10 @@ internal static class CalibrateSupport
     /// <summary>Invariant culture for every number printed.</summary>
     public static CultureInfo Inv => CultureInfo.InvariantCulture;
 
-    /// <summary>Reads a log and checks it holds runs.</summary>
-    /// <exception cref="InputException">Missing, unreadable, or without runs.</exception>
-    public static CalibrationLog ReadLog(FileInfo file, TextWriter error, string verb, CancellationToken cancel)
+    /// <summary>Reads a log, passing its warnings on, and checks it holds runs (unless
+    /// <paramref name="requireRuns"/> is false: a log of bench rests only).</summary>
+    /// <exception cref="InputException">Missing, unreadable, or without runs when they are required.</exception>
+    public static CalibrationLog ReadLog(FileInfo file, TextWriter error, string verb, CancellationToken cancel, bool requireRuns = true)
     {
         CalibrationLog log = CalibrationLog.Read(file.FullName, cancel);
         foreach (string warning in log.Result.Warnings)
@@ -30,7 +31,7 @@ internal static class CalibrateSupport
             error.WriteLine($"launchlogger calibrate {verb}: {file.Name}: {warning}");
         }
 
-        if (log.Runs.Count == 0)
+        if (requireRuns && log.Runs.Count == 0)
         {
             throw new InputException(file.ToString(), 0, "no runs in this log (is it a LaunchLogger log?)");
         }
