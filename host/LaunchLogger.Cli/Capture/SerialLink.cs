@@ -29,7 +29,9 @@ public sealed class SerialLink(string portName, int baudRate, int readTimeoutMs 
         var port = new SerialPort(portName, baudRate, Parity.None, 8, StopBits.One)
         {
             Handshake = Handshake.None,
-            ReadTimeout = readTimeoutMs,
+
+            // No ReadTimeout: reads are never timed out inside the port (see the remarks); the
+            // connection waits for its outstanding read at most readTimeoutMs itself.
             WriteTimeout = 500,
             ReadBufferSize = 1 << 16,
         };
