@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reconstruction;
@@ -23,6 +24,16 @@ public static class RunAnalyzer
         {
             // A measured circumference brings its own σ in place of the static value's.
             reconstructionOptions = reconstructionOptions with { CircumferenceSigmaFraction = circumferenceSigma / circumference };
+        }
+        else if (options.Calibration is { CircumferenceM: null, StaticCircumferenceM: > 0 })
+        {
+            // A static circumference (applied to the run as its configured one): a loaded tyre
+            // rolls on a little less and grows with speed, as a typical tyre does.
+            reconstructionOptions = reconstructionOptions with
+            {
+                RollingOverToldCircumference = TyrePrior.RollingOverStatic,
+                TyreGrowthAt30Mps = TyrePrior.GrowthAt30Mps,
+            };
         }
         if (options.Calibration is { AccelForwardScale: > 0 and { } accelScale, AccelForwardScaleSigma: { } accelScaleSigma })
         {
