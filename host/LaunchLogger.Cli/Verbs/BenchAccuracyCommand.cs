@@ -49,7 +49,7 @@ public static class BenchAccuracyCommand
             return ExitCode.Cancelled;
         }
 
-        string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, grows with speed)")
+        string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
             + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)");
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch), seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (groups is { Count: > 0 })
