@@ -42,7 +42,7 @@ public static class AccuracyBenchmark
         FigureSet naive;
         try
         {
-            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration));
+            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM));
             naive = NaiveFigures(run);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException)
