@@ -1,6 +1,6 @@
 using System.Text.Json;
 using LaunchLogger.Cli.Verbs;
-using LaunchLogger.Tests.Shared;
+using LaunchLogger.Simulation.Box;
 
 namespace LaunchLogger.Cli.Tests;
 
