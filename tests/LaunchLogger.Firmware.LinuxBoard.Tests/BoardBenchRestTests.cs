@@ -104,25 +104,18 @@ public sealed class BoardBenchRestTests
 
     private static long[] Varints(byte[] payload, int from, int count) => Varints(payload, from, count, out _);
 
-    /// <summary>Reads <paramref name="count"/> LEB128 varints (LOG-FORMAT.md, section 1) from
-    /// <paramref name="from"/>; <paramref name="next"/> is the offset after them.</summary>
+    /// <summary>Reads <paramref name="count"/> varints with the core's reader (LOG-FORMAT.md,
+    /// section 1) from <paramref name="from"/>; <paramref name="next"/> is the offset after them.</summary>
     private static long[] Varints(byte[] payload, int from, int count, out int next)
     {
         var values = new long[count];
         int at = from;
         for (int v = 0; v < count; v++)
         {
-            long value = 0;
-            int shift = 0;
-            byte b;
-            do
-            {
-                b = payload[at++];
-                value |= (long)(b & 0x7F) << shift;
-                shift += 7;
-            }
-            while ((b & 0x80) != 0);
-            values[v] = value;
+            int read = Varint.Read(payload, at, payload.Length - 4, out ulong value);
+            Assert.True(read > 0, "no varint at " + at);
+            values[v] = (long)value;
+            at += read;
         }
 
         next = at;
