@@ -23,6 +23,10 @@ public static class FigureCalculator
     /// top speed is not yet coasting), m/s; widened by 3σ of the speed there.</summary>
     public const double TopSpeedToleranceMps = 0.1;
 
+    /// <summary>An interval's end speed counts as reached when the speed goes on past it by this
+    /// many σ of the speed there.</summary>
+    public const double ClearPassSigmas = 2;
+
     /// <summary>Computes the figures.</summary>
     /// <param name="trajectory">Distance 0 at first motion; times on the input's axis.</param>
     /// <param name="firstMotionS">First motion, s, with its σ.</param>
@@ -149,7 +153,7 @@ public static class FigureCalculator
     private static IntervalFigure TimeInterval(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, SpeedInterval interval)
     {
         Estimate? end = SpeedCrossing(trajectory, start, interval.ToMps, endS);
-        if (end is not { } e)
+        if (end is not { } e || !ClearlyPassed(trajectory, e.Value, interval.ToMps, endS))
         {
             return new IntervalFigure(interval, null, null, null, null);
         }
@@ -246,6 +250,32 @@ public static class FigureCalculator
         }
 
         return null;
+    }
+
+    /// <summary>Whether the speed goes on past <paramref name="targetMps"/> by at least
+    /// <see cref="ClearPassSigmas"/> of its σ at the crossing before the acceleration ends: a car
+    /// that only touches the target (holds it, or tops out just above it) may not have reached it
+    /// at all, and where the speed runs flat its crossing time is anywhere along the flat — the
+    /// interval is then not timed rather than timed with a σ of seconds.</summary>
+    private static bool ClearlyPassed(Trajectory trajectory, double crossingS, double targetMps, double endS)
+    {
+        double[] t = trajectory.TimeS;
+        double[] v = trajectory.SpeedMps;
+        double needed = targetMps + (trajectory.SpeedSigmaMps is { } sigma ? ClearPassSigmas * trajectory.ValueAt(sigma, crossingS) : 0);
+        if (trajectory.ValueAt(v, crossingS) >= needed)
+        {
+            return true;
+        }
+
+        for (int i = FirstIndexAtOrAfter(t, crossingS); i < t.Length && t[i] <= endS; i++)
+        {
+            if (v[i] >= needed)
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 
     private static Estimate At(Trajectory trajectory, double[] values, double[]? sigmas, double time) =>
