@@ -59,8 +59,15 @@ public static class AccuracyBenchmark
             truthValues.Set(BenchFigure.BrakeOnset, onset).Set(BenchFigure.StoppingDistance, to - from);
         }
 
-        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking), FigureReading.FromFigures(naive))];
+        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking), FigureReading.FromFigures(naive))
+            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth) }];
     }
+
+    /// <summary>The accelerometer's own distance at the first foot less the true distance then,
+    /// with its stated σ (m); null when the decoder gave none.</summary>
+    public static Estimate? AccelFirstFootError(ReconstructedRun ours, Trajectory truth) => ours.AccelOnlyFirstFoot is { } check
+        ? new Estimate(check.DistanceM - truth.ValueAt(truth.DistanceM, check.TimeS), check.SigmaM)
+        : null;
 
     /// <summary>The naive method's figures for <paramref name="run"/>, timed by the same
     /// <see cref="FigureCalculator"/> as ours.</summary>
@@ -84,6 +91,10 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
 {
     /// <summary>True when a run that opened moving was given a figure from standstill.</summary>
     public bool StandingFigureOnRollingStart { get; init; }
+
+    /// <summary>The accelerometer's own distance at the first foot: its error against the truth
+    /// (m) with the σ the decoder states for it; null without one.</summary>
+    public Estimate? AccelFirstFoot { get; init; }
 
     /// <summary>False when the decoder split the record into a different number of runs.</summary>
     public bool RunsAsExpected { get; init; } = true;

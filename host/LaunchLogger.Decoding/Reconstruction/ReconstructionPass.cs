@@ -194,6 +194,7 @@ internal sealed partial class ReconstructionPass
             RestingForwardMps2 = accel is null ? null : new Estimate(accel.RestLevelMps2, accel.RestLevelSigmaMps2),
             FirstPulseDistanceM = pulses is null || !Staged ? null : new Estimate(mpp - fused.PhaseM.Value, fused.PhaseM.Sigma),
             StopS = stopS,
+            AccelOnlyFirstFoot = AccelFirstFoot(steps, firstMotion.Value),
             WheelspinWindows = spin,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
