@@ -96,6 +96,10 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
     /// (m) with the σ the decoder states for it; null without one.</summary>
     public Estimate? AccelFirstFoot { get; init; }
 
+    /// <summary>Per figure: true when the truth has it and the decoder reported none (it may
+    /// rightly decline one it cannot support; the count shows how often).</summary>
+    public bool[] Missed { get; init; } = new bool[BenchFigure.All.Count];
+
     /// <summary>False when the decoder split the record into a different number of runs.</summary>
     public bool RunsAsExpected { get; init; } = true;
 
@@ -112,12 +116,14 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
         int n = BenchFigure.All.Count;
         var o = new double?[n];
         var v = new double?[n];
+        var missed = new bool[n];
         for (int m = 0; m < n; m++)
         {
             o[m] = ours.Values[m] - truth.Values[m];
             v[m] = naive.Values[m] - truth.Values[m];
+            missed[m] = truth.Values[m] is not null && ours.Values[m] is null;
         }
 
-        return new(index, summary, group, o, v, ours.Sigmas, null);
+        return new(index, summary, group, o, v, ours.Sigmas, null) { Missed = missed };
     }
 }

@@ -94,6 +94,27 @@ public static class BenchAccuracyCommand
         _ => group.ToString(),
     };
 
+    /// <summary>The figures the truth has where the decoder reported none (a speed it did not
+    /// clearly pass, a mark after the acceleration ended): each with how many of the runs that
+    /// have it in truth.</summary>
+    private static void MissedLine(List<CaseOutcome> runs, TextWriter output)
+    {
+        var missed = new List<string>();
+        for (int m = 0; m < BenchFigure.All.Count; m++)
+        {
+            int k = runs.Count(o => o.Missed[m]);
+            if (k > 0)
+            {
+                missed.Add(Text($"{BenchFigure.All[m].Name} {k} of {k + runs.Count(o => o.Ours[m] is not null)}"));
+            }
+        }
+
+        if (missed.Count > 0)
+        {
+            output.WriteLine($"  not reported where the truth has it: {string.Join("; ", missed)}");
+        }
+    }
+
     private static void WriteGroup(BenchGroup group, List<CaseOutcome> runs, int runsSplitWrongly, bool calibratedTyre, TextWriter output)
     {
         output.WriteLine();
@@ -128,6 +149,7 @@ public static class BenchAccuracyCommand
         }
 
         AccelFirstFootLine(runs, output);
+        MissedLine(runs, output);
         output.WriteLine("  goals:");
         output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {(coverageShort.Count == 0 ? "met" : "NOT met (" + string.Join("; ", coverageShort) + ")")}"));
         switch (group)
