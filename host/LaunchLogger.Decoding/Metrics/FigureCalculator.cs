@@ -53,9 +53,18 @@ public static class FigureCalculator
         Estimate? rolloutSpeed = rollout is { } r ? At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, r.Value) : null;
 
         var intervals = new List<IntervalFigure>(request.SpeedIntervals.Count);
+        var declined = new List<(SpeedInterval, double, double)>();
         foreach (SpeedInterval interval in request.SpeedIntervals)
         {
-            intervals.Add(standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, endS, interval));
+            IntervalFigure figure = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, endS, interval);
+            intervals.Add(figure);
+            if (figure.FromStandstillS is null
+                && (standingStart || trajectory.SpeedMps[start] < interval.FromMps)
+                && SpeedCrossing(trajectory, start, interval.ToMps, endS) is { } crossing)
+            {
+                // Crossed, yet not timed: not clearly passed.
+                declined.Add((interval, TopSpeed(trajectory, crossing.Value, endS), trajectory.SpeedSigmaMps is { } sv ? trajectory.ValueAt(sv, crossing.Value) : 0));
+            }
         }
 
         var marks = new List<MarkFigure>(request.DistanceMarks.Count);
@@ -85,6 +94,7 @@ public static class FigureCalculator
             MeanAccel0To60Mps2 = zeroTo60 is > 0 ? 60 * Units.MpsPerMph / zeroTo60.Value : null,
             MaxSpeedMps = maxSpeed,
             DistanceM = trajectory.Count > 0 ? trajectory.DistanceM[^1] : 0,
+            NotClearlyReached = declined,
         };
     }
 
@@ -276,6 +286,18 @@ public static class FigureCalculator
         }
 
         return false;
+    }
+
+    /// <summary>The highest speed from <paramref name="fromS"/> up to <paramref name="endS"/>, m/s.</summary>
+    private static double TopSpeed(Trajectory trajectory, double fromS, double endS)
+    {
+        double top = trajectory.ValueAt(trajectory.SpeedMps, fromS);
+        for (int i = FirstIndexAtOrAfter(trajectory.TimeS, fromS); i < trajectory.Count && trajectory.TimeS[i] <= endS; i++)
+        {
+            top = Math.Max(top, trajectory.SpeedMps[i]);
+        }
+
+        return top;
     }
 
     private static Estimate At(Trajectory trajectory, double[] values, double[]? sigmas, double time) =>

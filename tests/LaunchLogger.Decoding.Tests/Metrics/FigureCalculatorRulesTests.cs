@@ -53,9 +53,24 @@ public class FigureCalculatorRulesTests
             SpeedSigmaMps = launch.SpeedSigmaMps,
         };
 
-        IntervalFigure f = FigureCalculator.Compute(held, new Estimate(T0, 0), request: Request(new SpeedInterval("0-10", 0, 10))).SpeedIntervals[0];
+        FigureSet set = FigureCalculator.Compute(held, new Estimate(T0, 0), request: Request(new SpeedInterval("0-10", 0, 10)));
+        IntervalFigure f = set.SpeedIntervals[0];
 
         Assert.Equal(timed, f.FromStandstillS.HasValue);
+
+        // Declined intervals are listed with the top speed reached and the speed's σ, for the report's note.
+        if (timed)
+        {
+            Assert.Empty(set.NotClearlyReached);
+        }
+        else
+        {
+            var declined = Assert.Single(set.NotClearlyReached);
+            Assert.Equal("0-10", declined.Interval.Label);
+            Assert.Equal(topMps, declined.TopMps, 9);
+            Assert.Equal(speedSigma, declined.SigmaMps, 9);
+        }
+
         if (timed)
         {
             Assert.Equal(10 / A, f.FromStandstillS!.Value, 9);
