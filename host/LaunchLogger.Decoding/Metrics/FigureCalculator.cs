@@ -56,15 +56,7 @@ public static class FigureCalculator
         var declined = new List<(SpeedInterval, double, double)>();
         foreach (SpeedInterval interval in request.SpeedIntervals)
         {
-            IntervalFigure figure = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, endS, interval);
-            intervals.Add(figure);
-            if (figure.FromStandstillS is null
-                && (standingStart || trajectory.SpeedMps[start] < interval.FromMps)
-                && SpeedCrossing(trajectory, start, interval.ToMps, endS) is { } crossing)
-            {
-                // Crossed, yet not timed: not clearly passed.
-                declined.Add((interval, TopSpeed(trajectory, crossing.Value, endS), trajectory.SpeedSigmaMps is { } sv ? trajectory.ValueAt(sv, crossing.Value) : 0));
-            }
+            intervals.Add(standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval, declined) : RollingInterval(trajectory, start, endS, interval, declined));
         }
 
         var marks = new List<MarkFigure>(request.DistanceMarks.Count);
@@ -81,7 +73,7 @@ public static class FigureCalculator
             maxSpeed = Math.Max(maxSpeed, trajectory.SpeedMps[i]);
         }
 
-        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS : null;
+        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, SpeedInterval.Mph(0, 60), null).FromStandstillS : null;
         return new FigureSet
         {
             FirstMotionS = firstMotionS,
@@ -160,11 +152,24 @@ public static class FigureCalculator
         return Math.Min(i, Math.Max(0, timeS.Length - 1));
     }
 
-    private static IntervalFigure TimeInterval(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, SpeedInterval interval)
+    // declined: where an interval whose end speed is crossed but not clearly passed is listed,
+    // with the top speed reached and the speed's σ at the crossing; null for none.
+    private static IntervalFigure TimeInterval(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, SpeedInterval interval, List<(SpeedInterval, double, double)>? declined)
     {
         Estimate? end = SpeedCrossing(trajectory, start, interval.ToMps, endS);
-        if (end is not { } e || !ClearlyPassed(trajectory, e.Value, interval.ToMps, endS))
+        if (end is not { } e)
         {
+            return new IntervalFigure(interval, null, null, null, null);
+        }
+
+        // Timed only when the speed goes on past the end speed by 2σ before the acceleration ends:
+        // a car that holds it, or tops out just above it, may not have reached it at all, and
+        // where the speed runs flat the crossing is anywhere along the flat.
+        double top = TopSpeed(trajectory, e.Value, endS);
+        double sigmaV = trajectory.SpeedSigmaMps is { } sv ? trajectory.ValueAt(sv, e.Value) : 0;
+        if (top < interval.ToMps + (ClearPassSigmas * sigmaV))
+        {
+            declined?.Add((interval, top, sigmaV));
             return new IntervalFigure(interval, null, null, null, null);
         }
 
@@ -189,14 +194,14 @@ public static class FigureCalculator
 
     /// <summary>A rolling interval of a trajectory that opens moving: timed only when the speed
     /// at the start is below the interval's lower speed, so that both ends are real crossings.</summary>
-    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, double endS, SpeedInterval interval)
+    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, double endS, SpeedInterval interval, List<(SpeedInterval, double, double)> declined)
     {
         if (interval.IsStanding || trajectory.SpeedMps[start] >= interval.FromMps)
         {
             return new IntervalFigure(interval, null, null, null, null);
         }
 
-        return TimeInterval(trajectory, start, endS, new Estimate(trajectory.TimeS[start], 0), null, interval);
+        return TimeInterval(trajectory, start, endS, new Estimate(trajectory.TimeS[start], 0), null, interval, declined);
     }
 
     private static MarkFigure TimeMark(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, DistanceMark mark)
@@ -260,32 +265,6 @@ public static class FigureCalculator
         }
 
         return null;
-    }
-
-    /// <summary>Whether the speed goes on past <paramref name="targetMps"/> by at least
-    /// <see cref="ClearPassSigmas"/> of its σ at the crossing before the acceleration ends: a car
-    /// that only touches the target (holds it, or tops out just above it) may not have reached it
-    /// at all, and where the speed runs flat its crossing time is anywhere along the flat — the
-    /// interval is then not timed rather than timed with a σ of seconds.</summary>
-    private static bool ClearlyPassed(Trajectory trajectory, double crossingS, double targetMps, double endS)
-    {
-        double[] t = trajectory.TimeS;
-        double[] v = trajectory.SpeedMps;
-        double needed = targetMps + (trajectory.SpeedSigmaMps is { } sigma ? ClearPassSigmas * trajectory.ValueAt(sigma, crossingS) : 0);
-        if (trajectory.ValueAt(v, crossingS) >= needed)
-        {
-            return true;
-        }
-
-        for (int i = FirstIndexAtOrAfter(t, crossingS); i < t.Length && t[i] <= endS; i++)
-        {
-            if (v[i] >= needed)
-            {
-                return true;
-            }
-        }
-
-        return false;
     }
 
     /// <summary>The highest speed from <paramref name="fromS"/> up to <paramref name="endS"/>, m/s.</summary>

@@ -320,13 +320,12 @@ internal sealed partial class ReconstructionPass
             return null;
         }
 
-        const double FootM = 0.3048;
         double[] grid = steps.TimeS;
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         double[] d = LaunchSlipAllowance.AccelDistance(grid, k0, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM);
         for (int k = k0; k < grid.Length && grid[k] - startS <= LaunchSlipAllowance.WindowS; k++)
         {
-            if (d[k] >= FootM)
+            if (d[k] >= Metrics.Units.MetresPerFoot)
             {
                 return new AccelDistanceCheck(grid[k], d[k], LaunchSlipAllowance.AccelSigma(grid[k] - startS, d[k], LaunchBiasSigma(accel), options.ForwardScaleSigma));
             }

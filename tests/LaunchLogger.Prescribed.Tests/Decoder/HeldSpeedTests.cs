@@ -12,13 +12,11 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 /// why; 0-30 mph, clearly passed, is timed as usual.</summary>
 public class HeldSpeedTests
 {
-    private const double Mph = 0.44704;
-
     [Fact]
     public void An_interval_ending_at_a_held_speed_is_not_timed_and_the_report_says_why()
     {
         const double Accel = 3;
-        var b = new MotionProfileBuilder().Hold(3).Constant(50 * Mph / Accel, Accel).Hold(2).BrakeToStop(0.3, 6).Hold(3);
+        var b = new MotionProfileBuilder().Hold(3).Constant(50 * TruthUnits.MpsPerMph / Accel, Accel).Hold(2).BrakeToStop(0.3, 6).Hold(3);
         PrescribedRecordSpec spec = Records.Standing(2) with { Shape = new Shape("held at 50 mph", ShapeKind.StandingStart, b.Build()) };
         PrescribedRecord record = spec.Generate();
         RunAnalysis run = Assert.Single(DecoderHarness.AnalyzeLog(record).Runs);
@@ -30,6 +28,6 @@ public class HeldSpeedTests
         // 0-30 mph: the truth is the constant acceleration's closed form, 30 mph / 3 m/s².
         IntervalFigure thirty = run.Figures.SpeedIntervals.Single(i => i.Interval.Label == "0-30 mph");
         Assert.NotNull(thirty.FromStandstillS);
-        Assert.True(Math.Abs(thirty.FromStandstillS!.Value - (30 * Mph / Accel)) <= Math.Max(3 * thirty.UncertaintyS!.Value, 0.002), $"0-30 mph {thirty.FromStandstillS:F4} s ± {thirty.UncertaintyS:F4}");
+        Assert.True(Math.Abs(thirty.FromStandstillS!.Value - (30 * TruthUnits.MpsPerMph / Accel)) <= Math.Max(3 * thirty.UncertaintyS!.Value, 0.002), $"0-30 mph {thirty.FromStandstillS:F4} s ± {thirty.UncertaintyS:F4}");
     }
 }
