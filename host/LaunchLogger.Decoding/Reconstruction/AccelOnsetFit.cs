@@ -47,6 +47,9 @@ internal static class AccelOnsetFit
     /// needs.</summary>
     private const double TieS = 1e-7;
 
+    /// <summary>Samples after the crossing that the window must hold for a fit.</summary>
+    private const int MinAfterCross = 3;
+
     /// <summary>Finds the onset in the readings less the level (forward acceleration minus the resting
     /// level) between samples <paramref name="from"/> and <paramref name="to"/>.</summary>
     /// <param name="t">Sample times.</param>
@@ -100,7 +103,9 @@ internal static class AccelOnsetFit
 
         // The window ends where the rise has reached a quarter of its height over the next 0.2 s,
         // between 15 and 100 ms after the crossing: long enough to pin the shape down, short
-        // enough to stay on the rise.
+        // enough to stay on the rise. It holds at least the samples after the crossing that the
+        // fit needs (MinAfterCross): at 100 Hz 15 ms is one sample and a half, and a
+        // quick rise passes its quarter by then, which left no onset at all.
         double early = 0;
         for (int i = cross; i < top && t[i] <= tCross + 0.2; i++)
         {
@@ -108,12 +113,12 @@ internal static class AccelOnsetFit
         }
 
         int end = cross;
-        while (end + 1 < top && t[end + 1] <= tCross + 0.1 && (t[end] < tCross + 0.015 || Smoothed(end) < 0.25 * early))
+        while (end + 1 < top && t[end + 1] <= tCross + 0.1 && (end - cross < MinAfterCross || t[end] < tCross + 0.015 || Smoothed(end) < 0.25 * early))
         {
             end++;
         }
 
-        if (cross - start < 4 || end - cross < 3)
+        if (cross - start < 4 || end - cross < MinAfterCross)
         {
             return null;
         }
