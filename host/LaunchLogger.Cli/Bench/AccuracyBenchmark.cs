@@ -59,7 +59,7 @@ public static class AccuracyBenchmark
             truthValues.Set(BenchFigure.BrakeOnset, onset).Set(BenchFigure.StoppingDistance, to - from);
         }
 
-        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking), FigureReading.FromFigures(naive))
+        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Reconstruction.Staged), FigureReading.FromFigures(naive))
             with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth) }];
     }
 

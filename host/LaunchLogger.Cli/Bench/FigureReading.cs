@@ -11,15 +11,18 @@ public static class FigureReading
     private static readonly double QuarterMileM = 1320 * Units.MetresPerFoot;
 
     /// <summary>The figures of a figure set (ours, the naive method's or the simulator's truth)
-    /// and, when given, a stop.</summary>
-    public static FigureValues FromFigures(FigureSet f, BrakingResult? braking = null)
+    /// and, when given, a stop. A run that opened moving (<paramref name="standing"/> false) has no
+    /// first motion, as its report says (<c>first_motion_s</c> null, verdict reason
+    /// <c>rolling_start</c>): its figure set's first motion is only where its distances start
+    /// counting (the first pulse), so it is not read as one.</summary>
+    public static FigureValues FromFigures(FigureSet f, BrakingResult? braking = null, bool standing = true)
     {
         IntervalFigure? i60 = Interval(f, SpeedInterval.Mph(0, 60));
         MarkFigure? quarter = f.DistanceMarks.FirstOrDefault(m => Math.Abs(m.Mark.DistanceM - QuarterMileM) < 1e-6);
         IntervalFigure? p3050 = Interval(f, SpeedInterval.Mph(30, 50));
         IntervalFigure? p80120 = Interval(f, SpeedInterval.Kmh(80, 120));
         return new FigureValues()
-            .Set(BenchFigure.FirstMotion, f.FirstMotionS.Value, f.FirstMotionS.Sigma)
+            .Set(BenchFigure.FirstMotion, standing ? f.FirstMotionS.Value : null, standing ? f.FirstMotionS.Sigma : null)
             .Set(BenchFigure.Rollout, f.RolloutTimeS?.Value, f.RolloutTimeS?.Sigma)
             .Set(BenchFigure.ZeroTo60, i60?.FromStandstillS, i60?.UncertaintyS)
             .Set(BenchFigure.ZeroTo60AfterRollout, i60?.FromRolloutS, i60?.FromRolloutUncertaintyS)

@@ -47,7 +47,7 @@ public static class PrescribedBenchmark
                 c.Summary,
                 c.Group,
                 FigureReading.FromTruth(truth),
-                FigureReading.FromFigures(ours.Figures, ours.Braking),
+                FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Reconstruction.Staged),
                 FigureReading.FromFigures(AccuracyBenchmark.NaiveFigures(ours.Run)));
             outcomes.Add(outcome with
             {

@@ -1,0 +1,34 @@
+using LaunchLogger.Cli.Bench;
+using LaunchLogger.Simulation.Scenarios;
+
+namespace LaunchLogger.Cli.Tests.Bench;
+
+/// <summary>What the accuracy benchmark counts as our figures.</summary>
+public class AccuracyBenchmarkTests
+{
+    /// <summary>A car that launches before the box has held still for its stage hold (1 s): the box
+    /// is not staged, opens a rolling run once the car has rolled 3 m (the firmware's unstaged
+    /// opening), and the decoder rightly reports no standstill (verdict reason rolling_start,
+    /// first_motion_s null). The benchmark once read the figure set's first motion — where the
+    /// run's distances start, the first pulse, σ a bracket's — as ours: a second late at a
+    /// fraction of a microsecond's σ (`bench accuracy --runs 1600 --seed 1`, run 619: an
+    /// accelerometer too noisy for the still band never staged the box). It must count it as
+    /// not reported instead.</summary>
+    [Fact]
+    public void A_launch_the_box_did_not_stage_for_has_no_first_motion_of_ours()
+    {
+        Scenario baseline = BuiltInScenarios.Get("electric-saloon");
+        Scenario scenario = baseline with { Name = "unstaged", Plan = baseline.Plan with { StageS = 0.5, TargetSpeedMps = null, TargetDistanceM = 100, BrakeToStop = true } };
+        var c = new AccuracyCase(0, 3, scenario, "launch 0.5 s after power-up", null);
+
+        CaseOutcome outcome = Assert.Single(AccuracyBenchmark.Run(c, CancellationToken.None));
+
+        Assert.Null(outcome.Failure);
+        Assert.True(outcome.Missed[BenchFigure.FirstMotion], $"first motion counted with error {outcome.Ours[BenchFigure.FirstMotion] * 1e3:F1} ms, σ {outcome.OurSigmas[BenchFigure.FirstMotion] * 1e3:F4} ms");
+        Assert.Null(outcome.Ours[BenchFigure.FirstMotion]);
+        Assert.Null(outcome.Ours[BenchFigure.ZeroTo60]);
+
+        // The naive method still times from its first pulse: the run is compared, not dropped.
+        Assert.NotNull(outcome.Naive[BenchFigure.FirstMotion]);
+    }
+}
