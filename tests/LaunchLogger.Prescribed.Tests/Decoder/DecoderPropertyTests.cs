@@ -11,7 +11,7 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 public class DecoderPropertyTests
 {
     /// <summary>Records whose accelerometer samples at 200 Hz or more (see <see cref="Records"/>);
-    /// at 100 Hz the decoder's first motion is tens of milliseconds early today (issue 9).</summary>
+    /// at 100 Hz a step is placed only within the 10-ms gap between samples (HundredHertzOnsetTests).</summary>
     public static TheoryData<int> Seeds => new() { 1, 2, 3, 4, 6, 7, 8 };
 
     /// <summary>Logs with 24 teeth or more and 200 Hz or more: with 8–12 teeth the box's coarse
