@@ -115,7 +115,8 @@ internal sealed partial class ReconstructionPass
             Pulses = pulses,
             MetresPerPulse = mpp,
             PulseGrowthM = pulseGrowthM,
-            ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
+            PulseToothOffsets = toothOffsets,
+            ToothSigmaM = (teeth?.SigmaPulses ?? options.ToothSpacingErrorFraction) * mpp,
             EdgeJitterS = options.EdgeJitterS,
             SpinWindows = [.. spin],
 
