@@ -116,7 +116,7 @@ internal sealed partial class ReconstructionPass
             MetresPerPulse = mpp,
             PulseGrowthM = pulseGrowthM,
             PulseToothOffsets = toothOffsets,
-            ToothSigmaM = (teeth?.SigmaPulses ?? options.ToothSpacingErrorFraction) * mpp,
+            ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
             EdgeJitterS = options.EdgeJitterS,
             SpinWindows = [.. spin],
 

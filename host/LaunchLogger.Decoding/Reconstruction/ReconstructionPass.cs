@@ -35,7 +35,6 @@ internal sealed partial class ReconstructionPass
     private double growthCorrelation;
     private double[]? pulseGrowthM;
     private double finalRestFromS = double.PositiveInfinity;
-    private readonly ToothPositions? teeth;
     private readonly double[]? toothOffsets;
 
     public ReconstructionPass(DecodedRun run, ReconstructionOptions options)
@@ -70,8 +69,7 @@ internal sealed partial class ReconstructionPass
         if (pulses != null && channel == 0 && options.MeasureToothPositions)
         {
             // The ring's own tooth positions, measured over the run's steady revolutions.
-            teeth = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction);
-            toothOffsets = teeth?.Offsets(pulses);
+            toothOffsets = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction)?.Offsets(pulses);
         }
 
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;
