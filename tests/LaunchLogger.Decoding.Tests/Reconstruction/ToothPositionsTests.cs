@@ -10,29 +10,13 @@ public class ToothPositionsTests
 {
     private const double StartS = 5.0;
 
-    /// <summary>Edges at (k + e_k)/n of a revolution, e_k drawn with 1-σ <paramref name="sigma"/> of a pitch.</summary>
-    private static double[] Ring(int seed, int teeth, double sigma)
-    {
-        var random = new Random(seed);
-        var positions = new double[teeth];
-        for (int k = 0; k < teeth; k++)
-        {
-            double u1 = 1.0 - random.NextDouble();
-            double u2 = random.NextDouble();
-            positions[k] = (k + (sigma * Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2))) / teeth;
-        }
-
-        positions[0] = Math.Max(positions[0], 0);
-        return positions;
-    }
-
     [Theory]
     [InlineData(12, 0.015, 1)]
     [InlineData(12, 0.02, 2)]
     [InlineData(48, 0.01, 3)]
     public void Each_edge_is_placed_where_the_ring_puts_it(int teeth, double sigma, int seed)
     {
-        double[] ring = Ring(seed, teeth, sigma);
+        double[] ring = ToothSpacingCalibrationTests.Ring(seed, sigma, teeth);
         DecodedRun run = CalibrationRuns.Cruise(ring, 1.9, speedMps: 12, durationS: 40, accelMps2: 0.05, jitterS: 5e-6, seed: seed);
         var channel = PulseChannel.From(run.Pulses);
 
@@ -65,7 +49,7 @@ public class ToothPositionsTests
     [Fact]
     public void A_run_without_steady_revolutions_gives_no_map()
     {
-        double[] ring = Ring(1, 12, 0.015);
+        double[] ring = ToothSpacingCalibrationTests.Ring(1, 0.015, 12);
         DecodedRun run = CalibrationRuns.Cruise(ring, 1.9, speedMps: 12, durationS: 2, jitterS: 5e-6);
 
         Assert.Null(ToothPositions.Measure(run.Pulses, 12, 1.9 / 12, "short", priorFraction: 0.01));
