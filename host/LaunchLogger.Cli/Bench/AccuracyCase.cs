@@ -99,7 +99,7 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
                 },
             };
             string summary = FormattableString.Invariant(
-                $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°, scale {scaleError * 100:+0.00;-0.00} %)" : "no accelerometer")}");
+                $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(calibratedTyre ? "tyre calibrated" : $"tyre rolls {rollingOverStatic:0.0000} of static, grows {growth * 100:0.00} % at 30 m/s")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°, scale {scaleError * 100:+0.00;-0.00} %)" : "no accelerometer")}");
             cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6) { AccelCalibration = accel ? told : null, TyreCalibration = calibratedTyre ? tyreTold : null, StaticTyreM = calibratedTyre ? null : scenario.Box.ConfiguredCircumferenceM });
         }
 

@@ -63,9 +63,26 @@ public static class ToothSpacingCalibration
             throw new CalibrationException($"{run.Source}: a tooth map needs at least 2 pulses per revolution (the log says {n})");
         }
 
-        var times = new Dictionary<long, double>(run.Pulses.Count);
-        var widths = new List<double>(run.Pulses.Count);
-        foreach (PulseRecord p in run.Pulses)
+        return Measure(run.Pulses, n, run.Configuration.MetresPerPulse, run.Source, originCount, out string? refusal)
+            ?? throw new CalibrationException(refusal!);
+    }
+
+    /// <summary>Maps the tooth spacing of one pulse channel, or says why not.</summary>
+    /// <param name="pulses">The channel's observations.</param>
+    /// <param name="n">Pulses per revolution (at least 2).</param>
+    /// <param name="metresPerPulse">Distance per pulse, m (for the mean speed only).</param>
+    /// <param name="source">The run's name, for the messages.</param>
+    /// <param name="originCount">The hardware count at the run's origin, or null to number the
+    /// gaps by the run's own count.</param>
+    /// <param name="refusal">Why there is no map: too few steady revolutions, or brackets too wide.</param>
+    /// <returns>The map, or null.</returns>
+    public static ToothSpacingMap? Measure(IReadOnlyList<PulseRecord> pulses, int n, double metresPerPulse, string source, long? originCount, out string? refusal)
+    {
+        ArgumentNullException.ThrowIfNull(pulses);
+        refusal = null;
+        var times = new Dictionary<long, double>(pulses.Count);
+        var widths = new List<double>(pulses.Count);
+        foreach (PulseRecord p in pulses)
         {
             if (p.HiS >= p.LoS && !double.IsNaN(p.LoS))
             {
@@ -103,7 +120,8 @@ public static class ToothSpacingCalibration
 
         if (used < MinimumRevolutions * n)
         {
-            throw new CalibrationException(Invariant($"{run.Source}: only {(double)used / n:0.#} steady revolutions (at least {MinimumRevolutions} needed, {RecommendedRevolutions} or more recommended): hold a light, constant throttle for longer"));
+            refusal = Invariant($"{source}: only {(double)used / n:0.#} steady revolutions (at least {MinimumRevolutions} needed, {RecommendedRevolutions} or more recommended): hold a light, constant throttle for longer");
+            return null;
         }
 
         double medianBracket = Median(widths);
@@ -113,7 +131,8 @@ public static class ToothSpacingCalibration
         double bracketNoisePerTooth = bracketNoise / Math.Sqrt(revolutions);
         if (bracketNoisePerTooth > MaxBracketNoisePerTooth)
         {
-            throw new CalibrationException(Invariant($"{run.Source}: the edge times are known only to {medianBracket * 1000:0.###} ms brackets, {bracketNoise:P1} of a tooth interval at this speed, which leaves {bracketNoisePerTooth:P2} per tooth after {revolutions:0} revolutions: cruise slower or longer, or log with exact edge times"));
+            refusal = Invariant($"{source}: the edge times are known only to {medianBracket * 1000:0.###} ms brackets, {bracketNoise:P1} of a tooth interval at this speed, which leaves {bracketNoisePerTooth:P2} per tooth after {revolutions:0} revolutions: cruise slower or longer, or log with exact edge times");
+            return null;
         }
 
         var warnings = new List<string>();
@@ -134,7 +153,8 @@ public static class ToothSpacingCalibration
             double[] ratios = perTooth[k].Select(e => e.Ratio).ToArray();
             if (ratios.Length < 3)
             {
-                throw new CalibrationException(Invariant($"{run.Source}: tooth {k} was seen in only {ratios.Length} steady intervals; the pulse count may have slipped"));
+                refusal = Invariant($"{source}: tooth {k} was seen in only {ratios.Length} steady intervals; the pulse count may have slipped");
+                return null;
             }
 
             // The scatter can understate the brackets' share when the poll period keeps in step
@@ -152,7 +172,8 @@ public static class ToothSpacingCalibration
             sigma[k] /= scale;
         }
 
-        if (HalvesDisagree(perTooth, n))
+        bool halvesDisagree = HalvesDisagree(perTooth, n);
+        if (halvesDisagree)
         {
             warnings.Add("the first and second halves of the cruise give different maps: a pulse may have been lost or doubled (check the health counters), or the ring moved");
         }
@@ -164,15 +185,16 @@ public static class ToothSpacingCalibration
 
         return new ToothSpacingMap
         {
-            Source = run.Source,
+            Source = source,
             PulsesPerRevolution = n,
             Spacing = spacing,
             Sigma = sigma,
             IndexedByHardwareCount = originCount is not null,
             Intervals = used,
-            MeanSpeedMps = run.Configuration.MetresPerPulse * used / usedTime,
+            MeanSpeedMps = metresPerPulse * used / usedTime,
             MedianBracketS = medianBracket,
             BracketNoiseFraction = bracketNoise,
+            HalvesDisagree = halvesDisagree,
             Warnings = warnings,
         };
     }

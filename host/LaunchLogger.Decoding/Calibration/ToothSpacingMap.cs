@@ -38,6 +38,10 @@ public sealed record ToothSpacingMap
     /// bracket errors: width/√6 over the median interval).</summary>
     public required double BracketNoiseFraction { get; init; }
 
+    /// <summary>True when the two halves of the cruise gave maps that differ beyond their noise
+    /// (a pulse lost or doubled, or the ring moved).</summary>
+    public bool HalvesDisagree { get; init; }
+
     /// <summary>What the reader should know, one sentence each.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];
 

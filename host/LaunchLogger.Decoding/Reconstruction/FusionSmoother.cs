@@ -75,6 +75,10 @@ internal sealed class FusionSettings
     /// beyond count × <see cref="MetresPerPulse"/>, m (null: none).</summary>
     public double[]? PulseGrowthM { get; init; }
 
+    /// <summary>Each pulse observation's edge place less its count, in pitches (the ring's
+    /// measured tooth positions, <see cref="ToothPositions"/>; null: evenly spaced).</summary>
+    public double[]? PulseToothOffsets { get; init; }
+
     public double ToothSigmaM { get; init; }
 
     public double EdgeJitterS { get; init; }
@@ -296,7 +300,7 @@ internal static class FusionSmoother
 
                 double delta = (0.5 * (lo + hi)) - tk;
                 double w = hi - lo;
-                double z = (pulses.Counts[ip] * mpp) + (s.PulseGrowthM?[ip] ?? 0);
+                double z = ((pulses.Counts[ip] + (s.PulseToothOffsets?[ip] ?? 0)) * mpp) + (s.PulseGrowthM?[ip] ?? 0);
                 double h2 = 0.5 * delta * delta;
                 if (accelMode)
                 {

@@ -35,6 +35,11 @@ public sealed record ReconstructionOptions
     /// pulse pitch (machining and sensor threshold spread; about 1 % is common practice).</summary>
     public double ToothSpacingErrorFraction { get; init; } = 0.01;
 
+    /// <summary>True: measure the ring's tooth positions from the run's own steady revolutions
+    /// and place each edge where it sits (<see cref="ToothPositions"/>); false: every edge on
+    /// its even place with <see cref="ToothSpacingErrorFraction"/>.</summary>
+    public bool MeasureToothPositions { get; init; } = true;
+
     /// <summary>1-σ timing jitter of an edge time beyond its bracket, seconds.</summary>
     public double EdgeJitterS { get; init; } = 5e-6;
 

@@ -115,6 +115,7 @@ internal sealed partial class ReconstructionPass
             Pulses = pulses,
             MetresPerPulse = mpp,
             PulseGrowthM = pulseGrowthM,
+            PulseToothOffsets = toothOffsets,
             ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
             EdgeJitterS = options.EdgeJitterS,
             SpinWindows = [.. spin],

@@ -35,6 +35,7 @@ internal sealed partial class ReconstructionPass
     private double growthCorrelation;
     private double[]? pulseGrowthM;
     private double finalRestFromS = double.PositiveInfinity;
+    private readonly double[]? toothOffsets;
 
     public ReconstructionPass(DecodedRun run, ReconstructionOptions options)
     {
@@ -63,6 +64,12 @@ internal sealed partial class ReconstructionPass
                 channelNote = $"the second pulse channel turned {(1 - ratio) * 100:F1} % less than the first while accelerating; it is taken as the undriven wheel and used for distance";
                 (pulses, mpp, channel) = (second, secondMpp, 1);
             }
+        }
+
+        if (pulses != null && channel == 0 && options.MeasureToothPositions)
+        {
+            // The ring's own tooth positions, measured over the run's steady revolutions.
+            toothOffsets = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction)?.Offsets(pulses);
         }
 
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;

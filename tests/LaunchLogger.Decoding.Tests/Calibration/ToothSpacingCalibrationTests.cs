@@ -9,7 +9,7 @@ public class ToothSpacingCalibrationTests
     private const double Circumference = 1.96;
 
     /// <summary>Tooth edges at (k + e_k)/n of a revolution, e_k drawn with 1-σ 1 % of a pitch.</summary>
-    private static double[] Ring(int seed, double sigma = 0.01, int teeth = Teeth)
+    internal static double[] Ring(int seed, double sigma = 0.01, int teeth = Teeth)
     {
         var random = new Random(seed);
         var positions = new double[teeth];
