@@ -124,7 +124,7 @@ public static class BenchAccuracyCommand
             return;
         }
 
-        output.WriteLine("  figure                     unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n");
+        output.WriteLine("  figure                           unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n");
         var coverageShort = new List<string>();
         for (int m = 0; m < BenchFigure.All.Count; m++)
         {
@@ -145,7 +145,7 @@ public static class BenchAccuracyCommand
                 coverageShort.Add(Text($"{figure.Name} {cover2:0.0} % / {cover3:0.0} %"));
             }
 
-            output.WriteLine(Text($"  {figure.Name,-26} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}"));
+            output.WriteLine(Text($"  {figure.Name,-32} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}"));
         }
 
         AccelFirstFootLine(runs, output);
