@@ -31,7 +31,7 @@ public static class FigureReading
             .Set(BenchFigure.Passing80To120, p80120?.FromStandstillS, p80120?.UncertaintyS)
             .Set(BenchFigure.StoppingDistance, braking?.StoppingDistanceM.Value, braking?.StoppingDistanceM.Sigma)
             .Set(BenchFigure.BrakeOnset, braking?.OnsetS.Value, braking?.OnsetS.Sigma)
-            .Set(BenchFigure.RolloutAfterFirstMotion, f.RolloutTimeS?.Value - f.FirstMotionS.Value, f.RolloutTimeS?.Sigma)
+            .Set(BenchFigure.RolloutAfterFirstMotion, f.RolloutAfterFirstMotionS?.Value, f.RolloutAfterFirstMotionS?.Sigma)
             .Set(BenchFigure.RolloutSpeed, f.RolloutSpeedMps?.Value, f.RolloutSpeedMps?.Sigma)
             .Set(BenchFigure.Grade, grade?.Percent, grade is null ? null : Math.Tan(grade.SigmaRad) * 100);
         for (int m = BenchFigure.FirstOfStandardSet; m < BenchFigure.All.Count; m++)

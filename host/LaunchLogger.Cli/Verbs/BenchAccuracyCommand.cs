@@ -234,7 +234,7 @@ public static class BenchAccuracyCommand
     private static void WriteList(List<CaseOutcome> all, TextWriter output)
     {
         output.WriteLine();
-        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m; ours beyond ±2σ shows its error in σ):");
+        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m; ours beyond ±2σ shows its error in σ and the figure):");
         foreach (CaseOutcome o in all)
         {
             var cells = new List<string>();
@@ -246,7 +246,7 @@ public static class BenchAccuracyCommand
                 }
 
                 double scale = BenchFigure.All[m].Scale;
-                string miss = o.Ours[m] is { } e && o.OurSigmas[m] is { } sd && sd > 0 && Math.Abs(e / sd) > 2 ? Text($"({e / sd:+0.0;-0.0}σ)") : "";
+                string miss = o.Ours[m] is { } e && o.OurSigmas[m] is { } sd && sd > 0 && Math.Abs(e / sd) > 2 ? Text($"({e / sd:+0.0;-0.0}σ {BenchFigure.All[m].Name})") : "";
                 cells.Add(Text($"{o.Ours[m] * scale:+0.00;-0.00;0}{miss}/{o.Naive[m] * scale:+0.0;-0.0;0}"));
             }
 
