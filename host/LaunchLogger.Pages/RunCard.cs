@@ -142,7 +142,7 @@ public static class RunCard
         Fact(html, "First motion", Seconds("first_motion_s", run.FirstMotionS, "first_motion_uncertainty_s", run.FirstMotionUncertaintyS) + " on the input's clock");
         RolloutReport r = run.Rollout;
         string rollout = r.AfterFirstMotionS is { } after
-            ? Seconds("rollout/after_first_motion_s", after, "rollout/time_uncertainty_s", r.TimeUncertaintyS) + " after first motion, at "
+            ? Seconds("rollout/after_first_motion_s", after, "rollout/after_first_motion_uncertainty_s", r.AfterFirstMotionUncertaintyS) + " after first motion, at "
               + Speed("rollout/speed_mps", r.SpeedMps, units, "rollout/speed_uncertainty_mps", r.SpeedUncertaintyMps)
             : "not reached";
         Fact(html, "Rollout mark (" + Distance("rollout/distance_m", r.DistanceM, units) + ")", rollout);

@@ -70,6 +70,30 @@ public class BenchAccuracyCommandTests
     }
 
     [Fact]
+    public void Every_figure_the_report_prints_with_a_sigma_has_a_coverage_line()
+    {
+        // The report prints first motion, the rollout mark after first motion and its speed, the
+        // grade at staging, every standard interval (standing ones under both conventions), every
+        // mark under both conventions with its trap speed, and the stop: each with a ±.
+        var figures = LaunchLogger.Cli.Bench.BenchFigure.All;
+        var standard = LaunchLogger.Decoding.Metrics.FigureRequest.Standard;
+        int expected = 4 + 2 // first motion, rollout after first motion and its speed, grade; the stop
+            + standard.SpeedIntervals.Sum(i => i.IsStanding ? 2 : 1)
+            + standard.DistanceMarks.Sum(m => m.TrapLengthM is null ? 2 : 3)
+            + 1; // the rollout mark on the input's clock (the JSON's time_s)
+        Assert.Equal(expected, figures.Count);
+        Assert.Equal(figures.Count, figures.Select(f => f.Name).Distinct().Count());
+
+        var output = new StringWriter();
+        Assert.Equal(ExitCode.Ok, BenchAccuracyCommand.Run(8, 1, list: false, calibratedTyre: false, output, new StringWriter(), groups: [LaunchLogger.Cli.Bench.BenchGroup.GeneratedStanding]));
+        string text = output.ToString();
+        foreach (string name in new[] { "rollout after first motion", "speed at rollout", "grade at staging", "0-30 mph after rollout", "50-70 mph", "60 ft after rollout", "660 ft (1/8 mile) trap speed", "400 m after rollout" })
+        {
+            Assert.Contains(name, text);
+        }
+    }
+
+    [Fact]
     public void Fewer_than_two_runs_is_a_usage_error()
     {
         var error = new StringWriter();

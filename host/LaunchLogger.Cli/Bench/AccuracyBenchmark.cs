@@ -53,13 +53,14 @@ public static class AccuracyBenchmark
         // Truth figures are on the same clock as the log: the simulator writes its truth in the
         // box's time.
         FigureSet truthAligned = truth with { FirstMotionS = new Estimate(simulation.Events.FirstMotionS ?? truth.FirstMotionS.Value, 0) };
-        FigureValues truthValues = FigureReading.FromFigures(truthAligned);
+        FigureValues truthValues = FigureReading.FromFigures(truthAligned)
+            .Set(BenchFigure.Grade, simulation.Events.GradePercent);
         if (simulation.Events is { BrakeOnsetS: { } onset, BrakeOnsetDistanceM: { } from, StandstillDistanceM: { } to })
         {
             truthValues.Set(BenchFigure.BrakeOnset, onset).Set(BenchFigure.StoppingDistance, to - from);
         }
 
-        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Reconstruction.Staged), FigureReading.FromFigures(naive))
+        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Grade, ours.Reconstruction.Staged), FigureReading.FromFigures(naive))
             with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth) }];
     }
 

@@ -46,8 +46,8 @@ public static class PrescribedBenchmark
                 c.Index,
                 c.Summary,
                 c.Group,
-                FigureReading.FromTruth(truth),
-                FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Reconstruction.Staged),
+                FigureReading.FromTruth(truth, c.Spec.Accel?.GradeRad ?? 0),
+                FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Grade, ours.Reconstruction.Staged),
                 FigureReading.FromFigures(AccuracyBenchmark.NaiveFigures(ours.Run)));
             outcomes.Add(outcome with
             {

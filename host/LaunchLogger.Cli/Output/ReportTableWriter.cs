@@ -94,7 +94,7 @@ public static class ReportTableWriter
         facts.AddRow(
             $"Rollout ({Format.Distance(r.DistanceM, units)})",
             r.AfterFirstMotionS is { } after
-                ? $"{Format.SecondsWithSigma(after, r.TimeUncertaintyS)} after first motion, at {Format.Speed(r.SpeedMps, units)} {Format.SpeedSigma(r.SpeedUncertaintyMps, units)}"
+                ? $"{Format.SecondsWithSigma(after, r.AfterFirstMotionUncertaintyS)} after first motion, at {Format.Speed(r.SpeedMps, units)} {Format.SpeedSigma(r.SpeedUncertaintyMps, units)}"
                 : "not reached");
         facts.AddRow("Peak acceleration", Format.Accel(run.PeakAccelMps2));
         facts.AddRow("Top speed, distance", $"{Format.Speed(run.MaxSpeedMps, units)}, {Format.Distance(run.DistanceM, units)}");

@@ -124,7 +124,7 @@ public static class BenchAccuracyCommand
             return;
         }
 
-        output.WriteLine("  figure                     unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n");
+        output.WriteLine("  figure                           unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n");
         var coverageShort = new List<string>();
         for (int m = 0; m < BenchFigure.All.Count; m++)
         {
@@ -145,7 +145,7 @@ public static class BenchAccuracyCommand
                 coverageShort.Add(Text($"{figure.Name} {cover2:0.0} % / {cover3:0.0} %"));
             }
 
-            output.WriteLine(Text($"  {figure.Name,-26} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}"));
+            output.WriteLine(Text($"  {figure.Name,-32} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}"));
         }
 
         AccelFirstFootLine(runs, output);
@@ -234,7 +234,7 @@ public static class BenchAccuracyCommand
     private static void WriteList(List<CaseOutcome> all, TextWriter output)
     {
         output.WriteLine();
-        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m; ours beyond ±2σ shows its error in σ):");
+        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m; ours beyond ±2σ shows its error in σ and the figure):");
         foreach (CaseOutcome o in all)
         {
             var cells = new List<string>();
@@ -246,7 +246,7 @@ public static class BenchAccuracyCommand
                 }
 
                 double scale = BenchFigure.All[m].Scale;
-                string miss = o.Ours[m] is { } e && o.OurSigmas[m] is { } sd && sd > 0 && Math.Abs(e / sd) > 2 ? Text($"({e / sd:+0.0;-0.0}σ)") : "";
+                string miss = o.Ours[m] is { } e && o.OurSigmas[m] is { } sd && sd > 0 && Math.Abs(e / sd) > 2 ? Text($"({e / sd:+0.0;-0.0}σ {BenchFigure.All[m].Name})") : "";
                 cells.Add(Text($"{o.Ours[m] * scale:+0.00;-0.00;0}{miss}/{o.Naive[m] * scale:+0.0;-0.0;0}"));
             }
 

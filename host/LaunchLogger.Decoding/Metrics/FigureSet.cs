@@ -43,6 +43,13 @@ public sealed record FigureSet
     /// <summary>The rollout mark on the input's time axis, s; null when never reached.</summary>
     public Estimate? RolloutTimeS { get; init; }
 
+    /// <summary>Time from first motion to the rollout mark, s, with its σ: the mark's and first
+    /// motion's σ combined, as for every figure timed from standstill (first motion is usually
+    /// the less certain of the two); null when the mark was never reached.</summary>
+    public Estimate? RolloutAfterFirstMotionS => RolloutTimeS is { } r
+        ? new Estimate(r.Value - FirstMotionS.Value, Math.Sqrt((r.Sigma * r.Sigma) + (FirstMotionS.Sigma * FirstMotionS.Sigma)))
+        : null;
+
     /// <summary>Speed at the rollout mark, m/s.</summary>
     public Estimate? RolloutSpeedMps { get; init; }
 

@@ -100,6 +100,21 @@ internal static class LaunchSlipAllowance
         return extra;
     }
 
+    /// <summary>The speed counterpart of a distance allowance, m/s: a launch slip that fades as the
+    /// prior's shape x(d) = F·L·(1 − e^(−d/L)) has run ahead by <paramref name="allowanceM"/> at
+    /// <paramref name="distanceM"/> when F = e / (L·(1 − e^(−d/L))), and then runs ahead at
+    /// dx/dt = F·e^(−d/L)·v: the pulses read that much fast.</summary>
+    /// <param name="allowanceM">The distance allowance e there, m.</param>
+    /// <param name="distanceM">The distance d from first motion, m.</param>
+    /// <param name="speedMps">The speed v there, m/s.</param>
+    /// <param name="fadeM">The distance L the slip fades over, m.</param>
+    public static double SpeedSigma(double allowanceM, double distanceM, double speedMps, double fadeM)
+    {
+        double d = Math.Max(distanceM, 0);
+        double reach = fadeM * (1 - Math.Exp(-d / fadeM));
+        return allowanceM > 0 && reach > 0 ? allowanceM / reach * Math.Exp(-d / fadeM) * speedMps : 0;
+    }
+
     /// <summary>The accelerometer's own distance from first motion at each grid point, m (zeros
     /// before <paramref name="k0"/>): the input integrated twice from rest.</summary>
     public static double[] AccelDistance(double[] grid, int k0, double startSpeedM, double startDistanceM, double[] stepSpeedM, double[] stepDistanceM)

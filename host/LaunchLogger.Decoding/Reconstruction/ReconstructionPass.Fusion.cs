@@ -220,6 +220,7 @@ internal sealed partial class ReconstructionPass
             double clock = options.TimebaseSigma * (grid[k] - startS);
             double dScale = circumferenceSigma * d;
             double launch = launchSlip?[k] ?? 0;
+            double launchSpeed = LaunchSlipAllowance.SpeedSigma(launch, d, speed[k], options.LaunchSlipFadeM);
 
             // The launch slip is held once the car is away, so like the circumference and growth
             // terms it is shared along the path: a distance between two later times does not carry it.
@@ -228,7 +229,7 @@ internal sealed partial class ReconstructionPass
             double tyreSpeedCross = 2 * growthCorrelation * circumferenceSigma * growth * speed[k] * speed[k];
             shared[k] = Math.Sqrt((dSys * dSys) + (dScale * dScale) + (growthDistance * growthDistance) + tyreCross + (launch * launch));
             sd[k] = Math.Sqrt((sd[k] * sd[k]) + (shared[k] * shared[k]) + Square(speed[k] * clock));
-            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + tyreSpeedCross + Square(options.TimebaseSigma * speed[k]));
+            sv[k] = atRest ? 0 : Math.Sqrt((sv[k] * sv[k]) + (vSys * vSys) + Square(circumferenceSigma * speed[k]) + Square(growth * speed[k]) + tyreSpeedCross + Square(options.TimebaseSigma * speed[k]) + Square(launchSpeed));
             if (atRest)
             {
                 accelOut[k] = 0;

@@ -345,6 +345,10 @@ public sealed record RolloutReport
     /// <summary>Time from first motion to the mark, s.</summary>
     public double? AfterFirstMotionS { get; init; }
 
+    /// <summary>1-σ of <see cref="AfterFirstMotionS"/>, s: the mark's and first motion's σ
+    /// combined, as for every figure from standstill.</summary>
+    public double? AfterFirstMotionUncertaintyS { get; init; }
+
     /// <summary>Speed at the mark, m/s.</summary>
     public double? SpeedMps { get; init; }
 
