@@ -192,12 +192,15 @@ public static class Simulator
                 brakeSwitch.Pedal(0, true);
             }
 
+            SimulatedMarkButton? markButton = scenario.Plan.MarkHeldAroundLaunchS is { } held
+                ? new SimulatedMarkButton(scenario.Plan.StageS - held, scenario.Plan.StageS + held)
+                : null;
             var loop = new CaptureLoop(
                 clock,
                 source,
                 accelerometer,
                 brakeSwitch,
-                null,
+                markButton,
                 null,
                 recorder,
                 accelerometer is null ? 1 : scenario.Accelerometer.FifoDepth,
@@ -242,6 +245,11 @@ public static class Simulator
                 if (brakeSwitch != null)
                 {
                     brakeSwitch.NowS = loopS;
+                }
+
+                if (markButton != null)
+                {
+                    markButton.NowS = loopS;
                 }
 
                 loop.Step();

@@ -5,7 +5,7 @@ using LaunchLogger.Archive.Tests.Support;
 using LaunchLogger.Cli;
 using LaunchLogger.Cli.Verbs;
 using LaunchLogger.Decoding.Reporting;
-using LaunchLogger.Tests.Shared;
+using LaunchLogger.Simulation.Box;
 
 namespace LaunchLogger.Archive.Tests;
 

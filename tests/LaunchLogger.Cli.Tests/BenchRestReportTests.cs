@@ -1,6 +1,7 @@
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using LaunchLogger.Cli.Verbs;
-using LaunchLogger.Tests.Shared;
+using LaunchLogger.Simulation.Box;
 
 namespace LaunchLogger.Cli.Tests;
 
@@ -60,5 +61,56 @@ public class BenchRestReportTests
         Assert.Equal(a.RootElement.GetProperty("runs").GetRawText(), b.RootElement.GetProperty("runs").GetRawText());
         Assert.Equal(1, b.RootElement.GetProperty("bench_rests").GetArrayLength());
         Assert.Equal(0, a.RootElement.GetProperty("bench_rests").GetArrayLength());
+    }
+
+    [Fact]
+    public void Report_json_md_lists_every_key_the_report_writes_for_a_bench_rest_and_at_the_top()
+    {
+        using var folder = new TempFolder();
+        string log = folder.File("bench.bin");
+        File.WriteAllBytes(log, [
+            .. SimulatedLogs.Default.LogBytes,
+            .. BenchRestLogs.Write(23, 4_000_000, new BenchRestLogs.Rest(9.8), new BenchRestLogs.Rest(-9.8, PulseAtS: 1), new BenchRestLogs.Rest(-9.8, ShutdownAtS: 2)),
+        ]);
+        var json = new StringWriter();
+
+        ReportCommand.Run(new ReportRequest { Logs = [new FileInfo(log)], Json = true }, json, new StringWriter());
+
+        using JsonDocument document = JsonDocument.Parse(json.ToString());
+        JsonElement rests = document.RootElement.GetProperty("bench_rests");
+        Assert.Equal(["complete", "spoiled_by_pulse", "cut_short"], rests.EnumerateArray().Select(r => r.GetProperty("outcome").GetString()));
+        Assert.Equal([4.0, 4.0, 4.0], rests.EnumerateArray().Select(r => r.GetProperty("length_s").GetDouble()));
+        Assert.InRange(rests[2].GetProperty("duration_s").GetDouble(), 2.0, 2.03);
+        Assert.All(rests.EnumerateArray(), r => Assert.Equal(0, r.GetProperty("frames_lost").GetInt64()));
+        Assert.All(rests.EnumerateArray(), r => Assert.Equal(0, r.GetProperty("samples_lost").GetInt64()));
+
+        string block = ReportJsonExample();
+        int restsAt = block.IndexOf("\"bench_rests\": [", StringComparison.Ordinal);
+        Assert.True(restsAt > 0, "REPORT-JSON.md has no bench_rests entry");
+        string restBlock = block[restsAt..block.IndexOf("\n  ]", restsAt, StringComparison.Ordinal)];
+        var documented = Regex.Matches(restBlock, "\"([a-z0-9_]+)\":").Select(m => m.Groups[1].Value).Where(k => k != "bench_rests").ToHashSet();
+        var written = rests[0].EnumerateObject().Select(p => p.Name).ToHashSet();
+        Assert.Equal(written.Order(), documented.Order());
+
+        // The top-level keys (two spaces in) are all documented, and nothing documented is gone.
+        var topDocumented = Regex.Matches(block, "^  \"([a-z0-9_]+)\":", RegexOptions.Multiline).Select(m => m.Groups[1].Value).ToHashSet();
+        var topWritten = document.RootElement.EnumerateObject().Select(p => p.Name).ToHashSet();
+        Assert.Equal(topWritten.Order(), topDocumented.Order());
+    }
+
+    /// <summary>The example document in host/LaunchLogger.Decoding/Reporting/REPORT-JSON.md.</summary>
+    private static string ReportJsonExample()
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir != null && !File.Exists(Path.Combine(dir.FullName, "LaunchLogger.sln")))
+        {
+            dir = dir.Parent;
+        }
+
+        Assert.NotNull(dir);
+        string text = File.ReadAllText(Path.Combine(dir.FullName, "host", "LaunchLogger.Decoding", "Reporting", "REPORT-JSON.md"));
+        int start = text.IndexOf("```jsonc", StringComparison.Ordinal);
+        int end = text.IndexOf("```", start + 8, StringComparison.Ordinal);
+        return text[start..end];
     }
 }

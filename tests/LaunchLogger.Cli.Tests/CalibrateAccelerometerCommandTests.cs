@@ -2,7 +2,7 @@ using System.Globalization;
 using System.Text;
 using LaunchLogger.Cli.Verbs;
 using LaunchLogger.Decoding.Calibration;
-using LaunchLogger.Tests.Shared;
+using LaunchLogger.Simulation.Box;
 
 namespace LaunchLogger.Cli.Tests;
 

@@ -28,6 +28,7 @@ public class ReportClosedFormTests
     private const double SecondDecel = 9.0;
     private const double MetresPerPulse = 0.02;
     private const double Foot = 0.3048; // exact (international yard and pound agreement, 1959)
+    private const double QuarterAfterRolloutS = 0.001; // see the quarter mile's check
 
     private static readonly Lazy<(string Edges, string Accel)> Inputs = new(WriteInputs);
 
@@ -62,7 +63,11 @@ public class ReportClosedFormTests
         double trap = (66 * Foot) / (quarter - TimeToDistance(1254 * Foot));
         JsonElement mark = Mark(run, "1320 ft (1/4 mile)");
         Near(quarter, mark.GetProperty("from_standstill_s").GetDouble(), 0.0015, "quarter mile from standstill");
-        Near(quarter - rollout, mark.GetProperty("from_rollout_s").GetDouble(), 0.0005, "quarter mile after rollout");
+        // The step falls on a sample (the first to read it is at T0), so the accelerometer can
+        // place it only within the millisecond before: the gap's middle, 0.5 ms early. The slip the
+        // undriven wheel is given against the accelerometer carries that into the quarter mile after
+        // rollout about one for one (measured: 0.14 ms for an onset moved 0.12 ms), hence 1 ms here.
+        Near(quarter - rollout, mark.GetProperty("from_rollout_s").GetDouble(), QuarterAfterRolloutS, "quarter mile after rollout");
         Near(trap, mark.GetProperty("trap_speed_mps").GetDouble(), 0.0005 * trap, "quarter-mile trap speed");
         Near(A * quarter, mark.GetProperty("speed_mps").GetDouble(), 0.0005 * A * quarter, "speed at the quarter mile");
     }
@@ -148,7 +153,7 @@ public class ReportClosedFormTests
         Near((zeroTo60 / cf) - (rollout * Math.Pow(cf, -1.0 / 3)), sixty.GetProperty("from_rollout_s").GetDouble(), 0.0005, "corrected 0-60 mph after rollout");
         JsonElement mark = Mark(corrected, "1320 ft (1/4 mile)");
         Near(quarter * Math.Pow(cf, -1.0 / 3), mark.GetProperty("from_standstill_s").GetDouble(), 0.0015, "corrected quarter mile");
-        Near((quarter - rollout) * Math.Pow(cf, -1.0 / 3), mark.GetProperty("from_rollout_s").GetDouble(), 0.0005, "corrected quarter mile after rollout");
+        Near((quarter - rollout) * Math.Pow(cf, -1.0 / 3), mark.GetProperty("from_rollout_s").GetDouble(), QuarterAfterRolloutS, "corrected quarter mile after rollout");
         double trap = (66 * Foot) / (quarter - TimeToDistance(1254 * Foot));
         Near(trap * Math.Pow(cf, 1.0 / 3), mark.GetProperty("trap_speed_mps").GetDouble(), 0.0005 * trap, "corrected trap speed");
     }

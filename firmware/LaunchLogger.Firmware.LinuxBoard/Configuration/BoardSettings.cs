@@ -27,6 +27,9 @@ public sealed class BoardSettings
     /// <summary>The live serial stream, or null for none.</summary>
     public SerialSection? Serial { get; set; }
 
+    /// <summary>The bench rest's hold and length, or null for the core's defaults (3 s, 20 s).</summary>
+    public BenchRestSection? BenchRest { get; set; }
+
     /// <summary>The car.</summary>
     public sealed class CarSection
     {
@@ -147,5 +150,17 @@ public sealed class BoardSettings
 
         /// <summary>The longest one write may block, milliseconds.</summary>
         public int WriteTimeoutMs { get; set; } = 250;
+    }
+
+    /// <summary>The bench rest (hardware-notes/calibration.md §5): the mark button held
+    /// <see cref="HoldMs"/> while staged arms it; from the release the accelerometer is recorded
+    /// for <see cref="LengthMs"/>.</summary>
+    public sealed class BenchRestSection
+    {
+        /// <summary>How long the mark button must be held while staged, milliseconds.</summary>
+        public int HoldMs { get; set; } = 3000;
+
+        /// <summary>How long the rest records from the button's release, milliseconds.</summary>
+        public int LengthMs { get; set; } = 20000;
     }
 }

@@ -106,6 +106,12 @@ public static class BoardSettingsFile
             logger.ForwardAxisReversed = board.Accelerometer.ForwardAxisReversed;
         }
 
+        if (board.BenchRest != null)
+        {
+            logger.BenchRestHoldMicros = board.BenchRest.HoldMs * 1000;
+            logger.BenchRestMicros = board.BenchRest.LengthMs * 1000;
+        }
+
         return logger;
     }
 
@@ -224,6 +230,30 @@ public static class BoardSettingsFile
             if (serial.WriteTimeoutMs < 1 || serial.WriteTimeoutMs > 10000)
             {
                 return "serial.write_timeout_ms must be from 1 to 10000 (was " + serial.WriteTimeoutMs + ")";
+            }
+        }
+
+        if (s.BenchRest is { } rest)
+        {
+            if (s.Accelerometer == null)
+            {
+                return "bench_rest needs an accelerometer section (a bench rest records the accelerometer)";
+            }
+
+            if (s.Inputs?.MarkPin == null)
+            {
+                return "bench_rest needs inputs.mark_pin (holding the mark button arms a bench rest)";
+            }
+
+            // The core's ranges (LoggerSettings.Validate), checked here in the file's units.
+            if (rest.HoldMs < 500 || rest.HoldMs > 60000)
+            {
+                return "bench_rest.hold_ms must be from 500 to 60000 (was " + rest.HoldMs + ")";
+            }
+
+            if (rest.LengthMs < 1000 || rest.LengthMs > 600000)
+            {
+                return "bench_rest.length_ms must be from 1000 to 600000 (was " + rest.LengthMs + ")";
             }
         }
 

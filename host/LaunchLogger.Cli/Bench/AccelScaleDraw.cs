@@ -30,8 +30,9 @@ public static class AccelScaleDraw
 
     /// <summary>The analysis options that tell the calibrations a user would have: the forward
     /// axis' scale (<paramref name="accel"/>) and a measured rolling circumference
-    /// (<paramref name="tyre"/>, metres, as <see cref="TyreCalibrationTold"/> gives it); null for none.</summary>
-    public static Decoding.Analysis.AnalysisOptions? Options(Estimate? accel, Estimate? tyre = null) => accel is null && tyre is null
+    /// (<paramref name="tyre"/>, metres, as <see cref="TyreCalibrationTold"/> gives it), or else the
+    /// static circumference the box holds, told as such (<paramref name="staticTyreM"/>); null for none.</summary>
+    public static Decoding.Analysis.AnalysisOptions? Options(Estimate? accel, Estimate? tyre = null, double? staticTyreM = null) => accel is null && tyre is null && staticTyreM is null
         ? null
         : new Decoding.Analysis.AnalysisOptions
         {
@@ -41,6 +42,7 @@ public static class AccelScaleDraw
                 AccelForwardScaleSigma = accel?.Sigma,
                 CircumferenceM = tyre?.Value,
                 CircumferenceSigmaM = tyre?.Sigma,
+                StaticCircumferenceM = tyre is null ? staticTyreM : null,
             },
         };
 

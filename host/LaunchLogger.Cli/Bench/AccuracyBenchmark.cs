@@ -42,7 +42,7 @@ public static class AccuracyBenchmark
         FigureSet naive;
         try
         {
-            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration));
+            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM));
             naive = NaiveFigures(run);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException)
@@ -59,8 +59,15 @@ public static class AccuracyBenchmark
             truthValues.Set(BenchFigure.BrakeOnset, onset).Set(BenchFigure.StoppingDistance, to - from);
         }
 
-        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking), FigureReading.FromFigures(naive))];
+        return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking), FigureReading.FromFigures(naive))
+            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth) }];
     }
+
+    /// <summary>The accelerometer's own distance at the first foot less the true distance then,
+    /// with its stated σ (m); null when the decoder gave none.</summary>
+    public static Estimate? AccelFirstFootError(ReconstructedRun ours, Trajectory truth) => ours.AccelOnlyFirstFoot is { } check
+        ? new Estimate(check.DistanceM - truth.ValueAt(truth.DistanceM, check.TimeS), check.SigmaM)
+        : null;
 
     /// <summary>The naive method's figures for <paramref name="run"/>, timed by the same
     /// <see cref="FigureCalculator"/> as ours.</summary>
@@ -85,6 +92,14 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
     /// <summary>True when a run that opened moving was given a figure from standstill.</summary>
     public bool StandingFigureOnRollingStart { get; init; }
 
+    /// <summary>The accelerometer's own distance at the first foot: its error against the truth
+    /// (m) with the σ the decoder states for it; null without one.</summary>
+    public Estimate? AccelFirstFoot { get; init; }
+
+    /// <summary>Per figure: true when the truth has it and the decoder reported none (it may
+    /// rightly decline one it cannot support; the count shows how often).</summary>
+    public bool[] Missed { get; init; } = new bool[BenchFigure.All.Count];
+
     /// <summary>False when the decoder split the record into a different number of runs.</summary>
     public bool RunsAsExpected { get; init; } = true;
 
@@ -101,12 +116,14 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
         int n = BenchFigure.All.Count;
         var o = new double?[n];
         var v = new double?[n];
+        var missed = new bool[n];
         for (int m = 0; m < n; m++)
         {
             o[m] = ours.Values[m] - truth.Values[m];
             v[m] = naive.Values[m] - truth.Values[m];
+            missed[m] = truth.Values[m] is not null && ours.Values[m] is null;
         }
 
-        return new(index, summary, group, o, v, ours.Sigmas, null);
+        return new(index, summary, group, o, v, ours.Sigmas, null) { Missed = missed };
     }
 }

@@ -16,6 +16,9 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
     /// <summary>The rolling circumference told as a measurement gives it (metres, with its σ), when the tyre is calibrated.</summary>
     public Decoding.Estimate? TyreCalibration { get; init; }
 
+    /// <summary>The static circumference told as such (the settings' <c>static_circumference_m</c>), metres, when the tyre is not calibrated.</summary>
+    public double? StaticTyreM { get; init; }
+
     /// <summary>The group the case is reported in.</summary>
     public BenchGroup Group => (HasAccelerometer, DrivenPickup, PollPeriodS) switch
     {
@@ -97,7 +100,7 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
             };
             string summary = FormattableString.Invariant(
                 $"{baseline.Name}, {toothCount} teeth on the {(driven || baseline.Vehicle.DrivenAxle == DrivenAxle.All ? "driven" : "undriven")} axle, {(exact ? "edge timestamps" : $"polled every {loopMicros:0} µs")}, {(accel ? $"accelerometer (pitch {pitch:+0.0;-0.0}°, scale {scaleError * 100:+0.00;-0.00} %)" : "no accelerometer")}");
-            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6) { AccelCalibration = accel ? told : null, TyreCalibration = calibratedTyre ? tyreTold : null });
+            cases.Add(new AccuracyCase(i, unchecked((seed * 7919) + i), scenario, summary, exact ? null : loopMicros * 1e-6) { AccelCalibration = accel ? told : null, TyreCalibration = calibratedTyre ? tyreTold : null, StaticTyreM = calibratedTyre ? null : scenario.Box.ConfiguredCircumferenceM });
         }
 
         return cases;

@@ -19,6 +19,9 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// <summary>The rolling circumference told as a measurement gives it (metres, with its σ), when the tyre is calibrated.</summary>
     public LaunchLogger.Decoding.Estimate? TyreCalibration { get; init; }
 
+    /// <summary>The static circumference told as such (the settings' <c>static_circumference_m</c>), metres, when the tyre is not calibrated.</summary>
+    public double? StaticTyreM { get; init; }
+
     private const double Mph = 0.44704;
 
     private static readonly (BenchGroup Group, double Share)[] Shares =
@@ -95,7 +98,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             };
             bool asLog = i % 2 == 1;
             string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz, scale {scaleError * 100:+0.00;-0.00} %; braked tyre C {brake.SlipStiffness:0.0}; {(asLog ? "log" : "CSV")}");
-            cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary) { AccelCalibration = told, TyreCalibration = calibratedTyre ? tyreTold : null });
+            cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary) { AccelCalibration = told, TyreCalibration = calibratedTyre ? tyreTold : null, StaticTyreM = calibratedTyre ? null : tyre.StatedCircumferenceM });
         }
 
         var switchRandom = new Random(unchecked((seed * 131) + 11));
@@ -108,7 +111,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
                 Polled = stop.Spec.Polled is { } p ? p with { StallS = 0.02 } : null,
             };
             string summary = Invariant($"{stop.Summary.Replace("; CSV", "; log", StringComparison.Ordinal)}; brake switch {delay * 1e3:0.0} ms{(spec.Polled is null ? "" : ", 20 ms stalls")}");
-            cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary) { AccelCalibration = stop.AccelCalibration, TyreCalibration = stop.TyreCalibration });
+            cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary) { AccelCalibration = stop.AccelCalibration, TyreCalibration = stop.TyreCalibration, StaticTyreM = stop.StaticTyreM });
         }
 
         return cases;

@@ -18,7 +18,7 @@ public static class PrescribedBenchmark
         SessionAnalysis session;
         try
         {
-            session = c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration), cancel: cancel) : AnalyzeFiles(record, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration), cancel);
+            session = c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM), cancel: cancel) : AnalyzeFiles(record, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM), cancel);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException or InputException)
         {

@@ -5,6 +5,7 @@ using LaunchLogger.Decoding.Reporting;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Firmware.Wire;
 using LaunchLogger.Simulation;
+using LaunchLogger.Simulation.Box;
 using LaunchLogger.Simulation.Scenarios;
 
 namespace LaunchLogger.Cli.Bench;
@@ -43,8 +44,10 @@ public static class RobustnessBenchmark
         FieldChange,
     }
 
-    /// <summary>What one case did.</summary>
-    public sealed record Outcome(int Index, Kind Kind, string? Crash, bool Hung, long AllocatedBytes, double Seconds, long Undamaged, long Recovered);
+    /// <summary>What one case did: <paramref name="Base"/> is the index of the log it damaged,
+    /// <paramref name="Rests"/> the outcome of every bench rest the report listed ("complete",
+    /// "spoiled_by_pulse", "cut_short", "unfinished").</summary>
+    public sealed record Outcome(int Index, Kind Kind, int Base, string? Crash, bool Hung, long AllocatedBytes, double Seconds, long Undamaged, long Recovered, IReadOnlyList<string> Rests);
 
     /// <summary>Limits each case runs under.</summary>
     public sealed record Limits(TimeSpan PerCase, long AllocatedBytes)
@@ -53,17 +56,29 @@ public static class RobustnessBenchmark
         public static Limits Default { get; } = new(TimeSpan.FromSeconds(10), 512L * 1024 * 1024);
     }
 
-    /// <summary>The simulated logs mutated: built-in scenarios, seeded.</summary>
+    /// <summary>The logs mutated, seeded: two built-in scenarios; bench rests written by the
+    /// firmware core (<see cref="BenchRestLogs"/>) — one whole, one spoiled by a pulse, one whole,
+    /// one cut short by a shutdown; and a scenario's run followed by a power-up of rests, so that
+    /// damage also falls between runs and rests.</summary>
     public static IReadOnlyList<byte[]> BaseLogs(int seed) =>
     [
         Simulator.Run(BuiltInScenarios.Default, seed).LogBytes,
         Simulator.Run(BuiltInScenarios.Get("brake-test-60"), seed + 1).LogBytes,
+        BenchRestLogs.Write(seed + 2, RestMicros, new(9.8), new(-9.8, PulseAtS: 1.5), new(-9.8), new(9.8, ShutdownAtS: 2.5)),
+        [
+            .. Simulator.Run(BuiltInScenarios.Default, seed + 3).LogBytes,
+            .. BenchRestLogs.Write(seed + 4, RestMicros, new(9.8), new(-9.8, ShutdownAtS: 1)),
+        ],
     ];
+
+    /// <summary>The bench rests' set length in <see cref="BaseLogs"/>: 4 s, shorter than the box's
+    /// 20 s so that a rest's log stays about the size of a run's.</summary>
+    private const int RestMicros = 4_000_000;
 
     /// <summary>Runs case <paramref name="index"/> of the set seeded by <paramref name="seed"/>.</summary>
     public static Outcome RunCase(IReadOnlyList<byte[]> bases, int seed, int index, Limits limits)
     {
-        (Kind kind, byte[] original, byte[] log, List<(int Start, int End)> damaged) = Case(bases, seed, index);
+        (Kind kind, int baseIndex, byte[] original, byte[] log, List<(int Start, int End)> damaged) = Case(bases, seed, index);
         long undamaged = 0;
         long recovered = 0;
         if (kind is Kind.BitFlips or Kind.Cut or Kind.Garbage)
@@ -72,6 +87,7 @@ public static class RobustnessBenchmark
         }
 
         string? crash = null;
+        IReadOnlyList<string> rests = [];
         long allocated = 0;
         var clock = Stopwatch.StartNew();
         var worker = new Thread(() =>
@@ -80,7 +96,7 @@ public static class RobustnessBenchmark
             long before = GC.GetTotalAllocatedBytes(precise: true);
             try
             {
-                DecodeAndReport(log);
+                rests = Decode(log).Rests.Select(r => r.Outcome).ToList();
             }
             catch (Exception e)
             {
@@ -92,39 +108,44 @@ public static class RobustnessBenchmark
         { IsBackground = true, Name = "robustness case " + index };
         worker.Start();
         bool finished = worker.Join(limits.PerCase);
-        return new Outcome(index, kind, crash, !finished, allocated, clock.Elapsed.TotalSeconds, undamaged, recovered);
+        return new Outcome(index, kind, baseIndex, crash, !finished, allocated, clock.Elapsed.TotalSeconds, undamaged, recovered, finished ? rests : []);
     }
 
     /// <summary>The damaged log of case <paramref name="index"/> of the set seeded by
     /// <paramref name="seed"/> (as <see cref="RunCase"/> decodes it), and its kind of damage.</summary>
     public static (byte[] Log, Kind Kind) DamagedLog(IReadOnlyList<byte[]> bases, int seed, int index)
     {
-        (Kind kind, _, byte[] log, _) = Case(bases, seed, index);
+        (Kind kind, _, _, byte[] log, _) = Case(bases, seed, index);
         return (log, kind);
     }
 
-    private static (Kind Kind, byte[] Original, byte[] Log, List<(int Start, int End)> Damaged) Case(IReadOnlyList<byte[]> bases, int seed, int index)
+    private static (Kind Kind, int Base, byte[] Original, byte[] Log, List<(int Start, int End)> Damaged) Case(IReadOnlyList<byte[]> bases, int seed, int index)
     {
         // Not HashCode.Combine: its seed changes with every process, so the cases would too.
         var random = new Random(unchecked((seed * 1_000_003) + (index * 7919) + 0x5eed));
         var kind = (Kind)(index % Enum.GetValues<Kind>().Length);
-        byte[] original = bases[random.Next(bases.Count)];
+        int baseIndex = random.Next(bases.Count);
+        byte[] original = bases[baseIndex];
         (byte[] log, List<(int Start, int End)> damaged) = Mutate(kind, original, bases, random);
-        return (kind, original, log, damaged);
+        return (kind, baseIndex, original, log, damaged);
     }
 
-    /// <summary>The whole decoder, as <c>report --json</c> runs it.</summary>
-    public static string DecodeAndReport(byte[] log)
+    /// <summary>The whole decoder, as <c>report --json</c> runs it: the JSON, or "" when the
+    /// log holds neither runs nor bench rests.</summary>
+    public static string DecodeAndReport(byte[] log) => Decode(log).Json;
+
+    private static (string Json, IReadOnlyList<BenchRestReport> Rests) Decode(byte[] log)
     {
         LogReadResult read = LogReader.Read(log, "case.log");
         SessionAnalysis session = SessionAnalyzer.Analyze(read.Runs);
-        if (session.Runs.Count == 0)
+        List<BenchRestReport> rests = read.BenchRests.Select(BenchRestReport.From).ToList();
+        if (session.Runs.Count == 0 && rests.Count == 0)
         {
-            return "";
+            return ("", rests);
         }
 
-        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, read.Source, ReaderReport.From(read.Stats), weather: null, pairs: []);
-        return ReportJson.Serialize(document);
+        ReportDocument document = RunReportBuilder.Document(session, ToolInfo.Version, read.Source, ReaderReport.From(read.Stats), weather: null, pairs: []) with { BenchRests = rests };
+        return (ReportJson.Serialize(document), rests);
     }
 
     private static (byte[] Log, List<(int Start, int End)> Damaged) Mutate(Kind kind, byte[] original, IReadOnlyList<byte[]> bases, Random random)

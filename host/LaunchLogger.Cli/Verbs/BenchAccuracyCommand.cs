@@ -49,7 +49,7 @@ public static class BenchAccuracyCommand
             return ExitCode.Cancelled;
         }
 
-        string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, grows with speed)")
+        string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
             + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)");
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch), seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (groups is { Count: > 0 })
@@ -94,6 +94,27 @@ public static class BenchAccuracyCommand
         _ => group.ToString(),
     };
 
+    /// <summary>The figures the truth has where the decoder reported none (a speed it did not
+    /// clearly pass, a mark after the acceleration ended): each with how many of the runs that
+    /// have it in truth.</summary>
+    private static void MissedLine(List<CaseOutcome> runs, TextWriter output)
+    {
+        var missed = new List<string>();
+        for (int m = 0; m < BenchFigure.All.Count; m++)
+        {
+            int k = runs.Count(o => o.Missed[m]);
+            if (k > 0)
+            {
+                missed.Add(Text($"{BenchFigure.All[m].Name} {k} of {k + runs.Count(o => o.Ours[m] is not null)}"));
+            }
+        }
+
+        if (missed.Count > 0)
+        {
+            output.WriteLine($"  not reported where the truth has it: {string.Join("; ", missed)}");
+        }
+    }
+
     private static void WriteGroup(BenchGroup group, List<CaseOutcome> runs, int runsSplitWrongly, bool calibratedTyre, TextWriter output)
     {
         output.WriteLine();
@@ -127,6 +148,8 @@ public static class BenchAccuracyCommand
             output.WriteLine(Text($"  {figure.Name,-26} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}"));
         }
 
+        AccelFirstFootLine(runs, output);
+        MissedLine(runs, output);
         output.WriteLine("  goals:");
         output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {(coverageShort.Count == 0 ? "met" : "NOT met (" + string.Join("; ", coverageShort) + ")")}"));
         switch (group)
@@ -181,6 +204,25 @@ public static class BenchAccuracyCommand
         output.WriteLine(Text($"    {text}: {p95:0.000} {figure.Unit} over {ours.Length} runs — {verdict}"));
     }
 
+    /// <summary>The accelerometer's own distance at the first foot (what the launch-slip allowance
+    /// weighs the pulses against): its error and the coverage of the σ stated for it.</summary>
+    private static void AccelFirstFootLine(List<CaseOutcome> runs, TextWriter output)
+    {
+        var checks = runs.Where(o => o.AccelFirstFoot is { Sigma: > 0 }).Select(o => o.AccelFirstFoot!.Value).ToList();
+        if (checks.Count == 0)
+        {
+            return;
+        }
+
+        double[] errors = Percentiles.AbsSorted(checks.Select(c => (double?)c.Value), 1000);
+        double[] sigmas = checks.Select(c => c.Sigma * 1000).Order().ToArray();
+        double cover2 = 100.0 * checks.Count(c => Math.Abs(c.Value) <= 2 * c.Sigma) / checks.Count;
+        double cover3 = 100.0 * checks.Count(c => Math.Abs(c.Value) <= 3 * c.Sigma) / checks.Count;
+        double meanZ = checks.Average(c => c.Value / c.Sigma);
+        double rmsZ = Math.Sqrt(checks.Average(c => c.Value * c.Value / (c.Sigma * c.Sigma)));
+        output.WriteLine(Text($"  accelerometer's own distance at 1 ft: |error| p50 {Percentiles.Of(errors, 0.5):0.00} p95 {Percentiles.Of(errors, 0.95):0.00} max {Percentiles.Max(errors):0.00} mm, σ p50 {Percentiles.Of(sigmas, 0.5):0.00} mm; error/σ mean {meanZ:+0.00;-0.00} rms {rmsZ:0.00}; ±2σ {cover2:0.0} %, ±3σ {cover3:0.0} % of {checks.Count}"));
+    }
+
     /// <summary>Percentage of runs with a figure and a σ whose error is within ±k·σ.</summary>
     private static double Coverage(List<CaseOutcome> runs, int m, double k)
     {
@@ -206,6 +248,11 @@ public static class BenchAccuracyCommand
                 double scale = BenchFigure.All[m].Scale;
                 string miss = o.Ours[m] is { } e && o.OurSigmas[m] is { } sd && sd > 0 && Math.Abs(e / sd) > 2 ? Text($"({e / sd:+0.0;-0.0}σ)") : "";
                 cells.Add(Text($"{o.Ours[m] * scale:+0.00;-0.00;0}{miss}/{o.Naive[m] * scale:+0.0;-0.0;0}"));
+            }
+
+            if (o.AccelFirstFoot is { Sigma: > 0 } foot)
+            {
+                cells.Add(Text($"acc 1 ft {foot.Value * 1000:+0.0;-0.0} mm ({foot.Value / foot.Sigma:+0.0;-0.0}σ)"));
             }
 
             output.WriteLine($"  {o.Index,4} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using LaunchLogger.Cli.Bench;
+using LaunchLogger.Decoding.Runs;
 
 namespace LaunchLogger.Cli.Verbs;
 
@@ -29,6 +30,7 @@ public static class BenchRobustnessCommand
         }
 
         IReadOnlyList<byte[]> bases = RobustnessBenchmark.BaseLogs(seed);
+        bool[] baseHoldsRests = bases.Select(b => LogReader.Read(b, "base.log").BenchRests.Count > 0).ToArray();
         var outcomes = new List<RobustnessBenchmark.Outcome>(Math.Min(cases, 1_000_000));
         var clock = System.Diagnostics.Stopwatch.StartNew();
         for (int i = 0; i < cases; i++)
@@ -60,12 +62,15 @@ public static class BenchRobustnessCommand
         int overMemory = outcomes.Count(o => o.AllocatedBytes > limits.AllocatedBytes);
         RobustnessBenchmark.Outcome largest = outcomes.MaxBy(o => o.AllocatedBytes)!;
         RobustnessBenchmark.Outcome slowest = outcomes.MaxBy(o => o.Seconds)!;
-        output.WriteLine($"bench robustness: {outcomes.Count} cases, seed {seed}, {bases.Count} simulated logs; limits {limits.PerCase.TotalSeconds:0} s and {limits.AllocatedBytes / 1048576} MB allocated per case");
+        output.WriteLine($"bench robustness: {outcomes.Count} cases, seed {seed}, {bases.Count} logs ({baseHoldsRests.Count(h => h)} with bench rests); limits {limits.PerCase.TotalSeconds:0} s and {limits.AllocatedBytes / 1048576} MB allocated per case");
         output.WriteLine(string.Create(inv, $"  cases                       {outcomes.Count}{(outcomes.Count < cases ? $" of {cases} asked (cancelled)" : "")}, {outcomes.Count / clock.Elapsed.TotalSeconds:0.0} cases/s"));
         output.WriteLine(string.Create(inv, $"  crashes                     {crashes}"));
         output.WriteLine(string.Create(inv, $"  hangs                       {hangs}"));
         output.WriteLine(string.Create(inv, $"  over the allocation limit   {overMemory}"));
         output.WriteLine(string.Create(inv, $"  undamaged frames recovered  {recovered} of {undamaged} ({(undamaged == 0 ? 100 : 100.0 * recovered / undamaged):0.000} %)"));
+        int casesWithRests = outcomes.Count(o => baseHoldsRests[o.Base]);
+        string restsRead = string.Join(", ", outcomes.SelectMany(o => o.Rests).GroupBy(r => r).OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Count()} {g.Key}"));
+        output.WriteLine(string.Create(inv, $"  cases on logs with rests    {casesWithRests}; bench rests reported {outcomes.Sum(o => o.Rests.Count)}{(restsRead.Length > 0 ? $" ({restsRead})" : "")}"));
         output.WriteLine(string.Create(inv, $"  largest allocation          {largest.AllocatedBytes / 1048576.0:0.0} MB (case {largest.Index}, {largest.Kind})"));
         output.WriteLine(string.Create(inv, $"  slowest case                {slowest.Seconds:0.000} s (case {slowest.Index}, {slowest.Kind})"));
         foreach (IGrouping<RobustnessBenchmark.Kind, RobustnessBenchmark.Outcome> kind in outcomes.GroupBy(o => o.Kind).OrderBy(g => g.Key))

@@ -15,6 +15,7 @@ public static class CalibrateCommand
             "and save them in a settings file for report --settings. Calibration runs are runs: closed ground only, never public roads.")
         {
             CalibrateDistanceCommand.Create(),
+            CalibrateTyreSizeCommand.Create(),
             CalibrateAccelerometerCommand.Create(),
             CalibrateMountingCommand.Create(),
             CalibrateTeethCommand.Create(),

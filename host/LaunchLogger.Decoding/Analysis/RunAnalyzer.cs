@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reconstruction;
@@ -23,6 +24,16 @@ public static class RunAnalyzer
         {
             // A measured circumference brings its own σ in place of the static value's.
             reconstructionOptions = reconstructionOptions with { CircumferenceSigmaFraction = circumferenceSigma / circumference };
+        }
+        else if (options.Calibration is { CircumferenceM: null, StaticCircumferenceM: > 0 })
+        {
+            // A static circumference (applied to the run as its configured one): a loaded tyre
+            // rolls on a little less and grows with speed, as a typical tyre does.
+            reconstructionOptions = reconstructionOptions with
+            {
+                RollingOverToldCircumference = TyrePrior.RollingOverStatic,
+                TyreGrowthAt30Mps = TyrePrior.GrowthAt30Mps,
+            };
         }
         if (options.Calibration is { AccelForwardScale: > 0 and { } accelScale, AccelForwardScaleSigma: { } accelScaleSigma })
         {
@@ -62,7 +73,7 @@ public static class RunAnalyzer
             Reconstruction = reconstruction,
             Figures = figures,
             Braking = braking,
-            Warnings = run.Warnings.Concat(reconstruction.Warnings).Distinct().ToList(),
+            Warnings = run.Warnings.Concat(reconstruction.Warnings).Concat(NotClearlyReachedNotes(figures)).Distinct().ToList(),
             Grade = grade,
             LevelFigures = level,
             StandardAirFigures = standardAir,
@@ -72,6 +83,11 @@ public static class RunAnalyzer
     /// <summary>The pedal's first movement at each closing of the brake switch: the event's time,
     /// less the loop's lag (from the gap the event records, or from the run's brackets) and the
     /// switch's delay (measured, or the prior).</summary>
+    /// <summary>A note for each interval crossed but not clearly passed, so a user sees why it is blank.</summary>
+    private static IEnumerable<string> NotClearlyReachedNotes(FigureSet figures) =>
+        figures.NotClearlyReached.Select(d => FormattableString.Invariant(
+            $"{d.Interval.Label} not timed: the speed went only to {d.TopMps / Units.MpsPerMph:0.0} mph ({d.TopMps / Units.MpsPerKmh:0.0} km/h), within 2σ (σ {d.SigmaMps / Units.MpsPerKmh:0.00} km/h) of the interval's end, so the data cannot show the end speed was reached"));
+
     private static Estimate[] BrakeSwitchOnsets(DecodedRun run, ReconstructedRun reconstruction, AnalysisOptions options)
     {
         RunEvent[] closings = run.Events.Where(e => e.Kind == EventKind.BrakeOn).ToArray();

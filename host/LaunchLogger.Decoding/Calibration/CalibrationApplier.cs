@@ -8,7 +8,8 @@ namespace LaunchLogger.Decoding.Calibration;
 /// <remarks>
 /// <para>Applied: the rolling circumference, which replaces the configured one and with it the
 /// distance per pulse of the distance channel (the second channel, on another wheel, keeps its
-/// own). A note in the run's warnings says what changed.</para>
+/// own), or else a static circumference, which does the same and which <see cref="Analysis.RunAnalyzer"/>
+/// then reads as a static one (<see cref="TyrePrior"/>). A note in the run's warnings says what changed.</para>
 /// <para>Applied by <see cref="Analysis.RunAnalyzer"/> through the reconstruction's options, not
 /// here: the accelerometer's forward scale (<see cref="CalibrationSettings.AccelForwardScale"/>),
 /// which divides the forward input and lets a standing start measure the pulses' scale.</para>
@@ -29,13 +30,16 @@ public static class CalibrationApplier
         ArgumentNullException.ThrowIfNull(settings);
         RunConfiguration configuration = run.Configuration;
         var notes = new List<string>();
-        if (settings.CircumferenceM is { } circumference)
+        bool rolled = settings.CircumferenceM is not null;
+        if ((settings.CircumferenceM ?? settings.StaticCircumferenceM) is { } circumference)
         {
             if (configuration.PulsesPerRevolution > 0)
             {
                 double old = configuration.CircumferenceM;
                 string change = old > 0 ? Invariant($" ({(circumference / old) - 1:+0.00%;-0.00%;0.00%})") : "";
-                notes.Add(Invariant($"calibration: rolling circumference {circumference:0.00000} m from the settings replaces the configured {old:0.00000} m{change}"));
+                notes.Add(rolled
+                    ? Invariant($"calibration: rolling circumference {circumference:0.00000} m from the settings replaces the configured {old:0.00000} m{change}")
+                    : Invariant($"calibration: static circumference {circumference:0.00000} m from the settings replaces the configured {old:0.00000} m{change}; the tyre is taken to roll on {(1 - TyrePrior.RollingOverStatic) * 100:0.#} % less ± {new Reconstruction.ReconstructionOptions().CircumferenceSigmaFraction * 100:0.#} % and to grow by {TyrePrior.GrowthAt30Mps * 100:0.##} % at 30 m/s (measure it by rolling: hardware-notes/calibration.md §1)"));
                 configuration = configuration with
                 {
                     CircumferenceM = circumference,

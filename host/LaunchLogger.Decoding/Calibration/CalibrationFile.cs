@@ -114,6 +114,11 @@ public static class CalibrationFile
             return Invariant($"circumference_m must be between 0.1 and 10 m (was {c})");
         }
 
+        if (settings.StaticCircumferenceM is { } sc && !(sc > 0.1 && sc < 10))
+        {
+            return Invariant($"static_circumference_m must be between 0.1 and 10 m (was {sc})");
+        }
+
         if (settings.CircumferenceSigmaM is { } cs && !(cs >= 0 && cs < 1))
         {
             return Invariant($"circumference_sigma_m must be from 0 to 1 m (was {cs})");

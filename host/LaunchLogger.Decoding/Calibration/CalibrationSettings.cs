@@ -26,6 +26,13 @@ public sealed record CalibrationSettings
     /// <summary>1-σ of <see cref="CircumferenceM"/>, m.</summary>
     public double? CircumferenceSigmaM { get; init; }
 
+    /// <summary>The distance channel's tyre measured unloaded (a tape round the tread at the
+    /// pressure you run) or worked out from its size, m, for a car whose rolling circumference is
+    /// not measured yet; ignored when <see cref="CircumferenceM"/> is given. It replaces the log's
+    /// configured value, and the reconstruction takes the tyre to roll on a little less and to grow
+    /// with speed as a typical tyre does (<see cref="TyrePrior"/>), within the uncalibrated σ.</summary>
+    public double? StaticCircumferenceM { get; init; }
+
     /// <summary>Pitch of the box on the car (nose-up positive), degrees, including the forward
     /// axis' bias as an equivalent angle: the resting pitch on level ground. Subtracted from the
     /// resting pitch at staging to give the road's grade.</summary>

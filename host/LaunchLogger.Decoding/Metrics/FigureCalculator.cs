@@ -23,6 +23,10 @@ public static class FigureCalculator
     /// top speed is not yet coasting), m/s; widened by 3σ of the speed there.</summary>
     public const double TopSpeedToleranceMps = 0.1;
 
+    /// <summary>An interval's end speed counts as reached when the speed goes on past it by this
+    /// many σ of the speed there.</summary>
+    public const double ClearPassSigmas = 2;
+
     /// <summary>Computes the figures.</summary>
     /// <param name="trajectory">Distance 0 at first motion; times on the input's axis.</param>
     /// <param name="firstMotionS">First motion, s, with its σ.</param>
@@ -49,9 +53,10 @@ public static class FigureCalculator
         Estimate? rolloutSpeed = rollout is { } r ? At(trajectory, trajectory.SpeedMps, trajectory.SpeedSigmaMps, r.Value) : null;
 
         var intervals = new List<IntervalFigure>(request.SpeedIntervals.Count);
+        var declined = new List<(SpeedInterval, double, double)>();
         foreach (SpeedInterval interval in request.SpeedIntervals)
         {
-            intervals.Add(standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval) : RollingInterval(trajectory, start, endS, interval));
+            intervals.Add(standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, interval, declined) : RollingInterval(trajectory, start, endS, interval, declined));
         }
 
         var marks = new List<MarkFigure>(request.DistanceMarks.Count);
@@ -68,7 +73,7 @@ public static class FigureCalculator
             maxSpeed = Math.Max(maxSpeed, trajectory.SpeedMps[i]);
         }
 
-        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, SpeedInterval.Mph(0, 60)).FromStandstillS : null;
+        double? zeroTo60 = standingStart ? TimeInterval(trajectory, start, endS, firstMotionS, rollout, SpeedInterval.Mph(0, 60), null).FromStandstillS : null;
         return new FigureSet
         {
             FirstMotionS = firstMotionS,
@@ -81,6 +86,7 @@ public static class FigureCalculator
             MeanAccel0To60Mps2 = zeroTo60 is > 0 ? 60 * Units.MpsPerMph / zeroTo60.Value : null,
             MaxSpeedMps = maxSpeed,
             DistanceM = trajectory.Count > 0 ? trajectory.DistanceM[^1] : 0,
+            NotClearlyReached = declined,
         };
     }
 
@@ -146,11 +152,24 @@ public static class FigureCalculator
         return Math.Min(i, Math.Max(0, timeS.Length - 1));
     }
 
-    private static IntervalFigure TimeInterval(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, SpeedInterval interval)
+    // declined: where an interval whose end speed is crossed but not clearly passed is listed,
+    // with the top speed reached and the speed's σ at the crossing; null for none.
+    private static IntervalFigure TimeInterval(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, SpeedInterval interval, List<(SpeedInterval, double, double)>? declined)
     {
         Estimate? end = SpeedCrossing(trajectory, start, interval.ToMps, endS);
         if (end is not { } e)
         {
+            return new IntervalFigure(interval, null, null, null, null);
+        }
+
+        // Timed only when the speed goes on past the end speed by 2σ before the acceleration ends:
+        // a car that holds it, or tops out just above it, may not have reached it at all, and
+        // where the speed runs flat the crossing is anywhere along the flat.
+        double top = TopSpeed(trajectory, e.Value, endS);
+        double sigmaV = trajectory.SpeedSigmaMps is { } sv ? trajectory.ValueAt(sv, e.Value) : 0;
+        if (top < interval.ToMps + (ClearPassSigmas * sigmaV))
+        {
+            declined?.Add((interval, top, sigmaV));
             return new IntervalFigure(interval, null, null, null, null);
         }
 
@@ -175,14 +194,14 @@ public static class FigureCalculator
 
     /// <summary>A rolling interval of a trajectory that opens moving: timed only when the speed
     /// at the start is below the interval's lower speed, so that both ends are real crossings.</summary>
-    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, double endS, SpeedInterval interval)
+    private static IntervalFigure RollingInterval(Trajectory trajectory, int start, double endS, SpeedInterval interval, List<(SpeedInterval, double, double)> declined)
     {
         if (interval.IsStanding || trajectory.SpeedMps[start] >= interval.FromMps)
         {
             return new IntervalFigure(interval, null, null, null, null);
         }
 
-        return TimeInterval(trajectory, start, endS, new Estimate(trajectory.TimeS[start], 0), null, interval);
+        return TimeInterval(trajectory, start, endS, new Estimate(trajectory.TimeS[start], 0), null, interval, declined);
     }
 
     private static MarkFigure TimeMark(Trajectory trajectory, int start, double endS, Estimate firstMotion, Estimate? rollout, DistanceMark mark)
@@ -246,6 +265,18 @@ public static class FigureCalculator
         }
 
         return null;
+    }
+
+    /// <summary>The highest speed from <paramref name="fromS"/> up to <paramref name="endS"/>, m/s.</summary>
+    private static double TopSpeed(Trajectory trajectory, double fromS, double endS)
+    {
+        double top = trajectory.ValueAt(trajectory.SpeedMps, fromS);
+        for (int i = FirstIndexAtOrAfter(trajectory.TimeS, fromS); i < trajectory.Count && trajectory.TimeS[i] <= endS; i++)
+        {
+            top = Math.Max(top, trajectory.SpeedMps[i]);
+        }
+
+        return top;
     }
 
     private static Estimate At(Trajectory trajectory, double[] values, double[]? sigmas, double time) =>

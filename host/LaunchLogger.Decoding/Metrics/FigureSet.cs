@@ -67,4 +67,9 @@ public sealed record FigureSet
 
     /// <summary>Distance covered from standstill to the end of the trajectory, m.</summary>
     public required double DistanceM { get; init; }
+
+    /// <summary>Intervals whose end speed was crossed but not clearly passed (within 2σ of the
+    /// top speed before the acceleration ended), so not timed: each with the highest speed reached
+    /// before the acceleration ended and the speed's σ at the crossing, m/s.</summary>
+    public IReadOnlyList<(SpeedInterval Interval, double TopMps, double SigmaMps)> NotClearlyReached { get; init; } = [];
 }

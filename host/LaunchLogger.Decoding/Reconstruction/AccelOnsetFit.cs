@@ -25,10 +25,12 @@ internal enum OnsetShape
 
 /// <summary>Finds the onset of acceleration as a change point: zero before t₀, one of the
 /// <see cref="OnsetShape"/>s after it, fitted by least squares over a window that ends where the
-/// rise has reached a quarter of its early height, with t₀ on a grid of a quarter sample. The shape is
-/// chosen by the Bayesian information criterion; the σ of t₀ is the half-width of the profile
-/// where the residual sum of squares stays within one noise variance of its minimum, widened by
-/// the other shapes' onsets weighted by their odds.</summary>
+/// rise has reached a quarter of its early height, with t₀ on a grid of a quarter sample (a jump's
+/// fit is flat between two samples: its t₀ is the best gap's middle). The shape is chosen by the
+/// Bayesian information criterion, each shape at its own least residual; the σ of t₀ is the
+/// half-width of the profile where the residual sum of squares stays within one noise variance of
+/// its minimum (a jump's: its gap/√12), widened by the other shapes' onsets weighted by their
+/// odds.</summary>
 /// <remarks>Change-point estimation by least squares with a profile over the change time:
 /// D. V. Hinkley (1970), "Inference about the change-point in a sequence of random variables",
 /// Biometrika 57(1); segmented regression with a continuous join: D. J. Hudson (1966), "Fitting
@@ -37,6 +39,13 @@ internal enum OnsetShape
 internal static class AccelOnsetFit
 {
     private const int Shapes = 4;
+
+    /// <summary>A sample this close after a candidate onset counts as before it, seconds. A box that
+    /// times its samples evenly in whole microseconds puts the coarse candidates (whole periods from a
+    /// sample time) on sample times to within rounding; without the tie a rounding either way decides
+    /// which side that sample falls on, and two neighbouring candidates can both miss the split a jump
+    /// needs.</summary>
+    private const double TieS = 1e-7;
 
     /// <summary>Finds the onset in the readings less the level (forward acceleration minus the resting
     /// level) between samples <paramref name="from"/> and <paramref name="to"/>.</summary>
@@ -142,22 +151,35 @@ internal static class AccelOnsetFit
 
         double noiseVar = sigma * sigma;
         double logN = Math.Log(Math.Max(end - start + 1, 2));
+        int dof = Math.Max(end - start + 1 - 3, 1);
+        double leastCoarse = double.MaxValue;
+        for (int m = 0; m < Shapes; m++)
+        {
+            leastCoarse = Math.Min(leastCoarse, coarse[m][ArgMin(coarse[m])]);
+        }
+
+        // Residuals beyond the noise (a shape none of ours fits) widen the profile's allowance.
+        double scale = Math.Max(1, leastCoarse / (noiseVar * dof));
+        double rise = noiseVar * correlation * correlation * scale;
+
+        // Each shape is judged at its own best onset, not at the coarse grid's: a jump's fit is
+        // exact anywhere in the right gap between samples, a ramp's only at its own onset, so on
+        // whole samples a ramp would lose to the jump that any ramp also is (c₀ = c₁·(t₀ − t_r)).
+        var fine = new Fine[Shapes];
         Span<double> bic = stackalloc double[Shapes];
         int bestShape = 0;
         for (int m = 0; m < Shapes; m++)
         {
+            fine[m] = FineFit(t, y, start, end, total, first, period, coarse[m], m, rise);
             int parameters = m is (int)OnsetShape.Ramp or (int)OnsetShape.Quadratic ? 2 : 3;
-            bic[m] = (coarse[m][ArgMin(coarse[m])] / noiseVar) + (parameters * logN);
+            bic[m] = (fine[m].Sse / noiseVar) + (parameters * logN);
             if (bic[m] < bic[bestShape])
             {
                 bestShape = m;
             }
         }
 
-        int dof = Math.Max(end - start + 1 - 3, 1);
-        double scale = Math.Max(1, coarse[bestShape][ArgMin(coarse[bestShape])] / (noiseVar * dof));
-        double rise = noiseVar * correlation * correlation * scale;
-        Fine best = Refine(t, y, start, end, total, first, period, coarse[bestShape], bestShape, rise);
+        Fine best = fine[bestShape];
 
         // The other shapes widen the answer by their onsets' second moment about the chosen one,
         // each weighted by its posterior odds exp(−ΔBIC/2) (Schwarz's approximation; model
@@ -171,9 +193,8 @@ internal static class AccelOnsetFit
             double odds = m == bestShape ? 0 : Math.Exp(-0.5 * (bic[m] - bic[bestShape]));
             if (odds > 1e-4)
             {
-                Fine other = Refine(t, y, start, end, total, first, period, coarse[m], m, rise);
                 weightSum += odds;
-                moment += odds * (other.TimeS - best.TimeS) * (other.TimeS - best.TimeS);
+                moment += odds * (fine[m].TimeS - best.TimeS) * (fine[m].TimeS - best.TimeS);
             }
         }
 
@@ -186,24 +207,82 @@ internal static class AccelOnsetFit
         return new AccelOnset(best.TimeS, sigmaT, (OnsetShape)bestShape, tCross);
     }
 
-    private readonly record struct Fine(double TimeS, double HalfWidthS);
+    private readonly record struct Fine(double TimeS, double HalfWidthS, double Sse);
 
-    /// <summary>Quarter-sample profile of one shape around its coarse minimum.</summary>
-    private static Fine Refine(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise)
+    private static Fine FineFit(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise) =>
+        shape == (int)OnsetShape.Jump
+            ? JumpInGap(t, y, start, end, total, first, period, coarse, rise)
+            : Refine(t, y, start, end, total, first, period, coarse, shape, rise);
+
+    /// <summary>A jump's fit depends only on which samples lie after the onset, so its residual
+    /// is flat across each gap between two samples: the onset lies anywhere in the best gap, evenly
+    /// (its middle, σ the gap/√12). Gaps whose fit is nearly as good add their share, weighted by
+    /// their likelihood exp(−ΔRSS/2) in units of <paramref name="rise"/> (one noise variance).</summary>
+    private static Fine JumpInGap(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, double rise)
+    {
+        (int lo, int hi) = Stretch(coarse, 2 * rise);
+        int kFirst = Math.Max(start + 1, IndexAtOrAfter(t, first + ((lo - 1) * period)));
+        int kLast = Math.Min(end, IndexAtOrAfter(t, first + ((hi + 1) * period)) + 1);
+        if (kLast < kFirst)
+        {
+            return Refine(t, y, start, end, total, first, period, coarse, (int)OnsetShape.Jump, rise);
+        }
+
+        int gaps = kLast - kFirst + 1;
+        Span<double> reduction = stackalloc double[Shapes];
+        var sse = new double[gaps];
+        int best = 0;
+        for (int g = 0; g < gaps; g++)
+        {
+            int k = kFirst + g;
+            Reductions(t, y, start, end, 0.5 * (t[k - 1] + t[k]), reduction);
+            sse[g] = total - reduction[(int)OnsetShape.Jump];
+            if (sse[g] < sse[best])
+            {
+                best = g;
+            }
+        }
+
+        int kBest = kFirst + best;
+        double middle = 0.5 * (t[kBest - 1] + t[kBest]);
+        double weightSum = 0;
+        double moment = 0;
+        for (int g = 0; g < gaps; g++)
+        {
+            double w = Math.Exp(-0.5 * (sse[g] - sse[best]) / rise);
+            int k = kFirst + g;
+            double gap = t[k] - t[k - 1];
+            double offset = (0.5 * (t[k - 1] + t[k])) - middle;
+            weightSum += w;
+            moment += w * ((gap * gap / 12) + (offset * offset));
+        }
+
+        return new Fine(middle, Math.Sqrt(moment / weightSum), sse[best]);
+    }
+
+    /// <summary>The run of coarse candidates within <paramref name="allowance"/> of the minimum.</summary>
+    private static (int Lo, int Hi) Stretch(double[] coarse, double allowance)
     {
         int coarseBest = ArgMin(coarse);
         int lo = coarseBest;
-        while (lo > 0 && coarse[lo - 1] <= coarse[coarseBest] + (2 * rise))
+        while (lo > 0 && coarse[lo - 1] <= coarse[coarseBest] + allowance)
         {
             lo--;
         }
 
         int hi = coarseBest;
-        while (hi < coarse.Length - 1 && coarse[hi + 1] <= coarse[coarseBest] + (2 * rise))
+        while (hi < coarse.Length - 1 && coarse[hi + 1] <= coarse[coarseBest] + allowance)
         {
             hi++;
         }
 
+        return (lo, hi);
+    }
+
+    /// <summary>Quarter-sample profile of one shape around its coarse minimum.</summary>
+    private static Fine Refine(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise)
+    {
+        (int lo, int hi) = Stretch(coarse, 2 * rise);
         lo = Math.Max(0, lo - 1);
         hi = Math.Min(coarse.Length - 1, hi + 1);
         double step = period / 4;
@@ -244,7 +323,50 @@ internal static class AccelOnsetFit
             }
         }
 
-        return new Fine(refined, 0.5 * (right - left + 1) * step);
+        // The least residual near the grid's best (the profile is smooth there).
+        double a0 = fineFirst + (Math.Max(best - 1, 0) * step);
+        double b0 = fineFirst + (Math.Min(best + 1, candidates - 1) * step);
+        double least = Math.Min(sse[best], LeastSse(t, y, start, end, total, shape, a0, b0));
+        return new Fine(refined, 0.5 * (right - left + 1) * step, least);
+    }
+
+    /// <summary>The least residual of one shape with its onset in [a, b], by golden-section search
+    /// (J. Kiefer, 1953, "Sequential minimax search for a maximum", Proc. AMS 4(3)).</summary>
+    private static double LeastSse(double[] t, Shifted y, int start, int end, double total, int shape, double a, double b)
+    {
+        const double R = 0.6180339887498949;
+        Span<double> reduction = stackalloc double[Shapes];
+        double c = b - (R * (b - a));
+        double d = a + (R * (b - a));
+        double fc = Sse(c, reduction);
+        double fd = Sse(d, reduction);
+        for (int i = 0; i < 24; i++)
+        {
+            if (fc < fd)
+            {
+                b = d;
+                d = c;
+                fd = fc;
+                c = b - (R * (b - a));
+                fc = Sse(c, reduction);
+            }
+            else
+            {
+                a = c;
+                c = d;
+                fc = fd;
+                d = a + (R * (b - a));
+                fd = Sse(d, reduction);
+            }
+        }
+
+        return Math.Min(fc, fd);
+
+        double Sse(double t0, Span<double> r)
+        {
+            Reductions(t, y, start, end, t0, r);
+            return total - r[shape];
+        }
     }
 
     private static int LastRise(int from, int to, int limit, double threshold, Func<int, double> smoothed)
@@ -314,7 +436,7 @@ internal static class AccelOnsetFit
         for (int i = start; i <= end; i++)
         {
             double tau = t[i] - t0;
-            if (tau <= 0)
+            if (tau <= TieS)
             {
                 continue;
             }

@@ -63,26 +63,18 @@ internal static class LaunchSlipAllowance
     {
         int n = grid.Length;
         var extra = new double[n];
-        double speed = startSpeedM;
-        double distance = startDistanceM;
+        double[] accelDistance = AccelDistance(grid, k0, startSpeedM, startDistanceM, stepSpeedM, stepDistanceM);
         double largest = 0;
         bool open = true;
         for (int k = k0; k < n; k++)
         {
-            if (k > k0)
-            {
-                double h = grid[k] - grid[k - 1];
-                distance += (speed * h) + stepDistanceM[k - 1];
-                speed += stepSpeedM[k - 1];
-            }
-
+            double distance = accelDistance[k];
             double tau = grid[k] - startS;
             open = open && tau <= WindowS && fusedDistanceM[k] <= WindowM;
             if (open)
             {
                 double d = fusedDistanceM[k];
-                double bias = 0.5 * biasSigmaMps2 * tau * tau;
-                double accel2 = (bias * bias) + Square(accelScaleSigma * distance);
+                double accel2 = Square(AccelSigma(tau, distance, biasSigmaMps2, accelScaleSigma));
                 double fused2 = Square(pulseScaleSigma * d) + Square(fusedSigmaM[k]);
                 double gap = d - distance;
                 double slip2;
@@ -106,6 +98,35 @@ internal static class LaunchSlipAllowance
         }
 
         return extra;
+    }
+
+    /// <summary>The accelerometer's own distance from first motion at each grid point, m (zeros
+    /// before <paramref name="k0"/>): the input integrated twice from rest.</summary>
+    public static double[] AccelDistance(double[] grid, int k0, double startSpeedM, double startDistanceM, double[] stepSpeedM, double[] stepDistanceM)
+    {
+        var distance = new double[grid.Length];
+        double speed = startSpeedM;
+        double d = startDistanceM;
+        for (int k = k0; k < grid.Length; k++)
+        {
+            if (k > k0)
+            {
+                d += (speed * (grid[k] - grid[k - 1])) + stepDistanceM[k - 1];
+                speed += stepSpeedM[k - 1];
+            }
+
+            distance[k] = d;
+        }
+
+        return distance;
+    }
+
+    /// <summary>σ_w of the accelerometer's own distance <paramref name="distanceM"/> reached
+    /// <paramref name="tauS"/> after first motion: its bias integrated twice and its scale, m.</summary>
+    public static double AccelSigma(double tauS, double distanceM, double biasSigmaMps2, double accelScaleSigma)
+    {
+        double bias = 0.5 * biasSigmaMps2 * tauS * tauS;
+        return Math.Sqrt((bias * bias) + Square(accelScaleSigma * distanceM));
     }
 
     private static double Square(double x) => x * x;

@@ -80,6 +80,11 @@ public sealed class ReconstructedRun
     /// under drive (the undriven wheel).</summary>
     public int DistanceChannel { get; init; }
 
+    /// <summary>The accelerometer's own distance from first motion where it first reaches one
+    /// foot, at a time on the run's clock, with the σ the launch-slip allowance gives it (bias and
+    /// scale); null without an accelerometer or a standstill. A check on that σ against a truth.</summary>
+    public AccelDistanceCheck? AccelOnlyFirstFoot { get; init; }
+
     /// <summary>Stretches where the pulses ran ahead of the accelerometer (wheelspin) and were
     /// not trusted for distance.</summary>
     public IReadOnlyList<TimeWindow> WheelspinWindows { get; init; } = [];
@@ -88,3 +93,9 @@ public sealed class ReconstructedRun
     /// ABS) and the accelerometer carried distance and speed instead.</summary>
     public IReadOnlyList<TimeWindow> BrakingSlideWindows { get; init; } = [];
 }
+
+/// <summary>The accelerometer's own distance at one moment of the launch.</summary>
+/// <param name="TimeS">When, seconds on the run's clock.</param>
+/// <param name="DistanceM">Its distance from first motion, m.</param>
+/// <param name="SigmaM">Its stated 1 σ, m.</param>
+public sealed record AccelDistanceCheck(double TimeS, double DistanceM, double SigmaM);

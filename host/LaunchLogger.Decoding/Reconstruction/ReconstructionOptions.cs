@@ -127,6 +127,19 @@ public sealed record ReconstructionOptions
     /// own σ replaces it (<see cref="Analysis.RunAnalyzer"/> does so from the settings file).</summary>
     public double CircumferenceSigmaFraction { get; init; } = 0.01;
 
+    /// <summary>The rolling circumference the pulses are scaled by, over the one the run's
+    /// configuration holds: 1 when that is the rolling one or nothing is known of it;
+    /// <see cref="Calibration.TyrePrior.RollingOverStatic"/> when the settings say it is the
+    /// tyre's static (unloaded) circumference (<see cref="Calibration.CalibrationSettings.StaticCircumferenceM"/>).
+    /// <see cref="CircumferenceSigmaFraction"/> is the σ around it.</summary>
+    public double RollingOverToldCircumference { get; init; } = 1;
+
+    /// <summary>The tyre's growth of rolling radius at 30 m/s taken as known, as a fraction
+    /// (growing with the square of speed); <see cref="TyreGrowthSigmaAt30Mps"/> is the σ around
+    /// it. 0 unless the settings give a static circumference, which comes with the typical growth
+    /// (<see cref="Calibration.TyrePrior.GrowthAt30Mps"/>).</summary>
+    public double TyreGrowthAt30Mps { get; init; }
+
     /// <summary>1-σ of the tyre's growth of rolling radius at 30 m/s, as a fraction, for a tyre not
     /// calibrated at speed; it scales with the square of speed (the tread's centrifugal growth).
     /// Car tyres grow by some 0.1–0.5 % at 30 m/s (from memory), so 0.3 % puts the largest of them

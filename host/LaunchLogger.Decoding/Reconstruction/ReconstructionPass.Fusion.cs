@@ -299,12 +299,39 @@ internal sealed partial class ReconstructionPass
             return null;
         }
 
-        double bias = Math.Sqrt(Square(accel.RestLevelSigmaMps2) + Square(options.BiasPriorMps2));
         double pulseScale = Math.Sqrt(Square(circumferenceSigma) + Square(options.PulseScaleSigma));
         return LaunchSlipAllowance.DistanceSigma(
             steps.TimeS, k0, startS, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM,
-            fused.DistanceM, fused.DistanceSigmaM, bias, options.ForwardScaleSigma, pulseScale,
+            fused.DistanceM, fused.DistanceSigmaM, LaunchBiasSigma(accel), options.ForwardScaleSigma, pulseScale,
             driven ? (options.PulsesOnlyLaunchSlip, options.LaunchSlipFadeM) : null);
+    }
+
+    /// <summary>σ of the input's bias over the launch, m/s²: its resting level's σ and the drift
+    /// since staging.</summary>
+    private double LaunchBiasSigma(ForwardAcceleration a) => Math.Sqrt(Square(a.RestLevelSigmaMps2) + Square(options.BiasPriorMps2));
+
+    /// <summary>The accelerometer's own distance where it first reaches the first foot, with the σ
+    /// <see cref="LaunchSlipAllowance"/> gives it; null without an accelerometer, a standstill, or
+    /// within the allowance's window.</summary>
+    private AccelDistanceCheck? AccelFirstFoot(StepGrid steps, double startS)
+    {
+        if (accel is null || !Staged)
+        {
+            return null;
+        }
+
+        double[] grid = steps.TimeS;
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        double[] d = LaunchSlipAllowance.AccelDistance(grid, k0, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM);
+        for (int k = k0; k < grid.Length && grid[k] - startS <= LaunchSlipAllowance.WindowS; k++)
+        {
+            if (d[k] >= Metrics.Units.MetresPerFoot)
+            {
+                return new AccelDistanceCheck(grid[k], d[k], LaunchSlipAllowance.AccelSigma(grid[k] - startS, d[k], LaunchBiasSigma(accel), options.ForwardScaleSigma));
+            }
+        }
+
+        return null;
     }
 
     private static Estimate MeanBias(double[] grid, double startS, double? stopS, FusionResult fused)

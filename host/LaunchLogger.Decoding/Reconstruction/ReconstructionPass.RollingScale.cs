@@ -50,6 +50,7 @@ internal sealed partial class ReconstructionPass
             BiasWanderDensity = options.RollingScaleBiasWanderDensity,
             BiasSigmaMps2 = biasSigma,
             CircumferenceSigma = options.CircumferenceSigmaFraction,
+            Growth = options.TyreGrowthAt30Mps,
             GrowthSigma = options.TyreGrowthSigmaAt30Mps,
             AccelScaleSigma = calibration.Sigma,
             ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
@@ -78,7 +79,7 @@ internal sealed partial class ReconstructionPass
         }
 
         string over = Staged ? "the launch" : fit.RestEquations > 0 ? "the record's changes of speed and the rest it ends in" : "the record's changes of speed";
-        warnings.Add(Invariant($"the pulses' scale was measured over {over} against the calibrated accelerometer ({fit.Checkpoints} pulse observations, {fit.WindowEndS - startS:0.0} s): the tyre rolls {(fit.Scale.Value - 1) * 100:+0.00;-0.00} % ± {fit.Scale.Sigma * 100:0.00} % from the circumference told; distances and speeds use it"));
+        warnings.Add(Invariant($"the pulses' scale was measured over {over} against the calibrated accelerometer ({fit.Checkpoints} pulse observations, {fit.WindowEndS - startS:0.0} s): the tyre rolls {((fit.Scale.Value * options.RollingOverToldCircumference) - 1) * 100:+0.00;-0.00} % ± {fit.Scale.Sigma * options.RollingOverToldCircumference * 100:0.00} % from the circumference told; distances and speeds use it"));
         return fit;
     }
 

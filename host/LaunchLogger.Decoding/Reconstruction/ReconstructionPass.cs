@@ -42,7 +42,8 @@ internal sealed partial class ReconstructionPass
         this.options = options;
         configuration = run.Configuration;
         rolloutM = options.RolloutM ?? (configuration.RolloutM > 0 ? configuration.RolloutM : 0.3048);
-        mpp = PulseChannel.MetresPerPulse(configuration);
+        mpp = PulseChannel.MetresPerPulse(configuration) * options.RollingOverToldCircumference;
+        double secondMpp = configuration.SecondMetresPerPulse * options.RollingOverToldCircumference;
         if (options.UsePulses && mpp > 0 && run.Pulses.Count > 0)
         {
             var first = PulseChannel.From(run.Pulses);
@@ -54,13 +55,13 @@ internal sealed partial class ReconstructionPass
             var second = PulseChannel.From(run.SecondPulses);
             if (pulses is null)
             {
-                (pulses, mpp, channel) = (second, configuration.SecondMetresPerPulse, 1);
+                (pulses, mpp, channel) = (second, secondMpp, 1);
             }
-            else if (DistanceUnderDrive(pulses, mpp, second, configuration.SecondMetresPerPulse) is { } ratio && ratio < 0.998)
+            else if (DistanceUnderDrive(pulses, mpp, second, secondMpp) is { } ratio && ratio < 0.998)
             {
                 // The second wheel covers less under drive: the first one slips, so it is driven.
                 channelNote = $"the second pulse channel turned {(1 - ratio) * 100:F1} % less than the first while accelerating; it is taken as the undriven wheel and used for distance";
-                (pulses, mpp, channel) = (second, configuration.SecondMetresPerPulse, 1);
+                (pulses, mpp, channel) = (second, secondMpp, 1);
             }
         }
 
@@ -147,6 +148,14 @@ internal sealed partial class ReconstructionPass
             fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         }
 
+        if (pulses != null && options.TyreGrowthAt30Mps != 0)
+        {
+            // The tread's typical growth with speed, told for a static circumference: the distance
+            // per pulse follows it at the first pass's speeds.
+            pulseGrowthM = GrowthDistances(steps.TimeS, fused.SpeedMps, options.TyreGrowthAt30Mps);
+            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
+        }
+
         circumferenceSigma = options.CircumferenceSigmaFraction;
         growthSigma = options.TyreGrowthSigmaAt30Mps;
         if (MeasureRollingScale(steps, firstMotion.Value, stopS, spin, braking, fused) is not null)
@@ -185,13 +194,16 @@ internal sealed partial class ReconstructionPass
             RestingForwardMps2 = accel is null ? null : new Estimate(accel.RestLevelMps2, accel.RestLevelSigmaMps2),
             FirstPulseDistanceM = pulses is null || !Staged ? null : new Estimate(mpp - fused.PhaseM.Value, fused.PhaseM.Sigma),
             StopS = stopS,
+            AccelOnlyFirstFoot = AccelFirstFoot(steps, firstMotion.Value),
             WheelspinWindows = spin,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             DistanceChannel = channel,
             Staged = Staged,
             StartSpeedMps = Staged ? null : opening is { } s ? new Estimate(s.SpeedMps.Value * MeasuredScale, s.SpeedMps.Sigma * MeasuredScale) : accelOpeningSpeed,
-            RollingScale = rollingScale?.Scale,
+            RollingScale = rollingScale is { } measured
+                ? new Estimate(measured.Scale.Value * options.RollingOverToldCircumference, measured.Scale.Sigma * options.RollingOverToldCircumference)
+                : null,
         };
     }
 

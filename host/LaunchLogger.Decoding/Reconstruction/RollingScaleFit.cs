@@ -216,8 +216,8 @@ internal static class RollingScaleFit
         }
 
         var prior = Vector<double>.Build.DenseOfArray(moving is { } open
-            ? [1, open.InitialSpeedMps.Value * (pulses.MidS(candidates[0]) - t0), 0, 0, open.InitialSpeedMps.Value]
-            : [1, 0.5 * metresPerPulse, 0, 0]);
+            ? [1, open.InitialSpeedMps.Value * (pulses.MidS(candidates[0]) - t0), 0, noise.Growth, open.InitialSpeedMps.Value]
+            : [1, 0.5 * metresPerPulse, 0, noise.Growth]);
         var priorInformation = Matrix<double>.Build.DenseOfDiagonalArray(moving is { } wide
             ?
             [
@@ -312,6 +312,9 @@ internal readonly record struct RollingScaleNoise
 
     /// <summary>Prior σ of the scale, a fraction.</summary>
     public required double CircumferenceSigma { get; init; }
+
+    /// <summary>Prior centre of the growth at 30 m/s, a fraction (0 unless a typical growth is told).</summary>
+    public double Growth { get; init; }
 
     /// <summary>Prior σ of the growth at 30 m/s, a fraction.</summary>
     public required double GrowthSigma { get; init; }

@@ -18,12 +18,21 @@ public sealed record BenchRestReport
     /// <summary>How long it recorded, s; null when its end is missing.</summary>
     public double? DurationS { get; init; }
 
+    /// <summary>How long the box was set to record it, s (its own frame, LOG-FORMAT.md 0x09).</summary>
+    public required double LengthS { get; init; }
+
     /// <summary>"complete", "spoiled_by_pulse" (the car moved: no rest), "cut_short" (the box shut
     /// down) or "unfinished" (its end is missing).</summary>
     public required string Outcome { get; init; }
 
     /// <summary>Accelerometer samples in it.</summary>
     public required int Samples { get; init; }
+
+    /// <summary>Samples the box presumed lost to its sensor's overflows during the rest.</summary>
+    public required long SamplesLost { get; init; }
+
+    /// <summary>Frames of the rest missing (by their sequence numbers) or damaged.</summary>
+    public required long FramesLost { get; init; }
 
     /// <summary>The plain mean of the forward axis' readings, m/s² (about +g with the axis up, −g
     /// down); null without samples.</summary>
@@ -43,6 +52,7 @@ public sealed record BenchRestReport
             Rest = rest.Number,
             OpenedS = rest.OpenedS,
             DurationS = rest.EndedS - rest.OpenedS,
+            LengthS = rest.LengthS,
             Outcome = rest.Outcome switch
             {
                 BenchRestOutcome.Complete => "complete",
@@ -51,6 +61,8 @@ public sealed record BenchRestReport
                 _ => "unfinished",
             },
             Samples = rest.Count,
+            SamplesLost = rest.SamplesLost,
+            FramesLost = rest.FramesLost,
             ForwardMeanMps2 = forward.Length == 0 ? null : forward.Average(),
             Warnings = rest.Warnings,
         };

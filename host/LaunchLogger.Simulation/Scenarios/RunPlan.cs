@@ -12,6 +12,12 @@ public sealed record RunPlan
     /// reads "on" until the launch).</summary>
     public bool HoldBrakeWhileStaged { get; init; } = true;
 
+    /// <summary>When set, the driver holds the box's mark button from this long before the
+    /// launch to this long after it, s (the box pauses its accelerometer onset while the button
+    /// is down; a hold reaching the bench rest's 3 s arms a rest the first pulse drops); null
+    /// for no press.</summary>
+    public double? MarkHeldAroundLaunchS { get; init; }
+
     /// <summary>Stop accelerating at this speed, m/s; null for no speed target.</summary>
     public double? TargetSpeedMps { get; init; } = 29.0;
 

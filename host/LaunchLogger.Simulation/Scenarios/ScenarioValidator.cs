@@ -113,6 +113,10 @@ internal static class ScenarioValidator
 
         RunPlan p = s.Plan;
         c.Range("plan.stage_s", p.StageS, 0, 600);
+        if (p.MarkHeldAroundLaunchS is { } mark)
+        {
+            c.Range("plan.mark_held_around_launch_s", mark, 0.001, 60);
+        }
         if (p.TargetSpeedMps is null && p.TargetDistanceM is null)
         {
             c.Fail("plan.target_speed_mps", "or plan.target_distance_m must be set", "null");

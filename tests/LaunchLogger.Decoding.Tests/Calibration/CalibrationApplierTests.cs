@@ -26,6 +26,29 @@ public class CalibrationApplierTests
     }
 
     [Fact]
+    public void AStaticCircumferenceReplacesTheConfiguredOneAndSaysItIsTakenAsStatic()
+    {
+        DecodedRun run = Run();
+
+        DecodedRun applied = CalibrationApplier.Apply(run, new CalibrationSettings { StaticCircumferenceM = 1.99 });
+
+        Assert.Equal(1.99, applied.Configuration.CircumferenceM);
+        Assert.Equal(1.99 / 48, applied.Configuration.MetresPerPulse, 15);
+        string note = Assert.Single(applied.Warnings);
+        Assert.Contains("static circumference 1.99000 m", note, StringComparison.Ordinal);
+        Assert.Contains("roll on 1 % less", note, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ARolledCircumferenceWinsOverAStaticOne()
+    {
+        DecodedRun applied = CalibrationApplier.Apply(Run(), new CalibrationSettings { CircumferenceM = 1.92, StaticCircumferenceM = 1.99 });
+
+        Assert.Equal(1.92, applied.Configuration.CircumferenceM);
+        Assert.DoesNotContain(applied.Warnings, w => w.Contains("static", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void EverythingElseIsCarriedOverUnchanged()
     {
         DecodedRun run = Run();

@@ -66,6 +66,7 @@ public sealed class CalibrationFileTests : IDisposable
     [InlineData("unknown field", "{ \"version\": 1, \"wheel_size\": 17 }", "wheel_size")]
     [InlineData("not JSON", "circumference = 1.96", "not a settings file")]
     [InlineData("circumference out of range", "{ \"circumference_m\": 19.6 }", "circumference_m")]
+    [InlineData("static circumference out of range", "{ \"static_circumference_m\": 0.05 }", "static_circumference_m")]
     [InlineData("newer version", "{ \"version\": 2 }", "version 2")]
     [InlineData("tooth map not averaging one", "{ \"tooth_spacing\": [1.1, 1.1, 1.1] }", "average 1")]
     [InlineData("sigmas not matching the map", "{ \"tooth_spacing\": [1.0, 1.0], \"tooth_spacing_sigma\": [0.1] }", "as many entries")]

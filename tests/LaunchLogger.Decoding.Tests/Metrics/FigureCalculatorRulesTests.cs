@@ -33,6 +33,50 @@ public class FigureCalculatorRulesTests
         Assert.Equal(1.1875, FigureCalculator.Compute(t, new Estimate(T0, 0), request: request, brakeOnsetS: 2.2).SpeedIntervals[0].FromStandstillS!.Value, 12);
     }
 
+    [Theory]
+    [InlineData(12.0, 0.02, true)]   // pulls on to 12 m/s: timed
+    [InlineData(10.0, 0.02, false)]  // holds exactly 10 m/s: its crossing could be anywhere along the hold
+    [InlineData(10.03, 0.02, false)] // tops out 1.5σ above: the car may never have reached 10 m/s
+    [InlineData(10.05, 0.02, true)]  // 2.5σ above: reached
+    [InlineData(10.0, 0, true)]      // an exact speed that reaches 10 m/s reaches it
+    public void AnIntervalIsTimedOnlyWhenTheSpeedClearlyPassesItsEnd(double topMps, double speedSigma, bool timed)
+    {
+        // From rest at 1 s at 8 m/s² up to the top speed, then held there until 5 s.
+        Trajectory launch = Launch(endS: 5, speedSigma: speedSigma);
+        double[] v = [.. launch.SpeedMps.Select(x => Math.Min(x, topMps))];
+        Trajectory held = new()
+        {
+            TimeS = launch.TimeS,
+            DistanceM = launch.DistanceM,
+            SpeedMps = v,
+            AccelMps2 = [.. v.Select((x, i) => i > 0 && x > v[i - 1] ? A : 0)],
+            SpeedSigmaMps = launch.SpeedSigmaMps,
+        };
+
+        FigureSet set = FigureCalculator.Compute(held, new Estimate(T0, 0), request: Request(new SpeedInterval("0-10", 0, 10)));
+        IntervalFigure f = set.SpeedIntervals[0];
+
+        Assert.Equal(timed, f.FromStandstillS.HasValue);
+
+        // Declined intervals are listed with the top speed reached and the speed's σ, for the report's note.
+        if (timed)
+        {
+            Assert.Empty(set.NotClearlyReached);
+        }
+        else
+        {
+            var declined = Assert.Single(set.NotClearlyReached);
+            Assert.Equal("0-10", declined.Interval.Label);
+            Assert.Equal(topMps, declined.TopMps, 9);
+            Assert.Equal(speedSigma, declined.SigmaMps, 9);
+        }
+
+        if (timed)
+        {
+            Assert.Equal(10 / A, f.FromStandstillS!.Value, 9);
+        }
+    }
+
     [Fact]
     public void ACrossingIsNeverTimedBeforeTheSampleItIsSearchedFrom()
     {

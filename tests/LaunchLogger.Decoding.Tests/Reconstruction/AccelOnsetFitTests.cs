@@ -49,4 +49,70 @@ public class AccelOnsetFitTests
         Assert.True(within2 >= 0.93 * trials, $"±2σ: {within2} of {trials}");
         Assert.True(within3 >= 0.985 * trials, $"±3σ: {within3} of {trials}");
     }
+
+    /// <summary>A box that times its samples in whole microseconds, evenly: sample i at
+    /// t₀ + i·P exactly, P a whole number of µs. The truth is the step's own definition (a rest at
+    /// a level, then a constant acceleration from a time placed anywhere between two samples), so
+    /// the onset lies in the gap before the first sample that reads the step. Such a step must be
+    /// read as a jump inside that gap, not as an earlier ramp: every one of 200 within ±3σ and
+    /// within one sample period, and at least 93 % within ±2σ (coverage as above). At 100 Hz a step
+    /// leaves fewer than three samples in the fit's window after the crossing and no onset is
+    /// given (the pulses time first motion there).</summary>
+    [Theory]
+    [InlineData(200)]
+    [InlineData(400)]
+    [InlineData(800)]
+    [InlineData(1000)]
+    [InlineData(1600)]
+    public void A_step_on_a_whole_microsecond_clock_is_a_jump_within_its_gap(int rateHz)
+    {
+        var random = new Random(rateHz);
+        long periodUs = 1_000_000 / rateHz;
+        double period = periodUs * 1e-6;
+
+        // 150 µg/√Hz over the Nyquist band: the generator's accelerometer noise density.
+        double noise = 150e-6 * 9.80665 * Math.Sqrt(rateHz / 2.0);
+        int within2 = 0;
+        int within3 = 0;
+        var misses = new List<string>();
+        const int trials = 200;
+        for (int trial = 0; trial < trials; trial++)
+        {
+            long startUs = 2_000_000 + random.Next(0, 5_000_000);
+            int n = (int)(1.5 * rateHz);
+            int stepIndex = rateHz;
+            double onsetS = (startUs + ((stepIndex - 1) * periodUs) + (random.NextDouble() * periodUs)) * 1e-6;
+            double level = 0.2 + (0.4 * random.NextDouble());
+            double height = 2 + (8 * random.NextDouble());
+            var t = new double[n];
+            var reading = new double[n];
+            for (int i = 0; i < n; i++)
+            {
+                long us = startUs + (i * periodUs);
+                t[i] = us * 1e-6;
+                double a = t[i] > onsetS ? height : 0;
+                reading[i] = level + a + (noise * Gaussian(random));
+            }
+
+            int to = stepIndex + (int)(0.05 * rateHz);
+            AccelOnset? found = AccelOnsetFit.Find(t, reading, level, noise, 1, period, 0, to, lastRise: true);
+            Assert.NotNull(found);
+            double error = found.Value.TimeS - onsetS;
+            double z = Math.Abs(error) / found.Value.SigmaS;
+            within2 += z <= 2 ? 1 : 0;
+            within3 += z <= 3 ? 1 : 0;
+            if (z > 3 || Math.Abs(error) > period || found.Value.Shape != OnsetShape.Jump)
+            {
+                misses.Add($"{found.Value.Shape} {error * 1e3:F3} ms ({z:F1}σ)");
+            }
+        }
+
+        Assert.True(misses.Count == 0, $"{misses.Count} of {trials}: {string.Join("; ", misses.Take(10))}");
+        Assert.True(within2 >= 0.93 * trials, $"±2σ: {within2} of {trials}");
+        Assert.True(within3 == trials, $"±3σ: {within3} of {trials}");
+    }
+
+    // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
+    private static double Gaussian(Random random) =>
+        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }

@@ -3,6 +3,7 @@ using LaunchLogger.Decoding.Tests.Reading;
 using LaunchLogger.Decoding.Tests.Runs.Support;
 using LaunchLogger.Firmware.Run;
 using LaunchLogger.Firmware.Wire;
+using LaunchLogger.Simulation.Box;
 using LaunchLogger.Tests.Shared;
 
 namespace LaunchLogger.Decoding.Tests.Runs;

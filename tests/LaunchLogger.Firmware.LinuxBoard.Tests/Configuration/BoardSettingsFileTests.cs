@@ -122,4 +122,58 @@ public class BoardSettingsFileTests
         var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse(json, "s.json"));
         Assert.Contains(expected, e.Message);
     }
+
+    private const string WithBenchRest = """
+        {
+          "car": { "pulses_per_revolution": 48, "circumference_millimetres": 1960 },
+          "pulses": { "line": 17 },
+          "accelerometer": { },
+          "inputs": { "mark_pin": 22 },
+          "log": { "folder": "/tmp/ll" },
+          "bench_rest": { "hold_ms": 2500, "length_ms": 30000 }
+        }
+        """;
+
+    [Fact]
+    public void The_bench_rests_hold_and_length_become_the_cores_microseconds_and_default_to_3_s_and_20_s()
+    {
+        LoggerSettings set = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(WithBenchRest, "test"));
+        LoggerSettings left = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(WithBenchRest.Replace(", \"length_ms\": 30000", ""), "test"));
+        LoggerSettings none = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(Minimal, "test"));
+
+        Assert.Equal(2_500_000, set.BenchRestHoldMicros);
+        Assert.Equal(30_000_000, set.BenchRestMicros);
+        Assert.Equal(2_500_000, left.BenchRestHoldMicros);
+        Assert.Equal(20_000_000, left.BenchRestMicros);
+        // The documented defaults (hardware-notes/calibration.md §5: hold 3 s, record 20 s).
+        Assert.Equal(3_000_000, none.BenchRestHoldMicros);
+        Assert.Equal(20_000_000, none.BenchRestMicros);
+    }
+
+    [Fact]
+    public void The_shipped_example_file_sets_the_bench_rests_defaults()
+    {
+        string path = Path.Combine(AppContext.BaseDirectory, "launchlogger-board.example.json");
+
+        BoardSettings s = BoardSettingsFile.Load(path);
+
+        Assert.Equal(3000, s.BenchRest!.HoldMs);
+        Assert.Equal(20000, s.BenchRest.LengthMs);
+    }
+
+    [Theory]
+    [InlineData("\"hold_ms\": 2500", "\"hold_ms\": 499", "bench_rest.hold_ms must be from 500 to 60000 (was 499)")]
+    [InlineData("\"hold_ms\": 2500", "\"hold_ms\": 60001", "bench_rest.hold_ms must be from 500 to 60000 (was 60001)")]
+    [InlineData("\"length_ms\": 30000", "\"length_ms\": 999", "bench_rest.length_ms must be from 1000 to 600000 (was 999)")]
+    [InlineData("\"length_ms\": 30000", "\"length_ms\": 3000000", "bench_rest.length_ms must be from 1000 to 600000 (was 3000000)")]
+    [InlineData("\"length_ms\": 30000", "\"length_ms\": -5", "bench_rest.length_ms must be from 1000 to 600000 (was -5)")]
+    [InlineData("\"hold_ms\": 2500", "\"hold\": 2500", "hold")]
+    [InlineData("\"accelerometer\": { },", "", "bench_rest needs an accelerometer section")]
+    [InlineData("\"mark_pin\": 22", "\"led_pin\": 23", "bench_rest needs inputs.mark_pin")]
+    public void Bench_rest_values_are_checked(string find, string replace, string expected)
+    {
+        var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse(WithBenchRest.Replace(find, replace), "s.json"));
+        Assert.StartsWith("s.json", e.Message);
+        Assert.Contains(expected, e.Message);
+    }
 }

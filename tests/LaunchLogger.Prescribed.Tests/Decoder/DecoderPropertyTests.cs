@@ -30,7 +30,7 @@ public class DecoderPropertyTests
     [MemberData(nameof(LogSeeds))]
     public void A_step_launch_from_logs(int seed)
     {
-        PrescribedRecord r = Records.Standing(seed, launchRiseS: 0, brakeRiseS: 0).Generate();
+        PrescribedRecord r = Records.Standing(seed, launchRiseS: 0, brakeRiseS: 0, spinUp: true).Generate();
         CheckLaunch(r, DecoderHarness.AnalyzeLog(r));
     }
 
@@ -80,7 +80,7 @@ public class DecoderPropertyTests
     [MemberData(nameof(LogSeeds))]
     public void A_long_idle_before_a_step_launch_from_logs(int seed)
     {
-        PrescribedRecord r = (Records.Standing(seed) with { Shape = PrescribedShapes.LongIdle(new Random(seed), launchRiseS: 0, brakeRiseS: 0) }).Generate();
+        PrescribedRecord r = (Records.Standing(seed, spinUp: true) with { Shape = PrescribedShapes.LongIdle(new Random(seed), launchRiseS: 0, brakeRiseS: 0) }).Generate();
         CheckLaunch(r, DecoderHarness.AnalyzeLog(r));
     }
 

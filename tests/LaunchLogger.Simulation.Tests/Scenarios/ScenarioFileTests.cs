@@ -46,6 +46,7 @@ public sealed class ScenarioFileTests
     [InlineData("""{ "second_pickup": { "teeth": 24, "axel": "front" } }""", "field 'second_pickup.axel' is not a known field")]
     [InlineData("""{ "plan": { "target_speed_mps": null, "target_distance_m": null } }""", "field 'plan.target_speed_mps' or plan.target_distance_m must be set")]
     [InlineData("""{ "drivetrain": { "engine": { "gear_ratios": [3, "x"] } } }""", "field 'drivetrain.engine.gear_ratios[1]' must be a number")]
+    [InlineData("""{ "plan": { "mark_held_around_launch_s": 0 } }""", "field 'plan.mark_held_around_launch_s' must be")]
     [InlineData("""{ "vehicle": { "mass_kg": 3 """, "not valid JSON")]
     [InlineData("""[1, 2]""", "must be a JSON object")]
     public void Bad_files_give_one_line_naming_the_file_and_the_field(string json, string expected)

@@ -1,13 +1,13 @@
 using LaunchLogger.Firmware.Hardware;
 using LaunchLogger.Firmware.Run;
 
-namespace LaunchLogger.Tests.Shared;
+namespace LaunchLogger.Simulation.Box;
 
 /// <summary>Logs holding bench rests, written by the firmware core itself: a box standing on its
 /// end, its forward axis (x) reading k·(±g) + b (specific force at rest is +g upward), driven
 /// through <see cref="RunRecorder"/> as the capture loop drives it — a 1 kHz burst every 20 ms,
-/// the mark button held 3.5 s while staged, then let go.</summary>
-internal static class BenchRestLogs
+/// the mark button held 3.5 s while staged, then let go. For tests and the robustness bench.</summary>
+public static class BenchRestLogs
 {
     /// <summary>Standard gravity, m/s² (3rd CGPM, 1901; ISO 80000-3).</summary>
     private const double G0 = 9.80665;
@@ -15,14 +15,20 @@ internal static class BenchRestLogs
     /// <summary>One rest to record.</summary>
     /// <param name="ForwardMps2">The forward axis' true reading, m/s² (before noise and rounding to milli-g).</param>
     /// <param name="PulseAtS">A wheel pulse this long after the release (the car moved), or null.</param>
-    public sealed record Rest(double ForwardMps2, double? PulseAtS = null);
+    /// <param name="ShutdownAtS">The box shut down this long after the release (the rest cut
+    /// short), or null; only the last rest of a power-up.</param>
+    public sealed record Rest(double ForwardMps2, double? PulseAtS = null, double? ShutdownAtS = null);
 
     /// <summary>The bytes of one power-up holding <paramref name="rests"/> in order, each from a
     /// fresh stillness (the box turned over between them), with seeded noise of about 5 milli-g
     /// per axis.</summary>
-    public static byte[] Write(int seed, params Rest[] rests)
+    public static byte[] Write(int seed, params Rest[] rests) => Write(seed, new LoggerSettings().BenchRestMicros, rests);
+
+    /// <summary>As <see cref="Write(int, Rest[])"/>, each rest set to record for
+    /// <paramref name="restMicros"/> (<see cref="LoggerSettings.BenchRestMicros"/>).</summary>
+    public static byte[] Write(int seed, int restMicros, params Rest[] rests)
     {
-        var settings = new LoggerSettings();
+        var settings = new LoggerSettings { BenchRestMicros = restMicros };
         var sink = new Sink();
         var recorder = new RunRecorder(settings, sink, new HealthCounters());
         var random = new Random(seed);
@@ -32,8 +38,14 @@ internal static class BenchRestLogs
         long pulses = 0;
         recorder.PowerUp(0);
         recorder.SetCounterOrigin(0, 0);
-        foreach (Rest rest in rests)
+        for (int r = 0; r < rests.Length; r++)
         {
+            Rest rest = rests[r];
+            if (rest.ShutdownAtS != null && r != rests.Length - 1)
+            {
+                throw new ArgumentException("only the last rest can end in a shutdown", nameof(rests));
+            }
+
             double forwardMilliG = rest.ForwardMps2 / G0 * 1000;
             long pulseAt = long.MaxValue;
             void Feed(long untilMicros)
@@ -74,6 +86,13 @@ internal static class BenchRestLogs
             if (rest.PulseAtS is { } p)
             {
                 pulseAt = now + (long)(p * 1e6);
+            }
+
+            if (rest.ShutdownAtS is { } off)
+            {
+                Feed(now + (long)(off * 1e6));
+                recorder.Shutdown(now);
+                break;
             }
 
             Feed(now + settings.BenchRestMicros + 100_000);
