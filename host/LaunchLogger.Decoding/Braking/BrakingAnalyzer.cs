@@ -75,7 +75,11 @@ public static class BrakingAnalyzer
     /// <param name="pulsesSetAside">Stretches where the reconstruction set the pulses aside and the
     /// accelerometer carried the distance (the wheel slid, as under ABS): no slip correction there.</param>
     /// <param name="brakeSlip">The pickup tyre's slip stiffness; <see cref="BrakeSlipPrior.CarTyres"/> when null.</param>
-    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM, IReadOnlyList<TimeWindow>? pulsesSetAside = null, BrakeSlipPrior? brakeSlip = null)
+    /// <param name="fusedSlipDistanceM">What the fusion added to the pulses' distance for the
+    /// braked wheel's slip, on the trajectory's grid (<see cref="ReconstructedRun.BrakeSlipDistanceM"/>):
+    /// taken off again over the stop, which is then measured as from the pulses alone (the
+    /// fusion's slip is not yet a measurement to quote). The MFDD is the fused trajectory's.</param>
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM, IReadOnlyList<TimeWindow>? pulsesSetAside = null, BrakeSlipPrior? brakeSlip = null, double[]? fusedSlipDistanceM = null)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         ArgumentNullException.ThrowIfNull(brakeSwitchOnsets);
@@ -153,12 +157,15 @@ public static class BrakingAnalyzer
         double fromDistance = trajectory.ValueAt(trajectory.DistanceM, onset.Value);
         // Where the pulses carry the distance, the braked wheel's slip made them count short: the
         // expected shortfall is added, and its spread over the tyres' stiffness range is in σ.
+        // What the fusion's own slip estimate added is taken off first.
         IReadOnlyList<TimeWindow> slid = pulsesSetAside ?? [];
         BrakeSlipPrior tyre = brakeSlip ?? BrakeSlipPrior.CarTyres;
         bool pulsesCarry = pulsePositionSigmaM > 0;
+        bool fused = fusedSlipDistanceM is not null;
+        double fusedSlip = fused ? trajectory.ValueAt(fusedSlipDistanceM!, standstillS) - trajectory.ValueAt(fusedSlipDistanceM!, onset.Value) : 0;
         double slipWork = pulsesCarry ? BrakingWorkM(trajectory, onset.Value, standstillS, slid) : 0;
         double slipCorrection = slipWork * tyre.MeanInverse;
-        double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance + slipCorrection;
+        double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance - fusedSlip + slipCorrection;
         // The path's own σ between onset and standstill (a circumference error counts on the stop's
         // length, not on the whole run's), and the onset's σ at the speed there.
         double pathSigma = trajectory.IntervalSigmaM(onset.Value, standstillS);
@@ -176,7 +183,7 @@ public static class BrakingAnalyzer
             BrakeSlipCorrectionM = slipCorrection,
             MeanDecelMps2 = meanDecel,
             PeakDecelMps2 = peakDecel,
-            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop, pulsesCarry ? tyre.MeanInverse : 0, slid),
+            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop, pulsesCarry && !fused ? tyre.MeanInverse : 0, slid),
             CorrectedStops = CorrectedStops(stopDistance, fromMps, nominalSpeedsMps),
             TractionBound0To60S = BrakingFormulas.TractionBoundS(60 * Units.MpsPerMph, meanDecel),
             TractionBound0To100KmhS = BrakingFormulas.TractionBoundS(100 * Units.MpsPerKmh, meanDecel),

@@ -74,6 +74,36 @@ public class BrakeSlipCorrectionTests
         Assert.Equal(((V0 * V0) - (vAtCut * vAtCut)) / (2 * G0) * Math.Log(2) / 15, partSlid.BrakeSlipCorrectionM, 0.08);
     }
 
+    [Fact]
+    public void What_the_fusion_added_for_the_slip_is_taken_off_before_the_prior_s_shortfall_is_added()
+    {
+        // The fusion added k_b·∫v·max(−a, 0) dt to the wheel's distance (here as if C = 20): over
+        // the stop that is taken off again, and the prior's expected shortfall added as for the
+        // wheel's own pulses, so both give the same stop.
+        Trajectory wheel = WheelSeen(21.64);
+        double[] added = new double[wheel.Count];
+        double work = 0;
+        for (int i = 1; i < wheel.Count; i++)
+        {
+            double dt = wheel.TimeS[i] - wheel.TimeS[i - 1];
+            work += 0.5 * ((Math.Max(-wheel.AccelMps2[i], 0) * wheel.SpeedMps[i]) + (Math.Max(-wheel.AccelMps2[i - 1], 0) * wheel.SpeedMps[i - 1])) * dt;
+            added[i] = work / (G0 * 20);
+        }
+
+        var fusedDistance = new double[wheel.Count];
+        for (int i = 0; i < wheel.Count; i++)
+        {
+            fusedDistance[i] = wheel.DistanceM[i] + added[i];
+        }
+
+        Trajectory fused = new() { TimeS = wheel.TimeS, DistanceM = fusedDistance, SpeedMps = wheel.SpeedMps, AccelMps2 = wheel.AccelMps2 };
+        BrakingResult fromFused = BrakingAnalyzer.Analyze(fused, [new Estimate(OnsetS, 0.001)], null, null, 0.001, null, null, added)!;
+        BrakingResult fromWheel = BrakingAnalyzer.Analyze(wheel, [new Estimate(OnsetS, 0.001)], null, null, 0.001)!;
+        Assert.Equal(fromWheel.StoppingDistanceM.Value, fromFused.StoppingDistanceM.Value, 6);
+        Assert.Equal(fromWheel.BrakeSlipCorrectionM, fromFused.BrakeSlipCorrectionM, 9);
+        Assert.Equal(TrueDistance, fromFused.StoppingDistanceM.Value, 0.03);
+    }
+
     /// <summary>The stop as the wheel's pulses give it with a tyre of slip stiffness C: the car's
     /// speed v and deceleration d(t), the wheel's speed v·(1 − d/(g0·C)), its distance integrated.</summary>
     private static Trajectory WheelSeen(double stiffness)
