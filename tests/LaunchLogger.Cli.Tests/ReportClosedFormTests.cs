@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using LaunchLogger.Cli.Verbs;
+using LaunchLogger.Decoding.Braking;
 
 namespace LaunchLogger.Cli.Tests;
 
@@ -174,7 +175,8 @@ public class ReportClosedFormTests
         var output = new StringWriter();
         var error = new StringWriter();
         ExitCode code = ReportCommand.Run(
-            new ReportRequest { Edges = new FileInfo(edges), Accel = new FileInfo(accel), MetresPerPulse = MetresPerPulse, Weather = weather, Json = true },
+            // The edges are the car's own positions: a wheel that does not slip under braking.
+            new ReportRequest { Edges = new FileInfo(edges), Accel = new FileInfo(accel), MetresPerPulse = MetresPerPulse, Weather = weather, Json = true, BrakeSlip = BrakeSlipPrior.None },
             output,
             error);
         Assert.True(code == ExitCode.Ok, $"exit {code}: {error}");

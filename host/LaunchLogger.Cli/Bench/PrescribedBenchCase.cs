@@ -39,7 +39,8 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// timestamps with 0–20 µs jitter or a counter polled every 0.1–1 ms; an accelerometer at
     /// 100–1600 Hz with bias, tilt, noise and a drifting clock; the pickup on an undriven wheel
     /// that lags the road while it is spun up (<see cref="SpinUpLag.Draw"/>, from a stream of its
-    /// own, so every other part of a record is as it was without); half as logs written by the
+    /// own, so every other part of a record is as it was without) and slips while braked
+    /// (<see cref="BrakeSlip.Draw"/>, again from a stream of its own); half as logs written by the
     /// firmware core, half as CSV files. Every stop from cruise is then added once more, after
     /// those, as a log with a brake switch (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>),
     /// its delay drawn from a stream of its own so the records above stay as they are.</summary>
@@ -50,6 +51,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
         var random = new Random(unchecked((seed * 31) + 7));
         var wheelRandom = new Random(unchecked((seed * 37) + 13));
         var scaleRandom = new Random(unchecked((seed * 977) + 5));
+        var brakeRandom = new Random(unchecked((seed * 41) + 17));
         var cases = new List<PrescribedBenchCase>(runs);
         var made = new int[Shares.Length];
         for (int i = 0; i < runs; i++)
@@ -76,10 +78,11 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             double period = 1e-4 * Math.Pow(10, random.NextDouble());
             double rate = rates[random.Next(rates.Length)];
             (double scaleError, LaunchLogger.Decoding.Estimate? told) = AccelScaleDraw.Draw(scaleRandom, calibratedAccel);
+            BrakeSlip brake = BrakeSlip.Draw(brakeRandom);
             var spec = new PrescribedRecordSpec
             {
                 Shape = shape,
-                Pickup = new WheelPickup(toothCount, tyre, random.NextDouble(), SpinUp: SpinUpLag.Draw(wheelRandom, circumference)),
+                Pickup = new WheelPickup(toothCount, tyre, random.NextDouble(), SpinUp: SpinUpLag.Draw(wheelRandom, circumference), Brake: brake),
                 Edges = new EdgeTiming(5e-6, 20e-6 * random.NextDouble()),
                 Polled = polled ? new PolledCounter(period, 0.1, 1, 5e-3) : null,
                 Accel = new AccelSensor
@@ -94,7 +97,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
                 Seed = random.Next(),
             };
             bool asLog = i % 2 == 1;
-            string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz, scale {scaleError * 100:+0.00;-0.00} %; {(asLog ? "log" : "CSV")}");
+            string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz, scale {scaleError * 100:+0.00;-0.00} %; braked tyre C {brake.SlipStiffness:0.0}; {(asLog ? "log" : "CSV")}");
             cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary) { AccelCalibration = told, TyreCalibration = calibratedTyre ? tyreTold : null, StaticTyreM = calibratedTyre ? null : tyre.StatedCircumferenceM });
         }
 

@@ -176,6 +176,7 @@ public static class ReportCommand
                 RolloutM = request.RolloutM,
                 Weather = weather,
                 StopFromMps = request.StopFrom.Select(SpeedInterval.ParseSpeedMps).ToList(),
+                BrakeSlip = request.BrakeSlip,
             };
         }
         catch (FormatException e)

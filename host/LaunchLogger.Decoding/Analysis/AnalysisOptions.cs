@@ -38,6 +38,10 @@ public sealed record AnalysisOptions
     /// <summary>1-σ of a measured <see cref="BrakeSwitchDelayS"/>, s.</summary>
     public double BrakeSwitchDelaySigmaS { get; init; } = 0.001;
 
+    /// <summary>The pickup tyre's slip stiffness under braking, for the shortfall of its pulses
+    /// over a stop (<see cref="Braking.BrakeSlipPrior"/>); car tyres unless told.</summary>
+    public Braking.BrakeSlipPrior BrakeSlip { get; init; } = Braking.BrakeSlipPrior.CarTyres;
+
     /// <summary>Verdict thresholds.</summary>
     public VerdictLimits Limits { get; init; } = VerdictLimits.Default;
 }

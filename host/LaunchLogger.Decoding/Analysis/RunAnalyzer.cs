@@ -20,6 +20,7 @@ public static class RunAnalyzer
         ReconstructionOptions reconstructionOptions = options.RolloutM is { } rollout
             ? options.Reconstruction with { RolloutM = rollout }
             : options.Reconstruction;
+        reconstructionOptions = reconstructionOptions with { BrakeSlip = options.BrakeSlip };
         if (options.Calibration is { CircumferenceM: > 0 and { } circumference, CircumferenceSigmaM: { } circumferenceSigma })
         {
             // A measured circumference brings its own σ in place of the static value's.
@@ -53,7 +54,7 @@ public static class RunAnalyzer
 
         Estimate[] brakeOn = BrakeSwitchOnsets(run, reconstruction, options);
         (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
-        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions));
+        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions), [.. reconstruction.BrakingSlideWindows, .. reconstruction.WheelspinWindows], options.BrakeSlip, reconstruction.BrakeSlipDistanceM);
 
         // Nothing reached after brake onset is an acceleration figure.
         double? onset = braking?.OnsetS.Value;

@@ -40,13 +40,6 @@ public static class BrakingAnalyzer
     /// 80–100 teeth and exact edges, where the position noise alone explains under 10 ms.</summary>
     public const double SmootherSpreadS = 0.02;
 
-    /// <summary>Longitudinal slip stiffness of a braked tyre per unit load: slip = (braking force ÷
-    /// load) ÷ this, 20–30 for car tyres (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1); the
-    /// softer end is taken. A wheel braked at 0.6 g turns some 3 % slower than the road passes, so
-    /// pulses count a stop about that much short; no sensor here tells the tyre's stiffness, so
-    /// the shortfall counts in the stopping distance's σ wherever pulses give the distance.</summary>
-    public const double BrakeSlipStiffness = 20;
-
     /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
     public const double CorrectionTolerance = 0.10;
 
@@ -77,8 +70,16 @@ public static class BrakingAnalyzer
     /// top speed to standstill times the stop.</param>
     /// <param name="nominalSpeedsMps">As in the other overload.</param>
     /// <param name="rawAccel">As in the other overload.</param>
-    /// <param name="pulsePositionSigmaM">As in the other overload.</param>
-    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM)
+    /// <param name="pulsePositionSigmaM">As in the other overload; above 0 also says the pulses
+    /// carry the distance, so the braked wheel's slip is corrected for (<see cref="BrakeSlipShare"/>).</param>
+    /// <param name="pulsesSetAside">Stretches where the reconstruction set the pulses aside and the
+    /// accelerometer carried the distance (the wheel slid, as under ABS): no slip correction there.</param>
+    /// <param name="brakeSlip">The pickup tyre's slip stiffness; <see cref="BrakeSlipPrior.CarTyres"/> when null.</param>
+    /// <param name="fusedSlipDistanceM">What the fusion added to the pulses' distance for the
+    /// braked wheel's slip, on the trajectory's grid (<see cref="ReconstructedRun.BrakeSlipDistanceM"/>):
+    /// taken off again over the stop, which is then measured as from the pulses alone (the
+    /// fusion's slip is not yet a measurement to quote). The MFDD is the fused trajectory's.</param>
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM, IReadOnlyList<TimeWindow>? pulsesSetAside = null, BrakeSlipPrior? brakeSlip = null, double[]? fusedSlipDistanceM = null)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         ArgumentNullException.ThrowIfNull(brakeSwitchOnsets);
@@ -154,12 +155,22 @@ public static class BrakingAnalyzer
 
         double fromMps = trajectory.ValueAt(v, onset.Value);
         double fromDistance = trajectory.ValueAt(trajectory.DistanceM, onset.Value);
-        double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance;
+        // Where the pulses carry the distance, the braked wheel's slip made them count short: the
+        // expected shortfall is added, and its spread over the tyres' stiffness range is in σ.
+        // What the fusion's own slip estimate added is taken off first.
+        IReadOnlyList<TimeWindow> slid = pulsesSetAside ?? [];
+        BrakeSlipPrior tyre = brakeSlip ?? BrakeSlipPrior.CarTyres;
+        bool pulsesCarry = pulsePositionSigmaM > 0;
+        bool fused = fusedSlipDistanceM is not null;
+        double fusedSlip = fused ? trajectory.ValueAt(fusedSlipDistanceM!, standstillS) - trajectory.ValueAt(fusedSlipDistanceM!, onset.Value) : 0;
+        double slipWork = pulsesCarry ? BrakingWorkM(trajectory, onset.Value, standstillS, slid) : 0;
+        double slipCorrection = slipWork * tyre.MeanInverse;
+        double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance - fusedSlip + slipCorrection;
         // The path's own σ between onset and standstill (a circumference error counts on the stop's
         // length, not on the whole run's), and the onset's σ at the speed there.
         double pathSigma = trajectory.IntervalSigmaM(onset.Value, standstillS);
         double meanDecel = BrakingFormulas.MeanDecelerationMps2(fromMps, stopDistance);
-        double slipSigma = pulsePositionSigmaM > 0 ? BrakeSlipShare(meanDecel) * stopDistance : 0;
+        double slipSigma = slipWork * tyre.InverseSigma;
         double distanceSigma = Math.Sqrt((pathSigma * pathSigma) + Math.Pow(fromMps * onset.Sigma, 2) + (slipSigma * slipSigma));
 
         return new BrakingResult
@@ -169,9 +180,10 @@ public static class BrakingAnalyzer
             OnsetMethod = onsetMethod,
             StandstillS = standstillS,
             StoppingDistanceM = new Estimate(stopDistance, distanceSigma),
+            BrakeSlipCorrectionM = slipCorrection,
             MeanDecelMps2 = meanDecel,
             PeakDecelMps2 = peakDecel,
-            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop),
+            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop, pulsesCarry && !fused ? tyre.MeanInverse : 0, slid),
             CorrectedStops = CorrectedStops(stopDistance, fromMps, nominalSpeedsMps),
             TractionBound0To60S = BrakingFormulas.TractionBoundS(60 * Units.MpsPerMph, meanDecel),
             TractionBound0To100KmhS = BrakingFormulas.TractionBoundS(100 * Units.MpsPerKmh, meanDecel),
@@ -268,15 +280,59 @@ public static class BrakingAnalyzer
         return new Estimate(Math.Clamp(-intercept / slope, t[peak], t[hi]), sigma);
     }
 
-    /// <summary>The share of a stop's distance a braked wheel's pulses miss: its slip, deceleration
-    /// over g0 ÷ <see cref="BrakeSlipStiffness"/> at every moment; over the stop ∫ s·v dt =
-    /// (mean deceleration / (g0·C))·distance.</summary>
-    public static double BrakeSlipShare(double meanDecelMps2) => Math.Max(meanDecelMps2, 0) / Units.StandardGravity / BrakeSlipStiffness;
+    /// <summary>The expected share of a stop's distance a braked car tyre's pulses miss: its slip,
+    /// deceleration over g0 × E[1/C] at every moment (<see cref="BrakeSlipPrior.CarTyres"/>); over
+    /// a stop at a steady deceleration ∫ s·v dt = (mean deceleration / g0)·E[1/C]·distance.</summary>
+    public static double BrakeSlipShare(double meanDecelMps2) => Math.Max(meanDecelMps2, 0) / Units.StandardGravity * BrakeSlipPrior.CarTyres.MeanInverse;
+
+    /// <summary>∫ max(−a, 0)·v dt / g0 from <paramref name="fromS"/> to <paramref name="toS"/>,
+    /// outside <paramref name="setAside"/>, m: the distance a braked wheel's pulses miss there,
+    /// per unit of 1/C. Over a whole stop from v0 it is v0²/(2·g0), whatever the deceleration's
+    /// shape. The whole deceleration is taken as the brakes' (drag, which the tyres do not pass,
+    /// is a few per cent of it at motorway speed).</summary>
+    private static double BrakingWorkM(Trajectory trajectory, double fromS, double toS, IReadOnlyList<TimeWindow> setAside)
+    {
+        double[] t = trajectory.TimeS;
+        double sum = 0;
+        for (int i = 1; i < t.Length && t[i - 1] < toS; i++)
+        {
+            double lo = Math.Max(t[i - 1], fromS);
+            double hi = Math.Min(t[i], toS);
+            if (hi <= lo || Inside(setAside, 0.5 * (lo + hi)))
+            {
+                continue;
+            }
+
+            double fLo = Math.Max(-trajectory.ValueAt(trajectory.AccelMps2, lo), 0) * trajectory.ValueAt(trajectory.SpeedMps, lo);
+            double fHi = Math.Max(-trajectory.ValueAt(trajectory.AccelMps2, hi), 0) * trajectory.ValueAt(trajectory.SpeedMps, hi);
+            sum += 0.5 * (fLo + fHi) * (hi - lo);
+        }
+
+        return sum / Units.StandardGravity;
+    }
+
+    private static bool Inside(IReadOnlyList<TimeWindow> windows, double timeS)
+    {
+        foreach (TimeWindow w in windows)
+        {
+            if (timeS >= w.StartS && timeS <= w.EndS)
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
 
     private static bool Agree(Estimate line, Estimate fit) =>
         Math.Abs(line.Value - fit.Value) <= AgreementSigmas * Math.Sqrt((line.Sigma * line.Sigma) + (fit.Sigma * fit.Sigma));
 
-    private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop)
+    /// <summary>MFDD between the 0.8·v0 and 0.1·v0 crossings. Where the pulses carry the
+    /// distance, the wheel's speed and distance both read (1 − s) of the car's, so its MFDD is the
+    /// car's times (1 − s): it is divided by that, s the wheel's expected shortfall between the
+    /// crossings. From the wheel's own speed and deceleration (each (1 − s) of the car's) that
+    /// shortfall over the distance it counted is r = s·(1 − s), so s = 2r / (1 + √(1 − 4r)).</summary>
+    private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop, double meanInverseStiffness, IReadOnlyList<TimeWindow> slid)
     {
         int start = FigureCalculator.FirstIndexAtOrAfter(trajectory.TimeS, onsetS);
         double? tb = FallCrossing(trajectory, start, stop, BrakingFormulas.MfddWindowStartFraction * fromMps);
@@ -288,7 +344,10 @@ public static class BrakingAnalyzer
 
         double sb = trajectory.ValueAt(trajectory.DistanceM, b) - fromDistance;
         double se = trajectory.ValueAt(trajectory.DistanceM, e) - fromDistance;
-        return BrakingFormulas.Mfdd(fromMps / Units.MpsPerKmh, sb, se);
+        double missed = meanInverseStiffness > 0 ? BrakingWorkM(trajectory, b, e, slid) * meanInverseStiffness : 0;
+        double share = missed / (se - sb);
+        double slip = 2 * share / (1 + Math.Sqrt(Math.Max(1 - (4 * share), 0)));
+        return BrakingFormulas.Mfdd(fromMps / Units.MpsPerKmh, sb, se) / (1 - slip);
     }
 
     private static double? FallCrossing(Trajectory trajectory, int start, int stop, double speed)

@@ -60,6 +60,19 @@ public sealed class ReconstructedRun
     /// estimated (no accelerometer or no pulses).</summary>
     public Estimate? WheelSlipPerMps2 { get; init; }
 
+    /// <summary>The pickup wheel's slip under braking per m/s² of deceleration, 1/(g0·C), s²/m,
+    /// as the fusion estimated it from the pulses against the accelerometer (prior: the tyres'
+    /// stiffness range). Null when not modelled (no accelerometer or no pulses, or told that the
+    /// wheel does not slip). Modelled so that the braking shortfall stays in the braking: it is
+    /// not yet a measurement to quote, since where the brakes come on slowly (a rise over
+    /// 0.5–2 s) it came out 0.15–0.95 of the truth on the bench with a σ that does not cover it.</summary>
+    public Estimate? BrakeSlipPerMps2 { get; init; }
+
+    /// <summary>What the fusion added to the pulses' distance for the braked wheel's slip,
+    /// <see cref="BrakeSlipPerMps2"/> × ∫ v·max(−a, 0) dt, m, on the trajectory's grid: the
+    /// trajectory less this is the distance the pulses gave. Null when not modelled.</summary>
+    public double[]? BrakeSlipDistanceM { get; init; }
+
     /// <summary>True when a rest was seen before the motion, so that standing-start figures exist:
     /// the box was staged and the first pulses do not show the car already moving. False for a
     /// record that opens moving (a box armed while rolling, a restart mid-drive, a plain-text

@@ -24,7 +24,7 @@ public sealed record ReconstructionOptions
     /// exactly, so the step only sets how finely the result is reported.</summary>
     public double GridStepS { get; init; } = 0.002;
 
-    /// <summary>The most grid points whose filtered states the smoother keeps whole (160 bytes
+    /// <summary>The most grid points whose filtered states the smoother keeps whole (216 bytes
     /// each; the default, 262,144, is about 9 minutes at 2 ms). A longer run keeps every 1024th
     /// filter state and replays the rest as the backward pass needs them: the same result for
     /// about a third more time, in memory that no longer grows with the run. A memory knob, not
@@ -118,6 +118,12 @@ public sealed record ReconstructionOptions
     /// out). A driven wheel slips about 1–3 % under hard acceleration; 0.005 allows 2.5 % at
     /// 5 m/s².</summary>
     public double WheelSlipSigma { get; init; } = 0.005;
+
+    /// <summary>The pickup tyre's slip stiffness under braking: with an accelerometer and pulses
+    /// the fusion estimates the wheel's brake slip per unit of deceleration, 1/(g0·C), from this
+    /// prior (<see cref="FusionSettings.BrakeSlipSignal"/>); <see cref="Braking.BrakeSlipPrior.None"/>
+    /// leaves it out. The analysis sets it from <see cref="Analysis.AnalysisOptions.BrakeSlip"/>.</summary>
+    public Braking.BrakeSlipPrior BrakeSlip { get; init; } = Braking.BrakeSlipPrior.CarTyres;
 
     /// <summary>1-σ relative error of distance from the pulses that no sensor here can see, as a
     /// fraction: an undriven tyre slips by about (rolling resistance + the force that spins the

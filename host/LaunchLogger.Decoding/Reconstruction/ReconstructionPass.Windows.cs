@@ -74,6 +74,76 @@ internal sealed partial class ReconstructionPass
         return signal;
     }
 
+    /// <summary>The braking signal S_b(t) = ∫ v·max(−a, 0) dt on the grid, a the measured forward
+    /// acceleration at each step, counted inside <paramref name="braking"/> only (firm braking,
+    /// widened by 0.1 s each side, <see cref="BrakingWindows(StepGrid, double, double?, double, double)"/>):
+    /// a braked tyre runs slower than the road by deceleration ÷ (g0·C), so the wheel's pulses
+    /// fall short of the car's distance by S_b/(g0·C) (<see cref="FusionSettings.BrakeSlipSignal"/>).
+    /// Outside braking the input's noise and a coasting car's drag (which its tyres do not pass)
+    /// would add up over a long drive; inside, the whole deceleration is taken as the brakes'
+    /// (drag is a few per cent of it at motorway speed). Speeds from the pulses, as for
+    /// <see cref="SlipSignal"/>. Null without both sensors, or when the tyre is taken not to slip.</summary>
+    private double[]? BrakeSlipSignal(StepGrid steps, double startS, double? stopS, List<TimeWindow> braking)
+    {
+        if (accel is null || pulses is null || pulses.Length < 3 || options.BrakeSlip.MeanInverse <= 0)
+        {
+            return null;
+        }
+
+        double[] grid = steps.TimeS;
+        double[] dv = steps.StepSpeedM;
+        int n = grid.Length;
+        var signal = new double[n];
+        double stop = stopS ?? double.PositiveInfinity;
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        int i = 0;
+        int w = 0;
+        double sum = 0;
+        for (int k = k0; k + 1 < n; k++)
+        {
+            double mid = 0.5 * (grid[k] + grid[k + 1]);
+            while (w < braking.Count && braking[w].EndS < mid)
+            {
+                w++;
+            }
+
+            while (i + 1 < pulses.Length && pulses.MidS(i + 1) <= mid)
+            {
+                i++;
+            }
+
+            double dt = grid[k + 1] - grid[k];
+            double decel = w < braking.Count && braking[w].Contains(mid) ? Math.Max(-dv[k] / dt, 0) : 0;
+            if (decel > 0 && mid < stop && i + 1 < pulses.Length && pulses.MidS(i) <= mid)
+            {
+                pulses.PulsePeriod(i, out double period, out _);
+                double speed = double.IsInfinity(period) ? 0 : mpp / period;
+
+                // The braked wheel's own speed reads (1 − s) of the car's; the prior's s puts it
+                // back (else the fitted k_b would come out 1/(1 − s) high, 3–6 % in a hard stop).
+                sum += speed / Math.Max(1 - (decel * options.BrakeSlip.MeanInverse / G0), 0.5) * decel * dt;
+            }
+
+            signal[k + 1] = sum;
+        }
+
+        return signal;
+    }
+
+    /// <summary>Firm braking where the pulses are kept (<see cref="FusionSettings.FirmBrakeWindows"/>):
+    /// the stretches of <see cref="BrakingWindows(StepGrid, double, double?, double, double)"/>,
+    /// staged or not (those that hold a slide are left to <see cref="FusionSettings.BrakeWindows"/>).</summary>
+    private List<TimeWindow> FirmBraking(StepGrid steps, double startS, double? stopS)
+    {
+        if (accel is null || pulses is null || options.BrakingDecelMps2 <= 0)
+        {
+            return [];
+        }
+
+        double startSpeed = Staged ? 0 : opening?.SpeedMps.Value ?? accelOpeningSpeed?.Value ?? 0;
+        return BrakingWindows(steps, startS, stopS, options.BrakingDecelMps2, startSpeed);
+    }
+
     /// <summary>Stretches where the drive force per unit mass (measured acceleration plus typical
     /// drag and rolling resistance, averaged over 0.1 s) exceeds 0.5 m/s², widened by 0.1 s.</summary>
     private List<TimeWindow> DriveWindows(StepGrid steps, double startS, double? stopS)

@@ -36,6 +36,8 @@ internal sealed partial class ReconstructionPass
     private double[]? pulseGrowthM;
     private double finalRestFromS = double.PositiveInfinity;
     private readonly double[]? toothOffsets;
+    private double[]? brakeSlipSignal;
+    private List<TimeWindow> firmBraking = [];
 
     public ReconstructionPass(DecodedRun run, ReconstructionOptions options)
     {
@@ -141,6 +143,9 @@ internal sealed partial class ReconstructionPass
         }
 
         double[]? slipSignal = SlipSignal(steps, firstMotion.Value, stopS);
+        List<TimeWindow> firm = FirmBraking(steps, firstMotion.Value, stopS);
+        brakeSlipSignal = BrakeSlipSignal(steps, firstMotion.Value, stopS, firm);
+        firmBraking = brakeSlipSignal is null ? [] : firm.Where(w => !braking.Any(s => s.StartS < w.EndS && s.EndS > w.StartS)).ToList();
         FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         if (pulses != null && accel != null && Staged
             && (fused.Outliers > 0.25 * pulses.Length || (fused.SlipKept && Math.Abs(fused.Slip.Value) * 0.5 * G0 > 0.15)))
@@ -205,6 +210,8 @@ internal sealed partial class ReconstructionPass
             WheelspinWindows = spin,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
+            BrakeSlipPerMps2 = brakeSlipSignal is null ? null : fused.BrakeSlip,
+            BrakeSlipDistanceM = SlipDistanceWherePulsesCount(grid, brakeSlipSignal, fused.BrakeSlip.Value, [.. spin, .. braking]),
             DistanceChannel = channel,
             Staged = Staged,
             StartSpeedMps = Staged ? null : opening is { } s ? new Estimate(s.SpeedMps.Value * MeasuredScale, s.SpeedMps.Sigma * MeasuredScale) : accelOpeningSpeed,
@@ -212,6 +219,26 @@ internal sealed partial class ReconstructionPass
                 ? new Estimate(measured.Scale.Value * options.RollingOverToldCircumference, measured.Scale.Sigma * options.RollingOverToldCircumference)
                 : null,
         };
+    }
+
+    /// <summary>k_b·S_b accumulated only where the pulses were used: inside a spin or slide the
+    /// pulses were set aside and the phase started afresh after it, so nothing was added there.</summary>
+    private static double[]? SlipDistanceWherePulsesCount(double[] grid, double[]? signal, double coefficient, List<TimeWindow> setAside)
+    {
+        if (signal is null)
+        {
+            return null;
+        }
+
+        var result = new double[grid.Length];
+        for (int k = 1; k < grid.Length; k++)
+        {
+            double mid = 0.5 * (grid[k - 1] + grid[k]);
+            bool aside = setAside.Any(w => w.Contains(mid));
+            result[k] = result[k - 1] + (aside ? 0 : coefficient * (signal[k] - signal[k - 1]));
+        }
+
+        return result;
     }
 
     private static double MaxOf(double[] values)

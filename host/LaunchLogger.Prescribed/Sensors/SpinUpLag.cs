@@ -8,7 +8,7 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// Vehicle Dynamics", ch. 1): F = C·N·s, so the wheel's tread runs slower than the road by
 /// <code>s = I·a / (r²·N·C)</code>
 /// and the pulses count the road's distance times (1 − s). Only while the car speeds up: slowing,
-/// the wheel is braked and its slip is the brake's, which the generator leaves out, as before
+/// the wheel is braked and its slip is the brake's (<see cref="BrakeSlip"/>)
 /// (a driven wheel's slip is <see cref="DriveSlip"/>'s: its axle torque, not the tyre, spins it
 /// up, so its tyre passes only the drive force).</remarks>
 /// <param name="InertiaKgM2">I: the wheel's rotational inertia with tyre, brake disc and hub, kg·m².</param>

@@ -10,8 +10,8 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// The wheel turns R(t) = ∫ v / C(v) dt revolutions; pulse k (k = 1, 2, …) comes when
 /// R = (k − 1 + φ)/N, with N teeth and φ the fraction of a tooth pitch before the first tooth
 /// reaches the pickup. With a rigid tyre R = x / C, and each pulse time is a distance crossing
-/// of the trajectory. With growth, drive slip (v·(1 + κ) in place of v) or the spin-up lag of an
-/// undriven wheel (v·(1 − s)), R is integrated over chunks of at most
+/// of the trajectory. With growth, drive slip (v·(1 + κ) in place of v), the spin-up lag of an
+/// undriven wheel (v·(1 − s)) or a braked wheel's slip (v·(1 − s_b)), R is integrated over chunks of at most
 /// <see cref="ChunkS"/> by Gauss–Legendre quadrature, its error checked by comparing 12 and 24
 /// points (subdividing until they agree to 1e-12 revolutions), and each pulse time is then a
 /// root of R found by Brent's method.
@@ -24,7 +24,10 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// <param name="SpinUp">An undriven wheel's lag while the car speeds up (its rate is then
 /// v·(1 − s) / C(v)); null for a wheel without inertia, as the closed-form tests take it. Not
 /// with <paramref name="Slip"/>: a driven wheel's axle spins it up.</param>
-public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null, SpinUpLag? SpinUp = null)
+/// <param name="Brake">The wheel's slip while the car slows (its rate is then v·(1 − s_b) / C(v));
+/// null for a wheel that rolls freely under braking, as the closed-form tests take it. Goes with
+/// either of the above: every wheel is braked.</param>
+public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null, SpinUpLag? SpinUp = null, BrakeSlip? Brake = null)
 {
     /// <summary>Longest span integrated in one piece, s.</summary>
     public const double ChunkS = 0.05;
@@ -51,7 +54,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
             throw new ArgumentException("a driven wheel's slip and an undriven wheel's spin-up lag do not go together", nameof(profile));
         }
 
-        return Tyre.Rigid && Slip is null && SpinUp is null ? RigidEdges(profile) : GrowingEdges(profile);
+        return Tyre.Rigid && Slip is null && SpinUp is null && Brake is null ? RigidEdges(profile) : GrowingEdges(profile);
     }
 
     private double[] RigidEdges(MotionProfile profile)
@@ -125,7 +128,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         {
             MotionState state = s.StateAt(t - s.StartS);
             double v = state.SpeedMps;
-            double slip = (Slip?.At(state.DistanceM, state.AccelMps2) ?? 0) - (SpinUp?.At(state.AccelMps2) ?? 0);
+            double slip = (Slip?.At(state.DistanceM, state.AccelMps2) ?? 0) - (SpinUp?.At(state.AccelMps2) ?? 0) - (Brake?.At(state.AccelMps2) ?? 0);
             return v * (1 + slip) / Tyre.CircumferenceAt(v);
         }
 

@@ -77,16 +77,21 @@ public class BrakingRulesTests
     }
 
     [Fact]
-    public void WhereThePulsesGiveTheDistanceTheBrakedWheelsSlipCountsInSigma()
+    public void WhereThePulsesGiveTheDistanceTheBrakedWheelsSlipIsAddedAndItsSpreadCountsInSigma()
     {
-        // 100 km/h at 8 m/s²: a braked tyre of slip stiffness 20 per unit load (Pacejka, "Tire and
-        // Vehicle Dynamics", ch. 1, the softer end of 20–30) turns (8 / 9.80665) / 20 = 4.08 %
-        // slower than the road passes; over the stop that is 4.08 % of its v²/(2a) = 48.23 m.
+        // 100 km/h at 8 m/s²: a braked tyre of slip stiffness C per unit load turns
+        // (8 / 9.80665) / C slower than the road passes (Pacejka, "Tire and Vehicle Dynamics",
+        // ch. 1; C 15–30 for car tyres, from memory); over the stop the pulses miss
+        // v0²/(2·g0)·(1/C) = 39.3 m / C. Over C uniform in 15–30, 1/C has mean ln 2 / 15 and
+        // σ √(1/450 − (ln 2 / 15)²).
         Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
         BrakingResult pulses = BrakingAnalyzer.Analyze(stop, [1.0], pulsePositionSigmaM: 0.001)!;
         double length = V100 * V100 / 16;
-        double slip = 8 / 9.80665 / 20 * length;
-        Assert.Equal(Math.Sqrt(Math.Pow(V100 * pulses.OnsetS.Sigma, 2) + (slip * slip)), pulses.StoppingDistanceM.Sigma, 3);
+        double work = V100 * V100 / (2 * 9.80665);
+        double mean = Math.Log(2) / 15;
+        double spread = Math.Sqrt((1 / 450.0) - (mean * mean));
+        Assert.Equal(length + (work * mean), pulses.StoppingDistanceM.Value, 2);
+        Assert.Equal(Math.Sqrt(Math.Pow(V100 * pulses.OnsetS.Sigma, 2) + Math.Pow(work * spread, 2)), pulses.StoppingDistanceM.Sigma, 3);
 
         // From the accelerometer alone no wheel slips: only the onset's σ remains.
         BrakingResult accelOnly = BrakingAnalyzer.Analyze(stop, [1.0])!;

@@ -154,10 +154,11 @@ internal sealed record SyntheticRun
     }
 
     /// <summary>Reconstructs <paramref name="run"/>, made here, whose wheel has no inertia: it
-    /// does not lag the road as it is spun up, and the reconstruction is told so
-    /// (<see cref="ReconstructionOptions.UndrivenSlipPerMps2"/> 0).</summary>
+    /// does not lag the road as it is spun up, and does not slip under braking unless made to
+    /// slide; the reconstruction is told so (<see cref="ReconstructionOptions.UndrivenSlipPerMps2"/> 0,
+    /// <see cref="ReconstructionOptions.BrakeSlip"/> none).</summary>
     public static ReconstructedRun Reconstruct(DecodedRun run, ReconstructionOptions? options = null) =>
-        Reconstructor.Reconstruct(run, (options ?? ReconstructionOptions.Default) with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0 });
+        Reconstructor.Reconstruct(run, (options ?? ReconstructionOptions.Default) with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0, BrakeSlip = LaunchLogger.Decoding.Braking.BrakeSlipPrior.None });
 
     public DecodedRun Build()
     {

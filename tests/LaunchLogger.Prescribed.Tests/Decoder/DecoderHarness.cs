@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
@@ -54,17 +55,24 @@ public static class DecoderHarness
     }
 
     /// <summary>A pickup wheel without inertia (no <see cref="Sensors.SpinUpLag"/>, the
-    /// generator's simplest wheel) does not lag the road as it is spun up: the decoder is told so,
+    /// generator's simplest wheel) does not lag the road as it is spun up, and one without a
+    /// <see cref="Sensors.BrakeSlip"/> turns with the road under braking: the decoder is told so,
     /// as it is told the circumference. Any other wheel is decoded with the defaults (or
     /// <paramref name="options"/>, the test's own).</summary>
     private static AnalysisOptions? Options(PrescribedRecord record, AnalysisOptions? options)
     {
-        if (record.Spec.Pickup.SpinUp is not null || record.Spec.Pickup.Slip is not null)
+        AnalysisOptions? result = options;
+        if (record.Spec.Pickup.Brake is null)
         {
-            return options;
+            result = (result ?? new AnalysisOptions()) with { BrakeSlip = BrakeSlipPrior.None };
         }
 
-        AnalysisOptions given = options ?? new AnalysisOptions();
+        if (record.Spec.Pickup.SpinUp is not null || record.Spec.Pickup.Slip is not null)
+        {
+            return result;
+        }
+
+        AnalysisOptions given = result ?? new AnalysisOptions();
         return given with { Reconstruction = given.Reconstruction with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0 } };
     }
 }

@@ -1,5 +1,4 @@
 using LaunchLogger.Decoding.Analysis;
-using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Truth;
@@ -31,16 +30,15 @@ public class StoppingDistanceSigmaTests
         // The truth within 3 σ (the tyre rolls 0–2 % small and grows up to 0.6 % at 30 m/s).
         Assert.True(Math.Abs(error) <= 3 * sigma, what);
 
-        // No wider than the stop's own length allows: past the onset's σ and a braked tyre's slip
-        // (its deceleration over g0 ÷ a slip stiffness of 20, which this generator's wheels do not
-        // have but real ones do), the path's σ is the circumference's (1 %) and the growth's
+        // No wider than the stop's own length allows: past the onset's σ (this wheel does not
+        // slip under braking, and the decoder is told so), the path's σ is the circumference's (1 %) and the growth's
         // (0.3 % at 30 m/s) on the stop's length, with a few centimetres for the ends — where two
         // independent 1 % errors on the positions of onset and standstill, hundreds of metres down
         // the road, gave several metres.
         var options = new ReconstructionOptions();
         double onsetPart = a.Braking.FromMps * a.Braking.OnsetS.Sigma;
-        double slipPart = BrakingAnalyzer.BrakeSlipShare(a.Braking.MeanDecelMps2) * a.Braking.StoppingDistanceM.Value;
-        double path = Math.Sqrt(Math.Max((sigma * sigma) - (onsetPart * onsetPart) - (slipPart * slipPart), 0));
+        Assert.Equal(0, a.Braking.BrakeSlipCorrectionM);
+        double path = Math.Sqrt(Math.Max((sigma * sigma) - (onsetPart * onsetPart), 0));
         double allowed = ((options.CircumferenceSigmaFraction + options.TyreGrowthSigmaAt30Mps) * truth.StoppingDistanceM) + 0.1;
         Assert.True(path <= allowed, what + $", path σ {path:F3} m, allowed {allowed:F3} m");
     }

@@ -95,7 +95,7 @@ public class SensorTests
     public void A_spun_up_wheel_lags_only_while_the_car_speeds_up()
     {
         // At a steady speed and while braking the wheel turns with the road (a braked wheel's slip
-        // is the brake's, which the generator leaves out): cruise, then a stop, gives the rigid
+        // is the brake's, BrakeSlip, not given here): cruise, then a stop, gives the rigid
         // wheel's edges.
         MotionProfile p = new MotionProfileBuilder(25).Hold(2).BrakeToStop(0.3, 7).Hold(1).Build();
         double[] rigid = new WheelPickup(36, TyreModel.Calibrated(1.9), 0.4).EdgeTimes(p);
@@ -104,6 +104,49 @@ public class SensorTests
         for (int k = 0; k < rigid.Length; k++)
         {
             Assert.Equal(rigid[k], lagging[k], 8);
+        }
+    }
+
+    [Theory]
+    [InlineData(25.0, 7.0, 20.0, 36, 0.4)]
+    [InlineData(35.0, 9.5, 15.0, 100, 0.0)]
+    [InlineData(15.0, 4.0, 30.0, 12, 0.7)]
+    public void A_braked_wheel_misses_v0_squared_over_2_g_C_of_a_constant_deceleration_stop(double v0, double decel, double stiffness, int teeth, double phase)
+    {
+        // Closed form: cruise at v0, then a constant deceleration D to rest. While braking the
+        // tread runs slower than the road by s = D / (g0·C) (Pacejka, "Tire and Vehicle Dynamics",
+        // ch. 1, linear range; g0 = 9.80665 m/s², ISO 80000-3), so the wheel's distance at road
+        // distance x past the onset is (1 − s)·x; the stop's v0²/(2D) then shows as
+        // v0²/(2D) − v0²/(2·g0·C).
+        double g0 = 9.80665;
+        double s = decel / (g0 * stiffness);
+        double cruise = v0 * 2;
+        double stop = v0 * v0 / (2 * decel);
+        MotionProfile p = new MotionProfileBuilder(v0).Hold(2).Constant(v0 / decel, -decel).Hold(1).Build();
+        var pickup = new WheelPickup(teeth, TyreModel.Calibrated(1.9), phase, Brake: new BrakeSlip(stiffness));
+        double[] edges = pickup.EdgeTimes(p);
+        double pitch = 1.9 / teeth;
+        double wheelTotal = cruise + stop - (v0 * v0 / (2 * g0 * stiffness));
+        Assert.Equal((int)Math.Floor((wheelTotal / pitch) - phase) + 1, edges.Length);
+        for (int k = 0; k < edges.Length; k++)
+        {
+            double wheel = (k + phase) * pitch;
+            double road = wheel <= cruise ? wheel : cruise + ((wheel - cruise) / (1 - s));
+            Assert.Equal(road, p.StateAt(edges[k]).DistanceM, 1e-6);
+        }
+    }
+
+    [Fact]
+    public void Drawn_brake_slips_stay_in_their_stated_range()
+    {
+        // C 15–30: at 1 g the slip lies between 1/30 and 1/15.
+        var random = new Random(5);
+        for (int i = 0; i < 200; i++)
+        {
+            BrakeSlip wheel = BrakeSlip.Draw(random);
+            Assert.InRange(wheel.SlipStiffness, 15, 30);
+            Assert.InRange(wheel.At(-9.80665), 1 / 30.0, 1 / 15.0);
+            Assert.Equal(0, wheel.At(2.0));
         }
     }
 
