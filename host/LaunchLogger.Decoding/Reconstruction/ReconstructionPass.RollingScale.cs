@@ -36,6 +36,17 @@ internal sealed partial class ReconstructionPass
             return null;
         }
 
+        // The fit takes the wheel to roll freely over the launch. A slip coefficient the pulses
+        // tell apart from an undriven wheel's (beyond 3σ of the two combined) says it does not,
+        // even when it is too small to keep: a driven wheel's slip grows with the distance much as
+        // a scale error does, so the fit would read one as the other (an electric saloon's driven
+        // wheel: the scale off by a few per cent and its stops 3-5 m short, beyond their σ).
+        double apart = fused.Slip.Value - options.UndrivenSlipPerMps2;
+        if (apart * apart > 9 * (Square(fused.Slip.Sigma) + Square(options.UndrivenSlipSigma)))
+        {
+            return null;
+        }
+
         // The launch only: up to the first brake, spin or stop, and while the wheel turns freely.
         double end = stopS ?? double.PositiveInfinity;
         foreach (TimeWindow w in spin.Concat(braking))
