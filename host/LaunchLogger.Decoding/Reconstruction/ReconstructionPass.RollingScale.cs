@@ -40,9 +40,11 @@ internal sealed partial class ReconstructionPass
         // tell apart from an undriven wheel's (beyond 3σ of the two combined) says it does not,
         // even when it is too small to keep: a driven wheel's slip grows with the distance much as
         // a scale error does, so the fit would read one as the other (an electric saloon's driven
-        // wheel: the scale off by a few per cent and its stops 3-5 m short, beyond their σ).
+        // wheel: the scale off by a few per cent and its stops 3-11 m short, beyond their σ).
+        // (A record that opens moving has no launch and no slip state: its fit reads the changes
+        // of speed and the rest it ends in.)
         double apart = fused.Slip.Value - options.UndrivenSlipPerMps2;
-        if (apart * apart > 9 * (Square(fused.Slip.Sigma) + Square(options.UndrivenSlipSigma)))
+        if (Staged && apart * apart > 9 * (Square(fused.Slip.Sigma) + Square(options.UndrivenSlipSigma)))
         {
             return null;
         }
