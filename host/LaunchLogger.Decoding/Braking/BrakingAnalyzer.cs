@@ -71,7 +71,7 @@ public static class BrakingAnalyzer
     /// <param name="nominalSpeedsMps">As in the other overload.</param>
     /// <param name="rawAccel">As in the other overload.</param>
     /// <param name="pulsePositionSigmaM">As in the other overload; above 0 also says the pulses
-    /// carry the distance, so the braked wheel's slip is corrected for (<see cref="BrakeSlipShare"/>).</param>
+    /// carry the distance, so the braked wheel's slip is corrected for (<see cref="BrakeSlipPrior"/>).</param>
     /// <param name="pulsesSetAside">Stretches where the reconstruction set the pulses aside and the
     /// accelerometer carried the distance (the wheel slid, as under ABS): no slip correction there.</param>
     /// <param name="brakeSlip">The pickup tyre's slip stiffness; <see cref="BrakeSlipPrior.CarTyres"/> when null.</param>
@@ -280,11 +280,6 @@ public static class BrakingAnalyzer
         return new Estimate(Math.Clamp(-intercept / slope, t[peak], t[hi]), sigma);
     }
 
-    /// <summary>The expected share of a stop's distance a braked car tyre's pulses miss: its slip,
-    /// deceleration over g0 × E[1/C] at every moment (<see cref="BrakeSlipPrior.CarTyres"/>); over
-    /// a stop at a steady deceleration ∫ s·v dt = (mean deceleration / g0)·E[1/C]·distance.</summary>
-    public static double BrakeSlipShare(double meanDecelMps2) => Math.Max(meanDecelMps2, 0) / Units.StandardGravity * BrakeSlipPrior.CarTyres.MeanInverse;
-
     /// <summary>∫ max(−a, 0)·v dt / g0 from <paramref name="fromS"/> to <paramref name="toS"/>,
     /// outside <paramref name="setAside"/>, m: the distance a braked wheel's pulses miss there,
     /// per unit of 1/C. Over a whole stop from v0 it is v0²/(2·g0), whatever the deceleration's
@@ -298,7 +293,7 @@ public static class BrakingAnalyzer
         {
             double lo = Math.Max(t[i - 1], fromS);
             double hi = Math.Min(t[i], toS);
-            if (hi <= lo || Inside(setAside, 0.5 * (lo + hi)))
+            if (hi <= lo || InAny(setAside, 0.5 * (lo + hi)))
             {
                 continue;
             }
@@ -311,11 +306,11 @@ public static class BrakingAnalyzer
         return sum / Units.StandardGravity;
     }
 
-    private static bool Inside(IReadOnlyList<TimeWindow> windows, double timeS)
+    private static bool InAny(IReadOnlyList<TimeWindow> windows, double timeS)
     {
         foreach (TimeWindow w in windows)
         {
-            if (timeS >= w.StartS && timeS <= w.EndS)
+            if (w.Contains(timeS))
             {
                 return true;
             }

@@ -19,8 +19,8 @@ public sealed record BrakingResult
     public required Estimate StoppingDistanceM { get; init; }
 
     /// <summary>What <see cref="StoppingDistanceM"/> includes for the braked wheel's expected slip,
-    /// m: where the pulses carry the distance they count it short by the tyre's slip (see
-    /// <see cref="BrakingAnalyzer.BrakeSlipShare"/>); 0 where they do not.</summary>
+    /// m: where the pulses carry the distance they count it short by the tyre's slip
+    /// (∫ max(−a, 0)·v dt / g0 × E[1/C], <see cref="BrakeSlipPrior"/>); 0 where they do not.</summary>
     public double BrakeSlipCorrectionM { get; init; }
 
     /// <summary>Mean deceleration over the stop, from_mps² / (2 · stopping distance), m/s².</summary>

@@ -9,7 +9,7 @@ internal sealed partial class ReconstructionPass
 {
     /// <summary>Braking force per unit mass from which a wheel no longer rolls freely for the
     /// rolling-scale fit, m/s²: a braked tyre slips by about its deceleration in g over a slip
-    /// stiffness of 20 (<c>BrakingAnalyzer.BrakeSlipShare</c>), 0.25 % here, and the fit's window
+    /// stiffness of 15–30 (<c>BrakeSlipPrior.CarTyres</c>), 0.17–0.34 % here, and the fit's window
     /// closes 0.1 s before it is reached.</summary>
     private const double FreeRollingBrakeMps2 = 0.5;
 
