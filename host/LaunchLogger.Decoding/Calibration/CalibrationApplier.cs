@@ -64,20 +64,7 @@ public static class CalibrationApplier
             return run;
         }
 
-        return new DecodedRun
-        {
-            Source = run.Source,
-            Configuration = configuration,
-            Pulses = run.Pulses,
-            SecondPulses = run.SecondPulses,
-            Accel = run.Accel,
-            Events = run.Events,
-            RestGravityMilliG = run.RestGravityMilliG,
-            FirmwareMotionS = run.FirmwareMotionS,
-            FirmwareRolloutS = run.FirmwareRolloutS,
-            Health = run.Health,
-            Complete = run.Complete,
-            Warnings = [.. run.Warnings, .. notes],
-        };
+        // A copy of everything else: a property added to the run later is carried over too.
+        return run with { Configuration = configuration, Warnings = [.. run.Warnings, .. notes] };
     }
 }

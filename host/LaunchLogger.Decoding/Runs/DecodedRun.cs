@@ -4,7 +4,7 @@ namespace LaunchLogger.Decoding.Runs;
 /// accelerometer samples, events and what went wrong while capturing or reading.</summary>
 /// <remarks>Made by the log reader's run assembler or by the plain-text importers; consumed by
 /// reconstruction. Times are seconds on the input's own axis (the box's clock for logs).</remarks>
-public sealed class DecodedRun
+public sealed record DecodedRun
 {
     /// <summary>Where the run came from (file name, and run number for logs).</summary>
     public required string Source { get; init; }

@@ -1,6 +1,7 @@
 using System.Reflection;
 using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Firmware.Wire;
 
 namespace LaunchLogger.Decoding.Tests.Calibration;
 
@@ -51,7 +52,27 @@ public class CalibrationApplierTests
     [Fact]
     public void EverythingElseIsCarriedOverUnchanged()
     {
-        DecodedRun run = Run();
+        // Every property holds something other than its default, so that a copy which drops
+        // one (the lost-frame count once was) cannot pass by default equalling default.
+        DecodedRun launch = Run();
+        DecodedRun run = launch with
+        {
+            SecondPulses = launch.Pulses,
+            Events = [new RunEvent(EventKind.Motion, 2.0, [])],
+            RestGravityMilliG = (20, 0, 1000),
+            FirmwareMotionS = 2.001,
+            FirmwareRolloutS = 2.45,
+            Health = new Dictionary<string, long> { ["clock_wraps"] = 1 },
+            FramesLost = 3,
+            Complete = true,
+            Warnings = ["1 CRC error"],
+        };
+        foreach (PropertyInfo property in typeof(DecodedRun).GetProperties().Where(p => p.GetIndexParameters().Length == 0 && p.Name != "EqualityContract"))
+        {
+            object? value = property.GetValue(run);
+            object? fallback = property.PropertyType.IsValueType ? Activator.CreateInstance(property.PropertyType) : null;
+            Assert.False(Equals(value, fallback) || value is System.Collections.IEnumerable { } e && value is not string && !e.Cast<object>().Any(), $"give {property.Name} a value in this test");
+        }
 
         DecodedRun applied = CalibrationApplier.Apply(run, new CalibrationSettings { CircumferenceM = 1.92 });
 
