@@ -70,7 +70,7 @@ public class CalibrateTeethCommandTests
     }
 
     [Fact]
-    public void TextOutputListsEveryToothAndSaysTheMapIsNotAppliedYet()
+    public void TextOutputListsEveryToothAndSaysHowTheReportUsesTheMap()
     {
         using var folder = new TempFolder();
         string log = CalibrateDistanceCommandTests.Write(folder, "cruise.log", Cruise.Value.LogBytes);
@@ -82,7 +82,7 @@ public class CalibrateTeethCommandTests
         string text = output.ToString();
         Assert.Contains(" 47 ", text, StringComparison.Ordinal);
         Assert.Contains("hardware count mod 48", text, StringComparison.Ordinal);
-        Assert.Contains("does not apply the map yet", text, StringComparison.Ordinal);
+        Assert.Contains("`report --settings` places each edge by it", text, StringComparison.Ordinal);
     }
 
     [Fact]

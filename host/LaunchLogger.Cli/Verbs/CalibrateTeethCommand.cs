@@ -94,7 +94,7 @@ public static class CalibrateTeethCommand
 
         int worst = Enumerable.Range(0, n).MaxBy(k => Math.Abs(map.Spacing[k] - 1));
         output.WriteLine($"  spread: rms {F(map.RmsDeviation * 100, "0.00")} %, largest {Signed((map.Spacing[worst] - 1) * 100, "0.00")} % (tooth {worst}); typical σ {F(map.Sigma.Average() * 100, "0.000")} %");
-        output.WriteLine($"  speeds from single intervals are off by up to {F(map.MaxDeviation * 100, "0.0")} % without the map. `report` does not apply the map yet (distances use the mean spacing).");
+        output.WriteLine($"  speeds from single intervals are off by up to {F(map.MaxDeviation * 100, "0.0")} % without the map. `report --settings` places each edge by it, once a run's steady revolutions show which tooth is which.");
     }
 
     private static void WriteJson(ToothSpacingMap map, FileInfo? settings, TextWriter output)
@@ -113,7 +113,7 @@ public static class CalibrateTeethCommand
             map.BracketNoiseFraction,
             map.RmsDeviation,
             map.MaxDeviation,
-            AppliedByReport = false,
+            AppliedByReport = true,
             SavedTo = settings?.ToString(),
             map.Warnings,
         };

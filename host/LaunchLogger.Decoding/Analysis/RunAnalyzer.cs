@@ -42,6 +42,12 @@ public static class RunAnalyzer
             reconstructionOptions = reconstructionOptions with { AccelScaleCalibration = new Estimate(accelScale, accelScaleSigma) };
         }
 
+        if (options.Calibration is { } settings && ToothGaps.From(settings) is { } gaps && gaps.Spacing.Count == run.Configuration.PulsesPerRevolution)
+        {
+            // A saved map of the ring: the reconstruction turns it to the run and says whether it could.
+            reconstructionOptions = reconstructionOptions with { SavedToothGaps = gaps };
+        }
+
         ReconstructedRun reconstruction;
         try
         {

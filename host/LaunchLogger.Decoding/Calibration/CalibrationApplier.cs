@@ -15,10 +15,10 @@ namespace LaunchLogger.Decoding.Calibration;
 /// which divides the forward input and lets a standing start measure the pulses' scale.</para>
 /// <para>Not applied here: the mounting pitch, which the grade estimate subtracts from the
 /// resting pitch (<see cref="CalibrationSettings.MountingPitchRad"/>), and the yaw. The
-/// tooth-spacing map is not applied yet: the run's pulse records carry counts only, so per-pulse
-/// distances would need the reconstruction to take them; distances keep the mean pulse spacing,
-/// which the map does not change (it averages 1), and the run's warnings say so. The box's own
-/// first-motion and rollout marks stay as the box logged them, with its configured circumference.</para>
+/// tooth-spacing map goes to the reconstruction (<see cref="ToothGaps"/>), which turns it to the
+/// run's ring and places each edge by it; here only a map of another pickup (its length not the
+/// run's pulses per revolution) is noted. The box's own first-motion and rollout marks stay as
+/// the box logged them, with its configured circumference.</para>
 /// </remarks>
 public static class CalibrationApplier
 {
@@ -52,11 +52,9 @@ public static class CalibrationApplier
             }
         }
 
-        if (settings.ToothSpacing is { } map)
+        if (settings.ToothSpacing is { } map && map.Count != configuration.PulsesPerRevolution)
         {
-            notes.Add(map.Count == configuration.PulsesPerRevolution
-                ? "calibration: the settings' tooth-spacing map is not applied to distances yet; they use the mean pulse spacing"
-                : Invariant($"calibration: the settings' tooth-spacing map has {map.Count} entries but the run has {configuration.PulsesPerRevolution} pulses per revolution; it does not belong to this pickup"));
+            notes.Add(Invariant($"calibration: the settings' tooth-spacing map has {map.Count} entries but the run has {configuration.PulsesPerRevolution} pulses per revolution; it does not belong to this pickup and is not applied"));
         }
 
         if (notes.Count == 0)

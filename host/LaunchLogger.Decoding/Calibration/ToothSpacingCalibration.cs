@@ -41,6 +41,13 @@ public static class ToothSpacingCalibration
     /// <summary>Steady revolutions recommended (calibration.md §4: at least 100).</summary>
     public const int RecommendedRevolutions = 100;
 
+    /// <summary>Fewest steady sightings of every tooth over which a saved map is turned to a run
+    /// (<see cref="Align"/>).</summary>
+    public const int MinimumAlignmentRevolutions = 3;
+
+    /// <summary>How much lower χ² the best turn of a saved map must reach than the next best.</summary>
+    public const double AlignmentMargin = 25;
+
     /// <summary>Largest per-tooth uncertainty the brackets alone may leave (a quarter of the
     /// 1 % pitch errors a map is for).</summary>
     public const double MaxBracketNoisePerTooth = 0.0025;
@@ -80,44 +87,12 @@ public static class ToothSpacingCalibration
     {
         ArgumentNullException.ThrowIfNull(pulses);
         refusal = null;
-        var times = new Dictionary<long, double>(pulses.Count);
-        var widths = new List<double>(pulses.Count);
-        foreach (PulseRecord p in pulses)
-        {
-            if (p.HiS >= p.LoS && !double.IsNaN(p.LoS))
-            {
-                times[p.Count] = p.MidS;
-                widths.Add(p.WidthS);
-            }
-        }
-
-        long origin = originCount ?? 0;
-        var perTooth = new List<(double Time, double Ratio)>[n];
-        for (int k = 0; k < n; k++)
-        {
-            perTooth[k] = [];
-        }
-
-        var intervals = new List<double>();
-        double usedTime = 0;
-        int used = 0;
-        foreach ((long c, double t) in times)
-        {
-            if (!times.TryGetValue(c - 1, out double previous)
-                || !TryRevolution(times, c, n, out double revolutionS)
-                || !IsSteady(times, c, n))
-            {
-                continue;
-            }
-
-            double interval = t - previous;
-            intervals.Add(interval);
-            int k = (int)(((origin + c) % n + n) % n);
-            perTooth[k].Add((t, interval * n / revolutionS));
-            usedTime += interval;
-            used++;
-        }
-
+        Steady steady = Collect(pulses, n, originCount ?? 0);
+        var perTooth = steady.PerTooth;
+        var intervals = steady.Intervals;
+        var widths = steady.Widths;
+        int used = steady.Used;
+        double usedTime = steady.UsedTimeS;
         if (used < MinimumRevolutions * n)
         {
             refusal = Invariant($"{source}: only {(double)used / n:0.#} steady revolutions (at least {MinimumRevolutions} needed, {RecommendedRevolutions} or more recommended): hold a light, constant throttle for longer");
@@ -198,6 +173,135 @@ public static class ToothSpacingCalibration
             Warnings = warnings,
         };
     }
+
+    /// <summary>Turns a saved map (<see cref="CalibrationSettings.ToothSpacing"/>) to the run's own
+    /// numbering: finds r such that the run's gap k (its count ≡ k mod n) is the map's entry
+    /// (k + r) mod n, from the run's steady revolutions, or says why it cannot.</summary>
+    /// <remarks>
+    /// <para>The box's counter keeps step with the ring only while it stays powered, so a map saved
+    /// from another session names its teeth from an unknown one. The run's own steady intervals,
+    /// each against its revolution (as <see cref="Measure(IReadOnlyList{PulseRecord}, int, double, string, long?, out string?)"/>
+    /// takes them), give every tooth's gap with a σ from their scatter (never below the
+    /// brackets'); each of the n turns of the map is scored by χ² against them. The best turn is
+    /// taken only when it fits (χ² within what its degrees of freedom allow, so a map of another
+    /// ring is refused) and the next best is worse by at least <see cref="AlignmentMargin"/> (odds
+    /// of e^(margin/2) to one that the turn is not a near tie, well past the n − 1 other turns).
+    /// A few revolutions do: the map needs a hundred to know each gap to a tenth of a per cent,
+    /// but telling n turns apart needs only the pattern.</para>
+    /// </remarks>
+    /// <param name="pulses">The run's distance channel.</param>
+    /// <param name="spacing">The saved map: relative gap lengths, mean 1.</param>
+    /// <param name="sigma">1-σ of each entry.</param>
+    /// <param name="refusal">Why the map cannot be turned to this run.</param>
+    /// <returns>The turn, or null.</returns>
+    public static ToothMapTurn? Align(IReadOnlyList<PulseRecord> pulses, IReadOnlyList<double> spacing, IReadOnlyList<double> sigma, out string? refusal)
+    {
+        ArgumentNullException.ThrowIfNull(pulses);
+        ArgumentNullException.ThrowIfNull(spacing);
+        ArgumentNullException.ThrowIfNull(sigma);
+        int n = spacing.Count;
+        refusal = null;
+        if (n < 2 || sigma.Count != n)
+        {
+            refusal = "the saved map needs a σ for each of at least 2 entries";
+            return null;
+        }
+
+        Steady steady = Collect(pulses, n, 0);
+        int fewest = steady.PerTooth.Min(t => t.Count);
+        if (fewest < MinimumAlignmentRevolutions)
+        {
+            refusal = Invariant($"the run has {fewest} steady revolutions for its least-seen tooth ({MinimumAlignmentRevolutions} needed to tell which tooth is which)");
+            return null;
+        }
+
+        double bracketNoise = Median(steady.Widths) / Math.Sqrt(6) / Median(steady.Intervals);
+        var gap = new double[n];
+        var variance = new double[n];
+        for (int k = 0; k < n; k++)
+        {
+            double[] ratios = steady.PerTooth[k].Select(e => e.Ratio).ToArray();
+            Robust mean = Robust.Mean(ratios, 0, ratios.Length);
+            double floor = bracketNoise / Math.Sqrt(ratios.Length);
+            gap[k] = mean.Value;
+            variance[k] = Math.Max(mean.Sigma * mean.Sigma, floor * floor);
+        }
+
+        double scale = gap.Average();
+        var chiSquare = new double[n];
+        for (int r = 0; r < n; r++)
+        {
+            for (int k = 0; k < n; k++)
+            {
+                int j = (k + r) % n;
+                double d = (gap[k] / scale) - spacing[j];
+                chiSquare[r] += d * d / ((variance[k] / (scale * scale)) + (sigma[j] * sigma[j]));
+            }
+        }
+
+        int best = Array.IndexOf(chiSquare, chiSquare.Min());
+        double next = Enumerable.Range(0, n).Where(r => r != best).Min(r => chiSquare[r]);
+        double allowed = n + (5 * Math.Sqrt(2.0 * n));
+        if (chiSquare[best] > allowed)
+        {
+            refusal = Invariant($"the saved map fits this run's ring at no turn (χ² {chiSquare[best]:0} for {n} teeth, {allowed:0} allowed): it is another ring's, or the ring was refitted");
+            return null;
+        }
+
+        if (next - chiSquare[best] < AlignmentMargin)
+        {
+            refusal = Invariant($"the run's {(double)steady.Used / n:0} steady revolutions do not tell which tooth is which (the best turn is ahead of the next by {next - chiSquare[best]:0.#} in χ², {AlignmentMargin:0} needed)");
+            return null;
+        }
+
+        return new ToothMapTurn(best, (double)steady.Used / n, chiSquare[best], next - chiSquare[best]);
+    }
+
+    /// <summary>The steady tooth intervals of one channel, each divided by its revolution's mean
+    /// interval and filed under its tooth (gap k ends where origin + count ≡ k mod n).</summary>
+    private static Steady Collect(IReadOnlyList<PulseRecord> pulses, int n, long origin)
+    {
+        var times = new Dictionary<long, double>(pulses.Count);
+        var widths = new List<double>(pulses.Count);
+        foreach (PulseRecord p in pulses)
+        {
+            if (p.HiS >= p.LoS && !double.IsNaN(p.LoS))
+            {
+                times[p.Count] = p.MidS;
+                widths.Add(p.WidthS);
+            }
+        }
+
+        var perTooth = new List<(double Time, double Ratio)>[n];
+        for (int k = 0; k < n; k++)
+        {
+            perTooth[k] = [];
+        }
+
+        var intervals = new List<double>();
+        double usedTime = 0;
+        int used = 0;
+        foreach ((long c, double t) in times)
+        {
+            if (!times.TryGetValue(c - 1, out double previous)
+                || !TryRevolution(times, c, n, out double revolutionS)
+                || !IsSteady(times, c, n))
+            {
+                continue;
+            }
+
+            double interval = t - previous;
+            intervals.Add(interval);
+            int k = (int)(((origin + c) % n + n) % n);
+            perTooth[k].Add((t, interval * n / revolutionS));
+            usedTime += interval;
+            used++;
+        }
+
+        return new Steady(perTooth, intervals, widths, used, usedTime);
+    }
+
+    private sealed record Steady(List<(double Time, double Ratio)>[] PerTooth, List<double> Intervals, List<double> Widths, int Used, double UsedTimeS);
 
     /// <summary>The time of one revolution centred on the gap that ends at count <paramref name="c"/>.</summary>
     private static bool TryRevolution(Dictionary<long, double> times, long c, int n, out double revolutionS)
@@ -280,3 +384,10 @@ public static class ToothSpacingCalibration
         return sorted.Length == 0 ? 0 : sorted[sorted.Length / 2];
     }
 }
+
+/// <summary>How a saved tooth map is turned to a run.</summary>
+/// <param name="Shift">The run's gap k is the map's entry (k + Shift) mod n.</param>
+/// <param name="Revolutions">Steady revolutions of the run it rests on.</param>
+/// <param name="ChiSquare">χ² of the map at that turn against the run's gaps.</param>
+/// <param name="Margin">How much higher the next best turn's χ² was.</param>
+public sealed record ToothMapTurn(int Shift, double Revolutions, double ChiSquare, double Margin);

@@ -40,6 +40,11 @@ public sealed record ReconstructionOptions
     /// its even place with <see cref="ToothSpacingErrorFraction"/>.</summary>
     public bool MeasureToothPositions { get; init; } = true;
 
+    /// <summary>A saved map of the distance channel's ring (the settings' tooth spacing), used
+    /// with <see cref="MeasureToothPositions"/> when the run's steady revolutions tell how to turn
+    /// it to the run (<see cref="ToothPositions"/>); null: none.</summary>
+    public Calibration.ToothGaps? SavedToothGaps { get; init; }
+
     /// <summary>1-σ timing jitter of an edge time beyond its bracket, seconds.</summary>
     public double EdgeJitterS { get; init; } = 5e-6;
 

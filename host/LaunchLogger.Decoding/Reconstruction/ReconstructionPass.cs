@@ -70,8 +70,9 @@ internal sealed partial class ReconstructionPass
 
         if (pulses != null && channel == 0 && options.MeasureToothPositions)
         {
-            // The ring's own tooth positions, measured over the run's steady revolutions.
-            toothOffsets = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction)?.Offsets(pulses);
+            // The ring's own tooth positions, measured over the run's steady revolutions (and a
+            // saved map of it, turned to the run).
+            toothOffsets = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction, options.SavedToothGaps, warnings)?.Offsets(pulses);
         }
 
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;

@@ -1,3 +1,4 @@
+using System.Globalization;
 using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Runs;
 
@@ -40,16 +41,51 @@ internal sealed class ToothPositions
     public double SigmaPulses { get; }
 
     /// <summary>Measures the ring's edge places from <paramref name="pulses"/>, numbered by the
-    /// run's own count; null when the run gives no map, or one no better than
-    /// <paramref name="priorFraction"/> (the prior's σ, in pitches).</summary>
-    public static ToothPositions? Measure(IReadOnlyList<PulseRecord> pulses, int n, double metresPerPulse, string source, double priorFraction)
+    /// run's own count, and from a saved map turned to the run where one is given; null when
+    /// neither gives a map, or one no better than <paramref name="priorFraction"/> (the prior's
+    /// σ, in pitches).</summary>
+    /// <param name="pulses">The distance channel.</param>
+    /// <param name="n">Pulses per revolution.</param>
+    /// <param name="metresPerPulse">Distance per pulse, m.</param>
+    /// <param name="source">The run's name.</param>
+    /// <param name="priorFraction">The prior's σ of an edge, in pitches.</param>
+    /// <param name="saved">The settings' map of this ring (<see cref="CalibrationSettings.ToothSpacing"/>),
+    /// or null; used only when the run's steady revolutions tell how to turn it
+    /// (<see cref="ToothSpacingCalibration.Align"/>), and then weighed with the run's own map by
+    /// each gap's σ.</param>
+    /// <param name="notes">Where to say whether the saved map was used, and why not.</param>
+    public static ToothPositions? Measure(IReadOnlyList<PulseRecord> pulses, int n, double metresPerPulse, string source, double priorFraction, ToothGaps? saved = null, ICollection<string>? notes = null)
     {
-        if (n < 2 || pulses.Count < ToothSpacingCalibration.MinimumRevolutions * n)
+        if (n < 2)
         {
             return null;
         }
 
-        if (ToothSpacingCalibration.Measure(pulses, n, metresPerPulse, source, null, out _) is not { HalvesDisagree: false } map)
+        double[]? spacing = null;
+        double[]? sigmas = null;
+        if (pulses.Count >= ToothSpacingCalibration.MinimumRevolutions * n
+            && ToothSpacingCalibration.Measure(pulses, n, metresPerPulse, source, null, out _) is { HalvesDisagree: false } own)
+        {
+            spacing = [.. own.Spacing];
+            sigmas = [.. own.Sigma];
+        }
+
+        string? savedNote = null;
+        if (saved is { } map && map.Spacing.Count == n)
+        {
+            if (ToothSpacingCalibration.Align(pulses, map.Spacing, map.Sigma, out string? refusal) is not { } turn)
+            {
+                notes?.Add($"calibration: the settings' tooth-spacing map is not applied to this run: {refusal}");
+            }
+            else
+            {
+                string withOwn = spacing is null ? "" : ", weighed with the map the run itself gives";
+                (spacing, sigmas) = Combine(map, turn.Shift, spacing, sigmas);
+                savedNote = string.Create(CultureInfo.InvariantCulture, $"calibration: the settings' tooth-spacing map is applied, its entry {turn.Shift} taken as this run's tooth 0 (found over {turn.Revolutions:0} steady revolutions{withOwn})");
+            }
+        }
+
+        if (spacing is null || sigmas is null)
         {
             return null;
         }
@@ -58,12 +94,12 @@ internal sealed class ToothPositions
         double variance = 0;
         for (int k = 1; k < n; k++)
         {
-            place[k] = place[k - 1] + map.Spacing[k] - 1;
+            place[k] = place[k - 1] + spacing[k] - 1;
         }
 
         for (int k = 0; k < n; k++)
         {
-            variance += map.Sigma[k] * map.Sigma[k];
+            variance += sigmas[k] * sigmas[k];
         }
 
         double mean = place.Average();
@@ -73,7 +109,48 @@ internal sealed class ToothPositions
         }
 
         double sigma = 0.5 * Math.Sqrt(variance);
-        return sigma < priorFraction ? new ToothPositions(place, sigma) : null;
+        if (sigma >= priorFraction)
+        {
+            if (savedNote != null)
+            {
+                notes?.Add(string.Create(CultureInfo.InvariantCulture, $"calibration: the settings' tooth-spacing map is not applied to this run: with it each edge is known to {sigma * 100:0.##} % of a pitch, no better than the {priorFraction * 100:0.##} % taken without a map"));
+            }
+
+            return null;
+        }
+
+        if (savedNote != null)
+        {
+            notes?.Add(savedNote);
+        }
+
+        return new ToothPositions(place, sigma);
+    }
+
+    /// <summary>The saved map turned to the run (entry (k + shift) mod n is the run's gap k),
+    /// weighed with the run's own map where there is one, each gap by the inverse of its variance.</summary>
+    private static (double[] Spacing, double[] Sigma) Combine(ToothGaps saved, int shift, double[]? own, double[]? ownSigma)
+    {
+        int n = saved.Spacing.Count;
+        var spacing = new double[n];
+        var sigma = new double[n];
+        for (int k = 0; k < n; k++)
+        {
+            int j = (k + shift) % n;
+            double w = 1 / (saved.Sigma[j] * saved.Sigma[j]);
+            double sum = w * saved.Spacing[j];
+            if (own != null && ownSigma != null)
+            {
+                double v = 1 / (ownSigma[k] * ownSigma[k]);
+                sum += v * own[k];
+                w += v;
+            }
+
+            spacing[k] = sum / w;
+            sigma[k] = 1 / Math.Sqrt(w);
+        }
+
+        return (spacing, sigma);
     }
 
     /// <summary>Each observation's edge place less its count, in pitches.</summary>

@@ -99,7 +99,7 @@ public class CalibrationApplierTests
     }
 
     [Fact]
-    public void TheToothMapIsNotAppliedAndTheRunSaysSo()
+    public void AToothMapIsLeftToTheReconstructionAndAnotherPickupsIsNoted()
     {
         DecodedRun run = Run();
         double[] map = Enumerable.Range(0, 48).Select(k => k % 2 == 0 ? 1.01 : 0.99).ToArray();
@@ -107,10 +107,11 @@ public class CalibrationApplierTests
         DecodedRun applied = CalibrationApplier.Apply(run, new CalibrationSettings { ToothSpacing = map });
         DecodedRun wrongPickup = CalibrationApplier.Apply(run, new CalibrationSettings { ToothSpacing = map[..12] });
 
-        Assert.Same(run.Pulses, applied.Pulses);
-        Assert.Equal(run.Configuration, applied.Configuration);
-        Assert.Contains(applied.Warnings, w => w.Contains("not applied", StringComparison.Ordinal));
-        Assert.Contains(wrongPickup.Warnings, w => w.Contains("12 entries", StringComparison.Ordinal));
+        // The reconstruction turns the map to the run and says whether it could (ToothMapTurnTests).
+        Assert.Same(run, applied);
+        Assert.Same(run.Pulses, wrongPickup.Pulses);
+        Assert.Equal(run.Configuration, wrongPickup.Configuration);
+        Assert.Contains(wrongPickup.Warnings, w => w.Contains("12 entries", StringComparison.Ordinal) && w.Contains("not applied", StringComparison.Ordinal));
     }
 
     [Fact]

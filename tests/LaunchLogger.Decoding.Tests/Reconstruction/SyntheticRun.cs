@@ -160,17 +160,29 @@ internal sealed record SyntheticRun
     public static ReconstructedRun Reconstruct(DecodedRun run, ReconstructionOptions? options = null) =>
         Reconstructor.Reconstruct(run, (options ?? ReconstructionOptions.Default) with { UndrivenSlipPerMps2 = 0, UndrivenSlipSigma = 0, BrakeSlip = LaunchLogger.Decoding.Braking.BrakeSlipPrior.None });
 
-    public DecodedRun Build()
+    /// <summary>The ring's edge errors, metres, as <see cref="Build"/> draws them: edge n sits at
+    /// n·m − phase + e[n mod <see cref="Teeth"/>].</summary>
+    public double[] ToothErrorsM() => DrawRing(new Random(Seed), out _);
+
+    private double[] DrawRing(Random random, out double phase)
     {
-        slipTable = null;
-        var random = new Random(Seed);
         double mpp = MetresPerPulse;
-        double phase = PhaseM ?? (random.NextDouble() * mpp);
+        phase = PhaseM ?? (random.NextDouble() * mpp);
         var toothError = new double[Teeth];
         for (int i = 0; i < Teeth; i++)
         {
             toothError[i] = Gaussian(random) * ToothErrorFraction * mpp;
         }
+
+        return toothError;
+    }
+
+    public DecodedRun Build()
+    {
+        slipTable = null;
+        var random = new Random(Seed);
+        double mpp = MetresPerPulse;
+        double[] toothError = DrawRing(random, out double phase);
 
         double end = Motion.EndS;
         var pulses = new List<PulseRecord>();

@@ -1,3 +1,6 @@
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Decoding.Tests.Calibration;
@@ -100,6 +103,83 @@ public class ToothPositionsTests
         double rmsEven = Rms(even);
         Assert.True(within2 >= 0.9 * Cases, $"{within2} of {Cases} within 2σ");
         Assert.True(rmsPlaced < 0.6 * rmsEven, $"rms {rmsPlaced * 1e3:F3} ms with the edges placed, {rmsEven * 1e3:F3} ms evenly");
+    }
+
+    /// <summary>A run too short for a map of its own (a launch to about 25 km/h, two seconds
+    /// held, then a stop) on the same coarse ring, with the ring's map saved from another
+    /// session: its numbering starts five teeth on. The map's gaps are the ring's true ones
+    /// (from the drawn edges), σ 0.2 % each. Turned to the run by the held speed's revolutions,
+    /// it places the first foot's edges as the run alone cannot.</summary>
+    [Fact]
+    public void A_saved_map_places_the_edges_of_a_run_too_short_for_its_own()
+    {
+        const int Cases = 12;
+        const int Teeth = 12;
+        const int Shift = 5;
+        var placed = new List<double>();
+        var even = new List<double>();
+        int within2 = 0;
+        for (int seed = 1; seed <= Cases; seed++)
+        {
+            (SyntheticRun synthetic, ToothGaps saved) = ShortLaunchWithSavedMap(seed, Teeth, Shift);
+            DecodedRun decoded = synthetic.Build();
+            double truth = synthetic.Motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
+            ReconstructedRun withMap = SyntheticRun.Reconstruct(decoded, ReconstructionOptions.Default with { SavedToothGaps = saved });
+            Estimate mark = withMap.RolloutTimeS!.Value;
+            Estimate without = SyntheticRun.Reconstruct(decoded).RolloutTimeS!.Value;
+
+            string note = Assert.Single(withMap.Warnings, w => w.Contains("tooth-spacing map", StringComparison.Ordinal));
+            Assert.Contains($"its entry {Shift} taken as this run's tooth 0", note, StringComparison.Ordinal);
+            Assert.DoesNotContain("weighed with the map the run itself gives", note, StringComparison.Ordinal);
+            placed.Add(mark.Value - truth);
+            even.Add(without.Value - truth);
+            Assert.True(Math.Abs(mark.Value - truth) <= 3 * mark.Sigma, $"seed {seed}: {(mark.Value - truth) * 1e3:F2} ms ± {mark.Sigma * 1e3:F2}");
+            within2 += Math.Abs(mark.Value - truth) <= 2 * mark.Sigma ? 1 : 0;
+        }
+
+        double rmsPlaced = Rms(placed);
+        double rmsEven = Rms(even);
+        Assert.True(within2 >= 0.9 * Cases, $"{within2} of {Cases} within 2σ");
+        Assert.True(rmsPlaced < 0.6 * rmsEven, $"rms {rmsPlaced * 1e3:F3} ms with the saved map, {rmsEven * 1e3:F3} ms without");
+    }
+
+    [Fact]
+    public void The_settings_map_reaches_the_reconstruction_through_the_analysis()
+    {
+        (SyntheticRun synthetic, ToothGaps saved) = ShortLaunchWithSavedMap(seed: 3, teeth: 12, shift: 7);
+        var settings = new CalibrationSettings { ToothSpacing = saved.Spacing, ToothSpacingSigma = saved.Sigma };
+
+        RunAnalysis analysis = RunAnalyzer.Analyze(synthetic.Build(), new AnalysisOptions { Calibration = settings, BrakeSlip = BrakeSlipPrior.None });
+
+        Assert.Contains(analysis.Reconstruction.Warnings, w => w.Contains("its entry 7 taken as this run's tooth 0", StringComparison.Ordinal));
+    }
+
+    /// <summary>The short launch on a coarse ring, and the ring's true gaps as a map saved from a
+    /// session whose numbering started <paramref name="shift"/> teeth on (σ 0.2 % each).</summary>
+    private static (SyntheticRun Run, ToothGaps Saved) ShortLaunchWithSavedMap(int seed, int teeth, int shift)
+    {
+        var random = new Random(seed * 17);
+        double plateau = 3.0 + (2.0 * random.NextDouble());
+        var synthetic = new SyntheticRun
+        {
+            Motion = Motion.FromRestAt(StartS).Jerk(40, plateau / 40).Accelerate(plateau, 1.2).Cruise(2.5).BrakeToStop(5),
+            Seed = seed,
+            Teeth = teeth,
+            CircumferenceM = 1.85,
+            ToothErrorFraction = 0.015,
+            AccelNoiseMps2 = 0.04,
+        };
+        double[] error = synthetic.ToothErrorsM();
+        double mpp = synthetic.MetresPerPulse;
+        var gaps = new double[teeth];
+        for (int j = 0; j < teeth; j++)
+        {
+            // Saved entry j is the run's gap (j − shift) mod n, which ends at that count's edge.
+            int k = ((j - shift) % teeth + teeth) % teeth;
+            gaps[j] = (mpp + error[k] - error[(k + teeth - 1) % teeth]) / mpp;
+        }
+
+        return (synthetic, new ToothGaps(gaps, [.. Enumerable.Repeat(0.002, teeth)]));
     }
 
     private static double Rms(List<double> values) => Math.Sqrt(values.Average(x => x * x));
