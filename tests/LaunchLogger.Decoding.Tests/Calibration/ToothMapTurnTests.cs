@@ -47,6 +47,30 @@ public class ToothMapTurnTests
         Assert.Contains("another ring", refusal, StringComparison.Ordinal);
     }
 
+    /// <summary>Another ring's map must never be turned to a run, whatever the brackets leave of
+    /// the run's pattern: either it fits no turn, or no turn is clearly best.</summary>
+    [Theory]
+    [InlineData(48, 0.0)]
+    [InlineData(48, 2e-4)]
+    [InlineData(48, 1e-3)]
+    [InlineData(12, 0.0)]
+    [InlineData(12, 1e-3)]
+    public void Another_rings_map_is_never_turned_to_a_run(int teeth, double bracketS)
+    {
+        var turned = new List<string>();
+        for (int seed = 1; seed <= 20; seed++)
+        {
+            ToothSpacingMap saved = Saved(ToothSpacingCalibrationTests.Ring(seed: 100 + seed, sigma: 0.01, teeth: teeth));
+            DecodedRun later = CalibrationRuns.Cruise(ToothSpacingCalibrationTests.Ring(seed: seed, sigma: 0.01, teeth: teeth), Circumference, speedMps: 8, durationS: 4, originCount: seed, bracketS: bracketS, jitterS: 5e-6, seed: seed);
+            if (ToothSpacingCalibration.Align(later.Pulses, saved.Spacing, saved.Sigma, out _) is { } turn)
+            {
+                turned.Add($"seed {seed}: turn {turn.Shift}, chi2 {turn.ChiSquare:0.#}, margin {turn.Margin:0.#}");
+            }
+        }
+
+        Assert.True(turned.Count == 0, string.Join("; ", turned));
+    }
+
     [Fact]
     public void An_even_ring_gives_no_turn()
     {
