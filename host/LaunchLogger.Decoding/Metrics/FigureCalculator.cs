@@ -13,7 +13,9 @@ namespace LaunchLogger.Decoding.Metrics;
 /// Distances are always measured from the standstill position.
 /// Uncertainties: a crossing's 1-σ is the trajectory's σ at the crossing divided by the slope
 /// there (σ_v / a for a speed, σ_d / v for a distance), combined root-sum-square with the σ of the
-/// start time. Errors of neighbouring estimates are correlated, so this is an approximation.
+/// start time; a speed crossing adds the time the speed holds or falls back within ±2σ/±3σ of it
+/// (<see cref="HeldInBandS"/>: a gear change). Errors of neighbouring estimates are correlated, so
+/// this is an approximation.
 /// </remarks>
 public static class FigureCalculator
 {

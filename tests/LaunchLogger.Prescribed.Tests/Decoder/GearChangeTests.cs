@@ -15,17 +15,11 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 /// and one read high crosses it before. The truth is the generator's exact trajectory.</summary>
 public class GearChangeTests
 {
-    private const double Static = 1.96;
+    private const double Static = StaticTyreTests.Static;
 
     // The change begins at 31.5 m/s, 0.21 m/s (0.67 %) above 70 mph: the static figure's
     // uncertainty (1 % and the growth's 0.3 %) puts the decoder's crossing on either side.
     private const double ShiftAtMps = 31.5;
-
-    // Rolling/static and growth at 30 m/s: the range's corners and middle, as StaticTyreTests.
-    private static readonly (double Ratio, double Growth)[] Tyres =
-    [
-        (0.980, 0.001), (0.980, 0.006), (0.990, 0.0035), (1.000, 0.001), (1.000, 0.006),
-    ];
 
     [Fact]
     public void Fifty_to_seventy_mph_across_a_gear_change_stays_within_two_sigma_whichever_side_of_it_the_tyre_puts_the_crossing()
@@ -33,7 +27,7 @@ public class GearChangeTests
         var lines = new List<string>();
         bool after = false;
         bool before = false;
-        foreach ((double ratio, double growth) in Tyres)
+        foreach ((double ratio, double growth) in StaticTyreTests.Tyres)
         {
             PrescribedRecordSpec spec = Records.Standing(2) with
             {
