@@ -13,7 +13,9 @@ namespace LaunchLogger.Decoding.Metrics;
 /// Distances are always measured from the standstill position.
 /// Uncertainties: a crossing's 1-σ is the trajectory's σ at the crossing divided by the slope
 /// there (σ_v / a for a speed, σ_d / v for a distance), combined root-sum-square with the σ of the
-/// start time. Errors of neighbouring estimates are correlated, so this is an approximation.
+/// start time; a speed crossing adds the time the speed holds or falls back within ±2σ/±3σ of it
+/// (<see cref="HeldInBandS"/>: a gear change). Errors of neighbouring estimates are correlated, so
+/// this is an approximation.
 /// </remarks>
 public static class FigureCalculator
 {
@@ -26,6 +28,10 @@ public static class FigureCalculator
     /// <summary>An interval's end speed counts as reached when the speed goes on past it by this
     /// many σ of the speed there.</summary>
     public const double ClearPassSigmas = 2;
+
+    /// <summary>The bands, in σ of the speed, over which <see cref="HeldInBandS"/> looks for a
+    /// hold: those the coverage is promised at.</summary>
+    private static readonly int[] HeldBandSigmas = [2, 3];
 
     /// <summary>Computes the figures.</summary>
     /// <param name="trajectory">Distance 0 at first motion; times on the input's axis.</param>
@@ -131,8 +137,84 @@ public static class FigureCalculator
 
     /// <summary>The first time after sample <paramref name="start"/> at which the speed reaches
     /// <paramref name="speedMps"/>, with its σ; null when it never does.</summary>
-    public static Estimate? SpeedCrossing(Trajectory trajectory, int start, double speedMps, double endS = double.PositiveInfinity) =>
-        Crossing(trajectory, start, trajectory.SpeedMps, trajectory.SpeedSigmaMps, trajectory.AccelMps2, speedMps, endS);
+    /// <remarks>The σ is the speed's σ over the slope, plus the time the speed holds or falls back
+    /// within its own ±2σ and ±3σ about <paramref name="speedMps"/> (<see cref="HeldInBandS"/>):
+    /// a gear change just above the speed leaves the crossing before or after it as the speed's
+    /// error has it, a shift's length apart, which the slope alone does not show.</remarks>
+    public static Estimate? SpeedCrossing(Trajectory trajectory, int start, double speedMps, double endS = double.PositiveInfinity)
+    {
+        ArgumentNullException.ThrowIfNull(trajectory);
+        Estimate? at = Crossing(trajectory, start, trajectory.SpeedMps, trajectory.SpeedSigmaMps, trajectory.AccelMps2, speedMps, endS);
+        if (at is not { } e || trajectory.SpeedSigmaMps is not { } sv)
+        {
+            return at;
+        }
+
+        double held = HeldInBandS(trajectory, start, speedMps, trajectory.ValueAt(sv, e.Value), e.Value, endS);
+        return held > 0 ? new Estimate(e.Value, e.Sigma + held) : at;
+    }
+
+    /// <summary>How far a speed error of up to k σ moves the first crossing of
+    /// <paramref name="speedMps"/> beyond what the slope there says, per σ, at k = 2 and 3 (the
+    /// larger): the time the speed spends not above its own earlier top (a gear change's dip, a
+    /// lift) between the first crossings of <paramref name="speedMps"/> ∓ k·σ and the crossing at
+    /// <paramref name="crossingS"/>, on the side where there is more of it, divided by k. The
+    /// first crossing of a speed is the moment the speed's running top reaches it, so a speed read
+    /// δ low (or high) moves the crossing to that of <paramref name="speedMps"/> + δ (or − δ): along
+    /// the slope while the speed rises, and across the whole hold where it does not. With this
+    /// added to σ, ±k·σ spans every crossing a speed error within ±k·σ can give.</summary>
+    /// <param name="trajectory">The trajectory.</param>
+    /// <param name="start">Index of first motion.</param>
+    /// <param name="speedMps">The speed crossed.</param>
+    /// <param name="sigmaMps">The speed's σ at the crossing.</param>
+    /// <param name="crossingS">The crossing's time.</param>
+    /// <param name="endS">Where the acceleration ends: nothing later counts.</param>
+    /// <returns>Seconds per σ of the crossing; 0 where the speed rises all through the band.</returns>
+    public static double HeldInBandS(Trajectory trajectory, int start, double speedMps, double sigmaMps, double crossingS, double endS = double.PositiveInfinity)
+    {
+        ArgumentNullException.ThrowIfNull(trajectory);
+        if (!(sigmaMps > 0))
+        {
+            return 0;
+        }
+
+        double[] t = trajectory.TimeS;
+        double[] v = trajectory.SpeedMps;
+        double worst = 0;
+        foreach (int k in HeldBandSigmas)
+        {
+            double low = speedMps - (k * sigmaMps);
+            double high = speedMps + (k * sigmaMps);
+            int i = Math.Max(start, 0);
+            while (i < v.Length && v[i] < low)
+            {
+                i++;
+            }
+
+            double before = 0;
+            double after = 0;
+            double top = i < v.Length ? v[i] : double.PositiveInfinity;
+            for (i++; i < v.Length && top < high && t[i - 1] < endS; i++)
+            {
+                if (v[i] > top)
+                {
+                    top = v[i];
+                    continue;
+                }
+
+                // Not above the earlier top over this step: a speed error anywhere in the band
+                // moves the crossing across it at once. Split at the crossing's time.
+                double from = t[i - 1];
+                double to = Math.Min(t[i], endS);
+                before += Math.Max(0, Math.Min(to, crossingS) - from);
+                after += Math.Max(0, to - Math.Max(from, crossingS));
+            }
+
+            worst = Math.Max(worst, Math.Max(before, after) / k);
+        }
+
+        return worst;
+    }
 
     /// <summary>The first time after sample <paramref name="start"/> at which the distance
     /// reaches <paramref name="distanceM"/>, with its σ; null when it never does.</summary>

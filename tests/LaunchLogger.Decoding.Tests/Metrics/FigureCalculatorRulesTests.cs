@@ -183,6 +183,38 @@ public class FigureCalculatorRulesTests
         Assert.InRange(at.Sigma / (0.01 * 20.5 / Math.Sqrt(200 / (2 * tau))), 0.998, 1.002);
     }
 
+    [Theory]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void ACrossingJustBelowAGearChangeIsCoveredWhicheverSideOfTheChangeAScaleErrorPutsIt(int k)
+    {
+        // The truth (kinematics, any textbook: piecewise constant acceleration): 3 m/s² from rest
+        // at 1 s to 31.5 m/s, a change of 0.25 s at −0.4 m/s² (drive cut), then 2.3 m/s². A speed
+        // read (1 + ε) times the truth, σ 1 % of it: 31.29 m/s (70 mph) lies 0.67 % below the
+        // change's top, so ε under about −0.67 % puts the read crossing after the change. Every
+        // ε within ±k σ must leave the true crossing within ±k σ of the read one.
+        const double Target = 31.2928;
+        const double Top = 31.5;
+        const double Change = 0.25;
+        double tTop = T0 + (Top / 3);
+        double trueCrossing = T0 + (Target / 3);
+        var worst = new List<string>();
+        for (double eps = -0.0095 * k; eps <= 0.0095 * k; eps += 0.0005)
+        {
+            Trajectory read = GearChange(tTop, Top, Change, 1 + eps);
+            Estimate at = FigureCalculator.SpeedCrossing(read, 0, Target)!.Value;
+            double error = at.Value - trueCrossing;
+            string what = FormattableString.Invariant($"ε {eps:+0.0000;-0.0000}: error {error:+0.000;-0.000} s, σ {at.Sigma:0.000} s");
+            worst.Add(what);
+            Assert.True(Math.Abs(error) <= k * at.Sigma, what + "\n" + string.Join("\n", worst));
+        }
+
+        // A speed that rises all through ±3σ is timed with the slope's σ alone (σ_v / a).
+        Trajectory early = GearChange(tTop, Top, Change, 1);
+        Estimate at20 = FigureCalculator.SpeedCrossing(early, 0, 20)!.Value;
+        Assert.Equal(0.01 * 20 / 3, at20.Sigma, 6);
+    }
+
     [Fact]
     public void TheTopSpeedsUncertaintyKeepsASlowFadeCountingAsTheTop()
     {
@@ -278,6 +310,32 @@ public class FigureCalculatorRulesTests
     }
 
     private static FigureRequest Request(params SpeedInterval[] intervals) => new() { SpeedIntervals = intervals, DistanceMarks = [] };
+
+    /// <summary>From rest at <see cref="T0"/>: 3 m/s² to <paramref name="top"/> (at
+    /// <paramref name="tTop"/>), −0.4 m/s² for <paramref name="change"/>, then 2.3 m/s² to 16 s;
+    /// every speed and acceleration times <paramref name="scale"/>, speed σ 1 % of the speed;
+    /// sampled every millisecond.</summary>
+    private static Trajectory GearChange(double tTop, double top, double change, double scale)
+    {
+        const double Dt = 0.001;
+        int n = (int)(16 / Dt) + 1;
+        double[] t = new double[n], d = new double[n], v = new double[n], a = new double[n];
+        double vEnd = top - (0.4 * change);
+        for (int i = 0; i < n; i++)
+        {
+            t[i] = i * Dt;
+            double s = t[i];
+            (double speed, double accel) = s < T0 ? (0, 0)
+                : s < tTop ? (3 * (s - T0), 3)
+                : s < tTop + change ? (top - (0.4 * (s - tTop)), -0.4)
+                : (vEnd + (2.3 * (s - tTop - change)), 2.3);
+            v[i] = scale * speed;
+            a[i] = scale * accel;
+            d[i] = i == 0 ? 0 : d[i - 1] + (0.5 * (v[i] + v[i - 1]) * Dt);
+        }
+
+        return new Trajectory { TimeS = t, DistanceM = d, SpeedMps = v, AccelMps2 = a, SpeedSigmaMps = [.. v.Select(x => 0.01 * x)] };
+    }
 
     /// <summary>At <paramref name="startSpeed"/> until <see cref="T0"/>, then <see cref="A"/>,
     /// sampled every <see cref="Step"/> (binary-exact) to <paramref name="endS"/>.</summary>

@@ -13,10 +13,11 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 /// truth is the generator's: its tyre model is its own code (<see cref="TyreModel"/>).</summary>
 public class StaticTyreTests
 {
-    private const double Static = 1.96;
+    /// <summary>The static circumference told, m.</summary>
+    internal const double Static = 1.96;
 
-    // The range's corners and middle: rolling/static, growth at 30 m/s.
-    private static readonly (double Ratio, double Growth)[] Tyres =
+    /// <summary>The range's corners and middle: rolling/static, growth at 30 m/s.</summary>
+    internal static readonly (double Ratio, double Growth)[] Tyres =
     [
         (0.980, 0.001), (0.980, 0.006), (0.990, 0.0035), (1.000, 0.001), (1.000, 0.006),
     ];
