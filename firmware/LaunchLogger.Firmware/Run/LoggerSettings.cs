@@ -23,6 +23,7 @@ namespace LaunchLogger.Firmware.Run
             PreTriggerBursts = 128;
             StageHoldMicros = 1000000;
             StillBandMilliG = 60;
+            StillBlockMicros = 50000;
             MotionThresholdMilliG = 40;
             MotionConfirmSamples = 16;
             StopHoldMicros = 2000000;
@@ -76,8 +77,15 @@ namespace LaunchLogger.Firmware.Run
         /// <summary>How long the car must be still to be staged (µs).</summary>
         public int StageHoldMicros { get; set; }
 
-        /// <summary>Peak-to-peak band per axis that still counts as still (mg).</summary>
+        /// <summary>Peak-to-peak band per axis that still counts as still (mg), over the means of
+        /// blocks of <see cref="StillBlockMicros"/>.</summary>
         public int StillBandMilliG { get; set; }
+
+        /// <summary>Length of the blocks whose means the still band bounds (µs): long enough that
+        /// sample noise and engine vibration average out (a block of T passes at most 1/(π·f·T) of a
+        /// vibration at f: with 50 ms, a third at 20 Hz, a fifth at 30 Hz), short beside the staging hold. Not in the configuration
+        /// frame (LOG-FORMAT.md, the still band).</summary>
+        public int StillBlockMicros { get; set; }
 
         /// <summary>Forward acceleration, averaged over the confirm window, that means motion (mg).</summary>
         public int MotionThresholdMilliG { get; set; }
@@ -142,6 +150,7 @@ namespace LaunchLogger.Firmware.Run
             if (e == null && AccelPresent) e = Range("PreTriggerBursts", PreTriggerBursts, 1, 100000);
             if (e == null) e = Range("StageHoldMicros", StageHoldMicros, 1000, 60000000);
             if (e == null) e = Range("StillBandMilliG", StillBandMilliG, 1, 2000);
+            if (e == null) e = Range("StillBlockMicros", StillBlockMicros, 1000, 500000);
             if (e == null) e = Range("MotionThresholdMilliG", MotionThresholdMilliG, 1, 4000);
             if (e == null) e = Range("MotionConfirmSamples", MotionConfirmSamples, 1, 1000);
             if (e == null) e = Range("StopHoldMicros", StopHoldMicros, 10000, 60000000);

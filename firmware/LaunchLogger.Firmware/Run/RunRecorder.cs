@@ -8,9 +8,13 @@ namespace LaunchLogger.Firmware.Run
     /// → stopped. Fed with pulse observations, accelerometer bursts, inputs and clock ticks; every
     /// buffer is made in the constructor, so feeding it allocates nothing.</summary>
     /// <remarks>
-    /// Staging: with an accelerometer, every axis stays inside <see cref="LoggerSettings.StillBandMilliG"/>
-    /// and no pulse arrives for <see cref="LoggerSettings.StageHoldMicros"/>; the mean of that
-    /// window is the resting gravity vector. Without one, no pulse for that time.
+    /// Staging: with an accelerometer, the means of consecutive blocks of
+    /// <see cref="LoggerSettings.StillBlockMicros"/> stay inside <see cref="LoggerSettings.StillBandMilliG"/>
+    /// on every axis and no pulse arrives for <see cref="LoggerSettings.StageHoldMicros"/>; the mean
+    /// of that window's samples but its latest block (each block vouched for by the one after it)
+    /// is the resting gravity vector. Block means, not samples: the band is about the car's
+    /// low-frequency acceleration, which sample noise and engine vibration do not move (a noisy
+    /// sensor alone spans the band sample to sample). Without an accelerometer, no pulse for that time.
     /// Motion: while staged, the distance channel's count changes, or the forward acceleration
     /// (minus its resting value) averaged over <see cref="LoggerSettings.MotionConfirmSamples"/>
     /// passes <see cref="LoggerSettings.MotionThresholdMilliG"/>. A car that rolls
@@ -51,10 +55,18 @@ namespace LaunchLogger.Firmware.Run
         private bool brakeApplied;
         private bool preTriggerDraining;
 
-        // Stillness window (accelerometer): min/max per axis, sums for the mean.
+        // Stillness (accelerometer): the block being summed, then the window of blocks whose
+        // sums stay inside the band (min/max per axis, in block-sum units), the sums of its
+        // vouched samples for the mean, and its latest block's sums, not yet vouched for.
+        private readonly int blockSamples;
+        private readonly int blockBand;
+        private int blockFill;
+        private long blockStartMicros;
+        private int blockX, blockY, blockZ;
         private bool stillOpen;
         private long stillSinceMicros;
         private int minX, maxX, minY, maxY, minZ, maxZ;
+        private int lastBlockX, lastBlockY, lastBlockZ;
         private long sumX, sumY, sumZ;
         private int stillSamples;
 
@@ -125,6 +137,8 @@ namespace LaunchLogger.Firmware.Run
                 : null;
             onsetWindow = new int[settings.MotionConfirmSamples];
             samplePeriodNanos = settings.AccelPresent ? 1000000000000L / settings.AccelOutputDataRateMilliHz : 0;
+            blockSamples = StillBlockSamples(settings);
+            blockBand = settings.StillBandMilliG * blockSamples;
             circumference = settings.CircumferenceMicrometres;
             pulsesPerRevolution = settings.PulsesPerRevolution;
             rolloutScaled = (long)settings.RolloutMicrometres * pulsesPerRevolution;
@@ -341,7 +355,7 @@ namespace LaunchLogger.Firmware.Run
             }
 
             // Samples are missing: stillness cannot be vouched for across the gap.
-            stillOpen = false;
+            RestartStillness();
         }
 
         /// <summary>The brake switch changed state, read at <paramref name="timeMicros"/> (the
@@ -512,7 +526,7 @@ namespace LaunchLogger.Firmware.Run
         private void OnDistancePulse(long count, long loMicros, long hiMicros, long before)
         {
             lastPulseChangeMicros = hiMicros;
-            stillOpen = false;
+            RestartStillness();
             if (phase == RunPhase.BenchRest)
             {
                 CarMovedDuringBenchRest(hiMicros);
@@ -571,20 +585,55 @@ namespace LaunchLogger.Firmware.Run
             prevMidMicros = mid;
         }
 
+        /// <summary>Samples in one block of the still test: <see cref="LoggerSettings.StillBlockMicros"/>
+        /// at the output data rate, rounded, at least one.</summary>
+        public static int StillBlockSamples(LoggerSettings settings)
+        {
+            if (settings == null || !settings.AccelPresent)
+            {
+                return 1;
+            }
+
+            long samples = (((long)settings.StillBlockMicros * settings.AccelOutputDataRateMilliHz) + 500000000L) / 1000000000L;
+            return samples < 1 ? 1 : (int)samples;
+        }
+
         private void OnStillnessSample(short x, short y, short z, long sampleMicros)
         {
-            if (!stillOpen || WidensPastBand(x, y, z))
+            if (blockFill == 0)
             {
-                StartStillWindow(x, y, z, sampleMicros);
+                blockStartMicros = sampleMicros;
+            }
+
+            blockX += x;
+            blockY += y;
+            blockZ += z;
+            blockFill++;
+            if (blockFill == blockSamples)
+            {
+                OnStillBlock(sampleMicros);
+            }
+        }
+
+        private void OnStillBlock(long endMicros)
+        {
+            if (!stillOpen || WidensPastBand(blockX, blockY, blockZ))
+            {
+                StartStillWindow();
             }
             else
             {
-                Widen(x, y, z);
+                Widen();
             }
 
+            blockFill = 0;
+            blockX = 0;
+            blockY = 0;
+            blockZ = 0;
+            bool held = stillSamples > 0 && endMicros - stillSinceMicros >= settings.StageHoldMicros;
             if (phase != RunPhase.Idle && phase != RunPhase.Stopped)
             {
-                if (phase == RunPhase.Staged && sampleMicros - stillSinceMicros >= settings.StageHoldMicros)
+                if (phase == RunPhase.Staged && held)
                 {
                     // Still for longer: refine the resting vector with the longer window.
                     SetRestFromWindow();
@@ -593,16 +642,27 @@ namespace LaunchLogger.Firmware.Run
                 return;
             }
 
-            if (sampleMicros - stillSinceMicros >= settings.StageHoldMicros && lastPulseChangeMicros <= stillSinceMicros)
+            if (held && lastPulseChangeMicros <= stillSinceMicros)
             {
                 SetRestFromWindow();
                 EnterStaged(stillSinceMicros);
             }
         }
 
-        private bool WidensPastBand(short x, short y, short z)
+        /// <summary>The still test starts over from the next sample: a pulse, missing samples, or
+        /// samples the test did not see (a run or a bench rest).</summary>
+        private void RestartStillness()
         {
-            int band = settings.StillBandMilliG;
+            stillOpen = false;
+            blockFill = 0;
+            blockX = 0;
+            blockY = 0;
+            blockZ = 0;
+        }
+
+        private bool WidensPastBand(int x, int y, int z)
+        {
+            int band = blockBand;
             return Spread(minX, maxX, x) > band || Spread(minY, maxY, y) > band || Spread(minZ, maxZ, z) > band;
         }
 
@@ -616,31 +676,38 @@ namespace LaunchLogger.Firmware.Run
             return value > max ? value - min : max - min;
         }
 
-        private void StartStillWindow(short x, short y, short z, long sampleMicros)
+        private void StartStillWindow()
         {
             stillOpen = true;
-            stillSinceMicros = sampleMicros;
-            minX = maxX = x;
-            minY = maxY = y;
-            minZ = maxZ = z;
-            sumX = x;
-            sumY = y;
-            sumZ = z;
-            stillSamples = 1;
+            stillSinceMicros = blockStartMicros;
+            minX = maxX = lastBlockX = blockX;
+            minY = maxY = lastBlockY = blockY;
+            minZ = maxZ = lastBlockZ = blockZ;
+            sumX = 0;
+            sumY = 0;
+            sumZ = 0;
+            stillSamples = 0;
         }
 
-        private void Widen(short x, short y, short z)
+        private void Widen()
         {
+            // The window's latest block is vouched for by this one: its samples join the mean.
+            sumX += lastBlockX;
+            sumY += lastBlockY;
+            sumZ += lastBlockZ;
+            stillSamples += blockSamples;
+            int x = blockX;
+            int y = blockY;
+            int z = blockZ;
             if (x < minX) minX = x;
             if (x > maxX) maxX = x;
             if (y < minY) minY = y;
             if (y > maxY) maxY = y;
             if (z < minZ) minZ = z;
             if (z > maxZ) maxZ = z;
-            sumX += x;
-            sumY += y;
-            sumZ += z;
-            stillSamples++;
+            lastBlockX = x;
+            lastBlockY = y;
+            lastBlockZ = z;
         }
 
         private void SetRestFromWindow()
@@ -728,7 +795,7 @@ namespace LaunchLogger.Firmware.Run
 
             // A hold of the mark button begun before the run arms no bench rest after it.
             markHeld = false;
-            stillOpen = false;
+            RestartStillness();
             for (int c = 0; c < lastCount.Length; c++)
             {
                 originCount[c] = lastCount[c];
@@ -814,7 +881,7 @@ namespace LaunchLogger.Firmware.Run
             writer.End();
             runOpen = false;
             phase = RunPhase.Stopped;
-            stillOpen = false;
+            RestartStillness();
             lastPulseChangeMicros = byStop ? lastPulseHiMicros : nowMicros;
         }
 
@@ -864,7 +931,7 @@ namespace LaunchLogger.Firmware.Run
             writer.End();
             restRecording = false;
             phase = RunPhase.Idle;
-            stillOpen = false;
+            RestartStillness();
         }
 
         private void AddToBatch(int channel, long count, long loMicros, long hiMicros)

@@ -4,13 +4,17 @@ namespace LaunchLogger.Decoding.Runs;
 /// <remarks>
 /// <para>An accelerometer reads the same at rest and at a steady cruise, so a quiet stretch alone
 /// is no rest. A stretch is quiet when, over every 0.25 s window in it, the forward reading's
-/// mean stays within a band of the quiet level and its spread near the quietest windows' (the
-/// sensor's noise), for at least <see cref="RecordSplitter.RestGapS"/> (less a window, which
-/// the motion either side spoils). The speed in each quiet
+/// mean stays within a band of the level of the rest the record ends in and its spread near the
+/// quietest windows' (the sensor's noise), for at least <see cref="RecordSplitter.RestGapS"/>
+/// (less a window, which the motion either side spoils). The level is read at the end, not from
+/// the quietest windows: a noisy sensor is as noisy at rest as under steady acceleration, so
+/// the quietest windows can lie anywhere (the box's still test likewise judges block means,
+/// never the samples' spread). The speed in each quiet
 /// stretch follows from the rest the record ends in: minus the acceleration (less the quiet
 /// level) integrated from there to the end. A quiet stretch is a rest when that speed is within
 /// <see cref="RestSpeedMps"/> plus three times what the level's own error makes of it over the
-/// time to the end (the level read from thousands of quiet samples: the noise over √n).</para>
+/// time to the end (the level read from the thousands of samples of that final rest: the noise
+/// over √n).</para>
 /// <para>Only records that end quiet are split (the speed is known nowhere else); a cut falls in
 /// the middle of each rest between two stretches of motion.</para>
 /// </remarks>
@@ -69,13 +73,12 @@ internal static class AccelRestFinder
             spread[i] = Math.Sqrt(Math.Max(0, (sumSquares / count) - (mean[i] * mean[i])));
         }
 
-        // The quietest tenth of the (non-overlapping) windows sets the noise; their median mean sets the level.
+        // The quietest tenth of the (non-overlapping) windows sets the noise; the last window, at
+        // the rest the record must end in to be split, sets the level (refined over that rest below).
         int[] order = Enumerable.Range(0, ((n - 1) / half) + 1).Select(w => w * half).OrderBy(i => spread[i]).ToArray();
         int tenth = Math.Max(1, order.Length / 10);
         double noise = spread[order[tenth]];
-        double[] quietMeans = order.Take(tenth).Select(i => mean[i]).Order().ToArray();
-        double level = quietMeans[quietMeans.Length / 2];
-        int quietSamples = tenth * ((2 * half) + 1);
+        double level = mean[n - 1];
         var quiet = new bool[n];
         for (int i = 0; i < n; i++)
         {
@@ -113,6 +116,16 @@ internal static class AccelRestFinder
             // Only records that open and end quiet, with a quiet stretch between, may hold several runs.
             return [];
         }
+
+        // The level over the whole final rest.
+        int quietSamples = n - stretches[^1].From;
+        level = 0;
+        for (int i = stretches[^1].From; i < n; i++)
+        {
+            level += a[i];
+        }
+
+        level /= quietSamples;
 
         // Speed at each sample from the rest at the end, integrating back.
         var speed = new double[n];

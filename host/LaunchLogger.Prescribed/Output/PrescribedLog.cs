@@ -13,8 +13,8 @@ namespace LaunchLogger.Prescribed.Output;
 /// <remarks>The box's clock reads the record's time in microseconds (plus
 /// <see cref="LogOptions.ClockStartMicros"/>), so a decoded time of t seconds is the record's
 /// t − ClockStartMicros·1e-6. The box stages, opens and closes runs by its own rules
-/// (RunRecorder): give it at least <see cref="LoggerSettings.StageHoldMicros"/> of stillness
-/// before a standing start and more than <see cref="LoggerSettings.StopHoldMicros"/> at rest
+/// (RunRecorder): give it at least <see cref="LoggerSettings.StageHoldMicros"/> of stillness,
+/// and one still-test block more (<see cref="LoggerSettings.StillBlockMicros"/>), before a standing start and more than <see cref="LoggerSettings.StopHoldMicros"/> at rest
 /// after a stop.</remarks>
 public static class PrescribedLog
 {

@@ -25,6 +25,8 @@ public class LoggerSettingsTests
         { "PreTriggerBursts", 0 },
         { "StageHoldMicros", 999 },
         { "StillBandMilliG", 0 },
+        { "StillBlockMicros", 999 },
+        { "StillBlockMicros", 500001 },
         { "MotionThresholdMilliG", 0 },
         { "MotionThresholdMilliG", 4001 },
         { "MotionConfirmSamples", 0 },
@@ -113,6 +115,8 @@ public class LoggerSettingsTests
     [InlineData("RolloutMicrometres", 0)]
     [InlineData("ForwardAxis", 2)]
     [InlineData("StageHoldMicros", 1000)]
+    [InlineData("StillBlockMicros", 1000)]
+    [InlineData("StillBlockMicros", 500000)]
     [InlineData("UnstagedOpenMicrometres", 0)]
     public void TheEndsOfEachRangeAreAccepted(string setting, int value)
     {

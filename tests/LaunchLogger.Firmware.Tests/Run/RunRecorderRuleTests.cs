@@ -8,6 +8,9 @@ namespace LaunchLogger.Firmware.Tests.Run;
 /// pulse: each threshold and timer at exactly its value and one step short of it, every axis and
 /// direction of the stillness band, the frame fields that only differ on a second run or a second
 /// channel. Expected values are worked out by hand in the comments (integer µs, mg, µm).</summary>
+/// <remarks>The still test works on blocks of 50 samples (the default 50 ms at 1 kHz), counted
+/// from the first sample after power-up, a pulse or a gap: fed from 1 ms, the blocks are
+/// 1–50 ms, 51–100 ms, … and the test is made at each block's last sample.</remarks>
 public class RunRecorderRuleTests
 {
     // The default accelerometer samples at 1 kHz: one sample per 1000 µs.
@@ -20,10 +23,11 @@ public class RunRecorderRuleTests
     {
         var box = new Box(new LoggerSettings());
 
-        // Still from the first sample at 1 ms: staged at the sample 1 s later (1 001 000 µs).
-        box.Feed(Ms, 1_000_000, _ => Level);
+        // Still from the first sample at 1 ms: the first block end a full second later is the
+        // 21st block's, 1 050 ms (the 20th ends at 1 000 ms, 999 ms after the window opened).
+        box.Feed(Ms, 1_049_000, _ => Level);
         Assert.Equal(RunPhase.Idle, box.Recorder.Phase);
-        box.Feed(1_001_000, 1_001_000, _ => Level);
+        box.Feed(1_050_000, 1_050_000, _ => Level);
         Assert.Equal(RunPhase.Staged, box.Recorder.Phase);
         Assert.Equal((0, 0, 1000), (box.Recorder.RestX, box.Recorder.RestY, box.Recorder.RestZ));
     }
@@ -36,22 +40,25 @@ public class RunRecorderRuleTests
         // Each axis alternates between two values 3 mg apart (inside the 60 mg band); x negative
         // so the rounding of a negative mean is exercised too.
         static (short, short, short) Wobble(long t) => (t / Ms) % 2 == 0 ? ((short)-100, (short)50, (short)1000) : ((short)-103, (short)53, (short)1001);
-        box.Feed(Ms, 1_001_000, Wobble);
+        box.Feed(Ms, 1_050_000, Wobble);
         Assert.Equal(RunPhase.Staged, box.Recorder.Phase);
 
-        // 1001 samples from 1 ms to 1001 ms: 501 odd (t/ms odd) and 500 even.
-        const int n = 1001;
-        double meanX = ((501 * -103.0) + (500 * -100.0)) / n;
-        double meanY = ((501 * 53.0) + (500 * 50.0)) / n;
-        double meanZ = ((501 * 1001.0) + (500 * 1000.0)) / n;
+        // Staged at the end of the block 1 001–1 050 ms, which is not yet vouched for by a block
+        // after it: the mean is over the 1000 samples from 1 ms to 1000 ms, 500 odd and 500 even.
+        // Every axis' mean is a half: -101.5 → -102, 51.5 → 52, 1000.5 → 1001 (away from zero).
+        const int n = 1000;
+        double meanX = ((500 * -103.0) + (500 * -100.0)) / n;
+        double meanY = ((500 * 53.0) + (500 * 50.0)) / n;
+        double meanZ = ((500 * 1001.0) + (500 * 1000.0)) / n;
         Assert.Equal((int)Math.Round(meanX, MidpointRounding.AwayFromZero), box.Recorder.RestX);
         Assert.Equal((int)Math.Round(meanY, MidpointRounding.AwayFromZero), box.Recorder.RestY);
         Assert.Equal((int)Math.Round(meanZ, MidpointRounding.AwayFromZero), box.Recorder.RestZ);
         Assert.Equal((-102, 52, 1001), (box.Recorder.RestX, box.Recorder.RestY, box.Recorder.RestZ));
 
-        // Exactly half: two samples, -101 and -102 → -101.5 → -102 (away from zero); +101.5 → +102.
-        var halves = new Box(new LoggerSettings { StageHoldMicros = 1000 });
-        halves.Feed(Ms, 2 * Ms, t => t == Ms ? ((short)-101, (short)101, (short)1000) : ((short)-102, (short)102, (short)1001));
+        // One-sample blocks and a 2 ms hold: staged at the third sample, the mean over the first
+        // two, -101 and -102 → -101.5 → -102 (away from zero); +101.5 → +102.
+        var halves = new Box(new LoggerSettings { StageHoldMicros = 2000, StillBlockMicros = 1000 });
+        halves.Feed(Ms, 3 * Ms, t => t == Ms ? ((short)-101, (short)101, (short)1000) : ((short)-102, (short)102, (short)1001));
         Assert.Equal(RunPhase.Staged, halves.Recorder.Phase);
         Assert.Equal((-102, 102, 1001), (halves.Recorder.RestX, halves.Recorder.RestY, halves.Recorder.RestZ));
     }
@@ -68,29 +75,32 @@ public class RunRecorderRuleTests
         var settings = new LoggerSettings();
         int band = settings.StillBandMilliG;
 
-        // From 500 ms the axis sits exactly one band away from where it started: still.
+        // From 501 ms (a block's first sample) the axis sits exactly one band away from where it
+        // started: the block means are a band apart, still.
         var exact = new Box(settings);
-        exact.Feed(Ms, 1_001_000, t => Offset(axis, t >= 500_000 ? direction * band : 0));
+        exact.Feed(Ms, 1_050_000, t => Offset(axis, t > 500_000 ? direction * band : 0));
         Assert.Equal(RunPhase.Staged, exact.Recorder.Phase);
 
-        // From 600 ms it moves 1 mg past the start on the other side: band + 1 apart, so the
-        // hold starts again at 600 ms and staging comes at 1600 ms.
+        // From 601 ms it moves 1 mg past the start on the other side: the block 601–650 ms lies
+        // band + 1 from the one before, so the hold starts again at 601 ms and staging comes at the
+        // end of the block 1 601–1 650 ms.
         var past = new Box(settings);
-        past.Feed(Ms, 1_599_000, t => Offset(axis, t >= 600_000 ? -direction : t >= 500_000 ? direction * band : 0));
+        past.Feed(Ms, 1_649_000, t => Offset(axis, t > 600_000 ? -direction : t > 500_000 ? direction * band : 0));
         Assert.Equal(RunPhase.Idle, past.Recorder.Phase);
-        past.Feed(1_600_000, 1_600_000, _ => Offset(axis, -direction));
+        past.Feed(1_650_000, 1_650_000, _ => Offset(axis, -direction));
         Assert.Equal(RunPhase.Staged, past.Recorder.Phase);
     }
 
     [Fact]
     public void AnAccelerometerGapRestartsTheHold()
     {
+        // The blocks start again at 501 ms: staged at the end of the block 1 501–1 550 ms.
         var box = new Box(new LoggerSettings());
         box.Feed(Ms, 500_000, _ => Level);
         box.Recorder.OnAccelGap(3, 500_500);
-        box.Feed(501_000, 1_500_000, _ => Level);
+        box.Feed(501_000, 1_549_000, _ => Level);
         Assert.Equal(RunPhase.Idle, box.Recorder.Phase);
-        box.Feed(1_501_000, 1_501_000, _ => Level);
+        box.Feed(1_550_000, 1_550_000, _ => Level);
         Assert.Equal(RunPhase.Staged, box.Recorder.Phase);
     }
 
@@ -102,11 +112,12 @@ public class RunRecorderRuleTests
         box.Feed(Ms, 500_000, _ => Level);
 
         // One tooth rolls by (far short of the unstaged-run distance); its bracket ends exactly
-        // when the next sample is taken, which may start the new still window.
+        // when the next sample is taken, which may start the new still window: its first block
+        // is 501–550 ms, staging at the end of the block 1 501–1 550 ms.
         box.Recorder.OnPulse(0, 1, 500_990, 501_000);
-        box.Feed(501_000, 1_500_000, _ => Level);
+        box.Feed(501_000, 1_549_000, _ => Level);
         Assert.Equal(RunPhase.Idle, box.Recorder.Phase);
-        box.Feed(1_501_000, 1_501_000, _ => Level);
+        box.Feed(1_550_000, 1_550_000, _ => Level);
         Assert.Equal(RunPhase.Staged, box.Recorder.Phase);
         Assert.Empty(box.Sink.Bytes);
     }
@@ -115,44 +126,48 @@ public class RunRecorderRuleTests
     public void WhileStagedTheRestingVectorFollowsANewStillWindowOnceItLastsTheHold()
     {
         var box = new Box(new LoggerSettings());
-        box.Feed(Ms, 1_001_000, _ => Level);
+        box.Feed(Ms, 1_050_000, _ => Level);
         Assert.Equal(RunPhase.Staged, box.Recorder.Phase);
 
-        // At 1.2 s the car settles 70 mg lower on z (someone sat in it): a new still window.
-        // Its mean replaces the resting vector at exactly one hold later, 2.2 s.
-        box.Feed(1_002_000, 2_199_000, t => t >= 1_200_000 ? ((short)0, (short)0, (short)1070) : Level);
+        // From 1.201 s (a block's first sample) the car sits 70 mg lower on z (someone sat in
+        // it): its first block is 70 mg from the window's, a new still window. Its mean replaces
+        // the resting vector at the first block end a hold later, 2.25 s (2.2 s is 999 ms on).
+        box.Feed(1_051_000, 2_249_000, t => t > 1_200_000 ? ((short)0, (short)0, (short)1070) : Level);
         Assert.Equal(1000, box.Recorder.RestZ);
-        box.Feed(2_200_000, 2_200_000, _ => ((short)0, (short)0, (short)1070));
+        box.Feed(2_250_000, 2_250_000, _ => ((short)0, (short)0, (short)1070));
         Assert.Equal(1070, box.Recorder.RestZ);
         Assert.Equal(RunPhase.Staged, box.Recorder.Phase);
 
-        // The launch reports that vector and its 1001 samples (1.2 s to 2.2 s).
-        box.Feed(2_201_000, 2_300_000, t => ((short)300, (short)0, (short)1070));
+        // The launch reports that vector and its 1000 vouched samples (1.201 s to 2.2 s; the
+        // block that ends at 2.25 s is the window's latest, vouched for by none after it).
+        box.Feed(2_251_000, 2_300_000, t => ((short)300, (short)0, (short)1070));
         EventFrame staged = box.Sink.Frames.SingleEvent(EventKind.Staged);
         Assert.Equal((0L, 0L, 1070L), (staged.StagedX!.Value, staged.StagedY!.Value, staged.StagedZ!.Value));
-        Assert.Equal(1001, staged.StagedSamples);
+        Assert.Equal(1000, staged.StagedSamples);
     }
 
     [Fact]
     public void AForwardAverageOfExactlyTheThresholdOpensTheRunAtTheOldestSampleOfTheWindow()
     {
-        // A threshold above the 60 mg still band, so that the first sample at it starts a new
-        // still window and the resting vector is not refined with it.
-        var settings = new LoggerSettings { MotionThresholdMilliG = 80 };
+        // The default threshold, inside the still band: the launch's samples do not move the
+        // resting vector all the same, as the block holding them is the window's latest, vouched
+        // for only by the block after it, and the run opens before that one ends.
+        var settings = new LoggerSettings();
         int threshold = settings.MotionThresholdMilliG;
         int n = settings.MotionConfirmSamples;
+        Assert.True(threshold < settings.StillBandMilliG);
 
         // One mg short for as long as you like: no run.
         var below = new Box(settings);
-        below.Feed(Ms, 1_001_000, _ => Level);
-        below.Feed(1_002_000, 1_200_000, _ => ((short)(threshold - 1), (short)0, (short)1000));
+        below.Feed(Ms, 1_050_000, _ => Level);
+        below.Feed(1_051_000, 3_000_000, _ => ((short)(threshold - 1), (short)0, (short)1000));
         Assert.Equal(RunPhase.Staged, below.Recorder.Phase);
 
         // Exactly the threshold from 1.1 s: the run opens at the n-th such sample, and first
         // motion is the oldest sample of the window, 1.1 s itself.
         var at = new Box(settings);
-        at.Feed(Ms, 1_001_000, _ => Level);
-        at.Feed(1_002_000, 1_100_000 + ((n - 2) * Ms), t => t >= 1_100_000 ? ((short)threshold, (short)0, (short)1000) : Level);
+        at.Feed(Ms, 1_050_000, _ => Level);
+        at.Feed(1_051_000, 1_100_000 + ((n - 2) * Ms), t => t >= 1_100_000 ? ((short)threshold, (short)0, (short)1000) : Level);
         Assert.Equal(RunPhase.Staged, at.Recorder.Phase);
         at.Feed(1_100_000 + ((n - 1) * Ms), 1_100_000 + ((n - 1) * Ms), _ => ((short)threshold, (short)0, (short)1000));
         Assert.Equal(RunPhase.Moving, at.Recorder.Phase);

@@ -83,13 +83,17 @@ public class RunRecorderTests
         Assert.Equal(settings.AccelFullScaleMilliG, config.AccelFullScaleMilliG);
         Assert.Equal(settings.PreTriggerSamples, config.PreTriggerSamples);
 
-        // Still from the first sample (1 ms) to the last sample before launch; resting vector +1 g on z.
+        // Still from the first sample (1 ms) to the last sample before launch; resting vector +1 g
+        // on z, the mean of the still test's whole blocks before the launch but the latest (not
+        // yet vouched for by a block after it).
         long firstMovingSampleMicros = (long)Math.Ceiling(launchS * 1000) * 1000;
+        int blockSamples = RunRecorder.StillBlockSamples(settings);
+        long wholeBlocks = ((firstMovingSampleMicros - 1000) / 1000) / blockSamples;
         var staged = Assert.IsType<EventFrame>(frames[1]);
         Assert.Equal(EventKind.Staged, staged.Kind);
         Assert.Equal(1000, staged.TimeMicros);
         Assert.Equal((0L, 0L, 1000L), (staged.StagedX!.Value, staged.StagedY!.Value, staged.StagedZ!.Value));
-        Assert.Equal((firstMovingSampleMicros - 1000) / 1000, staged.StagedSamples);
+        Assert.Equal((wholeBlocks - 1) * blockSamples, staged.StagedSamples);
 
         int motionAt = frames.IndexOf(f => f is EventFrame { Kind: EventKind.Motion });
         var motion = (EventFrame)frames[motionAt];
