@@ -27,6 +27,12 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// placement (V·σ_t)² and the tooth spacing's spread. Generalised least squares
 /// (Aitken 1935; any regression text, e.g. Kariya &amp; Kurata, "Generalized Least Squares", ch. 2)
 /// gives δ and its σ, widened by √(χ²/dof) when the residuals say the errors are larger.</para>
+/// <para>The input's density q is the measured noise plus what the model allows beyond it (the
+/// fusion's vibration and cross-axis allowance, often a hundred times the noise of a quiet
+/// sensor); told only that, σ comes out two to three times too wide and the prior pulls δ toward
+/// zero. Given the measured part, the fit tries q from the whole down to it in steps of 4 and
+/// keeps the one whose residuals are likeliest (restricted likelihood, so the fitted columns do
+/// not count as fit), so the data say how much of the allowance the launch needs.</para>
 /// </remarks>
 internal static class AccelClockFit
 {
@@ -136,7 +142,7 @@ internal static class AccelClockFit
 
         Solution? best = null;
         double density = inputDensity;
-        double floor = Math.Min(measuredDensity ?? inputDensity, inputDensity);
+        double floor = Math.Max(Math.Min(measuredDensity ?? inputDensity, inputDensity), inputDensity * Math.Pow(DensityStep, -MaxDensitySteps));
         while (true)
         {
             Matrix<double> c = (density * walk) + shared;
@@ -163,6 +169,10 @@ internal static class AccelClockFit
 
     /// <summary>Ratio between neighbouring densities tried for the input's random walk.</summary>
     private const double DensityStep = 4;
+
+    /// <summary>Most steps down from the density told (4⁸: a sensor that reports no noise at all
+    /// still gets a walk).</summary>
+    private const int MaxDensitySteps = 8;
 
     private readonly record struct Solution(double Offset, double Sigma, double LogLikelihood);
 
