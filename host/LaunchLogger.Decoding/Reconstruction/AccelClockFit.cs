@@ -27,6 +27,12 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// placement (V·σ_t)² and the tooth spacing's spread. Generalised least squares
 /// (Aitken 1935; any regression text, e.g. Kariya &amp; Kurata, "Generalized Least Squares", ch. 2)
 /// gives δ and its σ, widened by √(χ²/dof) when the residuals say the errors are larger.</para>
+/// <para>The input's density q is the measured noise plus what the model allows beyond it (the
+/// fusion's vibration and cross-axis allowance, often a hundred times the noise of a quiet
+/// sensor); told only that, σ comes out two to three times too wide and the prior pulls δ toward
+/// zero. Given the measured part, the fit tries q from the whole down to it in steps of 4 and
+/// keeps the one whose residuals are likeliest (restricted likelihood, so the fitted columns do
+/// not count as fit), so the data say how much of the allowance the launch needs.</para>
 /// </remarks>
 internal static class AccelClockFit
 {
@@ -52,7 +58,10 @@ internal static class AccelClockFit
     /// <param name="inputDensity">Noise density of the input, m²/s³.</param>
     /// <param name="rateSigma">Prior σ of the clocks' rate difference ρ (a pseudo-observation ρ = 0).</param>
     /// <param name="slip">An undriven wheel's slip per m/s² of acceleration and its σ, s²/m.</param>
-    public static Estimate? Fit(double[] timeS, double[] input, double restS, double onsetS, double endS, PulseChannel pulses, double metresPerPulse, double toothSigmaM, double inputDensity, double rateSigma, Estimate slip)
+    /// <param name="measuredDensity">The part of <paramref name="inputDensity"/> measured from the
+    /// samples' own noise; when given, the density of the input's random walk is chosen between it
+    /// and <paramref name="inputDensity"/> by the residuals' restricted likelihood.</param>
+    public static Estimate? Fit(double[] timeS, double[] input, double restS, double onsetS, double endS, PulseChannel pulses, double metresPerPulse, double toothSigmaM, double inputDensity, double rateSigma, Estimate slip, double? measuredDensity = null)
     {
         int start = Math.Max(0, Array.BinarySearch(timeS, restS) is int f && f >= 0 ? f : ~f);
         int n = timeS.Length;
@@ -91,7 +100,7 @@ internal static class AccelClockFit
         int m = Math.Min(chosen.Count, MaxPoints);
         var x = Matrix<double>.Build.Dense(m, Columns);
         var y = Vector<double>.Build.Dense(m);
-        var c = Matrix<double>.Build.Dense(m, m);
+        var white = new double[m];
         var tau = new double[m];
         var lag = new double[m];
         for (int r = 0; r < m; r++)
@@ -114,24 +123,64 @@ internal static class AccelClockFit
             x[r, 4] = v * (t - onsetS);
             x[r, 5] = (growth[k - 1] + (w * (growth[k] - growth[k - 1]))) / (GrowthReferenceMps * GrowthReferenceMps);
             double edge = v * pulses.EdgeSigmaS(i);
-            c[r, r] = (edge * edge) + (toothSigmaM * toothSigmaM);
+            white[r] = (edge * edge) + (toothSigmaM * toothSigmaM);
         }
 
+        // The input's random walk per unit density, and the slip's shared error.
+        var walk = Matrix<double>.Build.Dense(m, m);
+        var shared = Matrix<double>.Build.Dense(m, m);
         for (int a = 0; a < m; a++)
         {
             for (int b = 0; b <= a; b++)
             {
                 double lo = Math.Min(tau[a], tau[b]);
                 double hi = Math.Max(tau[a], tau[b]);
-                double walk = (inputDensity * ((lo * lo * hi / 2) - (lo * lo * lo / 6))) + (slip.Sigma * slip.Sigma * lag[a] * lag[b]);
-                c[a, b] += walk;
-                if (a != b)
-                {
-                    c[b, a] += walk;
-                }
+                walk[a, b] = walk[b, a] = (lo * lo * hi / 2) - (lo * lo * lo / 6);
+                shared[a, b] = shared[b, a] = slip.Sigma * slip.Sigma * lag[a] * lag[b];
             }
         }
 
+        Solution? best = null;
+        double density = inputDensity;
+        double floor = Math.Max(Math.Min(measuredDensity ?? inputDensity, inputDensity), inputDensity * Math.Pow(DensityStep, -MaxDensitySteps));
+        while (true)
+        {
+            Matrix<double> c = (density * walk) + shared;
+            for (int r = 0; r < m; r++)
+            {
+                c[r, r] += white[r];
+            }
+
+            if (Solve(x, y, c, rateSigma) is { } solution && (best is null || solution.LogLikelihood > best.Value.LogLikelihood))
+            {
+                best = solution;
+            }
+
+            if (density <= floor)
+            {
+                break;
+            }
+
+            density = Math.Max(floor, density / DensityStep);
+        }
+
+        return best is { } pick && double.IsFinite(pick.Offset) && double.IsFinite(pick.Sigma) && pick.Sigma > 0 ? new Estimate(pick.Offset, pick.Sigma) : null;
+    }
+
+    /// <summary>Ratio between neighbouring densities tried for the input's random walk.</summary>
+    private const double DensityStep = 4;
+
+    /// <summary>Most steps down from the density told (4⁸: a sensor that reports no noise at all
+    /// still gets a walk).</summary>
+    private const int MaxDensitySteps = 8;
+
+    private readonly record struct Solution(double Offset, double Sigma, double LogLikelihood);
+
+    /// <summary>The generalised least-squares fit for one error covariance, with its restricted
+    /// log-likelihood (the likelihood of the residuals, free of the fitted columns: Patterson &amp;
+    /// Thompson 1971; for Gaussian errors −½·(log|C| + log|XᵀC⁻¹X| + rᵀC⁻¹r) up to a constant).</summary>
+    private static Solution? Solve(Matrix<double> x, Vector<double> y, Matrix<double> c, double rateSigma)
+    {
         try
         {
             var cholesky = c.Cholesky();
@@ -139,13 +188,16 @@ internal static class AccelClockFit
             Vector<double> cy = cholesky.Solve(y);
             Matrix<double> information = x.TransposeThisAndMultiply(cx);
             information[4, 4] += 1 / (rateSigma * rateSigma);
+            var informationCholesky = information.Cholesky();
             Matrix<double> covariance = information.Inverse();
             Vector<double> theta = covariance * x.TransposeThisAndMultiply(cy);
             Vector<double> residual = y - (x * theta);
             double chi2 = residual.DotProduct(cholesky.Solve(residual));
+            int m = y.Count;
             double inflate = Math.Max(1, Math.Sqrt(chi2 / Math.Max(m - Columns, 1)));
             double sigma = Math.Sqrt(Math.Max(covariance[1, 1], 0)) * inflate;
-            return double.IsFinite(theta[1]) && double.IsFinite(sigma) && sigma > 0 ? new Estimate(theta[1], sigma) : null;
+            double logLikelihood = -0.5 * (cholesky.DeterminantLn + informationCholesky.DeterminantLn + chi2 + (theta[4] * theta[4] / (rateSigma * rateSigma)));
+            return new Solution(theta[1], sigma, logLikelihood);
         }
         catch (ArgumentException)
         {

@@ -173,15 +173,22 @@ internal sealed partial class ReconstructionPass
         }
 
         (pitchRad, pitchSigmaRad) = RestingPitch(a);
-        accelInput = a.Input(pitchRad, options.CompensateBodyPitch);
+        accelInput = ScaledInput(a.Input(pitchRad, options.CompensateBodyPitch));
+    }
+
+    /// <summary><paramref name="input"/> with the calibrated scale divided out (the forward axis
+    /// reads its scale factor times the force), in place.</summary>
+    private double[] ScaledInput(double[] input)
+    {
         if (options.AccelScaleCalibration is { Value: > 0 } calibration)
         {
-            // The forward axis reads its scale factor times the force: divide it out.
-            for (int i = 0; i < accelInput.Length; i++)
+            for (int i = 0; i < input.Length; i++)
             {
-                accelInput[i] /= calibration.Value;
+                input[i] /= calibration.Value;
             }
         }
+
+        return input;
     }
 
     /// <summary>How long after the last pulse a record that ends at rest is surely standing, s.</summary>

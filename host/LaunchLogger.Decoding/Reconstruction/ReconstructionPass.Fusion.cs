@@ -20,10 +20,12 @@ internal sealed partial class ReconstructionPass
 
     /// <summary>Noise density of the accelerometer's input from <paramref name="startS"/> on, m²/s³:
     /// the moving noise per sample and what the model misses.</summary>
-    private double InputDensity(ForwardAcceleration a, double startS)
+    private double InputDensity(ForwardAcceleration a, double startS) => MeasuredInputDensity(a, startS) + options.AccelModelNoiseDensity;
+
+    private double MeasuredInputDensity(ForwardAcceleration a, double startS)
     {
         double noise = options.AccelNoiseMps2 ?? a.MovingNoise(a.IndexAtOrAfter(startS), a.Count);
-        return (noise * noise * a.PeriodS * a.CorrelationFactor * a.CorrelationFactor) + options.AccelModelNoiseDensity;
+        return noise * noise * a.PeriodS * a.CorrelationFactor * a.CorrelationFactor;
     }
 
     private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, List<TimeWindow> braking, double[]? slipSignal)

@@ -136,11 +136,20 @@ internal sealed partial class ReconstructionPass
             }
         }
 
-        if (AccelClockFit.Fit(a.TimeS, accelInput, o.TimeS - 0.3, o.TimeS, endS, pulses, mpp, options.ToothSpacingErrorFraction * mpp, InputDensity(a, o.TimeS), options.TextAccelClockRateSigma, new Estimate(options.UndrivenSlipPerMps2, options.UndrivenSlipSigma)) is not { } fit)
+        // The fit reads the forward axis as it is, not compensated for the body's pitch: the
+        // compensation passes the vertical axis' noise through at a gain of up to g/(2·p₀) where
+        // the acceleration is small, a random walk of speed many times the forward axis' own, and
+        // the squat it takes out follows the acceleration, a scale the fit's scale column takes.
+        // What the scale cannot take is the body's pitch lagging the acceleration: that reads as
+        // an offset of the lag times the squat's share of the reading, put into σ.
+        double[] plain = options.CompensateBodyPitch ? ScaledInput(a.Input(pitchRad, compensatePitch: false)) : accelInput;
+        if (AccelClockFit.Fit(a.TimeS, plain, o.TimeS - 0.3, o.TimeS, endS, pulses, mpp, options.ToothSpacingErrorFraction * mpp, InputDensity(a, o.TimeS), options.TextAccelClockRateSigma, new Estimate(options.UndrivenSlipPerMps2, options.UndrivenSlipSigma), MeasuredInputDensity(a, o.TimeS)) is not { } matched)
         {
             return;
         }
 
+        double lag = SquatShare(a, plain, o.TimeS, endS) * BodyPitchLagS;
+        var fit = new Estimate(matched.Value, Math.Sqrt((matched.Sigma * matched.Sigma) + (lag * lag)));
         // Inverse-variance combination with the prior δ = 0 ± prior.
         double wPrior = 1 / (prior * prior);
         double wFit = 1 / (fit.Sigma * fit.Sigma);
@@ -150,6 +159,32 @@ internal sealed partial class ReconstructionPass
         onset = o with { TimeS = o.TimeS - offset, DetectedS = o.DetectedS - offset };
         accelClockOffsetSigmaS = sigma;
         warnings.Add(FormattableString.Invariant($"the accelerometer's clock was matched to the pulses' over the launch: its samples moved by {-offset * 1e3:F1} ms ± {sigma * 1e3:F1}"));
+    }
+
+    /// <summary>How long the body's pitch may lag the acceleration, s: a car's pitch mode near
+    /// 1–1.5 Hz, damped to about a third of critical, follows a slow change of load within
+    /// 2ζ/ω ≈ 0.06–0.1 s (any vehicle dynamics text's second-order response; from memory).</summary>
+    private const double BodyPitchLagS = 0.1;
+
+    /// <summary>The share of the forward reading that the body's pitch compensation takes out
+    /// over the fit's window (least squares through the origin of the compensation against the
+    /// uncompensated reading), as a magnitude; 0 without compensation.</summary>
+    private double SquatShare(ForwardAcceleration a, double[] plain, double fromS, double toS)
+    {
+        if (ReferenceEquals(plain, accelInput))
+        {
+            return 0;
+        }
+
+        double cross = 0;
+        double square = 0;
+        for (int i = a.IndexAtOrAfter(fromS); i < a.Count && a.TimeS[i] <= toS; i++)
+        {
+            cross += (plain[i] - accelInput[i]) * plain[i];
+            square += plain[i] * plain[i];
+        }
+
+        return square > 0 ? Math.Abs(cross / square) : 0;
     }
 
     /// <summary>Below this speed a record counts as opening at rest, m/s.</summary>

@@ -57,6 +57,31 @@ public class AccelClockFitTests
         Assert.True(f.Sigma < 1e-3, $"σ {f.Sigma * 1e3:F3} ms");
     }
 
+    [Theory]
+    [InlineData(-5e-3, 9)]
+    [InlineData(3e-3, 10)]
+    [InlineData(6e-3, 11)]
+    public void A_noise_density_told_far_too_high_is_brought_down_by_the_residuals(double offsetS, int seed)
+    {
+        // The input's true density is NoiseMps2²/rate (white samples integrated: a random walk of
+        // speed); told 100 times that, with the true one as the measured part, the fit chooses
+        // the density by the residuals' restricted likelihood and is as sharp as one told the
+        // truth (within the 4× steps it tries: σ within a factor √2 of the true density's fit);
+        // without the measured part it keeps the density told, and its σ is several times wider.
+        (double[] time, double[] input, PulseChannel pulses) = Launch(offsetS, seed, biasMps2: 0.03);
+        double density = NoiseMps2 * NoiseMps2 / RateHz;
+        Estimate Fit(double told, double? measured) =>
+            AccelClockFit.Fit(time, input, StartS + offsetS - 0.3, StartS + offsetS, StartS + 5, pulses, MetresPerPulse, 1e-4, told, 58e-6, new Estimate(0, 0), measured) ?? throw new InvalidOperationException("no fit");
+
+        Estimate truth = Fit(density, null);
+        Estimate chosen = Fit(100 * density, density);
+        Estimate kept = Fit(100 * density, null);
+
+        Assert.True(Math.Abs(chosen.Value - offsetS) <= 3 * chosen.Sigma, $"δ {chosen.Value * 1e3:F3} ms ± {chosen.Sigma * 1e3:F3}, truth {offsetS * 1e3:F3}");
+        Assert.True(chosen.Sigma <= Math.Sqrt(2) * truth.Sigma, $"σ {chosen.Sigma * 1e3:F3} ms where the true density gives {truth.Sigma * 1e3:F3}");
+        Assert.True(kept.Sigma >= 3 * truth.Sigma, $"σ kept {kept.Sigma * 1e3:F3} ms, true density {truth.Sigma * 1e3:F3}");
+    }
+
     [Fact]
     public void Too_few_pulses_in_the_window_give_no_estimate()
     {

@@ -37,10 +37,11 @@ public class LongIdleTests
         RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeText(r).Runs);
         TruthRun t = Assert.Single(r.Truth);
 
-        // The slide is drift × 60 s = 6 ms; matched, first motion errs by 0.4–2.4 ms on these
-        // records (measured), so 3 ms is half the slide and above the worst of them.
+        // The slide is drift × 60 s = 6 ms; matched, first motion errs by 0.03–1.43 ms on these
+        // records (measured; 0.4–2.4 ms while the match read the pitch-compensated input), so
+        // 2 ms is a third of the slide and above the worst of them.
         double error = a.Figures.FirstMotionS.Value - t.FirstMotionS!.Value;
-        Assert.True(Math.Abs(error) < 3e-3, $"{r.Spec}: first motion off by {error * 1e3:F2} ms");
+        Assert.True(Math.Abs(error) < 2e-3, $"{r.Spec}: first motion off by {error * 1e3:F2} ms");
         Assert.Contains(a.Reconstruction.Warnings, w => w.Contains("clock was matched", StringComparison.Ordinal));
     }
 
