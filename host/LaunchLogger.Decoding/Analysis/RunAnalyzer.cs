@@ -60,7 +60,7 @@ public static class RunAnalyzer
 
         Estimate[] brakeOn = BrakeSwitchOnsets(run, reconstruction, options);
         (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
-        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions), [.. reconstruction.BrakingSlideWindows, .. reconstruction.WheelspinWindows], options.BrakeSlip, reconstruction.BrakeSlipDistanceM);
+        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions), [.. reconstruction.BrakingSlideWindows, .. reconstruction.WheelspinWindows], options.BrakeSlip, reconstruction.BrakeSlipDistanceM, reconstruction.BrakeSlipPerMps2);
 
         // Nothing reached after brake onset is an acceleration figure.
         double? onset = braking?.OnsetS.Value;

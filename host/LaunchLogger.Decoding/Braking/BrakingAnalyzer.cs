@@ -77,9 +77,12 @@ public static class BrakingAnalyzer
     /// <param name="brakeSlip">The pickup tyre's slip stiffness; <see cref="BrakeSlipPrior.CarTyres"/> when null.</param>
     /// <param name="fusedSlipDistanceM">What the fusion added to the pulses' distance for the
     /// braked wheel's slip, on the trajectory's grid (<see cref="ReconstructedRun.BrakeSlipDistanceM"/>):
-    /// taken off again over the stop, which is then measured as from the pulses alone (the
-    /// fusion's slip is not yet a measurement to quote). The MFDD is the fused trajectory's.</param>
-    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM, IReadOnlyList<TimeWindow>? pulsesSetAside = null, BrakeSlipPrior? brakeSlip = null, double[]? fusedSlipDistanceM = null)
+    /// kept when the fusion measured the slip (<paramref name="fusedBrakeSlip"/>, <see cref="FusedSlipMeasured"/>),
+    /// otherwise taken off again over the stop, which is then measured as from the pulses alone with
+    /// the prior's correction. The MFDD is the fused trajectory's.</param>
+    /// <param name="fusedBrakeSlip">The fusion's brake slip k_b = 1/(g0·C), s²/m, and its σ
+    /// (<see cref="ReconstructedRun.BrakeSlipPerMps2"/>); null when it fitted none.</param>
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM, IReadOnlyList<TimeWindow>? pulsesSetAside = null, BrakeSlipPrior? brakeSlip = null, double[]? fusedSlipDistanceM = null, Estimate? fusedBrakeSlip = null)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         ArgumentNullException.ThrowIfNull(brakeSwitchOnsets);
@@ -164,13 +167,14 @@ public static class BrakingAnalyzer
         bool fused = fusedSlipDistanceM is not null;
         double fusedSlip = fused ? trajectory.ValueAt(fusedSlipDistanceM!, standstillS) - trajectory.ValueAt(fusedSlipDistanceM!, onset.Value) : 0;
         double slipWork = pulsesCarry ? BrakingWorkM(trajectory, onset.Value, standstillS, slid) : 0;
-        double slipCorrection = slipWork * tyre.MeanInverse;
+        bool measured = fused && fusedBrakeSlip is { } kb && FusedSlipMeasured(kb, tyre);
+        double slipCorrection = measured ? fusedSlip : slipWork * tyre.MeanInverse;
         double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance - fusedSlip + slipCorrection;
         // The path's own σ between onset and standstill (a circumference error counts on the stop's
         // length, not on the whole run's), and the onset's σ at the speed there.
         double pathSigma = trajectory.IntervalSigmaM(onset.Value, standstillS);
         double meanDecel = BrakingFormulas.MeanDecelerationMps2(fromMps, stopDistance);
-        double slipSigma = slipWork * tyre.InverseSigma;
+        double slipSigma = slipWork * (measured ? MeasuredInverseSigma(fusedBrakeSlip!.Value) : tyre.InverseSigma);
         double distanceSigma = Math.Sqrt((pathSigma * pathSigma) + Math.Pow(fromMps * onset.Sigma, 2) + (slipSigma * slipSigma));
 
         return new BrakingResult
@@ -188,6 +192,32 @@ public static class BrakingAnalyzer
             TractionBound0To60S = BrakingFormulas.TractionBoundS(60 * Units.MpsPerMph, meanDecel),
             TractionBound0To100KmhS = BrakingFormulas.TractionBoundS(100 * Units.MpsPerKmh, meanDecel),
         };
+    }
+
+    /// <summary>The fusion's brake slip is taken for the stop when its σ is at most this share of
+    /// the prior's: the pulses and the accelerometer then measured the tyre, rather than leaving
+    /// the prior as it was (a record with little firm braking, or one whose braking was mostly
+    /// set aside as a slide).</summary>
+    public const double MeasuredSlipShare = 0.5;
+
+    /// <summary>What the fused slip may be off beyond its own σ, as a share of it. Measured on
+    /// the generator's stops from cruise (36 records, rises 0.05 s to a steady rise through the
+    /// stop, C 15–30, accelerometer scale ±1.2 %): within 5 % of the tyre's on rings of 24 teeth
+    /// and more, but on coarse rings (8–12 teeth) with slow rises (1 s to steady) 0.54–0.87 of it
+    /// at 3–9σ, where the accelerometer's error wander still takes up part of the slip. 0.1
+    /// keeps the bench's stops covered; it does not cover those worst cases.</summary>
+    public const double MeasuredSlipModelShare = 0.1;
+
+    /// <summary>True when the fused slip <paramref name="kb"/> (s²/m) was measured (<see cref="MeasuredSlipShare"/>).</summary>
+    private static bool FusedSlipMeasured(Estimate kb, BrakeSlipPrior tyre) =>
+        tyre.InverseSigma > 0 && kb.Sigma * Units.StandardGravity <= MeasuredSlipShare * tyre.InverseSigma;
+
+    /// <summary>σ of 1/C from the fused slip: its own and <see cref="MeasuredSlipModelShare"/> of it.</summary>
+    private static double MeasuredInverseSigma(Estimate kb)
+    {
+        double own = kb.Sigma * Units.StandardGravity;
+        double model = MeasuredSlipModelShare * Math.Abs(kb.Value) * Units.StandardGravity;
+        return Math.Sqrt((own * own) + (model * model));
     }
 
     /// <summary>Onset of the deceleration that ends the run, found on samples (t, a) between

@@ -18,8 +18,10 @@ public sealed record BrakingResult
     /// <summary>Distance from onset to standstill, m, with its σ.</summary>
     public required Estimate StoppingDistanceM { get; init; }
 
-    /// <summary>What <see cref="StoppingDistanceM"/> includes for the braked wheel's expected slip,
-    /// m: where the pulses carry the distance they count it short by the tyre's slip
+    /// <summary>What <see cref="StoppingDistanceM"/> includes for the braked wheel's slip, m: where
+    /// the pulses carry the distance they count it short by the tyre's slip, as the fusion
+    /// measured it against the accelerometer (k_b·∫ v·max(−a, 0) dt, when its σ is at most
+    /// <see cref="BrakingAnalyzer.MeasuredSlipShare"/> of the prior's) or as the prior expects it
     /// (∫ max(−a, 0)·v dt / g0 × E[1/C], <see cref="BrakeSlipPrior"/>); 0 where they do not.</summary>
     public double BrakeSlipCorrectionM { get; init; }
 

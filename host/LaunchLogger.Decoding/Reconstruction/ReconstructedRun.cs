@@ -63,9 +63,10 @@ public sealed class ReconstructedRun
     /// <summary>The pickup wheel's slip under braking per m/s² of deceleration, 1/(g0·C), s²/m,
     /// as the fusion estimated it from the pulses against the accelerometer (prior: the tyres'
     /// stiffness range). Null when not modelled (no accelerometer or no pulses, or told that the
-    /// wheel does not slip). Modelled so that the braking shortfall stays in the braking: it is
-    /// not yet a measurement to quote, since where the brakes come on slowly (a rise over
-    /// 0.5–2 s) it came out 0.15–0.95 of the truth on the bench with a σ that does not cover it.</summary>
+    /// wheel does not slip). The stop takes it where its σ is well under the prior's
+    /// (<see cref="Braking.BrakingAnalyzer.MeasuredSlipShare"/>), with a model allowance
+    /// (<see cref="Braking.BrakingAnalyzer.MeasuredSlipModelShare"/>): over coarse rings (8–12
+    /// teeth) on slow rises it may still come out up to a third low.</summary>
     public Estimate? BrakeSlipPerMps2 { get; init; }
 
     /// <summary>What the fusion added to the pulses' distance for the braked wheel's slip,

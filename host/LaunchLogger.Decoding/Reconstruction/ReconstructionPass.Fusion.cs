@@ -88,6 +88,9 @@ internal sealed partial class ReconstructionPass
             speedSigma = v0.Sigma;
         }
 
+        // Where the pulses are kept under firm braking the brake slip is fitted, and the
+        // accelerometer's scale error is then one state over the whole record, not a step per window.
+        bool scaleState = withAccel && brakeSlipSignal != null && firmBraking.Count > 0;
         int stopIndex = int.MaxValue;
         if (stopS is { } s)
         {
@@ -125,14 +128,15 @@ internal sealed partial class ReconstructionPass
             // Across a spin or slide the wheel may gain or lose any distance: the phase starts afresh.
             SpinPhaseVariance = 1e6,
             BrakeWindows = [.. braking],
-            BrakeBiasStepVariance = BrakeStepVariances(steps, braking),
+            BrakeBiasStepVariance = BrakeStepVariances(steps, braking, withScale: true),
             FirmBrakeWindows = [.. firmBraking],
-            FirmBrakeStepVariance = BrakeStepVariances(steps, firmBraking),
+            FirmBrakeStepVariance = BrakeStepVariances(steps, firmBraking, withScale: !scaleState),
             BrakeThirdDensity = options.BrakeBiasWanderDensity,
             SlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,
             BrakeSlipMean = brakeSlipSignal is null ? 0 : options.BrakeSlip.MeanInverse / G0,
             BrakeSlipSigma = brakeSlipSignal is null ? 0 : options.BrakeSlip.InverseSigma / G0,
+            ScaleSigma = scaleState ? options.ForwardScaleSigma : 0,
             SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
             SlipMinimum = options.WheelSlipMinimum,
             UnkeptSlipMean = slipSignal is null ? 0 : options.UndrivenSlipPerMps2,

@@ -141,7 +141,7 @@ internal sealed partial class ReconstructionPass
         }
 
         double startSpeed = Staged ? 0 : opening?.SpeedMps.Value ?? accelOpeningSpeed?.Value ?? 0;
-        return BrakingWindows(steps, startS, stopS, options.BrakingDecelMps2, startSpeed);
+        return FromRiseFoot(steps, startS, stopS, startSpeed, BrakingWindows(steps, startS, stopS, options.BrakingDecelMps2, startSpeed));
     }
 
     /// <summary>Stretches where the drive force per unit mass (measured acceleration plus typical
@@ -211,37 +211,15 @@ internal sealed partial class ReconstructionPass
     {
         var windows = new List<TimeWindow>();
         double[] grid = steps.TimeS;
-        double[] dv = steps.StepSpeedM;
         double stop = stopS ?? double.PositiveInfinity;
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         int n = grid.Length;
-        double sum = 0;
-        double span = 0;
-        int lo = k0;
-        int hi = k0;
-        double speed = startSpeedMps;
+        double[] drive = DriveForce(steps, startS, stopS, startSpeedMps);
         double open = double.NaN;
         double last = double.NaN;
         for (int k = k0; k + 1 < n && grid[k] < stop; k++)
         {
-            // Running mean of the input over the steps within ±0.05 s.
-            while (hi + 1 < n && grid[hi] < grid[k] + 0.05)
-            {
-                sum += dv[hi];
-                span += grid[hi + 1] - grid[hi];
-                hi++;
-            }
-
-            while (lo < k && grid[lo] <= grid[k] - 0.05)
-            {
-                sum -= dv[lo];
-                span -= grid[lo + 1] - grid[lo];
-                lo++;
-            }
-
-            speed = Math.Max(speed + dv[k], 0);
-            double force = span > 0 ? (sum / span) + (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * speed * speed) : 0;
-            if (force < -decelMps2)
+            if (drive[k] < -decelMps2)
             {
                 if (double.IsNaN(open))
                 {
@@ -264,6 +242,114 @@ internal sealed partial class ReconstructionPass
 
         return windows;
     }
+
+    /// <summary>The drive force per unit mass at each grid point (the input averaged over ±0.05 s
+    /// plus typical drag and rolling resistance; negative under braking), from
+    /// <paramref name="startS"/> to <paramref name="stopS"/> (0 elsewhere), the speed taken as
+    /// <paramref name="startSpeedMps"/> at the start for the drag; the averaged input alone in
+    /// <paramref name="meanInput"/> when given.</summary>
+    private double[] DriveForce(StepGrid steps, double startS, double? stopS, double startSpeedMps, double[]? meanInput = null)
+    {
+        double[] grid = steps.TimeS;
+        double[] dv = steps.StepSpeedM;
+        double stop = stopS ?? double.PositiveInfinity;
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        int n = grid.Length;
+        var drive = new double[n];
+        double sum = 0;
+        double span = 0;
+        int lo = k0;
+        int hi = k0;
+        double speed = startSpeedMps;
+        for (int k = k0; k + 1 < n && grid[k] < stop; k++)
+        {
+            // Running mean of the input over the steps within ±0.05 s.
+            while (hi + 1 < n && grid[hi] < grid[k] + 0.05)
+            {
+                sum += dv[hi];
+                span += grid[hi + 1] - grid[hi];
+                hi++;
+            }
+
+            while (lo < k && grid[lo] <= grid[k] - 0.05)
+            {
+                sum -= dv[lo];
+                span -= grid[lo + 1] - grid[lo];
+                lo++;
+            }
+
+            speed = Math.Max(speed + dv[k], 0);
+            drive[k] = span > 0 ? (sum / span) + (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * speed * speed) : 0;
+            if (meanInput != null)
+            {
+                meanInput[k] = span > 0 ? sum / span : 0;
+            }
+        }
+
+        return drive;
+    }
+
+    /// <summary>Each window opened back to the foot of its brake rise: the last point before it
+    /// where the braking force (<see cref="DriveForce"/>) was under <see cref="RiseFootMps2"/>,
+    /// at most <see cref="LongestRiseS"/> earlier, not before <paramref name="startS"/> or the
+    /// window before. A braked tyre slips from the first touch of the pedal, by the deceleration
+    /// over g0·C: on a slow rise (0.5–2 s) the 0.1 s widening of a firm window opened up to half
+    /// a second after the slip began, and the pulse speed's shortfall there, up to 0.15 m/s at
+    /// 60 mph, was taken up by the accelerometer's error before the slip state could have it.</summary>
+    private List<TimeWindow> FromRiseFoot(StepGrid steps, double startS, double? stopS, double startSpeedMps, List<TimeWindow> windows)
+    {
+        if (windows.Count == 0)
+        {
+            return windows;
+        }
+
+        double[] grid = steps.TimeS;
+        var input = new double[grid.Length];
+        double[] drive = DriveForce(steps, startS, stopS, startSpeedMps, input);
+        int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        var result = new List<TimeWindow>(windows.Count);
+        double earliest = startS;
+        foreach (TimeWindow w in windows)
+        {
+            int k = Math.Min(FusionSmoother.FirstIndexAfter(grid, w.StartS), grid.Length - 1);
+            double from = Math.Max(earliest, w.StartS - LongestRiseS);
+            while (k > k0 && grid[k - 1] > from && -drive[k - 1] >= RiseFootMps2)
+            {
+                k--;
+            }
+
+            // The force is net of typical drag, which a coasting car's own deceleration may not
+            // show: back on while the force still rises, 0.1 s at a time, as long as the car was
+            // slowing at all (not into the drive before a lift-off).
+            int back = FusionSmoother.FirstIndexAfter(grid, grid[k] - RiseStepS);
+            while (back > k0 && back < k && grid[back] > from && input[back] < 0 && drive[back] - drive[k] > RiseFootJerkMps3 * (grid[k] - grid[back]))
+            {
+                k = back;
+                back = FusionSmoother.FirstIndexAfter(grid, grid[k] - RiseStepS);
+            }
+
+            // Half the force's averaging span before the foot, where the rise's first steps lie.
+            double open = Math.Max(Math.Min(w.StartS, grid[k] - 0.05), earliest);
+            result.Add(new TimeWindow(open, w.EndS));
+            earliest = w.EndS;
+        }
+
+        return result;
+    }
+
+    /// <summary>Braking force per unit mass under which a brake rise counts as not yet begun, m/s².</summary>
+    private const double RiseFootMps2 = 0.3;
+
+    /// <summary>Below this rate of rise of the braking force the rise counts as not yet begun,
+    /// m/s³ (half the slowest rise the bench draws, 0.5 g over 2 s; the ±0.05 s mean of a 100 Hz
+    /// input moves by a few hundredths of a m/s² from noise alone).</summary>
+    private const double RiseFootJerkMps3 = 1.0;
+
+    /// <summary>The step of the walk back to a rise's foot, s.</summary>
+    private const double RiseStepS = 0.1;
+
+    /// <summary>How far back a firm window may be opened to its rise's foot, s.</summary>
+    private const double LongestRiseS = 3;
 
     /// <summary>Where, under braking, the pulses fall behind the accelerometer: the speed from the
     /// pulses over spans of about 40 ms against the speed they had just before braking plus the
@@ -382,8 +468,9 @@ internal sealed partial class ReconstructionPass
     }
 
     /// <summary>Variance of the accelerometer's error stepping as each brake window starts: its
-    /// scale error times the mean deceleration there, and what pitch compensation leaves.</summary>
-    private double[] BrakeStepVariances(StepGrid steps, List<TimeWindow> braking)
+    /// scale error times the mean deceleration there (<paramref name="withScale"/>; not where the
+    /// scale error is a state of its own), and what pitch compensation leaves.</summary>
+    private double[] BrakeStepVariances(StepGrid steps, List<TimeWindow> braking, bool withScale)
     {
         var result = new double[braking.Count];
         double[] grid = steps.TimeS;
@@ -399,7 +486,7 @@ internal sealed partial class ReconstructionPass
             }
 
             double decel = dt > 0 ? Math.Abs(dv / dt) : 0;
-            double scale = options.AccelScaleSigma * decel;
+            double scale = withScale ? options.AccelScaleSigma * decel : 0;
             result[i] = (scale * scale) + (options.BrakeBiasStepSigmaMps2 * options.BrakeBiasStepSigmaMps2);
         }
 
