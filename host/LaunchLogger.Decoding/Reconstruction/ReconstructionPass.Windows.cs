@@ -141,7 +141,9 @@ internal sealed partial class ReconstructionPass
         }
 
         double startSpeed = Staged ? 0 : opening?.SpeedMps.Value ?? accelOpeningSpeed?.Value ?? 0;
-        return FromRiseFoot(steps, startS, stopS, startSpeed, BrakingWindows(steps, startS, stopS, options.BrakingDecelMps2, startSpeed));
+        var input = new double[steps.TimeS.Length];
+        double[] drive = DriveForce(steps, startS, stopS, startSpeed, input);
+        return FromRiseFoot(steps, startS, drive, input, BrakingWindows(steps, startS, stopS, options.BrakingDecelMps2, drive));
     }
 
     /// <summary>Stretches where the drive force per unit mass (measured acceleration plus typical
@@ -207,14 +209,17 @@ internal sealed partial class ReconstructionPass
     /// <summary>Stretches where the braking force per unit mass exceeds <paramref name="decelMps2"/>
     /// (as above), the speed taken as <paramref name="startSpeedMps"/> at
     /// <paramref name="startS"/> for the drag.</summary>
-    private List<TimeWindow> BrakingWindows(StepGrid steps, double startS, double? stopS, double decelMps2, double startSpeedMps)
+    private List<TimeWindow> BrakingWindows(StepGrid steps, double startS, double? stopS, double decelMps2, double startSpeedMps) =>
+        BrakingWindows(steps, startS, stopS, decelMps2, DriveForce(steps, startS, stopS, startSpeedMps));
+
+    /// <summary>The same over a drive force already found (<see cref="DriveForce"/>).</summary>
+    private static List<TimeWindow> BrakingWindows(StepGrid steps, double startS, double? stopS, double decelMps2, double[] drive)
     {
         var windows = new List<TimeWindow>();
         double[] grid = steps.TimeS;
         double stop = stopS ?? double.PositiveInfinity;
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         int n = grid.Length;
-        double[] drive = DriveForce(steps, startS, stopS, startSpeedMps);
         double open = double.NaN;
         double last = double.NaN;
         for (int k = k0; k + 1 < n && grid[k] < stop; k++)
@@ -290,13 +295,14 @@ internal sealed partial class ReconstructionPass
     }
 
     /// <summary>Each window opened back to the foot of its brake rise: the last point before it
-    /// where the braking force (<see cref="DriveForce"/>) was under <see cref="RiseFootMps2"/>,
+    /// where the braking force (<paramref name="drive"/>, <see cref="DriveForce"/>; the averaged
+    /// input alone in <paramref name="input"/>) was under <see cref="RiseFootMps2"/>,
     /// at most <see cref="LongestRiseS"/> earlier, not before <paramref name="startS"/> or the
     /// window before. A braked tyre slips from the first touch of the pedal, by the deceleration
     /// over g0·C: on a slow rise (0.5–2 s) the 0.1 s widening of a firm window opened up to half
     /// a second after the slip began, and the pulse speed's shortfall there, up to 0.15 m/s at
     /// 60 mph, was taken up by the accelerometer's error before the slip state could have it.</summary>
-    private List<TimeWindow> FromRiseFoot(StepGrid steps, double startS, double? stopS, double startSpeedMps, List<TimeWindow> windows)
+    private static List<TimeWindow> FromRiseFoot(StepGrid steps, double startS, double[] drive, double[] input, List<TimeWindow> windows)
     {
         if (windows.Count == 0)
         {
@@ -304,8 +310,6 @@ internal sealed partial class ReconstructionPass
         }
 
         double[] grid = steps.TimeS;
-        var input = new double[grid.Length];
-        double[] drive = DriveForce(steps, startS, stopS, startSpeedMps, input);
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         var result = new List<TimeWindow>(windows.Count);
         double earliest = startS;

@@ -74,6 +74,11 @@ internal sealed partial class ReconstructionPass
             // saved map of it, turned to the run).
             toothOffsets = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction, options.SavedToothGaps, warnings)?.Offsets(pulses);
         }
+        else if (options.SavedToothGaps != null && pulses != null && options.MeasureToothPositions)
+        {
+            // The saved map is the first channel's ring; the distance came from the other wheel.
+            warnings.Add("calibration: the settings' tooth-spacing map is not applied to this run: its distance comes from the second pulse channel, and the map is the first channel's ring");
+        }
 
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;
         motionHintS = run.FirmwareMotionS ?? run.Events.FirstOrDefault(e => e.Kind == EventKind.Motion)?.TimeS;
