@@ -46,6 +46,11 @@ public class CalibrateTeethCommandTests
         Assert.Equal("hardware_count_mod_pulses_per_revolution", root.GetProperty("tooth_index").GetString());
         Assert.True(root.GetProperty("revolutions").GetDouble() >= 100);
 
+        // The report applies a saved map only to runs whose steady revolutions fix its turn: the
+        // JSON says so rather than promising it for every run.
+        Assert.Equal("per_run_when_its_steady_revolutions_fix_the_turn", root.GetProperty("applied_by_report").GetString());
+        Assert.Equal(ToothSpacingCalibration.MinimumAlignmentRevolutions, root.GetProperty("alignment_revolutions_per_tooth").GetInt32());
+
         // Truth: gap k ends at the edge counted when the hardware counter reaches a value ≡ k
         // (mod n); the simulator's first counted edge has count counter_start + 1.
         IReadOnlyList<double> edges = truth.Sensors.EdgePositionsRev;

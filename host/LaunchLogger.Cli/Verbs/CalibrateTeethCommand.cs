@@ -113,7 +113,10 @@ public static class CalibrateTeethCommand
             map.BracketNoiseFraction,
             map.RmsDeviation,
             map.MaxDeviation,
-            AppliedByReport = true,
+            // `report --settings` applies the map run by run, and only where the run's steady
+            // revolutions show which tooth is which (each run's warnings say whether it was).
+            AppliedByReport = "per_run_when_its_steady_revolutions_fix_the_turn",
+            AlignmentRevolutionsPerTooth = ToothSpacingCalibration.MinimumAlignmentRevolutions,
             SavedTo = settings?.ToString(),
             map.Warnings,
         };
