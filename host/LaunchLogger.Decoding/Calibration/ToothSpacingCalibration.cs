@@ -55,6 +55,13 @@ public static class ToothSpacingCalibration
     /// <summary>Per-interval bracket noise above which the user is told the map rests on averaging.</summary>
     public const double WideBracketNoise = 0.01;
 
+    /// <summary>Least σ of a half map's gap in the halves' comparison, as a fraction of a pitch.
+    /// Exact edges leave each gap known to about 10⁻⁵ of a pitch, below what the speed's change
+    /// within a revolution leaves in it (a few 10⁻⁵ on a coarse ring while accelerating, and not
+    /// the same in both halves); a slipped numbering moves every gap by the ring's own spread,
+    /// 10⁻³ to 10⁻² (a cut or printed ring).</summary>
+    public const double HalfMapFloor = 1e-4;
+
     /// <summary>Maps the tooth spacing of <paramref name="run"/>'s distance channel.</summary>
     /// <param name="run">A run with a steady cruise.</param>
     /// <param name="originCount">The hardware count at the run's origin, or null to number the
@@ -348,7 +355,8 @@ public static class ToothSpacingCalibration
     }
 
     /// <summary>Maps the halves of the cruise (split at the median time) and compares them:
-    /// true when Σ (difference / its σ)² exceeds four times the number of teeth.</summary>
+    /// true when Σ (difference / its σ)² exceeds four times the number of teeth (each half's σ
+    /// at least <see cref="HalfMapFloor"/>).</summary>
     private static bool HalvesDisagree(List<(double Time, double Ratio)>[] perTooth, int n)
     {
         double[] allTimes = perTooth.SelectMany(t => t.Select(e => e.Time)).ToArray();
@@ -366,7 +374,7 @@ public static class ToothSpacingCalibration
 
             Robust a = Robust.Mean(early, 0, early.Length);
             Robust b = Robust.Mean(late, 0, late.Length);
-            double variance = (a.Sigma * a.Sigma) + (b.Sigma * b.Sigma);
+            double variance = (a.Sigma * a.Sigma) + (b.Sigma * b.Sigma) + (2 * HalfMapFloor * HalfMapFloor);
             if (variance > 0)
             {
                 chiSquare += (a.Value - b.Value) * (a.Value - b.Value) / variance;

@@ -74,10 +74,16 @@ internal sealed partial class ReconstructionPass
             // saved map of it, turned to the run).
             toothOffsets = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction, options.SavedToothGaps, warnings)?.Offsets(pulses);
         }
-        else if (options.SavedToothGaps != null && pulses != null && options.MeasureToothPositions)
+        else if (pulses != null && options.MeasureToothPositions)
         {
-            // The saved map is the first channel's ring; the distance came from the other wheel.
-            warnings.Add("calibration: the settings' tooth-spacing map is not applied to this run: its distance comes from the second pulse channel, and the map is the first channel's ring");
+            // The distance comes from the second wheel: its ring's positions from the run alone.
+            // The saved map is the first channel's ring.
+            if (options.SavedToothGaps != null)
+            {
+                warnings.Add("calibration: the settings' tooth-spacing map is not applied to this run: its distance comes from the second pulse channel, and the map is the first channel's ring");
+            }
+
+            toothOffsets = ToothPositions.Measure(run.SecondPulses, configuration.SecondPulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction)?.Offsets(pulses);
         }
 
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;

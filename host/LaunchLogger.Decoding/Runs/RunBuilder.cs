@@ -173,6 +173,7 @@ internal sealed class RunBuilder
             MetresPerPulse = LogUnits.Metres(c.CircumferenceMicrometres) / c.PulsesPerRevolution,
             HasSecondChannel = c.SecondChannelPresent,
             SecondMetresPerPulse = c.SecondChannelPresent ? LogUnits.Metres(c.SecondCircumferenceMicrometres) / c.SecondPulsesPerRevolution : 0,
+            SecondPulsesPerRevolution = c.SecondChannelPresent ? c.SecondPulsesPerRevolution : 0,
             RolloutM = LogUnits.Metres(c.RolloutMicrometres),
             HasAccelerometer = c.AccelPresent,
             AccelNominalRateHz = c.AccelOutputDataRateMilliHz / 1000.0,

@@ -34,6 +34,10 @@ public sealed record RunConfiguration
     /// <summary>Distance per pulse of the second channel, metres (0 without one).</summary>
     public double SecondMetresPerPulse { get; init; }
 
+    /// <summary>Pulses per wheel revolution of the second channel (0 without one, or when not
+    /// known: its tooth positions are then not measured).</summary>
+    public int SecondPulsesPerRevolution { get; init; }
+
     /// <summary>The rollout distance the box used, metres (0.3048 by default).</summary>
     public double RolloutM { get; init; } = 0.3048;
 

@@ -80,6 +80,10 @@ internal sealed record SyntheticRun
     /// <summary>Teeth of a second pickup on an undriven wheel of the same circumference; 0 for none.</summary>
     public int SecondTeeth { get; init; }
 
+    /// <summary>1-σ of each of the second ring's edges off its even place, as a fraction of a pitch
+    /// (0: an evenly cut ring).</summary>
+    public double SecondToothErrorFraction { get; init; }
+
     /// <summary>The box's first-motion mark to put in the log, seconds; null for none.</summary>
     public double? FirmwareMotionS { get; init; }
 
@@ -140,11 +144,20 @@ internal sealed record SyntheticRun
     {
         double mpp = CircumferenceM / teeth;
         double phase = random.NextDouble() * mpp;
+        var toothError = new double[teeth];
+        if (SecondToothErrorFraction > 0)
+        {
+            for (int i = 0; i < teeth; i++)
+            {
+                toothError[i] = Gaussian(random) * SecondToothErrorFraction * mpp;
+            }
+        }
+
         var records = new List<PulseRecord>();
         double end = distance(Motion.EndS);
-        for (long n = 1; (n * mpp) - phase < end; n++)
+        for (long n = 1; (n * mpp) - phase + toothError[n % teeth] < end; n++)
         {
-            double at = (n * mpp) - phase;
+            double at = (n * mpp) - phase + toothError[n % teeth];
             double t = Bisect(Motion.StartS, Motion.EndS, s => distance(s) - at);
             double hi = Math.Ceiling(t * 1e6) / 1e6;
             records.Add(new PulseRecord(n, hi - 1e-6, hi));
@@ -300,6 +313,7 @@ internal sealed record SyntheticRun
                 RolloutM = 0.3048,
                 HasSecondChannel = SecondTeeth > 0,
                 SecondMetresPerPulse = SecondTeeth > 0 ? CircumferenceM / SecondTeeth : 0,
+                SecondPulsesPerRevolution = SecondTeeth,
                 HasAccelerometer = WithAccelerometer,
                 AccelNominalRateHz = AccelRateHz,
                 AccelFullScaleMps2 = 8 * G0,

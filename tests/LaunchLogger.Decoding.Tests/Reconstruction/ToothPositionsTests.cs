@@ -105,6 +105,46 @@ public class ToothPositionsTests
         Assert.True(rmsPlaced < 0.6 * rmsEven, $"rms {rmsPlaced * 1e3:F3} ms with the edges placed, {rmsEven * 1e3:F3} ms evenly");
     }
 
+    /// <summary>The pickup on the driven wheel slips under drive, so distance comes from a second
+    /// pickup on an undriven wheel, here a coarse ring cut to 1.5 % of a pitch: its edges are
+    /// placed from the run's own revolutions as the first channel's are.</summary>
+    [Fact]
+    public void A_coarse_second_ring_used_for_distance_is_placed_too()
+    {
+        const int Cases = 12;
+        var placed = new List<double>();
+        var even = new List<double>();
+        for (int seed = 1; seed <= Cases; seed++)
+        {
+            SyntheticRun launch = Launch(seed, teeth: 48, toothError: 0.005);
+            SyntheticRun synthetic = new()
+            {
+                Motion = launch.Motion,
+                Seed = seed,
+                Teeth = 48,
+                CircumferenceM = launch.CircumferenceM,
+                ToothErrorFraction = 0.005,
+                AccelNoiseMps2 = launch.AccelNoiseMps2,
+                DriveSlipPerMps2 = 0.01,
+                SecondTeeth = 12,
+                SecondToothErrorFraction = 0.015,
+            };
+            DecodedRun decoded = synthetic.Build();
+            double truth = synthetic.Motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
+            ReconstructedRun withMap = SyntheticRun.Reconstruct(decoded);
+            Assert.Equal(1, withMap.DistanceChannel);
+            Estimate mark = withMap.RolloutTimeS!.Value;
+            Estimate without = SyntheticRun.Reconstruct(decoded, ReconstructionOptions.Default with { MeasureToothPositions = false }).RolloutTimeS!.Value;
+            placed.Add(mark.Value - truth);
+            even.Add(without.Value - truth);
+            Assert.True(Math.Abs(mark.Value - truth) <= 3 * mark.Sigma, $"seed {seed}: {(mark.Value - truth) * 1e3:F2} ms ± {mark.Sigma * 1e3:F2}");
+        }
+
+        double rmsPlaced = Rms(placed);
+        double rmsEven = Rms(even);
+        Assert.True(rmsPlaced < 0.4 * rmsEven, $"rms {rmsPlaced * 1e3:F3} ms with the second ring's edges placed, {rmsEven * 1e3:F3} ms evenly; " + string.Join(" ", placed.Zip(even, (p, e) => $"{p * 1e3:F2}/{e * 1e3:F2}")));
+    }
+
     /// <summary>A run too short for a map of its own (a launch to about 25 km/h, two seconds
     /// held, then a stop) on the same coarse ring, with the ring's map saved from another
     /// session: its numbering starts five teeth on. The map's gaps are the ring's true ones
