@@ -83,8 +83,8 @@ namespace LaunchLogger.Firmware.Run
 
         /// <summary>Length of the blocks whose means the still band bounds (µs): long enough that
         /// sample noise and engine vibration average out (a block of T passes at most 1/(π·f·T) of a
-        /// vibration at f: with 50 ms, a third at 20 Hz, a fifth at 30 Hz), short beside the staging hold. Not in the configuration
-        /// frame (LOG-FORMAT.md, the still band).</summary>
+        /// vibration at f: with 50 ms, a third at 20 Hz, a fifth at 30 Hz), short beside the staging hold. Written
+        /// last in the configuration frame (LOG-FORMAT.md, 0x01).</summary>
         public int StillBlockMicros { get; set; }
 
         /// <summary>Forward acceleration, averaged over the confirm window, that means motion (mg).</summary>

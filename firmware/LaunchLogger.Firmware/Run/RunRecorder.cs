@@ -1041,6 +1041,7 @@ namespace LaunchLogger.Firmware.Run
             writer.PutVarint(settings.MotionConfirmSamples);
             writer.PutVarint(settings.StopHoldMicros);
             writer.PutVarint(settings.BracketLimitMicros);
+            writer.PutVarint(settings.StillBlockMicros);
             writer.End();
         }
     }
