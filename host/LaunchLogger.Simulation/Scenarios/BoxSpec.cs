@@ -24,8 +24,12 @@ public sealed record BoxSpec
     /// <summary>Time without pulses that ends a run, s.</summary>
     public double StopHoldS { get; init; } = 2.0;
 
-    /// <summary>Peak-to-peak band per axis that still counts as still, milli-g.</summary>
+    /// <summary>Peak-to-peak band per axis that still counts as still, milli-g (over the means of
+    /// blocks of <see cref="StillBlockS"/>).</summary>
     public int StillBandMilliG { get; init; } = 60;
+
+    /// <summary>Length of the blocks whose means the still band bounds, s.</summary>
+    public double StillBlockS { get; init; } = 0.05;
 
     /// <summary>Forward acceleration over the confirm window that means motion, milli-g.</summary>
     public int MotionThresholdMilliG { get; init; } = 40;
