@@ -31,10 +31,11 @@ public sealed record BoxSpec
     /// <summary>Length of the blocks whose means the still band bounds, s.</summary>
     public double StillBlockS { get; init; } = 0.05;
 
-    /// <summary>Forward acceleration over the confirm window that means motion, milli-g.</summary>
+    /// <summary>Forward acceleration that means motion, milli-g, averaged over the confirm window or
+    /// a still block, whichever holds more samples.</summary>
     public int MotionThresholdMilliG { get; init; } = 40;
 
-    /// <summary>Samples in the accelerometer onset confirm window.</summary>
+    /// <summary>Fewest samples in the accelerometer onset's confirm window.</summary>
     public int MotionConfirmSamples { get; init; } = 16;
 
     /// <summary>Length of the accelerometer pre-trigger ring, s.</summary>
