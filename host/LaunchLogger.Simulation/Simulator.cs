@@ -66,6 +66,7 @@ public static class Simulator
             AccelPresent = accel.Present,
             StageHoldMicros = Micro(box.StageHoldS),
             StillBandMilliG = box.StillBandMilliG,
+            StillBlockMicros = Micro(box.StillBlockS),
             MotionThresholdMilliG = box.MotionThresholdMilliG,
             MotionConfirmSamples = box.MotionConfirmSamples,
             StopHoldMicros = Micro(box.StopHoldS),

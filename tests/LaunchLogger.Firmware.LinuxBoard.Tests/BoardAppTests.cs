@@ -65,6 +65,28 @@ public sealed class BoardAppTests : IDisposable
     }
 
     [Theory]
+    [InlineData("", 50_000)]
+    [InlineData(", \"still_block_ms\": 80", 80_000)]
+    public void The_still_block_from_the_settings_file_is_written_in_the_runs_configuration(string keys, long expectedMicros)
+    {
+        (int exit, _, byte[] log, _, _) = RunLaunch(brakeClosedAt: null, switchHoldMicros: 0, accelerometerKeys: keys);
+
+        Assert.Equal(BoardApp.ExitOk, exit);
+        LogFrames.Frame configuration = Assert.Single(LogFrames.Decode(log), f => f.Type == FrameType.Configuration);
+        Assert.Equal(expectedMicros, LastVarint(configuration.Payload)); // LOG-FORMAT.md 0x01: its last field
+
+        // Staged under the file's block: flag bit 2, after the version, firmware version and the
+        // run number, opening and origin count (three varints from offset 7).
+        int at = 7;
+        for (int v = 0; v < 3; v++)
+        {
+            at += Varint.Read(configuration.Payload, at, configuration.Payload.Length - 4, out _);
+        }
+
+        Assert.True((configuration.Payload[at] & LogFormat.ConfigFlagStaged) != 0, "not staged");
+    }
+
+    [Theory]
     [InlineData(20_000, new long[] { 4_008_000 })]
     [InlineData(0, new long[] { 4_001_000, 4_008_000 })]
     public void The_board_hands_its_switch_hold_time_to_the_loop(long holdMicros, long[] brakeOnMicros)
@@ -104,14 +126,16 @@ public sealed class BoardAppTests : IDisposable
         Assert.Contains("/dev/gpiochip9", output.ToString());
     }
 
-    private (int Exit, string Output, byte[] Log, int SamplesLost, uint Edges) RunLaunch(Func<long, bool>? brakeClosedAt, long switchHoldMicros)
+    private (int Exit, string Output, byte[] Log, int SamplesLost, uint Edges) RunLaunch(Func<long, bool>? brakeClosedAt, long switchHoldMicros, string accelerometerKeys = "")
     {
         BoardSettings settings = BoardSettingsFile.Parse(
             """
             {
               "car": { "pulses_per_revolution": 48, "circumference_millimetres": 1960 },
               "pulses": { "line": 17 },
-              "accelerometer": { "chip": "lis3dh", "rate_hz": 1344, "range_g": 8, "forward_axis": "x" },
+              "accelerometer": { "chip": "lis3dh", "rate_hz": 1344, "range_g": 8, "forward_axis": "x"
+            """ + accelerometerKeys + """
+             },
               "log": { "folder": "unused" }
             }
             """,
@@ -184,6 +208,21 @@ public sealed class BoardAppTests : IDisposable
             });
 
         return (exit, output.ToString(), File.ReadAllBytes(logPath), chip.SamplesLost, edges);
+    }
+
+    /// <summary>The body's last varint, just before the CRC: its final byte has the high bit clear,
+    /// and so has the byte before its first (LOG-FORMAT.md, section 2).</summary>
+    private static long LastVarint(byte[] payload)
+    {
+        int end = payload.Length - 4;
+        int start = end - 1;
+        while ((payload[start - 1] & 0x80) != 0)
+        {
+            start--;
+        }
+
+        Assert.True(Varint.Read(payload, start, end, out ulong value) == end - start);
+        return (long)value;
     }
 
     private static short Raw8g(int milliG)

@@ -166,6 +166,22 @@ public sealed class SimulatorTests
     }
 
     [Fact]
+    public void The_scenarios_still_block_reaches_the_logs_configuration()
+    {
+        Scenario s = ScenarioFile.Parse("""{ "base": "club-hatch", "box": { "still_block_s": 0.08 } }""");
+        SimulationResult r = Simulator.Run(s, seed: 8);
+
+        Assert.Equal(80_000, r.Settings.StillBlockMicros);
+        LogFrames log = LogFrames.Parse(r.LogBytes);
+        Assert.True(Decoding.Reading.FrameBodies.TryReadConfiguration(log.OfType(FrameType.Configuration).Single().Body, out var configuration));
+        Assert.Equal(80_000, configuration.StillBlockMicros);
+        Assert.True(configuration.Staged);
+        Assert.Equal(50_000, Simulator.SettingsFor(BuiltInScenarios.Get("club-hatch")).StillBlockMicros);
+        var e = Assert.Throws<ArgumentException>(() => Simulator.Run(s with { Box = s.Box with { StillBlockS = 0.6 } }, 1));
+        Assert.Contains("box.still_block_s", e.Message);
+    }
+
+    [Fact]
     public void An_invalid_scenario_is_refused_with_the_field_named()
     {
         Scenario s = BuiltInScenarios.Default;

@@ -97,6 +97,10 @@ public sealed class BoardSettings
 
         /// <summary>True when that axis points backwards.</summary>
         public bool ForwardAxisReversed { get; set; }
+
+        /// <summary>Length of the blocks whose means the staging still test bounds, milliseconds
+        /// (the core's <c>LoggerSettings.StillBlockMicros</c>, written in each run's configuration).</summary>
+        public int StillBlockMs { get; set; } = 50;
     }
 
     /// <summary>Switches and LED on GPIO pins (System.Device.Gpio numbering).</summary>

@@ -104,6 +104,7 @@ public static class BoardSettingsFile
             logger.AccelFullScaleMilliG = board.Accelerometer.RangeG * 1000;
             logger.ForwardAxis = AxisIndex(board.Accelerometer.ForwardAxis);
             logger.ForwardAxisReversed = board.Accelerometer.ForwardAxisReversed;
+            logger.StillBlockMicros = board.Accelerometer.StillBlockMs * 1000;
         }
 
         if (board.BenchRest != null)
@@ -202,6 +203,12 @@ public static class BoardSettingsFile
             if (AxisIndex(a.ForwardAxis) < 0)
             {
                 return "accelerometer.forward_axis must be \"x\", \"y\" or \"z\" (was \"" + a.ForwardAxis + "\")";
+            }
+
+            // The core's range (LoggerSettings.Validate), checked here in the file's units.
+            if (a.StillBlockMs < 1 || a.StillBlockMs > 500)
+            {
+                return "accelerometer.still_block_ms must be from 1 to 500 (was " + a.StillBlockMs + ")";
             }
         }
 

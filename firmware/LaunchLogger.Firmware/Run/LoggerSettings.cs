@@ -83,14 +83,18 @@ namespace LaunchLogger.Firmware.Run
 
         /// <summary>Length of the blocks whose means the still band bounds (µs): long enough that
         /// sample noise and engine vibration average out (a block of T passes at most 1/(π·f·T) of a
-        /// vibration at f: with 50 ms, a third at 20 Hz, a fifth at 30 Hz), short beside the staging hold. Not in the configuration
-        /// frame (LOG-FORMAT.md, the still band).</summary>
+        /// vibration at f: with 50 ms, a third at 20 Hz, a fifth at 30 Hz), short beside the staging hold. Written
+        /// last in the configuration frame (LOG-FORMAT.md, 0x01).</summary>
         public int StillBlockMicros { get; set; }
 
-        /// <summary>Forward acceleration, averaged over the confirm window, that means motion (mg).</summary>
+        /// <summary>Forward acceleration that means motion (mg), averaged over the onset window: the
+        /// longer of <see cref="MotionConfirmSamples"/> and a still-test block
+        /// (<see cref="RunRecorder.OnsetWindowSamples"/>), so that engine vibration along the car
+        /// averages out there as in the still test.</summary>
         public int MotionThresholdMilliG { get; set; }
 
-        /// <summary>Samples in the window that confirms accelerometer onset.</summary>
+        /// <summary>Fewest samples in the window that confirms accelerometer onset; the window spans
+        /// a still-test block when that holds more (<see cref="MotionThresholdMilliG"/>).</summary>
         public int MotionConfirmSamples { get; set; }
 
         /// <summary>Time without pulses that ends a run (µs).</summary>
@@ -162,9 +166,12 @@ namespace LaunchLogger.Firmware.Run
             if (e == null) e = Range("BenchRestHoldMicros", BenchRestHoldMicros, 500000, 60000000);
             if (e == null) e = Range("BenchRestMicros", BenchRestMicros, 1000000, 600000000);
             if (e == null) e = Range("PreTriggerSamplesPerStep", PreTriggerSamplesPerStep, 0, 100000);
-            if (e == null && AccelPresent && PreTriggerSamples < MotionConfirmSamples)
+            int onsetWindow = RunRecorder.OnsetWindowSamples(this);
+            if (e == null && AccelPresent && PreTriggerSamples < onsetWindow)
             {
-                e = "PreTriggerSamples (" + PreTriggerSamples.ToString() + ") must be at least MotionConfirmSamples (" + MotionConfirmSamples.ToString() + ")";
+                // The onset may lie at the window's oldest sample, which the ring must still hold.
+                e = "PreTriggerSamples (" + PreTriggerSamples.ToString() + ") must be at least the onset window's " + onsetWindow.ToString()
+                    + " samples (MotionConfirmSamples " + MotionConfirmSamples.ToString() + " or StillBlockMicros at the data rate, whichever is more)";
             }
 
             return e;

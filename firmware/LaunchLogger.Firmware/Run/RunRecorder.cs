@@ -16,8 +16,15 @@ namespace LaunchLogger.Firmware.Run
     /// low-frequency acceleration, which sample noise and engine vibration do not move (a noisy
     /// sensor alone spans the band sample to sample). Without an accelerometer, no pulse for that time.
     /// Motion: while staged, the distance channel's count changes, or the forward acceleration
-    /// (minus its resting value) averaged over <see cref="LoggerSettings.MotionConfirmSamples"/>
-    /// passes <see cref="LoggerSettings.MotionThresholdMilliG"/>. A car that rolls
+    /// (minus its resting value) averaged over the onset window (<see cref="OnsetWindowSamples"/>:
+    /// <see cref="LoggerSettings.MotionConfirmSamples"/>, or a still-test block when that is longer,
+    /// so an idling engine's shake along the car averages out as it does in the still test) passes
+    /// <see cref="LoggerSettings.MotionThresholdMilliG"/>; first motion is then where the stretch of
+    /// most excess over the threshold begins (the sample after the lowest running sum of forward
+    /// acceleration less the threshold, a one-sided cumulative sum), no earlier than the window. A
+    /// step is timed to its first sample; a shake of amplitude A above the threshold can put it
+    /// early by at most about 0.6 of the shake's period (0.4 at A = 1.5 × the threshold, 0.63 at
+    /// 3 ×), never late. A car that rolls
     /// <see cref="LoggerSettings.UnstagedOpenMicrometres"/> without being staged opens a rolling run.
     /// Rollout: the distance channel's count reaches the rollout distance; the time is
     /// interpolated linearly, in integer arithmetic, between the bracket midpoints on either side.
@@ -78,6 +85,12 @@ namespace LaunchLogger.Firmware.Run
         private int onsetPos;
         private long onsetSum;
 
+        // The onset's start: the forward deviation less the threshold, summed while staged, and
+        // the sample after its lowest sum so far (where the stretch of most excess begins).
+        private long onsetExcess;
+        private long onsetExcessLowest;
+        private long onsetFromMicros;
+
         private long lastPulseChangeMicros;
         private long idleRollStartCount;
         private bool idleRolling;
@@ -135,7 +148,7 @@ namespace LaunchLogger.Firmware.Run
             ring = settings.AccelPresent
                 ? new AccelPreTriggerRing(settings.PreTriggerSamples, settings.PreTriggerBursts)
                 : null;
-            onsetWindow = new int[settings.MotionConfirmSamples];
+            onsetWindow = new int[OnsetWindowSamples(settings)];
             samplePeriodNanos = settings.AccelPresent ? 1000000000000L / settings.AccelOutputDataRateMilliHz : 0;
             blockSamples = StillBlockSamples(settings);
             blockBand = settings.StillBandMilliG * blockSamples;
@@ -419,9 +432,7 @@ namespace LaunchLogger.Firmware.Run
             else if (phase == RunPhase.Staged)
             {
                 // The press may have jolted the box: onset starts over with fresh samples.
-                onsetFill = 0;
-                onsetPos = 0;
-                onsetSum = 0;
+                RestartOnset();
             }
         }
 
@@ -728,9 +739,16 @@ namespace LaunchLogger.Firmware.Run
             phase = RunPhase.Staged;
             stagedSinceMicros = sinceMicros;
             idleRolling = false;
+            RestartOnset();
+        }
+
+        private void RestartOnset()
+        {
             onsetFill = 0;
             onsetPos = 0;
             onsetSum = 0;
+            onsetExcess = 0;
+            onsetExcessLowest = long.MaxValue;
         }
 
         private void OnOnsetSample(short forwardRaw, long sampleMicros, long readMicros)
@@ -742,6 +760,14 @@ namespace LaunchLogger.Firmware.Run
                 deviation = -deviation;
             }
 
+            int threshold = settings.MotionThresholdMilliG;
+            if (onsetExcess < onsetExcessLowest)
+            {
+                onsetExcessLowest = onsetExcess;
+                onsetFromMicros = sampleMicros;
+            }
+
+            onsetExcess += deviation - threshold;
             int n = onsetWindow.Length;
             if (onsetFill == n)
             {
@@ -755,23 +781,27 @@ namespace LaunchLogger.Firmware.Run
             onsetWindow[onsetPos] = deviation;
             onsetSum += deviation;
             onsetPos = (onsetPos + 1) % n;
-            int threshold = settings.MotionThresholdMilliG;
             if (onsetFill == n && onsetSum >= (long)threshold * n)
             {
-                // Onset estimate: the oldest sample in the window that alone passes the threshold.
-                int first = n - 1;
-                for (int k = 0; k < n; k++)
-                {
-                    if (onsetWindow[(onsetPos + k) % n] >= threshold)
-                    {
-                        first = k;
-                        break;
-                    }
-                }
-
-                long onsetMicros = sampleMicros - ((n - 1 - first) * samplePeriodNanos / 1000);
-                OpenRun(true, MotionCause.AccelOnset, onsetMicros, readMicros);
+                // Onset estimate: where the stretch of most excess over the threshold begins (a
+                // lone vibration peak has little), no earlier than the window's oldest sample.
+                long oldestMicros = sampleMicros - ((n - 1) * samplePeriodNanos / 1000);
+                OpenRun(true, MotionCause.AccelOnset, onsetFromMicros > oldestMicros ? onsetFromMicros : oldestMicros, readMicros);
             }
+        }
+
+        /// <summary>Samples in the window whose forward mean must pass the motion threshold: the
+        /// confirm window or the still test's block, whichever holds more, so engine vibration
+        /// averages out there as it does in the still test.</summary>
+        public static int OnsetWindowSamples(LoggerSettings settings)
+        {
+            if (settings == null)
+            {
+                return 1;
+            }
+
+            int block = StillBlockSamples(settings);
+            return settings.MotionConfirmSamples > block ? settings.MotionConfirmSamples : block;
         }
 
         private void OpenRun(bool staged, MotionCause cause, long firstMotionMicros, long openedMicros)
@@ -1041,6 +1071,7 @@ namespace LaunchLogger.Firmware.Run
             writer.PutVarint(settings.MotionConfirmSamples);
             writer.PutVarint(settings.StopHoldMicros);
             writer.PutVarint(settings.BracketLimitMicros);
+            writer.PutVarint(settings.StillBlockMicros);
             writer.End();
         }
     }

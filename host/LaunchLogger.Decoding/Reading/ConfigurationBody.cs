@@ -67,7 +67,7 @@ public sealed record ConfigurationBody
     /// <summary>Stillness needed for staging, µs.</summary>
     public long StageHoldMicros { get; init; }
 
-    /// <summary>Still band, milli-g peak to peak per axis.</summary>
+    /// <summary>Still band, milli-g peak to peak per axis (of the means of blocks of <see cref="StillBlockMicros"/>).</summary>
     public long StillBandMilliG { get; init; }
 
     /// <summary>Motion threshold, milli-g.</summary>
@@ -81,4 +81,8 @@ public sealed record ConfigurationBody
 
     /// <summary>Bracket width above which an observation counts as wide, µs.</summary>
     public long BracketLimitMicros { get; init; }
+
+    /// <summary>Length of the blocks whose means the still band bounds, µs; 0 when the box did not
+    /// record it (logs from before the field: 50 ms blocks, or single samples before 2026-12-04).</summary>
+    public long StillBlockMicros { get; init; }
 }

@@ -49,6 +49,9 @@ public static class FrameBodies
         long confirm = r.ReadVarint();
         long stopHold = r.ReadVarint();
         long bracketLimit = r.ReadVarint();
+
+        // Appended later (LOG-FORMAT.md, 0x01): a body that ends before it was written without it.
+        long stillBlock = r.Remaining > 0 && !r.Failed ? r.ReadVarint() : 0;
         if (r.Failed || forwardAxis > 2 || forwardSign > 1 || circumference < 1 || (second && secondCircumference < 1))
         {
             return false;
@@ -82,6 +85,7 @@ public static class FrameBodies
             MotionConfirmSamples = confirm,
             StopHoldMicros = stopHold,
             BracketLimitMicros = bracketLimit,
+            StillBlockMicros = stillBlock,
         };
         return true;
     }

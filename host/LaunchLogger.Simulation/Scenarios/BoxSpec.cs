@@ -24,13 +24,18 @@ public sealed record BoxSpec
     /// <summary>Time without pulses that ends a run, s.</summary>
     public double StopHoldS { get; init; } = 2.0;
 
-    /// <summary>Peak-to-peak band per axis that still counts as still, milli-g.</summary>
+    /// <summary>Peak-to-peak band per axis that still counts as still, milli-g (over the means of
+    /// blocks of <see cref="StillBlockS"/>).</summary>
     public int StillBandMilliG { get; init; } = 60;
 
-    /// <summary>Forward acceleration over the confirm window that means motion, milli-g.</summary>
+    /// <summary>Length of the blocks whose means the still band bounds, s.</summary>
+    public double StillBlockS { get; init; } = 0.05;
+
+    /// <summary>Forward acceleration that means motion, milli-g, averaged over the confirm window or
+    /// a still block, whichever holds more samples.</summary>
     public int MotionThresholdMilliG { get; init; } = 40;
 
-    /// <summary>Samples in the accelerometer onset confirm window.</summary>
+    /// <summary>Fewest samples in the accelerometer onset's confirm window.</summary>
     public int MotionConfirmSamples { get; init; } = 16;
 
     /// <summary>Length of the accelerometer pre-trigger ring, s.</summary>

@@ -184,6 +184,7 @@ internal static class ScenarioValidator
         c.Range("box.stage_hold_s", box.StageHoldS, 0.001, 60);
         c.Range("box.stop_hold_s", box.StopHoldS, 0.01, 60);
         c.Range("box.still_band_milli_g", box.StillBandMilliG, 1, 2000);
+        c.Range("box.still_block_s", box.StillBlockS, 0.001, 0.5);
         c.Range("box.motion_threshold_milli_g", box.MotionThresholdMilliG, 1, 4000);
         c.Range("box.motion_confirm_samples", box.MotionConfirmSamples, 1, 1000);
         c.Range("box.bracket_limit_micros", box.BracketLimitMicros, 1, 1_000_000);

@@ -28,6 +28,30 @@ public class FrameBodiesTests
         Assert.Equal(304_800L, c.RolloutMicrometres);
     }
 
+    [Fact]
+    public void TheStillBlockLengthIsReadWhenTheBoxWroteIt()
+    {
+        // LOG-FORMAT.md 0x01: the block length was appended later; a body without it is a log from before.
+        Assert.True(FrameBodies.TryReadConfiguration(BodyBuilder.Configuration().ToArray(), out ConfigurationBody before));
+        Assert.True(FrameBodies.TryReadConfiguration(BodyBuilder.Configuration().Varint(50_000).ToArray(), out ConfigurationBody now));
+        Assert.True(FrameBodies.TryReadConfiguration(BodyBuilder.Configuration(secondChannel: true).Varint(80_000).ToArray(), out ConfigurationBody second));
+
+        Assert.Equal(0, before.StillBlockMicros);
+        Assert.Equal(50_000, now.StillBlockMicros);
+        Assert.Equal(80_000, second.StillBlockMicros);
+        Assert.Equal(before with { StillBlockMicros = 50_000 }, now);
+    }
+
+    [Fact]
+    public void FieldsAppendedAfterTheStillBlockAreIgnoredAndABrokenOneRejects()
+    {
+        // A later writer may append more (section 1, appended fields); a field cut inside its
+        // varint is a body that does not parse.
+        Assert.True(FrameBodies.TryReadConfiguration(BodyBuilder.Configuration().Varint(50_000).Varint(7).Byte(3).ToArray(), out ConfigurationBody later));
+        Assert.Equal(50_000, later.StillBlockMicros);
+        Assert.False(FrameBodies.TryReadConfiguration(BodyBuilder.Configuration().Byte(0x80).ToArray(), out _));
+    }
+
     [Theory]
     [InlineData("newer version", 2, 1, 0)]
     [InlineData("forward axis 3", 1, 3, 0)]

@@ -116,11 +116,27 @@ public class BoardSettingsFileTests
     [InlineData("rate_hz", "1000", "accelerometer.rate_hz")]
     [InlineData("range_g", "6", "accelerometer.range_g")]
     [InlineData("forward_axis", "\"w\"", "accelerometer.forward_axis")]
+    [InlineData("still_block_ms", "0", "accelerometer.still_block_ms must be from 1 to 500 (was 0)")]
+    [InlineData("still_block_ms", "501", "accelerometer.still_block_ms must be from 1 to 500 (was 501)")]
     public void Accelerometer_values_are_checked(string key, string value, string expected)
     {
         string json = Minimal.Replace("\"log\"", "\"accelerometer\": { \"" + key + "\": " + value + " }, \"log\"");
         var e = Assert.Throws<BoardSettingsException>(() => BoardSettingsFile.Parse(json, "s.json"));
         Assert.Contains(expected, e.Message);
+    }
+
+    [Fact]
+    public void The_still_block_becomes_the_cores_microseconds_and_defaults_to_50_ms()
+    {
+        string json = Minimal.Replace("\"log\"", "\"accelerometer\": { \"still_block_ms\": 120 }, \"log\"");
+        LoggerSettings set = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(json, "test"));
+        LoggerSettings left = BoardSettingsFile.ToLoggerSettings(BoardSettingsFile.Parse(Minimal.Replace("\"log\"", "\"accelerometer\": { }, \"log\""), "test"));
+        BoardSettings example = BoardSettingsFile.Load(Path.Combine(AppContext.BaseDirectory, "launchlogger-board.example.json"));
+
+        Assert.Equal(120_000, set.StillBlockMicros);
+        Assert.Equal(new LoggerSettings().StillBlockMicros, left.StillBlockMicros);
+        Assert.Equal(50, example.Accelerometer!.StillBlockMs);
+        Assert.Null(set.Validate());
     }
 
     private const string WithBenchRest = """

@@ -118,7 +118,8 @@ public static class FrameLog
             MotionThresholdMilliG: r.Varint(),
             MotionConfirmSamples: r.Varint(),
             StopHoldMicros: r.Varint(),
-            BracketLimitMicros: r.Varint());
+            BracketLimitMicros: r.Varint(),
+            StillBlockMicros: r.Varint());
     }
 
     private static PulsesFrame ReadPulses(int sequence, ref BodyReader r)

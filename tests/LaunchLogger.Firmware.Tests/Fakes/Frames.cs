@@ -35,7 +35,8 @@ public sealed record ConfigurationFrame(
     long MotionThresholdMilliG,
     long MotionConfirmSamples,
     long StopHoldMicros,
-    long BracketLimitMicros) : Frame(FrameType.Configuration, Sequence);
+    long BracketLimitMicros,
+    long StillBlockMicros) : Frame(FrameType.Configuration, Sequence);
 
 /// <summary>One pulse observation as decoded from a pulses frame: count reached in (lo, hi].</summary>
 public readonly record struct DecodedObservation(int Channel, long Count, long LoMicros, long HiMicros);

@@ -61,21 +61,19 @@ public class LoggerSettingsTests
         Assert.Equal(settings.Validate(), ex.Message);
     }
 
-    [Fact]
-    public void APreTriggerRingShorterThanTheConfirmWindowIsRefused()
+    [Theory]
+    [InlineData(1_000_000, 16, 50)]   // 1 kHz: a 50-ms still block is the longer
+    [InlineData(200_000, 16, 16)]     // 200 Hz: the block holds 10, the confirm window 16
+    public void APreTriggerRingShorterThanTheOnsetWindowIsRefused(int rateMilliHz, int confirm, int window)
     {
-        var settings = new LoggerSettings { PreTriggerSamples = 10, MotionConfirmSamples = 16 };
+        var settings = new LoggerSettings { AccelOutputDataRateMilliHz = rateMilliHz, PreTriggerSamples = window - 1, MotionConfirmSamples = confirm };
         string? problem = settings.Validate();
         Assert.NotNull(problem);
-        Assert.Contains("PreTriggerSamples (10)", problem);
-        Assert.Contains("MotionConfirmSamples (16)", problem);
+        Assert.Contains("PreTriggerSamples (" + (window - 1) + ")", problem);
+        Assert.Contains("onset window's " + window + " samples", problem);
         Assert.Equal(problem, Assert.Throws<ArgumentException>(() => new RunRecorder(settings, new MemorySink(), null!)).Message);
-    }
-
-    [Fact]
-    public void APreTriggerRingAsLongAsTheConfirmWindowIsEnough()
-    {
-        Assert.Null(new LoggerSettings { PreTriggerSamples = 16, MotionConfirmSamples = 16 }.Validate());
+        settings.PreTriggerSamples = window;
+        Assert.Null(settings.Validate());
     }
 
     [Fact]

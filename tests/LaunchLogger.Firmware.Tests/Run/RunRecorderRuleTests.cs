@@ -154,7 +154,8 @@ public class RunRecorderRuleTests
         // for only by the block after it, and the run opens before that one ends.
         var settings = new LoggerSettings();
         int threshold = settings.MotionThresholdMilliG;
-        int n = settings.MotionConfirmSamples;
+        int n = RunRecorder.OnsetWindowSamples(settings);
+        Assert.Equal(RunRecorder.StillBlockSamples(settings), n); // 50 at 1 kHz, more than the 16 confirm samples
         Assert.True(threshold < settings.StillBandMilliG);
 
         // One mg short for as long as you like: no run.

@@ -43,6 +43,7 @@ public class RunRecorderTests
         Assert.Equal(settings.StageHoldMicros, config.StageHoldMicros);
         Assert.Equal(settings.StopHoldMicros, config.StopHoldMicros);
         Assert.Equal(settings.BracketLimitMicros, config.BracketLimitMicros);
+        Assert.Equal(settings.StillBlockMicros, config.StillBlockMicros);
 
         // Without an accelerometer staging happens on time alone, with no gravity vector.
         var staged = Assert.IsType<EventFrame>(frames[1]);
@@ -59,6 +60,25 @@ public class RunRecorderTests
         Assert.Equal(RunPhase.Staged, recorder.Phase);
         Assert.Equal(1, recorder.RunNumber);
         Assert.Equal(0, health.CountsWentBackwards);
+    }
+
+    [Theory]
+    [InlineData(25_000)]
+    [InlineData(80_000)]
+    public void TheConfigurationCarriesTheStillBlockLength(int blockMicros)
+    {
+        // LOG-FORMAT.md 0x01: the still test's block length is the configuration's last field, so
+        // the host knows what the still band was applied to.
+        var settings = new LoggerSettings { StillBlockMicros = blockMicros };
+        var (recorder, sink, _) = ScriptedRun.NewRecorder(settings);
+        var run = new ScriptedRun(recorder, settings, MotionProfile.LaunchAndStop(2.5005, HalfG, 4.0, BrakeDecel));
+
+        run.RunUntil(3_000_000);
+
+        var config = Assert.IsType<ConfigurationFrame>(sink.Frames[0]);
+        Assert.Equal(blockMicros, config.StillBlockMicros);
+        var staged = (EventFrame)sink.Frames[1];
+        Assert.Equal(0, staged.StagedSamples!.Value % RunRecorder.StillBlockSamples(settings));
     }
 
     [Fact]

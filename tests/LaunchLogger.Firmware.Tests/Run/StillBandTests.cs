@@ -75,9 +75,8 @@ public class StillBandTests
     {
         // A creep off the brakes at 3 s: 0.03 g stays under the 40 mg onset threshold, so the
         // first pulse opens the run (4.08 cm rolled, at 3 s + √(2 × 0.0408 / 0.294) ≈ 3.527 s);
-        // 0.08 g passes it, so the onset does. The vibration here is across and vertical only: on
-        // the forward axis it would add to the creep in the onset's 10 ms mean, which is not the
-        // still test's to judge.
+        // 0.08 g passes it, so the onset does. The vibration here is across and vertical only:
+        // the onset against a shake along the car is ForwardShakeOnsetTests' to judge.
         const double creepS = 3.0;
         MotionProfile creep = MotionProfile.Launch(creepS, creepG * MotionProfile.G0);
         (long quietMotion, MotionCause quietCause) = FirstMotion(creep, null);
@@ -96,8 +95,8 @@ public class StillBandTests
         }
         else
         {
-            // Onset at the oldest sample that passes the threshold: the creep's first sample on
-            // the quiet sensor, within a few samples of it on the noisy one (78 mg against 8 mg).
+            // Onset where the stretch of excess over the threshold begins: the creep's first sample
+            // on the quiet sensor, within a few samples of it on the noisy one (78 mg against 8 mg).
             Assert.Equal(MotionCause.AccelOnset, noisyCause);
             Assert.InRange(quietMotion, (long)(creepS * 1e6), (long)(creepS * 1e6) + 625);
             Assert.InRange(noisyMotion - quietMotion, -3 * 625, 3 * 625);
@@ -150,19 +149,6 @@ public class StillBandTests
         return (motion.TimeMicros, motion.Cause!.Value);
     }
 
-    /// <summary>Adds white Gaussian noise of <paramref name="sigmaMilliG"/> to every axis and a
-    /// 30 Hz vibration of the given amplitudes (mg) to x, y and z, rounded to whole mg.</summary>
-    private static Func<long, AccelSample, AccelSample> Shaker(int seed, double sigmaMilliG, double x, double y, double z)
-    {
-        var random = new Random(seed);
-        double Gaussian() => Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
-        return (t, s) =>
-        {
-            double phase = 2 * Math.PI * 30 * t / 1e6;
-            return new AccelSample(
-                (short)Math.Round(s.X + (x * Math.Sin(phase)) + (sigmaMilliG * Gaussian())),
-                (short)Math.Round(s.Y + (y * Math.Sin(phase + 1.0)) + (sigmaMilliG * Gaussian())),
-                (short)Math.Round(s.Z + (z * Math.Sin(phase + 2.0)) + (sigmaMilliG * Gaussian())));
-        };
-    }
+    private static Func<long, AccelSample, AccelSample> Shaker(int seed, double sigmaMilliG, double x, double y, double z) =>
+        AccelShaker.Make(seed, sigmaMilliG, x, y, z);
 }
