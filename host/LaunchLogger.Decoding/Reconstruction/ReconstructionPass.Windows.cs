@@ -123,7 +123,7 @@ internal sealed partial class ReconstructionPass
                 // coarse ring, and after the last pulse), the car's speed from the stop back.
                 double speed = BrakedWheelSpeed(i, mid) is { } wheel
                     ? wheel / Math.Max(1 - (decel * options.BrakeSlip.MeanInverse / G0), 0.5)
-                    : toStop?[k] ?? 0;
+                    : toStop is not null && stop - mid <= LongestBackFromStopS ? toStop[k] : 0;
                 sum += speed * decel * dt;
             }
 
@@ -157,6 +157,11 @@ internal sealed partial class ReconstructionPass
         double f = t1 > t0 ? Math.Clamp((timeS - t0) / (t1 - t0), 0, 1) : 0;
         return mpp * (((1 - f) / period) + (f / nextPeriod));
     }
+
+    /// <summary>How long before the stop <see cref="SpeedBackFromStop"/> stands in for the pulses'
+    /// speed, s: the slowest stop's last few metres (a braking force under 1 m/s² from 3 m/s),
+    /// and not so long that the input's bias adds up (0.05 m/s² over 3 s is 0.15 m/s).</summary>
+    private const double LongestBackFromStopS = 3;
 
     /// <summary>The speed at each step's middle from the input integrated back from the stop at
     /// <paramref name="stopS"/> (0 there and after), m/s: under braking, the car's speed over its
