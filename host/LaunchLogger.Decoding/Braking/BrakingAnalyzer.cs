@@ -201,11 +201,12 @@ public static class BrakingAnalyzer
     public const double MeasuredSlipShare = 0.5;
 
     /// <summary>What the fused slip may be off beyond its own σ, as a share of it. Measured on
-    /// the generator's stops from cruise (36 records, rises 0.05 s to a steady rise through the
-    /// stop, C 15–30, accelerometer scale ±1.2 %): within 5 % of the tyre's on rings of 24 teeth
-    /// and more, but on coarse rings (8–12 teeth) with slow rises (1 s to steady) 0.54–0.87 of it
-    /// at 3–9σ, where the accelerometer's error wander still takes up part of the slip. 0.1
-    /// keeps the bench's stops covered; it does not cover those worst cases.</summary>
+    /// the generator's stops from cruise (rises 0.05 s to a steady rise through the stop, C 15–30,
+    /// accelerometer scale ±1.2 %): within 5 % of the tyre's on rings of 24 teeth and more, and on
+    /// coarse rings (8–12 teeth, 48 records, edges and polled) within 1.7σ of its own σ (mean
+    /// |error| 2.8 %) since the slip signal carries the car's speed down to the stop (before, the
+    /// last metres counted no slip there and slow rises read 0.4–0.85 of it at 3–14σ). 0.1 is
+    /// kept as the allowance for what the linear slip law and the signal's speeds miss.</summary>
     public const double MeasuredSlipModelShare = 0.1;
 
     /// <summary>True when the fused slip <paramref name="kb"/> (s²/m) was measured (<see cref="MeasuredSlipShare"/>).</summary>

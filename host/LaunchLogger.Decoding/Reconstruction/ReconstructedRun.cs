@@ -65,8 +65,7 @@ public sealed class ReconstructedRun
     /// stiffness range). Null when not modelled (no accelerometer or no pulses, or told that the
     /// wheel does not slip). The stop takes it where its σ is well under the prior's
     /// (<see cref="Braking.BrakingAnalyzer.MeasuredSlipShare"/>), with a model allowance
-    /// (<see cref="Braking.BrakingAnalyzer.MeasuredSlipModelShare"/>): over coarse rings (8–12
-    /// teeth) on slow rises it may still come out up to a third low.</summary>
+    /// (<see cref="Braking.BrakingAnalyzer.MeasuredSlipModelShare"/>).</summary>
     public Estimate? BrakeSlipPerMps2 { get; init; }
 
     /// <summary>What the fusion added to the pulses' distance for the braked wheel's slip,

@@ -96,6 +96,7 @@ internal sealed partial class ReconstructionPass
         var signal = new double[n];
         double stop = stopS ?? double.PositiveInfinity;
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
+        double[]? toStop = stopS is null ? null : SpeedBackFromStop(steps, k0, stop);
         int i = 0;
         int w = 0;
         double sum = 0;
@@ -114,20 +115,77 @@ internal sealed partial class ReconstructionPass
 
             double dt = grid[k + 1] - grid[k];
             double decel = w < braking.Count && braking[w].Contains(mid) ? Math.Max(-dv[k] / dt, 0) : 0;
-            if (decel > 0 && mid < stop && i + 1 < pulses.Length && pulses.MidS(i) <= mid)
+            if (decel > 0 && mid < stop && pulses.MidS(i) <= mid)
             {
-                pulses.PulsePeriod(i, out double period, out _);
-                double speed = double.IsInfinity(period) ? 0 : mpp / period;
-
                 // The braked wheel's own speed reads (1 − s) of the car's; the prior's s puts it
                 // back (else the fitted k_b would come out 1/(1 − s) high, 3–6 % in a hard stop).
-                sum += speed / Math.Max(1 - (decel * options.BrakeSlip.MeanInverse / G0), 0.5) * decel * dt;
+                // Where the pulses are too far apart for a speed (the last metres of a stop on a
+                // coarse ring, and after the last pulse), the car's speed from the stop back.
+                double speed = BrakedWheelSpeed(i, mid) is { } wheel
+                    ? wheel / Math.Max(1 - (decel * options.BrakeSlip.MeanInverse / G0), 0.5)
+                    : toStop is not null && stop - mid <= LongestBackFromStopS ? toStop[k] : 0;
+                sum += speed * decel * dt;
             }
 
             signal[k + 1] = sum;
         }
 
         return signal;
+    }
+
+    /// <summary>The pulses' speed at <paramref name="timeS"/>, between observation
+    /// <paramref name="i"/> (at or before it) and the next: each one's speed over its window
+    /// (<see cref="PulseChannel.PulsePeriod"/>), interpolated in time (the window's speed is the
+    /// observation's, and under braking it is a pulse period behind by the next one); null where
+    /// either has no speed (too few pulses within the window's time) or after the last pulse.</summary>
+    private double? BrakedWheelSpeed(int i, double timeS)
+    {
+        if (i + 1 >= pulses!.Length)
+        {
+            return null;
+        }
+
+        pulses.PulsePeriod(i, out double period, out _);
+        pulses.PulsePeriod(i + 1, out double nextPeriod, out _);
+        if (double.IsInfinity(period) || double.IsInfinity(nextPeriod))
+        {
+            return null;
+        }
+
+        double t0 = pulses.MidS(i);
+        double t1 = pulses.MidS(i + 1);
+        double f = t1 > t0 ? Math.Clamp((timeS - t0) / (t1 - t0), 0, 1) : 0;
+        return mpp * (((1 - f) / period) + (f / nextPeriod));
+    }
+
+    /// <summary>How long before the stop <see cref="SpeedBackFromStop"/> stands in for the pulses'
+    /// speed, s: the slowest stop's last few metres (a braking force under 1 m/s² from 3 m/s),
+    /// and not so long that the input's bias adds up (0.05 m/s² over 3 s is 0.15 m/s).</summary>
+    private const double LongestBackFromStopS = 3;
+
+    /// <summary>The speed at each step's middle from the input integrated back from the stop at
+    /// <paramref name="stopS"/> (0 there and after), m/s: under braking, the car's speed over its
+    /// last second from the accelerometer alone, whose error (its bias times the time to the stop)
+    /// is then a few cm/s.</summary>
+    private static double[] SpeedBackFromStop(StepGrid steps, int k0, double stopS)
+    {
+        double[] grid = steps.TimeS;
+        double[] dv = steps.StepSpeedM;
+        var result = new double[grid.Length];
+        double after = 0;
+        for (int k = grid.Length - 2; k >= k0; k--)
+        {
+            if (grid[k] >= stopS)
+            {
+                continue;
+            }
+
+            double part = grid[k + 1] > stopS ? (stopS - grid[k]) / (grid[k + 1] - grid[k]) : 1;
+            result[k] = Math.Max(after - (0.5 * part * dv[k]), 0);
+            after -= part * dv[k];
+        }
+
+        return result;
     }
 
     /// <summary>Firm braking where the pulses are kept (<see cref="FusionSettings.FirmBrakeWindows"/>):

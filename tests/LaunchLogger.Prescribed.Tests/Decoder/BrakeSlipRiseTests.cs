@@ -61,4 +61,54 @@ public class BrakeSlipRiseTests
         Assert.True(Math.Abs(error) <= 0.3, what);
         Assert.True(Math.Abs(error) <= 3 * sigma, what);
     }
+
+    /// <summary>Seed (speed, deceleration or steady rise, accelerometer and the scale error's
+    /// sign drawn from it), teeth, brake rise time (+∞: a steady rise through the stop), C, and
+    /// whether the counter is polled (every 0.5 ms) rather than edges timed.</summary>
+    public static TheoryData<int, int, double, double, bool> CoarseRingCases => new()
+    {
+        { 107, 8, 1.0, 15, true },
+        { 112, 8, 2.0, 15, false },
+        { 113, 8, 2.0, 15, true },
+        { 114, 8, 2.0, 22, false },
+        { 119, 8, double.PositiveInfinity, 15, true },
+        { 122, 8, double.PositiveInfinity, 30, false },
+        { 130, 12, 1.0, 15, false },
+        { 136, 12, 2.0, 15, false },
+        { 142, 12, double.PositiveInfinity, 15, false },
+    };
+
+    [Theory]
+    [MemberData(nameof(CoarseRingCases))]
+    public void On_coarse_rings_slow_and_steady_rises_give_the_tyre_s_slip_too(int seed, int teeth, double riseS, double stiffness, bool polled)
+    {
+        double mph = 30 + (seed * 37 % 50);
+        double decel = double.IsPositiveInfinity(riseS) ? 3 + (seed % 5) : (0.5 + (0.05 * (seed * 13 % 10))) * TruthUnits.StandardGravity;
+        PrescribedRecordSpec spec = Records.Standing(seed) with
+        {
+            Shape = PrescribedShapes.CruiseThenStop(mph * TruthUnits.MpsPerMph, riseS, decel),
+            Pickup = new WheelPickup(teeth, TyreModel.Calibrated(1.9), 0.3, Brake: new BrakeSlip(stiffness)),
+            Accel = Records.Standing(seed).Accel! with { ScaleError = seed % 2 == 0 ? 0.012 : -0.012 },
+            Polled = polled ? new PolledCounter(0.0005, 0.1, 1, 5e-3) : null,
+        };
+        PrescribedRecord r = spec.Generate();
+        RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeText(r).Runs);
+        TruthStop truth = Assert.Single(r.Truth).Stop!;
+        double kbTrue = 1 / (TruthUnits.StandardGravity * stiffness);
+        Estimate kb = a.Reconstruction.BrakeSlipPerMps2!.Value;
+        // The braked wheel misses v0²/(2·g0·C) of a whole stop from v0, whatever the
+        // deceleration's shape (the generator's tyre, BrakeSlip's remarks).
+        double shortfall = truth.OnsetSpeedMps * truth.OnsetSpeedMps / (2 * TruthUnits.StandardGravity * stiffness);
+        double error = a.Braking!.StoppingDistanceM.Value - truth.StoppingDistanceM;
+        double sigma = a.Braking.StoppingDistanceM.Sigma;
+        string what = FormattableString.Invariant($"{spec}, {teeth} teeth{(polled ? ", polled" : "")}, C {stiffness}: k_b {kb.Value / kbTrue:0.000} ± {kb.Sigma / kbTrue:0.000} of the tyre's; slip added {a.Braking.BrakeSlipCorrectionM:F3} m of {shortfall:F3} m; stop error {error:+0.000;-0.000} m ± {sigma:0.000}");
+
+        // Before the slip signal carried the car's speed down to the stop, the last metres of a
+        // stop on a coarse ring (too few pulses within a period window for a speed: below
+        // 3–5 m/s on 8–12 teeth) counted no slip, and these read 0.38–0.65 of the tyre's at 4–14σ.
+        Assert.True(Math.Abs(kb.Value - kbTrue) <= 3 * kb.Sigma || Math.Abs(kb.Value - kbTrue) <= 0.02 * kbTrue, what);
+        Assert.True(Math.Abs(kb.Value - kbTrue) <= 0.1 * kbTrue, what);
+        Assert.Equal(shortfall, a.Braking.BrakeSlipCorrectionM, 0.1 * shortfall);
+        Assert.True(Math.Abs(error) <= 3 * sigma, what);
+    }
 }
