@@ -180,7 +180,7 @@ internal sealed partial class ReconstructionPass
         double pulsesOnlySlip = 0;
         double circumferenceSigma = pulses is null ? 0 : this.circumferenceSigma;
         double growthSigma = pulses is null ? 0 : this.growthSigma;
-        double[]? launchSlip = LaunchSlip(steps, startS, k0, fused, driven: fused.SlipKept || spin.Count > 0);
+        double[]? launchSlip = LaunchSlip(steps, startS, k0, fused, driven: fused.SlipKept || spin.Count > 0 || SlipToldApart(fused));
         for (int k = k0; k < n; k++)
         {
             bool atRest = grid[k] >= stop;
@@ -303,8 +303,8 @@ internal sealed partial class ReconstructionPass
 
     /// <summary>The launch slip the accelerometer shows beyond its own error
     /// (<see cref="LaunchSlipAllowance"/>); null without both sensors or without a standstill.
-    /// <paramref name="driven"/>: the run shows the wheel driven (a slip kept, or wheelspin), so the
-    /// launch slip's prior is a driven tyre's.</summary>
+    /// <paramref name="driven"/>: the run shows the wheel driven (a slip kept, a slip told apart
+    /// from an undriven wheel's, or wheelspin), so the launch slip's prior is a driven tyre's.</summary>
     private double[]? LaunchSlip(StepGrid steps, double startS, int k0, FusionResult fused, bool driven)
     {
         if (accel is null || pulses is null || !Staged)
@@ -317,6 +317,16 @@ internal sealed partial class ReconstructionPass
             steps.TimeS, k0, startS, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM,
             fused.DistanceM, fused.DistanceSigmaM, LaunchBiasSigma(accel), options.ForwardScaleSigma, pulseScale,
             driven ? (options.PulsesOnlyLaunchSlip, options.LaunchSlipFadeM) : null);
+    }
+
+    /// <summary>True when the fused slip coefficient lies beyond 3σ (its own and the undriven
+    /// wheel's prior combined) of an undriven wheel's, kept or not: the pulses show a wheel that
+    /// slips under drive even where the slip is too small, or the brackets too coarse, for the
+    /// filter to keep it (<see cref="FusionSettings.SlipEvidence"/>).</summary>
+    private bool SlipToldApart(FusionResult fused)
+    {
+        double apart = fused.Slip.Value - options.UndrivenSlipPerMps2;
+        return apart * apart > 9 * (Square(fused.Slip.Sigma) + Square(options.UndrivenSlipSigma));
     }
 
     /// <summary>σ of the input's bias over the launch, m/s²: its resting level's σ and the drift

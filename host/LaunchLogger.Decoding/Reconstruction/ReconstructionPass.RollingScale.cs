@@ -43,8 +43,7 @@ internal sealed partial class ReconstructionPass
         // wheel: the scale off by a few per cent and its stops 3-11 m short, beyond their σ).
         // (A record that opens moving has no launch and no slip state: its fit reads the changes
         // of speed and the rest it ends in.)
-        double apart = fused.Slip.Value - options.UndrivenSlipPerMps2;
-        if (Staged && apart * apart > 9 * (Square(fused.Slip.Sigma) + Square(options.UndrivenSlipSigma)))
+        if (Staged && SlipToldApart(fused))
         {
             return null;
         }
