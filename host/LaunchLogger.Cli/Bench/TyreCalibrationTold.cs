@@ -9,7 +9,8 @@ namespace LaunchLogger.Cli.Bench;
 /// is it?"); 0.1 % (1 σ) is told, a little more than those together, so the decoder treats the
 /// tyre as a calibrated user's and keeps it unless a run measures it better. The value itself is
 /// told exactly (the limit of a long, careful roll): a drawn 0.1 % error costs more than the
-/// decoder's own errors on the standing figures (DEVELOPERS.md, "Where the accuracy stands").</remarks>
+/// decoder's own errors on the standing figures (DEVELOPERS.md, "Where the accuracy stands"; the traces in
+/// host/LaunchLogger.Decoding/ACCURACY-NOTES.md).</remarks>
 public static class TyreCalibrationTold
 {
     /// <summary>1-σ told with the circumference, a fraction.</summary>
