@@ -81,8 +81,11 @@ internal sealed partial class ReconstructionPass
     /// fall short of the car's distance by S_b/(g0·C) (<see cref="FusionSettings.BrakeSlipSignal"/>).
     /// Outside braking the input's noise and a coasting car's drag (which its tyres do not pass)
     /// would add up over a long drive; inside, the whole deceleration is taken as the brakes'
-    /// (drag is a few per cent of it at motorway speed). Speeds from the pulses, as for
-    /// <see cref="SlipSignal"/>. Null without both sensors, or when the tyre is taken not to slip.</summary>
+    /// (drag is a few per cent of it at motorway speed). Speeds from the pulses, interpolated
+    /// between observations (<see cref="BrakedWheelSpeed"/>), and over the stop's last
+    /// <see cref="LongestBackFromStopS"/> s, where the pulses are too far apart for a speed, from the
+    /// input integrated back from the stop (<see cref="SpeedBackFromStop"/>). Null without both
+    /// sensors, or when the tyre is taken not to slip.</summary>
     private double[]? BrakeSlipSignal(StepGrid steps, double startS, double? stopS, List<TimeWindow> braking)
     {
         if (accel is null || pulses is null || pulses.Length < 3 || options.BrakeSlip.MeanInverse <= 0)
@@ -165,8 +168,8 @@ internal sealed partial class ReconstructionPass
 
     /// <summary>The speed at each step's middle from the input integrated back from the stop at
     /// <paramref name="stopS"/> (0 there and after), m/s: under braking, the car's speed over its
-    /// last second from the accelerometer alone, whose error (its bias times the time to the stop)
-    /// is then a few cm/s.</summary>
+    /// last seconds from the accelerometer alone, whose error (its bias times the time to the stop)
+    /// is then a few cm/s (at most <see cref="LongestBackFromStopS"/> s of it is used).</summary>
     private static double[] SpeedBackFromStop(StepGrid steps, int k0, double stopS)
     {
         double[] grid = steps.TimeS;
