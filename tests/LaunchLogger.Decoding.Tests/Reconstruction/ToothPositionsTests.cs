@@ -83,26 +83,10 @@ public class ToothPositionsTests
     public void A_coarse_uneven_ring_times_the_first_foot_better_with_its_edges_placed()
     {
         const int Cases = 16;
-        var placed = new List<double>();
-        var even = new List<double>();
-        int within2 = 0;
-        for (int seed = 1; seed <= Cases; seed++)
-        {
-            SyntheticRun synthetic = Launch(seed, teeth: 12, toothError: 0.015);
-            DecodedRun decoded = synthetic.Build();
-            double truth = synthetic.Motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
-            Estimate withMap = SyntheticRun.Reconstruct(decoded).RolloutTimeS!.Value;
-            Estimate without = SyntheticRun.Reconstruct(decoded, ReconstructionOptions.Default with { MeasureToothPositions = false }).RolloutTimeS!.Value;
-            placed.Add(withMap.Value - truth);
-            even.Add(without.Value - truth);
-            Assert.True(Math.Abs(withMap.Value - truth) <= 3 * withMap.Sigma, $"seed {seed}: {(withMap.Value - truth) * 1e3:F2} ms ± {withMap.Sigma * 1e3:F2}");
-            within2 += Math.Abs(withMap.Value - truth) <= 2 * withMap.Sigma ? 1 : 0;
-        }
+        MarkErrors marks = RolloutMarks(Cases, seed => Launch(seed, teeth: 12, toothError: 0.015), ReconstructionOptions.Default);
 
-        double rmsPlaced = Rms(placed);
-        double rmsEven = Rms(even);
-        Assert.True(within2 >= 0.9 * Cases, $"{within2} of {Cases} within 2σ");
-        Assert.True(rmsPlaced < 0.6 * rmsEven, $"rms {rmsPlaced * 1e3:F3} ms with the edges placed, {rmsEven * 1e3:F3} ms evenly");
+        Assert.True(marks.Within2 >= 0.9 * Cases, $"{marks.Within2} of {Cases} within 2σ");
+        Assert.True(marks.RmsPlaced < 0.6 * marks.RmsEven, $"rms {marks.RmsPlaced * 1e3:F3} ms with the edges placed, {marks.RmsEven * 1e3:F3} ms evenly");
     }
 
     /// <summary>The pickup on the driven wheel slips under drive, so distance comes from a second
@@ -111,38 +95,28 @@ public class ToothPositionsTests
     [Fact]
     public void A_coarse_second_ring_used_for_distance_is_placed_too()
     {
-        const int Cases = 12;
-        var placed = new List<double>();
-        var even = new List<double>();
-        for (int seed = 1; seed <= Cases; seed++)
-        {
-            SyntheticRun launch = Launch(seed, teeth: 48, toothError: 0.005);
-            SyntheticRun synthetic = new()
+        MarkErrors marks = RolloutMarks(
+            12,
+            seed =>
             {
-                Motion = launch.Motion,
-                Seed = seed,
-                Teeth = 48,
-                CircumferenceM = launch.CircumferenceM,
-                ToothErrorFraction = 0.005,
-                AccelNoiseMps2 = launch.AccelNoiseMps2,
-                DriveSlipPerMps2 = 0.01,
-                SecondTeeth = 12,
-                SecondToothErrorFraction = 0.015,
-            };
-            DecodedRun decoded = synthetic.Build();
-            double truth = synthetic.Motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
-            ReconstructedRun withMap = SyntheticRun.Reconstruct(decoded);
-            Assert.Equal(1, withMap.DistanceChannel);
-            Estimate mark = withMap.RolloutTimeS!.Value;
-            Estimate without = SyntheticRun.Reconstruct(decoded, ReconstructionOptions.Default with { MeasureToothPositions = false }).RolloutTimeS!.Value;
-            placed.Add(mark.Value - truth);
-            even.Add(without.Value - truth);
-            Assert.True(Math.Abs(mark.Value - truth) <= 3 * mark.Sigma, $"seed {seed}: {(mark.Value - truth) * 1e3:F2} ms ± {mark.Sigma * 1e3:F2}");
-        }
+                SyntheticRun launch = Launch(seed, teeth: 48, toothError: 0.005);
+                return new SyntheticRun
+                {
+                    Motion = launch.Motion,
+                    Seed = seed,
+                    Teeth = 48,
+                    CircumferenceM = launch.CircumferenceM,
+                    ToothErrorFraction = 0.005,
+                    AccelNoiseMps2 = launch.AccelNoiseMps2,
+                    DriveSlipPerMps2 = 0.01,
+                    SecondTeeth = 12,
+                    SecondToothErrorFraction = 0.015,
+                };
+            },
+            ReconstructionOptions.Default,
+            placed => Assert.Equal(1, placed.DistanceChannel));
 
-        double rmsPlaced = Rms(placed);
-        double rmsEven = Rms(even);
-        Assert.True(rmsPlaced < 0.4 * rmsEven, $"rms {rmsPlaced * 1e3:F3} ms with the second ring's edges placed, {rmsEven * 1e3:F3} ms evenly; " + string.Join(" ", placed.Zip(even, (p, e) => $"{p * 1e3:F2}/{e * 1e3:F2}")));
+        Assert.True(marks.RmsPlaced < 0.4 * marks.RmsEven, $"rms {marks.RmsPlaced * 1e3:F3} ms with the second ring's edges placed, {marks.RmsEven * 1e3:F3} ms evenly; {marks.PerSeed}");
     }
 
     /// <summary>A run too short for a map of its own (a launch to about 25 km/h, two seconds
@@ -156,31 +130,20 @@ public class ToothPositionsTests
         const int Cases = 12;
         const int Teeth = 12;
         const int Shift = 5;
-        var placed = new List<double>();
-        var even = new List<double>();
-        int within2 = 0;
-        for (int seed = 1; seed <= Cases; seed++)
-        {
-            (SyntheticRun synthetic, ToothGaps saved) = ShortLaunchWithSavedMap(seed, Teeth, Shift);
-            DecodedRun decoded = synthetic.Build();
-            double truth = synthetic.Motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
-            ReconstructedRun withMap = SyntheticRun.Reconstruct(decoded, ReconstructionOptions.Default with { SavedToothGaps = saved });
-            Estimate mark = withMap.RolloutTimeS!.Value;
-            Estimate without = SyntheticRun.Reconstruct(decoded).RolloutTimeS!.Value;
+        MarkErrors marks = RolloutMarks(
+            Cases,
+            seed => ShortLaunchWithSavedMap(seed, Teeth, Shift).Run,
+            seed => ReconstructionOptions.Default with { SavedToothGaps = ShortLaunchWithSavedMap(seed, Teeth, Shift).Saved },
+            withMap =>
+            {
+                string note = Assert.Single(withMap.Warnings, w => w.Contains("tooth-spacing map", StringComparison.Ordinal));
+                Assert.Contains($"its entry {Shift} taken as this run's tooth 0", note, StringComparison.Ordinal);
+                Assert.DoesNotContain("weighed with the map the run itself gives", note, StringComparison.Ordinal);
+            },
+            ReconstructionOptions.Default);
 
-            string note = Assert.Single(withMap.Warnings, w => w.Contains("tooth-spacing map", StringComparison.Ordinal));
-            Assert.Contains($"its entry {Shift} taken as this run's tooth 0", note, StringComparison.Ordinal);
-            Assert.DoesNotContain("weighed with the map the run itself gives", note, StringComparison.Ordinal);
-            placed.Add(mark.Value - truth);
-            even.Add(without.Value - truth);
-            Assert.True(Math.Abs(mark.Value - truth) <= 3 * mark.Sigma, $"seed {seed}: {(mark.Value - truth) * 1e3:F2} ms ± {mark.Sigma * 1e3:F2}");
-            within2 += Math.Abs(mark.Value - truth) <= 2 * mark.Sigma ? 1 : 0;
-        }
-
-        double rmsPlaced = Rms(placed);
-        double rmsEven = Rms(even);
-        Assert.True(within2 >= 0.9 * Cases, $"{within2} of {Cases} within 2σ");
-        Assert.True(rmsPlaced < 0.6 * rmsEven, $"rms {rmsPlaced * 1e3:F3} ms with the saved map, {rmsEven * 1e3:F3} ms without");
+        Assert.True(marks.Within2 >= 0.9 * Cases, $"{marks.Within2} of {Cases} within 2σ");
+        Assert.True(marks.RmsPlaced < 0.6 * marks.RmsEven, $"rms {marks.RmsPlaced * 1e3:F3} ms with the saved map, {marks.RmsEven * 1e3:F3} ms without");
     }
 
     [Fact]
@@ -221,6 +184,40 @@ public class ToothPositionsTests
 
         return (synthetic, new ToothGaps(gaps, [.. Enumerable.Repeat(0.002, teeth)]));
     }
+
+    /// <summary>The rollout mark's errors over <paramref name="cases"/> seeds, with the edges placed
+    /// (<paramref name="placed"/>'s options, each within 3σ, then <paramref name="check"/>) and
+    /// against <paramref name="even"/>'s options (by default: every edge on its even place).</summary>
+    private static MarkErrors RolloutMarks(int cases, Func<int, SyntheticRun> make, Func<int, ReconstructionOptions> placed, Action<ReconstructedRun>? check = null, ReconstructionOptions? even = null)
+    {
+        var placedErrors = new List<double>();
+        var evenErrors = new List<double>();
+        int within2 = 0;
+        for (int seed = 1; seed <= cases; seed++)
+        {
+            SyntheticRun synthetic = make(seed);
+            DecodedRun decoded = synthetic.Build();
+            double truth = synthetic.Motion.TimeAtDistance(TrajectoryProbe.Foot)!.Value;
+            ReconstructedRun withPlaces = SyntheticRun.Reconstruct(decoded, placed(seed));
+            check?.Invoke(withPlaces);
+            Estimate mark = withPlaces.RolloutTimeS!.Value;
+            Estimate evenly = SyntheticRun.Reconstruct(decoded, even ?? ReconstructionOptions.Default with { MeasureToothPositions = false }).RolloutTimeS!.Value;
+            placedErrors.Add(mark.Value - truth);
+            evenErrors.Add(evenly.Value - truth);
+            Assert.True(Math.Abs(mark.Value - truth) <= 3 * mark.Sigma, $"seed {seed}: {(mark.Value - truth) * 1e3:F2} ms ± {mark.Sigma * 1e3:F2}");
+            within2 += Math.Abs(mark.Value - truth) <= 2 * mark.Sigma ? 1 : 0;
+        }
+
+        string perSeed = string.Join(" ", placedErrors.Zip(evenErrors, (p, e) => $"{p * 1e3:F2}/{e * 1e3:F2}"));
+        return new MarkErrors(Rms(placedErrors), Rms(evenErrors), within2, perSeed);
+    }
+
+    private static MarkErrors RolloutMarks(int cases, Func<int, SyntheticRun> make, ReconstructionOptions placed, Action<ReconstructedRun>? check = null)
+        => RolloutMarks(cases, make, _ => placed, check);
+
+    /// <summary>Rms of the rollout mark's errors with the edges placed and evenly, s; how many
+    /// placed marks lay within 2σ; each seed's errors in ms (placed/even).</summary>
+    private sealed record MarkErrors(double RmsPlaced, double RmsEven, int Within2, string PerSeed);
 
     private static double Rms(List<double> values) => Math.Sqrt(values.Average(x => x * x));
 }
