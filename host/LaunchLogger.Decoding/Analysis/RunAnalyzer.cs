@@ -60,7 +60,7 @@ public static class RunAnalyzer
 
         Estimate[] brakeOn = BrakeSwitchOnsets(run, reconstruction, options);
         (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
-        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions), [.. reconstruction.BrakingSlideWindows, .. reconstruction.WheelspinWindows], options.BrakeSlip, reconstruction.BrakeSlipDistanceM, reconstruction.BrakeSlipPerMps2);
+        BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions), [.. reconstruction.BrakingSlideWindows, .. reconstruction.WheelspinWindows], options.BrakeSlip, reconstruction.BrakeSlipDistanceM, reconstruction.BrakeSlipPerMps2, options.BrakeSwitchDelayS is null ? BrakeSwitchTiming.DelaySpanS : 0);
 
         // Nothing reached after brake onset is an acceleration figure.
         double? onset = braking?.OnsetS.Value;
@@ -87,14 +87,14 @@ public static class RunAnalyzer
         };
     }
 
-    /// <summary>The pedal's first movement at each closing of the brake switch: the event's time,
-    /// less the loop's lag (from the gap the event records, or from the run's brackets) and the
-    /// switch's delay (measured, or the prior).</summary>
     /// <summary>A note for each interval crossed but not clearly passed, so a user sees why it is blank.</summary>
     private static IEnumerable<string> NotClearlyReachedNotes(FigureSet figures) =>
         figures.NotClearlyReached.Select(d => FormattableString.Invariant(
             $"{d.Interval.Label} not timed: the speed went only to {d.TopMps / Units.MpsPerMph:0.0} mph ({d.TopMps / Units.MpsPerKmh:0.0} km/h), within 2σ (σ {d.SigmaMps / Units.MpsPerKmh:0.00} km/h) of the interval's end, so the data cannot show the end speed was reached"));
 
+    /// <summary>The pedal's first movement at each closing of the brake switch: the event's time,
+    /// less the loop's lag (from the gap the event records, or from the run's brackets) and the
+    /// switch's delay (measured, or the prior).</summary>
     private static Estimate[] BrakeSwitchOnsets(DecodedRun run, ReconstructedRun reconstruction, AnalysisOptions options)
     {
         RunEvent[] closings = run.Events.Where(e => e.Kind == EventKind.BrakeOn).ToArray();

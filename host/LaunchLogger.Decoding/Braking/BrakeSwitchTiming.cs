@@ -35,8 +35,11 @@ public static class BrakeSwitchTiming
     /// <summary>Observations further apart than this are not used for the loop's gaps, s.</summary>
     public const double MovingSpanS = 0.1;
 
+    /// <summary>Width of the unmeasured switch delay's uniform prior, s.</summary>
+    public const double DelaySpanS = DelayHighS - DelayLowS;
+
     /// <summary>The unmeasured switch delay: mean and 1-σ of the uniform prior, s.</summary>
-    public static Estimate DelayPrior { get; } = new((DelayLowS + DelayHighS) / 2, (DelayHighS - DelayLowS) / Math.Sqrt(12));
+    public static Estimate DelayPrior { get; } = new((DelayLowS + DelayHighS) / 2, DelaySpanS / Math.Sqrt(12));
 
     /// <summary>Lag of a reading taken at the end of a known gap: the change is uniform over it.</summary>
     public static Estimate LagOfGap(double gapS) => new(gapS / 2, gapS / Math.Sqrt(12));

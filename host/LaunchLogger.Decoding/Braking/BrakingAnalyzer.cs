@@ -8,8 +8,9 @@ namespace LaunchLogger.Decoding.Braking;
 /// The stop is the fall from the highest speed to standstill at the end of the run. Onset is the
 /// pedal's first movement where the box had a brake switch wired (SAE J299 measures stopping
 /// distance from the first movement of the brake control), found from the switch's reading by
-/// <see cref="BrakeSwitchTiming"/> (the loop's lag and the switch's delay subtracted, both in σ).
-/// Otherwise it is estimated from the deceleration by fitting a level, a linear rise and
+/// <see cref="BrakeSwitchTiming"/> (the loop's lag and the switch's delay subtracted, both in σ);
+/// when the delay was not measured and an accelerometer was logged, the switch's window and the
+/// deceleration's onset are combined (<see cref="BrakeOnsetFusion"/>). Otherwise it is estimated from the deceleration by fitting a level, a linear rise and
 /// a plateau together (<see cref="BrakeOnsetFit"/>); where that fit finds no rise, a straight
 /// line through the rise between 20 % and 80 % of the full deceleration, extrapolated back to
 /// the level before it.
@@ -18,6 +19,16 @@ public static class BrakingAnalyzer
 {
     /// <summary>1-σ of a pedal onset time given directly (the overload taking plain times), s.</summary>
     public const double GivenOnsetSigmaS = 0.001;
+
+    /// <summary><see cref="BrakingResult.OnsetMethod"/> for an onset from the brake switch alone.</summary>
+    public const string SwitchMethod = "brake switch";
+
+    /// <summary><see cref="BrakingResult.OnsetMethod"/> for an onset from the brake switch and the
+    /// accelerometer's deceleration together (<see cref="BrakeOnsetFusion"/>).</summary>
+    public const string FusedMethod = "brake switch and deceleration";
+
+    /// <summary><see cref="BrakingResult.OnsetMethod"/> for an onset from the deceleration alone.</summary>
+    public const string DecelerationMethod = "deceleration onset";
 
     /// <summary>Below this speed the car counts as standing, m/s.</summary>
     public const double StandstillMps = 0.05;
@@ -82,7 +93,11 @@ public static class BrakingAnalyzer
     /// the prior's correction. The MFDD is the fused trajectory's.</param>
     /// <param name="fusedBrakeSlip">The fusion's brake slip k_b = 1/(g0·C), s²/m, and its σ
     /// (<see cref="ReconstructedRun.BrakeSlipPerMps2"/>); null when it fitted none.</param>
-    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM, IReadOnlyList<TimeWindow>? pulsesSetAside = null, BrakeSlipPrior? brakeSlip = null, double[]? fusedSlipDistanceM = null, Estimate? fusedBrakeSlip = null)
+    /// <param name="switchDelaySpanS">The width of the switch delay's uniform prior that
+    /// <paramref name="brakeSwitchOnsets"/> include (<see cref="BrakeSwitchTiming.DelaySpanS"/>), s;
+    /// 0 when the delay was measured. Above 0, and with <paramref name="rawAccel"/>, the switch's
+    /// window and the deceleration's onset are combined (<see cref="BrakeOnsetFusion"/>).</param>
+    public static BrakingResult? Analyze(Trajectory trajectory, IReadOnlyList<Estimate> brakeSwitchOnsets, IReadOnlyList<double>? nominalSpeedsMps, (double[] TimeS, double[] AccelMps2)? rawAccel, double pulsePositionSigmaM, IReadOnlyList<TimeWindow>? pulsesSetAside = null, BrakeSlipPrior? brakeSlip = null, double[]? fusedSlipDistanceM = null, Estimate? fusedBrakeSlip = null, double switchDelaySpanS = 0)
     {
         ArgumentNullException.ThrowIfNull(trajectory);
         ArgumentNullException.ThrowIfNull(brakeSwitchOnsets);
@@ -129,31 +144,29 @@ public static class BrakingAnalyzer
 
         Estimate? switchOn = brakeSwitchOnsets.Where(s => s.Value >= t[peak] - 0.5 && s.Value < standstillS).Select(s => (Estimate?)s).LastOrDefault();
 
+        bool accelerometer = rawAccel is { } raw && raw.TimeS.Length > 10;
         Estimate onset;
         string onsetMethod;
         if (switchOn is { } sw)
         {
             onset = sw;
-            onsetMethod = "brake switch";
+            onsetMethod = SwitchMethod;
+
+            // An unmeasured delay leaves the switch a window as wide as the delay's range; the
+            // accelerometer's rise measures the onset within it (BrakeOnsetFusion). Pulses alone
+            // are not asked: their smoother starts a rise 12–28 ms early (SmootherSpreadS), as
+            // much as that window.
+            if (switchDelaySpanS > 0 && accelerometer
+                && BrakeOnsetFusion.Combine(sw, switchDelaySpanS, DecelerationOnsetEstimate(trajectory, rawAccel, peak, standstillS, peakDecel, pulsePositionSigmaM)) is { } both)
+            {
+                onset = both;
+                onsetMethod = FusedMethod;
+            }
         }
         else
         {
-            (double[] st, double[] sa) = rawAccel is { } raw && raw.TimeS.Length > 10 ? raw : (t, a);
-            // A quick rise leaves a clean level before it, and the line through its 20–80 % part
-            // is then the steadier answer; a slow one contaminates any level window, so the ramp
-            // fit (level and rise together) takes over from SlowRiseS.
-            Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS);
-            Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
-            onset = fitted is not { } f ? line
-                : riseS >= SlowRiseS || !Agree(line, f) ? f
-                : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
-            if ((rawAccel is not { } r || r.TimeS.Length <= 10) && pulsePositionSigmaM > 0)
-            {
-                double spread = peakDecel > 0 ? 2 * Math.Sqrt(pulsePositionSigmaM / peakDecel) : 0;
-                onset = onset with { Sigma = Math.Sqrt((onset.Sigma * onset.Sigma) + (spread * spread) + (SmootherSpreadS * SmootherSpreadS)) };
-            }
-
-            onsetMethod = "deceleration onset";
+            onset = DecelerationOnsetEstimate(trajectory, rawAccel, peak, standstillS, peakDecel, pulsePositionSigmaM);
+            onsetMethod = DecelerationMethod;
         }
 
         double fromMps = trajectory.ValueAt(v, onset.Value);
@@ -192,6 +205,32 @@ public static class BrakingAnalyzer
             TractionBound0To60S = BrakingFormulas.TractionBoundS(60 * Units.MpsPerMph, meanDecel),
             TractionBound0To100KmhS = BrakingFormulas.TractionBoundS(100 * Units.MpsPerKmh, meanDecel),
         };
+    }
+
+    /// <summary>The onset from the deceleration alone: the ramp fit, or the line through a quick
+    /// rise where the two agree; read off the trajectory's acceleration (with the pulses' spread
+    /// in σ) when there are no raw samples.</summary>
+    private static Estimate DecelerationOnsetEstimate(Trajectory trajectory, (double[] TimeS, double[] AccelMps2)? rawAccel, int peak, double standstillS, double peakDecel, double pulsePositionSigmaM)
+    {
+        double[] t = trajectory.TimeS;
+        double[] a = trajectory.AccelMps2;
+        bool accelerometer = rawAccel is { } raw && raw.TimeS.Length > 10;
+        (double[] st, double[] sa) = accelerometer ? rawAccel!.Value : (t, a);
+        // A quick rise leaves a clean level before it, and the line through its 20–80 % part
+        // is then the steadier answer; a slow one contaminates any level window, so the ramp
+        // fit (level and rise together) takes over from SlowRiseS.
+        Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS);
+        Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
+        Estimate onset = fitted is not { } f ? line
+            : riseS >= SlowRiseS || !Agree(line, f) ? f
+            : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
+        if (!accelerometer && pulsePositionSigmaM > 0)
+        {
+            double spread = peakDecel > 0 ? 2 * Math.Sqrt(pulsePositionSigmaM / peakDecel) : 0;
+            onset = onset with { Sigma = Math.Sqrt((onset.Sigma * onset.Sigma) + (spread * spread) + (SmootherSpreadS * SmootherSpreadS)) };
+        }
+
+        return onset;
     }
 
     /// <summary>The fusion's brake slip is taken for the stop when its σ is at most this share of

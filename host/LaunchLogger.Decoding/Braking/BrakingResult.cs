@@ -9,7 +9,9 @@ public sealed record BrakingResult
     /// <summary>Brake onset on the input's time axis, s, with its σ.</summary>
     public required Estimate OnsetS { get; init; }
 
-    /// <summary>How the onset was found: "brake switch" or "deceleration onset".</summary>
+    /// <summary>How the onset was found: "brake switch", "brake switch and deceleration" (a
+    /// switch whose delay was not measured, and the accelerometer's deceleration; <see cref="BrakeOnsetFusion"/>)
+    /// or "deceleration onset".</summary>
     public required string OnsetMethod { get; init; }
 
     /// <summary>Standstill on the input's time axis, s.</summary>

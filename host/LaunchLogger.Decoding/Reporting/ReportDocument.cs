@@ -282,7 +282,7 @@ public sealed record BrakingReport
     /// <summary>1-σ of <see cref="OnsetS"/>, s.</summary>
     public required double OnsetUncertaintyS { get; init; }
 
-    /// <summary>"brake switch" or "deceleration onset".</summary>
+    /// <summary>"brake switch", "brake switch and deceleration" or "deceleration onset".</summary>
     public required string OnsetMethod { get; init; }
 
     /// <summary>Distance from onset to standstill, m.</summary>
