@@ -106,7 +106,7 @@ public static class BenchBrakingCommand
         var distance = group.Where(o => o.UnmeasuredDelayDistanceM is not null).Select(o => o.UnmeasuredDelayDistanceM!.Value).ToList();
         var onset = group.Where(o => o.UnmeasuredDelayOnsetS is not null).Select(o => o.UnmeasuredDelayOnsetS!.Value).ToList();
         output.WriteLine();
-        output.WriteLine($"With a brake switch, delay not measured (uniform 0–30 ms prior): {onset.Count} stops");
+        output.WriteLine($"With a brake switch, delay not measured (uniform 0–30 ms prior, with the accelerometer's deceleration): {onset.Count} stops");
         if (onset.Count == 0)
         {
             return;
