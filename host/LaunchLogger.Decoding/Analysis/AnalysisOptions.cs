@@ -32,7 +32,9 @@ public sealed record AnalysisOptions
 
     /// <summary>How long the brake switch takes to close after the pedal starts to move, s,
     /// when measured (on the bench or by calibration); subtracted from the switch's time. Null:
-    /// not measured, taken as uniform over 0–30 ms (<see cref="Braking.BrakeSwitchTiming"/>).</summary>
+    /// not measured, taken as uniform over 0–30 ms (<see cref="Braking.BrakeSwitchTiming"/>), and,
+    /// where an accelerometer was logged, combined with the deceleration's onset
+    /// (<see cref="Braking.BrakeOnsetFusion"/>); measured, the switch alone times the onset.</summary>
     public double? BrakeSwitchDelayS { get; init; }
 
     /// <summary>1-σ of a measured <see cref="BrakeSwitchDelayS"/>, s.</summary>
