@@ -16,24 +16,17 @@ public class BrakeOnsetFusionTests
     private static Estimate SwitchWindowEndingAt(double latestS) =>
         new(latestS - (Span / 2), Math.Sqrt((Lag * Lag) + (Span * Span / 12)));
 
-    [Fact]
-    public void A_sharp_deceleration_inside_the_window_leaves_the_dead_time_s_window()
+    /// <summary>A sharp deceleration (σ 0.1 ms) against the switch's window [10.000, 10.030] s: the
+    /// pedal moved in [decel − τ_max, decel] by the one and inside the window by the other, so
+    /// uniform on the overlap. At 10.012 s that is the dead time's whole window; at 10.032 s, past
+    /// the switch's latest edge, it is cut there.</summary>
+    [Theory]
+    [InlineData(10.012)]
+    [InlineData(10.032)]
+    public void A_sharp_deceleration_leaves_the_overlap_of_the_two_windows(double decelS)
     {
-        // Switch: [10.000, 10.030] s; deceleration began at 10.012 s (σ 0.1 ms): the pedal moved in
-        // [10.012 − τ_max, 10.012], inside the switch's window — uniform there.
-        Estimate both = BrakeOnsetFusion.Combine(SwitchWindowEndingAt(10.030), Span, new Estimate(10.012, 1e-4))!.Value;
-        double low = 10.012 - BrakeOnsetFusion.DeadTimeHighS, high = 10.012;
-        Assert.Equal((low + high) / 2, both.Value, 4);
-        Assert.Equal((high - low) / Math.Sqrt(12), both.Sigma, 4);
-    }
-
-    [Fact]
-    public void A_deceleration_past_the_switch_s_latest_edge_is_cut_there()
-    {
-        // Deceleration at 10.032 s: the pedal moved in [10.032 − τ_max, 10.032] by it, and no
-        // later than 10.030 by the switch: uniform on [10.032 − τ_max, 10.030].
-        Estimate both = BrakeOnsetFusion.Combine(SwitchWindowEndingAt(10.030), Span, new Estimate(10.032, 1e-4))!.Value;
-        double low = 10.032 - BrakeOnsetFusion.DeadTimeHighS, high = 10.030;
+        Estimate both = BrakeOnsetFusion.Combine(SwitchWindowEndingAt(10.030), Span, new Estimate(decelS, 1e-4))!.Value;
+        double low = Math.Max(decelS - BrakeOnsetFusion.DeadTimeHighS, 10.000), high = Math.Min(decelS, 10.030);
         Assert.Equal((low + high) / 2, both.Value, 4);
         Assert.Equal((high - low) / Math.Sqrt(12), both.Sigma, 4);
         Assert.True(both.Value <= 10.030);
