@@ -21,7 +21,15 @@ namespace LaunchLogger.Decoding.Braking;
 /// edges blurred by the fit's σ.</para>
 /// <para>The onset is the product of the two (each a window blurred by a Gaussian: a difference
 /// of two normal distribution functions), integrated on a fine grid over the switch's window:
-/// its mean and its standard deviation. Where the two windows lie further apart than
+/// its mean and its standard deviation. With the reading r, the lag's mean ℓ̄ and σ b_s, the
+/// delay in [δ_lo, δ_hi], the fitted onset m with σ b_d, and Φ the standard normal distribution:
+/// <code>
+/// U      = r − ℓ̄ − δ_lo,  W = δ_hi − δ_lo
+/// L_s(p) = Φ((U − p)/b_s) − Φ((U − W − p)/b_s)          the switch
+/// L_d(p) = Φ((m − p)/b_d) − Φ((m − τ_max − p)/b_d)      the deceleration
+/// p̂      = ∫ p·L_s·L_d dp / ∫ L_s·L_d dp
+/// σ²     = ∫ (p − p̂)²·L_s·L_d dp / ∫ L_s·L_d dp
+/// </code> Where the two windows lie further apart than
 /// <see cref="DisagreementSigmas"/> blurs, they do not describe one event (a fit that took a
 /// lift-off for the rise, a dead time longer than allowed for); the switch alone is kept, as it
 /// bounds the onset whatever the deceleration did.</para>
