@@ -545,7 +545,7 @@ namespace LaunchLogger.Firmware.Run
             switch (phase)
             {
                 case RunPhase.Staged:
-                    OpenRun(true, MotionCause.PulseCount, loMicros, hiMicros);
+                    OpenRun(true, MotionCause.PulseCount, PulseOpeningMotionMicros(loMicros), hiMicros);
                     break;
                 case RunPhase.Idle:
                 case RunPhase.Stopped:
@@ -788,6 +788,23 @@ namespace LaunchLogger.Firmware.Run
                 long oldestMicros = sampleMicros - ((n - 1) * samplePeriodNanos / 1000);
                 OpenRun(true, MotionCause.AccelOnset, onsetFromMicros > oldestMicros ? onsetFromMicros : oldestMicros, readMicros);
             }
+        }
+
+        /// <summary>First motion of a run that a distance pulse opens while staged: the pulse's
+        /// bracket start, or, when the accelerometer has a stretch over the threshold under way that
+        /// began earlier, that stretch's start. A launch only just over the threshold passes the onset
+        /// window's mean up to a still block after it begins, and a fine pickup's first pulse may come
+        /// first (at 42 mg, 0.445 s on against the 500-ms block's 0.477 s); its stretch starts at the
+        /// launch. The stretch lies within the window (one longer would have passed it), and while the
+        /// mark button is down onset is not followed, so its stretch is stale then.</summary>
+        private long PulseOpeningMotionMicros(long loMicros)
+        {
+            if (settings.AccelPresent && !markHeld && onsetExcess > onsetExcessLowest && onsetFromMicros < loMicros)
+            {
+                return onsetFromMicros;
+            }
+
+            return loMicros;
         }
 
         /// <summary>Samples in the window whose forward mean must pass the motion threshold: the
