@@ -29,6 +29,7 @@ namespace LaunchLogger.Firmware.NanoHarness
             ClockWrap();
             Launch();
             BenchRest();
+            SlowLaunch();
             Out.Line("done");
         }
 
@@ -140,7 +141,7 @@ namespace LaunchLogger.Firmware.NanoHarness
         {
             ScriptedSwitch brake = new ScriptedSwitch(BrakeChanges);
             ScriptedSwitch mark = new ScriptedSwitch(MarkChanges);
-            HarnessBox box = new HarnessBox(brake, mark, SwitchHoldMicros, 0);
+            HarnessBox box = new HarnessBox(brake, mark, SwitchHoldMicros, 0, 0);
             HandClock counter = box.Counter;
             HandPulseCounter pulses = box.Pulses;
             HealthCounters health = box.Health;
@@ -233,7 +234,7 @@ namespace LaunchLogger.Firmware.NanoHarness
         private static void BenchRest()
         {
             ScriptedSwitch mark = new ScriptedSwitch(BenchMarkChanges);
-            HarnessBox box = new HarnessBox(null, mark, SwitchHoldMicros, 5000000);
+            HarnessBox box = new HarnessBox(null, mark, SwitchHoldMicros, 5000000, 0);
             box.Accelerometer.ForwardMilliG = 1000;
             HandClock counter = box.Counter;
             HandPulseCounter pulses = box.Pulses;
@@ -264,6 +265,45 @@ namespace LaunchLogger.Firmware.NanoHarness
 
             Out.Line("bench rests " + recorder.BenchRestNumber.ToString() + " runs " + recorder.RunNumber.ToString());
             Out.Line("bench log " + sink.Bytes.ToString() + " bytes " + sink.CountFrames().ToString() + " frames crc " + sink.Crc().ToString());
+            Events(sink);
+        }
+
+        /// <summary>A launch only just over the motion threshold (42 mg, the threshold 40 mg) at
+        /// 2 500 000 under the longest still block (500 ms: 200 samples at 400 Hz): the first pulse
+        /// (40.8 mm on, at about 2 945 000) comes before the onset window's mean passes (191 samples
+        /// of the launch, 2 977 500) and opens the run, whose first motion comes from the
+        /// accelerometer's stretch over the threshold: the launch.</summary>
+        private static void SlowLaunch()
+        {
+            HarnessBox box = new HarnessBox(null, null, SwitchHoldMicros, 0, LoggerSettings.MaxStillBlockMs * 1000);
+            HandClock counter = box.Counter;
+            HandPulseCounter pulses = box.Pulses;
+            KeepingSink sink = box.Sink;
+            HandAccelerometer accelerometer = box.Accelerometer;
+            LoggerSettings settings = box.Settings;
+            RunRecorder recorder = box.Recorder;
+            PolledPulseSource source = box.Source;
+            CaptureLoop loop = box.Loop;
+            RunPhase shown = recorder.Phase;
+            Out.Line("slow phase " + PhaseName(shown) + " at 0");
+            for (long t = StepMicros; t <= 4200000; t += StepMicros)
+            {
+                counter.Micros = t;
+                long dt = t > 2500000 ? t - 2500000 : 0;
+                long count = (412 * dt * dt / 2000000000L) * settings.PulsesPerRevolution / settings.CircumferenceMicrometres;
+                bool changed = count != pulses.Count;
+                pulses.Count = count;
+                accelerometer.ForwardMilliG = t > 2500000 ? 42 : 0;
+                Pass(source, loop, accelerometer, sink, changed);
+                if (recorder.Phase != shown)
+                {
+                    shown = recorder.Phase;
+                    Out.Line("slow phase " + PhaseName(shown) + " at " + t.ToString());
+                }
+            }
+
+            Out.Line("slow run " + recorder.RunNumber.ToString() + " motion " + recorder.MotionMicros.ToString() + " rollout " + recorder.RolloutMicros.ToString());
+            Out.Line("slow log " + sink.Bytes.ToString() + " bytes " + sink.CountFrames().ToString() + " frames crc " + sink.Crc().ToString());
             Events(sink);
         }
 
