@@ -24,7 +24,9 @@ namespace LaunchLogger.Firmware.Run
     /// acceleration less the threshold, a one-sided cumulative sum), no earlier than the window. A
     /// step is timed to its first sample; a shake of amplitude A above the threshold can put it
     /// early by at most about 0.6 of the shake's period (0.4 at A = 1.5 × the threshold, 0.63 at
-    /// 3 ×), never late. A car that rolls
+    /// 3 ×), never late. A distance pulse that comes first (a launch just over the threshold, whose
+    /// window passes up to a still block late) opens the run with first motion at its bracket start,
+    /// or where the stretch over the threshold began if the accelerometer has one under way. A car that rolls
     /// <see cref="LoggerSettings.UnstagedOpenMicrometres"/> without being staged opens a rolling run.
     /// Rollout: the distance channel's count reaches the rollout distance; the time is
     /// interpolated linearly, in integer arithmetic, between the bracket midpoints on either side.
