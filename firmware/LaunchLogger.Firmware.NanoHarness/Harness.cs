@@ -182,11 +182,7 @@ namespace LaunchLogger.Firmware.NanoHarness
                 brake.MoveTo(t);
                 mark.MoveTo(t);
                 Pass(source, loop, accelerometer, sink, changed);
-                if (recorder.Phase != shown)
-                {
-                    shown = recorder.Phase;
-                    Out.Line("phase " + PhaseName(shown) + " at " + t.ToString());
-                }
+                shown = ShowPhase("phase ", recorder, shown, t);
             }
 
             Out.Line("run " + recorder.RunNumber.ToString() + " motion " + recorder.MotionMicros.ToString() + " rollout " + recorder.RolloutMicros.ToString());
@@ -256,11 +252,7 @@ namespace LaunchLogger.Firmware.NanoHarness
 
                 mark.MoveTo(t);
                 Pass(source, loop, accelerometer, sink, changed);
-                if (recorder.Phase != shown)
-                {
-                    shown = recorder.Phase;
-                    Out.Line("bench phase " + PhaseName(shown) + " at " + t.ToString());
-                }
+                shown = ShowPhase("bench phase ", recorder, shown, t);
             }
 
             Out.Line("bench rests " + recorder.BenchRestNumber.ToString() + " runs " + recorder.RunNumber.ToString());
@@ -276,35 +268,35 @@ namespace LaunchLogger.Firmware.NanoHarness
         private static void SlowLaunch()
         {
             HarnessBox box = new HarnessBox(null, null, SwitchHoldMicros, 0, LoggerSettings.MaxStillBlockMs * 1000);
-            HandClock counter = box.Counter;
-            HandPulseCounter pulses = box.Pulses;
-            KeepingSink sink = box.Sink;
-            HandAccelerometer accelerometer = box.Accelerometer;
-            LoggerSettings settings = box.Settings;
-            RunRecorder recorder = box.Recorder;
-            PolledPulseSource source = box.Source;
-            CaptureLoop loop = box.Loop;
-            RunPhase shown = recorder.Phase;
+            RunPhase shown = box.Recorder.Phase;
             Out.Line("slow phase " + PhaseName(shown) + " at 0");
             for (long t = StepMicros; t <= 4200000; t += StepMicros)
             {
-                counter.Micros = t;
+                box.Counter.Micros = t;
                 long dt = t > 2500000 ? t - 2500000 : 0;
-                long count = (412 * dt * dt / 2000000000L) * settings.PulsesPerRevolution / settings.CircumferenceMicrometres;
-                bool changed = count != pulses.Count;
-                pulses.Count = count;
-                accelerometer.ForwardMilliG = t > 2500000 ? 42 : 0;
-                Pass(source, loop, accelerometer, sink, changed);
-                if (recorder.Phase != shown)
-                {
-                    shown = recorder.Phase;
-                    Out.Line("slow phase " + PhaseName(shown) + " at " + t.ToString());
-                }
+                long count = (412 * dt * dt / 2000000000L) * box.Settings.PulsesPerRevolution / box.Settings.CircumferenceMicrometres;
+                bool changed = count != box.Pulses.Count;
+                box.Pulses.Count = count;
+                box.Accelerometer.ForwardMilliG = t > 2500000 ? 42 : 0;
+                Pass(box.Source, box.Loop, box.Accelerometer, box.Sink, changed);
+                shown = ShowPhase("slow phase ", box.Recorder, shown, t);
             }
 
-            Out.Line("slow run " + recorder.RunNumber.ToString() + " motion " + recorder.MotionMicros.ToString() + " rollout " + recorder.RolloutMicros.ToString());
-            Out.Line("slow log " + sink.Bytes.ToString() + " bytes " + sink.CountFrames().ToString() + " frames crc " + sink.Crc().ToString());
-            Events(sink);
+            Out.Line("slow run " + box.Recorder.RunNumber.ToString() + " motion " + box.Recorder.MotionMicros.ToString() + " rollout " + box.Recorder.RolloutMicros.ToString());
+            Out.Line("slow log " + box.Sink.Bytes.ToString() + " bytes " + box.Sink.CountFrames().ToString() + " frames crc " + box.Sink.Crc().ToString());
+            Events(box.Sink);
+        }
+
+        /// <summary>Prints the recorder's phase, after <paramref name="label"/>, when it is no longer
+        /// <paramref name="shown"/>; returns the phase now shown.</summary>
+        private static RunPhase ShowPhase(string label, RunRecorder recorder, RunPhase shown, long t)
+        {
+            if (recorder.Phase != shown)
+            {
+                Out.Line(label + PhaseName(recorder.Phase) + " at " + t.ToString());
+            }
+
+            return recorder.Phase;
         }
 
         /// <summary>Reads the log back: every event frame with its kind, time and extra fields,
