@@ -29,6 +29,7 @@ namespace LaunchLogger.Firmware.NanoHarness
             ClockWrap();
             Launch();
             BenchRest();
+            SlowLaunch();
             Out.Line("done");
         }
 
@@ -140,7 +141,7 @@ namespace LaunchLogger.Firmware.NanoHarness
         {
             ScriptedSwitch brake = new ScriptedSwitch(BrakeChanges);
             ScriptedSwitch mark = new ScriptedSwitch(MarkChanges);
-            HarnessBox box = new HarnessBox(brake, mark, SwitchHoldMicros, 0);
+            HarnessBox box = new HarnessBox(brake, mark, SwitchHoldMicros, 0, 0);
             HandClock counter = box.Counter;
             HandPulseCounter pulses = box.Pulses;
             HealthCounters health = box.Health;
@@ -181,11 +182,7 @@ namespace LaunchLogger.Firmware.NanoHarness
                 brake.MoveTo(t);
                 mark.MoveTo(t);
                 Pass(source, loop, accelerometer, sink, changed);
-                if (recorder.Phase != shown)
-                {
-                    shown = recorder.Phase;
-                    Out.Line("phase " + PhaseName(shown) + " at " + t.ToString());
-                }
+                shown = ShowPhase("phase ", recorder, shown, t);
             }
 
             Out.Line("run " + recorder.RunNumber.ToString() + " motion " + recorder.MotionMicros.ToString() + " rollout " + recorder.RolloutMicros.ToString());
@@ -233,7 +230,7 @@ namespace LaunchLogger.Firmware.NanoHarness
         private static void BenchRest()
         {
             ScriptedSwitch mark = new ScriptedSwitch(BenchMarkChanges);
-            HarnessBox box = new HarnessBox(null, mark, SwitchHoldMicros, 5000000);
+            HarnessBox box = new HarnessBox(null, mark, SwitchHoldMicros, 5000000, 0);
             box.Accelerometer.ForwardMilliG = 1000;
             HandClock counter = box.Counter;
             HandPulseCounter pulses = box.Pulses;
@@ -255,16 +252,51 @@ namespace LaunchLogger.Firmware.NanoHarness
 
                 mark.MoveTo(t);
                 Pass(source, loop, accelerometer, sink, changed);
-                if (recorder.Phase != shown)
-                {
-                    shown = recorder.Phase;
-                    Out.Line("bench phase " + PhaseName(shown) + " at " + t.ToString());
-                }
+                shown = ShowPhase("bench phase ", recorder, shown, t);
             }
 
             Out.Line("bench rests " + recorder.BenchRestNumber.ToString() + " runs " + recorder.RunNumber.ToString());
             Out.Line("bench log " + sink.Bytes.ToString() + " bytes " + sink.CountFrames().ToString() + " frames crc " + sink.Crc().ToString());
             Events(sink);
+        }
+
+        /// <summary>A launch only just over the motion threshold (42 mg, the threshold 40 mg) at
+        /// 2 500 000 under the longest still block (500 ms: 200 samples at 400 Hz): the first pulse
+        /// (40.8 mm on, at about 2 945 000) comes before the onset window's mean passes (191 samples
+        /// of the launch, 2 977 500) and opens the run, whose first motion comes from the
+        /// accelerometer's stretch over the threshold: the launch.</summary>
+        private static void SlowLaunch()
+        {
+            HarnessBox box = new HarnessBox(null, null, SwitchHoldMicros, 0, LoggerSettings.MaxStillBlockMs * 1000);
+            RunPhase shown = box.Recorder.Phase;
+            Out.Line("slow phase " + PhaseName(shown) + " at 0");
+            for (long t = StepMicros; t <= 4200000; t += StepMicros)
+            {
+                box.Counter.Micros = t;
+                long dt = t > 2500000 ? t - 2500000 : 0;
+                long count = (412 * dt * dt / 2000000000L) * box.Settings.PulsesPerRevolution / box.Settings.CircumferenceMicrometres;
+                bool changed = count != box.Pulses.Count;
+                box.Pulses.Count = count;
+                box.Accelerometer.ForwardMilliG = t > 2500000 ? 42 : 0;
+                Pass(box.Source, box.Loop, box.Accelerometer, box.Sink, changed);
+                shown = ShowPhase("slow phase ", box.Recorder, shown, t);
+            }
+
+            Out.Line("slow run " + box.Recorder.RunNumber.ToString() + " motion " + box.Recorder.MotionMicros.ToString() + " rollout " + box.Recorder.RolloutMicros.ToString());
+            Out.Line("slow log " + box.Sink.Bytes.ToString() + " bytes " + box.Sink.CountFrames().ToString() + " frames crc " + box.Sink.Crc().ToString());
+            Events(box.Sink);
+        }
+
+        /// <summary>Prints the recorder's phase, after <paramref name="label"/>, when it is no longer
+        /// <paramref name="shown"/>; returns the phase now shown.</summary>
+        private static RunPhase ShowPhase(string label, RunRecorder recorder, RunPhase shown, long t)
+        {
+            if (recorder.Phase != shown)
+            {
+                Out.Line(label + PhaseName(recorder.Phase) + " at " + t.ToString());
+            }
+
+            return recorder.Phase;
         }
 
         /// <summary>Reads the log back: every event frame with its kind, time and extra fields,

@@ -204,8 +204,9 @@ namespace LaunchLogger.Firmware.NanoHarness
     /// FIFO, the step budget's bounds, the switches read raw and debounced by the loop.</summary>
     public sealed class HarnessBox
     {
-        /// <summary>Wires the parts; <paramref name="benchRestMicros"/> 0 keeps the default rest length.</summary>
-        public HarnessBox(ScriptedSwitch brake, ScriptedSwitch mark, int switchHoldMicros, int benchRestMicros)
+        /// <summary>Wires the parts; <paramref name="benchRestMicros"/> and <paramref name="stillBlockMicros"/>
+        /// 0 keep the default rest length and still block.</summary>
+        public HarnessBox(ScriptedSwitch brake, ScriptedSwitch mark, int switchHoldMicros, int benchRestMicros, int stillBlockMicros)
         {
             Counter = new HandClock();
             Pulses = new HandPulseCounter();
@@ -218,6 +219,11 @@ namespace LaunchLogger.Firmware.NanoHarness
             if (benchRestMicros > 0)
             {
                 Settings.BenchRestMicros = benchRestMicros;
+            }
+
+            if (stillBlockMicros > 0)
+            {
+                Settings.StillBlockMicros = stillBlockMicros;
             }
 
             StepBudget.Apply(Settings);

@@ -44,8 +44,21 @@ namespace LaunchLogger.Esp32
 
             IAccelerometer accelerometer = OpenAccelerometer();
             IByteSink sink = OpenSinks(led);
-            LoggerSettings settings = BoxSettings.Create(accelerometer);
-            RunRecorder recorder = new RunRecorder(settings, sink, health);
+            RunRecorder recorder;
+            try
+            {
+                recorder = new RunRecorder(BoxSettings.Create(accelerometer), sink, health);
+            }
+            catch (ArgumentException e)
+            {
+                // A setting out of range (BoxSettings.cs): say which on the debug output and blink
+                // the fault pattern until the box is set up again and redeployed.
+                Debug.WriteLine("settings: " + e.Message);
+                led.ShowFault(int.MaxValue);
+                Thread.Sleep(Timeout.Infinite);
+                return;
+            }
+
             for (int c = 0; c < counter.ChannelCount; c++)
             {
                 recorder.SetCounterOrigin(c, 0);

@@ -73,7 +73,7 @@ public sealed class BoardAppTests : IDisposable
 
         Assert.Equal(BoardApp.ExitOk, exit);
         LogFrames.Frame configuration = Assert.Single(LogFrames.Decode(log), f => f.Type == FrameType.Configuration);
-        Assert.Equal(expectedMicros, LastVarint(configuration.Payload)); // LOG-FORMAT.md 0x01: its last field
+        Assert.Equal(expectedMicros, LogFrames.LastVarint(configuration.Payload)); // LOG-FORMAT.md 0x01: its last field
 
         // Staged under the file's block: flag bit 2, after the version, firmware version and the
         // run number, opening and origin count (three varints from offset 7).
@@ -212,19 +212,6 @@ public sealed class BoardAppTests : IDisposable
 
     /// <summary>The body's last varint, just before the CRC: its final byte has the high bit clear,
     /// and so has the byte before its first (LOG-FORMAT.md, section 2).</summary>
-    private static long LastVarint(byte[] payload)
-    {
-        int end = payload.Length - 4;
-        int start = end - 1;
-        while ((payload[start - 1] & 0x80) != 0)
-        {
-            start--;
-        }
-
-        Assert.True(Varint.Read(payload, start, end, out ulong value) == end - start);
-        return (long)value;
-    }
-
     private static short Raw8g(int milliG)
     {
         // ±8 g: 4096 counts per g, 12-bit data left-justified (low 4 bits zero).

@@ -1,4 +1,5 @@
 using System.Text.Json.Serialization;
+using LaunchLogger.Firmware.Run;
 
 namespace LaunchLogger.Firmware.LinuxBoard.Configuration;
 
@@ -99,8 +100,9 @@ public sealed class BoardSettings
         public bool ForwardAxisReversed { get; set; }
 
         /// <summary>Length of the blocks whose means the staging still test bounds, milliseconds
-        /// (the core's <c>LoggerSettings.StillBlockMicros</c>, written in each run's configuration).</summary>
-        public int StillBlockMs { get; set; } = 50;
+        /// (the core's <c>LoggerSettings.StillBlockMicros</c>, written in each run's configuration;
+        /// default and range the core's, as on the ESP32).</summary>
+        public int StillBlockMs { get; set; } = LoggerSettings.DefaultStillBlockMs;
     }
 
     /// <summary>Switches and LED on GPIO pins (System.Device.Gpio numbering).</summary>

@@ -205,10 +205,10 @@ public static class BoardSettingsFile
                 return "accelerometer.forward_axis must be \"x\", \"y\" or \"z\" (was \"" + a.ForwardAxis + "\")";
             }
 
-            // The core's range (LoggerSettings.Validate), checked here in the file's units.
-            if (a.StillBlockMs < 1 || a.StillBlockMs > 500)
+            // The core's range, checked here in the file's units (the ESP32's settings use the same check).
+            if (LoggerSettings.CheckStillBlockMs("accelerometer.still_block_ms", a.StillBlockMs) is { } stillBlock)
             {
-                return "accelerometer.still_block_ms must be from 1 to 500 (was " + a.StillBlockMs + ")";
+                return stillBlock;
             }
         }
 

@@ -7,6 +7,16 @@ namespace LaunchLogger.Firmware.Run
     /// recorder does.</remarks>
     public sealed class LoggerSettings
     {
+        /// <summary>The still block's default length in the unit the boards' settings take it (ms).</summary>
+        public const int DefaultStillBlockMs = 50;
+
+        /// <summary>The shortest still block (ms).</summary>
+        public const int MinStillBlockMs = 1;
+
+        /// <summary>The longest still block (ms): a tenth of the default staging hold, and with it the
+        /// longest the onset window can delay a launch's run (<see cref="RunRecorder.OnsetWindowSamples"/>).</summary>
+        public const int MaxStillBlockMs = 500;
+
         /// <summary>Creates settings with the defaults.</summary>
         public LoggerSettings()
         {
@@ -23,7 +33,7 @@ namespace LaunchLogger.Firmware.Run
             PreTriggerBursts = 128;
             StageHoldMicros = 1000000;
             StillBandMilliG = 60;
-            StillBlockMicros = 50000;
+            StillBlockMicros = DefaultStillBlockMs * 1000;
             MotionThresholdMilliG = 40;
             MotionConfirmSamples = 16;
             StopHoldMicros = 2000000;
@@ -154,7 +164,7 @@ namespace LaunchLogger.Firmware.Run
             if (e == null && AccelPresent) e = Range("PreTriggerBursts", PreTriggerBursts, 1, 100000);
             if (e == null) e = Range("StageHoldMicros", StageHoldMicros, 1000, 60000000);
             if (e == null) e = Range("StillBandMilliG", StillBandMilliG, 1, 2000);
-            if (e == null) e = Range("StillBlockMicros", StillBlockMicros, 1000, 500000);
+            if (e == null) e = Range("StillBlockMicros", StillBlockMicros, MinStillBlockMs * 1000, MaxStillBlockMs * 1000);
             if (e == null) e = Range("MotionThresholdMilliG", MotionThresholdMilliG, 1, 4000);
             if (e == null) e = Range("MotionConfirmSamples", MotionConfirmSamples, 1, 1000);
             if (e == null) e = Range("StopHoldMicros", StopHoldMicros, 10000, 60000000);
@@ -175,6 +185,18 @@ namespace LaunchLogger.Firmware.Run
             }
 
             return e;
+        }
+
+        /// <summary>Checks a board's still-block setting, in milliseconds as the boards' settings take
+        /// it (the Linux board's <c>accelerometer.still_block_ms</c>, the ESP32's
+        /// <c>BoxSettings.StillBlockMs</c>), against the range <see cref="Validate"/> holds
+        /// <see cref="StillBlockMicros"/> to.</summary>
+        /// <param name="name">The setting's name as its board spells it, for the message.</param>
+        /// <param name="milliseconds">Its value.</param>
+        /// <returns>Null when usable; otherwise one sentence naming the setting, the allowed range and the value.</returns>
+        public static string CheckStillBlockMs(string name, int milliseconds)
+        {
+            return Range(name, milliseconds, MinStillBlockMs, MaxStillBlockMs);
         }
 
         private static string Range(string name, int value, int min, int max)

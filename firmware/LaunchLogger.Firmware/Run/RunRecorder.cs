@@ -24,7 +24,9 @@ namespace LaunchLogger.Firmware.Run
     /// acceleration less the threshold, a one-sided cumulative sum), no earlier than the window. A
     /// step is timed to its first sample; a shake of amplitude A above the threshold can put it
     /// early by at most about 0.6 of the shake's period (0.4 at A = 1.5 × the threshold, 0.63 at
-    /// 3 ×), never late. A car that rolls
+    /// 3 ×), never late. A distance pulse that comes first (a launch just over the threshold, whose
+    /// window passes up to a still block late) opens the run with first motion at its bracket start,
+    /// or where the stretch over the threshold began if the accelerometer has one under way. A car that rolls
     /// <see cref="LoggerSettings.UnstagedOpenMicrometres"/> without being staged opens a rolling run.
     /// Rollout: the distance channel's count reaches the rollout distance; the time is
     /// interpolated linearly, in integer arithmetic, between the bracket midpoints on either side.
@@ -545,7 +547,7 @@ namespace LaunchLogger.Firmware.Run
             switch (phase)
             {
                 case RunPhase.Staged:
-                    OpenRun(true, MotionCause.PulseCount, loMicros, hiMicros);
+                    OpenRun(true, MotionCause.PulseCount, PulseOpeningMotionMicros(loMicros), hiMicros);
                     break;
                 case RunPhase.Idle:
                 case RunPhase.Stopped:
@@ -788,6 +790,23 @@ namespace LaunchLogger.Firmware.Run
                 long oldestMicros = sampleMicros - ((n - 1) * samplePeriodNanos / 1000);
                 OpenRun(true, MotionCause.AccelOnset, onsetFromMicros > oldestMicros ? onsetFromMicros : oldestMicros, readMicros);
             }
+        }
+
+        /// <summary>First motion of a run that a distance pulse opens while staged: the pulse's
+        /// bracket start, or, when the accelerometer has a stretch over the threshold under way that
+        /// began earlier, that stretch's start. A launch only just over the threshold passes the onset
+        /// window's mean up to a still block after it begins, and a fine pickup's first pulse may come
+        /// first (at 42 mg, 0.445 s on against the 500-ms block's 0.477 s); its stretch starts at the
+        /// launch. The stretch lies within the window (one longer would have passed it), and while the
+        /// mark button is down onset is not followed, so its stretch is stale then.</summary>
+        private long PulseOpeningMotionMicros(long loMicros)
+        {
+            if (settings.AccelPresent && !markHeld && onsetExcess > onsetExcessLowest && onsetFromMicros < loMicros)
+            {
+                return onsetFromMicros;
+            }
+
+            return loMicros;
         }
 
         /// <summary>Samples in the window whose forward mean must pass the motion threshold: the

@@ -39,6 +39,11 @@ public static class PrescribedLog
             AccelPresent = accelSamples != null,
             AccelOutputDataRateMilliHz = (int)Math.Round(options.AccelRateHz * 1000),
         };
+        if (options.StillBlockMicros > 0)
+        {
+            settings.StillBlockMicros = options.StillBlockMicros;
+        }
+
         var health = new HealthCounters();
         var sink = new MemorySink();
         var recorder = new RunRecorder(settings, sink, health);
@@ -155,4 +160,7 @@ public sealed record LogOptions
 
     /// <summary>The hardware counter's reading before the first pulse.</summary>
     public long CounterOrigin { get; init; }
+
+    /// <summary>The box's still block, µs (<see cref="LoggerSettings.StillBlockMicros"/>); 0 for its default.</summary>
+    public int StillBlockMicros { get; init; }
 }

@@ -43,6 +43,21 @@ internal static class LogFrames
         return frames;
     }
 
+    /// <summary>The varint that ends a frame's payload, just before its CRC (the configuration's
+    /// still block: LOG-FORMAT.md 0x01).</summary>
+    public static long LastVarint(byte[] payload)
+    {
+        int end = payload.Length - 4;
+        int start = end - 1;
+        while ((payload[start - 1] & 0x80) != 0)
+        {
+            start--;
+        }
+
+        Assert.True(Varint.Read(payload, start, end, out ulong value) == end - start);
+        return (long)value;
+    }
+
     /// <summary>Bytes after the last delimiter (a cut-off frame), which a whole log never has.</summary>
     public static int TrailingBytes(byte[] log)
     {

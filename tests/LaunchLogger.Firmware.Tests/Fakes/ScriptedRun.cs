@@ -6,7 +6,7 @@ namespace LaunchLogger.Firmware.Tests.Fakes;
 /// <summary>Feeds a <see cref="RunRecorder"/> from a <see cref="MotionProfile"/> the way the box
 /// would: every 20 ms, the pulse observations of that stretch (in time order), then one burst of
 /// 20 accelerometer samples at 1 kHz (forward acceleration on the forward axis, +1000 mg on z at
-/// rest), then a tick. Keeps everything it fed so tests can compare the log with the truth.</summary>
+/// rest; <see cref="SamplesPerBurst"/> sets another burst and with it the step), then a tick. Keeps everything it fed so tests can compare the log with the truth.</summary>
 /// <remarks>Pulse edges: edge n of a channel is where the car has rolled n × (circumference ÷
 /// pulses per revolution). Exact timing gives each edge a 1 µs bracket ending at the edge's
 /// microsecond, rounded up; polled timing reads the counters every <see cref="PollPeriodMicros"/>
@@ -22,7 +22,7 @@ public sealed class ScriptedRun
     private readonly double[] metresPerPulse;
     private readonly long[] nextEdge;
     private readonly long[] polledCount;
-    private readonly short[] burst = new short[BurstSamples * 3];
+    private short[] burst = new short[BurstSamples * 3];
     private readonly long periodMicros;
     private long lastPollBeforeMicros;
     private long nextPollMicros;
@@ -53,6 +53,10 @@ public sealed class ScriptedRun
 
     /// <summary>0 for exact edge times (1 µs brackets); otherwise the counter poll period, µs.</summary>
     public long PollPeriodMicros { get; init; }
+
+    /// <summary>Samples in each burst (<see cref="BurstSamples"/> unless told): a step is as long as
+    /// they take at the data rate, as a box that reads its FIFO at that interval.</summary>
+    public int SamplesPerBurst { get; init; } = BurstSamples;
 
     /// <summary>How long one poll takes, from its first clock reading to its last, µs.</summary>
     public long PollReadMicros { get; init; } = 3;
@@ -94,7 +98,7 @@ public sealed class ScriptedRun
     /// <summary>Feeds whole 20 ms steps until <paramref name="endMicros"/> is reached.</summary>
     public void RunUntil(long endMicros)
     {
-        long step = periodMicros * BurstSamples;
+        long step = periodMicros * SamplesPerBurst;
         while (NowMicros + step <= endMicros)
         {
             Step(NowMicros + step);
@@ -176,7 +180,12 @@ public sealed class ScriptedRun
     private void FeedBurst(long stepEnd)
     {
         long firstIndex = Samples.Count;
-        for (int i = 0; i < BurstSamples; i++)
+        if (burst.Length != SamplesPerBurst * 3)
+        {
+            burst = new short[SamplesPerBurst * 3];
+        }
+
+        for (int i = 0; i < SamplesPerBurst; i++)
         {
             long index = firstIndex + i;
             long t = (index + 1) * periodMicros;
@@ -199,7 +208,7 @@ public sealed class ScriptedRun
             Samples.Add((sample, stepEnd));
         }
 
-        recorder.OnAccelBurst(burst, BurstSamples, firstIndex, stepEnd);
+        recorder.OnAccelBurst(burst, SamplesPerBurst, firstIndex, stepEnd);
     }
 
     private void Feed(PulseObservation o)

@@ -3,6 +3,7 @@ using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Import;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Prescribed.Output;
 
 namespace LaunchLogger.Prescribed.Tests.Decoder;
 
@@ -48,9 +49,14 @@ public static class DecoderHarness
     }
 
     /// <summary>The record written as a log by the firmware core, read and analysed.</summary>
-    public static SessionAnalysis AnalyzeLog(PrescribedRecord record, AnalysisOptions? options = null)
+    public static SessionAnalysis AnalyzeLog(PrescribedRecord record, AnalysisOptions? options = null) =>
+        AnalyzeLog(record, record.Spec.LogOptions, options);
+
+    /// <summary>The record written as a log by the firmware core with the box's options
+    /// <paramref name="logOptions"/> (its still block…), read and analysed.</summary>
+    public static SessionAnalysis AnalyzeLog(PrescribedRecord record, LogOptions logOptions, AnalysisOptions? options = null)
     {
-        LogReadResult log = LogReader.Read(record.ToLog(), record.Spec.Shape.Name);
+        LogReadResult log = LogReader.Read(record.ToLog(logOptions), record.Spec.Shape.Name);
         return SessionAnalyzer.Analyze(log.Runs, Options(record, options));
     }
 
