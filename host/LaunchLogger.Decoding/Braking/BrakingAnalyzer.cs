@@ -168,13 +168,15 @@ public static class BrakingAnalyzer
         double fusedSlip = fused ? trajectory.ValueAt(fusedSlipDistanceM!, standstillS) - trajectory.ValueAt(fusedSlipDistanceM!, onset.Value) : 0;
         double slipWork = pulsesCarry ? BrakingWorkM(trajectory, onset.Value, standstillS, slid) : 0;
         bool measured = fused && fusedBrakeSlip is { } kb && FusedSlipMeasured(kb, tyre);
-        double slipCorrection = measured ? fusedSlip : slipWork * tyre.MeanInverse;
+        // The prior's wheel works at an unknown share of the car's deceleration (its axle is not
+        // told): the mean share and its spread go into the correction and its σ.
+        double slipCorrection = measured ? fusedSlip : slipWork * tyre.MeanWheelSlip;
         double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance - fusedSlip + slipCorrection;
         // The path's own σ between onset and standstill (a circumference error counts on the stop's
         // length, not on the whole run's), and the onset's σ at the speed there.
         double pathSigma = trajectory.IntervalSigmaM(onset.Value, standstillS);
         double meanDecel = BrakingFormulas.MeanDecelerationMps2(fromMps, stopDistance);
-        double slipSigma = slipWork * (measured ? MeasuredInverseSigma(fusedBrakeSlip!.Value) : tyre.InverseSigma);
+        double slipSigma = slipWork * (measured ? MeasuredInverseSigma(fusedBrakeSlip!.Value) : tyre.WheelSlipSigma);
         double distanceSigma = Math.Sqrt((pathSigma * pathSigma) + Math.Pow(fromMps * onset.Sigma, 2) + (slipSigma * slipSigma));
 
         return new BrakingResult
@@ -187,7 +189,7 @@ public static class BrakingAnalyzer
             BrakeSlipCorrectionM = slipCorrection,
             MeanDecelMps2 = meanDecel,
             PeakDecelMps2 = peakDecel,
-            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop, pulsesCarry && !fused ? tyre.MeanInverse : 0, slid),
+            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop, pulsesCarry && !fused ? tyre.MeanWheelSlip : 0, slid),
             CorrectedStops = CorrectedStops(stopDistance, fromMps, nominalSpeedsMps),
             TractionBound0To60S = BrakingFormulas.TractionBoundS(60 * Units.MpsPerMph, meanDecel),
             TractionBound0To100KmhS = BrakingFormulas.TractionBoundS(100 * Units.MpsPerKmh, meanDecel),
@@ -313,7 +315,7 @@ public static class BrakingAnalyzer
 
     /// <summary>∫ max(−a, 0)·v dt / g0 from <paramref name="fromS"/> to <paramref name="toS"/>,
     /// outside <paramref name="setAside"/>, m: the distance a braked wheel's pulses miss there,
-    /// per unit of 1/C. Over a whole stop from v0 it is v0²/(2·g0), whatever the deceleration's
+    /// per unit of share/C. Over a whole stop from v0 it is v0²/(2·g0), whatever the deceleration's
     /// shape. The whole deceleration is taken as the brakes' (drag, which the tyres do not pass,
     /// is a few per cent of it at motorway speed).</summary>
     private static double BrakingWorkM(Trajectory trajectory, double fromS, double toS, IReadOnlyList<TimeWindow> setAside)
@@ -358,7 +360,7 @@ public static class BrakingAnalyzer
     /// car's times (1 − s): it is divided by that, s the wheel's expected shortfall between the
     /// crossings. From the wheel's own speed and deceleration (each (1 − s) of the car's) that
     /// shortfall over the distance it counted is r = s·(1 − s), so s = 2r / (1 + √(1 − 4r)).</summary>
-    private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop, double meanInverseStiffness, IReadOnlyList<TimeWindow> slid)
+    private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop, double meanWheelSlip, IReadOnlyList<TimeWindow> slid)
     {
         int start = FigureCalculator.FirstIndexAtOrAfter(trajectory.TimeS, onsetS);
         double? tb = FallCrossing(trajectory, start, stop, BrakingFormulas.MfddWindowStartFraction * fromMps);
@@ -370,7 +372,7 @@ public static class BrakingAnalyzer
 
         double sb = trajectory.ValueAt(trajectory.DistanceM, b) - fromDistance;
         double se = trajectory.ValueAt(trajectory.DistanceM, e) - fromDistance;
-        double missed = meanInverseStiffness > 0 ? BrakingWorkM(trajectory, b, e, slid) * meanInverseStiffness : 0;
+        double missed = meanWheelSlip > 0 ? BrakingWorkM(trajectory, b, e, slid) * meanWheelSlip : 0;
         double share = missed / (se - sb);
         double slip = 2 * share / (1 + Math.Sqrt(Math.Max(1 - (4 * share), 0)));
         return BrakingFormulas.Mfdd(fromMps / Units.MpsPerKmh, sb, se) / (1 - slip);
