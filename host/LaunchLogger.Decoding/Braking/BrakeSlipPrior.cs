@@ -48,6 +48,10 @@ public sealed record BrakeSlipPrior(double LowStiffness, double HighStiffness, d
     /// E[share]·E[1/C], 0.0439 for car tyres on either axle.</summary>
     public double MeanWheelSlip => 0.5 * (LowShare + HighShare) * MeanInverse;
 
+    /// <summary>The most share/C can be: the highest share over the softest C (0.0867 for car
+    /// tyres on either axle); 0 for a wheel that does not slip.</summary>
+    public double MostWheelSlip => double.IsPositiveInfinity(LowStiffness) ? 0 : HighShare / LowStiffness;
+
     /// <summary>σ of share/C: E[share²]·E[1/C²], less the mean squared; 0.0130 for car tyres on
     /// either axle (0.0093 from the tyre alone).</summary>
     public double WheelSlipSigma

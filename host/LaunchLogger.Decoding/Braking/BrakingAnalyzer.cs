@@ -138,16 +138,23 @@ public static class BrakingAnalyzer
         }
         else
         {
-            (double[] st, double[] sa) = rawAccel is { } raw && raw.TimeS.Length > 10 ? raw : (t, a);
+            bool raw = rawAccel is { } r0 && r0.TimeS.Length > 10;
+            (double[] st, double[] sa) = raw ? rawAccel!.Value : (t, a);
+            // Without raw samples, pulses that carry the distance are a braked wheel's, whose tyre
+            // slips more as the deceleration builds: its deceleration steps up at the onset
+            // (BrakeOnsetFit's slip step), which the line through 20–80 % cannot tell from the rise.
+            // The step's height is at most v·κ·P/T, κ the prior's largest slip per m/s².
+            double slipStepS = !raw && pulsePositionSigmaM > 0 ? v[peak] * (brakeSlip ?? BrakeSlipPrior.CarTyres).MostWheelSlip / Units.StandardGravity : 0;
+            bool slipStep = slipStepS > 0;
             // A quick rise leaves a clean level before it, and the line through its 20–80 % part
             // is then the steadier answer; a slow one contaminates any level window, so the ramp
             // fit (level and rise together) takes over from SlowRiseS.
-            Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS);
+            Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS, slipStepS);
             Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
             onset = fitted is not { } f ? line
-                : riseS >= SlowRiseS || !Agree(line, f) ? f
+                : slipStep || riseS >= SlowRiseS || !Agree(line, f) ? f
                 : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
-            if ((rawAccel is not { } r || r.TimeS.Length <= 10) && pulsePositionSigmaM > 0)
+            if (!raw && pulsePositionSigmaM > 0)
             {
                 double spread = peakDecel > 0 ? 2 * Math.Sqrt(pulsePositionSigmaM / peakDecel) : 0;
                 onset = onset with { Sigma = Math.Sqrt((onset.Sigma * onset.Sigma) + (spread * spread) + (SmootherSpreadS * SmootherSpreadS)) };

@@ -139,18 +139,24 @@ public class BrakingRulesTests
     public void FromPulsesAloneTheOnsetsSigmaCarriesThePositionNoiseAndTheSmoothersSpread()
     {
         // The rule as stated: 2·√(σ_position / deceleration) for the position noise (D·τ²/2 = σ),
-        // and the smoother's spread, in quadrature with the fit's own σ.
+        // and the smoother's spread, in quadrature with the fit's own σ. (A wheel that does not
+        // slip under braking: with a slip prior the pulses' onset is fitted with the slip's step,
+        // whose own σ is the fit's alone.)
         Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(0, 0, 0.3), new StopPhase(0, 8 / 0.2, 0.2), new StopPhase(8, 0, 0)]);
         double own = BrakingAnalyzer.Analyze(stop)!.OnsetS.Sigma;
-        double pulses = BrakingAnalyzer.Analyze(stop, pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma;
+        double pulses = BrakingAnalyzer.Analyze(stop, [], null, null, 0.0005, brakeSlip: BrakeSlipPrior.None)!.OnsetS.Sigma;
         double spread = 2 * Math.Sqrt(0.0005 / 8);
         Assert.Equal(Math.Sqrt((own * own) + (spread * spread) + (BrakingAnalyzer.SmootherSpreadS * BrakingAnalyzer.SmootherSpreadS)), pulses, 9);
+
+        // A rise with no step in it (the car's own deceleration) fitted with the slip's step
+        // allowed: the step comes out nil and the onset where the brakes came on, 1.3 s.
+        Assert.Equal(1.3, BrakingAnalyzer.Analyze(stop, [], null, null, 0.0005)!.OnsetS.Value, 0.001);
 
         // With the accelerometer's own samples the onset does not rest on the smoothed trajectory.
         Assert.Equal(own, BrakingAnalyzer.Analyze(stop, rawAccel: (stop.TimeS, stop.AccelMps2), pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma, 12);
 
         // Ten samples or fewer are no accelerometer record: the trajectory's rule applies.
-        Assert.Equal(pulses, BrakingAnalyzer.Analyze(stop, rawAccel: (stop.TimeS[..10], stop.AccelMps2[..10]), pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma, 12);
+        Assert.Equal(pulses, BrakingAnalyzer.Analyze(stop, [], null, (stop.TimeS[..10], stop.AccelMps2[..10]), 0.0005, brakeSlip: BrakeSlipPrior.None)!.OnsetS.Sigma, 12);
     }
 
     [Theory]
