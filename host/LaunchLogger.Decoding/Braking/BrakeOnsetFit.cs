@@ -28,7 +28,6 @@ namespace LaunchLogger.Decoding.Braking;
 /// </remarks>
 internal static class BrakeOnsetFit
 {
-
     /// <summary>Longest rise the fit looks for, plus the level before it, s (brake rise times of
     /// 0.05–2 s cover a panic stop to a gentle one; common practice).</summary>
     public const double LookBackS = 3.0;

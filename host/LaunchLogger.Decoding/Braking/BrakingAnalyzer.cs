@@ -37,7 +37,9 @@ public static class BrakingAnalyzer
     /// <summary>1-σ of the onset read off a trajectory smoothed from pulses alone, beyond the
     /// position noise's spread, s: the smoother meets a brake rise with a swing that starts early.
     /// Measured on the simulator's pulses-only stops (rise 0.15–0.2 s): 12–28 ms early even with
-    /// 80–100 teeth and exact edges, where the position noise alone explains under 10 ms.</summary>
+    /// 80–100 teeth and exact edges, where the position noise alone explains under 10 ms. Traced
+    /// since to the braked wheel's slip step (<see cref="BrakeOnsetFit"/>'s slipStepS), now fitted;
+    /// this term is kept, as the smoother still spreads the rise.</summary>
     public const double SmootherSpreadS = 0.02;
 
     /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
