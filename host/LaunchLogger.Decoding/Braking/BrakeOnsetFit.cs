@@ -50,6 +50,11 @@ internal static class BrakeOnsetFit
     /// lasts some 50–100 ms.</summary>
     public const double SustainS = 0.2;
 
+    /// <summary>The slip's step is fitted only with at least this much level before the onset, s:
+    /// with none, the level, the step and the ramp's start cannot be told apart (a window opened
+    /// just after a smoother's swing, as the pulses' step makes one, had onsets 60–115 ms early).</summary>
+    public const double StepLevelS = 0.1;
+
     /// <summary>Onset σ for the shape of a real rise, per second of rise.</summary>
     public const double ModelErrorPerRise = 0.01;
 
@@ -71,7 +76,13 @@ internal static class BrakeOnsetFit
     /// <param name="standstillS">When the car came to rest.</param>
     /// <param name="riseS">The fitted rise length T, s (NaN without a fit).</param>
     /// <returns>The onset and its σ, or null when the samples are too few or show no rise.</returns>
-    public static Estimate? Fit(double[] t, double[] a, double[]? placeT, double[]? placeA, double fromS, double peakS, double standstillS, out double riseS)
+    /// <param name="slipStepS">Above 0 when the samples are a braked wheel's, not the car's
+    /// (pulses alone): the wheel's tyre slips by κ·D as the deceleration D builds, so over a rise
+    /// of P in T the wheel slows faster than the car by Q = v·κ·P/T, and its deceleration steps up
+    /// at the onset and down at the rise's end. The model then has that step over the rise, its
+    /// height Q fitted with b and P between 0 and this value (the most v·κ can be, s) times P/T
+    /// (<see cref="RunningSums.Rss"/>); a plain ramp fitted to it starts early.</param>
+    public static Estimate? Fit(double[] t, double[] a, double[]? placeT, double[]? placeA, double fromS, double peakS, double standstillS, out double riseS, double slipStepS = 0)
     {
         riseS = double.NaN;
         int n = t.Length;
@@ -94,7 +105,7 @@ internal static class BrakeOnsetFit
             return null;
         }
 
-        var sums = new RunningSums(t, a, lo, hi);
+        var sums = new RunningSums(t, a, lo, hi, slipStepS);
         double end = t[hi - 1];
         int count = hi - lo;
 
@@ -323,9 +334,11 @@ internal static class BrakeOnsetFit
         private readonly double[] s1, st, stt, sy, sty;
         private readonly double syy;
         private readonly double origin;
+        private readonly double slipStepS;
 
-        public RunningSums(double[] t, double[] a, int lo, int hi)
+        public RunningSums(double[] t, double[] a, int lo, int hi, double slipStepS)
         {
+            this.slipStepS = slipStepS;
             this.t = t;
             this.lo = lo;
             this.hi = hi;
@@ -349,7 +362,10 @@ internal static class BrakeOnsetFit
             }
         }
 
-        /// <summary>Residual sum of squares of the best (b, P) for onset <paramref name="t0"/> and rise <paramref name="ramp"/>.</summary>
+        /// <summary>Residual sum of squares of the best (b, P) for onset <paramref name="t0"/> and
+        /// rise <paramref name="ramp"/>; with the slip's step, of the best (b, P, Q), Q the
+        /// height of a step over the rise (y = b + P·r + Q·[t₀ ≤ t &lt; t₀ + T]), 0 ≤ Q ≤ λ·P with
+        /// λ = slipStepS / T.</summary>
         public double Rss(double t0, double ramp)
         {
             int m = hi - lo;
@@ -360,13 +376,15 @@ internal static class BrakeOnsetFit
             // Σr, Σr², Σr·y with r = 0 before, (x − x0)/T on the ramp, 1 after.
             double nRamp = s1[ib] - s1[ia];
             double sr = m - ib, srr = m - ib, sry = sy[m] - sy[ib];
+            double rampOnly = 0, ry = 0;
             if (nRamp > 0)
             {
                 double rt = st[ib] - st[ia];
                 double rtt = stt[ib] - stt[ia];
-                double ry = sy[ib] - sy[ia];
+                ry = sy[ib] - sy[ia];
                 double rty = sty[ib] - sty[ia];
-                sr += (rt - (x0 * nRamp)) / ramp;
+                rampOnly = (rt - (x0 * nRamp)) / ramp;
+                sr += rampOnly;
                 srr += (rtt - (2 * x0 * rt) + (x0 * x0 * nRamp)) / (ramp * ramp);
                 sry += (rty - (x0 * ry)) / ramp;
             }
@@ -382,12 +400,55 @@ internal static class BrakeOnsetFit
 
             double b = ((srr * syAll) - (sr * sry)) / det;
             double p = ((n * sry) - (sr * syAll)) / det;
-            if (!(p > 0))
+            double rss = p > 0 ? syy - (b * syAll) - (p * sry) : double.PositiveInfinity;
+            if (slipStepS > 0 && nRamp >= 2 && x0 >= StepLevelS && WithStep(n, sr, srr, nRamp, rampOnly, syAll, sry, ry, slipStepS / ramp) is { } stepped)
             {
-                return double.PositiveInfinity;
+                rss = Math.Min(rss, stepped);
             }
 
-            return syy - (b * syAll) - (p * sry);
+            return rss;
+        }
+
+        /// <summary>RSS of y = b + P·r + Q·box by the 3×3 normal equations (Cramer's rule), box
+        /// the indicator of the rise (Σbox = Σbox² = its sample count, Σbox·r = Σr over it); null
+        /// unless P > 0 and Q ≥ 0 (a negative Q is no slip: the ramp alone is then the constrained
+        /// best). A Q above λ·P is held there: y = b + P·(r + λ·box), two unknowns.</summary>
+        private double? WithStep(double n, double sr, double srr, double nb, double sbr, double sy1, double sry, double sby, double lambda)
+        {
+            // | n   sr   nb  | |b|   |sy1|
+            // | sr  srr  sbr | |P| = |sry|
+            // | nb  sbr  nb  | |Q|   |sby|
+            double det = (n * ((srr * nb) - (sbr * sbr))) - (sr * ((sr * nb) - (sbr * nb))) + (nb * ((sr * sbr) - (srr * nb)));
+            if (!(Math.Abs(det) > 1e-12 * n * n * nb))
+            {
+                return null;
+            }
+
+            double b = ((sy1 * ((srr * nb) - (sbr * sbr))) - (sr * ((sry * nb) - (sbr * sby))) + (nb * ((sry * sbr) - (srr * sby)))) / det;
+            double p = ((n * ((sry * nb) - (sbr * sby))) - (sy1 * ((sr * nb) - (sbr * nb))) + (nb * ((sr * sby) - (sry * nb)))) / det;
+            double q = ((n * ((srr * sby) - (sbr * sry))) - (sr * ((sr * sby) - (sry * nb))) + (sy1 * ((sr * sbr) - (srr * nb)))) / det;
+            if (!(p > 0) || q < 0)
+            {
+                return null;
+            }
+
+            if (q <= lambda * p)
+            {
+                return syy - (b * sy1) - (p * sry) - (q * sby);
+            }
+
+            double su = sr + (lambda * nb);
+            double suu = srr + (2 * lambda * sbr) + (lambda * lambda * nb);
+            double suy = sry + (lambda * sby);
+            double det2 = (n * suu) - (su * su);
+            if (!(det2 > 1e-12 * n * n))
+            {
+                return null;
+            }
+
+            double b2 = ((suu * sy1) - (su * suy)) / det2;
+            double p2 = ((n * suy) - (su * sy1)) / det2;
+            return p2 > 0 ? syy - (b2 * sy1) - (p2 * suy) : null;
         }
 
         /// <summary>The rise length that fits best for onset <paramref name="t0"/>: a geometric

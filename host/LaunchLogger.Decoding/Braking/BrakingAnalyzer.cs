@@ -48,7 +48,9 @@ public static class BrakingAnalyzer
     /// <summary>1-σ of the onset read off a trajectory smoothed from pulses alone, beyond the
     /// position noise's spread, s: the smoother meets a brake rise with a swing that starts early.
     /// Measured on the simulator's pulses-only stops (rise 0.15–0.2 s): 12–28 ms early even with
-    /// 80–100 teeth and exact edges, where the position noise alone explains under 10 ms.</summary>
+    /// 80–100 teeth and exact edges, where the position noise alone explains under 10 ms. Traced
+    /// since to the braked wheel's slip step (<see cref="BrakeOnsetFit"/>'s slipStepS), now fitted;
+    /// this term is kept, as the smoother still spreads the rise.</summary>
     public const double SmootherSpreadS = 0.02;
 
     /// <summary>Nominal-speed corrections are given only within this fraction of the nominal speed.</summary>
@@ -157,7 +159,7 @@ public static class BrakingAnalyzer
             // are not asked: their smoother starts a rise 12–28 ms early (SmootherSpreadS), as
             // much as that window.
             if (switchDelaySpanS > 0 && accelerometer
-                && BrakeOnsetFusion.Combine(sw, switchDelaySpanS, DecelerationOnsetEstimate(trajectory, rawAccel, peak, standstillS, peakDecel, pulsePositionSigmaM)) is { } both)
+                && BrakeOnsetFusion.Combine(sw, switchDelaySpanS, DecelerationOnsetEstimate(trajectory, rawAccel, peak, standstillS, peakDecel, pulsePositionSigmaM, brakeSlip)) is { } both)
             {
                 onset = both;
                 onsetMethod = FusedMethod;
@@ -165,7 +167,7 @@ public static class BrakingAnalyzer
         }
         else
         {
-            onset = DecelerationOnsetEstimate(trajectory, rawAccel, peak, standstillS, peakDecel, pulsePositionSigmaM);
+            onset = DecelerationOnsetEstimate(trajectory, rawAccel, peak, standstillS, peakDecel, pulsePositionSigmaM, brakeSlip);
             onsetMethod = DecelerationMethod;
         }
 
@@ -181,13 +183,15 @@ public static class BrakingAnalyzer
         double fusedSlip = fused ? trajectory.ValueAt(fusedSlipDistanceM!, standstillS) - trajectory.ValueAt(fusedSlipDistanceM!, onset.Value) : 0;
         double slipWork = pulsesCarry ? BrakingWorkM(trajectory, onset.Value, standstillS, slid) : 0;
         bool measured = fused && fusedBrakeSlip is { } kb && FusedSlipMeasured(kb, tyre);
-        double slipCorrection = measured ? fusedSlip : slipWork * tyre.MeanInverse;
+        // The prior's wheel works at an unknown share of the car's deceleration (its axle is not
+        // told): the mean share and its spread go into the correction and its σ.
+        double slipCorrection = measured ? fusedSlip : slipWork * tyre.MeanWheelSlip;
         double stopDistance = trajectory.ValueAt(trajectory.DistanceM, standstillS) - fromDistance - fusedSlip + slipCorrection;
         // The path's own σ between onset and standstill (a circumference error counts on the stop's
         // length, not on the whole run's), and the onset's σ at the speed there.
         double pathSigma = trajectory.IntervalSigmaM(onset.Value, standstillS);
         double meanDecel = BrakingFormulas.MeanDecelerationMps2(fromMps, stopDistance);
-        double slipSigma = slipWork * (measured ? MeasuredInverseSigma(fusedBrakeSlip!.Value) : tyre.InverseSigma);
+        double slipSigma = slipWork * (measured ? MeasuredInverseSigma(fusedBrakeSlip!.Value) : tyre.WheelSlipSigma);
         double distanceSigma = Math.Sqrt((pathSigma * pathSigma) + Math.Pow(fromMps * onset.Sigma, 2) + (slipSigma * slipSigma));
 
         return new BrakingResult
@@ -200,7 +204,7 @@ public static class BrakingAnalyzer
             BrakeSlipCorrectionM = slipCorrection,
             MeanDecelMps2 = meanDecel,
             PeakDecelMps2 = peakDecel,
-            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop, pulsesCarry && !fused ? tyre.MeanInverse : 0, slid),
+            MfddMps2 = Mfdd(trajectory, onset.Value, fromMps, fromDistance, stop, pulsesCarry && !fused ? tyre.MeanWheelSlip : 0, slid),
             CorrectedStops = CorrectedStops(stopDistance, fromMps, nominalSpeedsMps),
             TractionBound0To60S = BrakingFormulas.TractionBoundS(60 * Units.MpsPerMph, meanDecel),
             TractionBound0To100KmhS = BrakingFormulas.TractionBoundS(100 * Units.MpsPerKmh, meanDecel),
@@ -210,19 +214,25 @@ public static class BrakingAnalyzer
     /// <summary>The onset from the deceleration alone: the ramp fit, or the line through a quick
     /// rise where the two agree; read off the trajectory's acceleration (with the pulses' spread
     /// in σ) when there are no raw samples.</summary>
-    private static Estimate DecelerationOnsetEstimate(Trajectory trajectory, (double[] TimeS, double[] AccelMps2)? rawAccel, int peak, double standstillS, double peakDecel, double pulsePositionSigmaM)
+    private static Estimate DecelerationOnsetEstimate(Trajectory trajectory, (double[] TimeS, double[] AccelMps2)? rawAccel, int peak, double standstillS, double peakDecel, double pulsePositionSigmaM, BrakeSlipPrior? brakeSlip)
     {
         double[] t = trajectory.TimeS;
         double[] a = trajectory.AccelMps2;
         bool accelerometer = rawAccel is { } raw && raw.TimeS.Length > 10;
         (double[] st, double[] sa) = accelerometer ? rawAccel!.Value : (t, a);
+        // Without raw samples, pulses that carry the distance are a braked wheel's, whose tyre
+        // slips more as the deceleration builds: its deceleration steps up at the onset
+        // (BrakeOnsetFit's slip step), which the line through 20–80 % cannot tell from the rise.
+        // The step's height is at most v·κ·P/T, κ the prior's largest slip per m/s².
+        double slipStepS = !accelerometer && pulsePositionSigmaM > 0 ? trajectory.SpeedMps[peak] * (brakeSlip ?? BrakeSlipPrior.CarTyres).MostWheelSlip / Units.StandardGravity : 0;
+        bool slipStep = slipStepS > 0;
         // A quick rise leaves a clean level before it, and the line through its 20–80 % part
         // is then the steadier answer; a slow one contaminates any level window, so the ramp
         // fit (level and rise together) takes over from SlowRiseS.
-        Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS);
+        Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS, slipStepS);
         Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
         Estimate onset = fitted is not { } f ? line
-            : riseS >= SlowRiseS || !Agree(line, f) ? f
+            : slipStep || riseS >= SlowRiseS || !Agree(line, f) ? f
             : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
         if (!accelerometer && pulsePositionSigmaM > 0)
         {
@@ -352,7 +362,7 @@ public static class BrakingAnalyzer
 
     /// <summary>∫ max(−a, 0)·v dt / g0 from <paramref name="fromS"/> to <paramref name="toS"/>,
     /// outside <paramref name="setAside"/>, m: the distance a braked wheel's pulses miss there,
-    /// per unit of 1/C. Over a whole stop from v0 it is v0²/(2·g0), whatever the deceleration's
+    /// per unit of share/C. Over a whole stop from v0 it is v0²/(2·g0), whatever the deceleration's
     /// shape. The whole deceleration is taken as the brakes' (drag, which the tyres do not pass,
     /// is a few per cent of it at motorway speed).</summary>
     private static double BrakingWorkM(Trajectory trajectory, double fromS, double toS, IReadOnlyList<TimeWindow> setAside)
@@ -397,7 +407,7 @@ public static class BrakingAnalyzer
     /// car's times (1 − s): it is divided by that, s the wheel's expected shortfall between the
     /// crossings. From the wheel's own speed and deceleration (each (1 − s) of the car's) that
     /// shortfall over the distance it counted is r = s·(1 − s), so s = 2r / (1 + √(1 − 4r)).</summary>
-    private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop, double meanInverseStiffness, IReadOnlyList<TimeWindow> slid)
+    private static double? Mfdd(Trajectory trajectory, double onsetS, double fromMps, double fromDistance, int stop, double meanWheelSlip, IReadOnlyList<TimeWindow> slid)
     {
         int start = FigureCalculator.FirstIndexAtOrAfter(trajectory.TimeS, onsetS);
         double? tb = FallCrossing(trajectory, start, stop, BrakingFormulas.MfddWindowStartFraction * fromMps);
@@ -409,7 +419,7 @@ public static class BrakingAnalyzer
 
         double sb = trajectory.ValueAt(trajectory.DistanceM, b) - fromDistance;
         double se = trajectory.ValueAt(trajectory.DistanceM, e) - fromDistance;
-        double missed = meanInverseStiffness > 0 ? BrakingWorkM(trajectory, b, e, slid) * meanInverseStiffness : 0;
+        double missed = meanWheelSlip > 0 ? BrakingWorkM(trajectory, b, e, slid) * meanWheelSlip : 0;
         double share = missed / (se - sb);
         double slip = 2 * share / (1 + Math.Sqrt(Math.Max(1 - (4 * share), 0)));
         return BrakingFormulas.Mfdd(fromMps / Units.MpsPerKmh, sb, se) / (1 - slip);

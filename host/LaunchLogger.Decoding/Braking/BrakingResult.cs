@@ -24,7 +24,7 @@ public sealed record BrakingResult
     /// the pulses carry the distance they count it short by the tyre's slip, as the fusion
     /// measured it against the accelerometer (k_b·∫ v·max(−a, 0) dt, when its σ is at most
     /// <see cref="BrakingAnalyzer.MeasuredSlipShare"/> of the prior's) or as the prior expects it
-    /// (∫ max(−a, 0)·v dt / g0 × E[1/C], <see cref="BrakeSlipPrior"/>); 0 where they do not.</summary>
+    /// (∫ max(−a, 0)·v dt / g0 × E[share/C], <see cref="BrakeSlipPrior.MeanWheelSlip"/>); 0 where they do not.</summary>
     public double BrakeSlipCorrectionM { get; init; }
 
     /// <summary>Mean deceleration over the stop, from_mps² / (2 · stopping distance), m/s².</summary>

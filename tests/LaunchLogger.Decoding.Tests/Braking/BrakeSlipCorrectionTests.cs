@@ -4,8 +4,11 @@ using LaunchLogger.Decoding.Reconstruction;
 namespace LaunchLogger.Decoding.Tests.Braking;
 
 /// <summary>A stop as a braked wheel's pulses see it: the tyre turns slower than the road by
-/// s = deceleration / (g0·C) (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1, linear range;
-/// C 15–30 for car tyres, from memory), against the closed-form stop of the car itself.</summary>
+/// s = share·deceleration / (g0·C) (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1, linear range;
+/// C 15–30 for car tyres, from memory; share the wheel's force over its load as a multiple of the
+/// car's deceleration, 0.6–1.3 on either axle of a road car, <see cref="BrakeSlipPrior.CarTyres"/>),
+/// against the closed-form stop of the car itself. The prior's mean of share/C is
+/// 0.95 × ln 2 / 15 (the mean share times the mean of 1/C over 15–30).</summary>
 public class BrakeSlipCorrectionTests
 {
     private const double G0 = 9.80665; // ISO 80000-3
@@ -13,6 +16,7 @@ public class BrakeSlipCorrectionTests
     private const double Decel = 8;
     private const double RiseS = 0.2;
     private const double OnsetS = 1.0;
+    private static readonly double MeanWheelSlip = 0.95 * Math.Log(2) / 15;
 
     // Kinematics: a linear rise to D over R, then D to rest. The car covers V·R − D·R²/6 in the
     // rise and (V − D·R/2)²/(2D) after it.
@@ -27,21 +31,22 @@ public class BrakeSlipCorrectionTests
         BrakingResult r = BrakingAnalyzer.Analyze(WheelSeen(stiffness), [new Estimate(OnsetS, 0.001)], null, null, 0.001)!;
         double error = r.StoppingDistanceM.Value - TrueDistance;
 
-        // Uncorrected, the wheel counts the stop v0²/(2·g0·C) short: 1.3–2.6 m here. The ends of
-        // the range lie 1.4σ (C 30) and 2.2σ (C 15) from the mean of 1/C: within 3σ.
+        // A wheel working at the car's deceleration (share 1). Uncorrected, it counts the stop
+        // v0²/(2·g0·C) short: 1.3–2.6 m here. The ends of the range lie 0.8σ (C 30) and 1.8σ
+        // (C 15) from the prior's mean of share/C: within 3σ.
         Assert.True(Math.Abs(error) <= 3 * r.StoppingDistanceM.Sigma, $"C {stiffness}: error {error:F3} m, σ {r.StoppingDistanceM.Sigma:F3} m");
         Assert.InRange(r.StoppingDistanceM.Sigma, 0.3, 1.0);
-        Assert.Equal(V0 * V0 / (2 * Decel), r.StoppingDistanceM.Value - (V0 * RiseS / 2), 0.05 + (Math.Abs(1 / stiffness - (1 / 21.64)) * V0 * V0 / (2 * G0)));
+        Assert.Equal(V0 * V0 / (2 * Decel), r.StoppingDistanceM.Value - (V0 * RiseS / 2), 0.05 + (Math.Abs((1 / stiffness) - MeanWheelSlip) * V0 * V0 / (2 * G0)));
     }
 
     [Fact]
-    public void A_tyre_in_the_middle_of_the_stiffness_range_gives_the_distance_and_the_mfdd_of_the_car()
+    public void A_wheel_in_the_middle_of_the_prior_gives_the_distance_and_the_mfdd_of_the_car()
     {
-        // C = 21.64 is where the mean of 1/C over 15–30 lies (ln 2 / 15): the correction is then
-        // the wheel's own shortfall. The MFDD window (0.8 to 0.1 of v0) lies in the steady part,
+        // C = 21.64 is where the mean of 1/C over 15–30 lies (ln 2 / 15), and a share of 0.95 the
+        // middle of 0.6–1.3: the correction is then the wheel's own shortfall. The MFDD window (0.8 to 0.1 of v0) lies in the steady part,
         // so the car's MFDD is D itself (UN R13-H: (vb² − ve²) / (25.92·(se − sb)) of a constant
         // deceleration).
-        BrakingResult r = BrakingAnalyzer.Analyze(WheelSeen(21.64), [new Estimate(OnsetS, 0.001)], null, null, 0.001)!;
+        BrakingResult r = BrakingAnalyzer.Analyze(WheelSeen(21.64, 0.95), [new Estimate(OnsetS, 0.001)], null, null, 0.001)!;
         Assert.Equal(TrueDistance, r.StoppingDistanceM.Value, 0.03);
         Assert.Equal(Decel, r.MfddMps2!.Value, 0.002);
         Assert.Equal(V0 * V0 / (2 * TrueDistance), r.MeanDecelMps2, 0.005);
@@ -61,17 +66,17 @@ public class BrakeSlipCorrectionTests
         Assert.Equal(0, slid.BrakeSlipCorrectionM);
         Assert.Equal(accelOnly.StoppingDistanceM.Value, slid.StoppingDistanceM.Value, 12);
 
-        // With the pulses: the slip's expected part, v0²/(2·g0)·ln 2/15 = 1.83 m, added once.
-        Assert.Equal(V0 * V0 / (2 * G0) * Math.Log(2) / 15, pulses.BrakeSlipCorrectionM, 0.02);
+        // With the pulses: the slip's expected part, v0²/(2·g0)·0.95·ln 2/15 = 1.73 m, added once.
+        Assert.Equal(V0 * V0 / (2 * G0) * MeanWheelSlip, pulses.BrakeSlipCorrectionM, 0.02);
         Assert.Equal(accelOnly.StoppingDistanceM.Value + pulses.BrakeSlipCorrectionM, pulses.StoppingDistanceM.Value, 9);
 
         // The pulses set aside from 1.2 s after the onset: only the braking done before that
-        // counts, (v0² − v²)/(2·g0)·ln 2/15 with v the car's speed there (0.97 m). The wheel reads
-        // v·(1 − s) there, so the decoder's figure is larger by about v²·s/g0·ln 2/15 (0.06 m).
+        // counts, (v0² − v²)/(2·g0)·0.95·ln 2/15 with v the car's speed there (0.92 m). The wheel
+        // reads v·(1 − s) there, so the decoder's figure is larger by about v²·s/g0·0.95·ln 2/15 (0.06 m).
         double cut = OnsetS + RiseS + 1.0;
         BrakingResult partSlid = BrakingAnalyzer.Analyze(seen, [new Estimate(OnsetS, 0.001)], null, null, 0.001, [new TimeWindow(cut, 20)])!;
         double vAtCut = V0 - (Decel * RiseS / 2) - (Decel * 1.0);
-        Assert.Equal(((V0 * V0) - (vAtCut * vAtCut)) / (2 * G0) * Math.Log(2) / 15, partSlid.BrakeSlipCorrectionM, 0.08);
+        Assert.Equal(((V0 * V0) - (vAtCut * vAtCut)) / (2 * G0) * MeanWheelSlip, partSlid.BrakeSlipCorrectionM, 0.08);
     }
 
     [Fact]
@@ -79,8 +84,8 @@ public class BrakeSlipCorrectionTests
     {
         // The fusion added k_b·∫v·max(−a, 0) dt to the wheel's distance (here as if C = 20): over
         // the stop that is taken off again, and the prior's expected shortfall added as for the
-        // wheel's own pulses, so both give the same stop.
-        Trajectory wheel = WheelSeen(21.64);
+        // wheel's own pulses, so both give the same stop (a wheel in the middle of the prior).
+        Trajectory wheel = WheelSeen(21.64, 0.95);
         double[] added = new double[wheel.Count];
         double work = 0;
         for (int i = 1; i < wheel.Count; i++)
@@ -104,9 +109,10 @@ public class BrakeSlipCorrectionTests
         Assert.Equal(TrueDistance, fromFused.StoppingDistanceM.Value, 0.03);
     }
 
-    /// <summary>The stop as the wheel's pulses give it with a tyre of slip stiffness C: the car's
-    /// speed v and deceleration d(t), the wheel's speed v·(1 − d/(g0·C)), its distance integrated.</summary>
-    private static Trajectory WheelSeen(double stiffness)
+    /// <summary>The stop as the wheel's pulses give it with a tyre of slip stiffness C working at
+    /// <paramref name="share"/> of the car's deceleration: the car's speed v and deceleration d(t),
+    /// the wheel's speed v·(1 − share·d/(g0·C)), its distance integrated.</summary>
+    private static Trajectory WheelSeen(double stiffness, double share = 1)
     {
         const double step = 0.0005;
         int n = (int)((OnsetS + RiseS + (V0 / Decel) + 1.0) / step);
@@ -126,7 +132,7 @@ public class BrakeSlipCorrectionTests
             }
 
             d = carSpeed > 0 ? d : 0;
-            v[i] = carSpeed * (1 - (d / (G0 * stiffness)));
+            v[i] = carSpeed * (1 - (share * d / (G0 * stiffness)));
             x[i] = i == 0 ? 0 : x[i - 1] + (0.5 * (v[i] + v[i - 1]) * step);
         }
 

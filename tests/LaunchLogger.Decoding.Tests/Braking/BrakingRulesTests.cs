@@ -82,14 +82,16 @@ public class BrakingRulesTests
         // 100 km/h at 8 m/s²: a braked tyre of slip stiffness C per unit load turns
         // (8 / 9.80665) / C slower than the road passes (Pacejka, "Tire and Vehicle Dynamics",
         // ch. 1; C 15–30 for car tyres, from memory); over the stop the pulses miss
-        // v0²/(2·g0)·(1/C) = 39.3 m / C. Over C uniform in 15–30, 1/C has mean ln 2 / 15 and
-        // σ √(1/450 − (ln 2 / 15)²).
+        // v0²/(2·g0)·(1/C) = 39.3 m / C, times the share of the car's deceleration its wheel works
+        // at (0.6–1.3 on either axle, the axle not told). Over C uniform in 15–30 and the share
+        // uniform in 0.6–1.3, independent, share/C has mean 0.95·ln 2 / 15 and σ
+        // √(E[share²]/450 − mean²), E[share²] = (0.6² + 0.6·1.3 + 1.3²)/3.
         Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(8, 0, 0)]);
         BrakingResult pulses = BrakingAnalyzer.Analyze(stop, [1.0], pulsePositionSigmaM: 0.001)!;
         double length = V100 * V100 / 16;
         double work = V100 * V100 / (2 * 9.80665);
-        double mean = Math.Log(2) / 15;
-        double spread = Math.Sqrt((1 / 450.0) - (mean * mean));
+        double mean = 0.95 * Math.Log(2) / 15;
+        double spread = Math.Sqrt((((0.36 + 0.78 + 1.69) / 3) / 450.0) - (mean * mean));
         Assert.Equal(length + (work * mean), pulses.StoppingDistanceM.Value, 2);
         Assert.Equal(Math.Sqrt(Math.Pow(V100 * pulses.OnsetS.Sigma, 2) + Math.Pow(work * spread, 2)), pulses.StoppingDistanceM.Sigma, 3);
 
@@ -137,18 +139,24 @@ public class BrakingRulesTests
     public void FromPulsesAloneTheOnsetsSigmaCarriesThePositionNoiseAndTheSmoothersSpread()
     {
         // The rule as stated: 2·√(σ_position / deceleration) for the position noise (D·τ²/2 = σ),
-        // and the smoother's spread, in quadrature with the fit's own σ.
+        // and the smoother's spread, in quadrature with the fit's own σ. (A wheel that does not
+        // slip under braking: with a slip prior the pulses' onset is fitted with the slip's step,
+        // whose own σ is the fit's alone.)
         Trajectory stop = ClosedFormTrajectory.Stop(V100, 1.0, [new StopPhase(0, 0, 0.3), new StopPhase(0, 8 / 0.2, 0.2), new StopPhase(8, 0, 0)]);
         double own = BrakingAnalyzer.Analyze(stop)!.OnsetS.Sigma;
-        double pulses = BrakingAnalyzer.Analyze(stop, pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma;
+        double pulses = BrakingAnalyzer.Analyze(stop, [], null, null, 0.0005, brakeSlip: BrakeSlipPrior.None)!.OnsetS.Sigma;
         double spread = 2 * Math.Sqrt(0.0005 / 8);
         Assert.Equal(Math.Sqrt((own * own) + (spread * spread) + (BrakingAnalyzer.SmootherSpreadS * BrakingAnalyzer.SmootherSpreadS)), pulses, 9);
+
+        // A rise with no step in it (the car's own deceleration) fitted with the slip's step
+        // allowed: the step comes out nil and the onset where the brakes came on, 1.3 s.
+        Assert.Equal(1.3, BrakingAnalyzer.Analyze(stop, [], null, null, 0.0005)!.OnsetS.Value, 0.001);
 
         // With the accelerometer's own samples the onset does not rest on the smoothed trajectory.
         Assert.Equal(own, BrakingAnalyzer.Analyze(stop, rawAccel: (stop.TimeS, stop.AccelMps2), pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma, 12);
 
         // Ten samples or fewer are no accelerometer record: the trajectory's rule applies.
-        Assert.Equal(pulses, BrakingAnalyzer.Analyze(stop, rawAccel: (stop.TimeS[..10], stop.AccelMps2[..10]), pulsePositionSigmaM: 0.0005)!.OnsetS.Sigma, 12);
+        Assert.Equal(pulses, BrakingAnalyzer.Analyze(stop, [], null, (stop.TimeS[..10], stop.AccelMps2[..10]), 0.0005, brakeSlip: BrakeSlipPrior.None)!.OnsetS.Sigma, 12);
     }
 
     [Theory]

@@ -136,6 +136,35 @@ public class SensorTests
         }
     }
 
+    [Theory]
+    [InlineData(0.68, 0.49, 0.163, 0.5)]
+    [InlineData(0.75, 0.62, 0.21, 0.9)]
+    [InlineData(0.6, 0.45, 0.25, 0.3)]
+    public void The_two_axles_of_a_braked_car_together_pass_the_car_s_deceleration(double bias, double frontWeight, double heightOverWheelbase, double g)
+    {
+        // Newton: the tyres' forces add up to m·D. Each axle passes (its force over its load) ×
+        // (its load), so the loads' shares weighted by each axle's multiple of D/g0 sum to one,
+        // whatever the split; and the load the front gains, m·D·h/L (the braking force's moment
+        // at the centre of mass's height), the rear loses.
+        BrakedAxle front = BrakedAxle.Front(bias, frontWeight, heightOverWheelbase);
+        BrakedAxle rear = BrakedAxle.Rear(bias, frontWeight, heightOverWheelbase);
+        double decel = g * 9.80665;
+        double frontLoad = frontWeight + (heightOverWheelbase * g);
+        Assert.Equal(1, (frontLoad * front.WorkAt(decel)) + ((1 - frontLoad) * rear.WorkAt(decel)), 12);
+
+        // Its slip is that multiple of the car-deceleration slip D/(g0·C) (Pacejka's linear range).
+        var slip = new BrakeSlip(20, rear);
+        Assert.Equal(rear.WorkAt(decel) * decel / (9.80665 * 20), slip.At(-decel), 12);
+        Assert.Equal(0, slip.At(1.0));
+
+        // A front bias above the load the front carries then works the front tyres harder than
+        // the car's deceleration and the rear ones less.
+        if (bias > frontLoad)
+        {
+            Assert.True(front.WorkAt(decel) > 1 && rear.WorkAt(decel) < 1);
+        }
+    }
+
     [Fact]
     public void Drawn_brake_slips_stay_in_their_stated_range()
     {
