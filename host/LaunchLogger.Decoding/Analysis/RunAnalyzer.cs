@@ -59,7 +59,9 @@ public static class RunAnalyzer
         }
 
         Estimate[] brakeOn = BrakeSwitchOnsets(run, reconstruction, options);
-        (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (accel.TimeS, accel.ForwardMps2) : null;
+        // The stop is timed on the accelerometer's own samples, on the clock the reconstruction
+        // matched them to (a plain-text file's clock slides by its drift: 6 ms after a minute).
+        (double[], double[])? rawAccel = run.Accel is { Count: > 0 } accel ? (OnPulseClock(accel.TimeS, reconstruction.AccelClockShiftS), accel.ForwardMps2) : null;
         BrakingResult? braking = BrakingAnalyzer.Analyze(reconstruction.Trajectory, brakeOn, options.StopFromMps, rawAccel, PulsePositionSigma(run, reconstruction, reconstructionOptions), [.. reconstruction.BrakingSlideWindows, .. reconstruction.WheelspinWindows], options.BrakeSlip, reconstruction.BrakeSlipDistanceM, reconstruction.BrakeSlipPerMps2, options.BrakeSwitchDelayS is null ? BrakeSwitchTiming.DelaySpanS : 0);
 
         // Nothing reached after brake onset is an acceleration figure.
@@ -91,6 +93,10 @@ public static class RunAnalyzer
     private static IEnumerable<string> NotClearlyReachedNotes(FigureSet figures) =>
         figures.NotClearlyReached.Select(d => FormattableString.Invariant(
             $"{d.Interval.Label} not timed: the speed went only to {d.TopMps / Units.MpsPerMph:0.0} mph ({d.TopMps / Units.MpsPerKmh:0.0} km/h), within 2σ (σ {d.SigmaMps / Units.MpsPerKmh:0.00} km/h) of the interval's end, so the data cannot show the end speed was reached"));
+
+    /// <summary>The sample times <paramref name="timeS"/> moved by <paramref name="shiftS"/> (a copy), or as they are when it is 0.</summary>
+    private static double[] OnPulseClock(double[] timeS, double shiftS) =>
+        shiftS == 0 ? timeS : [.. timeS.Select(t => t + shiftS)];
 
     /// <summary>The pedal's first movement at each closing of the brake switch: the event's time,
     /// less the loop's lag (from the gap the event records, or from the run's brackets) and the

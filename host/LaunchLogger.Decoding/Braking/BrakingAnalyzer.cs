@@ -230,7 +230,7 @@ public static class BrakingAnalyzer
         // is then the steadier answer; a slow one contaminates any level window, so the ramp
         // fit (level and rise together) takes over from SlowRiseS.
         Estimate? fitted = BrakeOnsetFit.Fit(st, sa, t, a, t[0], t[peak], standstillS, out double riseS, slipStepS);
-        Estimate line = DecelerationOnset(st, sa, t[peak], standstillS);
+        Estimate line = DecelerationOnset(st, sa, t[peak], TopFrom(t, trajectory.SpeedMps, peak), standstillS);
         Estimate onset = fitted is not { } f ? line
             : slipStep || riseS >= SlowRiseS || !Agree(line, f) ? f
             : line with { Sigma = Math.Sqrt((line.Sigma * line.Sigma) + (f.Sigma * f.Sigma)) }; // the line's own σ misses the shape of the rise
@@ -270,13 +270,35 @@ public static class BrakingAnalyzer
         return Math.Sqrt((own * own) + (model * model));
     }
 
+    /// <summary>Within this of the highest speed before the stop the trajectory is at its top, m/s:
+    /// a fusion's speed on a flat top (a cruise, a hold after a pull) wanders by a few mm/s, and
+    /// where the brakes come on its error may tip the highest speed past their onset (a generated
+    /// rolling start's: 0.04–0.09 m/s² of acceleration over the last 0.13 s before the onset, the
+    /// speed 5 mm/s up and its peak 5.5 ms late), so the onset is not held back to the peak
+    /// itself but to where the speed first came within this of it.</summary>
+    public const double TopSpeedToleranceMps = 0.02;
+
+    /// <summary>Where the trajectory's speed first came within <see cref="TopSpeedToleranceMps"/>
+    /// of its value at <paramref name="peak"/> and stayed there up to it, s.</summary>
+    private static double TopFrom(double[] t, double[] v, int peak)
+    {
+        int top = peak;
+        while (top > 0 && v[top - 1] >= v[peak] - TopSpeedToleranceMps)
+        {
+            top--;
+        }
+
+        return t[top];
+    }
+
     /// <summary>Onset of the deceleration that ends the run, found on samples (t, a) between
     /// the speed peak and standstill. Deceleration is measured from its level just before the
     /// rise (coasting drag and slope: the mean over 0.3 s to 0.05 s before the rise first passes
     /// 20 % of the full deceleration); a straight line is fitted to the rise between 20 % and 80 %
     /// of the full deceleration (a robust high value, the 90th percentile over the stop), and the
-    /// onset is where that line crosses the level before it.</summary>
-    private static Estimate DecelerationOnset(double[] t, double[] a, double peakS, double standstillS)
+    /// onset is where that line crosses the level before it, no earlier than
+    /// <paramref name="topS"/>, where the speed reached its top (<see cref="TopFrom"/>).</summary>
+    private static Estimate DecelerationOnset(double[] t, double[] a, double peakS, double topS, double standstillS)
     {
         int peak = FigureCalculator.FirstIndexAtOrAfter(t, peakS);
         int stop = FigureCalculator.FirstIndexAtOrAfter(t, standstillS);
@@ -357,7 +379,7 @@ public static class BrakingAnalyzer
         // σ of the crossing: the fit's scatter over the slope, and the sample step.
         double scatter = Math.Sqrt(residual / Math.Max(m - 2, 1) / m);
         double sigma = Math.Sqrt(Math.Pow(scatter / slope, 2) + (gridStep * gridStep / 12));
-        return new Estimate(Math.Clamp(-intercept / slope, t[peak], t[hi]), sigma);
+        return new Estimate(Math.Clamp(-intercept / slope, Math.Min(topS, t[peak]), t[hi]), sigma);
     }
 
     /// <summary>∫ max(−a, 0)·v dt / g0 from <paramref name="fromS"/> to <paramref name="toS"/>,

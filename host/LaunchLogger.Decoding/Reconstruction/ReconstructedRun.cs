@@ -89,6 +89,12 @@ public sealed class ReconstructedRun
     /// a driven wheel that slips, or too few pulses).</summary>
     public Estimate? RollingScale { get; init; }
 
+    /// <summary>How far the accelerometer's samples were moved onto the pulses' clock, s (added to
+    /// the run's own sample times, which stay as read): the match over the launch of a plain-text
+    /// file's samples, whose clock runs apart from the pulses'; 0 when not matched (a log's samples
+    /// carry the box's clock).</summary>
+    public double AccelClockShiftS { get; init; }
+
     /// <summary>The pulse channel used for distance: 0, or 1 when the second channel turned less
     /// under drive (the undriven wheel).</summary>
     public int DistanceChannel { get; init; }

@@ -156,6 +156,7 @@ internal sealed partial class ReconstructionPass
         double offset = wFit * fit.Value / (wPrior + wFit);
         double sigma = Math.Sqrt(1 / (wPrior + wFit));
         a.ShiftTime(-offset);
+        accelClockShiftS = -offset;
         onset = o with { TimeS = o.TimeS - offset, DetectedS = o.DetectedS - offset };
         accelClockOffsetSigmaS = sigma;
         warnings.Add(FormattableString.Invariant($"the accelerometer's clock was matched to the pulses' over the launch: its samples moved by {-offset * 1e3:F1} ms ± {sigma * 1e3:F1}"));

@@ -28,6 +28,7 @@ internal sealed partial class ReconstructionPass
     private double pitchSigmaRad;
     private AccelOnset? onset;
     private double? accelClockOffsetSigmaS;
+    private double accelClockShiftS;
     private KinematicStart? kinematic;
     private double circumferenceSigma;
     private RollingScale? rollingScale;
@@ -219,6 +220,7 @@ internal sealed partial class ReconstructionPass
             FirstPulseDistanceM = pulses is null || !Staged ? null : new Estimate(mpp - fused.PhaseM.Value, fused.PhaseM.Sigma),
             StopS = stopS,
             AccelOnlyFirstFoot = AccelFirstFoot(steps, firstMotion.Value),
+            AccelClockShiftS = accelClockShiftS,
             WheelspinWindows = spin,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),

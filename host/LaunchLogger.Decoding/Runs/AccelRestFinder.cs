@@ -16,7 +16,12 @@ namespace LaunchLogger.Decoding.Runs;
 /// time to the end (the level read from the thousands of samples of that final rest: the noise
 /// over √n).</para>
 /// <para>Only records that end quiet are split (the speed is known nowhere else); a cut falls in
-/// the middle of each rest between two stretches of motion.</para>
+/// the middle of each rest between two stretches of motion. A record may end at a cruise as
+/// quiet as a rest: then the speeds from its end are all off by that cruise's, and a cruise
+/// before at the same speed would read as a rest. Such a record is not split when any quiet
+/// stretch before its end reads clearly backwards (below minus a rest's allowance), as the
+/// opening rest of a record that launched and ends cruising does: a car does not reverse within
+/// a run.</para>
 /// </remarks>
 internal static class AccelRestFinder
 {
@@ -136,12 +141,19 @@ internal static class AccelRestFinder
 
         double levelSigma = noise / Math.Sqrt(quietSamples);
         var cuts = new List<double>();
-        for (int s = 1; s + 1 < stretches.Count; s++)
+        for (int s = 0; s + 1 < stretches.Count; s++)
         {
             (int from, int to) = stretches[s];
             int middle = (from + to) / 2;
             double allowed = RestSpeedMps + (3 * levelSigma * (t[^1] - t[middle]));
-            if (Math.Abs(speed[middle]) <= allowed)
+            if (speed[middle] < -allowed)
+            {
+                // Going backwards: the record does not end at rest but at a cruise as steady (its
+                // speed unknown), and every speed above is off by it.
+                return [];
+            }
+
+            if (s > 0 && Math.Abs(speed[middle]) <= allowed)
             {
                 cuts.Add(t[middle]);
             }

@@ -118,6 +118,33 @@ public class BrakingAnalyzerEdgeTests
         Assert.InRange(r.OnsetS.Sigma, 0.001, 0.02);
     }
 
+    [Theory]
+    [InlineData(0.05, 800)]
+    [InlineData(0.1, 800)]
+    [InlineData(0.1, 200)]
+    public void A_speed_top_that_a_smoother_tipped_past_the_onset_does_not_hold_the_onset_back(double bumpMps2, double rateHz)
+    {
+        // Cruise at 25 m/s; the brakes come on at 2.0 s, the deceleration rising to 7 m/s² over
+        // 0.3 s, then held to standstill (closed form, kinematics). The accelerometer's own record
+        // is that motion sampled at rateHz. The trajectory it is placed on carries the kind of error
+        // a fusion leaves on a flat top (a generated rolling start's, 0.04–0.09 m/s² over the last
+        // 0.13 s before its onset): bumpMps2 of acceleration from 1.9 s on, so its highest speed,
+        // 5–10 mm/s up, lies 2–4 ms after the onset. The line through the rise was clamped to the
+        // top speed's sample and gave that instead (+2.5 and +5.0 ms); the rise began at 2.0 s.
+        const double Rise = 7 / 0.3;
+        Trajectory truth = ClosedFormTrajectory.Stop(25, 2.0, [new StopPhase(0, Rise, 0.3), new StopPhase(7, 0, 0)]);
+        Trajectory tipped = ClosedFormTrajectory.Stop(25, 1.9, [new StopPhase(-bumpMps2, 0, 0.1), new StopPhase(-bumpMps2, Rise, 0.3), new StopPhase(7, 0, 0)]);
+        double topS = tipped.TimeS[Array.IndexOf(tipped.SpeedMps, tipped.SpeedMps.Max())];
+        Assert.InRange(topS - 2.0, 0.002, 0.005);
+        double[] rawT = [.. Enumerable.Range(0, (int)(truth.TimeS[^1] * rateHz)).Select(i => i / rateHz)];
+        double[] rawA = [.. rawT.Select(t => truth.ValueAt(truth.AccelMps2, t))];
+
+        BrakingResult r = BrakingAnalyzer.Analyze(tipped, rawAccel: (rawT, rawA))!;
+
+        Assert.Equal("deceleration onset", r.OnsetMethod);
+        Assert.InRange(r.OnsetS.Value - 2.0, -0.001, 0.001);
+    }
+
     /// <summary>Cruise at 25 m/s to 1 s, drive at 1 m/s² to 3 s, coast at 0.7 m/s² for 0.5 s,
     /// then a brake rise to 5 m/s² over 0.2 s and a constant 5 m/s² to standstill.</summary>
     private static Trajectory DriveCoastStop() =>

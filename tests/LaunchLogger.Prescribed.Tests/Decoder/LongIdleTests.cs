@@ -58,6 +58,28 @@ public class LongIdleTests
         Assert.True(check.Failure is null, $"{r.Spec}: {check.Failure}");
     }
 
+    [Theory]
+    [MemberData(nameof(Cases))]
+    public void The_brake_onset_from_files_is_timed_on_the_matched_clock(int seed, double driftPpm)
+    {
+        PrescribedRecord r = Record(seed, driftPpm);
+        RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeText(r).Runs);
+        RunAnalysis steady = Assert.Single(DecoderHarness.AnalyzeText(Record(seed, 0)).Runs);
+        TruthStop stop = Assert.Single(r.Truth).Stop!;
+
+        // The stop is timed on the accelerometer's own samples. Read on their clock as the file
+        // gave it, the onset moved with the slide the launch's match takes out (drift × 60 s and
+        // more: 6–7 ms) against the same record from an accelerometer whose clock keeps time. On
+        // the matched clock what is left is the drift since the launch, drift × (onset − first
+        // motion), 1.2–1.7 ms here, and the two matches' own errors (σ 0.4–0.6 ms each; within
+        // 0.35 ms of that on these records, measured): 1 ms.
+        double error = a.Braking!.OnsetS.Value - stop.OnsetS;
+        double moved = a.Braking.OnsetS.Value - steady.Braking!.OnsetS.Value;
+        double sinceLaunch = driftPpm * 1e-6 * (stop.OnsetS - Assert.Single(r.Truth).FirstMotionS!.Value);
+        Assert.True(Math.Abs(moved - sinceLaunch) < 1e-3, $"{r.Spec}: brake onset {moved * 1e3:+0.00;-0.00} ms from the steady clock's, {sinceLaunch * 1e3:+0.00;-0.00} ms of drift since the launch");
+        Assert.True(Math.Abs(error) <= 3 * a.Braking.OnsetS.Sigma, $"{r.Spec}: brake onset off by {error * 1e3:+0.00;-0.00} ms, σ {a.Braking.OnsetS.Sigma * 1e3:F2} ms");
+    }
+
     private static PrescribedRecord Record(int seed, double driftPpm)
     {
         PrescribedRecordSpec spec = Records.Standing(seed, spinUp: true) with { Shape = PrescribedShapes.LongIdle(new Random(seed)) };

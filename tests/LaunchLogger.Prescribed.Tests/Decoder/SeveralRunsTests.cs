@@ -126,4 +126,25 @@ public class SeveralRunsTests
         RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeAccelerometerOnly(r).Runs);
         Assert.True(a.Reconstruction.Staged);
     }
+
+    [Theory]
+    [InlineData(3, false)]
+    [InlineData(5, false)]
+    [InlineData(3, true)]
+    public void A_record_that_ends_at_a_cruise_as_steady_as_one_before_stays_one_run(int seed, bool withPulses)
+    {
+        // Launch to 15 m/s, a 4-s cruise, on to 21 m/s and back to 15 m/s, and the record ends in a
+        // 4-s cruise at 15 m/s: one run that never stops again. Without pulses the speed is known
+        // only from a rest the record ends in; integrated back from this end as if it were one,
+        // the first cruise reads 0 m/s (a rest) and the opening rest −15 m/s, which no car in a run
+        // reaches. The pulses never pause, so with them there is no rest to find at all.
+        var b = new MotionProfileBuilder().Hold(2).Ramp(0.2, 0, 3).Constant(4.8, 3).Ramp(0.2, 3, 0).Hold(4)
+            .Ramp(0.2, 0, 2).Constant(2.8, 2).Ramp(0.2, 2, 0).Hold(1).Ramp(0.2, 0, -2).Constant(2.8, -2).Ramp(0.2, -2, 0).Hold(4);
+        var shape = new Shape("launch, 4 s cruise, 21 m/s and back, ends cruising", ShapeKind.StandingStart, b.Build());
+        PrescribedRecord r = (Records.Standing(seed) with { Shape = shape }).Generate();
+        Assert.Single(r.Truth);
+        SessionAnalysis s = withPulses ? DecoderHarness.AnalyzeText(r) : DecoderHarness.AnalyzeAccelerometerOnly(r);
+        RunAnalysis a = Assert.Single(s.Runs);
+        Assert.True(a.Reconstruction.Staged, $"{r.Spec}: not staged");
+    }
 }
