@@ -1,3 +1,5 @@
+using MathNet.Numerics;
+
 namespace LaunchLogger.Decoding.Braking;
 
 /// <summary>The pedal's first movement from a brake switch whose delay was not measured and
@@ -16,9 +18,9 @@ namespace LaunchLogger.Decoding.Braking;
 /// generator (host/LaunchLogger.Prescribed, <c>RunMarks.BrakeOnsetS</c>: "when the deceleration
 /// of the run's stop begins to build", the switch closing its delay after that) and our simulator
 /// (<c>BrakeSystem</c>: the pedal's demand rises from the moment it is pressed) both take τ = 0.
-/// A real car's is taken to be a few milliseconds on a firm application (an assumption); τ is uniform in
-/// [0, <see cref="DeadTimeHighS"/>], so p lies in [m − τ_max, m] about the fitted onset m, its
-/// edges blurred by the fit's σ.</para>
+/// A real car's is taken to be a few milliseconds on a firm application (an assumption); τ is
+/// uniform in [0, <see cref="DeadTimeHighS"/>], so p lies in [m − τ_max, m] about the fitted onset
+/// m, its edges blurred by the fit's σ.</para>
 /// <para>The onset is the product of the two (each a window blurred by a Gaussian: a difference
 /// of two normal distribution functions), integrated on a fine grid over the switch's window:
 /// its mean and its standard deviation. With the reading r, the lag's mean ℓ̄ and σ b_s, the
@@ -41,8 +43,9 @@ public static class BrakeOnsetFusion
     /// clearance in a few milliseconds, and neither our generator nor our simulator has any.
     /// 10 ms rather than 5: on the generator's switch stops (`bench accuracy --runs 1600 --seed 2
     /// --calibrated-tyre`) the quick rises' onset p95 goes 3.3 → 5.3 ms and the whole group's
-    /// stopping distance p95 stays at 0.30 m, a small price for room against a real car's lag. A car whose brakes lag longer reads its onset late by the excess, at
-    /// most to the switch's window, whose latest edge the product never passes.</summary>
+    /// stopping distance p95 stays at 0.30 m, a small price for room against a real car's lag. A
+    /// car whose brakes lag longer reads its onset late by the excess, at most to the switch's
+    /// window, whose latest edge the product never passes.</summary>
     public const double DeadTimeHighS = 0.010;
 
     /// <summary>The switch's and the deceleration's windows are taken for one event while the
@@ -120,15 +123,7 @@ public static class BrakeOnsetFusion
         return zLow >= 0 ? UpperTail(zLow) - UpperTail(zHigh) : UpperTail(-zHigh) - UpperTail(-zLow);
     }
 
-    /// <summary>1 − Φ(z), the standard normal's upper tail.</summary>
-    private static double UpperTail(double z) => z >= 0 ? 0.5 * Erfc(z / Math.Sqrt(2)) : 1 - (0.5 * Erfc(-z / Math.Sqrt(2)));
-
-    /// <summary>erfc(x) for x ≥ 0, relative error below 1.2e-7 everywhere (W. H. Press et al.,
-    /// Numerical Recipes, 2nd ed., §6.2, erfcc: a Chebyshev fit).</summary>
-    private static double Erfc(double x)
-    {
-        double t = 1 / (1 + (0.5 * x));
-        double poly = -(x * x) - 1.26551223 + (t * (1.00002368 + (t * (0.37409196 + (t * (0.09678418 + (t * (-0.18628806 + (t * (0.27886807 + (t * (-1.13520398 + (t * (1.48851587 + (t * (-0.82215223 + (t * 0.17087277)))))))))))))))));
-        return t * Math.Exp(poly);
-    }
+    /// <summary>1 − Φ(z), the standard normal's upper tail, from Math.NET Numerics' erfc (accurate
+    /// far into the tail, where 1 − Φ computed as a difference would round to 0).</summary>
+    private static double UpperTail(double z) => z >= 0 ? 0.5 * SpecialFunctions.Erfc(z / Math.Sqrt(2)) : 1 - (0.5 * SpecialFunctions.Erfc(-z / Math.Sqrt(2)));
 }
