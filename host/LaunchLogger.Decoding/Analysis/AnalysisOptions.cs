@@ -31,7 +31,8 @@ public sealed record AnalysisOptions
     public Weather? Weather { get; init; }
 
     /// <summary>How long the brake switch takes to close after the pedal starts to move, s,
-    /// when measured (on the bench or by calibration); subtracted from the switch's time. Null:
+    /// when measured (on the bench); subtracted from the switch's time. When null, the
+    /// <see cref="Calibration"/>'s <c>brake_switch_delay_s</c> is taken if it has one. Null:
     /// not measured, taken as uniform over 0–30 ms (<see cref="Braking.BrakeSwitchTiming"/>), and,
     /// where an accelerometer was logged, combined with the deceleration's onset
     /// (<see cref="Braking.BrakeOnsetFusion"/>); measured, the switch alone times the onset.</summary>

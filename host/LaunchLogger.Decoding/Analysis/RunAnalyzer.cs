@@ -48,6 +48,12 @@ public static class RunAnalyzer
             reconstructionOptions = reconstructionOptions with { SavedToothGaps = gaps };
         }
 
+        if (options.BrakeSwitchDelayS is null && options.Calibration is { BrakeSwitchDelayS: { } switchDelay } measuredSwitch)
+        {
+            // A switch delay measured on the bench and saved with the car's settings.
+            options = options with { BrakeSwitchDelayS = switchDelay, BrakeSwitchDelaySigmaS = measuredSwitch.BrakeSwitchDelaySigmaS ?? options.BrakeSwitchDelaySigmaS };
+        }
+
         ReconstructedRun reconstruction;
         try
         {

@@ -142,6 +142,24 @@ public static class CalibrationFile
             }
         }
 
+        if (settings.BrakeSwitchDelayS is { } delay && !(delay >= 0 && delay < 0.2))
+        {
+            return Invariant($"brake_switch_delay_s must be from 0 to 0.2 s (was {delay})");
+        }
+
+        if (settings.BrakeSwitchDelaySigmaS is { } delaySigma)
+        {
+            if (settings.BrakeSwitchDelayS is null)
+            {
+                return "brake_switch_delay_sigma_s is given without brake_switch_delay_s";
+            }
+
+            if (!(delaySigma > 0 && delaySigma < 0.05))
+            {
+                return Invariant($"brake_switch_delay_sigma_s must be more than 0 and less than 0.05 s (was {delaySigma})");
+            }
+        }
+
         return CheckToothSpacing(settings.ToothSpacing, settings.ToothSpacingSigma);
     }
 

@@ -64,6 +64,15 @@ public sealed record CalibrationSettings
     /// <summary>1-σ of <see cref="AccelForwardBiasMps2"/>, m/s².</summary>
     public double? AccelForwardBiasSigmaMps2 { get; init; }
 
+    /// <summary>How long the brake switch takes to close after the pedal starts to move, s, where
+    /// it was measured (a bench rig that logs the pedal's first travel against the switch; see
+    /// hardware-notes/calibration.md §6). Without it the delay is taken as unknown over 0–30 ms.</summary>
+    public double? BrakeSwitchDelayS { get; init; }
+
+    /// <summary>1-σ of <see cref="BrakeSwitchDelayS"/>, s (the spread over repeated presses and
+    /// the rig's own resolution); 1 ms when not given.</summary>
+    public double? BrakeSwitchDelaySigmaS { get; init; }
+
     /// <summary>Relative length of each tooth gap of the distance channel, in pulse order from
     /// a reference tooth (mean 1.0); null when not mapped.</summary>
     /// <remarks>Entry k is the gap that ends at the edge where the box's hardware pulse counter

@@ -23,6 +23,8 @@ public sealed class CalibrationFileTests : IDisposable
         MountingYawSigmaDeg = 0.04,
         ToothSpacing = [1.01, 0.99, 1.02, 0.98],
         ToothSpacingSigma = [0.0001, 0.0001, 0.0002, 0.0001],
+        BrakeSwitchDelayS = 0.012,
+        BrakeSwitchDelaySigmaS = 0.0015,
     };
 
     [Fact]
@@ -71,6 +73,10 @@ public sealed class CalibrationFileTests : IDisposable
     [InlineData("tooth map not averaging one", "{ \"tooth_spacing\": [1.1, 1.1, 1.1] }", "average 1")]
     [InlineData("sigmas not matching the map", "{ \"tooth_spacing\": [1.0, 1.0], \"tooth_spacing_sigma\": [0.1] }", "as many entries")]
     [InlineData("mounting pitch out of range", "{ \"mounting_pitch_deg\": 60 }", "mounting_pitch_deg")]
+    [InlineData("switch delay negative", "{ \"brake_switch_delay_s\": -0.01 }", "brake_switch_delay_s")]
+    [InlineData("switch delay in ms by mistake", "{ \"brake_switch_delay_s\": 12 }", "brake_switch_delay_s")]
+    [InlineData("switch delay's σ alone", "{ \"brake_switch_delay_sigma_s\": 0.001 }", "without brake_switch_delay_s")]
+    [InlineData("switch delay's σ zero", "{ \"brake_switch_delay_s\": 0.01, \"brake_switch_delay_sigma_s\": 0 }", "brake_switch_delay_sigma_s")]
     public void UnusableFilesAreRefusedInOneLine(string name, string text, string expected)
     {
         _ = name;

@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Shapes;
 using LaunchLogger.Prescribed.Truth;
@@ -70,6 +71,12 @@ public class BrakeSwitchStopTests
         Decoding.Runs.DecodedRun log = Assert.Single(Decoding.Runs.LogReader.Read(record.ToLog(), "switch").Runs);
 
         BrakingResult measured = RunAnalyzer.Analyze(log, new AnalysisOptions { BrakeSwitchDelayS = 0.004, BrakeSwitchDelaySigmaS = 0.0005 }).Braking!;
+
+        // The same delay saved with the car's settings (report --settings) times the stop alike.
+        var saved = new CalibrationSettings { BrakeSwitchDelayS = 0.004, BrakeSwitchDelaySigmaS = 0.0005 };
+        BrakingResult fromSettings = RunAnalyzer.Analyze(log, new AnalysisOptions { Calibration = saved }).Braking!;
+        Assert.Equal(measured.OnsetS, fromSettings.OnsetS);
+        Assert.Equal(measured.StoppingDistanceM, fromSettings.StoppingDistanceM);
 
         // Told the delay, only the loop's 1 ms gap is left: uniform, σ = 1 ms / √12 (and 0.5 ms
         // for the measurement) — the truth lies within 3σ of that, about 1.7 ms. The switch
