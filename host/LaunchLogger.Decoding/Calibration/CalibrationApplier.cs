@@ -12,7 +12,9 @@ namespace LaunchLogger.Decoding.Calibration;
 /// then reads as a static one (<see cref="TyrePrior"/>). A note in the run's warnings says what changed.</para>
 /// <para>Applied by <see cref="Analysis.RunAnalyzer"/> through the reconstruction's options, not
 /// here: the accelerometer's forward scale (<see cref="CalibrationSettings.AccelForwardScale"/>),
-/// which divides the forward input and lets a standing start measure the pulses' scale.</para>
+/// which divides the forward input and lets a standing start measure the pulses' scale; and the
+/// brake switch's measured delay (<see cref="CalibrationSettings.BrakeSwitchDelayS"/>), which
+/// times each stop's onset from the switch alone.</para>
 /// <para>Not applied here: the mounting pitch, which the grade estimate subtracts from the
 /// resting pitch (<see cref="CalibrationSettings.MountingPitchRad"/>), and the yaw. The
 /// tooth-spacing map goes to the reconstruction (<see cref="ToothGaps"/>), which turns it to the
