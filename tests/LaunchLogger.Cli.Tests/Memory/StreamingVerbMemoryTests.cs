@@ -2,6 +2,7 @@ using LaunchLogger.Archive.Importing;
 using LaunchLogger.Cli.Verbs;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Runs;
+using Xunit.Abstractions;
 
 namespace LaunchLogger.Cli.Tests.Memory;
 
@@ -11,7 +12,7 @@ namespace LaunchLogger.Cli.Tests.Memory;
 /// log's peak may exceed the short one's by at most a few runs — kept, its twelve more runs would
 /// add one run read and analysed each.</summary>
 [Collection(VerbMemoryCollection.Name)]
-public class StreamingVerbMemoryTests
+public class StreamingVerbMemoryTests(ITestOutputHelper log)
 {
     /// <summary>Runs in the short log.</summary>
     private const int Short = 3;
@@ -163,6 +164,7 @@ public class StreamingVerbMemoryTests
             }
         }
 
+        log.WriteLine($"reanalyse: peak {peaks[0]:N0} bytes without the damage, {peaks[1]:N0} with; allowed growth {fillerBytes / 4:N0}");
         Assert.True(peaks[1] - peaks[0] < fillerBytes / 4, $"reanalyse peaked at {peaks[1]:N0} bytes live with {fillerBytes:N0} bytes of damage after the runs and at {peaks[0]:N0} without");
     }
 
@@ -176,18 +178,20 @@ public class StreamingVerbMemoryTests
             int analysed = SessionAnalyzer.Analyze(LogReader.ReadFile(log).Runs).Runs.Count;
             return () => Assert.Equal(runs, analysed);
         });
+        log.WriteLine($"keeping every run: peak {shortPeak:N0} bytes on {Short} runs, {longPeak:N0} on {Long}; one run {OneRun.Value:N0}, the bound {Allowed:N0}");
         Assert.True(longPeak - shortPeak > Allowed, $"keeping every run grew the peak by {longPeak - shortPeak:N0} bytes from {Short} to {Long} runs, within the bound {Allowed:N0}");
     }
 
     private static long Allowed => (long)(GrowthInRuns * OneRun.Value);
 
-    private static void AssertBounded(string verb, Func<string, string, int, Action> run, Action<string>? prepare = null)
+    private void AssertBounded(string verb, Func<string, string, int, Action> run, Action<string>? prepare = null)
     {
         (long shortPeak, long longPeak) = Peaks(run, prepare);
 
         // A run as read holds at least its records, which are most of the log's bytes: a
         // smaller figure is a measurement gone wrong.
         long logBytes = SimulatedLogs.Default.LogBytes.Length;
+        log.WriteLine($"{verb}: peak {shortPeak:N0} bytes on {Short} runs, {longPeak:N0} on {Long}; one run {OneRun.Value:N0} (its log {logBytes:N0}), the growth allowed {Allowed:N0}");
         Assert.True(OneRun.Value > logBytes, $"one run read and analysed ({OneRun.Value:N0} bytes) should hold more than its log's {logBytes:N0} bytes");
         Assert.True(
             longPeak - shortPeak < Allowed,
