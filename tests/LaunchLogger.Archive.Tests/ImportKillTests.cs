@@ -4,10 +4,11 @@ using LaunchLogger.Archive.Tests.Support;
 using LaunchLogger.Cli;
 using LaunchLogger.Cli.Verbs;
 using Microsoft.Data.Sqlite;
+using Xunit.Abstractions;
 
 namespace LaunchLogger.Archive.Tests;
 
-public class ImportKillTests
+public class ImportKillTests(ITestOutputHelper log)
 {
     private const int Kills = 50;
     private const int Logs = 3;
@@ -45,6 +46,7 @@ public class ImportKillTests
         }
 
         // The kills must have landed inside imports, not after them.
+        log.WriteLine($"{killedMidway} of {Kills} kills hit a running import");
         Assert.True(killedMidway >= Kills * 3 / 4, $"only {killedMidway} of {Kills} kills hit a running import");
     }
 
