@@ -57,16 +57,54 @@ public class BrakeOnsetFitTests
         Assert.Equal(0.3, rise, 0.006);
     }
 
-    [Fact]
-    public void WithoutNoiseSigmaIsTheSampleStepAndTheShapeOfTheRise()
+    [Theory]
+    [InlineData(0.3)]
+    [InlineData(1.0)]
+    public void WithoutNoiseSigmaIsTheSampleStepAndTheShapeOfTheRise(double riseS)
     {
         // The stated rule: the statistical width at least a sample period over √12, with a model
-        // error of 1 % of the rise plus 4 ms for a real rise's shape, in quadrature.
-        Signal s = Signal.Make(levelDecel: 0.3, onsetS: 4.0037, riseS: 1.0, plateauDecel: 7, standstillS: 9);
+        // error of 1 % of the rise plus 4 ms for a real rise's shape, in quadrature. A slow rise
+        // (from 0.5 s) is timed on its foot, a quarter of it, where the same shape moves the
+        // onset (1/4)² as far: 1 % × 1 s / 16 + 4 ms.
+        Signal s = Signal.Make(levelDecel: 0.3, onsetS: 4.0037, riseS: riseS, plateauDecel: 7, standstillS: 9);
         Estimate onset = Fit(s, out double rise)!.Value;
-        double model = (BrakeOnsetFit.ModelErrorPerRise * rise) + BrakeOnsetFit.ModelErrorS;
+        double share = riseS >= BrakeOnsetFit.LocalRiseS ? BrakeOnsetFit.LocalShare : 1;
+        double model = (BrakeOnsetFit.ModelErrorPerRise * rise * share * share) + BrakeOnsetFit.ModelErrorS;
         double step = 1 / RateHz / Math.Sqrt(12);
-        Assert.Equal(Math.Sqrt((step * step) + (model * model)), onset.Sigma, 6);
+        Assert.Equal(Math.Sqrt((step * step) + (model * model)), onset.Sigma, 4);
+        Assert.Equal(riseS, rise, 0.01);
+    }
+
+    /// <summary>Rises that are not straight: the slope changes by κ along the rise, growing
+    /// (a pedal eased on, κ > 0) or falling off (pressure building like a lag, κ < 0); the
+    /// deceleration over the rise is level + P·(u + κ·(u² − u)/2), u = (t − t₀)/T, whose foot is t₀
+    /// by construction (closed form). A straight line fitted over the whole rise moves its foot by
+    /// about κ·T/12 (the least squares of a quadratic by a line), the model error's 1 % of the
+    /// rise at κ ≈ 0.12; over its first quarter the foot moves (1/4)² as far.</summary>
+    [Theory]
+    [InlineData(1.0, 0.1)]
+    [InlineData(1.0, -0.1)]
+    [InlineData(2.0, 0.1)]
+    [InlineData(2.0, -0.1)]
+    [InlineData(3.5, 0.1)]
+    [InlineData(3.5, -0.1)]
+    public void ASlowRiseThatIsNotStraightIsTimedOnItsFootWithinSigma(double riseS, double kappa)
+    {
+        const double onsetS = 4.0037, level = 0.3, plateau = 7;
+        int n = (int)(12 * RateHz);
+        double[] t = new double[n], a = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            t[i] = i / RateHz;
+            double u = Math.Clamp((t[i] - onsetS) / riseS, 0, 1);
+            a[i] = -(level + ((plateau - level) * (u + (kappa * ((u * u) - u) / 2))));
+        }
+
+        Estimate onset = BrakeOnsetFit.Fit(t, a, null, null, 0, 1.0, 12, out double rise)!.Value;
+        double error = onset.Value - onsetS;
+        double wholeRule = (BrakeOnsetFit.ModelErrorPerRise * riseS) + BrakeOnsetFit.ModelErrorS;
+        Assert.True(Math.Abs(error) <= onset.Sigma, FormattableString.Invariant($"onset {error * 1e3:+0.00;-0.00} ms, σ {onset.Sigma * 1e3:0.00} ms, rise {rise:0.000} s"));
+        Assert.True(onset.Sigma < 0.5 * wholeRule, FormattableString.Invariant($"σ {onset.Sigma * 1e3:0.00} ms against {wholeRule * 1e3:0.00} ms"));
     }
 
     [Fact]

@@ -117,19 +117,8 @@ public class BrakeSwitchStopTests
             double decel = 9.80665 * (0.5 + (0.5 * random.NextDouble()));
             double delay = 0.005 + (0.020 * i / (Stops - 1));
             bool polled = i % 3 != 2;
-            PrescribedRecordSpec spec = Records.Standing(i + 40) with
-            {
-                Shape = PrescribedShapes.CruiseThenStop(speed, rise, decel, cruiseS: 2 + random.NextDouble()),
-                Polled = polled ? new PolledCounter(1e-4 * Math.Pow(100, random.NextDouble()), 0.1, 1, 0.020) : null,
-                BrakeSwitchDelayS = delay,
-            };
-            PrescribedRecord record = spec.Generate();
-            BrakingResult braking = Assert.Single(DecoderHarness.AnalyzeLog(record).Runs).Braking!;
-            TruthStop truth = Assert.Single(record.Truth).Stop!;
-            double onsetError = braking.OnsetS.Value - truth.OnsetS;
-            double distanceError = braking.StoppingDistanceM.Value - truth.StoppingDistanceM;
-            double z = onsetError / braking.OnsetS.Sigma;
-            double distanceZ = distanceError / braking.StoppingDistanceM.Sigma;
+            PrescribedRecordSpec spec = CruiseStop(i + 40, speed, rise, decel, delay, polled ? 100 : null, random);
+            (BrakingResult braking, double onsetError, double distanceError, double z, double distanceZ) = Decode(spec);
 
             // Both used; every stop within 3σ; a quick rise meets the distance's goal, and so its
             // onset's share of it; a slow one the onset's goal.
@@ -141,7 +130,7 @@ public class BrakeSwitchStopTests
             failed += fine ? 0 : 1;
             within2 += Math.Abs(z) <= 2 ? 1 : 0;
             distanceWithin2 += Math.Abs(distanceZ) <= 2 ? 1 : 0;
-            lines.Add((fine ? "  " : "✗ ") + FormattableString.Invariant($"{spec}, delay {delay * 1e3:0.0} ms: {braking.OnsetMethod}, onset {onsetError * 1e3:+0.0;-0.0} ms (σ {braking.OnsetS.Sigma * 1e3:0.0} ms, {z:+0.0;-0.0}σ), distance {distanceError:+0.000;-0.000} m ({distanceZ:+0.0;-0.0}σ)"));
+            lines.Add(Line(fine, spec, delay, braking, onsetError, distanceError));
         }
 
         string all = string.Join("\n", lines);
@@ -149,4 +138,65 @@ public class BrakeSwitchStopTests
         Assert.True(within2 >= 0.95 * Stops, all);
         Assert.True(distanceWithin2 >= 0.95 * Stops, all);
     }
+
+    /// <summary>Slow rises (0.5–2 s) and steady rises through the whole stop, the delay at either
+    /// end of its 5–25 ms range, where the switch's window alone leaves the onset 10 ms off its
+    /// centre. The generator's rises are straight, so the deceleration's fit finds their foot to a
+    /// millisecond or two; an allowance for a real rise's shape that grows with the whole rise (1 %
+    /// of it: 35 ms on a 3.5-s steady rise) left the fit wider than the switch's window, and these
+    /// stops 10–12 ms and 0.3–0.5 m off (bench accuracy --seed 1 --calibrated-tyre, runs 402, 422,
+    /// 426, 448).</summary>
+    [Fact]
+    public void On_slow_and_steady_rises_the_deceleration_still_narrows_the_switch_s_window()
+    {
+        // Issue #9's goal for the stops from cruise, 0.3 m, leaves the onset 0.3 / 40 s = 7.5 ms
+        // at 40 m/s, as in the test above.
+        const double distanceGoalM = 0.3, onsetGoalS = 0.0075;
+        var random = new Random(20261206);
+        int failed = 0;
+        var lines = new List<string>();
+        for (int i = 0; i < 12; i++)
+        {
+            bool steady = i % 3 == 0;
+            double speed = 30 + (6 * random.NextDouble());
+            double rise = steady ? double.PositiveInfinity : 0.5 + (1.5 * random.NextDouble());
+            double decel = steady ? 3 + (5 * random.NextDouble()) : 9.80665 * (0.5 + (0.5 * random.NextDouble()));
+            double delay = i % 2 == 0 ? 0.005 : 0.025;
+            bool polled = i % 4 != 3;
+            PrescribedRecordSpec spec = CruiseStop(i + 80, speed, rise, decel, delay, polled ? 10 : null, random);
+            (BrakingResult braking, double onsetError, double distanceError, double z, double distanceZ) = Decode(spec);
+            bool fine = braking.OnsetMethod == BrakingAnalyzer.FusedMethod
+                && Math.Abs(z) <= 3 && Math.Abs(distanceZ) <= 3
+                && Math.Abs(distanceError) <= distanceGoalM && Math.Abs(onsetError) <= onsetGoalS;
+            failed += fine ? 0 : 1;
+            lines.Add(Line(fine, spec, delay, braking, onsetError, distanceError));
+        }
+
+        Assert.True(failed == 0, string.Join("\n", lines));
+    }
+
+    /// <summary>A stop from a 2–3 s cruise with a switch of <paramref name="delay"/>, its loop polled
+    /// every 0.1 ms to <paramref name="pollSpan"/> times that (stalling 20 ms about once a second),
+    /// or beside exact edges when null; the cruise's length and the poll drawn from <paramref name="random"/>.</summary>
+    private static PrescribedRecordSpec CruiseStop(int seed, double speed, double rise, double decel, double delay, double? pollSpan, Random random) => Records.Standing(seed) with
+    {
+        Shape = PrescribedShapes.CruiseThenStop(speed, rise, decel, cruiseS: 2 + random.NextDouble()),
+        Polled = pollSpan is { } span ? new PolledCounter(1e-4 * Math.Pow(span, random.NextDouble()), 0.1, 1, 0.020) : null,
+        BrakeSwitchDelayS = delay,
+    };
+
+    /// <summary>The record written as a log and decoded: its stop, the errors against the
+    /// generator's truth, and those in units of their σ.</summary>
+    private static (BrakingResult Braking, double OnsetError, double DistanceError, double Z, double DistanceZ) Decode(PrescribedRecordSpec spec)
+    {
+        PrescribedRecord record = spec.Generate();
+        BrakingResult braking = Assert.Single(DecoderHarness.AnalyzeLog(record).Runs).Braking!;
+        TruthStop truth = Assert.Single(record.Truth).Stop!;
+        double onsetError = braking.OnsetS.Value - truth.OnsetS;
+        double distanceError = braking.StoppingDistanceM.Value - truth.StoppingDistanceM;
+        return (braking, onsetError, distanceError, onsetError / braking.OnsetS.Sigma, distanceError / braking.StoppingDistanceM.Sigma);
+    }
+
+    private static string Line(bool fine, PrescribedRecordSpec spec, double delay, BrakingResult braking, double onsetError, double distanceError) =>
+        (fine ? "  " : "✗ ") + FormattableString.Invariant($"{spec}, delay {delay * 1e3:0.0} ms: {braking.OnsetMethod}, onset {onsetError * 1e3:+0.0;-0.0} ms (σ {braking.OnsetS.Sigma * 1e3:0.0} ms, {onsetError / braking.OnsetS.Sigma:+0.0;-0.0}σ), distance {distanceError:+0.000;-0.000} m ({distanceError / braking.StoppingDistanceM.Sigma:+0.0;-0.0}σ)");
 }
