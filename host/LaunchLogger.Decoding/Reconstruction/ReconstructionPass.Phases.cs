@@ -28,10 +28,17 @@ internal sealed partial class ReconstructionPass
         // which the onset fit on those instants cannot see.
         double samplePlacement = accel is null ? 0 : accel.PeriodS / Math.Sqrt(12);
         Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, Math.Sqrt((o.SigmaS * o.SigmaS) + (samplePlacement * samplePlacement) + Square(TimeAxisOffsetSigma(o.TimeS)))) : null;
-        if (fromAccel is { } fa && pulses != null && fa.Value >= pulses.HiS[0])
+        if (fromAccel is { } fa && pulses != null && fa.Value > pulses.HiS[0] - (OnsetBoundSigmas * fa.Sigma))
         {
-            warnings.Add("the accelerometer onset came after the first pulse; it was not used");
-            fromAccel = null;
+            // Motion begins by the end of the first pulse's bracket: a tooth that sat at the
+            // pickup fires as the wheel first turns, so an onset read within its σ of that pulse
+            // may lie a little after it. The bound then cuts the onset's normal there; only an
+            // onset further after it than the same 3σ contradicts the pulses.
+            fromAccel = BoundedAbove(fa, pulses.HiS[0]);
+            if (fromAccel is null)
+            {
+                warnings.Add("the accelerometer onset came after the first pulse; it was not used");
+            }
         }
 
         Estimate? fromPulses = kinematic is { } k ? new Estimate(k.TimeS, k.SigmaS) : null;
@@ -82,6 +89,30 @@ internal sealed partial class ReconstructionPass
         double start = motionHintS ?? accel!.TimeS[0];
         warnings.Add("the accelerometer shows no clear onset of motion: first motion is taken from the box's own mark or the start of the samples");
         return new Estimate(start, 0.05);
+    }
+
+    /// <summary>How many of its σ an accelerometer onset may lie after the first pulse and still
+    /// be read as bounded by it (beyond, it contradicts the pulses); also how near before the
+    /// pulse the bound starts to move it (at 3σ the cut moves the mean by 0.004σ).</summary>
+    private const double OnsetBoundSigmas = 3;
+
+    /// <summary>The onset <paramref name="onsetEstimate"/> given that motion began no later than
+    /// <paramref name="boundS"/>: the mean and σ of its normal truncated above at the bound, with
+    /// β = (bound − mean)/σ and λ = φ(β)/Φ(β), mean − σ·λ and σ·√(1 − β·λ − λ²) (the normal
+    /// truncated on one side; any text on truncated distributions, e.g. Johnson, Kotz and
+    /// Balakrishnan, "Continuous Univariate Distributions" vol. 1, ch. 13; from memory); null
+    /// when the onset lies more than <see cref="OnsetBoundSigmas"/> σ after the bound.</summary>
+    internal static Estimate? BoundedAbove(Estimate onsetEstimate, double boundS)
+    {
+        double beta = (boundS - onsetEstimate.Value) / onsetEstimate.Sigma;
+        if (!(beta >= -OnsetBoundSigmas))
+        {
+            return null;
+        }
+
+        double lambda = MathNet.Numerics.Distributions.Normal.PDF(0, 1, beta) / MathNet.Numerics.Distributions.Normal.CDF(0, 1, beta);
+        double shrink = Math.Max(1 - (beta * lambda) - (lambda * lambda), 0);
+        return new Estimate(onsetEstimate.Value - (onsetEstimate.Sigma * lambda), onsetEstimate.Sigma * Math.Sqrt(shrink));
     }
 
     /// <summary>How far the accelerometer's time axis may have slid against the pulses' by
