@@ -28,12 +28,12 @@ internal sealed partial class ReconstructionPass
         // which the onset fit on those instants cannot see.
         double samplePlacement = accel is null ? 0 : accel.PeriodS / Math.Sqrt(12);
         Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, Math.Sqrt((o.SigmaS * o.SigmaS) + (samplePlacement * samplePlacement) + Square(TimeAxisOffsetSigma(o.TimeS)))) : null;
-        if (fromAccel is { } fa && pulses != null && fa.Value > pulses.HiS[0] - (OnsetBoundSigmas * fa.Sigma))
+        if (fromAccel is { } fa && pulses != null && fa.Value > pulses.HiS[0])
         {
             // Motion begins by the end of the first pulse's bracket: a tooth that sat at the
             // pickup fires as the wheel first turns, so an onset read within its σ of that pulse
-            // may lie a little after it. The bound then cuts the onset's normal there; only an
-            // onset further after it than the same 3σ contradicts the pulses.
+            // may lie a little after it. Within 3σ the onset is taken at the pulse; further after
+            // it, it contradicts the pulses.
             fromAccel = BoundedAbove(fa, pulses.HiS[0]);
             if (fromAccel is null)
             {
@@ -92,27 +92,24 @@ internal sealed partial class ReconstructionPass
     }
 
     /// <summary>How many of its σ an accelerometer onset may lie after the first pulse and still
-    /// be read as bounded by it (beyond, it contradicts the pulses); also how near before the
-    /// pulse the bound starts to move it (at 3σ the cut moves the mean by 0.004σ).</summary>
+    /// be taken as bounded by it; beyond, it contradicts the pulses.</summary>
     private const double OnsetBoundSigmas = 3;
 
     /// <summary>The onset <paramref name="onsetEstimate"/> given that motion began no later than
-    /// <paramref name="boundS"/>: the mean and σ of its normal truncated above at the bound, with
-    /// β = (bound − mean)/σ and λ = φ(β)/Φ(β), mean − σ·λ and σ·√(1 − β·λ − λ²) (the normal
-    /// truncated on one side; any text on truncated distributions, e.g. Johnson, Kotz and
-    /// Balakrishnan, "Continuous Univariate Distributions" vol. 1, ch. 13; from memory); null
-    /// when the onset lies more than <see cref="OnsetBoundSigmas"/> σ after the bound.</summary>
+    /// <paramref name="boundS"/>: as it is when it lies before the bound; at the bound, with its σ,
+    /// when it lies after it by at most <see cref="OnsetBoundSigmas"/> σ (a normal likelihood held
+    /// to t ≤ bound is largest at the bound; and the bound is met where the first pulse comes with
+    /// first motion, the one case that puts an onset after it); null further after.</summary>
     internal static Estimate? BoundedAbove(Estimate onsetEstimate, double boundS)
     {
-        double beta = (boundS - onsetEstimate.Value) / onsetEstimate.Sigma;
-        if (!(beta >= -OnsetBoundSigmas))
+        if (onsetEstimate.Value <= boundS)
         {
-            return null;
+            return onsetEstimate;
         }
 
-        double lambda = MathNet.Numerics.Distributions.Normal.PDF(0, 1, beta) / MathNet.Numerics.Distributions.Normal.CDF(0, 1, beta);
-        double shrink = Math.Max(1 - (beta * lambda) - (lambda * lambda), 0);
-        return new Estimate(onsetEstimate.Value - (onsetEstimate.Sigma * lambda), onsetEstimate.Sigma * Math.Sqrt(shrink));
+        return onsetEstimate.Value - (OnsetBoundSigmas * onsetEstimate.Sigma) <= boundS
+            ? new Estimate(boundS, onsetEstimate.Sigma)
+            : null;
     }
 
     /// <summary>How far the accelerometer's time axis may have slid against the pulses' by
