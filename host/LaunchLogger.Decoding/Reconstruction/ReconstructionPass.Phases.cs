@@ -28,10 +28,17 @@ internal sealed partial class ReconstructionPass
         // which the onset fit on those instants cannot see.
         double samplePlacement = accel is null ? 0 : accel.PeriodS / Math.Sqrt(12);
         Estimate? fromAccel = onset is { } o ? new Estimate(o.TimeS, Math.Sqrt((o.SigmaS * o.SigmaS) + (samplePlacement * samplePlacement) + Square(TimeAxisOffsetSigma(o.TimeS)))) : null;
-        if (fromAccel is { } fa && pulses != null && fa.Value >= pulses.HiS[0])
+        if (fromAccel is { } fa && pulses != null && fa.Value > pulses.HiS[0])
         {
-            warnings.Add("the accelerometer onset came after the first pulse; it was not used");
-            fromAccel = null;
+            // Motion begins by the end of the first pulse's bracket: a tooth that sat at the
+            // pickup fires as the wheel first turns, so an onset read within its σ of that pulse
+            // may lie a little after it. Within 3σ the onset is taken at the pulse; further after
+            // it, it contradicts the pulses.
+            fromAccel = BoundedAbove(fa, pulses.HiS[0]);
+            if (fromAccel is null)
+            {
+                warnings.Add("the accelerometer onset came after the first pulse; it was not used");
+            }
         }
 
         Estimate? fromPulses = kinematic is { } k ? new Estimate(k.TimeS, k.SigmaS) : null;
@@ -82,6 +89,27 @@ internal sealed partial class ReconstructionPass
         double start = motionHintS ?? accel!.TimeS[0];
         warnings.Add("the accelerometer shows no clear onset of motion: first motion is taken from the box's own mark or the start of the samples");
         return new Estimate(start, 0.05);
+    }
+
+    /// <summary>How many of its σ an accelerometer onset may lie after the first pulse and still
+    /// be taken as bounded by it; beyond, it contradicts the pulses.</summary>
+    private const double OnsetBoundSigmas = 3;
+
+    /// <summary>The onset <paramref name="onsetEstimate"/> given that motion began no later than
+    /// <paramref name="boundS"/>: as it is when it lies before the bound; at the bound, with its σ,
+    /// when it lies after it by at most <see cref="OnsetBoundSigmas"/> σ (a normal likelihood held
+    /// to t ≤ bound is largest at the bound; and the bound is met where the first pulse comes with
+    /// first motion, the one case that puts an onset after it); null further after.</summary>
+    internal static Estimate? BoundedAbove(Estimate onsetEstimate, double boundS)
+    {
+        if (onsetEstimate.Value <= boundS)
+        {
+            return onsetEstimate;
+        }
+
+        return onsetEstimate.Value - (OnsetBoundSigmas * onsetEstimate.Sigma) <= boundS
+            ? new Estimate(boundS, onsetEstimate.Sigma)
+            : null;
     }
 
     /// <summary>How far the accelerometer's time axis may have slid against the pulses' by
