@@ -25,6 +25,27 @@ public class BenchAccuracyCommandTests
     }
 
     [Fact]
+    public void The_whole_bench_block_counts_each_figure_over_every_group()
+    {
+        // The block's n for a figure is the sum of the groups' n above it: 8 runs, seed 2, hold
+        // several groups (simulated and generated), so a block that counted one group would differ.
+        var output = new StringWriter();
+        Assert.Equal(ExitCode.Ok, BenchAccuracyCommand.Run(8, 2, list: false, calibratedTyre: false, output, new StringWriter()));
+        string[] lines = output.ToString().Split('\n');
+        int whole = Array.FindIndex(lines, l => l.StartsWith("Whole bench:", StringComparison.Ordinal));
+        Assert.True(whole > 0, "no whole-bench block");
+        string firstMotion = lines.Skip(whole).First(l => l.TrimStart().StartsWith("first motion", StringComparison.Ordinal));
+        int wholeN = int.Parse(firstMotion.Split('|')[2].Trim(), System.Globalization.CultureInfo.InvariantCulture);
+        int groupsN = lines.Take(whole)
+            .Where(l => l.TrimStart().StartsWith("first motion ", StringComparison.Ordinal) && l.Count(c => c == '|') == 5)
+            .Sum(l => int.Parse(l.Split('|')[5].Trim(), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.True(groupsN > 0);
+        Assert.Equal(groupsN, wholeN);
+        Assert.True(lines.Take(whole).Count(l => l.TrimStart().StartsWith("first motion ", StringComparison.Ordinal) && l.Count(c => c == '|') == 5) > 1, "one group only: the sum proves nothing");
+        Assert.Contains(lines.Skip(whole), l => l.Contains("over the bench, every figure:", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void A_calibrated_tyre_is_said_and_its_goals_judged()
     {
         var output = new StringWriter();
