@@ -18,7 +18,7 @@ public static class PrescribedBenchmark
         SessionAnalysis session;
         try
         {
-            session = c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM), cancel: cancel) : AnalyzeFiles(record, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM), cancel);
+            session = Analyze(c, record, cancel);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException or InputException)
         {
@@ -57,6 +57,16 @@ public static class PrescribedBenchmark
         }
 
         return outcomes;
+    }
+
+    /// <summary>Decodes <paramref name="record"/> (<paramref name="c"/>'s) as the benchmark does:
+    /// as a log or as CSV files, with the case's calibrations.</summary>
+    public static SessionAnalysis Analyze(PrescribedBenchCase c, PrescribedRecord record, CancellationToken cancel)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        ArgumentNullException.ThrowIfNull(record);
+        AnalysisOptions? options = AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM);
+        return c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, options, cancel: cancel) : AnalyzeFiles(record, options, cancel);
     }
 
     private static SessionAnalysis AnalyzeFiles(PrescribedRecord record, AnalysisOptions? options, CancellationToken cancel)

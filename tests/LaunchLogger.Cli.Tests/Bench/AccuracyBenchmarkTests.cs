@@ -1,4 +1,9 @@
 using LaunchLogger.Cli.Bench;
+using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Braking;
+using LaunchLogger.Prescribed;
+using LaunchLogger.Prescribed.Sensors;
+using LaunchLogger.Prescribed.Truth;
 using LaunchLogger.Simulation.Scenarios;
 
 namespace LaunchLogger.Cli.Tests.Bench;
@@ -77,6 +82,39 @@ public class AccuracyBenchmarkTests
             CaseOutcome outcome = Assert.Single(PrescribedBenchmark.Run(c, CancellationToken.None));
             double error = outcome.Ours[BenchFigure.BrakeOnset]!.Value;
             Assert.True(Math.Abs(error) <= 0.002, $"run {c.Index} ({c.Summary}): brake onset {error * 1e3:+0.00;-0.00} ms");
+        }
+    }
+
+    /// <summary>Two of the generator's stops from cruise (`bench accuracy --runs 400 --seed 1
+    /// --calibrated-tyre --group GeneratedCruiseStop`, runs 250 and 297: 31–32 mph, brake rises of
+    /// 1.6–1.8 s, tyres of C 17.2 and 29.1, each wheel working at the car's deceleration). The
+    /// fusion measured their braked wheel's slip to σ 0.0048–0.0050 (k_b·g0), a third of the
+    /// spread of the prior the stop otherwise takes (share/C, σ 0.0130), but the stop kept the
+    /// prior's mean (E[share/C] = 0.0439): it weighed the measurement against the spread of 1/C
+    /// alone (0.0093), not the prior's since the wheel's share was put in it. The prior's mean is
+    /// 24 % and 28 % off these tyres; the measured slip 9 % and 2 %. The truth is the generator's
+    /// own law (<c>BrakeSlip</c>): over a whole stop from v0 the wheel misses v0²/(2·g0·C).</summary>
+    [Fact]
+    public void A_stop_whose_brake_slip_was_measured_more_closely_than_the_share_prior_takes_it()
+    {
+        PrescribedBenchCase[] stops = PrescribedBenchCase.Build(200, 1, 200, calibratedTyre: true)
+            .Where(c => c.Index is 250 or 297)
+            .ToArray();
+        Assert.Equal(2, stops.Length);
+        foreach (PrescribedBenchCase c in stops)
+        {
+            Assert.Equal(BenchGroup.GeneratedCruiseStop, c.Group);
+            BrakeSlip tyre = c.Spec.Pickup.Brake!;
+            Assert.Null(tyre.Axle);
+            PrescribedRecord record = c.Spec.Generate();
+            TruthStop truth = Assert.Single(record.Truth).Stop!;
+            RunAnalysis run = Assert.Single(PrescribedBenchmark.Analyze(c, record, CancellationToken.None).Runs);
+            BrakingResult braking = run.Braking!;
+            double missed = truth.OnsetSpeedMps * truth.OnsetSpeedMps / (2 * TruthUnits.StandardGravity * tyre.SlipStiffness);
+            double error = braking.StoppingDistanceM.Value - truth.StoppingDistanceM;
+            string what = FormattableString.Invariant($"run {c.Index} ({c.Summary}): slip added {braking.BrakeSlipCorrectionM:0.000} m where the tyre missed {missed:0.000} m; stop error {error:+0.000;-0.000} m ± {braking.StoppingDistanceM.Sigma:0.000}");
+            Assert.True(Math.Abs(braking.BrakeSlipCorrectionM - missed) <= 0.15 * missed, what);
+            Assert.True(Math.Abs(error) <= 2 * braking.StoppingDistanceM.Sigma, what);
         }
     }
 }
