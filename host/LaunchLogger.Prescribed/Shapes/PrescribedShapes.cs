@@ -34,7 +34,9 @@ public static class PrescribedShapes
     /// <param name="brakeG">The stop's deceleration in g, instead of the drawn one.</param>
     /// <param name="launchRiseS">The launch's rise time instead of the drawn one (0 = a step).</param>
     /// <param name="brakeRiseS">The stop's rise time instead of the drawn one (0 = a step).</param>
-    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null)
+    /// <param name="smoothLaunch">Rise as a raised cosine (<see cref="SmoothRise"/>) instead of
+    /// a linear ramp; the draws are the same, so a seed gives the same car either way.</param>
+    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null, bool smoothLaunch = false)
     {
         ArgumentNullException.ThrowIfNull(random);
         double peak = G * Uniform(random, 0.25, 1.1);
@@ -46,7 +48,11 @@ public static class PrescribedShapes
         double brake = brakeG is { } fixedG ? G * fixedG : Math.Max(G * Uniform(random, 0.6, 1.0), peak + (0.1 * G));
         double brakeRise = brakeRiseS ?? Uniform(random, 0.05, 0.6);
         var b = new MotionProfileBuilder().Hold(idleS);
-        if (rise > 0)
+        if (rise > 0 && smoothLaunch)
+        {
+            b.Then(SmoothRise(rise, peak));
+        }
+        else if (rise > 0)
         {
             b.Ramp(rise, 0, peak);
         }
@@ -63,9 +69,16 @@ public static class PrescribedShapes
 
         CutAtDistance(b, StandingRunM);
         b.Hold(0.5).BrakeToStop(brakeRise, brake).Hold(RestAfterS);
-        string name = Invariant($"standing start, peak {peak / G:0.00} g in {rise:0.00} s, {shifts} shifts, T {tau:0.0} s");
+        string name = Invariant($"standing start, peak {peak / G:0.00} g in {rise:0.00} s{(smoothLaunch ? " (smooth)" : string.Empty)}, {shifts} shifts, T {tau:0.0} s");
         return new Shape(name, ShapeKind.StandingStart, b.Build());
     }
+
+    /// <summary>A launch's smooth take-up (a clutch or torque coming in): the acceleration rises
+    /// from rest to <paramref name="peakMps2"/> over <paramref name="riseS"/> as a raised cosine,
+    /// a(τ) = peak·(1 − cos(πτ/T))/2, so the jerk itself starts from zero and the rise begins
+    /// like τ², not τ.</summary>
+    public static AccelSegment SmoothRise(double riseS, double peakMps2) =>
+        new FunctionSegment(riseS, tau => 0.5 * peakMps2 * (1 - Math.Cos(Math.PI * tau / riseS)), Invariant($"raised-cosine rise 0→{peakMps2:0.###} m/s² over {riseS:0.###} s"));
 
     /// <summary>A standing start at a constant acceleration, for closed-form checks.</summary>
     public static Shape ConstantLaunch(double accelMps2, double idleS = IdleS)
