@@ -141,10 +141,7 @@ public static class BenchAccuracyCommand
             double naiveP95 = Percentiles.Of(naive, 0.95);
             double cover2 = Coverage(runs, m, 2);
             double cover3 = Coverage(runs, m, 3);
-            if (!(cover2 >= 95) || !(cover3 >= 99))
-            {
-                coverageShort.Add(Text($"{figure.Name} {cover2:0.0} % / {cover3:0.0} %"));
-            }
+            NoteCoverageShort(coverageShort, figure.Name, cover2, cover3);
 
             output.WriteLine(Text($"  {figure.Name,-32} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}"));
         }
@@ -152,7 +149,7 @@ public static class BenchAccuracyCommand
         AccelFirstFootLine(runs, output);
         MissedLine(runs, output);
         output.WriteLine("  goals:");
-        output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {(coverageShort.Count == 0 ? "met" : "NOT met (" + string.Join("; ", coverageShort) + ")")}"));
+        output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {CoverageVerdict(coverageShort)}"));
         switch (group)
         {
             case BenchGroup.SimulatedAccelUndriven or BenchGroup.GeneratedStanding or BenchGroup.GeneratedLongIdle:
@@ -244,10 +241,7 @@ public static class BenchAccuracyCommand
 
             double cover2 = Coverage(runs, m, 2);
             double cover3 = Coverage(runs, m, 3);
-            if (!(cover2 >= 95) || !(cover3 >= 99))
-            {
-                coverageShort.Add(Text($"{BenchFigure.All[m].Name} {cover2:0.0} % / {cover3:0.0} %"));
-            }
+            NoteCoverageShort(coverageShort, BenchFigure.All[m].Name, cover2, cover3);
 
             string outside = string.Join(", ", runs
                 .Where(o => o.Ours[m] is { } e && !(o.OurSigmas[m] is { } s && Math.Abs(e) <= 2 * s))
@@ -256,8 +250,22 @@ public static class BenchAccuracyCommand
             output.WriteLine(Text($"  {BenchFigure.All[m].Name,-32} | {cover2,7:0.0} %  {cover3,7:0.0} % | {n,4} | {(outside.Length == 0 ? "none" : outside)}"));
         }
 
-        output.WriteLine(Text($"  goal: truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs over the bench, every figure: {(coverageShort.Count == 0 ? "met" : "NOT met (" + string.Join("; ", coverageShort) + ")")}"));
+        output.WriteLine(Text($"  goal: truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs over the bench, every figure: {CoverageVerdict(coverageShort)}"));
     }
+
+    /// <summary>Adds a figure to <paramref name="shortfalls"/> when its coverage misses the σ goal
+    /// (≥ 95 % within ±2σ and ≥ 99 % within ±3σ).</summary>
+    private static void NoteCoverageShort(List<string> shortfalls, string figure, double cover2, double cover3)
+    {
+        if (!(cover2 >= 95) || !(cover3 >= 99))
+        {
+            shortfalls.Add(Text($"{figure} {cover2:0.0} % / {cover3:0.0} %"));
+        }
+    }
+
+    /// <summary>The σ goal's verdict: met, or NOT met with the figures short.</summary>
+    private static string CoverageVerdict(List<string> shortfalls) =>
+        shortfalls.Count == 0 ? "met" : "NOT met (" + string.Join("; ", shortfalls) + ")";
 
     /// <summary>Percentage of runs with a figure and a σ whose error is within ±k·σ.</summary>
     private static double Coverage(List<CaseOutcome> runs, int m, double k)
