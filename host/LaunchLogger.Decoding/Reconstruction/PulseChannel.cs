@@ -33,6 +33,28 @@ internal sealed class PulseChannel
     /// <summary>Bracket midpoint of observation <paramref name="i"/>, seconds.</summary>
     public double MidS(int i) => 0.5 * (LoS[i] + HiS[i]);
 
+    /// <summary>The first observation whose bracket midpoint is at or after <paramref name="timeS"/>
+    /// (<see cref="Length"/> when none is).</summary>
+    public int FirstMidAtOrAfter(double timeS)
+    {
+        int lo = 0;
+        int hi = Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (MidS(mid) >= timeS)
+            {
+                hi = mid;
+            }
+            else
+            {
+                lo = mid + 1;
+            }
+        }
+
+        return lo;
+    }
+
     /// <summary>Count increase at observation <paramref name="i"/> (1 for the first).</summary>
     public long Increment(int i) => i == 0 ? 1 : Counts[i] - Counts[i - 1];
 

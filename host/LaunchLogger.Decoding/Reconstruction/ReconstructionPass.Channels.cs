@@ -275,24 +275,4 @@ internal sealed partial class ReconstructionPass
         double sigma = a.RestLevelSigmaMps2 / (magnitude * Math.Cos(pitch));
         return (pitch, sigma);
     }
-
-    private int FirstPulseAtOrAfter(double t)
-    {
-        int lo = 0;
-        int hi = pulses!.Length;
-        while (lo < hi)
-        {
-            int mid = (lo + hi) >>> 1;
-            if (pulses.MidS(mid) >= t)
-            {
-                hi = mid;
-            }
-            else
-            {
-                lo = mid + 1;
-            }
-        }
-
-        return lo;
-    }
 }

@@ -31,6 +31,7 @@ internal sealed partial class ReconstructionPass
     private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, List<TimeWindow> braking, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
+        var forces = new DriveForceWindows(steps, options);
         bool withAccel = accel != null;
         double inputDensity = 0;
         double thirdMean = 0;
@@ -128,9 +129,9 @@ internal sealed partial class ReconstructionPass
             // Across a spin or slide the wheel may gain or lose any distance: the phase starts afresh.
             SpinPhaseVariance = 1e6,
             BrakeWindows = [.. braking],
-            BrakeBiasStepVariance = BrakeStepVariances(steps, braking, withScale: true),
+            BrakeBiasStepVariance = forces.BrakeStepVariances(braking, withScale: true),
             FirmBrakeWindows = [.. firmBraking],
-            FirmBrakeStepVariance = BrakeStepVariances(steps, firmBraking, withScale: !scaleState),
+            FirmBrakeStepVariance = forces.BrakeStepVariances(firmBraking, withScale: !scaleState),
             BrakeThirdDensity = options.BrakeBiasWanderDensity,
             SlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,

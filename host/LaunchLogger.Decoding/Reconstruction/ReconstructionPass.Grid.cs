@@ -3,22 +3,6 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <content>The time grid and the accelerometer input integrated over its steps.</content>
 internal sealed partial class ReconstructionPass
 {
-    /// <summary>The time grid with the accelerometer input integrated over each step.</summary>
-    private sealed class StepGrid
-    {
-        public required double[] TimeS { get; init; }
-
-        public required double[] StepSpeedM { get; init; }
-
-        public required double[] StepDistanceM { get; init; }
-
-        public required bool[] NoInput { get; init; }
-
-        public double StartSpeedM { get; init; }
-
-        public double StartDistanceM { get; init; }
-    }
-
     private StepGrid BuildGrid(double startS, double? stopS, double endOfData)
     {
         double from = startS - options.PreRollS;

@@ -133,7 +133,7 @@ internal sealed partial class ReconstructionPass
         }
 
         double v0 = Math.Max(openingSpeed - gained, 0);
-        double brakesOn = BrakingWindows(steps, startS, stopS, FreeRollingBrakeMps2, openingSpeed) is [var first, ..] ? first.StartS : double.PositiveInfinity;
+        double brakesOn = new DriveForceWindows(steps, options).BrakingWindows(startS, stopS, FreeRollingBrakeMps2, openingSpeed) is [var first, ..] ? first.StartS : double.PositiveInfinity;
         double pulsesEnd = Math.Min(freeEndS, brakesOn);
         var rest = new List<double>();
         double brakeSpan = 0;

@@ -146,19 +146,34 @@ internal sealed partial class ReconstructionPass
 
         StepGrid steps = BuildGrid(firstMotion.Value, stopS, endOfData);
         double[] grid = steps.TimeS;
-        List<TimeWindow> braking = SlidingUnderBraking(steps, BrakingWindows(steps, firstMotion.Value, stopS), out double brakeSlide);
+        WheelWindows windows = WheelWindowFinder.Find(new WheelWindowInputs
+        {
+            Steps = steps,
+            Pulses = pulses,
+            MetresPerPulse = mpp,
+            AccelTimeS = accel?.TimeS,
+            AccelInputMps2 = accelInput,
+            Staged = Staged,
+            StartS = firstMotion.Value,
+            StopS = stopS,
+            EndS = stopS ?? endOfData,
+            StartSpeedMps = Staged ? 0 : opening?.SpeedMps.Value ?? accelOpeningSpeed?.Value ?? 0,
+            Options = options,
+        });
+        List<TimeWindow> braking = windows.Slides;
+        double brakeSlide = windows.LargestBehindFraction;
         int warningsBeforeSpin = warnings.Count;
-        List<TimeWindow> spin = FindWheelspin(firstMotion.Value, stopS ?? endOfData, braking);
-        int spinWarnings = warnings.Count - warningsBeforeSpin;
+        List<TimeWindow> spin = windows.Spin;
+        warnings.AddRange(windows.SpinWarnings);
+        int spinWarnings = windows.SpinWarnings.Count;
         if (channelNote != null)
         {
             warnings.Add(channelNote);
         }
 
-        double[]? slipSignal = SlipSignal(steps, firstMotion.Value, stopS);
-        List<TimeWindow> firm = FirmBraking(steps, firstMotion.Value, stopS);
-        brakeSlipSignal = BrakeSlipSignal(steps, firstMotion.Value, stopS, firm);
-        firmBraking = brakeSlipSignal is null ? [] : firm.Where(w => !braking.Any(s => s.StartS < w.EndS && s.EndS > w.StartS)).ToList();
+        double[]? slipSignal = windows.DriveSlipSignal;
+        brakeSlipSignal = windows.BrakeSlipSignal;
+        firmBraking = windows.FirmBraking;
         FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         if (pulses != null && accel != null && Staged
             && (fused.Outliers > 0.25 * pulses.Length || (fused.SlipKept && Math.Abs(fused.Slip.Value) * 0.5 * G0 > 0.15)))
@@ -168,7 +183,7 @@ internal sealed partial class ReconstructionPass
             // The spin and slide notes of the first pass measured against a baseline the spin itself set.
             warnings.RemoveRange(warningsBeforeSpin, spinWarnings);
             warnings.Add("the pulses run far ahead of the accelerometer for much of the run (sustained wheelspin on a driven wheel?): distance under drive comes from the accelerometer, the pulses are used only while coasting and braking");
-            spin = DriveWindows(steps, firstMotion.Value, stopS);
+            spin = new DriveForceWindows(steps, options).DriveWindows(firstMotion.Value, stopS);
             slipSignal = null;
             fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
         }
