@@ -216,8 +216,8 @@ internal sealed partial class ReconstructionPass
         }
 
         Trajectory trajectory = MakeTrajectory(steps, firstMotion.Value, stopS, spin, fused, slipSignal);
-        (Estimate? rolloutTime, Estimate? rolloutSpeed) = Rollout(trajectory, firstMotion.Value);
-        AddModeWarnings(trajectory, firstMotion, stopS);
+        (Estimate? rolloutTime, Estimate? rolloutSpeed) = EventFinder.Rollout(trajectory, firstMotion.Value, rolloutM);
+        warnings.AddRange(EventFinder.ModeWarnings(trajectory, firstMotion, stopS, pulses != null, accel != null, Staged));
 
         return new ReconstructedRun
         {
@@ -268,17 +268,6 @@ internal sealed partial class ReconstructionPass
         }
 
         return result;
-    }
-
-    private static double MaxOf(double[] values)
-    {
-        double max = 0;
-        foreach (double v in values)
-        {
-            max = Math.Max(max, v);
-        }
-
-        return max;
     }
 
     private static double? Min(double? a, double? b) => a is null ? b : b is null ? a : Math.Min(a.Value, b.Value);

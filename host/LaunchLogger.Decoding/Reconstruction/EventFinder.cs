@@ -1,11 +1,13 @@
-using LaunchLogger.Firmware.Wire;
-
 namespace LaunchLogger.Decoding.Reconstruction;
 
-/// <content>Events after fusion: the rollout mark, the box's own mark, and the mode warnings.</content>
-internal sealed partial class ReconstructionPass
+/// <summary>Events after fusion, read from the trajectory alone: the rollout mark and the notes on
+/// what the reconstruction had to work with.</summary>
+internal static class EventFinder
 {
-    private (Estimate? Time, Estimate? Speed) Rollout(Trajectory trajectory, double startS)
+    /// <summary>When and at what speed the car has covered <paramref name="rolloutM"/> from
+    /// <paramref name="startS"/>: the trajectory interpolated linearly between its points, the
+    /// time's σ the distance's σ over the speed there; null when it never gets so far.</summary>
+    public static (Estimate? Time, Estimate? Speed) Rollout(Trajectory trajectory, double startS, double rolloutM)
     {
         double[] t = trajectory.TimeS;
         double[] d = trajectory.DistanceM;
@@ -31,9 +33,12 @@ internal sealed partial class ReconstructionPass
         return (null, null);
     }
 
-    private void AddModeWarnings(Trajectory trajectory, Estimate firstMotion, double? stopS)
+    /// <summary>Notes on the sensors the run had: accelerometer only (and how far its drift
+    /// leaves speed and distance), no accelerometer on a standing start, no known stop.</summary>
+    public static List<string> ModeWarnings(Trajectory trajectory, Estimate firstMotion, double? stopS, bool withPulses, bool withAccelerometer, bool staged)
     {
-        if (pulses is null && accel != null)
+        var warnings = new List<string>();
+        if (!withPulses && withAccelerometer)
         {
             double[] t = trajectory.TimeS;
             int k = FusionSmoother.FirstIndexAfter(t, firstMotion.Value + 10);
@@ -43,15 +48,27 @@ internal sealed partial class ReconstructionPass
                 : $"accelerometer only: speed and distance come from integrating acceleration and drift; the car taken to be at rest at the end pins the drift down, leaving ±{MaxOf(trajectory.SpeedSigmaMps!):F2} m/s at worst");
         }
 
-        if (accel is null && pulses != null && Staged)
+        if (!withAccelerometer && withPulses && staged)
         {
             warnings.Add($"no accelerometer: first motion is back-extrapolated from the first pulses (±{firstMotion.Sigma * 1e3:F0} ms)");
         }
 
-        if (stopS is null && pulses != null)
+        if (stopS is null && withPulses)
         {
             warnings.Add("the run has no known stop: the speed is not brought to zero at its end");
         }
 
+        return warnings;
+    }
+
+    private static double MaxOf(double[] values)
+    {
+        double max = 0;
+        foreach (double v in values)
+        {
+            max = Math.Max(max, v);
+        }
+
+        return max;
     }
 }
