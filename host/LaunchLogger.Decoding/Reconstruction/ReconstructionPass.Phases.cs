@@ -262,70 +262,19 @@ internal sealed partial class ReconstructionPass
         return speed - (3 * sigma) > CrawlMps ? new Estimate(speed, sigma) : null;
     }
 
-    private double? FindStop(double startS, double endOfData)
-    {
-        bool stoppedEvent = run.Events.Any(e => e.Kind == EventKind.Stopped);
-        if (pulses != null)
+    private double? FindStop(double startS, double endOfData) => RunStop.Find(
+        new RunStopInputs
         {
-            double lastHi = pulses.HiS[^1];
-            double hold = configuration.StopHoldS > 0 ? 0.9 * configuration.StopHoldS : 1.0;
-            if (!stoppedEvent && endOfData - lastHi < hold && !StopFinder.EndsAtRest(pulses, mpp))
-            {
-                return null;
-            }
-
-            return StopFinder.Find(pulses, mpp, accel?.TimeS, accel is null ? null : accelInput, endOfData);
-        }
-
-        // Accelerometer only: at rest when the last samples sit at the resting level, as quiet as at rest.
-        ForwardAcceleration a = accel!;
-        int from = a.IndexAtOrAfter(a.TimeS[^1] - options.StillAtEndS);
-        if (a.TimeS[^1] - startS < options.StillAtEndS + 0.5 || a.Count - from < 8)
-        {
-            return null;
-        }
-
-        double mean = 0;
-        for (int i = from; i < a.Count; i++)
-        {
-            mean += accelInput[i];
-        }
-
-        mean /= a.Count - from;
-        double variance = 0;
-        for (int i = from; i < a.Count; i++)
-        {
-            variance += (accelInput[i] - mean) * (accelInput[i] - mean);
-        }
-
-        double sd = Math.Sqrt(variance / (a.Count - from));
-        if (!stoppedEvent && (sd > 1.5 * a.NoiseMps2 || Math.Abs(mean) > 0.1))
-        {
-            return null;
-        }
-
-        // Walk back to where the smoothed acceleration last left the still band.
-        int half = Math.Max(1, (int)Math.Round(0.05 / a.PeriodS));
-        double band = Math.Max(0.1, 4 * a.NoiseMps2 / Math.Sqrt((2 * half) + 1));
-        int k = a.Count - 1;
-        while (k > 0 && a.TimeS[k] > startS)
-        {
-            double sum = 0;
-            int lo = Math.Max(0, k - half);
-            int hi = Math.Min(a.Count - 1, k + half);
-            for (int i = lo; i <= hi; i++)
-            {
-                sum += accelInput[i];
-            }
-
-            if (Math.Abs(sum / (hi - lo + 1)) > band)
-            {
-                break;
-            }
-
-            k--;
-        }
-
-        return a.TimeS[Math.Min(k + half, a.Count - 1)];
-    }
+            Pulses = pulses,
+            MetresPerPulse = mpp,
+            AccelTimeS = accel?.TimeS,
+            AccelInputMps2 = accel is null ? [] : accelInput,
+            AccelNoiseMps2 = accel?.NoiseMps2 ?? 0,
+            AccelPeriodS = accel?.PeriodS ?? 0,
+            StoppedEvent = run.Events.Any(e => e.Kind == EventKind.Stopped),
+            StopHoldS = configuration.StopHoldS,
+            StillAtEndS = options.StillAtEndS,
+        },
+        startS,
+        endOfData);
 }

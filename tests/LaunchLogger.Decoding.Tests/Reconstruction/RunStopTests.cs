@@ -1,0 +1,98 @@
+using LaunchLogger.Decoding.Reconstruction;
+
+namespace LaunchLogger.Decoding.Tests.Reconstruction;
+
+/// <summary>The stop search on prescribed motions written straight into its inputs
+/// (<see cref="WindowScene"/>): a launch to 10 m/s from a standing start, then a stop at a
+/// constant 6 m/s² to rest at a known time, the record running on after it or cut short.</summary>
+public class RunStopTests
+{
+    private const double BrakeS = 4.0;
+    private const double DecelMps2 = 6.0;
+
+    // 10 m/s ÷ 6 m/s² after the brakes come on (constant-acceleration kinematics).
+    private const double TruthStopS = BrakeS + (10.0 / DecelMps2);
+
+    [Fact]
+    public void PulsesAloneStopWithinTheLastPitchOfTheTruth()
+    {
+        WindowScene scene = Stop(endS: TruthStopS + 2);
+        PulseChannel pulses = scene.Pulses();
+
+        double? stop = RunStop.Find(new RunStopInputs { Pulses = pulses, MetresPerPulse = scene.MetresPerPulse, StopHoldS = 1.5 }, 0, scene.EndS);
+
+        // The next edge never came, so the car covered under one pitch p after the last one; at
+        // a constant deceleration a that takes at most √(2p/a) (kinematics, closed form).
+        Assert.NotNull(stop);
+        Assert.InRange(stop.Value, pulses.MidS(pulses.Length - 1), scene.EndS);
+        Assert.Equal(TruthStopS, stop.Value, Math.Sqrt(2 * scene.MetresPerPulse / DecelMps2));
+    }
+
+    [Fact]
+    public void TheAccelerometerMarksTheStopWithinTwoSamples()
+    {
+        WindowScene scene = Stop(endS: TruthStopS + 2);
+        (double[] time, double[] input) = scene.Accelerometer();
+
+        double? stop = RunStop.Find(
+            new RunStopInputs { Pulses = scene.Pulses(), MetresPerPulse = scene.MetresPerPulse, AccelTimeS = time, AccelInputMps2 = input, AccelNoiseMps2 = 0.02, AccelPeriodS = 0.001, StopHoldS = 1.5 },
+            0,
+            scene.EndS);
+
+        // The deceleration falls to nothing as the car comes to rest (common practice): the
+        // 1-kHz samples place that step to a sample or two.
+        Assert.NotNull(stop);
+        Assert.Equal(TruthStopS, stop.Value, 0.002);
+    }
+
+    [Fact]
+    public void ARecordCutWhileStillDrivingHasNoStopUnlessTheBoxLoggedOne()
+    {
+        // The record ends at 3.5 s, at 8.75 m/s and still accelerating, 0.5 s before the brakes.
+        WindowScene scene = Stop(endS: 3.5);
+        PulseChannel pulses = scene.Pulses();
+        var cut = new RunStopInputs { Pulses = pulses, MetresPerPulse = scene.MetresPerPulse, StopHoldS = 1.5 };
+
+        Assert.Null(RunStop.Find(cut, 0, scene.EndS));
+        Assert.NotNull(RunStop.Find(new RunStopInputs { Pulses = pulses, MetresPerPulse = scene.MetresPerPulse, StopHoldS = 1.5, StoppedEvent = true }, 0, scene.EndS));
+    }
+
+    [Fact]
+    public void AnAccelerometerOnlyStopIsNeverBeforeTheTruthNorLaterThanItsSmoothingSpan()
+    {
+        // 100 Hz samples, the resting level removed, a record running 2 s past the stop.
+        WindowScene scene = Stop(endS: TruthStopS + 2);
+        int n = (int)Math.Round(scene.EndS / 0.01) + 1;
+        double[] time = Enumerable.Range(0, n).Select(i => i * 0.01).ToArray();
+        double[] input = time.Select(scene.CarAccelMps2).ToArray();
+
+        double? stop = RunStop.Find(new RunStopInputs { AccelTimeS = time, AccelInputMps2 = input, AccelNoiseMps2 = 0.02, AccelPeriodS = 0.01 }, 0, scene.EndS);
+
+        // Prescribed: at rest from the truth on. The search smooths over ±0.05 s and takes the
+        // stop where the smoothed input last left the still band, so the speed held at zero from
+        // the stop holds it only where the car already is at rest: never before the truth, at
+        // most twice the half-span (0.1 s) and a sample after it.
+        Assert.NotNull(stop);
+        Assert.InRange(stop.Value, TruthStopS, TruthStopS + 0.1 + 0.01);
+    }
+
+    [Fact]
+    public void AnAccelerometerOnlyRecordStillMovingAtItsEndHasNoStop()
+    {
+        // The record ends 0.5 s into the stop, the input still −6 m/s².
+        WindowScene scene = Stop(endS: BrakeS + 0.5);
+        int n = (int)Math.Round(scene.EndS / 0.01) + 1;
+        double[] time = Enumerable.Range(0, n).Select(i => i * 0.01).ToArray();
+        double[] input = time.Select(scene.CarAccelMps2).ToArray();
+
+        Assert.Null(RunStop.Find(new RunStopInputs { AccelTimeS = time, AccelInputMps2 = input, AccelNoiseMps2 = 0.02, AccelPeriodS = 0.01 }, 0, scene.EndS));
+    }
+
+    /// <summary>2.5 m/s² for 4 s (to 10 m/s), then 6 m/s² of braking to rest.</summary>
+    private static WindowScene Stop(double endS) => new()
+    {
+        CarAccelMps2 = t => t < 0 ? 0 : t < BrakeS ? 2.5 : t < TruthStopS ? -DecelMps2 : 0,
+        EndS = endS,
+        StopS = endS > TruthStopS ? TruthStopS : null,
+    };
+}
