@@ -62,9 +62,7 @@ public class RunStopTests
     {
         // 100 Hz samples, the resting level removed, a record running 2 s past the stop.
         WindowScene scene = Stop(endS: TruthStopS + 2);
-        int n = (int)Math.Round(scene.EndS / 0.01) + 1;
-        double[] time = Enumerable.Range(0, n).Select(i => i * 0.01).ToArray();
-        double[] input = time.Select(scene.CarAccelMps2).ToArray();
+        (double[] time, double[] input) = scene.Accelerometer(0.01);
 
         double? stop = RunStop.Find(new RunStopInputs { AccelTimeS = time, AccelInputMps2 = input, AccelNoiseMps2 = 0.02, AccelPeriodS = 0.01 }, 0, scene.EndS);
 
@@ -81,9 +79,7 @@ public class RunStopTests
     {
         // The record ends 0.5 s into the stop, the input still −6 m/s².
         WindowScene scene = Stop(endS: BrakeS + 0.5);
-        int n = (int)Math.Round(scene.EndS / 0.01) + 1;
-        double[] time = Enumerable.Range(0, n).Select(i => i * 0.01).ToArray();
-        double[] input = time.Select(scene.CarAccelMps2).ToArray();
+        (double[] time, double[] input) = scene.Accelerometer(0.01);
 
         Assert.Null(RunStop.Find(new RunStopInputs { AccelTimeS = time, AccelInputMps2 = input, AccelNoiseMps2 = 0.02, AccelPeriodS = 0.01 }, 0, scene.EndS));
     }

@@ -90,15 +90,16 @@ internal sealed record WindowScene
         return PulseChannel.From(records);
     }
 
-    /// <summary>Accelerometer samples at 1 kHz over the grid's span.</summary>
-    public (double[] TimeS, double[] InputMps2) Accelerometer()
+    /// <summary>Accelerometer samples every <paramref name="periodS"/> (1 kHz unless told) over
+    /// the grid's span, the resting level removed.</summary>
+    public (double[] TimeS, double[] InputMps2) Accelerometer(double periodS = 0.001)
     {
-        int n = (int)Math.Round((EndS - StartS + PreRollS) / 0.001) + 1;
+        int n = (int)Math.Round((EndS - StartS + PreRollS) / periodS) + 1;
         var times = new double[n];
         var input = new double[n];
         for (int i = 0; i < n; i++)
         {
-            times[i] = StartS - PreRollS + (i * 0.001);
+            times[i] = StartS - PreRollS + (i * periodS);
             input[i] = CarAccelMps2(times[i]);
         }
 
