@@ -115,6 +115,73 @@ public class RunPipelineTests
     }
 
     [Theory]
+    [InlineData("in memory")]
+    [InlineData("streamed")]
+    public void TheReaderWaitsOnceTheRunsHeldKeepTheBytesAheadAndTheBoundIsReached(string path)
+    {
+        // Room for six runs by count, but bytes for about two of the six: the byte bound, not
+        // the count, stops the reader, and the runs still come out whole and in order.
+        byte[] log = SixRuns.Value;
+        LogReadResult reference = LogReader.Read(log, "six.log", new RunPipeline(RunBuilding.Inline));
+        var kept = new Dictionary<string, long>();
+        LogReader.Read(log, "six.log", new RunPipeline(RunBuilding.Inline)
+        {
+            BuildRun = (run, baseline, workspace) =>
+            {
+                kept[run.Source] = run.KeptBytes;
+                return run.Build(baseline, workspace);
+            },
+        });
+        long bytesAhead = kept.Values.Sum() / 3;
+        long largestTwo = kept.Values.OrderDescending().Take(2).Sum();
+        RunPipeline pipeline = null!;
+        pipeline = new RunPipeline(RunBuilding.Parallel, capacity: 6, bytesAhead: bytesAhead)
+        {
+            BuildRun = (run, baseline, workspace) =>
+            {
+                // The first build waits until the reader has stopped for the bytes (or, were the
+                // bound broken, read every run), so the bound is met.
+                if (run.Source == reference.Runs[0].Source && !SpinWait.SpinUntil(() => pipeline.IsFull || pipeline.Posted == 6, Guard))
+                {
+                    throw new TimeoutException("the reader never filled the pipeline");
+                }
+
+                return run.Build(baseline, workspace);
+            },
+        };
+
+        string read;
+        if (path == "in memory")
+        {
+            read = RunFingerprint.Of(LogReader.Read(log, "six.log", pipeline));
+        }
+        else
+        {
+            LogReadResult? end = null;
+            List<DecodedRun> runs = [.. LogReader.ReadRuns(new MemoryStream(log), "six.log", pipeline, r => end = r)];
+            read = RunFingerprint.Of(end!.Source, runs, end.Stats, end.Warnings);
+        }
+
+        Assert.Equal(6, kept.Count);
+        Assert.InRange(pipeline.HeldBytesMost, bytesAhead, bytesAhead + largestTwo - 1);
+        Assert.InRange(pipeline.HeldMost, 1, 5);
+        Assert.Equal(6, pipeline.Taken);
+        Assert.Equal(RunFingerprint.Of(reference), read);
+    }
+
+    [Fact]
+    public void TheDefaultReadAheadDoesNotGrowWithTheCores()
+    {
+        // Whatever DOTNET_PROCESSOR_COUNT says, a pipeline for this machine holds at most
+        // MaxRunsAhead runs and reads on only below DefaultBytesAhead (the verbs' memory tests
+        // size their logs by these figures, DEVELOPERS.md "Memory at scale").
+        using RunPipeline pipeline = RunPipeline.ForThisMachine();
+
+        Assert.InRange(pipeline.Capacity, 2, RunPipeline.MaxRunsAhead);
+        Assert.Equal(RunPipeline.DefaultBytesAhead, pipeline.BytesAhead);
+    }
+
+    [Theory]
     [InlineData(false)]
     [InlineData(true)]
     public void ABuildThatThrowsSurfacesAsItselfAfterTheRunsBeforeIt(bool parallel)
