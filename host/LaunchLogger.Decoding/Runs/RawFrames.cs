@@ -23,6 +23,9 @@ internal sealed class RawFrames : IDisposable
     private byte[] current = [];
     private int used;
 
+    /// <summary>Bytes kept so far, headers included (about the bytes of the frames in the log).</summary>
+    public long KeptBytes { get; private set; }
+
     /// <summary>Keeps a copy of one frame's body.</summary>
     public void Add(FrameType type, ReadOnlySpan<byte> body)
     {
@@ -37,6 +40,7 @@ internal sealed class RawFrames : IDisposable
         BinaryPrimitives.WriteUInt16LittleEndian(into[1..], checked((ushort)body.Length));
         body.CopyTo(into[HeaderBytes..]);
         used += size;
+        KeptBytes += size;
     }
 
     /// <summary><paramref name="length"/> kept bytes from <paramref name="offset"/> in chunk
@@ -66,6 +70,7 @@ internal sealed class RawFrames : IDisposable
         chunkUsed.Clear();
         current = [];
         used = 0;
+        KeptBytes = 0;
     }
 
     private void NewChunk(int atLeast)

@@ -65,6 +65,10 @@ internal sealed class RunBuilder
     /// <summary>Keeps a pulses or acceleration body, parsed when the run is built.</summary>
     public void Keep(FrameType type, ReadOnlySpan<byte> body) => raw.Add(type, body);
 
+    /// <summary>Bytes of pulse and acceleration bodies kept for the build: the size of the run as
+    /// the reader holds it before it is built (<see cref="RunPipeline"/> bounds its read-ahead by it).</summary>
+    public long KeptBytes => raw.KeptBytes;
+
     /// <summary>Parses the kept bodies into <see cref="scratch"/>, in log order; counts those
     /// that do not parse.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]

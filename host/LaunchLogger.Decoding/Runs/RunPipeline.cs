@@ -16,8 +16,11 @@ namespace LaunchLogger.Decoding.Runs;
 /// reader stops or it has been idle for <see cref="BuilderIdle"/>; the reader's thread reads
 /// frames, and when it must wait for a run it builds a waiting one itself rather than sleep. So
 /// as many threads work as there are cores, and no core idles while a run waits to be built.</para>
-/// <para>Memory stays bounded: the reader stops for <see cref="IsFull"/> after every frame, and
-/// one frame closes at most two runs, so no more than <see cref="Capacity"/> + 1 runs are held
+/// <para>Memory stays bounded whatever the core count: the reader stops for <see cref="IsFull"/>
+/// after every frame — when <see cref="Capacity"/> runs are held (2 × cores, never more than
+/// <see cref="MaxRunsAhead"/>) or when the runs held kept <see cref="BytesAhead"/> bytes of bodies
+/// or more — and one frame closes at most two runs, so no more than <see cref="Capacity"/> + 1
+/// runs, and no more than <see cref="BytesAhead"/> bytes plus the two largest runs, are held
 /// between closing and being taken; each build that runs at once has buffers of its own
 /// (<see cref="RunScratch"/>), kept for the next.</para>
 /// <para>A build that throws does so again, as itself, when its run is taken — after every run
@@ -37,13 +40,17 @@ internal sealed class RunPipeline : IDisposable
     private int posted;
     private int taken;
     private int heldMost;
+    private long heldBytes;
+    private long heldBytesMost;
 
     /// <summary>A pipeline building as <paramref name="building"/> says, holding up to
-    /// <paramref name="capacity"/> runs (0: <see cref="DefaultCapacity"/>).</summary>
-    public RunPipeline(RunBuilding building, int capacity = 0)
+    /// <paramref name="capacity"/> runs (0: <see cref="DefaultCapacity"/>) and reading on while
+    /// the runs held kept fewer than <paramref name="bytesAhead"/> bytes (0: <see cref="DefaultBytesAhead"/>).</summary>
+    public RunPipeline(RunBuilding building, int capacity = 0, long bytesAhead = 0)
     {
         this.building = building;
         Capacity = capacity > 0 ? capacity : DefaultCapacity;
+        BytesAhead = bytesAhead > 0 ? bytesAhead : DefaultBytesAhead;
         maxBuilders = Math.Max(1, Environment.ProcessorCount - 1);
     }
 
@@ -55,23 +62,44 @@ internal sealed class RunPipeline : IDisposable
     /// without being disposed keeps no thread).</summary>
     public static TimeSpan BuilderIdle { get; } = TimeSpan.FromSeconds(1);
 
-    /// <summary>Twice the cores: enough to keep every core building while the reader reads on.</summary>
-    public static int DefaultCapacity { get; } = Math.Max(2, 2 * Environment.ProcessorCount);
+    /// <summary>The most runs the reader reads ahead on any machine. One thread reads the frames
+    /// for every builder, and a build takes about 1.3 times as long as reading its run
+    /// (DEVELOPERS.md, "Memory at scale": frame reader ~660 MB/s, whole reader ~290 MB per
+    /// CPU-second), so two or three builds at once keep up with the reader whatever the cores;
+    /// eight leave room for runs that are slower to build than to read, and what is read ahead no
+    /// longer grows with the cores.</summary>
+    public const int MaxRunsAhead = 8;
+
+    /// <summary>Twice the cores (enough to keep every core building while the reader reads on), at
+    /// least two, at most <see cref="MaxRunsAhead"/>.</summary>
+    public static int DefaultCapacity { get; } = Math.Clamp(2 * Environment.ProcessorCount, 2, MaxRunsAhead);
+
+    /// <summary>Bytes of bodies (<see cref="RunBuilder.KeptBytes"/>, about the runs' bytes in the
+    /// log) that the runs held may reach before the reader waits: 8 MiB, about twenty 30-s runs with
+    /// a 1 kHz accelerometer (400 kB each) or one 13-minute run. Long runs are read ahead fewer at a
+    /// time; a run longer than this is still read, alone.</summary>
+    public const long DefaultBytesAhead = 8L * 1024 * 1024;
 
     /// <summary>Runs held before the reader must wait for the oldest.</summary>
     public int Capacity { get; }
+
+    /// <summary>Bytes of bodies held before the reader must wait for the oldest run.</summary>
+    public long BytesAhead { get; }
 
     /// <summary>Runs closed and not yet taken.</summary>
     public int Count => pending.Count;
 
     /// <summary>True when the reader should take the oldest run before reading on.</summary>
-    public bool IsFull => pending.Count >= Capacity;
+    public bool IsFull => pending.Count >= Capacity || (pending.Count > 0 && heldBytes >= BytesAhead);
 
     /// <summary>True when the oldest run held is built (or its build has thrown).</summary>
     public bool OldestBuilt => pending.Count > 0 && pending.Peek().Done.IsSet;
 
     /// <summary>The most runs held at once so far.</summary>
     public int HeldMost => heldMost;
+
+    /// <summary>The most bytes of bodies held at once so far (runs closed and not yet taken).</summary>
+    public long HeldBytesMost => heldBytesMost;
 
     /// <summary>Builds being run at this moment (may be read from any thread).</summary>
     public int BuildsRunning => Volatile.Read(ref running);
@@ -94,7 +122,7 @@ internal sealed class RunPipeline : IDisposable
     public void Post(RunBuilder run, long[]? healthBaseline)
     {
         Interlocked.Increment(ref posted);
-        var job = new Job(run, healthBaseline);
+        var job = new Job(run, healthBaseline, run.KeptBytes);
         if (building == RunBuilding.Inline)
         {
             Build(job);
@@ -125,7 +153,9 @@ internal sealed class RunPipeline : IDisposable
             }
         }
 
+        heldBytes += job.Bytes;
         heldMost = Math.Max(heldMost, pending.Count);
+        heldBytesMost = Math.Max(heldBytesMost, heldBytes);
     }
 
     /// <summary>Takes the oldest run, building waiting runs meanwhile if it is not built yet.</summary>
@@ -147,6 +177,7 @@ internal sealed class RunPipeline : IDisposable
         }
 
         pending.Dequeue();
+        heldBytes -= oldest.Bytes;
         oldest.Dispose();
         oldest.Error?.Throw();
         Interlocked.Increment(ref taken);
@@ -174,6 +205,7 @@ internal sealed class RunPipeline : IDisposable
         while (pending.Count > 0)
         {
             using Job job = pending.Dequeue();
+            heldBytes -= job.Bytes;
             job.Done.Wait();
         }
 
@@ -238,9 +270,12 @@ internal sealed class RunPipeline : IDisposable
     }
 
     /// <summary>One closed run: what it is built from, and once built, the run or the failure.</summary>
-    private sealed class Job(RunBuilder run, long[]? healthBaseline) : IDisposable
+    private sealed class Job(RunBuilder run, long[]? healthBaseline, long bytes) : IDisposable
     {
         public RunBuilder Run { get; } = run;
+
+        /// <summary>The run's bodies as kept when it closed (<see cref="RunBuilder.KeptBytes"/>).</summary>
+        public long Bytes { get; } = bytes;
 
         public long[]? HealthBaseline { get; } = healthBaseline;
 

@@ -14,15 +14,15 @@ namespace LaunchLogger.Cli.Tests.Memory;
 [Collection(VerbMemoryCollection.Name)]
 public class StreamingVerbMemoryTests(ITestOutputHelper log)
 {
-    /// <summary>Runs in the short log: enough to fill the reader's read-ahead
-    /// (<see cref="RunPipeline.DefaultCapacity"/>, 2 × cores, runs as read and not yet taken) and
-    /// three more, so that both logs fill it and the long log's extra runs are what is compared,
-    /// on a machine of any core count. With 3 runs here a machine of 8 or more cores would read
-    /// the whole long log ahead (DEVELOPERS.md, "Tests on other machines").</summary>
-    private static readonly int Short = RunPipeline.DefaultCapacity + 3;
+    /// <summary>Runs in the short log: enough to fill the reader's read-ahead (runs as read and
+    /// not yet taken: 2 × cores but never more than <see cref="RunPipeline.MaxRunsAhead"/>, fewer
+    /// when they reach <see cref="RunPipeline.DefaultBytesAhead"/>) and three more, so that both
+    /// logs fill it and the long log's extra runs are what is compared, on a machine of any core
+    /// count (DEVELOPERS.md, "Tests on other machines").</summary>
+    private const int Short = RunPipeline.MaxRunsAhead + 3;
 
     /// <summary>Runs in the long log: twelve more than the short one.</summary>
-    private static readonly int Long = Short + 12;
+    private const int Long = Short + 12;
 
     /// <summary>How much more the verb may hold at its peak on the long log than on the short
     /// one, in runs read and analysed: the next run read while one is analysed, what is kept per

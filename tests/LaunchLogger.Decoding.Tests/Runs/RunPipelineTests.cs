@@ -85,33 +85,62 @@ public class RunPipelineTests
         RunPipeline pipeline = null!;
         pipeline = new RunPipeline(RunBuilding.Parallel, capacity: 2)
         {
-            BuildRun = (run, baseline, workspace) =>
-            {
-                // The first build waits until the reader has filled the pipeline, so the bound is met.
-                if (run.Source == reference.Runs[0].Source && !SpinWait.SpinUntil(() => pipeline.Posted - pipeline.Taken >= 2, Guard))
-                {
-                    throw new TimeoutException("the reader never filled the pipeline");
-                }
-
-                return run.Build(baseline, workspace);
-            },
+            BuildRun = FirstWaitsUntil(reference.Runs[0].Source, () => pipeline.Posted - pipeline.Taken >= 2),
         };
 
-        string read;
-        if (path == "in memory")
-        {
-            read = RunFingerprint.Of(LogReader.Read(log, "six.log", pipeline));
-        }
-        else
-        {
-            LogReadResult? end = null;
-            List<DecodedRun> runs = [.. LogReader.ReadRuns(new MemoryStream(log), "six.log", pipeline, r => end = r)];
-            read = RunFingerprint.Of(end!.Source, runs, end.Stats, end.Warnings);
-        }
+        string read = ReadThrough(path, log, pipeline);
 
         Assert.InRange(pipeline.HeldMost, 2, pipeline.Capacity + 1);
         Assert.Equal(6, pipeline.Taken);
         Assert.Equal(RunFingerprint.Of(reference), read);
+    }
+
+    [Theory]
+    [InlineData("in memory")]
+    [InlineData("streamed")]
+    public void TheReaderWaitsOnceTheRunsHeldKeepTheBytesAheadAndTheBoundIsReached(string path)
+    {
+        // Room for six runs by count, but bytes for about two of the six: the byte bound, not
+        // the count, stops the reader, and the runs still come out whole and in order.
+        byte[] log = SixRuns.Value;
+        LogReadResult reference = LogReader.Read(log, "six.log", new RunPipeline(RunBuilding.Inline));
+        var kept = new Dictionary<string, long>();
+        LogReader.Read(log, "six.log", new RunPipeline(RunBuilding.Inline)
+        {
+            BuildRun = (run, baseline, workspace) =>
+            {
+                kept[run.Source] = run.KeptBytes;
+                return run.Build(baseline, workspace);
+            },
+        });
+        long bytesAhead = kept.Values.Sum() / 3;
+        long largestTwo = kept.Values.OrderDescending().Take(2).Sum();
+        RunPipeline pipeline = null!;
+        pipeline = new RunPipeline(RunBuilding.Parallel, capacity: 6, bytesAhead: bytesAhead)
+        {
+            // Until the reader stops for the bytes (or, were the bound broken, has read every run).
+            BuildRun = FirstWaitsUntil(reference.Runs[0].Source, () => pipeline.IsFull || pipeline.Posted == 6),
+        };
+
+        string read = ReadThrough(path, log, pipeline);
+
+        Assert.Equal(6, kept.Count);
+        Assert.InRange(pipeline.HeldBytesMost, bytesAhead, bytesAhead + largestTwo - 1);
+        Assert.InRange(pipeline.HeldMost, 1, 5);
+        Assert.Equal(6, pipeline.Taken);
+        Assert.Equal(RunFingerprint.Of(reference), read);
+    }
+
+    [Fact]
+    public void TheDefaultReadAheadDoesNotGrowWithTheCores()
+    {
+        // Whatever DOTNET_PROCESSOR_COUNT says, a pipeline for this machine holds at most
+        // MaxRunsAhead runs and reads on only below DefaultBytesAhead (the verbs' memory tests
+        // size their logs by these figures, DEVELOPERS.md "Memory at scale").
+        using RunPipeline pipeline = RunPipeline.ForThisMachine();
+
+        Assert.InRange(pipeline.Capacity, 2, RunPipeline.MaxRunsAhead);
+        Assert.Equal(RunPipeline.DefaultBytesAhead, pipeline.BytesAhead);
     }
 
     [Theory]
@@ -183,5 +212,32 @@ public class RunPipelineTests
         Assert.Equal(LogReader.Read(log, "six.log").Runs[0].Source, first.Source);
         Assert.Equal(0, pipeline.BuildsRunning);
         Assert.Equal(0, pipeline.Count);
+    }
+
+    /// <summary>Builds runs as the reader does, but the build of the run from
+    /// <paramref name="firstSource"/> waits until <paramref name="filled"/> (the reader has filled
+    /// the pipeline), so that the bound under test is met.</summary>
+    private static Func<RunBuilder, long[]?, RunScratch, DecodedRun> FirstWaitsUntil(string firstSource, Func<bool> filled) => (run, baseline, workspace) =>
+    {
+        if (run.Source == firstSource && !SpinWait.SpinUntil(filled, Guard))
+        {
+            throw new TimeoutException("the reader never filled the pipeline");
+        }
+
+        return run.Build(baseline, workspace);
+    };
+
+    /// <summary>The fingerprint of <paramref name="log"/> read through <paramref name="pipeline"/>,
+    /// whole in memory or streamed as <paramref name="path"/> says.</summary>
+    private static string ReadThrough(string path, byte[] log, RunPipeline pipeline)
+    {
+        if (path == "in memory")
+        {
+            return RunFingerprint.Of(LogReader.Read(log, "six.log", pipeline));
+        }
+
+        LogReadResult? end = null;
+        List<DecodedRun> runs = [.. LogReader.ReadRuns(new MemoryStream(log), "six.log", pipeline, r => end = r)];
+        return RunFingerprint.Of(end!.Source, runs, end.Stats, end.Warnings);
     }
 }
