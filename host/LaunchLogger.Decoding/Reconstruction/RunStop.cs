@@ -35,7 +35,8 @@ internal sealed class RunStopInputs
 /// <summary>The phases stage's stop: whether the record ends at rest, and when the car came to
 /// rest. With pulses the last pulse's motion tells it (<see cref="StopFinder"/>); without, the
 /// accelerometer's last samples resting at the resting level, then back to where the smoothed
-/// acceleration last left the still band.</summary>
+/// acceleration last left the still band, and the step where the deceleration ended placed within
+/// that window.</summary>
 internal static class RunStop
 {
     /// <summary>The time the car came to rest after <paramref name="startS"/>, s, or null when
@@ -112,7 +113,49 @@ internal static class RunStop
             k--;
         }
 
-        return time[Math.Min(k + half, count - 1)];
+        return StepEnd(time, accelInput, k, half, band, input.AccelPeriodS);
+    }
+
+    /// <summary>Where a stop's deceleration ends, s. The window centred on
+    /// <paramref name="k"/> is the last to leave the still band, so its first sample is still
+    /// stopping and the samples after its last rest: the step lies between them. A sharp stop
+    /// held a steady deceleration a until the car rested, so the speed the window's samples still
+    /// take off (their sum times the period), over a measured on the window's width of samples
+    /// before it, is how long the car moved past the window's first sample: n samples' worth puts
+    /// the step between the n-th and the (n+1)-th, and the stop is placed mid-way, within half a
+    /// period of a clean step. The window's last sample when no steady deceleration precedes it
+    /// (a stop that fades out), never before the window's first.</summary>
+    private static double StepEnd(double[] time, double[] accelInput, int k, int half, double band, double periodS)
+    {
+        int count = time.Length;
+        int lo = Math.Max(0, k - half);
+        int hi = Math.Min(count - 1, k + half);
+        int before = Math.Max(0, lo - ((2 * half) + 1));
+        double taken = 0;
+        for (int i = lo; i <= hi; i++)
+        {
+            taken += accelInput[i];
+        }
+
+        double steady = 0;
+        for (int i = before; i < lo; i++)
+        {
+            steady += accelInput[i];
+        }
+
+        if (lo - before <= half || Math.Sign(steady) != Math.Sign(taken))
+        {
+            return time[hi];
+        }
+
+        steady /= lo - before;
+        if (Math.Abs(steady) <= band)
+        {
+            return time[hi];
+        }
+
+        double samples = taken / steady;
+        return Math.Clamp(time[lo] + ((samples - 0.5) * periodS), time[lo], time[hi]);
     }
 
     /// <summary>Index of the first of <paramref name="time"/> at or after <paramref name="t"/>.</summary>
