@@ -47,28 +47,16 @@ public class SmoothTakeUpOnsetTests
             double peak = Gravity * (0.25 + (0.85 * random.NextDouble()));
             double onsetS = 2.0 + (random.NextDouble() * period);
             double level = 0.1 + (0.4 * random.NextDouble());
-            int n = (int)(3 * rateHz);
-            var t = new double[n];
-            var reading = new double[n];
-            for (int i = 0; i < n; i++)
-            {
-                t[i] = i * period;
-                double tau = t[i] - onsetS;
-                double a = tau <= 0 ? 0 : tau < riseS ? 0.5 * peak * (1 - Math.Cos(Math.PI * tau / riseS)) : peak;
-                reading[i] = level + a + (noise * Gaussian(random));
-            }
-
+            (double[] t, double[] reading) = AccelOnsetFitTests.Sampled(rateHz, 3, onsetS, level, noise, tau => tau < riseS ? 0.5 * peak * (1 - Math.Cos(Math.PI * tau / riseS)) : peak, random);
             int to = (int)Math.Ceiling((onsetS + riseS) * rateHz);
             AccelOnset? found = AccelOnsetFit.Find(t, reading, level, noise, 1, period, 0, to, lastRise: true);
-            Assert.NotNull(found);
-            double error = found.Value.TimeS - onsetS;
-            double z = Math.Abs(error) / found.Value.SigmaS;
+            (double error, double z) = AccelOnsetFitTests.Judged(found, onsetS);
             within2 += z <= 2 ? 1 : 0;
             within3 += z <= 3 ? 1 : 0;
             withinTolerance += Math.Abs(error) <= toleranceS ? 1 : 0;
             if (z > 2)
             {
-                misses.Add($"{found.Value.Shape} {error * 1e3:F2} ms ({z:F1}σ, peak {peak / Gravity:F2} g)");
+                misses.Add($"{found!.Value.Shape} {error * 1e3:F2} ms ({z:F1}σ, peak {peak / Gravity:F2} g)");
             }
         }
 
@@ -77,8 +65,4 @@ public class SmoothTakeUpOnsetTests
         Assert.True(within3 >= 0.985 * trials, $"±3σ: {within3} of {trials}: {detail}");
         Assert.True(withinTolerance >= 0.95 * trials, $"within {toleranceS * 1e3:0.#} ms: {withinTolerance} of {trials}");
     }
-
-    // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
-    private static double Gaussian(Random random) =>
-        Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }
