@@ -40,4 +40,9 @@ public enum BenchGroup
 
     /// <summary>Generator: two standing runs in one record.</summary>
     GeneratedStopAndGo,
+
+    /// <summary>Generator: the standing starts above again, the same car, sensors and draws, with
+    /// the launch taking up smoothly (a raised-cosine rise, the jerk starting from zero) instead of
+    /// a linear ramp.</summary>
+    GeneratedStandingSmooth,
 }

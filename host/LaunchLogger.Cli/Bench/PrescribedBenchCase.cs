@@ -43,7 +43,9 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// (<see cref="BrakeSlip.Draw"/>, again from a stream of its own); half as logs written by the
     /// firmware core, half as CSV files. Every stop from cruise is then added once more, after
     /// those, as a log with a brake switch (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>),
-    /// its delay drawn from a stream of its own so the records above stay as they are.</summary>
+    /// its delay drawn from a stream of its own so the records above stay as they are; and every
+    /// standing start once more with a smooth take-up (<see cref="BenchGroup.GeneratedStandingSmooth"/>),
+    /// its shape redrawn from the same seed with a raised-cosine rise in place of the ramp.</summary>
     public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false)
     {
         int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
@@ -54,12 +56,14 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
         var brakeRandom = new Random(unchecked((seed * 41) + 17));
         var cases = new List<PrescribedBenchCase>(runs);
         var made = new int[Shares.Length];
+        var standingShapeSeeds = new List<(PrescribedBenchCase Case, int ShapeSeed)>();
         for (int i = 0; i < runs; i++)
         {
             // The group furthest behind its share comes next, so any number of runs mixes them.
             int k = Enumerable.Range(0, Shares.Length).MaxBy(j => (Shares[j].Share * (i + 1)) - made[j]);
             made[k]++;
-            var shapeRandom = new Random(random.Next());
+            int shapeSeed = random.Next();
+            var shapeRandom = new Random(shapeSeed);
             BenchGroup group = Shares[k].Group;
             Shape shape = group switch
             {
@@ -99,6 +103,10 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             bool asLog = i % 2 == 1;
             string summary = Invariant($"{shape.Name}; {toothCount} teeth; {(polled ? $"polled every {period * 1e3:0.00} ms" : "edges")}; accelerometer {rate:0} Hz, scale {scaleError * 100:+0.00;-0.00} %; braked tyre C {brake.SlipStiffness:0.0}; {(asLog ? "log" : "CSV")}");
             cases.Add(new PrescribedBenchCase(firstIndex + i, spec, group, asLog, summary) { AccelCalibration = told, TyreCalibration = calibratedTyre ? tyreTold : null, StaticTyreM = calibratedTyre ? null : tyre.StatedCircumferenceM });
+            if (group == BenchGroup.GeneratedStanding)
+            {
+                standingShapeSeeds.Add((cases[^1], shapeSeed));
+            }
         }
 
         var switchRandom = new Random(unchecked((seed * 131) + 11));
@@ -112,6 +120,15 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             };
             string summary = Invariant($"{stop.Summary.Replace("; CSV", "; log", StringComparison.Ordinal)}; brake switch {delay * 1e3:0.0} ms{(spec.Polled is null ? "" : ", 20 ms stalls")}");
             cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary) { AccelCalibration = stop.AccelCalibration, TyreCalibration = stop.TyreCalibration, StaticTyreM = stop.StaticTyreM });
+        }
+
+        // The standing starts once more with a smooth take-up: the shape redrawn from its own seed
+        // (the same peak, rise time, pull and shifts), the car, sensors and noise as they were.
+        foreach ((PrescribedBenchCase standing, int shapeSeed) in standingShapeSeeds)
+        {
+            Shape smooth = PrescribedShapes.StandingStart(new Random(shapeSeed), smoothLaunch: true);
+            string summary = smooth.Name + standing.Summary[standing.Spec.Shape.Name.Length..];
+            cases.Add(standing with { Index = firstIndex + cases.Count, Spec = standing.Spec with { Shape = smooth }, Group = BenchGroup.GeneratedStandingSmooth, Summary = summary });
         }
 
         return cases;

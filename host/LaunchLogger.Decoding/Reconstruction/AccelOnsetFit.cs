@@ -21,16 +21,24 @@ internal enum OnsetShape
 
     /// <summary>c₀ + c₁·τ: a jump (a dropped clutch, a released brake).</summary>
     Jump,
+
+    /// <summary>c₂·τ² + c₃·τ³, rising through the window: a smooth take-up (a clutch or a torque
+    /// coming in with the jerk itself starting from zero), joined to the rest with zero value and
+    /// zero slope (C¹). Any such rise is c₂τ² + c₃τ³ + … near its start (Taylor); the cubic lets it
+    /// bend over within the window as a take-up does, where τ² alone rises too steeply and τ + τ²
+    /// fits the bend only with its onset moved late.</summary>
+    SmoothTakeUp,
 }
 
 /// <summary>Finds the onset of acceleration as a change point: zero before t₀, one of the
-/// <see cref="OnsetShape"/>s after it, fitted by least squares over a window that ends where the
+/// <see cref="OnsetShape"/>s after it (a ramp, a τ², both, a jump, or a smooth take-up
+/// c₂τ² + c₃τ³), fitted by least squares over a window that ends where the
 /// rise has reached a quarter of its early height, with t₀ on a grid of a quarter sample (a jump's
 /// fit is flat between two samples: its t₀ is the best gap's middle). The shape is chosen by the
-/// Bayesian information criterion, each shape at its own least residual; the σ of t₀ is the
-/// half-width of the profile where the residual sum of squares stays within one noise variance of
-/// its minimum (a jump's: its gap/√12), widened by the other shapes' onsets weighted by their
-/// odds.</summary>
+/// Bayesian information criterion, each shape at its own least residual, and the onset is the
+/// shapes' onsets averaged by their odds; the σ of t₀ is the half-width of the chosen shape's
+/// profile where the residual sum of squares stays within one noise variance of its minimum (a
+/// jump's: its gap/√12), widened by the shapes' onsets' spread about that average.</summary>
 /// <remarks>Change-point estimation by least squares with a profile over the change time:
 /// D. V. Hinkley (1970), "Inference about the change-point in a sequence of random variables",
 /// Biometrika 57(1); segmented regression with a continuous join: D. J. Hudson (1966), "Fitting
@@ -38,7 +46,7 @@ internal enum OnsetShape
 /// G. Schwarz (1978), "Estimating the dimension of a model", Ann. Statist. 6(2).</remarks>
 internal static class AccelOnsetFit
 {
-    private const int Shapes = 4;
+    private const int Shapes = 5;
 
     /// <summary>A sample this close after a candidate onset counts as before it, seconds. A box that
     /// times its samples evenly in whole microseconds puts the coarse candidates (whole periods from a
@@ -186,20 +194,34 @@ internal static class AccelOnsetFit
 
         Fine best = fine[bestShape];
 
-        // The other shapes widen the answer by their onsets' second moment about the chosen one,
-        // each weighted by its posterior odds exp(−ΔBIC/2) (Schwarz's approximation; model
-        // averaging as in Hoeting et al. 1999, "Bayesian model averaging: a tutorial", Statist.
-        // Sci. 14(4)): a shape the data all but rule out adds nothing, one nearly as good adds
-        // its whole distance.
+        // The onset is the shapes' onsets averaged by their posterior odds exp(−ΔBIC/2)
+        // (Schwarz's approximation; Bayesian model averaging's posterior mean, Hoeting et al. 1999,
+        // "Bayesian model averaging: a tutorial", Statist. Sci. 14(4)), and the other shapes widen
+        // it by their onsets' second moment about that mean: a shape the data all but rule out
+        // moves and adds nothing, one nearly as good pulls the onset halfway and adds its distance.
+        // Two shapes of three parameters can fit a smooth take-up almost equally well with onsets
+        // milliseconds apart (the ramp-plus-quadratic fitting the rise's straighter later part
+        // with its onset late); taking only the better one put the onset wherever the noise tipped it.
         double weightSum = 1;
+        double weighted = best.TimeS;
+        Span<double> odds = stackalloc double[Shapes];
+        for (int m = 0; m < Shapes; m++)
+        {
+            odds[m] = m == bestShape ? 1 : Math.Exp(-0.5 * (bic[m] - bic[bestShape]));
+            if (m != bestShape && odds[m] > 1e-4)
+            {
+                weightSum += odds[m];
+                weighted += odds[m] * fine[m].TimeS;
+            }
+        }
+
+        double mean = weighted / weightSum;
         double moment = 0;
         for (int m = 0; m < Shapes; m++)
         {
-            double odds = m == bestShape ? 0 : Math.Exp(-0.5 * (bic[m] - bic[bestShape]));
-            if (odds > 1e-4)
+            if (m == bestShape || odds[m] > 1e-4)
             {
-                weightSum += odds;
-                moment += odds * (fine[m].TimeS - best.TimeS) * (fine[m].TimeS - best.TimeS);
+                moment += odds[m] * (fine[m].TimeS - mean) * (fine[m].TimeS - mean);
             }
         }
 
@@ -207,9 +229,9 @@ internal static class AccelOnsetFit
 
         // What lies below the noise cannot be seen: the longer the fitted onset stays under the
         // detection level, the more the unseen part of its shape matters.
-        double hidden = 0.25 * Math.Max(0, tCross - best.TimeS);
+        double hidden = 0.25 * Math.Max(0, tCross - mean);
         double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + spreadSquared + (hidden * hidden) + (period * period / 192));
-        return new AccelOnset(best.TimeS, sigmaT, (OnsetShape)bestShape, tCross);
+        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross);
     }
 
     private readonly record struct Fine(double TimeS, double HalfWidthS, double Sse);
@@ -436,7 +458,7 @@ internal static class AccelOnsetFit
     /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit.</summary>
     private static void Reductions(double[] t, Shifted y, int start, int end, double t0, Span<double> reduction)
     {
-        double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, y0 = 0, y1 = 0, y2 = 0;
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, y0 = 0, y1 = 0, y2 = 0, y3 = 0;
         double tauEnd = 0;
         for (int i = start; i <= end; i++)
         {
@@ -453,9 +475,12 @@ internal static class AccelOnsetFit
             s2 += tau2;
             s3 += tau2 * tau;
             s4 += tau2 * tau2;
+            s5 += tau2 * tau2 * tau;
+            s6 += tau2 * tau2 * tau2;
             y0 += yi;
             y1 += yi * tau;
             y2 += yi * tau2;
+            y3 += yi * tau2 * tau;
             tauEnd = tau;
         }
 
@@ -486,6 +511,16 @@ internal static class AccelOnsetFit
             double c1 = ((s0 * y1) - (s1 * y0)) / det;
             bool valid = c0 >= 0 && c0 + (c1 * tauEnd) >= 0;
             reduction[(int)OnsetShape.Jump] = valid ? (c0 * y0) + (c1 * y1) : reduction[(int)OnsetShape.Ramp];
+        }
+
+        // A take-up rises through the window: its slope 2c₂τ + 3c₃τ² stays ≥ 0 up to the window's end.
+        det = (s4 * s6) - (s5 * s5);
+        if (det > 0)
+        {
+            double c2 = ((y2 * s6) - (y3 * s5)) / det;
+            double c3 = ((s4 * y3) - (s5 * y2)) / det;
+            bool valid = c2 >= 0 && (2 * c2) + (3 * c3 * tauEnd) >= 0;
+            reduction[(int)OnsetShape.SmoothTakeUp] = valid ? (c2 * y2) + (c3 * y3) : reduction[(int)OnsetShape.Quadratic];
         }
     }
 

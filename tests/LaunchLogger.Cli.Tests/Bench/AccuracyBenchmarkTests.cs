@@ -117,4 +117,28 @@ public class AccuracyBenchmarkTests
             Assert.True(Math.Abs(error) <= 2 * braking.StoppingDistanceM.Sigma, what);
         }
     }
+
+    /// <summary>The smooth-launch group repeats every generated standing start, in order and after
+    /// every other record, with the same car, sensors and noise (the spec equal but for its shape)
+    /// and the same draws of the launch (its name the standing start's with the smooth take-up
+    /// marked), so the records before it stay as they were.</summary>
+    [Fact]
+    public void The_smooth_launches_are_the_standing_starts_again_with_a_smooth_take_up()
+    {
+        IReadOnlyList<PrescribedBenchCase> cases = PrescribedBenchCase.Build(80, 3, 100, calibratedTyre: false);
+        PrescribedBenchCase[] standing = cases.Where(c => c.Group == BenchGroup.GeneratedStanding).ToArray();
+        PrescribedBenchCase[] smooth = cases.Where(c => c.Group == BenchGroup.GeneratedStandingSmooth).ToArray();
+        Assert.NotEmpty(standing);
+        Assert.Equal(standing.Length, smooth.Length);
+        Assert.Equal(Enumerable.Range(100 + cases.Count - smooth.Length, smooth.Length), smooth.Select(c => c.Index));
+        for (int i = 0; i < standing.Length; i++)
+        {
+            Assert.Equal(standing[i].Spec with { Shape = smooth[i].Spec.Shape }, smooth[i].Spec);
+            Assert.Equal(standing[i].Spec.Shape.Kind, smooth[i].Spec.Shape.Kind);
+            int cut = standing[i].Spec.Shape.Name.IndexOf(" s,", StringComparison.Ordinal) + 2;
+            Assert.Equal(standing[i].Spec.Shape.Name.Insert(cut, " (smooth)"), smooth[i].Spec.Shape.Name);
+            Assert.Equal(standing[i].AsLog, smooth[i].AsLog);
+            Assert.Equal(standing[i].StaticTyreM, smooth[i].StaticTyreM);
+        }
+    }
 }

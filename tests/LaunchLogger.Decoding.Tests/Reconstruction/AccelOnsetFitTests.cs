@@ -34,17 +34,7 @@ public class AccelOnsetFitTests
         for (int trial = 0; trial < trials; trial++)
         {
             double onsetS = 1.0 + (random.NextDouble() * period);
-            int n = (int)(1.5 * rateHz);
-            var t = new double[n];
-            var reading = new double[n];
-            for (int i = 0; i < n; i++)
-            {
-                t[i] = i * period;
-                double tau = t[i] - onsetS;
-                double a = tau < 0 ? 0 : Math.Min(4, jumpMps2 + (rampMps3 * tau));
-                double gauss = Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
-                reading[i] = 0.3 + a + (noiseMps2 * gauss);
-            }
+            (double[] t, double[] reading) = Sampled(rateHz, 1.5, onsetS, 0.3, noiseMps2, tau => Math.Min(4, jumpMps2 + (rampMps3 * tau)), random);
 
             int to = (int)((onsetS + 0.15) * rateHz);
             AccelOnset? found = AccelOnsetFit.Find(t, reading, 0.3, noiseMps2, 1, period, 0, to, lastRise: true);
@@ -104,14 +94,12 @@ public class AccelOnsetFitTests
 
             int to = stepIndex + (int)(0.05 * rateHz);
             AccelOnset? found = AccelOnsetFit.Find(t, reading, level, noise, 1, period, 0, to, lastRise: true);
-            Assert.NotNull(found);
-            double error = found.Value.TimeS - onsetS;
-            double z = Math.Abs(error) / found.Value.SigmaS;
+            (double error, double z) = Judged(found, onsetS);
             within2 += z <= 2 ? 1 : 0;
             within3 += z <= 3 ? 1 : 0;
-            if (z > 3 || Math.Abs(error) > period || found.Value.Shape != OnsetShape.Jump)
+            if (z > 3 || Math.Abs(error) > period || found!.Value.Shape != OnsetShape.Jump)
             {
-                misses.Add($"{found.Value.Shape} {error * 1e3:F3} ms ({z:F1}σ)");
+                misses.Add($"{found!.Value.Shape} {error * 1e3:F3} ms ({z:F1}σ)");
             }
         }
 
@@ -120,7 +108,33 @@ public class AccelOnsetFitTests
         Assert.True(within3 == trials, $"±3σ: {within3} of {trials}");
     }
 
+    /// <summary>Readings every 1/<paramref name="rateHz"/> s from 0 for <paramref name="lengthS"/>:
+    /// <paramref name="level"/>, plus <paramref name="rise"/>(τ) after the onset (τ = t − onset &gt; 0),
+    /// plus white noise of σ <paramref name="noise"/>.</summary>
+    internal static (double[] T, double[] Reading) Sampled(double rateHz, double lengthS, double onsetS, double level, double noise, Func<double, double> rise, Random random)
+    {
+        int n = (int)(lengthS * rateHz);
+        var t = new double[n];
+        var reading = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            t[i] = i / rateHz;
+            double tau = t[i] - onsetS;
+            reading[i] = level + (tau <= 0 ? 0 : rise(tau)) + (noise * Gaussian(random));
+        }
+
+        return (t, reading);
+    }
+
+    /// <summary>The onset found (it must be) less the truth, and that error in units of its σ.</summary>
+    internal static (double Error, double Z) Judged(AccelOnset? found, double onsetS)
+    {
+        Assert.NotNull(found);
+        double error = found.Value.TimeS - onsetS;
+        return (error, Math.Abs(error) / found.Value.SigmaS);
+    }
+
     // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
-    private static double Gaussian(Random random) =>
+    internal static double Gaussian(Random random) =>
         Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
 }
