@@ -35,8 +35,9 @@ internal enum OnsetShape
 /// c₂τ² + c₃τ³), fitted by least squares over a window that ends where the
 /// rise has reached a quarter of its early height, with t₀ on a grid of a quarter sample (a jump's
 /// fit is flat between two samples: its t₀ is the best gap's middle). The shape is chosen by the
-/// Bayesian information criterion, each shape at its own least residual, and the onset is the
-/// shapes' onsets averaged by their odds; the σ of t₀ is the half-width of the chosen shape's
+/// Bayesian information criterion, each shape at its own least residual; where a curved shape is
+/// chosen the onset is the shapes' onsets averaged by their odds (a ramp or a jump chosen keeps its
+/// own); the σ of t₀ is the half-width of the chosen shape's
 /// profile where the residual sum of squares stays within one noise variance of its minimum (a
 /// jump's: its gap/√12), widened by the shapes' onsets' spread about that average.</summary>
 /// <remarks>Change-point estimation by least squares with a profile over the change time:
@@ -215,7 +216,10 @@ internal static class AccelOnsetFit
             }
         }
 
-        double mean = weighted / weightSum;
+        // A ramp or a jump chosen is kept where it is (the others still widen it): on such a rise
+        // the curved shapes' onsets only add their noise to it.
+        bool curved = bestShape is (int)OnsetShape.Quadratic or (int)OnsetShape.RampQuadratic or (int)OnsetShape.SmoothTakeUp;
+        double mean = curved ? weighted / weightSum : best.TimeS;
         double moment = 0;
         for (int m = 0; m < Shapes; m++)
         {
