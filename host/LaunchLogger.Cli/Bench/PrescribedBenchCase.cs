@@ -46,7 +46,15 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// its delay drawn from a stream of its own so the records above stay as they are; and every
     /// standing start once more with a smooth take-up (<see cref="BenchGroup.GeneratedStandingSmooth"/>),
     /// its shape redrawn from the same seed with a raised-cosine rise in place of the ramp.</summary>
-    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false)
+    /// <param name="runs">Generated records before the switch and smooth-launch copies.</param>
+    /// <param name="seed">Seed of every draw.</param>
+    /// <param name="firstIndex">Index of the first case.</param>
+    /// <param name="calibratedTyre">Tell the tyre as calibrated at speed.</param>
+    /// <param name="calibratedAccel">Tell the accelerometer's scale as calibrated.</param>
+    /// <param name="smoothLaunches">False to leave out the smooth-launch copies (they come last, so
+    /// every other case is as it was; their shapes are integrated numerically and cost time to
+    /// build when their group is not wanted).</param>
+    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false, bool smoothLaunches = true)
     {
         int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
         double[] rates = [100, 200, 400, 800, 1600];
@@ -124,7 +132,7 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
 
         // The standing starts once more with a smooth take-up: the shape redrawn from its own seed
         // (the same peak, rise time, pull and shifts), the car, sensors and noise as they were.
-        foreach ((PrescribedBenchCase standing, int shapeSeed) in standingShapeSeeds)
+        foreach ((PrescribedBenchCase standing, int shapeSeed) in smoothLaunches ? standingShapeSeeds : [])
         {
             Shape smooth = PrescribedShapes.StandingStart(new Random(shapeSeed), smoothLaunch: true);
             string summary = smooth.Name + standing.Summary[standing.Spec.Shape.Name.Length..];

@@ -35,7 +35,7 @@ public static class BenchAccuracyCommand
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
         IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();
-        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();
+        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, Wanted(BenchGroup.GeneratedStandingSmooth)).Where(c => Wanted(c.Group)).ToList();
         var started = System.Diagnostics.Stopwatch.StartNew();
         List<CaseOutcome> all;
         try
