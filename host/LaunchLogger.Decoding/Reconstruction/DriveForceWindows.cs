@@ -50,13 +50,13 @@ internal sealed class DriveForceWindows
             double span = 0;
             for (int j = k; j + 1 < grid.Length && grid[j] < grid[k] + 0.05; j++)
             {
-                sum += steps.StepSpeedM[j];
+                sum += steps.StepSpeedMps[j];
                 span += grid[j + 1] - grid[j];
             }
 
             for (int j = k - 1; j >= k0 && grid[j] > grid[k] - 0.05; j--)
             {
-                sum += steps.StepSpeedM[j];
+                sum += steps.StepSpeedMps[j];
                 span += grid[j + 1] - grid[j];
             }
 
@@ -113,7 +113,7 @@ internal sealed class DriveForceWindows
             double dt = 0;
             for (; k + 1 < grid.Length && grid[k] < braking[i].EndS; k++)
             {
-                dv += steps.StepSpeedM[k];
+                dv += steps.StepSpeedMps[k];
                 dt += grid[k + 1] - grid[k];
             }
 
@@ -169,7 +169,7 @@ internal sealed class DriveForceWindows
     private double[] DriveForce(double startS, double? stopS, double startSpeedMps, double[]? meanInput = null)
     {
         double[] grid = steps.TimeS;
-        double[] dv = steps.StepSpeedM;
+        double[] dv = steps.StepSpeedMps;
         double stop = stopS ?? double.PositiveInfinity;
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
         int n = grid.Length;

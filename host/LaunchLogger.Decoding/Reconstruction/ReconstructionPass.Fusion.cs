@@ -103,11 +103,11 @@ internal sealed partial class ReconstructionPass
         {
             Mode = withAccel ? FusionMode.Accelerometer : FusionMode.Kinematic,
             GridS = grid,
-            StepSpeedM = steps.StepSpeedM,
+            StepSpeedM = steps.StepSpeedMps,
             StepDistanceM = steps.StepDistanceM,
             NoInput = steps.NoInput,
             StartS = startS,
-            StartSpeedM = steps.StartSpeedM,
+            StartSpeedM = steps.StartSpeedMps,
             StartDistanceM = steps.StartDistanceM,
             InitialSpeedMps = speed,
             InitialSpeedSigma = speedSigma,
@@ -249,8 +249,8 @@ internal sealed partial class ReconstructionPass
             else if (accel != null)
             {
                 // Mean input over the steps either side of the grid point, less the bias.
-                double before = k > 0 ? steps.StepSpeedM[k - 1] / (grid[k] - grid[k - 1]) : 0;
-                double after = k + 1 < n ? steps.StepSpeedM[k] / (grid[k + 1] - grid[k]) : before;
+                double before = k > 0 ? steps.StepSpeedMps[k - 1] / (grid[k] - grid[k - 1]) : 0;
+                double after = k + 1 < n ? steps.StepSpeedMps[k] / (grid[k + 1] - grid[k]) : before;
                 accelOut[k] = (k > 0 ? 0.5 * (before + after) : after) - fused.Third[k];
             }
             else
@@ -315,7 +315,7 @@ internal sealed partial class ReconstructionPass
 
         double pulseScale = Math.Sqrt(Square(circumferenceSigma) + Square(options.PulseScaleSigma));
         return LaunchSlipAllowance.DistanceSigma(
-            steps.TimeS, k0, startS, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM,
+            steps.TimeS, k0, startS, steps.StartSpeedMps, steps.StartDistanceM, steps.StepSpeedMps, steps.StepDistanceM,
             fused.DistanceM, fused.DistanceSigmaM, LaunchBiasSigma(accel), options.ForwardScaleSigma, pulseScale,
             driven ? (options.PulsesOnlyLaunchSlip, options.LaunchSlipFadeM) : null);
     }
@@ -346,7 +346,7 @@ internal sealed partial class ReconstructionPass
 
         double[] grid = steps.TimeS;
         int k0 = FusionSmoother.FirstIndexAfter(grid, startS);
-        double[] d = LaunchSlipAllowance.AccelDistance(grid, k0, steps.StartSpeedM, steps.StartDistanceM, steps.StepSpeedM, steps.StepDistanceM);
+        double[] d = LaunchSlipAllowance.AccelDistance(grid, k0, steps.StartSpeedMps, steps.StartDistanceM, steps.StepSpeedMps, steps.StepDistanceM);
         for (int k = k0; k < grid.Length && grid[k] - startS <= LaunchSlipAllowance.WindowS; k++)
         {
             if (d[k] >= Metrics.Units.MetresPerFoot)

@@ -76,7 +76,7 @@ internal sealed partial class ReconstructionPass
             }
         }
 
-        return new StepGrid { TimeS = times, StepSpeedM = dv, StepDistanceM = dd, NoInput = noInput, StartSpeedM = startDv, StartDistanceM = startDd };
+        return new StepGrid { TimeS = times, StepSpeedMps = dv, StepDistanceM = dd, NoInput = noInput, StartSpeedMps = startDv, StartDistanceM = startDd };
     }
 
     /// <summary>Speed and distance gained from the input over [a, b], the input taken as linear

@@ -71,7 +71,7 @@ internal sealed partial class ReconstructionPass
             TopSpeedMps = options.RollingScaleTopSpeedMps,
         };
         RollingScale? measured = Staged
-            ? RollingScaleFit.Fit(steps.TimeS, steps.StepSpeedM, steps.StepDistanceM, steps.NoInput, pulses, mpp, startS, end, noise)
+            ? RollingScaleFit.Fit(steps.TimeS, steps.StepSpeedMps, steps.StepDistanceM, steps.NoInput, pulses, mpp, startS, end, noise)
             : MeasureMovingScale(steps, startS, stopS, end, noise);
         if (measured is not { } fit || !(fit.Scale.Sigma < options.CircumferenceSigmaFraction) || !(Math.Abs(fit.Scale.Value - 1) < 0.2))
         {
@@ -129,7 +129,7 @@ internal sealed partial class ReconstructionPass
         double gained = 0;
         for (int k = 0; k + 1 < grid.Length && grid[k + 1] <= startS; k++)
         {
-            gained += steps.StepSpeedM[k];
+            gained += steps.StepSpeedMps[k];
         }
 
         double v0 = Math.Max(openingSpeed - gained, 0);
@@ -153,7 +153,7 @@ internal sealed partial class ReconstructionPass
         // the pulses and the rest tell it, at the scale being measured.
         var moving = new MovingWindow(new Estimate(v0, 1 + (0.1 * v0)), [.. rest], brakeSpan, options.BrakeBiasStepSigmaMps2);
         return RollingScaleFit.Fit(
-            grid, steps.StepSpeedM, steps.StepDistanceM, steps.NoInput, pulses!, mpp, startS, pulsesEnd,
+            grid, steps.StepSpeedMps, steps.StepDistanceM, steps.NoInput, pulses!, mpp, startS, pulsesEnd,
             noise with { WindowS = options.RollingScaleMovingWindowS, TopSpeedMps = double.PositiveInfinity }, moving);
     }
 }

@@ -7,7 +7,7 @@ internal sealed class StepGrid
     public required double[] TimeS { get; init; }
 
     /// <summary>Speed the input adds over the step from each point to the next, m/s (0 at the last point).</summary>
-    public required double[] StepSpeedM { get; init; }
+    public required double[] StepSpeedMps { get; init; }
 
     /// <summary>Distance the input adds over each step at zero speed at its start, m.</summary>
     public required double[] StepDistanceM { get; init; }
@@ -16,7 +16,7 @@ internal sealed class StepGrid
     public required bool[] NoInput { get; init; }
 
     /// <summary>Speed the input adds from first motion to the first grid point after it, m/s.</summary>
-    public double StartSpeedM { get; init; }
+    public double StartSpeedMps { get; init; }
 
     /// <summary>Distance the input adds from first motion to the first grid point after it, m.</summary>
     public double StartDistanceM { get; init; }

@@ -130,7 +130,7 @@ internal sealed class WheelWindowFinder
             return [];
         }
 
-        return forces.BrakingWindows(input.StartS, input.StopS, options.BrakingDecelMps2, steps.StartSpeedM);
+        return forces.BrakingWindows(input.StartS, input.StopS, options.BrakingDecelMps2, steps.StartSpeedMps);
     }
 
     /// <summary>Firm braking where the pulses are kept, staged or not (those that hold a slide
@@ -210,7 +210,7 @@ internal sealed class WheelWindowFinder
             double dt = grid[k + 1] - grid[k];
             // Drive only: under braking every wheel slips, driven or not, by its own measure, and
             // that is left to the accelerometer's error model.
-            double drive = Math.Max((steps.StepSpeedM[k] / dt) + (options.DragPerMassPerSpeedSquared * speed * speed) + (options.RollingResistance * G0), 0);
+            double drive = Math.Max((steps.StepSpeedMps[k] / dt) + (options.DragPerMassPerSpeedSquared * speed * speed) + (options.RollingResistance * G0), 0);
             sum += speed * drive * dt;
             signal[k + 1] = sum;
         }
@@ -238,7 +238,7 @@ internal sealed class WheelWindowFinder
         }
 
         double[] grid = steps.TimeS;
-        double[] dv = steps.StepSpeedM;
+        double[] dv = steps.StepSpeedMps;
         int n = grid.Length;
         var signal = new double[n];
         double? stopS = input.StopS;
@@ -313,7 +313,7 @@ internal sealed class WheelWindowFinder
     private static double[] SpeedBackFromStop(StepGrid steps, int k0, double stopS)
     {
         double[] grid = steps.TimeS;
-        double[] dv = steps.StepSpeedM;
+        double[] dv = steps.StepSpeedMps;
         var result = new double[grid.Length];
         double after = 0;
         for (int k = grid.Length - 2; k >= k0; k--)
@@ -360,7 +360,7 @@ internal sealed class WheelWindowFinder
             double resistance = (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * roughSpeed * roughSpeed);
             int ka = FusionSmoother.FirstIndexAfter(grid, w.StartS);
             while (ka + 6 < grid.Length && grid[ka] < w.EndS
-                && ((steps.StepSpeedM[ka] + steps.StepSpeedM[ka + 1] + steps.StepSpeedM[ka + 2] + steps.StepSpeedM[ka + 3] + steps.StepSpeedM[ka + 4]) / (grid[ka + 5] - grid[ka])) + resistance > 0)
+                && ((steps.StepSpeedMps[ka] + steps.StepSpeedMps[ka + 1] + steps.StepSpeedMps[ka + 2] + steps.StepSpeedMps[ka + 3] + steps.StepSpeedMps[ka + 4]) / (grid[ka + 5] - grid[ka])) + resistance > 0)
             {
                 ka++;
             }
@@ -405,7 +405,7 @@ internal sealed class WheelWindowFinder
                 double mid = 0.5 * (pulses.MidS(i) + pulses.MidS(j));
                 while (k + 1 < grid.Length && grid[k + 1] <= mid)
                 {
-                    cumulative += steps.StepSpeedM[k];
+                    cumulative += steps.StepSpeedMps[k];
                     k++;
                 }
 

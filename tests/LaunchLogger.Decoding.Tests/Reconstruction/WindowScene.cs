@@ -57,7 +57,7 @@ internal sealed record WindowScene
             dd[k] = Simpson(s => (t1 - s) * CarAccelMps2(s), t0, t1);
         }
 
-        return new StepGrid { TimeS = times, StepSpeedM = dv, StepDistanceM = dd, NoInput = new bool[n] };
+        return new StepGrid { TimeS = times, StepSpeedMps = dv, StepDistanceM = dd, NoInput = new bool[n] };
     }
 
     /// <summary>Exact pulse edges of the wheel (each edge a bracket of zero width).</summary>
