@@ -28,9 +28,16 @@ internal sealed partial class ReconstructionPass
         return noise * noise * a.PeriodS * a.CorrelationFactor * a.CorrelationFactor;
     }
 
-    private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, List<TimeWindow> braking, double[]? slipSignal)
+    /// <summary>The filter's settings for one pass. <paramref name="spin"/> and
+    /// <paramref name="slipSignal"/> are the windows stage's, or what replaces them under
+    /// sustained spin; the slides, firm braking and brake slip signal come from
+    /// <paramref name="windows"/> as it found them.</summary>
+    private FusionSettings Settings(StepGrid steps, double startS, double? stopS, List<TimeWindow> spin, WheelWindows windows, double[]? slipSignal)
     {
         double[] grid = steps.TimeS;
+        List<TimeWindow> braking = windows.Slides;
+        List<TimeWindow> firmBraking = windows.FirmBraking;
+        double[]? brakeSlipSignal = windows.BrakeSlipSignal;
         var forces = new DriveForceWindows(steps, options);
         bool withAccel = accel != null;
         double inputDensity = 0;

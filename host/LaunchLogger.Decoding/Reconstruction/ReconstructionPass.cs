@@ -37,8 +37,6 @@ internal sealed partial class ReconstructionPass
     private double[]? pulseGrowthM;
     private double finalRestFromS = double.PositiveInfinity;
     private readonly double[]? toothOffsets;
-    private double[]? brakeSlipSignal;
-    private List<TimeWindow> firmBraking = [];
 
     public ReconstructionPass(DecodedRun run, ReconstructionOptions options)
     {
@@ -46,53 +44,15 @@ internal sealed partial class ReconstructionPass
         this.options = options;
         configuration = run.Configuration;
         rolloutM = options.RolloutM ?? (configuration.RolloutM > 0 ? configuration.RolloutM : 0.3048);
-        mpp = PulseChannel.MetresPerPulse(configuration) * options.RollingOverToldCircumference;
-        double secondMpp = configuration.SecondMetresPerPulse * options.RollingOverToldCircumference;
-        if (options.UsePulses && mpp > 0 && run.Pulses.Count > 0)
-        {
-            var first = PulseChannel.From(run.Pulses);
-            pulses = first.Length > 0 ? first : null;
-        }
-
-        if (options.UsePulses && options.UseSecondChannel && configuration.Staged && run.SecondPulses.Count > 2 && configuration.SecondMetresPerPulse > 0)
-        {
-            var second = PulseChannel.From(run.SecondPulses);
-            if (pulses is null)
-            {
-                (pulses, mpp, channel) = (second, secondMpp, 1);
-            }
-            else if (DistanceUnderDrive(pulses, mpp, second, secondMpp) is { } ratio && ratio < 0.998)
-            {
-                // The second wheel covers less under drive: the first one slips, so it is driven.
-                channelNote = $"the second pulse channel turned {(1 - ratio) * 100:F1} % less than the first while accelerating; it is taken as the undriven wheel and used for distance";
-                (pulses, mpp, channel) = (second, secondMpp, 1);
-            }
-        }
-
-        if (pulses != null && channel == 0 && options.MeasureToothPositions)
-        {
-            // The ring's own tooth positions, measured over the run's steady revolutions (and a
-            // saved map of it, turned to the run).
-            toothOffsets = ToothPositions.Measure(run.Pulses, configuration.PulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction, options.SavedToothGaps, warnings)?.Offsets(pulses);
-        }
-        else if (pulses != null && options.MeasureToothPositions)
-        {
-            // The distance comes from the second wheel: its ring's positions from the run alone.
-            // The saved map is the first channel's ring.
-            if (options.SavedToothGaps != null)
-            {
-                warnings.Add("calibration: the settings' tooth-spacing map is not applied to this run: its distance comes from the second pulse channel, and the map is the first channel's ring");
-            }
-
-            toothOffsets = ToothPositions.Measure(run.SecondPulses, configuration.SecondPulsesPerRevolution, mpp, run.Source, options.ToothSpacingErrorFraction)?.Offsets(pulses);
-        }
-
+        DistanceChannel distance = ChannelSetup.Choose(run, options);
+        (pulses, mpp, channel, channelNote, toothOffsets) = (distance.Pulses, distance.MetresPerPulse, distance.Index, distance.ChoiceNote, distance.ToothOffsets);
+        warnings.AddRange(distance.Warnings);
         accel = options.UseAccelerometer ? ForwardAcceleration.From(run.Accel) : null;
         motionHintS = run.FirmwareMotionS ?? run.Events.FirstOrDefault(e => e.Kind == EventKind.Motion)?.TimeS;
 
         // Motion at the record's start is estimated, never assumed: the box's staged flag says
         // only that it once saw rest, not that the record holds it.
-        opening = pulses is null ? null : StartMotion.Estimate(pulses, mpp, StartNoiseM());
+        opening = pulses is null ? null : StartMotion.Estimate(pulses, mpp, distance.StartNoiseM);
         staged = configuration.Staged && opening is not { Moving: true };
     }
 
@@ -122,10 +82,24 @@ internal sealed partial class ReconstructionPass
             : accel is null ? ReconstructionMethod.PulsesOnly
             : ReconstructionMethod.PulsesAndAccelerometer;
 
-        CheckPulses();
         if (accel != null)
         {
-            PrepareAccelerometer(accel);
+            PreparedAccel prepared = AccelSetup.Prepare(new AccelSetupInputs
+            {
+                Accel = accel,
+                Pulses = pulses,
+                MetresPerPulse = mpp,
+                MotionHintS = motionHintS,
+                Staged = Staged,
+                Opening = opening,
+                StoppedEvent = run.Events.Any(e => e.Kind == EventKind.Stopped),
+                RestGravityMilliG = run.RestGravityMilliG,
+                ForwardAxis = configuration.ForwardAxis,
+                ForwardAxisReversed = configuration.ForwardAxisReversed,
+                Options = options,
+            });
+            warnings.AddRange(prepared.Warnings);
+            (onset, pitchRad, pitchSigmaRad, accelInput, finalRestFromS) = (prepared.Onset, prepared.PitchRad, prepared.PitchSigmaRad, prepared.InputMps2, prepared.FinalRestFromS);
             AlignAccelerometerClock(accel);
             if (pulses is null && staged && AccelOpeningSpeed() is { } v0)
             {
@@ -172,9 +146,7 @@ internal sealed partial class ReconstructionPass
         }
 
         double[]? slipSignal = windows.DriveSlipSignal;
-        brakeSlipSignal = windows.BrakeSlipSignal;
-        firmBraking = windows.FirmBraking;
-        FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
+        FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, windows, slipSignal));
         if (pulses != null && accel != null && Staged
             && (fused.Outliers > 0.25 * pulses.Length || (fused.SlipKept && Math.Abs(fused.Slip.Value) * 0.5 * G0 > 0.15)))
         {
@@ -185,22 +157,52 @@ internal sealed partial class ReconstructionPass
             warnings.Add("the pulses run far ahead of the accelerometer for much of the run (sustained wheelspin on a driven wheel?): distance under drive comes from the accelerometer, the pulses are used only while coasting and braking");
             spin = new DriveForceWindows(steps, options).DriveWindows(firstMotion.Value, stopS);
             slipSignal = null;
-            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
+            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, windows, slipSignal));
         }
 
         if (pulses != null && options.TyreGrowthAt30Mps != 0)
         {
             // The tread's typical growth with speed, told for a static circumference: the distance
             // per pulse follows it at the first pass's speeds.
-            pulseGrowthM = GrowthDistances(steps.TimeS, fused.SpeedMps, options.TyreGrowthAt30Mps);
-            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
+            pulseGrowthM = RollingScaleMeasure.GrowthDistances(pulses, mpp, steps.TimeS, fused.SpeedMps, options.TyreGrowthAt30Mps);
+            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, windows, slipSignal));
         }
 
         circumferenceSigma = options.CircumferenceSigmaFraction;
         growthSigma = options.TyreGrowthSigmaAt30Mps;
-        if (MeasureRollingScale(steps, firstMotion.Value, stopS, spin, braking, fused) is not null)
+        RollingScaleMeasurement? scaled = RollingScaleMeasure.Measure(new RollingScaleInputs
         {
-            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, braking, slipSignal));
+            Steps = steps,
+            StartS = firstMotion.Value,
+            StopS = stopS,
+            Spin = spin,
+            Slides = braking,
+            Pulses = pulses,
+            MetresPerPulse = mpp,
+            Staged = Staged,
+            Opening = opening,
+            AccelEndS = accel?.TimeS[^1],
+            AccelRestLevelSigmaMps2 = accel?.RestLevelSigmaMps2 ?? 0,
+            InputDensity = accel is null ? 0 : InputDensity(accel, firstMotion.Value),
+            FinalRestFromS = finalRestFromS,
+            SlipKept = fused.SlipKept,
+            SlipToldApart = SlipToldApart(fused),
+            FirstPassSpeedMps = fused.SpeedMps,
+            Options = options,
+        });
+        if (scaled is not null)
+        {
+            // The distance per pulse rescaled, σ the fit's in place of the prior's.
+            rollingScale = scaled.Fit;
+            mpp = scaled.MetresPerPulse;
+            circumferenceSigma = scaled.CircumferenceSigma;
+            if (scaled.Growth is { } growth)
+            {
+                (growthSigma, growthCorrelation, pulseGrowthM) = (growth.Sigma, growth.ScaleCorrelation, growth.PulseGrowthM);
+            }
+
+            warnings.Add(scaled.Note);
+            fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, windows, slipSignal));
         }
 
         ReportSlip(fused, slipSignal != null);
@@ -239,8 +241,8 @@ internal sealed partial class ReconstructionPass
             WheelspinWindows = spin,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
-            BrakeSlipPerMps2 = brakeSlipSignal is null ? null : fused.BrakeSlip,
-            BrakeSlipDistanceM = SlipDistanceWherePulsesCount(grid, brakeSlipSignal, fused.BrakeSlip.Value, [.. spin, .. braking]),
+            BrakeSlipPerMps2 = windows.BrakeSlipSignal is null ? null : fused.BrakeSlip,
+            BrakeSlipDistanceM = SlipDistanceWherePulsesCount(grid, windows.BrakeSlipSignal, fused.BrakeSlip.Value, [.. spin, .. braking]),
             DistanceChannel = channel,
             Staged = Staged,
             StartSpeedMps = Staged ? null : opening is { } s ? new Estimate(s.SpeedMps.Value * MeasuredScale, s.SpeedMps.Sigma * MeasuredScale) : accelOpeningSpeed,
@@ -249,6 +251,9 @@ internal sealed partial class ReconstructionPass
                 : null,
         };
     }
+
+    /// <summary>The measured rolling over told scale, 1 until measured.</summary>
+    private double MeasuredScale => rollingScale?.Scale.Value ?? 1;
 
     /// <summary>k_b·S_b accumulated only where the pulses were used: inside a spin or slide the
     /// pulses were set aside and the phase started afresh after it, so nothing was added there.</summary>
@@ -270,5 +275,6 @@ internal sealed partial class ReconstructionPass
         return result;
     }
 
-    private static double? Min(double? a, double? b) => a is null ? b : b is null ? a : Math.Min(a.Value, b.Value);
+    /// <summary><paramref name="input"/> with the calibrated scale divided out, in place (<see cref="AccelSetup.Scaled"/>).</summary>
+    private double[] ScaledInput(double[] input) => AccelSetup.Scaled(input, options.AccelScaleCalibration);
 }

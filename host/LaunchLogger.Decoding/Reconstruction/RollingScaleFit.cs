@@ -66,7 +66,7 @@ internal static class RollingScaleFit
     private const int MinCheckpoints = 8;
 
     /// <summary>Speed at which the growth term is G, m/s (<see cref="ReconstructionOptions.TyreGrowthSigmaAt30Mps"/>).</summary>
-    private const double GrowthReferenceMps = 30;
+    internal const double GrowthReferenceMps = 30;
 
     /// <summary>The fit, or null when the launch holds too few pulses before the window closes.</summary>
     /// <param name="gridS">Grid times; the first is at rest (moving: at the opening speed).</param>

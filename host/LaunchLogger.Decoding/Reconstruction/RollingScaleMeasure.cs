@@ -1,0 +1,253 @@
+using static System.FormattableString;
+
+namespace LaunchLogger.Decoding.Reconstruction;
+
+/// <summary>What the rolling-scale stage reads: the step grid, the pulses, the windows the wheel
+/// does not roll freely in, the filter's first pass and the accelerometer's calibration.</summary>
+internal sealed record RollingScaleInputs
+{
+    /// <summary>The time grid with the accelerometer input integrated over each step.</summary>
+    public required StepGrid Steps { get; init; }
+
+    /// <summary>First motion (or the record's first observation when it opens moving), s.</summary>
+    public double StartS { get; init; }
+
+    /// <summary>The stop, s, or null when the run does not end at rest.</summary>
+    public double? StopS { get; init; }
+
+    /// <summary>Stretches where the pulses are not used for distance (wheelspin).</summary>
+    public required List<TimeWindow> Spin { get; init; }
+
+    /// <summary>Stretches of braking where the wheel slid.</summary>
+    public required List<TimeWindow> Slides { get; init; }
+
+    /// <summary>The distance channel, or null without pulses.</summary>
+    public PulseChannel? Pulses { get; init; }
+
+    /// <summary>Distance per pulse of <see cref="Pulses"/>, m, as told (and the tyre's ratio applied).</summary>
+    public double MetresPerPulse { get; init; }
+
+    /// <summary>True when a rest was seen before the motion.</summary>
+    public bool Staged { get; init; }
+
+    /// <summary>How the first pulses open the record, or null without enough of them.</summary>
+    public StartMotion? Opening { get; init; }
+
+    /// <summary>The last accelerometer sample's time, s, or null without an accelerometer.</summary>
+    public double? AccelEndS { get; init; }
+
+    /// <summary>σ of the accelerometer's resting level, m/s².</summary>
+    public double AccelRestLevelSigmaMps2 { get; init; }
+
+    /// <summary>Noise density of the accelerometer's input from <see cref="StartS"/> on, m²/s³.</summary>
+    public double InputDensity { get; init; }
+
+    /// <summary>Where the samples the level was also read from at the final rest begin, s (+∞ for none).</summary>
+    public double FinalRestFromS { get; init; } = double.PositiveInfinity;
+
+    /// <summary>True when the filter's first pass kept a drive-slip coefficient.</summary>
+    public bool SlipKept { get; init; }
+
+    /// <summary>True when the first pass's slip coefficient lies beyond 3σ of an undriven wheel's.</summary>
+    public bool SlipToldApart { get; init; }
+
+    /// <summary>The filter's first pass's speed on the grid, m/s.</summary>
+    public required double[] FirstPassSpeedMps { get; init; }
+
+    /// <summary>The calibration (the accelerometer's scale), priors and the fit's windows.</summary>
+    public required ReconstructionOptions Options { get; init; }
+}
+
+/// <summary>The pulses' scale as the rolling-scale stage measured it, to be applied.</summary>
+internal sealed class RollingScaleMeasurement
+{
+    /// <summary>The fit: the rolling over told scale (and, for a record that opens moving, the growth).</summary>
+    public required RollingScale Fit { get; init; }
+
+    /// <summary>Distance per pulse rescaled by the measured scale, m.</summary>
+    public double MetresPerPulse { get; init; }
+
+    /// <summary>The circumference's σ from now on, a fraction: the fit's in place of the prior's.</summary>
+    public double CircumferenceSigma { get; init; }
+
+    /// <summary>For a record that opens moving, the growth with speed the fit measured: its σ, its
+    /// correlation with the scale and the distance it adds by each pulse observation, m; null for
+    /// a standing start (the priors stay).</summary>
+    public MeasuredGrowth? Growth { get; init; }
+
+    /// <summary>The report's note on what was measured.</summary>
+    public required string Note { get; init; }
+}
+
+/// <summary>The tyre's growth with speed as a fit over a record that opens moving measured it.</summary>
+/// <param name="Sigma">σ of the growth at 30 m/s, a fraction.</param>
+/// <param name="ScaleCorrelation">Correlation of the growth with the scale.</param>
+/// <param name="PulseGrowthM">Distance the growth adds by each pulse observation, m.</param>
+internal sealed record MeasuredGrowth(double Sigma, double ScaleCorrelation, double[] PulseGrowthM);
+
+/// <summary>The rolling-scale stage: when the accelerometer's scale is calibrated, the pulses'
+/// scale measured over the launch of a standing start (<see cref="RollingScaleFit"/>), or over a
+/// record that opens moving (its changes of speed, and the rest it may end in).</summary>
+internal static class RollingScaleMeasure
+{
+    /// <summary>Braking force per unit mass from which a wheel no longer rolls freely for the
+    /// rolling-scale fit, m/s²: a braked tyre slips by about its deceleration in g over a slip
+    /// stiffness of 15–30 (<c>BrakeSlipPrior.CarTyres</c>), 0.17–0.34 % here, and the fit's window
+    /// closes 0.1 s before it is reached.</summary>
+    private const double FreeRollingBrakeMps2 = 0.5;
+
+    /// <summary>The speed equations at rest after a stop: from this long after it…</summary>
+    private const double RestFromS = 0.2;
+
+    /// <summary>…every this often…</summary>
+    private const double RestEveryS = 0.1;
+
+    /// <summary>…up to this long after it, seconds.</summary>
+    private const double RestToS = 1.5;
+
+    /// <summary>A measured scale further than this from 1 is taken as a failed fit, not a tyre (ours).</summary>
+    private const double LargestScaleChange = 0.2;
+
+    /// <summary>Measures the pulses' scale (<see cref="RollingScaleFit"/>); when it is known better
+    /// than the circumference's prior, gives the distance per pulse rescaled by it and its σ in
+    /// place of the prior's. The caller applies it and runs the filter again.</summary>
+    /// <returns>The measurement, or null when there is nothing to apply (no calibration, no
+    /// accelerometer or pulses, a slipping wheel, a fit no better than the prior).</returns>
+    public static RollingScaleMeasurement? Measure(RollingScaleInputs input)
+    {
+        ReconstructionOptions options = input.Options;
+        if (options.AccelScaleCalibration is not { Value: > 0 } calibration || input.AccelEndS is null || input.Pulses is not { } pulses || input.SlipKept || (!input.Staged && input.Opening is null))
+        {
+            return null;
+        }
+
+        // The fit takes the wheel to roll freely over the launch. A slip coefficient the pulses
+        // tell apart from an undriven wheel's (beyond 3σ of the two combined) says it does not,
+        // even when it is too small to keep: a driven wheel's slip grows with the distance much as
+        // a scale error does, so the fit would read one as the other (an electric saloon's driven
+        // wheel: the scale off by a few per cent and its stops 3-11 m short, beyond their σ).
+        // (A record that opens moving has no launch and no slip state: its fit reads the changes
+        // of speed and the rest it ends in.)
+        if (input.Staged && input.SlipToldApart)
+        {
+            return null;
+        }
+
+        // The launch only: up to the first brake, spin or stop, and while the wheel turns freely.
+        double end = input.StopS ?? double.PositiveInfinity;
+        foreach (TimeWindow w in input.Spin.Concat(input.Slides))
+        {
+            end = Math.Min(end, w.StartS);
+        }
+
+        double mpp = input.MetresPerPulse;
+        StepGrid steps = input.Steps;
+        double biasSigma = Math.Sqrt(Square(input.AccelRestLevelSigmaMps2) + Square(options.BiasPriorMps2));
+        var noise = new RollingScaleNoise
+        {
+            InputDensity = input.InputDensity,
+            BiasWanderDensity = options.RollingScaleBiasWanderDensity,
+            BiasSigmaMps2 = biasSigma,
+            CircumferenceSigma = options.CircumferenceSigmaFraction,
+            Growth = options.TyreGrowthAt30Mps,
+            GrowthSigma = options.TyreGrowthSigmaAt30Mps,
+            AccelScaleSigma = calibration.Sigma,
+            ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
+            EdgeJitterS = options.EdgeJitterS,
+            WindowS = options.RollingScaleWindowS,
+            TopSpeedMps = options.RollingScaleTopSpeedMps,
+        };
+        RollingScale? measured = input.Staged
+            ? RollingScaleFit.Fit(steps.TimeS, steps.StepSpeedMps, steps.StepDistanceM, steps.NoInput, pulses, mpp, input.StartS, end, noise)
+            : MeasureMovingScale(input, pulses, end, noise);
+        if (measured is not { } fit || !(fit.Scale.Sigma < options.CircumferenceSigmaFraction) || !(Math.Abs(fit.Scale.Value - 1) < LargestScaleChange))
+        {
+            return null;
+        }
+
+        double scaledMpp = mpp * fit.Scale.Value;
+
+        // Speeds from the launch's low to cruise and beyond show the growth too: the distance per
+        // pulse follows it, and σ takes the fit's (correlated with the scale's).
+        MeasuredGrowth? growth = input.Staged
+            ? null
+            : new MeasuredGrowth(fit.Growth.Sigma, fit.ScaleGrowthCorrelation, GrowthDistances(pulses, scaledMpp, steps.TimeS, input.FirstPassSpeedMps, fit.Growth.Value));
+        string over = input.Staged ? "the launch" : fit.RestEquations > 0 ? "the record's changes of speed and the rest it ends in" : "the record's changes of speed";
+        return new RollingScaleMeasurement
+        {
+            Fit = fit,
+            MetresPerPulse = scaledMpp,
+            CircumferenceSigma = fit.Scale.Sigma / fit.Scale.Value,
+            Growth = growth,
+            Note = Invariant($"the pulses' scale was measured over {over} against the calibrated accelerometer ({fit.Checkpoints} pulse observations, {fit.WindowEndS - input.StartS:0.0} s): the tyre rolls {((fit.Scale.Value * options.RollingOverToldCircumference) - 1) * 100:+0.00;-0.00} % ± {fit.Scale.Sigma * options.RollingOverToldCircumference * 100:0.00} % from the circumference told; distances and speeds use it"),
+        };
+    }
+
+    /// <summary>The distance the tyre's growth G·(v / 30 m/s)² adds by each pulse observation,
+    /// counted from the first, at the speeds <paramref name="speedMps"/> on
+    /// <paramref name="grid"/> (the filter's first pass), m.</summary>
+    public static double[] GrowthDistances(PulseChannel pulses, double mpp, double[] grid, double[] speedMps, double growthAt30)
+    {
+        var added = new double[pulses.Length];
+        int k = 0;
+        for (int i = 1; i < added.Length; i++)
+        {
+            double mid = pulses.MidS(i);
+            while (k + 1 < grid.Length && grid[k + 1] <= mid)
+            {
+                k++;
+            }
+
+            double v = speedMps[k] / RollingScaleFit.GrowthReferenceMps;
+            added[i] = added[i - 1] + ((pulses.Counts[i] - pulses.Counts[i - 1]) * mpp * growthAt30 * v * v);
+        }
+
+        return added;
+    }
+
+    /// <summary>The fit over a record that opens moving: its pulses while the wheel rolls freely
+    /// (up to <paramref name="freeEndS"/>, and before the brakes come on), its opening speed from
+    /// the first pulses (a wide prior), and, when it ends at rest, the speed zero there: the
+    /// acceleration integrated down to that rest against the pulses just before the brakes.</summary>
+    private static RollingScale? MeasureMovingScale(RollingScaleInputs input, PulseChannel pulses, double freeEndS, RollingScaleNoise noise)
+    {
+        ReconstructionOptions options = input.Options;
+        StepGrid steps = input.Steps;
+        double startS = input.StartS;
+        double[] grid = steps.TimeS;
+        double openingSpeed = input.Opening!.Value.SpeedMps.Value;
+
+        // The speed at the grid's first point: the opening speed less what the input adds up to the first pulse.
+        double gained = 0;
+        for (int k = 0; k + 1 < grid.Length && grid[k + 1] <= startS; k++)
+        {
+            gained += steps.StepSpeedMps[k];
+        }
+
+        double v0 = Math.Max(openingSpeed - gained, 0);
+        double brakesOn = new DriveForceWindows(steps, options).BrakingWindows(startS, input.StopS, FreeRollingBrakeMps2, openingSpeed) is [var first, ..] ? first.StartS : double.PositiveInfinity;
+        double pulsesEnd = Math.Min(freeEndS, brakesOn);
+        var rest = new List<double>();
+        double brakeSpan = 0;
+        if (input.StopS is { } stop)
+        {
+            // Not over the samples the level was read from at the final rest: they would count twice.
+            double dataEnd = Math.Min(Math.Min(input.AccelEndS!.Value, grid[^1]), input.FinalRestFromS);
+            for (double t = stop + RestFromS; t <= Math.Min(stop + RestToS, dataEnd) + 1e-9; t += RestEveryS)
+            {
+                rest.Add(t);
+            }
+
+            brakeSpan = Math.Max(stop - Math.Min(pulsesEnd, stop), 0);
+        }
+
+        // The opening speed's prior is wide (1 m/s and 10 %, ten times the circumference's 1 %):
+        // the pulses and the rest tell it, at the scale being measured.
+        var moving = new MovingWindow(new Estimate(v0, 1 + (0.1 * v0)), [.. rest], brakeSpan, options.BrakeBiasStepSigmaMps2);
+        return RollingScaleFit.Fit(
+            grid, steps.StepSpeedMps, steps.StepDistanceM, steps.NoInput, pulses, input.MetresPerPulse, startS, pulsesEnd,
+            noise with { WindowS = options.RollingScaleMovingWindowS, TopSpeedMps = double.PositiveInfinity }, moving);
+    }
+
+    private static double Square(double x) => x * x;
+}
