@@ -19,8 +19,12 @@ internal sealed record WindowScene
     /// car's speed when null (a wheel that rolls with the road).</summary>
     public Func<double, double, double>? WheelSpeedMps { get; init; }
 
-    /// <summary>First motion, s (the car is at rest before it).</summary>
+    /// <summary>First motion, s (the car is at rest before it), or the record's opening when
+    /// <see cref="InitialSpeedMps"/> is not 0.</summary>
     public double StartS { get; init; }
+
+    /// <summary>The car's speed at <see cref="StartS"/>, m/s: 0 for a standing start.</summary>
+    public double InitialSpeedMps { get; init; }
 
     /// <summary>End of the data, s.</summary>
     public required double EndS { get; init; }
@@ -61,10 +65,13 @@ internal sealed record WindowScene
     }
 
     /// <summary>Exact pulse edges of the wheel (each edge a bracket of zero width).</summary>
-    public PulseChannel Pulses()
+    public PulseChannel Pulses() => PulseChannel.From(PulseRecords());
+
+    /// <summary>The edges of <see cref="Pulses"/> as the records a run holds.</summary>
+    public List<PulseRecord> PulseRecords()
     {
         var records = new List<PulseRecord>();
-        double speed = 0;
+        double speed = InitialSpeedMps;
         double wheel = 0;
         long count = 0;
         for (double t = StartS; t < EndS; t += FineStepS)
@@ -87,7 +94,7 @@ internal sealed record WindowScene
             wheel = after;
         }
 
-        return PulseChannel.From(records);
+        return records;
     }
 
     /// <summary>Accelerometer samples every <paramref name="periodS"/> (1 kHz unless told) over

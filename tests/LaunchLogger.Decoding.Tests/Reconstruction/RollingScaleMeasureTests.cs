@@ -1,0 +1,146 @@
+using LaunchLogger.Decoding.Reconstruction;
+
+namespace LaunchLogger.Decoding.Tests.Reconstruction;
+
+/// <summary>The rolling-scale stage on prescribed motions written straight into its inputs
+/// (<see cref="WindowScene"/>): a tyre that rolls a known fraction further than told, and one that
+/// also grows with the square of speed by a known amount, against a calibrated accelerometer.
+/// The filter's first pass is stood in for by the prescribed speed.</summary>
+public class RollingScaleMeasureTests
+{
+    private const double MetresPerPulse = 0.05;
+
+    /// <summary>Noise of the accelerometer's input the fit is told, m/s², at 1 kHz.</summary>
+    private const double NoiseMps2 = 0.02;
+
+    private static readonly ReconstructionOptions Calibrated = new() { AccelScaleCalibration = new Estimate(1, 0.002) };
+
+    /// <summary>3 m/s² from rest for 6 s (18 m/s), then steady to 7 s.</summary>
+    private static WindowScene Launch(double scale) => new()
+    {
+        CarAccelMps2 = t => t < 0 ? 0 : t < 6 ? 3 : 0,
+        WheelSpeedMps = (_, v) => v / scale,
+        EndS = 7,
+        MetresPerPulse = MetresPerPulse,
+    };
+
+    [Theory]
+    [InlineData(1.012)]
+    [InlineData(0.985)]
+    public void AStandingLaunchMeasuresHowMuchFurtherTheTyreRollsThanTold(double scale)
+    {
+        // A tyre rolling `scale` times the circumference told moves the car scale × 0.05 m a
+        // pulse; counted at 0.05 m, the road is the count times that (the definition of the
+        // rolling circumference; common practice).
+        WindowScene scene = Launch(scale);
+
+        RollingScaleMeasurement measured = RollingScaleMeasure.Measure(StandingInputs(scene, Calibrated))!;
+
+        Estimate fit = measured.Fit.Scale;
+        Assert.InRange(scale, fit.Value - (3 * fit.Sigma), fit.Value + (3 * fit.Sigma));
+        Assert.True(fit.Sigma < Calibrated.CircumferenceSigmaFraction);
+        Assert.Equal(MetresPerPulse * fit.Value, measured.MetresPerPulse, 12);
+        Assert.Equal(fit.Sigma / fit.Value, measured.CircumferenceSigma, 12);
+        Assert.Null(measured.Growth);
+        Assert.StartsWith("the pulses' scale was measured over the launch", measured.Note);
+    }
+
+    [Fact]
+    public void ARecordThatOpensMovingMeasuresTheScaleAndTheGrowth()
+    {
+        // Opens at 12 m/s; 2 m/s² from 1 s to 11 s (32 m/s); a coast to 11.5 s; 6 m/s² to rest
+        // at 11.5 + 32/6 s; at rest to 19 s. The tyre rolls 1 % further than told and grows by
+        // G·(v / 30 m/s)² with G = 0.8 %.
+        const double Scale = 1.01;
+        const double Growth = 0.008;
+        double stop = 11.5 + (32 / 6.0);
+        var scene = new WindowScene
+        {
+            CarAccelMps2 = t => t < 1 ? 0 : t < 11 ? 2 : t < 11.5 ? 0 : t < stop ? -6 : 0,
+            WheelSpeedMps = (_, v) => v / (Scale * (1 + (Growth * (v / 30) * (v / 30)))),
+            InitialSpeedMps = 12,
+            PreRollS = 0,
+            EndS = 19,
+            MetresPerPulse = MetresPerPulse,
+        };
+        PulseChannel pulses = scene.Pulses();
+        var options = Calibrated with { TyreGrowthSigmaAt30Mps = 0.01 };
+        RollingScaleInputs inputs = StandingInputs(scene, options) with
+        {
+            StartS = pulses.MidS(0),
+            StopS = stop,
+            Pulses = pulses,
+            Staged = false,
+            Opening = StartMotion.Estimate(pulses, MetresPerPulse, 1e-4),
+            FirstPassSpeedMps = SpeedOnGrid(scene),
+        };
+
+        RollingScaleMeasurement measured = RollingScaleMeasure.Measure(inputs)!;
+
+        Estimate scale = measured.Fit.Scale;
+        Estimate growth = measured.Fit.Growth;
+        Assert.InRange(Scale, scale.Value - (3 * scale.Sigma), scale.Value + (3 * scale.Sigma));
+        Assert.InRange(Growth, growth.Value - (3 * growth.Sigma), growth.Value + (3 * growth.Sigma));
+        Assert.True(growth.Sigma < options.TyreGrowthSigmaAt30Mps);
+        MeasuredGrowth applied = measured.Growth!;
+        Assert.Equal(growth.Sigma, applied.Sigma);
+        Assert.Equal(pulses.Length, applied.PulseGrowthM.Length);
+        Assert.StartsWith("the pulses' scale was measured over the record's changes of speed and the rest it ends in", measured.Note);
+
+        // The growth adds G·∫(v / 30)²·v dt over the record: at a steady v that is v³·T, and at a
+        // constant a from v₀ to v₁ it is (v₁⁴ − v₀⁴) / (4a) (integral of a power; any calculus
+        // text), all over 30².
+        double integral = (Math.Pow(12, 3) * 1) + ((Math.Pow(32, 4) - Math.Pow(12, 4)) / (4 * 2)) + (Math.Pow(32, 3) * 0.5) + (Math.Pow(32, 4) / (4 * 6));
+        double expected = growth.Value * integral / (30 * 30);
+        Assert.Equal(expected, applied.PulseGrowthM[^1], expected * 0.02);
+    }
+
+    [Theory]
+    [InlineData("no calibration")]
+    [InlineData("no accelerometer")]
+    [InlineData("slip kept")]
+    [InlineData("slip told apart")]
+    public void NothingIsMeasuredWhereTheWheelCannotBeTakenToRollFreelyOrNothingIsCalibrated(string why)
+    {
+        RollingScaleInputs inputs = StandingInputs(Launch(1.012), Calibrated);
+        inputs = why switch
+        {
+            "no calibration" => inputs with { Options = new ReconstructionOptions() },
+            "no accelerometer" => inputs with { AccelEndS = null },
+            "slip kept" => inputs with { SlipKept = true },
+            _ => inputs with { SlipToldApart = true },
+        };
+
+        Assert.Null(RollingScaleMeasure.Measure(inputs));
+    }
+
+    private static RollingScaleInputs StandingInputs(WindowScene scene, ReconstructionOptions options) => new()
+    {
+        Steps = scene.Grid(),
+        StartS = scene.StartS,
+        Spin = [],
+        Slides = [],
+        Pulses = scene.Pulses(),
+        MetresPerPulse = MetresPerPulse,
+        Staged = true,
+        AccelEndS = scene.EndS,
+        AccelRestLevelSigmaMps2 = 0.001,
+        InputDensity = NoiseMps2 * NoiseMps2 * 0.001,
+        FirstPassSpeedMps = SpeedOnGrid(scene),
+        Options = options,
+    };
+
+    /// <summary>The car's speed at each grid point, integrated from the scene's acceleration.</summary>
+    private static double[] SpeedOnGrid(WindowScene scene)
+    {
+        StepGrid grid = scene.Grid();
+        var speed = new double[grid.TimeS.Length];
+        speed[0] = grid.TimeS[0] < scene.StartS ? 0 : scene.InitialSpeedMps;
+        for (int k = 1; k < speed.Length; k++)
+        {
+            speed[k] = speed[k - 1] + grid.StepSpeedMps[k - 1];
+        }
+
+        return speed;
+    }
+}
