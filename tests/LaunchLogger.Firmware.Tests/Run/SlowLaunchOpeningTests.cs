@@ -13,9 +13,9 @@ namespace LaunchLogger.Firmware.Tests.Run;
 /// <remarks>The launch: a constant 42 mg from rest (threshold 40 mg), the slowest a box at rest
 /// times by its accelerometer: the mean of 500 samples passes 40 mg 477 samples after it. The host
 /// needs from before first motion: its onset search starts 0.5 s before the box's mark when it has
-/// no pulses to go by (<c>ReconstructionPass.FindOnset</c>), and its resting level takes the samples
+/// no pulses to go by (<c>AccelSetup</c>'s onset search), and its resting level takes the samples
 /// from up to 2 s before down to 30 ms before the onset (at least 8;
-/// <c>ReconstructionPass.PrepareAccelerometer</c>), its σ shrinking with their number.</remarks>
+/// <c>AccelSetup</c>), its σ shrinking with their number.</remarks>
 public class SlowLaunchOpeningTests(ITestOutputHelper output)
 {
     private const double LaunchMilliG = 42;
