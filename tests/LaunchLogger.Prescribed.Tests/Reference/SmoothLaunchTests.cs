@@ -9,10 +9,11 @@ public class SmoothLaunchTests
 {
     private const double G = 9.80665; // standard gravity (3rd CGPM, 1901; ISO 80000-3)
 
+    // Rise time, s, and peak, g: the generator's range (0.05–0.4 s, 0.25–1.1 g) and its middle.
+    public static TheoryData<double, double> Rises => new() { { 0.05, 0.25 }, { 0.2, 0.7 }, { 0.4, 1.1 } };
+
     [Theory]
-    [InlineData(0.05, 0.25)]
-    [InlineData(0.2, 0.7)]
-    [InlineData(0.4, 1.1)]
+    [MemberData(nameof(Rises))]
     public void A_raised_cosine_rise_gains_half_peak_times_T_and_its_closed_form_distance(double riseS, double peakG)
     {
         double peak = peakG * G;
@@ -36,9 +37,7 @@ public class SmoothLaunchTests
     }
 
     [Theory]
-    [InlineData(0.05, 0.25)]
-    [InlineData(0.2, 0.7)]
-    [InlineData(0.4, 1.1)]
+    [MemberData(nameof(Rises))]
     public void The_closed_form_segment_gives_the_hand_integrals_at_the_start_middle_and_end(double riseS, double peakG)
     {
         double peak = peakG * G;
