@@ -22,8 +22,17 @@ public sealed record PlacedSegment(AccelSegment Segment, double StartS, double D
             return new MotionState(StartS + tau, StartDistanceM, 0, 0);
         }
 
-        double v = StartSpeedMps + Segment.SpeedGainMps(tau);
+        (double v, double a) = SpeedAndAccelAt(tau);
         double x = StartDistanceM + (StartSpeedMps * tau) + Segment.DistanceGainM(tau);
-        return new MotionState(StartS + tau, x, Math.Max(0, v), Segment.AccelMps2(tau));
+        return new MotionState(StartS + tau, x, v, a);
+    }
+
+    /// <summary>The speed and acceleration <paramref name="tauS"/> seconds into it, as
+    /// <see cref="StateAt"/> gives them, without the distance (for integrands that need none:
+    /// a tabulated piece's distance costs twice its speed).</summary>
+    public (double SpeedMps, double AccelMps2) SpeedAndAccelAt(double tauS)
+    {
+        double tau = Math.Clamp(tauS, 0, DurationS);
+        return AtRest ? (0, 0) : (Math.Max(0, StartSpeedMps + Segment.SpeedGainMps(tau)), Segment.AccelMps2(tau));
     }
 }

@@ -1,11 +1,10 @@
-using MathNet.Numerics.Interpolation;
 using static System.FormattableString;
 
 namespace LaunchLogger.Prescribed.Motion;
 
 /// <summary>An acceleration history given as a table (time since the piece began, acceleration),
 /// joined by a shape-preserving piecewise cubic (PCHIP: Fritsch &amp; Carlson, SIAM J. Numer.
-/// Anal. 17, 1980), which never overshoots the table between its points.</summary>
+/// Anal. 17, 1980; <see cref="PchipCurve"/>), which never overshoots the table between its points.</summary>
 /// <remarks>Each piece of the interpolant is a cubic, so ∫a and ∫s·a over a piece are polynomials
 /// of degree 3 and 4, which a 3-point Gauss–Legendre rule integrates exactly (Abramowitz &amp;
 /// Stegun 25.4.29: n points are exact to degree 2n − 1). Sums up to each knot are kept, so a
@@ -16,7 +15,7 @@ public sealed class TabulatedSegment : AccelSegment
     private const double GaussEdgeWeight = 5.0 / 9.0;
     private const double GaussMidWeight = 8.0 / 9.0;
     private readonly double[] knotsS;
-    private readonly IInterpolation curve;
+    private readonly PchipCurve curve;
     private readonly double[] speedAtKnot;
     private readonly double[] momentAtKnot;
 
@@ -28,27 +27,27 @@ public sealed class TabulatedSegment : AccelSegment
     {
         knotsS = [.. timesS];
         double[] values = [.. accelsMps2];
-        curve = CubicSpline.InterpolatePchipSorted(knotsS, values);
+        curve = new PchipCurve(knotsS, values);
         speedAtKnot = new double[knotsS.Length];
         momentAtKnot = new double[knotsS.Length];
         for (int i = 1; i < knotsS.Length; i++)
         {
-            speedAtKnot[i] = speedAtKnot[i - 1] + Integrate(knotsS[i - 1], knotsS[i], s => curve.Interpolate(s));
-            momentAtKnot[i] = momentAtKnot[i - 1] + Integrate(knotsS[i - 1], knotsS[i], s => s * curve.Interpolate(s));
+            speedAtKnot[i] = speedAtKnot[i - 1] + Integrate(knotsS[i - 1], knotsS[i], s => curve.At(s));
+            momentAtKnot[i] = momentAtKnot[i - 1] + Integrate(knotsS[i - 1], knotsS[i], s => s * curve.At(s));
         }
     }
 
     /// <inheritdoc/>
-    public override double AccelMps2(double tauS) => curve.Interpolate(Math.Clamp(tauS, 0, DurationS));
+    public override double AccelMps2(double tauS) => curve.At(Math.Clamp(tauS, 0, DurationS));
 
     /// <inheritdoc/>
-    public override double SpeedGainMps(double tauS) => Cumulative(tauS, speedAtKnot, s => curve.Interpolate(s));
+    public override double SpeedGainMps(double tauS) => Cumulative(tauS, speedAtKnot, s => curve.At(s));
 
     /// <inheritdoc/>
     public override double DistanceGainM(double tauS)
     {
         // Δx(τ) = τ·Δv(τ) − ∫₀^τ s·a(s) ds.
-        double moment = Cumulative(tauS, momentAtKnot, s => s * curve.Interpolate(s));
+        double moment = Cumulative(tauS, momentAtKnot, s => s * curve.At(s));
         return (tauS * SpeedGainMps(tauS)) - moment;
     }
 
@@ -93,13 +92,12 @@ public sealed class TabulatedSegment : AccelSegment
     private double Cumulative(double tauS, double[] atKnot, Func<double, double> f)
     {
         double t = Math.Clamp(tauS, 0, DurationS);
-        int i = Array.BinarySearch(knotsS, t);
-        if (i >= 0)
+        int i = curve.PieceAt(t);
+        if (t == knotsS[i] || t == knotsS[i + 1])
         {
-            return atKnot[i];
+            return t == knotsS[i] ? atKnot[i] : atKnot[i + 1];
         }
 
-        i = ~i - 1;
         return atKnot[i] + Integrate(knotsS[i], t, f);
     }
 }

@@ -1,5 +1,4 @@
 using LaunchLogger.Prescribed.Motion;
-using MathNet.Numerics.Integration;
 using MathNet.Numerics.RootFinding;
 
 namespace LaunchLogger.Prescribed.Sensors;
@@ -33,6 +32,9 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
     public const double ChunkS = 0.05;
 
     private const double RevolutionTolerance = 1e-12;
+
+    private static readonly LegendreRule Coarse = new(12);
+    private static readonly LegendreRule Fine = new(24);
 
     /// <summary>Least distance at which an edge is placed, m (a nanometre: far below any figure).</summary>
     private const double FirstEdgeDistanceM = 1e-9;
@@ -124,16 +126,17 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
             return 0;
         }
 
+        // The distance is worked out only for a driven wheel's slip, which depends on it.
         double Rate(double t)
         {
-            MotionState state = s.StateAt(t - s.StartS);
-            double v = state.SpeedMps;
-            double slip = (Slip?.At(state.DistanceM, state.AccelMps2) ?? 0) - (SpinUp?.At(state.AccelMps2) ?? 0) - (Brake?.At(state.AccelMps2) ?? 0);
+            double tau = t - s.StartS;
+            (double v, double accel) = s.SpeedAndAccelAt(tau);
+            double slip = (Slip?.At(s.StateAt(tau).DistanceM, accel) ?? 0) - (SpinUp?.At(accel) ?? 0) - (Brake?.At(accel) ?? 0);
             return v * (1 + slip) / Tyre.CircumferenceAt(v);
         }
 
-        double coarse = GaussLegendreRule.Integrate(Rate, a, b, 12);
-        double fine = GaussLegendreRule.Integrate(Rate, a, b, 24);
+        double coarse = Coarse.Integrate(Rate, a, b);
+        double fine = Fine.Integrate(Rate, a, b);
         if (Math.Abs(fine - coarse) <= RevolutionTolerance || b - a < 1e-6)
         {
             return fine;

@@ -77,8 +77,7 @@ public static class PrescribedShapes
     /// from rest to <paramref name="peakMps2"/> over <paramref name="riseS"/> as a raised cosine,
     /// a(τ) = peak·(1 − cos(πτ/T))/2, so the jerk itself starts from zero and the rise begins
     /// like τ², not τ.</summary>
-    public static AccelSegment SmoothRise(double riseS, double peakMps2) =>
-        new FunctionSegment(riseS, tau => 0.5 * peakMps2 * (1 - Math.Cos(Math.PI * tau / riseS)), Invariant($"raised-cosine rise 0→{peakMps2:0.###} m/s² over {riseS:0.###} s"));
+    public static AccelSegment SmoothRise(double riseS, double peakMps2) => new RaisedCosineSegment(riseS, peakMps2);
 
     /// <summary>A standing start at a constant acceleration, for closed-form checks.</summary>
     public static Shape ConstantLaunch(double accelMps2, double idleS = IdleS)

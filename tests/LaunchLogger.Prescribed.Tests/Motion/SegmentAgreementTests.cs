@@ -13,6 +13,8 @@ public class SegmentAgreementTests
         { "ramp down", new RampSegment(2, 7, 1) },
         { "exponential, T 2 s", new ExponentialSegment(6, 8, 1.5, 2) },
         { "exponential, T 0.05 s", new ExponentialSegment(0.4, 0, -9, 0.05) },
+        { "raised cosine, T 0.05 s", new RaisedCosineSegment(0.05, 2.5) },
+        { "raised cosine, T 0.4 s", new RaisedCosineSegment(0.4, 10.8) },
     };
 
     [Theory]
@@ -25,6 +27,25 @@ public class SegmentAgreementTests
             double tau = closed.DurationS * k / 10;
             Assert.Equal(numeric.SpeedGainMps(tau), closed.SpeedGainMps(tau), 10);
             Assert.Equal(numeric.DistanceGainM(tau), closed.DistanceGainM(tau), 10);
+        }
+    }
+
+    [Theory]
+    [InlineData(0.05, 2.5)]
+    [InlineData(0.2, 6.9)]
+    [InlineData(0.4, 10.8)]
+    public void A_raised_cosine_rise_matches_adaptive_quadrature_to_1e12_relative(double riseS, double peakMps2)
+    {
+        // The same a(τ) written out on its own, integrated by MathNet.Numerics' adaptive
+        // Gauss–Kronrod (QUADPACK's 15-point rule, Piessens et al. 1983) to 1e-13; relative, so
+        // that the early points, where the distance gained is as small as 1e-11 m, are held as tightly.
+        var numeric = new FunctionSegment(riseS, tau => 0.5 * peakMps2 * (1 - Math.Cos(Math.PI * tau / riseS)), "raised cosine");
+        var closed = new RaisedCosineSegment(riseS, peakMps2);
+        for (int k = 1; k <= 20; k++)
+        {
+            double tau = riseS * k / 20;
+            Assert.True(Math.Abs(closed.SpeedGainMps(tau) - numeric.SpeedGainMps(tau)) <= 1e-12 * numeric.SpeedGainMps(tau), $"Δv at τ = {tau}");
+            Assert.True(Math.Abs(closed.DistanceGainM(tau) - numeric.DistanceGainM(tau)) <= 1e-12 * numeric.DistanceGainM(tau), $"Δx at τ = {tau}");
         }
     }
 
