@@ -28,12 +28,20 @@ internal enum OnsetShape
     /// bend over within the window as a take-up does, where τ² alone rises too steeply and τ + τ²
     /// fits the bend only with its onset moved late.</summary>
     SmoothTakeUp,
+
+    /// <summary>c₂τ² + c₄τ⁴, rising through the window: a take-up whose jerk rises from zero and
+    /// bends over symmetrically (a jerk pulse odd about the onset, as a sine's or any smooth
+    /// symmetric pulse's is, so its acceleration has no τ³ term: a raised cosine is
+    /// (π²/4T²)·τ²·(1 − π²τ²/12T² + …), Taylor). Over a window reaching well up the rise
+    /// c₂τ² + c₃τ³ follows such a take-up only with its onset moved late (by about 1 % of the rise
+    /// time over its first 60 %, a least-squares fit to the closed form), this one within 0.2 %.</summary>
+    EvenTakeUp,
 }
 
 /// <summary>Finds the onset of acceleration as a change point: zero before t₀, one of the
 /// <see cref="OnsetShape"/>s after it (a ramp, a τ², both, a jump, or a smooth take-up
-/// c₂τ² + c₃τ³), fitted by least squares over a window that ends where the
-/// rise has reached a quarter of its early height, with t₀ on a grid of a quarter sample (a jump's
+/// c₂τ² + c₃τ³ or c₂τ² + c₄τ⁴), fitted by least squares over a window that ends where the
+/// rise has reached <see cref="WindowHeightShare"/> of its early height, with t₀ on a grid of a quarter sample (a jump's
 /// fit is flat between two samples: its t₀ is the best gap's middle). The shape is chosen by the
 /// Bayesian information criterion, each shape at its own least residual; where a curved shape is
 /// chosen the onset is the shapes' onsets averaged by their odds (a ramp or a jump chosen keeps its
@@ -47,7 +55,7 @@ internal enum OnsetShape
 /// G. Schwarz (1978), "Estimating the dimension of a model", Ann. Statist. 6(2).</remarks>
 internal static class AccelOnsetFit
 {
-    private const int Shapes = 5;
+    private const int Shapes = 6;
 
     /// <summary>A sample this close after a candidate onset counts as before it, seconds. A box that
     /// times its samples evenly in whole microseconds puts the coarse candidates (whole periods from a
@@ -55,6 +63,24 @@ internal static class AccelOnsetFit
     /// which side that sample falls on, and two neighbouring candidates can both miss the split a jump
     /// needs.</summary>
     private const double TieS = 1e-7;
+
+    /// <summary>The fit's window ends where the smoothed rise has reached this share of its height
+    /// over the 0.2 s after the crossing. A curved start's onset is pinned by the rise's length
+    /// within the window: least squares on a(τ) = c·(t − t₀)² over a rise of length L, sampled at f
+    /// in white noise of σ, gives var t₀ = K·σ²/(f·c²·L³) with K = 12 for c·τ² alone, 48 with a
+    /// τ⁴ term and 75 with a τ³ term (the inverse Fisher information of the change point, a
+    /// regular parameter here since the model's slope in t₀, −2c·τ, is continuous at the join;
+    /// derived for this fit). A quarter of the height ended a slow take-up's window within about
+    /// 0.3 of its rise, where its σ(t₀) ∝ L^−3/2 was several milliseconds and the shapes could not
+    /// be told apart; at 0.6 the window holds most of a take-up's bend and the take-up shapes
+    /// still follow it (see <see cref="OnsetShape.EvenTakeUp"/>); a ramp's onset is better pinned
+    /// too.</summary>
+    private const double WindowHeightShare = 0.6;
+
+    /// <summary>The fit's window ends at most this long after the crossing, s: a take-up of
+    /// 0.4 s (the slowest the generator draws; a clutch or a motor's torque ramp builds up within
+    /// about 0.3 s, common practice) reaches 0.6 of its height about 0.2 s after it is first seen.</summary>
+    private const double WindowAfterCrossS = 0.25;
 
     /// <summary>Samples after the crossing that the window must hold for a fit.</summary>
     private const int MinAfterCross = 3;
@@ -110,11 +136,11 @@ internal static class AccelOnsetFit
         double tCross = t[cross];
         int start = Math.Max(from, IndexAtOrAfter(t, tCross - 0.15));
 
-        // The window ends where the rise has reached a quarter of its height over the next 0.2 s,
-        // between 15 and 100 ms after the crossing: long enough to pin the shape down, short
+        // The window ends where the rise has reached WindowHeightShare of its height over the next
+        // 0.2 s, between 15 ms and WindowAfterCrossS after the crossing: long enough to pin the shape down, short
         // enough to stay on the rise. It holds at least the samples after the crossing that the
         // fit needs (MinAfterCross): at 100 Hz 15 ms is one sample and a half, and a
-        // quick rise passes its quarter by then, which left no onset at all.
+        // quick rise passes its share by then, which left no onset at all.
         double early = 0;
         for (int i = cross; i < top && t[i] <= tCross + 0.2; i++)
         {
@@ -122,7 +148,7 @@ internal static class AccelOnsetFit
         }
 
         int end = cross;
-        while (end + 1 < top && t[end + 1] <= tCross + 0.1 && (end - cross < MinAfterCross || t[end] < tCross + 0.015 || Smoothed(end) < 0.25 * early))
+        while (end + 1 < top && t[end + 1] <= tCross + WindowAfterCrossS && (end - cross < MinAfterCross || t[end] < tCross + 0.015 || Smoothed(end) < WindowHeightShare * early))
         {
             end++;
         }
@@ -218,7 +244,7 @@ internal static class AccelOnsetFit
 
         // A ramp or a jump chosen is kept where it is (the others still widen it): on such a rise
         // the curved shapes' onsets only add their noise to it.
-        bool curved = bestShape is (int)OnsetShape.Quadratic or (int)OnsetShape.RampQuadratic or (int)OnsetShape.SmoothTakeUp;
+        bool curved = bestShape is (int)OnsetShape.Quadratic or (int)OnsetShape.RampQuadratic or (int)OnsetShape.SmoothTakeUp or (int)OnsetShape.EvenTakeUp;
         double mean = curved ? weighted / weightSum : best.TimeS;
         double moment = 0;
         for (int m = 0; m < Shapes; m++)
@@ -462,7 +488,7 @@ internal static class AccelOnsetFit
     /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit.</summary>
     private static void Reductions(double[] t, Shifted y, int start, int end, double t0, Span<double> reduction)
     {
-        double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, y0 = 0, y1 = 0, y2 = 0, y3 = 0;
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s8 = 0, y0 = 0, y1 = 0, y2 = 0, y3 = 0, y4 = 0;
         double tauEnd = 0;
         for (int i = start; i <= end; i++)
         {
@@ -481,6 +507,8 @@ internal static class AccelOnsetFit
             s4 += tau2 * tau2;
             s5 += tau2 * tau2 * tau;
             s6 += tau2 * tau2 * tau2;
+            s8 += tau2 * tau2 * tau2 * tau2;
+            y4 += yi * tau2 * tau2;
             y0 += yi;
             y1 += yi * tau;
             y2 += yi * tau2;
@@ -525,6 +553,15 @@ internal static class AccelOnsetFit
             double c3 = ((s4 * y3) - (s5 * y2)) / det;
             bool valid = c2 >= 0 && (2 * c2) + (3 * c3 * tauEnd) >= 0;
             reduction[(int)OnsetShape.SmoothTakeUp] = valid ? (c2 * y2) + (c3 * y3) : reduction[(int)OnsetShape.Quadratic];
+        }
+
+        det = (s4 * s8) - (s6 * s6);
+        if (det > 0)
+        {
+            double c2 = ((y2 * s8) - (y4 * s6)) / det;
+            double c4 = ((s4 * y4) - (s6 * y2)) / det;
+            bool valid = c2 >= 0 && (2 * c2) + (4 * c4 * tauEnd * tauEnd) >= 0;
+            reduction[(int)OnsetShape.EvenTakeUp] = valid ? (c2 * y2) + (c4 * y4) : reduction[(int)OnsetShape.Quadratic];
         }
     }
 
