@@ -118,6 +118,7 @@ internal sealed partial class ReconstructionPass
             InputDensity = inputDensity,
             ThirdDensity = !withAccel ? options.JerkDensity : pulses is null ? options.AccelOnlyBiasWanderDensity : options.BiasWanderDensity,
             StopIndex = stopIndex,
+            StopStepSpeedVariance = withAccel && stopS is { } rest ? StopFinder.StopGapSpeedVariance(accel!.TimeS, accelInput, rest) : 0,
             Pulses = pulses,
             MetresPerPulse = mpp,
             PulseGrowthM = pulseGrowthM,
