@@ -116,6 +116,9 @@ internal sealed class FusionSettings
     /// <summary>Random-walk density of the third state inside brake windows, m²/s⁵.</summary>
     public double BrakeThirdDensity { get; init; }
 
+    /// <summary>Random-walk density of the third state inside firm brake windows, m²/s⁵.</summary>
+    public double FirmBrakeThirdDensity { get; init; }
+
     /// <summary>Slip signal S(t) at the grid times: ∫ v·a_drive dt, m²/s² (zeros for none). The
     /// pulses count d + φ + k·S, k being the wheel's slip per unit of drive acceleration.</summary>
     public double[]? SlipSignal { get; init; }
@@ -525,7 +528,7 @@ internal static class FusionSmoother
         // random walk, with tiny floors that keep the predicted covariance invertible.
         double dt2 = dt * dt;
         double dt3 = dt2 * dt;
-        double q3 = (marks & InBrake) != 0 ? s.BrakeThirdDensity : s.ThirdDensity;
+        double q3 = (marks & InFirmBrake) != 0 ? s.FirmBrakeThirdDensity : (marks & InBrake) != 0 ? s.BrakeThirdDensity : s.ThirdDensity;
         p.P00 += 1e-14;
         p.P11 += 1e-12 + stopVariance;
         p.P33 += 1e-16 + ((marks & PhaseJump) != 0 ? s.SpinPhaseVariance : 0);

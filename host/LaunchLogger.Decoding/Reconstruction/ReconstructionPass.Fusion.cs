@@ -134,6 +134,7 @@ internal sealed partial class ReconstructionPass
             FirmBrakeWindows = [.. firmBraking],
             FirmBrakeStepVariance = forces.BrakeStepVariances(firmBraking, withScale: !scaleState),
             BrakeThirdDensity = options.BrakeBiasWanderDensity,
+            FirmBrakeThirdDensity = scaleState ? options.FirmBrakeBiasWanderDensity : options.BrakeBiasWanderDensity,
             SlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,
             BrakeSlipMean = brakeSlipSignal is null ? 0 : options.BrakeSlip.MeanInverse / G0,
