@@ -67,6 +67,11 @@ internal sealed class FusionSettings
     /// <summary>From this grid index on the car is at rest (zero-velocity updates).</summary>
     public int StopIndex { get; init; } = int.MaxValue;
 
+    /// <summary>Speed variance added over the step into <see cref="StopIndex"/>, (m/s)²: what the
+    /// input leaves unknown of the speed lost where the car came to rest between two samples
+    /// (<see cref="StopFinder.StopGapSpeedVariance"/>).</summary>
+    public double StopStepSpeedVariance { get; init; }
+
     public PulseChannel? Pulses { get; init; }
 
     public double MetresPerPulse { get; init; }
@@ -110,6 +115,9 @@ internal sealed class FusionSettings
 
     /// <summary>Random-walk density of the third state inside brake windows, m²/s⁵.</summary>
     public double BrakeThirdDensity { get; init; }
+
+    /// <summary>Random-walk density of the third state inside firm brake windows, m²/s⁵.</summary>
+    public double FirmBrakeThirdDensity { get; init; }
 
     /// <summary>Slip signal S(t) at the grid times: ∫ v·a_drive dt, m²/s² (zeros for none). The
     /// pulses count d + φ + k·S, k being the wheel's slip per unit of drive acceleration.</summary>
@@ -277,7 +285,7 @@ internal static class FusionSmoother
         };
         if (m > 0)
         {
-            Predict(s, ref f.X, ref f.P, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, marks: 0, stepVariance: 0);
+            Predict(s, ref f.X, ref f.P, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, marks: 0, stepVariance: 0, stopVariance: 0);
         }
 
         PulseChannel? pulses = s.Pulses;
@@ -380,7 +388,7 @@ internal static class FusionSmoother
         if (k + 1 < n)
         {
             bool noInput = s.NoInput != null && s.NoInput[k];
-            Predict(s, ref f.X, ref f.P, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]));
+            Predict(s, ref f.X, ref f.P, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]), StopVariance(s, k));
         }
     }
 
@@ -433,7 +441,7 @@ internal static class FusionSmoother
             filtered.Get(j, out Vec xj, out Sym pj);
             Vec xp = xj;
             Sym pp = pj;
-            Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]));
+            Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]), StopVariance(s, k));
             Transition(s, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, jump[k], out double f01, out double f02, out double f12, out double f06, out double f16);
             SmoothStep(xj, pj, xp, pp, f01, f02, f12, f06, f16, ref xs, ref ps);
             Emit(k, xs, ps, d, v, sd, sv, third, sthird, slipShift, slipInverse);
@@ -495,7 +503,7 @@ internal static class FusionSmoother
     }
 
     /// <summary>x ← F·x + input, P ← F·P·Fᵀ + Q over one step of <paramref name="dt"/>.</summary>
-    private static void Predict(FusionSettings s, ref Vec x, ref Sym p, double dt, double inputSpeed, double inputDistance, bool frozen, bool noInput, byte marks, double stepVariance)
+    private static void Predict(FusionSettings s, ref Vec x, ref Sym p, double dt, double inputSpeed, double inputDistance, bool frozen, bool noInput, byte marks, double stepVariance, double stopVariance)
     {
         Transition(s, dt, inputSpeed, inputDistance, frozen, marks, out double f01, out double f02, out double f12, out double f06, out double f16);
         if (frozen)
@@ -520,9 +528,9 @@ internal static class FusionSmoother
         // random walk, with tiny floors that keep the predicted covariance invertible.
         double dt2 = dt * dt;
         double dt3 = dt2 * dt;
-        double q3 = (marks & InBrake) != 0 ? s.BrakeThirdDensity : s.ThirdDensity;
+        double q3 = (marks & InFirmBrake) != 0 ? s.FirmBrakeThirdDensity : (marks & InBrake) != 0 ? s.BrakeThirdDensity : s.ThirdDensity;
         p.P00 += 1e-14;
-        p.P11 += 1e-12;
+        p.P11 += 1e-12 + stopVariance;
         p.P33 += 1e-16 + ((marks & PhaseJump) != 0 ? s.SpinPhaseVariance : 0);
         p.P22 += stepVariance;
 
@@ -564,6 +572,10 @@ internal static class FusionSmoother
 
         return false;
     }
+
+    /// <summary>The speed variance of step k: <see cref="FusionSettings.StopStepSpeedVariance"/>
+    /// on the step into the stop, 0 elsewhere.</summary>
+    private static double StopVariance(FusionSettings s, int k) => k + 1 == s.StopIndex ? s.StopStepSpeedVariance : 0;
 
     /// <summary>The third state's step variance at step k (0 unless a brake window starts there).</summary>
     private static double StepVariance(FusionSettings s, double[] grid, int k0, int k, byte marks)

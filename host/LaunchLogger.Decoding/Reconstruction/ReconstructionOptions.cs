@@ -241,6 +241,16 @@ public sealed record ReconstructionOptions
     /// m²/s⁵ (as <see cref="AccelOnlyBiasWanderDensity"/>: nothing else tells it from motion).</summary>
     public double BrakeBiasWanderDensity { get; init; } = 0.002;
 
+    /// <summary>How fast the accelerometer's error may wander under firm braking where the pulses
+    /// are kept and the braked tyre's slip is fitted, m²/s⁵. There the accelerometer's scale error
+    /// is a state of its own (its part of the error grows with the deceleration, as a body's dive
+    /// does), so the wander is only what the pitch compensation and the resting level leave, as
+    /// in the rolling-scale fit (<see cref="RollingScaleBiasWanderDensity"/>): 1e-4 lets it drift
+    /// by 0.02 m/s² (1σ) over a 4-s stop. A wander as free as <see cref="BrakeBiasWanderDensity"/>
+    /// (0.045 m/s² a second) takes up, on a noisy accelerometer, part of what the slip leaves in
+    /// the pulses (a 1.9-s rise to 0.78 g from 72 mph at 200 Hz: the slip 14 % low).</summary>
+    public double FirmBrakeBiasWanderDensity { get; init; } = 1e-4;
+
     /// <summary>Acceleration-only runs: the run counts as stopped when the last this many seconds
     /// of samples rest at the resting level, seconds.</summary>
     public double StillAtEndS { get; init; } = 1.0;

@@ -13,8 +13,12 @@ internal static class StopFinder
     /// <summary>Deceleration that counts as firm braking for the step search, m/s².</summary>
     private const double FirmDecelMps2 = 2.0;
 
-    /// <summary>Span either side of a candidate step, seconds.</summary>
+    /// <summary>Span either side of a candidate step, seconds, where the accelerometer gives at
+    /// least <see cref="StepSamples"/> samples in it.</summary>
     private const double StepSpanS = 0.02;
+
+    /// <summary>Samples wanted on each side of a candidate step.</summary>
+    private const int StepSamples = 3;
     /// <summary>The time the car came to rest, seconds.</summary>
     /// <param name="pulses">Observations; at least one.</param>
     /// <param name="mpp">Metres per pulse.</param>
@@ -78,28 +82,33 @@ internal static class StopFinder
     }
 
     /// <summary>The first time after <paramref name="fromS"/> (and within 3 s of it) where a firm
-    /// deceleration steps down to near nothing: the mean input over the <see cref="StepSpanS"/>
-    /// before is below −<see cref="FirmDecelMps2"/>, and the mean over the span after has risen
-    /// by more than 70 % of it. Null when the car was not braking firmly at the last pulse.</summary>
+    /// deceleration steps down to near nothing: the mean input over the span before (<see
+    /// cref="StepSpanS"/>, or <see cref="StepSamples"/> and a half sample periods where that is
+    /// longer: a 100 Hz accelerometer has but two samples in 20 ms) is below
+    /// −<see cref="FirmDecelMps2"/>, and the mean over the span after has risen by more than 70 %
+    /// of it. The step lies between the last sample still braking and the first at rest; it is
+    /// placed mid-way. Null when the car was not braking firmly at the last pulse.</summary>
     public static double? DecelerationStep(double[] t, double[] input, double fromS, double endS)
     {
         int i = Array.BinarySearch(t, fromS);
         i = i >= 0 ? i : ~i;
-        if (i >= t.Length)
+        if (i >= t.Length || t.Length < 2)
         {
             return null;
         }
 
+        double span = Math.Max(StepSpanS, (StepSamples + 0.5) * (t[^1] - t[0]) / (t.Length - 1));
+
         // Running sums over [lo, i) and [i, hi).
         int lo = i;
         double before = 0;
-        while (lo > 0 && t[lo - 1] >= t[i] - StepSpanS)
+        while (lo > 0 && t[lo - 1] >= t[i] - span)
         {
             lo--;
             before += input[lo];
         }
 
-        if (i - lo < 3 || before / (i - lo) > -FirmDecelMps2)
+        if (i - lo < StepSamples || before / (i - lo) > -FirmDecelMps2)
         {
             return null;
         }
@@ -111,18 +120,18 @@ internal static class StopFinder
         double best = 0;
         for (; i < t.Length && t[i] <= limit; i++)
         {
-            if (!double.IsNaN(found) && t[i] > found + StepSpanS)
+            if (!double.IsNaN(found) && t[i] > found + span)
             {
                 break;
             }
 
-            while (hi < t.Length && t[hi] < t[i] + StepSpanS)
+            while (hi < t.Length && t[hi] < t[i] + span)
             {
                 after += input[hi];
                 hi++;
             }
 
-            while (lo < i && t[lo] < t[i] - StepSpanS)
+            while (lo < i && t[lo] < t[i] - span)
             {
                 before -= input[lo];
                 lo++;
@@ -130,7 +139,7 @@ internal static class StopFinder
 
             int nb = i - lo;
             int na = hi - i;
-            if (nb >= 3 && na >= 3)
+            if (nb >= StepSamples && na >= StepSamples)
             {
                 double mb = before / nb;
                 double ma = after / na;
@@ -148,6 +157,31 @@ internal static class StopFinder
         }
 
         return double.IsNaN(found) ? null : found;
+    }
+
+    /// <summary>Variance of the speed the car lost over the sample gap it came to rest in, (m/s)².
+    /// The accelerometer samples at points: a deceleration D that ends between the last sample
+    /// still braking and the first at rest, T apart, took off D·τ, τ the time braked within the
+    /// gap, which the samples do not tell — uniform on [0, D·T], variance (D·T)²/12 (the uniform
+    /// distribution's, any probability text) — while the input taken as linear between the
+    /// samples takes off D·T/2 whatever τ. Where the car is then held at rest the difference, up
+    /// to D·T/2 (0.1 m/s at 2 g and 100 Hz), is this variance's to take, not the speed's history
+    /// (nor the braked wheel's slip fitted to it). 0 when the sample before
+    /// <paramref name="stopS"/> is not decelerating.</summary>
+    /// <param name="t">Accelerometer sample times, s.</param>
+    /// <param name="input">Forward input at those times less its resting level, m/s².</param>
+    /// <param name="stopS">When the car came to rest, s.</param>
+    public static double StopGapSpeedVariance(double[] t, double[] input, double stopS)
+    {
+        int i = Array.BinarySearch(t, stopS);
+        i = i >= 0 ? i : ~i;
+        if (i <= 0 || i >= t.Length)
+        {
+            return 0;
+        }
+
+        double lost = Math.Max(-input[i - 1], 0) * (t[i] - t[i - 1]);
+        return lost * lost / 12;
     }
 
     /// <summary>True when the last pulses show the car braking to rest: at their speed and

@@ -45,6 +45,54 @@ public class RunStopTests
         Assert.Equal(TruthStopS, stop.Value, 0.002);
     }
 
+    [Theory]
+    [InlineData(100)]
+    [InlineData(125)]
+    [InlineData(200)]
+    public void ASlowAccelerometerStillMarksTheStepInsideItsSampleGap(int rateHz)
+    {
+        // 100 Hz gives two samples in 20 ms, where the step search wanted three either side:
+        // it found no step, and the stop came from the last pulses' speed integrated on (bench
+        // stops at 100 Hz 13–17 ms early or 70–820 ms late).
+        double period = 1.0 / rateHz;
+        WindowScene scene = Stop(endS: TruthStopS + 2);
+        (double[] time, double[] input) = scene.Accelerometer(period);
+        PulseChannel pulses = scene.Pulses();
+
+        double? step = StopFinder.DecelerationStep(time, input, pulses.MidS(pulses.Length - 1), scene.EndS);
+
+        // −6 m/s² at every sample before the truth, nothing from it on: the last sample braking
+        // and the first at rest bracket the truth, and the step is placed mid-way between them.
+        Assert.NotNull(step);
+        Assert.Equal(TruthStopS, step.Value, (0.5 * period) + 1e-9);
+    }
+
+    [Fact]
+    public void TheSpeedLostInTheLastSampleGapIsUniformOverTheGap()
+    {
+        // The same stop at 100 Hz with the truth moved through the gap: the car loses D·τ there,
+        // τ the time it still braked, while the input taken as linear between the samples takes
+        // off D·T/2. Over evenly spread places the difference is uniform on ±D·T/2, so its rms is
+        // D·T/√12 (the uniform distribution's σ, any probability text) and it never passes √3 σ.
+        const double period = 0.01;
+        double sumSquares = 0;
+        int count = 0;
+        for (double tau = 0.0005; tau < period; tau += 0.001)
+        {
+            double stop = 5 + tau;
+            double[] time = [.. Enumerable.Range(0, 1000).Select(i => i * period)];
+            double[] input = [.. time.Select(t => t < stop ? -DecelMps2 : 0)];
+            double sigma = Math.Sqrt(StopFinder.StopGapSpeedVariance(time, input, 5 + (0.5 * period)));
+            double lost = DecelMps2 * tau;
+            double linear = 0.5 * DecelMps2 * period;
+            Assert.InRange(Math.Abs(lost - linear), 0, (Math.Sqrt(3) * sigma) + 1e-12);
+            sumSquares += (lost - linear) * (lost - linear);
+            count++;
+        }
+
+        Assert.Equal(DecelMps2 * period / Math.Sqrt(12), Math.Sqrt(sumSquares / count), 0.01 * DecelMps2 * period / Math.Sqrt(12));
+    }
+
     [Fact]
     public void ARecordCutWhileStillDrivingHasNoStopUnlessTheBoxLoggedOne()
     {
