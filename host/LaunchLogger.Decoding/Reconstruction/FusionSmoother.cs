@@ -24,7 +24,7 @@ internal sealed class FusionSettings
     public required double[] GridS { get; init; }
 
     /// <summary>Speed gained from the accelerometer input over step k → k+1, m/s (zeros in kinematic mode).</summary>
-    public required double[] StepSpeedM { get; init; }
+    public required double[] StepSpeedMps { get; init; }
 
     /// <summary>Distance gained from the accelerometer input over step k → k+1 beyond v·Δt, m.</summary>
     public required double[] StepDistanceM { get; init; }
@@ -36,7 +36,7 @@ internal sealed class FusionSettings
     public required double StartS { get; init; }
 
     /// <summary>Input speed and distance gained from <see cref="StartS"/> to the first grid time after it.</summary>
-    public double StartSpeedM { get; init; }
+    public double StartSpeedMps { get; init; }
 
     public double StartDistanceM { get; init; }
 
@@ -285,7 +285,7 @@ internal static class FusionSmoother
         };
         if (m > 0)
         {
-            Predict(s, ref f.X, ref f.P, grid[k0] - s.StartS, s.StartSpeedM, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, marks: 0, stepVariance: 0, stopVariance: 0);
+            Predict(s, ref f.X, ref f.P, grid[k0] - s.StartS, s.StartSpeedMps, s.StartDistanceM, frozen: k0 > s.StopIndex, noInput: false, marks: 0, stepVariance: 0, stopVariance: 0);
         }
 
         PulseChannel? pulses = s.Pulses;
@@ -334,7 +334,7 @@ internal static class FusionSmoother
         bool accelMode = s.Mode == FusionMode.Accelerometer;
         double tk = grid[k];
         double tNext = k + 1 < n ? grid[k + 1] : double.PositiveInfinity;
-        double meanInput = k + 1 < n && accelMode ? s.StepSpeedM[k] / (tNext - tk) : 0;
+        double meanInput = k + 1 < n && accelMode ? s.StepSpeedMps[k] / (tNext - tk) : 0;
         bool frozen = k >= s.StopIndex;
         while (pulses != null && f.Ip < pulses.Length && pulses.MidS(f.Ip) < tNext)
         {
@@ -388,7 +388,7 @@ internal static class FusionSmoother
         if (k + 1 < n)
         {
             bool noInput = s.NoInput != null && s.NoInput[k];
-            Predict(s, ref f.X, ref f.P, tNext - tk, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]), StopVariance(s, k));
+            Predict(s, ref f.X, ref f.P, tNext - tk, s.StepSpeedMps[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]), StopVariance(s, k));
         }
     }
 
@@ -441,8 +441,8 @@ internal static class FusionSmoother
             filtered.Get(j, out Vec xj, out Sym pj);
             Vec xp = xj;
             Sym pp = pj;
-            Predict(s, ref xp, ref pp, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]), StopVariance(s, k));
-            Transition(s, dt, s.StepSpeedM[k], s.StepDistanceM[k], frozen, jump[k], out double f01, out double f02, out double f12, out double f06, out double f16);
+            Predict(s, ref xp, ref pp, dt, s.StepSpeedMps[k], s.StepDistanceM[k], frozen, noInput, jump[k], StepVariance(s, grid, k0, k, jump[k]), StopVariance(s, k));
+            Transition(s, dt, s.StepSpeedMps[k], s.StepDistanceM[k], frozen, jump[k], out double f01, out double f02, out double f12, out double f06, out double f16);
             SmoothStep(xj, pj, xp, pp, f01, f02, f12, f06, f16, ref xs, ref ps);
             Emit(k, xs, ps, d, v, sd, sv, third, sthird, slipShift, slipInverse);
         }

@@ -110,11 +110,11 @@ internal sealed partial class ReconstructionPass
         {
             Mode = withAccel ? FusionMode.Accelerometer : FusionMode.Kinematic,
             GridS = grid,
-            StepSpeedM = steps.StepSpeedMps,
+            StepSpeedMps = steps.StepSpeedMps,
             StepDistanceM = steps.StepDistanceM,
             NoInput = steps.NoInput,
             StartS = startS,
-            StartSpeedM = steps.StartSpeedMps,
+            StartSpeedMps = steps.StartSpeedMps,
             StartDistanceM = steps.StartDistanceM,
             InitialSpeedMps = speed,
             InitialSpeedSigma = speedSigma,
