@@ -1,3 +1,5 @@
+using LaunchLogger.Decoding.Metrics;
+
 namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <summary>What the accelerometer stage reads: the samples, the distance channel, how the record
@@ -68,9 +70,6 @@ internal sealed class PreparedAccel
 /// onset of motion, the resting pitch and the input the filter integrates.</summary>
 internal sealed class AccelSetup
 {
-    /// <summary>Standard gravity, m/s² (3rd CGPM, 1901).</summary>
-    private const double G0 = 9.80665;
-
     /// <summary>Stretch after the first pulse over which a record that opens moving takes the
     /// accelerometer's level against the first pulses' acceleration, s.</summary>
     private const double OpeningLevelSpanS = 0.3;
@@ -231,7 +230,7 @@ internal sealed class AccelSetup
 
         double component = input.ForwardAxis switch { 1 => g.Y, 2 => g.Z, _ => g.X };
         double sign = input.ForwardAxisReversed ? -1 : 1;
-        return sign * component * G0 / 1000;
+        return sign * component * Units.StandardGravity / 1000;
     }
 
     /// <summary>The resting pitch: asin of the resting level over gravity's magnitude (the box's
@@ -239,11 +238,11 @@ internal sealed class AccelSetup
     /// otherwise), σ by the derivative of the arcsine.</summary>
     private (double Pitch, double Sigma) RestingPitch()
     {
-        double magnitude = G0;
+        double magnitude = Units.StandardGravity;
         if (input.RestGravityMilliG is { } g)
         {
-            double norm = Math.Sqrt((g.X * g.X) + (g.Y * g.Y) + (g.Z * g.Z)) * G0 / 1000;
-            if (norm > 0.5 * G0 && norm < 1.5 * G0)
+            double norm = Math.Sqrt((g.X * g.X) + (g.Y * g.Y) + (g.Z * g.Z)) * Units.StandardGravity / 1000;
+            if (norm > 0.5 * Units.StandardGravity && norm < 1.5 * Units.StandardGravity)
             {
                 magnitude = norm;
             }

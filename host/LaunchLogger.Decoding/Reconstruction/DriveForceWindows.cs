@@ -1,3 +1,5 @@
+using LaunchLogger.Decoding.Metrics;
+
 namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <summary>Windows read from the drive force per unit mass alone — the accelerometer input on
@@ -6,9 +8,6 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// pulses; <see cref="WheelWindowFinder"/> sets the pulses against these.</summary>
 internal sealed class DriveForceWindows
 {
-    /// <summary>Standard gravity, m/s² (3rd CGPM, 1901).</summary>
-    private const double G0 = 9.80665;
-
     /// <summary>Braking force per unit mass under which a brake rise counts as not yet begun, m/s².</summary>
     private const double RiseFootMps2 = 0.3;
 
@@ -60,7 +59,7 @@ internal sealed class DriveForceWindows
                 span += grid[j + 1] - grid[j];
             }
 
-            bool drive = grid[k] < stop && span > 0 && (sum / span) + (options.RollingResistance * G0) > 0.5;
+            bool drive = grid[k] < stop && span > 0 && (sum / span) + (options.RollingResistance * Units.StandardGravity) > 0.5;
             if (drive && double.IsNaN(open))
             {
                 open = k == k0 ? startS : grid[k] - 0.1;
@@ -197,7 +196,7 @@ internal sealed class DriveForceWindows
             }
 
             speed = Math.Max(speed + dv[k], 0);
-            drive[k] = span > 0 ? (sum / span) + (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * speed * speed) : 0;
+            drive[k] = span > 0 ? (sum / span) + (options.RollingResistance * Units.StandardGravity) + (options.DragPerMassPerSpeedSquared * speed * speed) : 0;
             if (meanInput != null)
             {
                 meanInput[k] = span > 0 ? sum / span : 0;

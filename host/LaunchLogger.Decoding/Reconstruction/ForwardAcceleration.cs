@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Decoding.Statistics;
 
@@ -168,7 +169,6 @@ internal sealed class ForwardAcceleration
             return u;
         }
 
-        const double G0 = 9.80665;
         const double p0 = 0.5;
         int half = Math.Max(1, (int)Math.Round(0.05 / PeriodS));
         var plane = new PitchPlane(ForwardMps2, vertical, RestLevelMps2, RestVerticalMps2, cos, sin);
@@ -200,7 +200,7 @@ internal sealed class ForwardAcceleration
         {
             means.MoveTo(i, plane, out double mp, out double mq);
             double delta = ((-mq * mp) - (tilt * mp * mp)) / ((mp * mp) + (p0 * p0));
-            u[i] = plane.P(i) - (G0 * Math.Sin(delta));
+            u[i] = plane.P(i) - (Units.StandardGravity * Math.Sin(delta));
         }
 
         return u;

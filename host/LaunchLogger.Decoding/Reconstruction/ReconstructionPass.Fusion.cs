@@ -1,3 +1,5 @@
+using LaunchLogger.Decoding.Metrics;
+
 namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <content>Fusion: the filter's settings, the trajectory it yields, and what it says about slip and bias.</content>
@@ -11,7 +13,7 @@ internal sealed partial class ReconstructionPass
         }
 
         // Slip at half a g of drive: worth a word once it passes 0.3 %.
-        double atHalfG = fused.Slip.Value * 0.5 * G0;
+        double atHalfG = fused.Slip.Value * 0.5 * Units.StandardGravity;
         if (Math.Abs(atHalfG) > 0.003)
         {
             warnings.Add($"the pulses show the tyre slipping by about {atHalfG * 100:F1} % at half a g of drive (a driven wheel?); distances and speeds are corrected for it");
@@ -144,8 +146,8 @@ internal sealed partial class ReconstructionPass
             FirmBrakeThirdDensity = scaleState ? options.FirmBrakeBiasWanderDensity : options.BrakeBiasWanderDensity,
             SlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,
-            BrakeSlipMean = brakeSlipSignal is null ? 0 : options.BrakeSlip.MeanInverse / G0,
-            BrakeSlipSigma = brakeSlipSignal is null ? 0 : options.BrakeSlip.InverseSigma / G0,
+            BrakeSlipMean = brakeSlipSignal is null ? 0 : options.BrakeSlip.MeanInverse / Units.StandardGravity,
+            BrakeSlipSigma = brakeSlipSignal is null ? 0 : options.BrakeSlip.InverseSigma / Units.StandardGravity,
             ScaleSigma = scaleState ? options.ForwardScaleSigma : 0,
             SlipSigma = slipSignal is null ? 0 : options.WheelSlipSigma,
             SlipMinimum = options.WheelSlipMinimum,
@@ -219,7 +221,7 @@ internal sealed partial class ReconstructionPass
                 // Pulses alone cannot tell a driven wheel from an undriven one: its slip under
                 // drive, up to the slip law's prior, is in σ (the fitted acceleration stands in
                 // for the accelerometer), and so is the launch slip near the tyre's grip limit.
-                double drive = Math.Max(fused.Third[k] + (options.DragPerMassPerSpeedSquared * speed[k] * speed[k]) + (options.RollingResistance * G0), 0);
+                double drive = Math.Max(fused.Third[k] + (options.DragPerMassPerSpeedSquared * speed[k] * speed[k]) + (options.RollingResistance * Units.StandardGravity), 0);
                 if (k > k0)
                 {
                     pulsesOnlySlip += speed[k] * drive * (grid[k] - grid[k - 1]);

@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Firmware.Wire;
 
@@ -6,8 +7,6 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <summary>One reconstruction, step by step; see <see cref="Reconstructor"/>.</summary>
 internal sealed partial class ReconstructionPass
 {
-    private const double G0 = 9.80665;
-
     private readonly DecodedRun run;
     private readonly ReconstructionOptions options;
     private readonly RunConfiguration configuration;
@@ -148,7 +147,7 @@ internal sealed partial class ReconstructionPass
         double[]? slipSignal = windows.DriveSlipSignal;
         FusionResult fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, windows, slipSignal));
         if (pulses != null && accel != null && Staged
-            && (fused.Outliers > 0.25 * pulses.Length || (fused.SlipKept && Math.Abs(fused.Slip.Value) * 0.5 * G0 > 0.15)))
+            && (fused.Outliers > 0.25 * pulses.Length || (fused.SlipKept && Math.Abs(fused.Slip.Value) * 0.5 * Units.StandardGravity > 0.15)))
         {
             // The wheel slips too much, too unevenly, for the slip model: let the accelerometer
             // carry the distance while there is drive, and the pulses only where there is none.

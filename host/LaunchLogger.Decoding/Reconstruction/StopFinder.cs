@@ -19,6 +19,7 @@ internal static class StopFinder
 
     /// <summary>Samples wanted on each side of a candidate step.</summary>
     private const int StepSamples = 3;
+
     /// <summary>The time the car came to rest, seconds.</summary>
     /// <param name="pulses">Observations; at least one.</param>
     /// <param name="mpp">Metres per pulse.</param>

@@ -1,3 +1,5 @@
+using LaunchLogger.Decoding.Metrics;
+
 namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <summary>What the windows stage reads: the step grid, the pulse channel, the accelerometer's
@@ -72,9 +74,6 @@ internal sealed class WheelWindows
 /// are <see cref="DriveForceWindows"/>.</summary>
 internal sealed class WheelWindowFinder
 {
-    /// <summary>Standard gravity, m/s² (3rd CGPM, 1901).</summary>
-    private const double G0 = 9.80665;
-
     /// <summary>How long before the stop <see cref="SpeedBackFromStop"/> stands in for the pulses'
     /// speed, s: the slowest stop's last few metres (a braking force under 1 m/s² from 3 m/s),
     /// and not so long that the input's bias adds up (0.05 m/s² over 3 s is 0.15 m/s).</summary>
@@ -210,7 +209,7 @@ internal sealed class WheelWindowFinder
             double dt = grid[k + 1] - grid[k];
             // Drive only: under braking every wheel slips, driven or not, by its own measure, and
             // that is left to the accelerometer's error model.
-            double drive = Math.Max((steps.StepSpeedMps[k] / dt) + (options.DragPerMassPerSpeedSquared * speed * speed) + (options.RollingResistance * G0), 0);
+            double drive = Math.Max((steps.StepSpeedMps[k] / dt) + (options.DragPerMassPerSpeedSquared * speed * speed) + (options.RollingResistance * Units.StandardGravity), 0);
             sum += speed * drive * dt;
             signal[k + 1] = sum;
         }
@@ -270,7 +269,7 @@ internal sealed class WheelWindowFinder
                 // Where the pulses are too far apart for a speed (the last metres of a stop on a
                 // coarse ring, and after the last pulse), the car's speed from the stop back.
                 double speed = BrakedWheelSpeed(i, mid) is { } wheel
-                    ? wheel / Math.Max(1 - (decel * options.BrakeSlip.MeanInverse / G0), 0.5)
+                    ? wheel / Math.Max(1 - (decel * options.BrakeSlip.MeanInverse / Units.StandardGravity), 0.5)
                     : toStop is not null && stop - mid <= LongestBackFromStopS ? toStop[k] : 0;
                 sum += speed * decel * dt;
             }
@@ -357,7 +356,7 @@ internal sealed class WheelWindowFinder
             // before the brakes bite.
             int i0 = pulses.FirstMidAtOrAfter(w.StartS - 0.1);
             double roughSpeed = i0 + 1 < pulses.Length ? (pulses.Counts[i0 + 1] - pulses.Counts[i0]) * mpp / Math.Max(pulses.MidS(i0 + 1) - pulses.MidS(i0), 1e-6) : 0;
-            double resistance = (options.RollingResistance * G0) + (options.DragPerMassPerSpeedSquared * roughSpeed * roughSpeed);
+            double resistance = (options.RollingResistance * Units.StandardGravity) + (options.DragPerMassPerSpeedSquared * roughSpeed * roughSpeed);
             int ka = FusionSmoother.FirstIndexAfter(grid, w.StartS);
             while (ka + 6 < grid.Length && grid[ka] < w.EndS
                 && ((steps.StepSpeedMps[ka] + steps.StepSpeedMps[ka + 1] + steps.StepSpeedMps[ka + 2] + steps.StepSpeedMps[ka + 3] + steps.StepSpeedMps[ka + 4]) / (grid[ka + 5] - grid[ka])) + resistance > 0)
