@@ -24,6 +24,7 @@ internal sealed class AccelSetup
     private readonly PulseChannel? pulses;
     private readonly ReconstructionOptions options;
     private readonly List<string> warnings = [];
+    private AccelRest rest = new();
     private AccelOnset? onset;
     private double finalRestFromS = double.PositiveInfinity;
 
@@ -42,6 +43,7 @@ internal sealed class AccelSetup
         (double pitch, double sigma, double[] scaled) = setup.Run();
         return new PreparedAccel
         {
+            Rest = setup.rest,
             Onset = setup.onset,
             PitchRad = pitch,
             PitchSigmaRad = sigma,
@@ -78,38 +80,39 @@ internal sealed class AccelSetup
             restTo = restFrom + ((restTo - restFrom) / 2);
         }
 
-        if (!a.SetRest(restFrom, restTo))
+        if (a.ReadRest(restFrom, restTo) is { } before)
         {
-            double? level = RestGravityForward();
-            if (level is { } l)
-            {
-                a.SetRest(l, 0.05);
-                warnings.Add("too few accelerometer samples before first motion: the resting level comes from the staging event");
-            }
-            else
-            {
-                a.SetRest(a.ForwardMps2[0], 0.05);
-                warnings.Add("too few accelerometer samples before first motion: the first sample is taken as the resting level");
-            }
+            rest = before;
+        }
+        else if (RestGravityForward() is { } l)
+        {
+            rest = AccelRest.Told(l, 0.05);
+            warnings.Add("too few accelerometer samples before first motion: the resting level comes from the staging event");
+        }
+        else
+        {
+            rest = AccelRest.Told(a.ForwardMps2[0], 0.05);
+            warnings.Add("too few accelerometer samples before first motion: the first sample is taken as the resting level");
         }
 
-        if (!input.Staged && pulses != null && input.Opening is { } open && a.SetRest(a.IndexAtOrAfter(pulses.LoS[0]), a.IndexAtOrAfter(pulses.LoS[0] + OpeningLevelSpanS)))
+        if (!input.Staged && pulses != null && input.Opening is { } open && a.ReadRest(a.IndexAtOrAfter(pulses.LoS[0]), a.IndexAtOrAfter(pulses.LoS[0] + OpeningLevelSpanS)) is { } stretch)
         {
             // No rest to read the level from: over the opening stretch the accelerometer reads the
             // level plus the acceleration the first pulses show.
-            double sigma = Math.Sqrt((a.RestLevelSigmaMps2 * a.RestLevelSigmaMps2) + (open.AccelMps2.Sigma * open.AccelMps2.Sigma));
-            a.MoveRestLevel(a.RestLevelMps2 - open.AccelMps2.Value, sigma);
+            double sigma = Math.Sqrt((stretch.LevelSigmaMps2 * stretch.LevelSigmaMps2) + (open.AccelMps2.Sigma * open.AccelMps2.Sigma));
+            rest = stretch.WithLevel(stretch.LevelMps2 - open.AccelMps2.Value, sigma);
             ReadLevelAtFinalRest();
         }
 
         FindOnset();
-        if (onset is { } o && a.SetRest(a.IndexAtOrAfter(o.TimeS - 2.0), a.IndexAtOrAfter(o.TimeS - 0.03)))
+        if (onset is { } o && a.ReadRest(a.IndexAtOrAfter(o.TimeS - 2.0), a.IndexAtOrAfter(o.TimeS - 0.03)) is { } beforeOnset)
         {
+            rest = beforeOnset;
             FindOnset();
         }
 
         (double pitchRad, double pitchSigmaRad) = RestingPitch();
-        return (pitchRad, pitchSigmaRad, Scaled(a.Input(pitchRad, options.CompensateBodyPitch), options.AccelScaleCalibration));
+        return (pitchRad, pitchSigmaRad, Scaled(a.Input(rest, pitchRad, options.CompensateBodyPitch), options.AccelScaleCalibration));
     }
 
     /// <summary>A record that opens moving and ends at rest: the level read at the final rest (to
@@ -126,17 +129,18 @@ internal sealed class AccelSetup
             return;
         }
 
-        (double opening, double openingSigma) = (a.RestLevelMps2, a.RestLevelSigmaMps2);
-        if (!a.SetRest(first, a.Count))
+        (double opening, double openingSigma) = (rest.LevelMps2, rest.LevelSigmaMps2);
+        if (a.ReadRest(first, a.Count) is not { } final)
         {
             return;
         }
 
-        double atEnd = a.RestLevelMps2;
-        double endSigma = Math.Sqrt(Square(a.RestLevelSigmaMps2) + Square(FinalRestLevelChangeMps2));
+        // The noise is the final rest's from here on, as read with its level.
+        double atEnd = final.LevelMps2;
+        double endSigma = Math.Sqrt(Square(final.LevelSigmaMps2) + Square(FinalRestLevelChangeMps2));
         double wOpening = 1 / Math.Max(openingSigma * openingSigma, 1e-12);
         double wEnd = 1 / (endSigma * endSigma);
-        a.MoveRestLevel(((wOpening * opening) + (wEnd * atEnd)) / (wOpening + wEnd), Math.Sqrt(1 / (wOpening + wEnd)));
+        rest = final.WithLevel(((wOpening * opening) + (wEnd * atEnd)) / (wOpening + wEnd), Math.Sqrt(1 / (wOpening + wEnd)));
         finalRestFromS = from;
     }
 
@@ -144,12 +148,12 @@ internal sealed class AccelSetup
     {
         if (pulses != null && input.Staged)
         {
-            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, a.RestLevelMps2, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, 0, a.IndexAtOrAfter(pulses.HiS[0]), lastRise: true);
+            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, rest.LevelMps2, rest.NoiseMps2, rest.CorrelationFactor, a.PeriodS, 0, a.IndexAtOrAfter(pulses.HiS[0]), lastRise: true);
         }
         else if (input.Staged)
         {
             int from = input.MotionHintS is { } h ? a.IndexAtOrAfter(h - 0.5) : a.IndexAtOrAfter(a.TimeS[0] + 0.3);
-            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, a.RestLevelMps2, a.NoiseMps2, a.CorrelationFactor, a.PeriodS, from, a.Count, lastRise: false);
+            onset = AccelOnsetFit.Find(a.TimeS, a.ForwardMps2, rest.LevelMps2, rest.NoiseMps2, rest.CorrelationFactor, a.PeriodS, from, a.Count, lastRise: false);
         }
         else
         {
@@ -185,9 +189,9 @@ internal sealed class AccelSetup
             }
         }
 
-        double ratio = Math.Clamp(a.RestLevelMps2 / magnitude, -0.99, 0.99);
+        double ratio = Math.Clamp(rest.LevelMps2 / magnitude, -0.99, 0.99);
         double pitch = Math.Asin(ratio);
-        double sigma = a.RestLevelSigmaMps2 / (magnitude * Math.Cos(pitch));
+        double sigma = rest.LevelSigmaMps2 / (magnitude * Math.Cos(pitch));
         return (pitch, sigma);
     }
 

@@ -4,8 +4,8 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// opens, the box's marks and its resting gravity vector.</summary>
 internal sealed record AccelSetupInputs
 {
-    /// <summary>The forward axis' samples. The stage sets its resting level (and noise), which
-    /// <see cref="ForwardAcceleration"/> keeps; nothing else of it is changed.</summary>
+    /// <summary>The forward axis' samples, read only: the resting level found in them is the
+    /// stage's product (<see cref="PreparedAccel.Rest"/>).</summary>
     public required ForwardAcceleration Accel { get; init; }
 
     /// <summary>The distance channel, or null without pulses.</summary>

@@ -4,9 +4,10 @@ using LaunchLogger.Decoding.Statistics;
 
 namespace LaunchLogger.Decoding.Reconstruction;
 
-/// <summary>The accelerometer's forward axis with its resting level: what it reads standing
-/// still (gravity leaking in through the resting pitch, plus the sensor's offset) and how noisy
-/// it is there.</summary>
+/// <summary>The accelerometer's forward axis as read: sample times, forward (and, when measured,
+/// vertical) specific force and the sample period. Never changed once made; its resting level is
+/// read from it (<see cref="ReadRest"/>) and handed on as an <see cref="AccelRest"/>, and a
+/// clock's correction makes a new one (<see cref="Shifted"/>).</summary>
 internal sealed class ForwardAcceleration
 {
     private ForwardAcceleration(double[] timeS, double[] forwardMps2, double[]? verticalMps2, double periodS)
@@ -20,13 +21,12 @@ internal sealed class ForwardAcceleration
     /// <summary>Vertical specific force as read, m/s², when all axes were measured.</summary>
     public double[]? VerticalMps2 { get; }
 
-    /// <summary>Mean vertical reading at rest, m/s² (0 without a vertical axis).</summary>
-    public double RestVerticalMps2 { get; private set; }
+    /// <summary>Sample times, s.</summary>
+    public double[] TimeS { get; }
 
-    public double[] TimeS { get; private set; }
-
-    /// <summary>Moves the time axis by <paramref name="shiftS"/> (a copy: the run's own samples stay as read).</summary>
-    public void ShiftTime(double shiftS)
+    /// <summary>These samples on a time axis moved by <paramref name="shiftS"/> (a copy: the run's
+    /// own samples stay as read).</summary>
+    public ForwardAcceleration Shifted(double shiftS)
     {
         var moved = new double[TimeS.Length];
         for (int i = 0; i < moved.Length; i++)
@@ -34,7 +34,7 @@ internal sealed class ForwardAcceleration
             moved[i] = TimeS[i] + shiftS;
         }
 
-        TimeS = moved;
+        return new ForwardAcceleration(moved, ForwardMps2, VerticalMps2, PeriodS);
     }
 
     /// <summary>Forward specific force as read, m/s².</summary>
@@ -42,22 +42,6 @@ internal sealed class ForwardAcceleration
 
     /// <summary>Sample period, seconds.</summary>
     public double PeriodS { get; }
-
-    /// <summary>Mean forward reading at rest, m/s².</summary>
-    public double RestLevelMps2 { get; private set; }
-
-    /// <summary>σ of <see cref="RestLevelMps2"/>, m/s².</summary>
-    public double RestLevelSigmaMps2 { get; private set; }
-
-    /// <summary>Per-sample noise at rest, m/s².</summary>
-    public double NoiseMps2 { get; private set; }
-
-    /// <summary>How much the resting noise's correlation from sample to sample widens
-    /// uncertainties of averages (1 for white noise).</summary>
-    public double CorrelationFactor { get; private set; } = 1;
-
-    /// <summary>Samples the resting level was taken from.</summary>
-    public int RestCount { get; private set; }
 
     public int Count => TimeS.Length;
 
@@ -86,19 +70,19 @@ internal sealed class ForwardAcceleration
         return i >= 0 ? i : ~i;
     }
 
-    /// <summary>Takes the resting level and noise from samples [<paramref name="from"/>,
-    /// <paramref name="to"/>), clipping outliers beyond five σ.</summary>
-    /// <returns>False when there are fewer than 8 samples.</returns>
-    public bool SetRest(int from, int to)
+    /// <summary>The resting level and noise of samples [<paramref name="from"/>,
+    /// <paramref name="to"/>), clipping outliers beyond five σ; null when there are fewer than 8.</summary>
+    public AccelRest? ReadRest(int from, int to)
     {
         from = Math.Max(0, from);
         to = Math.Min(Count, to);
         if (to - from < 8)
         {
-            return false;
+            return null;
         }
 
         Robust rest = Robust.Mean(ForwardMps2, from, to, varianceFloor: 1e-12);
+        double restVertical = 0;
         if (VerticalMps2 != null)
         {
             double vertical = 0;
@@ -107,34 +91,17 @@ internal sealed class ForwardAcceleration
                 vertical += VerticalMps2[i];
             }
 
-            RestVerticalMps2 = vertical / (to - from);
+            restVertical = vertical / (to - from);
         }
 
-        CorrelationFactor = rest.CorrelationFactor;
-        RestLevelMps2 = rest.Value;
-        NoiseMps2 = rest.NoiseSigma;
-        RestCount = rest.Count;
-        RestLevelSigmaMps2 = rest.Sigma;
-        return true;
-    }
-
-    /// <summary>Uses a known resting level (e.g. the staging event's vector) when the samples
-    /// before first motion are too few.</summary>
-    public void SetRest(double levelMps2, double noiseMps2)
-    {
-        RestLevelMps2 = levelMps2;
-        NoiseMps2 = noiseMps2;
-        RestLevelSigmaMps2 = noiseMps2;
-        RestCount = 0;
-        CorrelationFactor = 1;
-    }
-
-    /// <summary>Replaces the resting level (keeping the noise taken with it) by one found another
-    /// way, e.g. from a stretch whose acceleration the pulses tell.</summary>
-    public void MoveRestLevel(double levelMps2, double sigmaMps2)
-    {
-        RestLevelMps2 = levelMps2;
-        RestLevelSigmaMps2 = sigmaMps2;
+        return new AccelRest
+        {
+            LevelMps2 = rest.Value,
+            LevelSigmaMps2 = rest.Sigma,
+            NoiseMps2 = rest.NoiseSigma,
+            CorrelationFactor = rest.CorrelationFactor,
+            VerticalMps2 = restVertical,
+        };
     }
 
     /// <summary>Forward acceleration with the resting level removed and, when the vertical axis
@@ -152,7 +119,7 @@ internal sealed class ForwardAcceleration
     /// <para>Not separated: the body's vertical acceleration (heave), which reads as pitch for a
     /// moment while the body settles.</para>
     /// </remarks>
-    public double[] Input(double pitchRad, bool compensatePitch)
+    public double[] Input(AccelRest rest, double pitchRad, bool compensatePitch)
     {
         int n = Count;
         var u = new double[n];
@@ -163,7 +130,7 @@ internal sealed class ForwardAcceleration
         {
             for (int i = 0; i < n; i++)
             {
-                u[i] = (ForwardMps2[i] - RestLevelMps2) / cos;
+                u[i] = (ForwardMps2[i] - rest.LevelMps2) / cos;
             }
 
             return u;
@@ -171,7 +138,7 @@ internal sealed class ForwardAcceleration
 
         const double p0 = 0.5;
         int half = Math.Max(1, (int)Math.Round(0.05 / PeriodS));
-        var plane = new PitchPlane(ForwardMps2, vertical, RestLevelMps2, RestVerticalMps2, cos, sin);
+        var plane = new PitchPlane(ForwardMps2, vertical, rest.LevelMps2, rest.VerticalMps2, cos, sin);
 
         // An offset on the forward axis tilts the resting reading away from gravity by ε, and
         // then q also holds a·ε: −q/p = δ − ε. Squat and dive vanish with the acceleration, so
@@ -246,14 +213,14 @@ internal sealed class ForwardAcceleration
     }
 
     /// <summary>Per-sample noise while moving, from first differences (robust: median absolute
-    /// deviation), m/s²; never below the resting noise.</summary>
-    public double MovingNoise(int from, int to)
+    /// deviation), m/s²; never below the resting noise of <paramref name="rest"/>.</summary>
+    public double MovingNoise(AccelRest rest, int from, int to)
     {
         from = Math.Max(1, from);
         to = Math.Min(Count, to);
         if (to - from < 16)
         {
-            return NoiseMps2;
+            return rest.NoiseMps2;
         }
 
         // At most 4096 differences, evenly spread: plenty for a median.
@@ -269,6 +236,6 @@ internal sealed class ForwardAcceleration
         double mad = diffs[diffs.Length / 2];
 
         // For Gaussian noise the median |difference| is 0.6745·√2·σ.
-        return Math.Max(NoiseMps2, mad / (0.6745 * Math.Sqrt(2)));
+        return Math.Max(rest.NoiseMps2, mad / (0.6745 * Math.Sqrt(2)));
     }
 }

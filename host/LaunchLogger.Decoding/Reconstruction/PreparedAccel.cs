@@ -3,6 +3,10 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <summary>The accelerometer as the accelerometer stage prepared it.</summary>
 internal sealed class PreparedAccel
 {
+    /// <summary>The forward axis' resting level, its σ and the noise read with it: what
+    /// <see cref="InputMps2"/> has removed, and what every later reader of the level takes.</summary>
+    public required AccelRest Rest { get; init; }
+
     /// <summary>The onset of motion the samples show, or null (a record that opens moving, or none clear).</summary>
     public AccelOnset? Onset { get; init; }
 

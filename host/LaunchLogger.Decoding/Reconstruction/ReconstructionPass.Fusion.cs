@@ -22,12 +22,12 @@ internal sealed partial class ReconstructionPass
 
     /// <summary>Noise density of the accelerometer's input from <paramref name="startS"/> on, m²/s³:
     /// the moving noise per sample and what the model misses.</summary>
-    private double InputDensity(ForwardAcceleration a, double startS) => MeasuredInputDensity(a, startS) + options.AccelModelNoiseDensity;
+    private double InputDensity(ForwardAcceleration a, AccelRest rest, double startS) => MeasuredInputDensity(a, rest, startS) + options.AccelModelNoiseDensity;
 
-    private double MeasuredInputDensity(ForwardAcceleration a, double startS)
+    private double MeasuredInputDensity(ForwardAcceleration a, AccelRest rest, double startS)
     {
-        double noise = options.AccelNoiseMps2 ?? a.MovingNoise(a.IndexAtOrAfter(startS), a.Count);
-        return noise * noise * a.PeriodS * a.CorrelationFactor * a.CorrelationFactor;
+        double noise = options.AccelNoiseMps2 ?? a.MovingNoise(rest, a.IndexAtOrAfter(startS), a.Count);
+        return noise * noise * a.PeriodS * rest.CorrelationFactor * rest.CorrelationFactor;
     }
 
     /// <summary>The filter's settings for one pass. <paramref name="spin"/> and
@@ -47,9 +47,9 @@ internal sealed partial class ReconstructionPass
         double thirdSigma;
         if (withAccel)
         {
-            ForwardAcceleration a = accel!;
-            inputDensity = InputDensity(a, startS);
-            thirdSigma = Math.Sqrt((a.RestLevelSigmaMps2 * a.RestLevelSigmaMps2) + (options.BiasPriorMps2 * options.BiasPriorMps2));
+            AccelRest resting = accelRest!;
+            inputDensity = InputDensity(accel!, resting, startS);
+            thirdSigma = Math.Sqrt((resting.LevelSigmaMps2 * resting.LevelSigmaMps2) + (options.BiasPriorMps2 * options.BiasPriorMps2));
         }
         else
         {
@@ -327,7 +327,7 @@ internal sealed partial class ReconstructionPass
         double pulseScale = Math.Sqrt(Square(circumferenceSigma) + Square(options.PulseScaleSigma));
         return LaunchSlipAllowance.DistanceSigma(
             steps.TimeS, k0, startS, steps.StartSpeedMps, steps.StartDistanceM, steps.StepSpeedMps, steps.StepDistanceM,
-            fused.DistanceM, fused.DistanceSigmaM, LaunchBiasSigma(accel), options.ForwardScaleSigma, pulseScale,
+            fused.DistanceM, fused.DistanceSigmaM, LaunchBiasSigma(accelRest!), options.ForwardScaleSigma, pulseScale,
             driven ? (options.PulsesOnlyLaunchSlip, options.LaunchSlipFadeM) : null);
     }
 
@@ -343,7 +343,7 @@ internal sealed partial class ReconstructionPass
 
     /// <summary>σ of the input's bias over the launch, m/s²: its resting level's σ and the drift
     /// since staging.</summary>
-    private double LaunchBiasSigma(ForwardAcceleration a) => Math.Sqrt(Square(a.RestLevelSigmaMps2) + Square(options.BiasPriorMps2));
+    private double LaunchBiasSigma(AccelRest rest) => Math.Sqrt(Square(rest.LevelSigmaMps2) + Square(options.BiasPriorMps2));
 
     /// <summary>The accelerometer's own distance where it first reaches the first foot, with the σ
     /// <see cref="LaunchSlipAllowance"/> gives it; null without an accelerometer, a standstill, or
@@ -362,7 +362,7 @@ internal sealed partial class ReconstructionPass
         {
             if (d[k] >= Metrics.Units.MetresPerFoot)
             {
-                return new AccelDistanceCheck(grid[k], d[k], LaunchSlipAllowance.AccelSigma(grid[k] - startS, d[k], LaunchBiasSigma(accel), options.ForwardScaleSigma));
+                return new AccelDistanceCheck(grid[k], d[k], LaunchSlipAllowance.AccelSigma(grid[k] - startS, d[k], LaunchBiasSigma(accelRest!), options.ForwardScaleSigma));
             }
         }
 

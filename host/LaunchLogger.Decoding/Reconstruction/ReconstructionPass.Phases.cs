@@ -132,7 +132,7 @@ internal sealed partial class ReconstructionPass
     /// from the pulses' clock at the launch (<see cref="AccelClockFit"/>), combines it with the
     /// prior the clock rate allows over the time since the first sample, and moves the samples'
     /// time axis onto the pulses' clock; first motion then carries the combined σ instead.</summary>
-    private void AlignAccelerometerClock(ForwardAcceleration a)
+    private void AlignAccelerometerClock(ForwardAcceleration a, AccelRest rest)
     {
         if (pulses is null || !Staged || onset is not { } o)
         {
@@ -170,8 +170,8 @@ internal sealed partial class ReconstructionPass
         // the squat it takes out follows the acceleration, a scale the fit's scale column takes.
         // What the scale cannot take is the body's pitch lagging the acceleration: that reads as
         // an offset of the lag times the squat's share of the reading, put into σ.
-        double[] plain = options.CompensateBodyPitch ? ScaledInput(a.Input(pitchRad, compensatePitch: false)) : accelInput;
-        if (AccelClockFit.Fit(a.TimeS, plain, o.TimeS - 0.3, o.TimeS, endS, pulses, mpp, options.ToothSpacingErrorFraction * mpp, InputDensity(a, o.TimeS), options.TextAccelClockRateSigma, new Estimate(options.UndrivenSlipPerMps2, options.UndrivenSlipSigma), MeasuredInputDensity(a, o.TimeS)) is not { } matched)
+        double[] plain = options.CompensateBodyPitch ? ScaledInput(a.Input(rest, pitchRad, compensatePitch: false)) : accelInput;
+        if (AccelClockFit.Fit(a.TimeS, plain, o.TimeS - 0.3, o.TimeS, endS, pulses, mpp, options.ToothSpacingErrorFraction * mpp, InputDensity(a, rest, o.TimeS), options.TextAccelClockRateSigma, new Estimate(options.UndrivenSlipPerMps2, options.UndrivenSlipSigma), MeasuredInputDensity(a, rest, o.TimeS)) is not { } matched)
         {
             return;
         }
@@ -183,7 +183,7 @@ internal sealed partial class ReconstructionPass
         double wFit = 1 / (fit.Sigma * fit.Sigma);
         double offset = wFit * fit.Value / (wPrior + wFit);
         double sigma = Math.Sqrt(1 / (wPrior + wFit));
-        a.ShiftTime(-offset);
+        accel = a.Shifted(-offset);
         accelClockShiftS = -offset;
         onset = o with { TimeS = o.TimeS - offset, DetectedS = o.DetectedS - offset };
         accelClockOffsetSigmaS = sigma;
@@ -257,7 +257,8 @@ internal sealed partial class ReconstructionPass
 
         double speed = -gained;
         double span = stop - a.TimeS[0];
-        double levelSigma = a.NoiseMps2 * a.CorrelationFactor / Math.Sqrt(n);
+        AccelRest rest = accelRest!;
+        double levelSigma = rest.NoiseMps2 * rest.CorrelationFactor / Math.Sqrt(n);
         double sigma = Math.Sqrt(Square(levelSigma * span) + (options.AccelOnlyBiasWanderDensity * span * span * span / 3) + Square(options.ForwardScaleSigma * speed));
         return speed - (3 * sigma) > CrawlMps ? new Estimate(speed, sigma) : null;
     }
@@ -269,7 +270,7 @@ internal sealed partial class ReconstructionPass
             MetresPerPulse = mpp,
             AccelTimeS = accel?.TimeS,
             AccelInputMps2 = accel is null ? [] : accelInput,
-            AccelNoiseMps2 = accel?.NoiseMps2 ?? 0,
+            AccelNoiseMps2 = accelRest?.NoiseMps2 ?? 0,
             AccelPeriodS = accel?.PeriodS ?? 0,
             StoppedEvent = run.Events.Any(e => e.Kind == EventKind.Stopped),
             StopHoldS = configuration.StopHoldS,

@@ -16,7 +16,8 @@ internal sealed partial class ReconstructionPass
     private readonly PulseChannel? pulses;
     private readonly int channel;
     private readonly string? channelNote;
-    private readonly ForwardAcceleration? accel;
+    private ForwardAcceleration? accel;
+    private AccelRest? accelRest;
     private readonly double? motionHintS;
     private readonly StartMotion? opening;
     private bool staged;
@@ -98,8 +99,8 @@ internal sealed partial class ReconstructionPass
                 Options = options,
             });
             warnings.AddRange(prepared.Warnings);
-            (onset, pitchRad, pitchSigmaRad, accelInput, finalRestFromS) = (prepared.Onset, prepared.PitchRad, prepared.PitchSigmaRad, prepared.InputMps2, prepared.FinalRestFromS);
-            AlignAccelerometerClock(accel);
+            (accelRest, onset, pitchRad, pitchSigmaRad, accelInput, finalRestFromS) = (prepared.Rest, prepared.Onset, prepared.PitchRad, prepared.PitchSigmaRad, prepared.InputMps2, prepared.FinalRestFromS);
+            AlignAccelerometerClock(accel, prepared.Rest);
             if (pulses is null && staged && AccelOpeningSpeed() is { } v0)
             {
                 staged = false;
@@ -181,8 +182,8 @@ internal sealed partial class ReconstructionPass
             Staged = Staged,
             Opening = opening,
             AccelEndS = accel?.TimeS[^1],
-            AccelRestLevelSigmaMps2 = accel?.RestLevelSigmaMps2 ?? 0,
-            InputDensity = accel is null ? 0 : InputDensity(accel, firstMotion.Value),
+            AccelRestLevelSigmaMps2 = accelRest?.LevelSigmaMps2 ?? 0,
+            InputDensity = accel is null ? 0 : InputDensity(accel, accelRest!, firstMotion.Value),
             FinalRestFromS = finalRestFromS,
             SlipKept = fused.SlipKept,
             SlipToldApart = SlipToldApart(fused),
@@ -232,7 +233,7 @@ internal sealed partial class ReconstructionPass
             Warnings = warnings,
             AccelBiasMps2 = accel is null ? null : MeanBias(grid, firstMotion.Value, stopS, fused),
             RestingPitchRad = accel is null ? null : new Estimate(pitchRad, pitchSigmaRad),
-            RestingForwardMps2 = accel is null ? null : new Estimate(accel.RestLevelMps2, accel.RestLevelSigmaMps2),
+            RestingForwardMps2 = accelRest is { } level ? new Estimate(level.LevelMps2, level.LevelSigmaMps2) : null,
             FirstPulseDistanceM = pulses is null || !Staged ? null : new Estimate(mpp - fused.PhaseM.Value, fused.PhaseM.Sigma),
             StopS = stopS,
             AccelOnlyFirstFoot = AccelFirstFoot(steps, firstMotion.Value),

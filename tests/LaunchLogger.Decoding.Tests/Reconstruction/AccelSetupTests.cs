@@ -45,8 +45,8 @@ public class AccelSetupTests
         // σ: the level's own σ through the arcsine's slope, d(asin x)/dx = 1/√(1 − x²) (any
         // calculus text), checked by a central difference.
         double magnitude = sensorScale * G0;
-        double level = accel.RestLevelMps2;
-        double h = accel.RestLevelSigmaMps2;
+        double level = prepared.Rest.LevelMps2;
+        double h = prepared.Rest.LevelSigmaMps2;
         double slope = (Math.Asin((level + h) / magnitude) - Math.Asin((level - h) / magnitude)) / 2;
         Assert.True(h > 0);
         Assert.Equal(slope, prepared.PitchSigmaRad, 9);
@@ -62,8 +62,8 @@ public class AccelSetupTests
 
         PreparedAccel prepared = AccelSetup.Prepare(Inputs(Launch, accel));
 
-        Assert.InRange(accel.RestLevelMps2, Offset - (3 * accel.RestLevelSigmaMps2), Offset + (3 * accel.RestLevelSigmaMps2));
-        Assert.InRange(accel.RestLevelSigmaMps2, 0.7 * 0.02 / Math.Sqrt(2000), 1.5 * 0.02 / Math.Sqrt(200));
+        Assert.InRange(prepared.Rest.LevelMps2, Offset - (3 * prepared.Rest.LevelSigmaMps2), Offset + (3 * prepared.Rest.LevelSigmaMps2));
+        Assert.InRange(prepared.Rest.LevelSigmaMps2, 0.7 * 0.02 / Math.Sqrt(2000), 1.5 * 0.02 / Math.Sqrt(200));
         Assert.Empty(prepared.Warnings);
         Assert.Equal(double.PositiveInfinity, prepared.FinalRestFromS);
     }
@@ -113,10 +113,10 @@ public class AccelSetupTests
 
         PreparedAccel prepared = AccelSetup.Prepare(Inputs(moving, accel) with { Pulses = pulses, Staged = false, Opening = opening });
 
-        Assert.Equal(Offset, accel.RestLevelMps2, 9);
+        Assert.Equal(Offset, prepared.Rest.LevelMps2, 9);
 
         // Its σ holds the first pulses' acceleration σ (independent of the reading's: in quadrature).
-        Assert.True(accel.RestLevelSigmaMps2 >= 0.04);
+        Assert.True(prepared.Rest.LevelSigmaMps2 >= 0.04);
         Assert.Null(prepared.Onset);
         Assert.Equal(double.PositiveInfinity, prepared.FinalRestFromS);
     }
@@ -137,8 +137,8 @@ public class AccelSetupTests
         // mean's σ and the 0.05 m/s² it may have changed, far better than the opening's 0.5 m/s²:
         // the inverse-variance mean (any statistics text) lies near the final rest's level.
         Assert.Equal(pulses.HiS[^1] + 1.0, prepared.FinalRestFromS, 9);
-        Assert.InRange(accel.RestLevelMps2, Offset - (3 * accel.RestLevelSigmaMps2), Offset + (3 * accel.RestLevelSigmaMps2));
-        Assert.InRange(accel.RestLevelSigmaMps2, 0.04, 0.06);
+        Assert.InRange(prepared.Rest.LevelMps2, Offset - (3 * prepared.Rest.LevelSigmaMps2), Offset + (3 * prepared.Rest.LevelSigmaMps2));
+        Assert.InRange(prepared.Rest.LevelSigmaMps2, 0.04, 0.06);
     }
 
     private static AccelSetupInputs Inputs(WindowScene scene, ForwardAcceleration accel) => new()
