@@ -100,8 +100,33 @@ internal sealed partial class ReconstructionPass
             });
             warnings.AddRange(prepared.Warnings);
             (accelRest, onset, pitchRad, pitchSigmaRad, accelInput, finalRestFromS) = (prepared.Rest, prepared.Onset, prepared.PitchRad, prepared.PitchSigmaRad, prepared.InputMps2, prepared.FinalRestFromS);
-            AlignAccelerometerClock(accel, prepared.Rest);
-            if (pulses is null && staged && AccelOpeningSpeed() is { } v0)
+            if (pulses != null && Staged && onset is { } o && AccelClockAlignment.Align(new AccelClockInputs
+            {
+                Accel = accel,
+                Rest = prepared.Rest,
+                InputMps2 = accelInput,
+                PitchRad = pitchRad,
+                Onset = o,
+                Pulses = pulses,
+                MetresPerPulse = mpp,
+                PriorOffsetSigmaS = TimeAxisOffsetSigma(o.TimeS),
+                InputDensity = InputDensity(accel, prepared.Rest, o.TimeS),
+                MeasuredInputDensity = MeasuredInputDensity(accel, prepared.Rest, o.TimeS),
+                Options = options,
+            }) is { } matched)
+            {
+                (accel, onset, accelClockShiftS, accelClockOffsetSigmaS) = (matched.Accel, matched.Onset, matched.ShiftS, matched.OffsetSigmaS);
+                warnings.Add(matched.Note);
+            }
+
+            if (pulses is null && staged && AccelOpeningSpeed.Find(new AccelOpeningSpeedInputs
+            {
+                Accel = accel,
+                Rest = prepared.Rest,
+                InputMps2 = accelInput,
+                StopS = FindStop(accel.TimeS[0], accel.TimeS[^1]),
+                Options = options,
+            }) is { } v0)
             {
                 staged = false;
                 accelOpeningSpeed = v0;
@@ -274,7 +299,4 @@ internal sealed partial class ReconstructionPass
 
         return result;
     }
-
-    /// <summary><paramref name="input"/> with the calibrated scale divided out, in place (<see cref="AccelSetup.Scaled"/>).</summary>
-    private double[] ScaledInput(double[] input) => AccelSetup.Scaled(input, options.AccelScaleCalibration);
 }
