@@ -1,5 +1,8 @@
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Prescribed;
+using LaunchLogger.Prescribed.Sensors;
+using LaunchLogger.Prescribed.Shapes;
 
 namespace LaunchLogger.Decoding.Tests.Reconstruction;
 
@@ -66,6 +69,39 @@ public class AccelSetupTests
         Assert.InRange(prepared.Rest.LevelSigmaMps2, 0.7 * 0.02 / Math.Sqrt(2000), 1.5 * 0.02 / Math.Sqrt(200));
         Assert.Empty(prepared.Warnings);
         Assert.Equal(double.PositiveInfinity, prepared.FinalRestFromS);
+    }
+
+    [Theory]
+    [InlineData(51, 0.03, 0.0, 0.05, 0.0)]
+    [InlineData(52, -0.02, 0.04, -0.03, 0.004)]
+    [InlineData(53, 0.0, -0.035, 0.0, -0.003)]
+    public void TheRestingLevelIsGravitysProjectionThroughTheMountingAndTheGrade(int seed, double pitchRad, double gradeRad, double biasMps2, double scaleError)
+    {
+        // A record from the independent generator, its files imported: a box pitched θ on a grade γ.
+        var spec = new PrescribedRecordSpec
+        {
+            Shape = PrescribedShapes.StandingStart(new Random(seed)),
+            Accel = new AccelSensor { RateHz = 400, NoiseMicroGPerRootHz = 150, PitchRad = pitchRad, GradeRad = gradeRad, BiasXMps2 = biasMps2, ScaleError = scaleError },
+            Seed = seed,
+        };
+        PrescribedStages stages = PrescribedStages.Of(spec.Generate());
+        AccelRest rest = stages.Prepared.Rest;
+
+        // Standing on the grade the sensor feels gravity's reaction g·sin γ along the road and
+        // g·cos γ across it; turned by θ about the lateral axis, its forward axis reads
+        // g·sin γ·cos θ + g·cos γ·sin θ = g·sin(θ + γ) (rotation of a vector, and the angle-sum
+        // identity, Abramowitz & Stegun 4.3.16), times its scale plus its bias.
+        double expected = ((1 + scaleError) * G0 * Math.Sin(pitchRad + gradeRad)) + biasMps2;
+        Assert.InRange(rest.LevelMps2, expected - (3 * rest.LevelSigmaMps2), expected + (3 * rest.LevelSigmaMps2));
+
+        // The noise read with it is the sensor's per-sample noise: a standard deviation from a few
+        // hundred samples lies within 15 % (its σ is σ/√(2(n − 1)), any statistics text; 4σ at n = 400).
+        double noise = spec.Accel.NoisePerSampleMps2;
+        Assert.InRange(rest.NoiseMps2, 0.85 * noise, 1.15 * noise);
+
+        // The samples the stage read from are left as read.
+        Assert.Same(stages.Run.Accel!.ForwardMps2, stages.Accel.ForwardMps2);
+        Assert.Same(stages.Run.Accel.TimeS, stages.Accel.TimeS);
     }
 
     [Fact]
