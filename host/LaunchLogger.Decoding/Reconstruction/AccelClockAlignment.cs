@@ -60,7 +60,7 @@ internal static class AccelClockAlignment
         double[] plain = options.CompensateBodyPitch
             ? AccelSetup.Scaled(a.Input(input.Rest, input.PitchRad, compensatePitch: false), options.AccelScaleCalibration)
             : input.InputMps2;
-        if (AccelClockFit.Fit(a.TimeS, plain, o.TimeS - 0.3, o.TimeS, endS, input.Pulses, input.MetresPerPulse, options.ToothSpacingErrorFraction * input.MetresPerPulse, input.InputDensity, options.TextAccelClockRateSigma, new Estimate(options.UndrivenSlipPerMps2, options.UndrivenSlipSigma), input.MeasuredInputDensity) is not { } matched)
+        if (AccelClockFit.Fit(a.TimeS, plain, o.TimeS - 0.3, o.TimeS, endS, input.Pulses, input.MetresPerPulse, options.ToothSpacingErrorFraction * input.MetresPerPulse, a.InputDensity(input.Rest, o.TimeS, options), options.TextAccelClockRateSigma, new Estimate(options.UndrivenSlipPerMps2, options.UndrivenSlipSigma), a.MeasuredInputDensity(input.Rest, o.TimeS, options.AccelNoiseMps2)) is not { } matched)
         {
             return null;
         }

@@ -31,14 +31,7 @@ internal sealed record AccelClockInputs
     /// first sample for a plain-text file, 0 for a log.</summary>
     public double PriorOffsetSigmaS { get; init; }
 
-    /// <summary>Noise density of the input from the onset on, m²/s³: the moving noise and what the
-    /// model misses.</summary>
-    public double InputDensity { get; init; }
-
-    /// <summary>The part of <see cref="InputDensity"/> measured from the samples, m²/s³.</summary>
-    public double MeasuredInputDensity { get; init; }
-
-    /// <summary>The tooth spacing's spread, the clock rate's σ, an undriven wheel's slip, whether
-    /// the body's pitch is compensated and the scale calibration.</summary>
+    /// <summary>The tooth spacing's spread, the clock rate's σ, an undriven wheel's slip, the
+    /// input's noise allowance, whether the body's pitch is compensated and the scale calibration.</summary>
     public required ReconstructionOptions Options { get; init; }
 }

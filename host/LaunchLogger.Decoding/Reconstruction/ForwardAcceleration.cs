@@ -212,6 +212,22 @@ internal sealed class ForwardAcceleration
         }
     }
 
+    /// <summary>Noise density of the input from <paramref name="startS"/> on, m²/s³: the measured
+    /// part (<see cref="MeasuredInputDensity"/>) and what the model misses
+    /// (<see cref="ReconstructionOptions.AccelModelNoiseDensity"/>).</summary>
+    public double InputDensity(AccelRest rest, double startS, ReconstructionOptions options) =>
+        MeasuredInputDensity(rest, startS, options.AccelNoiseMps2) + options.AccelModelNoiseDensity;
+
+    /// <summary>The part of the input's noise density measured from the samples from
+    /// <paramref name="startS"/> on, m²/s³: the moving noise per sample (or
+    /// <paramref name="toldNoiseMps2"/>) squared times the sample period, widened by the resting
+    /// noise's correlation from sample to sample.</summary>
+    public double MeasuredInputDensity(AccelRest rest, double startS, double? toldNoiseMps2)
+    {
+        double noise = toldNoiseMps2 ?? MovingNoise(rest, IndexAtOrAfter(startS), Count);
+        return noise * noise * PeriodS * rest.CorrelationFactor * rest.CorrelationFactor;
+    }
+
     /// <summary>Per-sample noise while moving, from first differences (robust: median absolute
     /// deviation), m/s²; never below the resting noise of <paramref name="rest"/>.</summary>
     public double MovingNoise(AccelRest rest, int from, int to)

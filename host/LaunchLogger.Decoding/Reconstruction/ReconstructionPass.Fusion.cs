@@ -20,16 +20,6 @@ internal sealed partial class ReconstructionPass
         }
     }
 
-    /// <summary>Noise density of the accelerometer's input from <paramref name="startS"/> on, m²/s³:
-    /// the moving noise per sample and what the model misses.</summary>
-    private double InputDensity(ForwardAcceleration a, AccelRest rest, double startS) => MeasuredInputDensity(a, rest, startS) + options.AccelModelNoiseDensity;
-
-    private double MeasuredInputDensity(ForwardAcceleration a, AccelRest rest, double startS)
-    {
-        double noise = options.AccelNoiseMps2 ?? a.MovingNoise(rest, a.IndexAtOrAfter(startS), a.Count);
-        return noise * noise * a.PeriodS * rest.CorrelationFactor * rest.CorrelationFactor;
-    }
-
     /// <summary>The filter's settings for one pass. <paramref name="spin"/> and
     /// <paramref name="slipSignal"/> are the windows stage's, or what replaces them under
     /// sustained spin; the slides, firm braking and brake slip signal come from
@@ -48,7 +38,7 @@ internal sealed partial class ReconstructionPass
         if (withAccel)
         {
             AccelRest resting = accelRest!;
-            inputDensity = InputDensity(accel!, resting, startS);
+            inputDensity = accel!.InputDensity(resting, startS, options);
             thirdSigma = Math.Sqrt((resting.LevelSigmaMps2 * resting.LevelSigmaMps2) + (options.BiasPriorMps2 * options.BiasPriorMps2));
         }
         else

@@ -110,8 +110,6 @@ internal sealed partial class ReconstructionPass
                 Pulses = pulses,
                 MetresPerPulse = mpp,
                 PriorOffsetSigmaS = TimeAxisOffsetSigma(o.TimeS),
-                InputDensity = InputDensity(accel, prepared.Rest, o.TimeS),
-                MeasuredInputDensity = MeasuredInputDensity(accel, prepared.Rest, o.TimeS),
                 Options = options,
             }) is { } matched)
             {
@@ -208,7 +206,7 @@ internal sealed partial class ReconstructionPass
             Opening = opening,
             AccelEndS = accel?.TimeS[^1],
             AccelRestLevelSigmaMps2 = accelRest?.LevelSigmaMps2 ?? 0,
-            InputDensity = accel is null ? 0 : InputDensity(accel, accelRest!, firstMotion.Value),
+            InputDensity = accel is null ? 0 : accel.InputDensity(accelRest!, firstMotion.Value, options),
             FinalRestFromS = finalRestFromS,
             SlipKept = fused.SlipKept,
             SlipToldApart = SlipToldApart(fused),

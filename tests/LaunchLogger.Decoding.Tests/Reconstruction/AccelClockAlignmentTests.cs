@@ -72,23 +72,17 @@ public class AccelClockAlignmentTests
     private static AccelClockInputs Inputs(PrescribedStages stages, AccelOnset onset)
     {
         ForwardAcceleration a = stages.Accel;
-        AccelRest rest = stages.Prepared.Rest;
-        ReconstructionOptions options = stages.Options;
-        double noise = a.MovingNoise(rest, a.IndexAtOrAfter(onset.TimeS), a.Count);
-        double measured = noise * noise * a.PeriodS * rest.CorrelationFactor * rest.CorrelationFactor;
         return new AccelClockInputs
         {
             Accel = a,
-            Rest = rest,
+            Rest = stages.Prepared.Rest,
             InputMps2 = stages.Prepared.InputMps2,
             PitchRad = stages.Prepared.PitchRad,
             Onset = onset,
             Pulses = stages.Channel.Pulses!,
             MetresPerPulse = stages.Channel.MetresPerPulse,
-            PriorOffsetSigmaS = options.TextAccelClockRateSigma * (onset.TimeS - a.TimeS[0]),
-            InputDensity = measured + options.AccelModelNoiseDensity,
-            MeasuredInputDensity = measured,
-            Options = options,
+            PriorOffsetSigmaS = stages.Options.TextAccelClockRateSigma * (onset.TimeS - a.TimeS[0]),
+            Options = stages.Options,
         };
     }
 
