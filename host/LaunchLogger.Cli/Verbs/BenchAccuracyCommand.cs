@@ -279,7 +279,8 @@ public static class BenchAccuracyCommand
     /// <summary>Adds a figure to <paramref name="shortfalls"/> when its coverage misses the σ goal.</summary>
     private static void NoteCoverageShort(List<string> shortfalls, string figure, List<CaseOutcome> runs, int m)
     {
-        if (CoverageShortfall(figure, runs.Count(o => o.Ours[m] is not null), Covered(runs, m, 2), Covered(runs, m, 3)) is { } shortfall)
+        double[] z = runs.Where(o => o.Ours[m] is not null && o.OurSigmas[m] is > 0).Select(o => o.Ours[m]!.Value / o.OurSigmas[m]!.Value).ToArray();
+        if (CoverageShortfall(figure, runs.Count(o => o.Ours[m] is not null), Covered(runs, m, 2), Covered(runs, m, 3), z) is { } shortfall)
         {
             shortfalls.Add(shortfall);
         }
@@ -288,8 +289,10 @@ public static class BenchAccuracyCommand
     /// <summary>A figure's coverage against the σ goal (≥ 95 % within ±2σ and ≥ 99 % within ±3σ):
     /// null when met; else both coverages with, for each one short, the exact 95 % interval
     /// (<see cref="CoverageInterval"/>) and whether the goal lies inside it (too few runs to tell a
-    /// short σ from a chance draw) or above it (σ short).</summary>
-    internal static string? CoverageShortfall(string figure, int total, int covered2, int covered3)
+    /// short σ from a chance draw) or above it (σ short); then the errors' mean in σ with its
+    /// standard error, since a count that "holds" the goal can still come from errors all of one
+    /// sign (a bias that σ only just covers).</summary>
+    internal static string? CoverageShortfall(string figure, int total, int covered2, int covered3, IReadOnlyList<double>? errorsOverSigma = null)
     {
         double cover2 = total > 0 ? 100.0 * covered2 / total : double.NaN;
         double cover3 = total > 0 ? 100.0 * covered3 / total : double.NaN;
@@ -306,6 +309,13 @@ public static class BenchAccuracyCommand
                 (double low, double high) = CoverageInterval.ClopperPearson(covered, total);
                 why.Add(Text($"{covered} of {total} within ±{k}σ, 95 % interval {100 * low:0.0}–{100 * high:0.0} %: {(100 * high >= goal ? "holds" : "below")} {goal:0} %"));
             }
+        }
+
+        if (errorsOverSigma is { Count: > 1 } z)
+        {
+            double mean = z.Average();
+            double spread = Math.Sqrt(z.Sum(x => (x - mean) * (x - mean)) / (z.Count - 1));
+            why.Add(Text($"error/σ mean {mean:+0.00;-0.00;0.00} ± {spread / Math.Sqrt(z.Count):0.00}"));
         }
 
         return Text($"{figure} {cover2:0.0} % / {cover3:0.0} %{(why.Count > 0 ? " (" + string.Join("; ", why) + ")" : "")}");

@@ -85,6 +85,24 @@ public class CoverageIntervalTests
         Assert.Null(BenchAccuracyCommand.CoverageShortfall("trap", 13, 13, 13));
     }
 
+    /// <summary>A count that holds the goal can come from errors all of one sign: the line gives
+    /// the errors' mean in σ with its standard error (sample standard deviation over √n), so a
+    /// bias is not read as a chance draw. Here 13 errors of −0.5σ to −2.5σ, one beyond 2σ: mean
+    /// −1.0; squared deviations 4 × 0.25 + 0.25 + 2.25 = 3.5, standard deviation √(3.5/12) = 0.540,
+    /// standard error 0.540/√13 = 0.150 (worked by hand).</summary>
+    [Fact]
+    public void A_short_coverage_gives_the_errors_mean_in_sigma_with_its_standard_error()
+    {
+        double[] z = [-0.5, -0.5, -0.5, -0.5, -1.0, -1.0, -1.0, -1.0, -1.0, -1.0, -1.0, -1.5, -2.5];
+        Assert.Equal(-1.0, z.Average(), 12);
+
+        string? line = BenchAccuracyCommand.CoverageShortfall("rollout mark", 13, 12, 13, z);
+
+        Assert.NotNull(line);
+        Assert.Contains("holds 95 %", line);
+        Assert.Contains("error/σ mean -1.00 ± 0.15", line);
+    }
+
     private static double BinomialTail(int n, double p, int from, int to)
     {
         double sum = 0;
