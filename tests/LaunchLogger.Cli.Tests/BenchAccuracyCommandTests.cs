@@ -90,6 +90,30 @@ public class BenchAccuracyCommandTests
         Assert.DoesNotContain("Simulated, accelerometer", text);
     }
 
+    /// <summary>Under 20 runs the nearest-rank p95 is the largest run, and the largest of n draws
+    /// lies beyond the true 95th percentile with probability 1 − 0.95ⁿ (order statistics: all n
+    /// below it with probability 0.95ⁿ; David and Nagaraja, Order Statistics, from memory). A goal
+    /// line over a small group must say so.</summary>
+    [Fact]
+    public void A_goal_over_fewer_than_twenty_runs_says_its_p95_is_the_largest_run()
+    {
+        var output = new StringWriter();
+        Assert.Equal(ExitCode.Ok, BenchAccuracyCommand.Run(8, 2, list: true, calibratedTyre: false, output, new StringWriter(), groups: [LaunchLogger.Cli.Bench.BenchGroup.GeneratedStanding]));
+        string text = output.ToString();
+
+        var goal = System.Text.RegularExpressions.Regex.Match(text, @"first motion p95 ≤ 5 ms: ([\d.]+) ms over (\d+) runs — (?:met|NOT met) \(the largest of (\d+): beyond the true p95 in (\d+) % of draws\)");
+        Assert.True(goal.Success, text);
+        int n = int.Parse(goal.Groups[2].Value, System.Globalization.CultureInfo.InvariantCulture);
+        Assert.Equal(n, int.Parse(goal.Groups[3].Value, System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(Math.Round(100 * (1 - Math.Pow(0.95, n))), double.Parse(goal.Groups[4].Value, System.Globalization.CultureInfo.InvariantCulture));
+
+        // The per-run list's first cell is each run's first-motion error (ms): the p95 is its largest.
+        double largest = text[text.IndexOf("Per run", StringComparison.Ordinal)..].Split('\n').Skip(1)
+            .Select(l => l.Trim()).Where(l => l.Length > 0)
+            .Max(l => Math.Abs(double.Parse(l.Split(' ', 2)[1].Split('/')[0].Split('(')[0], System.Globalization.CultureInfo.InvariantCulture)));
+        Assert.Equal(largest, double.Parse(goal.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture), 2);
+    }
+
     [Fact]
     public void Every_figure_the_report_prints_with_a_sigma_has_a_coverage_line()
     {
