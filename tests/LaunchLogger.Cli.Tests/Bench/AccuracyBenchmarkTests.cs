@@ -2,6 +2,7 @@ using LaunchLogger.Cli.Bench;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Prescribed;
+using LaunchLogger.Prescribed.Motion;
 using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Truth;
 using LaunchLogger.Simulation.Scenarios;
@@ -139,6 +140,37 @@ public class AccuracyBenchmarkTests
             Assert.Equal(standing[i].Spec.Shape.Name.Insert(cut, " (smooth)"), smooth[i].Spec.Shape.Name);
             Assert.Equal(standing[i].AsLog, smooth[i].AsLog);
             Assert.Equal(standing[i].StaticTyreM, smooth[i].StaticTyreM);
+        }
+    }
+
+    /// <summary>The lagged-launch group repeats every generated standing start once more, after
+    /// the smooth ones and at the same indices whether those are made or not, with the same car,
+    /// sensors and noise and the same draws of the launch (its demand ramp is the linear one's:
+    /// the same peak in the same time), the lag drawn within 0.02–0.15 s.</summary>
+    [Fact]
+    public void The_lagged_launches_are_the_standing_starts_again_with_a_lagged_take_up()
+    {
+        IReadOnlyList<PrescribedBenchCase> cases = PrescribedBenchCase.Build(80, 3, 100, calibratedTyre: false);
+        PrescribedBenchCase[] standing = cases.Where(c => c.Group == BenchGroup.GeneratedStanding).ToArray();
+        PrescribedBenchCase[] lagged = cases.Where(c => c.Group == BenchGroup.GeneratedStandingLagged).ToArray();
+        Assert.NotEmpty(standing);
+        Assert.Equal(standing.Length, lagged.Length);
+        Assert.Equal(Enumerable.Range(100 + cases.Count - lagged.Length, lagged.Length), lagged.Select(c => c.Index));
+        IReadOnlyList<PrescribedBenchCase> withoutSmooth = PrescribedBenchCase.Build(80, 3, 100, calibratedTyre: false, smoothLaunches: false);
+        Assert.Equal(lagged.Select(c => c.Index), withoutSmooth.Where(c => c.Group == BenchGroup.GeneratedStandingLagged).Select(c => c.Index));
+        Assert.Equal(cases.Where(c => c.Group != BenchGroup.GeneratedStandingSmooth).Select(c => c.Summary), withoutSmooth.Select(c => c.Summary));
+        for (int i = 0; i < standing.Length; i++)
+        {
+            Assert.Equal(standing[i].Spec with { Shape = lagged[i].Spec.Shape }, lagged[i].Spec);
+            Assert.Equal(standing[i].Spec.Shape.Kind, lagged[i].Spec.Shape.Kind);
+            var ramp = (RampSegment)standing[i].Spec.Shape.Profile.Segments[1].Segment;
+            var lag = (LaggedRampSegment)lagged[i].Spec.Shape.Profile.Segments[1].Segment;
+            Assert.Equal((ramp.DurationS, ramp.To), (lag.RampS, lag.Peak));
+            Assert.InRange(lag.LagS, 0.02, 0.15);
+            int cut = standing[i].Spec.Shape.Name.IndexOf(" s,", StringComparison.Ordinal) + 2;
+            Assert.Equal(standing[i].Spec.Shape.Name.Insert(cut, FormattableString.Invariant($" (lag {lag.LagS:0.000} s)")), lagged[i].Spec.Shape.Name);
+            Assert.Equal(standing[i].AsLog, lagged[i].AsLog);
+            Assert.Equal(standing[i].StaticTyreM, lagged[i].StaticTyreM);
         }
     }
 }
