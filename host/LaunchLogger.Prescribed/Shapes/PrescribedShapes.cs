@@ -61,6 +61,7 @@ public static class PrescribedShapes
         double brakeRise = brakeRiseS ?? Uniform(random, 0.05, 0.6);
         var pull = new ExponentialSegment(60, peak, final, tau);
         AccelSegment pulling = shifts == 0 ? pull : ShiftedPull(pull, shifts, random);
+        // The driveline's compliance (clutch, shafts, tyre) as one lag of 0.02–0.15 s (from memory).
         double lag = takeUp == LaunchTakeUp.Lagged ? Uniform(random, 0.02, 0.15) : 0;
         AccelSegment? rising = !(rise > 0) ? null : takeUp switch
         {
