@@ -46,9 +46,11 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// its delay drawn from a stream of its own so the records above stay as they are; and every
     /// standing start once more with a smooth take-up (<see cref="BenchGroup.GeneratedStandingSmooth"/>),
     /// its shape redrawn from the same seed with a raised-cosine rise in place of the ramp; and
-    /// every standing start once more after those with a lagged take-up
-    /// (<see cref="BenchGroup.GeneratedStandingLagged"/>), redrawn from the same seed with the
-    /// ramp's demand through a first-order lag (the lag drawn last, from the shape's own stream).</summary>
+    /// every other standing start (the first, third, …) once more after those with a lagged
+    /// take-up (<see cref="BenchGroup.GeneratedStandingLagged"/>), redrawn from the same seed with
+    /// the ramp's demand through a first-order lag (the lag drawn last, from the shape's own
+    /// stream). Every other one, not all: a standing start costs about three times the bench's
+    /// average record to decode, and all of them again would add a quarter to its run time.</summary>
     /// <param name="runs">Generated records before the switch and smooth-launch copies.</param>
     /// <param name="seed">Seed of every draw.</param>
     /// <param name="firstIndex">Index of the first case.</param>
@@ -137,22 +139,22 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
 
         // The standing starts once more with a smooth take-up, then once more with a lagged one.
         int smoothFirst = firstIndex + cases.Count;
-        AddTakeUps(cases, standingShapeSeeds, smoothLaunches, LaunchTakeUp.RaisedCosine, BenchGroup.GeneratedStandingSmooth, smoothFirst);
-        AddTakeUps(cases, standingShapeSeeds, laggedLaunches, LaunchTakeUp.Lagged, BenchGroup.GeneratedStandingLagged, smoothFirst + standingShapeSeeds.Count);
+        AddTakeUps(cases, standingShapeSeeds, smoothLaunches, LaunchTakeUp.RaisedCosine, BenchGroup.GeneratedStandingSmooth, smoothFirst, 1);
+        AddTakeUps(cases, standingShapeSeeds, laggedLaunches, LaunchTakeUp.Lagged, BenchGroup.GeneratedStandingLagged, smoothFirst + standingShapeSeeds.Count, 2);
         return cases;
     }
 
-    /// <summary>Adds every standing start once more with another take-up, numbered from
-    /// <paramref name="firstIndex"/>: the shape redrawn from its own seed (the same peak, rise
-    /// time, pull and shifts), the car, sensors and noise as they were.</summary>
-    private static void AddTakeUps(List<PrescribedBenchCase> cases, List<(PrescribedBenchCase Case, int ShapeSeed)> standingShapeSeeds, bool wanted, LaunchTakeUp takeUp, BenchGroup group, int firstIndex)
+    /// <summary>Adds every <paramref name="every"/>-th standing start (from the first) once more
+    /// with another take-up, numbered from <paramref name="firstIndex"/>: the shape redrawn from its
+    /// own seed (the same peak, rise time, pull and shifts), the car, sensors and noise as they were.</summary>
+    private static void AddTakeUps(List<PrescribedBenchCase> cases, List<(PrescribedBenchCase Case, int ShapeSeed)> standingShapeSeeds, bool wanted, LaunchTakeUp takeUp, BenchGroup group, int firstIndex, int every)
     {
-        for (int i = 0; wanted && i < standingShapeSeeds.Count; i++)
+        for (int i = 0; wanted && i < standingShapeSeeds.Count; i += every)
         {
             (PrescribedBenchCase standing, int shapeSeed) = standingShapeSeeds[i];
             Shape shape = PrescribedShapes.StandingStart(new Random(shapeSeed), takeUp: takeUp);
             string summary = shape.Name + standing.Summary[standing.Spec.Shape.Name.Length..];
-            cases.Add(standing with { Index = firstIndex + i, Spec = standing.Spec with { Shape = shape }, Group = group, Summary = summary });
+            cases.Add(standing with { Index = firstIndex + (i / every), Spec = standing.Spec with { Shape = shape }, Group = group, Summary = summary });
         }
     }
 
