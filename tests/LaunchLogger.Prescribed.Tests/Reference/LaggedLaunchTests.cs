@@ -62,7 +62,8 @@ public class LaggedLaunchTests
     {
         // Integrating λ·a′ + a = k·τ from rest (by hand): λ·a + Δv = k·τ²/2, and again,
         // λ·Δv + Δx = k·τ³/6. Both sides' terms are positive, so the check keeps its digits at
-        // every τ, the start included.
+        // every τ; it holds the three forms to each other (a form left direct near the start
+        // passes it, its rounding shared by all three: their digits there are the Taylor test's).
         var segment = new LaggedRampSegment(rampS, peakG * G, lagS);
         double k = peakG * G / rampS;
         for (int i = 1; i <= 40; i++)
