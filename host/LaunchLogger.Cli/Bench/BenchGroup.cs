@@ -45,4 +45,9 @@ public enum BenchGroup
     /// the launch taking up smoothly (a raised-cosine rise, the jerk starting from zero) instead of
     /// a linear ramp.</summary>
     GeneratedStandingSmooth,
+
+    /// <summary>Generator: every other standing start above again (the first, third, …), the same
+    /// car, sensors and draws, with the launch's ramp taken up through a first-order lag of 0.02–0.15 s (the acceleration
+    /// starting like τ² and easing into the ramp, reaching the peak later by up to the lag).</summary>
+    GeneratedStandingLagged,
 }

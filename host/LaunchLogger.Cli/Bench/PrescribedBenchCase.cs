@@ -45,16 +45,23 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// those, as a log with a brake switch (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>),
     /// its delay drawn from a stream of its own so the records above stay as they are; and every
     /// standing start once more with a smooth take-up (<see cref="BenchGroup.GeneratedStandingSmooth"/>),
-    /// its shape redrawn from the same seed with a raised-cosine rise in place of the ramp.</summary>
+    /// its shape redrawn from the same seed with a raised-cosine rise in place of the ramp; and
+    /// every other standing start (the first, third, …) once more after those with a lagged
+    /// take-up (<see cref="BenchGroup.GeneratedStandingLagged"/>), redrawn from the same seed with
+    /// the ramp's demand through a first-order lag (the lag drawn last, from the shape's own
+    /// stream). Every other one, not all: a standing start costs about three times the bench's
+    /// average record to decode, and all of them again would add a quarter to its run time.</summary>
     /// <param name="runs">Generated records before the switch and smooth-launch copies.</param>
     /// <param name="seed">Seed of every draw.</param>
     /// <param name="firstIndex">Index of the first case.</param>
     /// <param name="calibratedTyre">Tell the tyre as calibrated at speed.</param>
     /// <param name="calibratedAccel">Tell the accelerometer's scale as calibrated.</param>
-    /// <param name="smoothLaunches">False to leave out the smooth-launch copies (they come last, so
-    /// every other case is as it was; their shapes are integrated numerically and cost time to
-    /// build when their group is not wanted).</param>
-    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false, bool smoothLaunches = true)
+    /// <param name="smoothLaunches">False to leave out the smooth-launch copies (they come after
+    /// every other record but the lagged copies, so those are as they were; their shapes cost time
+    /// to build when their group is not wanted).</param>
+    /// <param name="laggedLaunches">False to leave out the lagged-launch copies (they come after
+    /// the smooth ones and keep their indices whether those are made or not).</param>
+    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false, bool smoothLaunches = true, bool laggedLaunches = true)
     {
         int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
         double[] rates = [100, 200, 400, 800, 1600];
@@ -130,16 +137,25 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
             cases.Add(new PrescribedBenchCase(firstIndex + cases.Count, spec, BenchGroup.GeneratedCruiseStopSwitch, true, summary) { AccelCalibration = stop.AccelCalibration, TyreCalibration = stop.TyreCalibration, StaticTyreM = stop.StaticTyreM });
         }
 
-        // The standing starts once more with a smooth take-up: the shape redrawn from its own seed
-        // (the same peak, rise time, pull and shifts), the car, sensors and noise as they were.
-        foreach ((PrescribedBenchCase standing, int shapeSeed) in smoothLaunches ? standingShapeSeeds : [])
-        {
-            Shape smooth = PrescribedShapes.StandingStart(new Random(shapeSeed), smoothLaunch: true);
-            string summary = smooth.Name + standing.Summary[standing.Spec.Shape.Name.Length..];
-            cases.Add(standing with { Index = firstIndex + cases.Count, Spec = standing.Spec with { Shape = smooth }, Group = BenchGroup.GeneratedStandingSmooth, Summary = summary });
-        }
-
+        // The standing starts once more with a smooth take-up, then once more with a lagged one.
+        int smoothFirst = firstIndex + cases.Count;
+        AddTakeUps(cases, standingShapeSeeds, smoothLaunches, LaunchTakeUp.RaisedCosine, BenchGroup.GeneratedStandingSmooth, smoothFirst, 1);
+        AddTakeUps(cases, standingShapeSeeds, laggedLaunches, LaunchTakeUp.Lagged, BenchGroup.GeneratedStandingLagged, smoothFirst + standingShapeSeeds.Count, 2);
         return cases;
+    }
+
+    /// <summary>Adds every <paramref name="every"/>-th standing start (from the first) once more
+    /// with another take-up, numbered from <paramref name="firstIndex"/>: the shape redrawn from its
+    /// own seed (the same peak, rise time, pull and shifts), the car, sensors and noise as they were.</summary>
+    private static void AddTakeUps(List<PrescribedBenchCase> cases, List<(PrescribedBenchCase Case, int ShapeSeed)> standingShapeSeeds, bool wanted, LaunchTakeUp takeUp, BenchGroup group, int firstIndex, int every)
+    {
+        for (int i = 0; wanted && i < standingShapeSeeds.Count; i += every)
+        {
+            (PrescribedBenchCase standing, int shapeSeed) = standingShapeSeeds[i];
+            Shape shape = PrescribedShapes.StandingStart(new Random(shapeSeed), takeUp: takeUp);
+            string summary = shape.Name + standing.Summary[standing.Spec.Shape.Name.Length..];
+            cases.Add(standing with { Index = firstIndex + (i / every), Spec = standing.Spec with { Shape = shape }, Group = group, Summary = summary });
+        }
     }
 
     private static Shape CruiseStop(Random random)

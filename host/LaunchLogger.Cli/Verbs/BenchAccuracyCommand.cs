@@ -36,7 +36,7 @@ public static class BenchAccuracyCommand
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
         IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();
-        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, Wanted(BenchGroup.GeneratedStandingSmooth)).Where(c => Wanted(c.Group)).ToList();
+        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, Wanted(BenchGroup.GeneratedStandingSmooth), Wanted(BenchGroup.GeneratedStandingLagged)).Where(c => Wanted(c.Group)).ToList();
         var started = System.Diagnostics.Stopwatch.StartNew();
         List<CaseOutcome> all;
         try
@@ -52,7 +52,7 @@ public static class BenchAccuracyCommand
 
         string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
             + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)");
-        output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up), seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
+        output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up, every other one again with a lagged take-up), seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (groups is { Count: > 0 })
         {
             output.WriteLine($"only the groups {string.Join(", ", groups)}: {simulated.Count + generated.Count} of those runs decoded");
@@ -108,6 +108,7 @@ public static class BenchAccuracyCommand
         BenchGroup.GeneratedCruiseStopSwitch => "Generated, the stops above again as logs with a brake switch (delay 5-25 ms not told; polled loops stall 20 ms)",
         BenchGroup.GeneratedStopAndGo => "Generated, stop-and-go: two standing runs in one record",
         BenchGroup.GeneratedStandingSmooth => "Generated, the standing starts above again with a smooth take-up (raised-cosine rise, same car and sensors)",
+        BenchGroup.GeneratedStandingLagged => "Generated, every other standing start above again with a lagged take-up (the ramp through a 0.02-0.15 s lag, same car and sensors)",
         _ => group.ToString(),
     };
 
@@ -168,7 +169,7 @@ public static class BenchAccuracyCommand
         output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {CoverageVerdict(coverageShort)}"));
         switch (group)
         {
-            case BenchGroup.SimulatedAccelUndriven or BenchGroup.GeneratedStanding or BenchGroup.GeneratedLongIdle or BenchGroup.GeneratedStandingSmooth:
+            case BenchGroup.SimulatedAccelUndriven or BenchGroup.GeneratedStanding or BenchGroup.GeneratedLongIdle or BenchGroup.GeneratedStandingSmooth or BenchGroup.GeneratedStandingLagged:
                 AccuracyGoals(runs, 1, calibratedTyre, output);
                 break;
             case BenchGroup.SimulatedAccelUndrivenPoll1Ms:

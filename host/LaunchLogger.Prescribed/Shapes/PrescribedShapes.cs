@@ -35,10 +35,22 @@ public static class PrescribedShapes
     /// <param name="launchRiseS">The launch's rise time instead of the drawn one (0 = a step).</param>
     /// <param name="brakeRiseS">The stop's rise time instead of the drawn one (0 = a step).</param>
     /// <param name="smoothLaunch">Rise as a raised cosine (<see cref="SmoothRise"/>) instead of
-    /// a linear ramp; the draws are the same, so a seed gives the same car either way.</param>
-    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null, bool smoothLaunch = false)
+    /// a linear ramp; the draws are the same, so a seed gives the same car either way. The same
+    /// as <paramref name="takeUp"/> = <see cref="LaunchTakeUp.RaisedCosine"/>.</param>
+    /// <param name="takeUp">How the launch rises to its peak. The draws above are the same for
+    /// every take-up, so a seed gives the same car; the lagged one then draws its lag, 0.02–0.15 s,
+    /// last (after the gear changes), so nothing else moves.</param>
+    /// <exception cref="ArgumentException"><paramref name="smoothLaunch"/> and another
+    /// <paramref name="takeUp"/> than the ramp or the raised cosine.</exception>
+    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null, bool smoothLaunch = false, LaunchTakeUp takeUp = LaunchTakeUp.Ramp)
     {
         ArgumentNullException.ThrowIfNull(random);
+        if (smoothLaunch && takeUp is not (LaunchTakeUp.Ramp or LaunchTakeUp.RaisedCosine))
+        {
+            throw new ArgumentException("a smooth launch is the raised-cosine take-up", nameof(takeUp));
+        }
+
+        takeUp = smoothLaunch ? LaunchTakeUp.RaisedCosine : takeUp;
         double peak = G * Uniform(random, 0.25, 1.1);
         double rise = Uniform(random, 0.05, 0.4);
         rise = launchRiseS ?? rise;
@@ -47,29 +59,32 @@ public static class PrescribedShapes
         int shifts = random.Next(0, 4);
         double brake = brakeG is { } fixedG ? G * fixedG : Math.Max(G * Uniform(random, 0.6, 1.0), peak + (0.1 * G));
         double brakeRise = brakeRiseS ?? Uniform(random, 0.05, 0.6);
-        var b = new MotionProfileBuilder().Hold(idleS);
-        if (rise > 0 && smoothLaunch)
-        {
-            b.Then(SmoothRise(rise, peak));
-        }
-        else if (rise > 0)
-        {
-            b.Ramp(rise, 0, peak);
-        }
-
         var pull = new ExponentialSegment(60, peak, final, tau);
-        if (shifts == 0)
+        AccelSegment pulling = shifts == 0 ? pull : ShiftedPull(pull, shifts, random);
+        // The driveline's compliance (clutch, shafts, tyre) as one lag of 0.02–0.15 s (from memory).
+        double lag = takeUp == LaunchTakeUp.Lagged ? Uniform(random, 0.02, 0.15) : 0;
+        AccelSegment? rising = !(rise > 0) ? null : takeUp switch
         {
-            b.Then(pull);
-        }
-        else
+            LaunchTakeUp.RaisedCosine => SmoothRise(rise, peak),
+            LaunchTakeUp.Lagged => LaggedRise(rise, peak, lag),
+            _ => new RampSegment(rise, 0, peak),
+        };
+        var b = new MotionProfileBuilder().Hold(idleS);
+        if (rising != null)
         {
-            b.Then(ShiftedPull(pull, shifts, random));
+            b.Then(rising);
         }
 
+        b.Then(pulling);
         CutAtDistance(b, StandingRunM);
         b.Hold(0.5).BrakeToStop(brakeRise, brake).Hold(RestAfterS);
-        string name = Invariant($"standing start, peak {peak / G:0.00} g in {rise:0.00} s{(smoothLaunch ? " (smooth)" : string.Empty)}, {shifts} shifts, T {tau:0.0} s");
+        string how = takeUp switch
+        {
+            LaunchTakeUp.RaisedCosine => " (smooth)",
+            LaunchTakeUp.Lagged => Invariant($" (lag {lag:0.000} s)"),
+            _ => string.Empty,
+        };
+        string name = Invariant($"standing start, peak {peak / G:0.00} g in {rise:0.00} s{how}, {shifts} shifts, T {tau:0.0} s");
         return new Shape(name, ShapeKind.StandingStart, b.Build());
     }
 
@@ -78,6 +93,13 @@ public static class PrescribedShapes
     /// a(τ) = peak·(1 − cos(πτ/T))/2, so the jerk itself starts from zero and the rise begins
     /// like τ², not τ.</summary>
     public static AccelSegment SmoothRise(double riseS, double peakMps2) => new RaisedCosineSegment(riseS, peakMps2);
+
+    /// <summary>A launch's take-up through the driveline's compliance: the driver's demand ramps
+    /// to <paramref name="peakMps2"/> in <paramref name="rampS"/> and the acceleration follows it
+    /// through a first-order lag of <paramref name="lagS"/> (<see cref="LaggedRampSegment"/>),
+    /// starting like k·τ²/(2λ) and easing into the ramp; it reaches the peak later than the demand,
+    /// by up to the lag, and the pull takes over from there.</summary>
+    public static AccelSegment LaggedRise(double rampS, double peakMps2, double lagS) => new LaggedRampSegment(rampS, peakMps2, lagS);
 
     /// <summary>A standing start at a constant acceleration, for closed-form checks.</summary>
     public static Shape ConstantLaunch(double accelMps2, double idleS = IdleS)

@@ -2,6 +2,7 @@ using LaunchLogger.Cli.Bench;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Prescribed;
+using LaunchLogger.Prescribed.Motion;
 using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Truth;
 using LaunchLogger.Simulation.Scenarios;
@@ -119,7 +120,7 @@ public class AccuracyBenchmarkTests
     }
 
     /// <summary>The smooth-launch group repeats every generated standing start, in order and after
-    /// every other record, with the same car, sensors and noise (the spec equal but for its shape)
+    /// every other record but the lagged copies, with the same car, sensors and noise (the spec equal but for its shape)
     /// and the same draws of the launch (its name the standing start's with the smooth take-up
     /// marked), so the records before it stay as they were.</summary>
     [Fact]
@@ -130,7 +131,9 @@ public class AccuracyBenchmarkTests
         PrescribedBenchCase[] smooth = cases.Where(c => c.Group == BenchGroup.GeneratedStandingSmooth).ToArray();
         Assert.NotEmpty(standing);
         Assert.Equal(standing.Length, smooth.Length);
-        Assert.Equal(Enumerable.Range(100 + cases.Count - smooth.Length, smooth.Length), smooth.Select(c => c.Index));
+        // After every other record and before the lagged copies.
+        int lagged = cases.Count(c => c.Group == BenchGroup.GeneratedStandingLagged);
+        Assert.Equal(Enumerable.Range(100 + cases.Count - lagged - smooth.Length, smooth.Length), smooth.Select(c => c.Index));
         for (int i = 0; i < standing.Length; i++)
         {
             Assert.Equal(standing[i].Spec with { Shape = smooth[i].Spec.Shape }, smooth[i].Spec);
@@ -139,6 +142,39 @@ public class AccuracyBenchmarkTests
             Assert.Equal(standing[i].Spec.Shape.Name.Insert(cut, " (smooth)"), smooth[i].Spec.Shape.Name);
             Assert.Equal(standing[i].AsLog, smooth[i].AsLog);
             Assert.Equal(standing[i].StaticTyreM, smooth[i].StaticTyreM);
+        }
+    }
+
+    /// <summary>The lagged-launch group repeats every other generated standing start (the first,
+    /// third, …) once more, after the smooth ones and at the same indices whether those are made or
+    /// not, with the same car,
+    /// sensors and noise and the same draws of the launch (its demand ramp is the linear one's:
+    /// the same peak in the same time), the lag drawn within 0.02–0.15 s.</summary>
+    [Fact]
+    public void The_lagged_launches_are_the_standing_starts_again_with_a_lagged_take_up()
+    {
+        IReadOnlyList<PrescribedBenchCase> cases = PrescribedBenchCase.Build(80, 3, 100, calibratedTyre: false);
+        PrescribedBenchCase[] standing = cases.Where(c => c.Group == BenchGroup.GeneratedStanding).ToArray();
+        PrescribedBenchCase[] lagged = cases.Where(c => c.Group == BenchGroup.GeneratedStandingLagged).ToArray();
+        Assert.True(standing.Length >= 4);
+        Assert.Equal((standing.Length + 1) / 2, lagged.Length);
+        Assert.Equal(Enumerable.Range(100 + cases.Count - lagged.Length, lagged.Length), lagged.Select(c => c.Index));
+        IReadOnlyList<PrescribedBenchCase> withoutSmooth = PrescribedBenchCase.Build(80, 3, 100, calibratedTyre: false, smoothLaunches: false);
+        Assert.Equal(lagged.Select(c => c.Index), withoutSmooth.Where(c => c.Group == BenchGroup.GeneratedStandingLagged).Select(c => c.Index));
+        Assert.Equal(cases.Where(c => c.Group != BenchGroup.GeneratedStandingSmooth).Select(c => c.Summary), withoutSmooth.Select(c => c.Summary));
+        for (int j = 0; j < lagged.Length; j++)
+        {
+            int i = 2 * j;
+            Assert.Equal(standing[i].Spec with { Shape = lagged[j].Spec.Shape }, lagged[j].Spec);
+            Assert.Equal(standing[i].Spec.Shape.Kind, lagged[j].Spec.Shape.Kind);
+            var ramp = (RampSegment)standing[i].Spec.Shape.Profile.Segments[1].Segment;
+            var lag = (LaggedRampSegment)lagged[j].Spec.Shape.Profile.Segments[1].Segment;
+            Assert.Equal((ramp.DurationS, ramp.To), (lag.RampS, lag.Peak));
+            Assert.InRange(lag.LagS, 0.02, 0.15);
+            int cut = standing[i].Spec.Shape.Name.IndexOf(" s,", StringComparison.Ordinal) + 2;
+            Assert.Equal(standing[i].Spec.Shape.Name.Insert(cut, FormattableString.Invariant($" (lag {lag.LagS:0.000} s)")), lagged[j].Spec.Shape.Name);
+            Assert.Equal(standing[i].AsLog, lagged[j].AsLog);
+            Assert.Equal(standing[i].StaticTyreM, lagged[j].StaticTyreM);
         }
     }
 }

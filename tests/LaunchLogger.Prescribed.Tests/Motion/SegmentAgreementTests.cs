@@ -15,6 +15,8 @@ public class SegmentAgreementTests
         { "exponential, T 0.05 s", new ExponentialSegment(0.4, 0, -9, 0.05) },
         { "raised cosine, T 0.05 s", new RaisedCosineSegment(0.05, 2.5) },
         { "raised cosine, T 0.4 s", new RaisedCosineSegment(0.4, 10.8) },
+        { "lagged ramp, T 0.2 s, λ 0.08 s", new LaggedRampSegment(0.2, 6.9, 0.08) },
+        { "lagged ramp, T 0.05 s, λ 0.15 s", new LaggedRampSegment(0.05, 2.5, 0.15) },
     };
 
     [Theory]
