@@ -5,7 +5,11 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <param name="SigmaS">Its 1 σ, seconds.</param>
 /// <param name="Shape">The onset shape that fitted best.</param>
 /// <param name="DetectedS">When the smoothed acceleration first clearly rose, seconds.</param>
-internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS);
+/// <param name="SmoothStartShare">How likely the rise starts like τ² (with zero slope: the
+/// shapes <see cref="OnsetShape.Quadratic"/>, <see cref="OnsetShape.SmoothTakeUp"/> and
+/// <see cref="OnsetShape.EvenTakeUp"/>) rather than with a slope or a step, by the shapes'
+/// odds exp(−ΔBIC/2), 0–1.</param>
+internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare);
 
 /// <summary>Shapes of the acceleration just after first motion (τ = t − t₀ ≥ 0).</summary>
 internal enum OnsetShape
@@ -244,7 +248,7 @@ internal static class AccelOnsetFit
 
         // A ramp or a jump chosen is kept where it is (the others still widen it): on such a rise
         // the curved shapes' onsets only add their noise to it.
-        bool curved = bestShape is (int)OnsetShape.Quadratic or (int)OnsetShape.RampQuadratic or (int)OnsetShape.SmoothTakeUp or (int)OnsetShape.EvenTakeUp;
+        bool curved = bestShape == (int)OnsetShape.RampQuadratic || StartsSmooth((OnsetShape)bestShape);
         double mean = curved ? weighted / weightSum : best.TimeS;
         double moment = 0;
         for (int m = 0; m < Shapes; m++)
@@ -256,13 +260,23 @@ internal static class AccelOnsetFit
         }
 
         double spreadSquared = moment / weightSum;
+        double smoothOdds = 0;
+        double allOdds = 0;
+        for (int m = 0; m < Shapes; m++)
+        {
+            allOdds += odds[m];
+            smoothOdds += StartsSmooth((OnsetShape)m) ? odds[m] : 0;
+        }
 
         // What lies below the noise cannot be seen: the longer the fitted onset stays under the
         // detection level, the more the unseen part of its shape matters.
         double hidden = 0.25 * Math.Max(0, tCross - mean);
         double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + spreadSquared + (hidden * hidden) + (period * period / 192));
-        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross);
+        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds);
     }
+
+    /// <summary>True for the shapes that start with zero value and zero slope (like τ²).</summary>
+    private static bool StartsSmooth(OnsetShape shape) => shape is OnsetShape.Quadratic or OnsetShape.SmoothTakeUp or OnsetShape.EvenTakeUp;
 
     private readonly record struct Fine(double TimeS, double HalfWidthS, double Sse);
 

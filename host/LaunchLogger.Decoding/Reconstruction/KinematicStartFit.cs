@@ -9,6 +9,17 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <param name="PhaseSigmaM">Its σ, metres.</param>
 internal readonly record struct KinematicStart(double TimeS, double SigmaS, double AccelMps2, double RampS, double PhaseM, double PhaseSigmaM);
 
+/// <summary>How the early acceleration of <see cref="KinematicStartFit"/>'s family takes up.</summary>
+internal enum KinematicTakeUp
+{
+    /// <summary>A linear ramp of length T up to a plateau A: a(τ) = A·min(τ/T, 1).</summary>
+    Ramp,
+
+    /// <summary>A raised cosine of length T up to a plateau A: a(τ) = A·(1 − cos(πτ/T))/2 for
+    /// τ ≤ T, then A (a take-up whose jerk starts from zero, so it begins like τ²).</summary>
+    RaisedCosine,
+}
+
 /// <summary>Back-extrapolates the first pulse observations to zero distance.</summary>
 /// <remarks>
 /// <para>The early acceleration is modelled as a ramp of length T up to a plateau A:
@@ -27,6 +38,13 @@ internal readonly record struct KinematicStart(double TimeS, double SigmaS, doub
 /// known to be wrong; from memory: the tempered or "safe" Bayesian updates of the statistics
 /// literature); its σ combines the spread of the start times so weighted with the profile widths
 /// (Δχ² = 1) of the fits.</para>
+/// <para>The pulses cannot tell a ramp from a smooth take-up, yet the two put t₀ apart: after
+/// the rise a raised cosine of length T moves as a ramp of length T' = T·√(24·(1/8 − 1/π²))
+/// ≈ 0.754·T starting (T − T')/2 ≈ 0.123·T later (equal plateau, speed and distance after both
+/// rises: d = A·((τ − T/2)²/2 + T²·(1/8 − 1/π²)) against A·((τ − T'/2)²/2 + T'²/24); integrated
+/// here), and while the pulses still come within the rise, later still. So the family is chosen
+/// by the caller (<see cref="KinematicTakeUp"/>): the accelerometer, where there is one, sees how
+/// the rise begins. A raised cosine's lengths run to 0.4 s, a ramp-equivalent 0.3 s.</para>
 /// <para>Only the pulses of the first 0.15 s (at least five) are fitted: real launches overshoot
 /// and dip as the tyres and driveline wind up, which no monotone ramp follows for long. That,
 /// and any other shape the family misses, is covered by a model-error term of a fifth of the
@@ -39,6 +57,10 @@ internal static class KinematicStartFit
     private const double RampStepS = 0.01;
     private const double LongestRampS = 0.3;
 
+    /// <summary>The longest raised-cosine take-up, s: the one whose ramp-equivalent length
+    /// (0.754·T, see the remarks) is <see cref="LongestRampS"/>.</summary>
+    private const double LongestRaisedCosineS = 0.4;
+
     /// <summary>K: how many units of χ² between two ramp lengths count as one. On five or so
     /// pulses a launch's departures from a ramp — a wound-up driveline, tyres breaking away and
     /// hunting under traction control — move χ² between ramp lengths by several units with no
@@ -49,7 +71,8 @@ internal static class KinematicStartFit
     /// whose ramps are in the family, lost little (p50 31 → 37 ms, p95 105 → 106 ms).</summary>
     private const double RampLikelihoodTemper = 10;
 
-    public static KinematicStart? Fit(PulseChannel pulses, double mpp, double toothSigma, double jitterS, double earliestS)
+    /// <summary>Fits the start with the <paramref name="takeUp"/> family (the ramps by default).</summary>
+    public static KinematicStart? Fit(PulseChannel pulses, double mpp, double toothSigma, double jitterS, double earliestS, KinematicTakeUp takeUp = KinematicTakeUp.Ramp)
     {
         if (pulses.Length < 3 || mpp <= 0)
         {
@@ -70,9 +93,10 @@ internal static class KinematicStartFit
             count++;
         }
 
-        Data data = Prepare(pulses, count, mpp, toothSigma, jitterS);
+        Data data = Prepare(pulses, count, mpp, toothSigma, jitterS, takeUp);
         var fits = new List<Profile>();
-        for (double ramp = 0; ramp <= LongestRampS + 1e-9; ramp += RampStepS)
+        double longest = takeUp == KinematicTakeUp.RaisedCosine ? LongestRaisedCosineS : LongestRampS;
+        for (double ramp = 0; ramp <= longest + 1e-9; ramp += RampStepS)
         {
             if (ProfileFit(data, mpp, ramp, earliestS, firstS) is { } fit)
             {
@@ -115,11 +139,11 @@ internal static class KinematicStartFit
         return new KinematicStart(mean, sigma, best.A, best.Ramp, phiMean, Math.Sqrt(phiVar + phiStatVar));
     }
 
-    private sealed record Data(double[] T, double[] Y, double[] W);
+    private sealed record Data(double[] T, double[] Y, double[] W, KinematicTakeUp TakeUp);
 
     private readonly record struct Profile(double Ramp, double T0, double Sigma, double Chi2, double A, double Phi, double PhiSigma);
 
-    private static Data Prepare(PulseChannel pulses, int count, double mpp, double toothSigma, double jitterS)
+    private static Data Prepare(PulseChannel pulses, int count, double mpp, double toothSigma, double jitterS, KinematicTakeUp takeUp)
     {
         var t = new double[count];
         var y = new double[count];
@@ -140,7 +164,7 @@ internal static class KinematicStartFit
             w[i] = 1 / variance;
         }
 
-        return new Data(t, y, w);
+        return new Data(t, y, w, takeUp);
     }
 
     /// <summary>Profile over t₀ for one ramp length.</summary>
@@ -216,8 +240,45 @@ internal static class KinematicStartFit
         return new Profile(ramp, bestT, sigma, bestChi, a, phi, phiSigma);
     }
 
+    /// <summary>Distance covered τ after the start under the family's take-up of length T to a
+    /// unit plateau.</summary>
+    internal static double UnitDistance(double tau, double ramp, KinematicTakeUp takeUp) =>
+        takeUp == KinematicTakeUp.RaisedCosine ? RaisedCosineDistance(tau, ramp) : RampDistance(tau, ramp);
+
+    /// <summary>Distance covered τ after the start under a(τ) = (1 − cos(πτ/T))/2 up to T, then 1:
+    /// <code>
+    /// d(τ) = τ²/4 − (T²/2π²)·(1 − cos(πτ/T))      τ ≤ T
+    /// d(τ) = (τ − T/2)²/2 + T²·(1/8 − 1/π²)       τ > T
+    /// </code>
+    /// (twice integrated; the two agree at τ = T, T²/4 − T²/π²). Near the start the first form
+    /// loses digits to cancellation (it is π²τ⁴/48T² there): below πτ/T = 0.1 its Maclaurin series
+    /// is used instead.</summary>
+    private static double RaisedCosineDistance(double tau, double ramp)
+    {
+        if (tau <= 0)
+        {
+            return 0;
+        }
+
+        if (tau > ramp)
+        {
+            double shifted = tau - (0.5 * ramp);
+            return (0.5 * shifted * shifted) + (ramp * ramp * (0.125 - (1 / (Math.PI * Math.PI))));
+        }
+
+        double u = Math.PI * tau / ramp;
+        if (u < 0.1)
+        {
+            // (T²/2π²)·(u²/2 − 1 + cos u) = (T²/2π²)·(u⁴/24 − u⁶/720 + u⁸/40320 − …)
+            double u2 = u * u;
+            return ramp * ramp / (2 * Math.PI * Math.PI) * u2 * u2 * ((1.0 / 24) - (u2 / 720) + (u2 * u2 / 40320));
+        }
+
+        return (0.25 * tau * tau) - (ramp * ramp / (2 * Math.PI * Math.PI) * (1 - Math.Cos(u)));
+    }
+
     /// <summary>Distance covered τ after the start under a(τ) = min(τ/T, 1) (unit plateau).</summary>
-    private static double UnitDistance(double tau, double ramp)
+    private static double RampDistance(double tau, double ramp)
     {
         if (tau <= 0)
         {
@@ -253,7 +314,7 @@ internal static class KinematicStartFit
             }
 
             double w = data.W[i];
-            double c = UnitDistance(tau, ramp);
+            double c = UnitDistance(tau, ramp, data.TakeUp);
             s00 += w;
             s01 += w * c;
             s11 += w * c * c;
@@ -278,7 +339,7 @@ internal static class KinematicStartFit
         chi2 = (phi - phiMean) * (phi - phiMean) / phiVar;
         for (int i = 0; i < t.Length; i++)
         {
-            double e = data.Y[i] - (phi + (a * UnitDistance(t[i] - t0, ramp)));
+            double e = data.Y[i] - (phi + (a * UnitDistance(t[i] - t0, ramp, data.TakeUp)));
             chi2 += data.W[i] * e * e;
         }
 

@@ -41,7 +41,7 @@ internal sealed partial class ReconstructionPass
             }
         }
 
-        Estimate? fromPulses = kinematic is { } k ? new Estimate(k.TimeS, k.SigmaS) : null;
+        Estimate? fromPulses = PulsesStart(fromAccel is null ? 0 : onset!.Value.SmoothStartShare);
         if (fromAccel is { } a && fromPulses is { } p)
         {
             double gap = a.Value - p.Value;
@@ -89,6 +89,31 @@ internal sealed partial class ReconstructionPass
         double start = motionHintS ?? accel!.TimeS[0];
         warnings.Add("the accelerometer shows no clear onset of motion: first motion is taken from the box's own mark or the start of the samples");
         return new Estimate(start, 0.05);
+    }
+
+    /// <summary>First motion as the first pulses imply it (<see cref="KinematicStartFit"/>), with
+    /// the take-up the accelerometer saw: the pulses cannot tell a ramp from a smooth take-up, and a
+    /// ramp fitted to a smooth one puts t₀ late by 0.12 of its rise time and more (the fit's
+    /// remarks). With <paramref name="smoothShare"/> the accelerometer's odds that the rise starts
+    /// like τ², the two families' starts are mixed by those odds: mean Σ wᵢ·tᵢ, variance
+    /// Σ wᵢ·(σᵢ² + (tᵢ − mean)²) (a mixture's moments; Bayesian model averaging as in the onset
+    /// fit).</summary>
+    private Estimate? PulsesStart(double smoothShare)
+    {
+        if (kinematic is not { } ramp)
+        {
+            return null;
+        }
+
+        var fromRamp = new Estimate(ramp.TimeS, ramp.SigmaS);
+        if (smoothShare < 1e-3 || KinematicStartFit.Fit(pulses!, mpp, options.ToothSpacingErrorFraction * mpp, options.EdgeJitterS, pulses!.MidS(0) - 3.0, KinematicTakeUp.RaisedCosine) is not { } smooth)
+        {
+            return fromRamp;
+        }
+
+        double mean = ((1 - smoothShare) * ramp.TimeS) + (smoothShare * smooth.TimeS);
+        double variance = ((1 - smoothShare) * (Square(ramp.SigmaS) + Square(ramp.TimeS - mean))) + (smoothShare * (Square(smooth.SigmaS) + Square(smooth.TimeS - mean)));
+        return new Estimate(mean, Math.Sqrt(variance));
     }
 
     /// <summary>How many of its σ an accelerometer onset may lie after the first pulse and still
