@@ -3,6 +3,7 @@ using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Verdicts;
 using LaunchLogger.Simulation;
 
 namespace LaunchLogger.Cli.Bench;
@@ -38,11 +39,19 @@ public static class AccuracyBenchmark
             return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, "the box logged no run")];
         }
 
+        // Analysed and judged as `report` does a log's run (a log's run is never split again),
+        // so the bench sees the verdict a user would.
         RunAnalysis ours;
         FigureSet naive;
         try
         {
-            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM));
+            SessionAnalysis session = SessionAnalyzer.Analyze([run], AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM), cancel: cancel);
+            if (session.Runs.Count != 1)
+            {
+                return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, session.Failures.FirstOrDefault() ?? $"the box's run was read as {session.Runs.Count} runs")];
+            }
+
+            ours = session.Runs[0];
             naive = NaiveFigures(run);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException)
@@ -61,7 +70,23 @@ public static class AccuracyBenchmark
         }
 
         return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Grade, ours.Reconstruction.Staged), FigureReading.FromFigures(naive))
-            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth) }];
+            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth), Verdict = ours.Verdict, Expected = Expected(c, simulation.Events) }];
+    }
+
+    /// <summary>The verdict a simulated run deserves, from the simulation's truth. Every bench
+    /// scenario is a standing start with working sensors (no dropped pulses, no lost frames),
+    /// so it is clean, unless its pickup turns with a driven wheel that really spun: the driven
+    /// slip ratio went past the tyre's friction peak (<see cref="Simulation.Scenarios.TyreSpec.PeakSlip"/>;
+    /// past the peak of a Magic-Formula curve the tyre is sliding, not gripping — Pacejka,
+    /// <i>Tyre and Vehicle Dynamics</i>, ch. 4, from memory). The judge's rule for a pickup wheel
+    /// running off on its own is doubtful with <c>wheelspin</c>.</summary>
+    public static ExpectedVerdict Expected(AccuracyCase c, Simulation.Truth.TruthEvents events)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        ArgumentNullException.ThrowIfNull(events);
+        return c.DrivenPickup && events.PeakDrivenSlip > c.Scenario.Tyre.PeakSlip
+            ? ExpectedVerdict.Wheelspin(FormattableString.Invariant($"driven pickup, slip {events.PeakDrivenSlip:0.00} past the tyre's peak {c.Scenario.Tyre.PeakSlip:0.00}"))
+            : ExpectedVerdict.Clean(c.DrivenPickup ? "driven pickup, slip short of the tyre's peak" : "standing start, undriven pickup");
     }
 
     /// <summary>The accelerometer's own distance at the first foot less the true distance then,
@@ -100,6 +125,12 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
     /// <summary>Per figure: true when the truth has it and the decoder reported none (it may
     /// rightly decline one it cannot support; the count shows how often).</summary>
     public bool[] Missed { get; init; } = new bool[BenchFigure.All.Count];
+
+    /// <summary>The verdict the decoder gave the run; null when it failed.</summary>
+    public Verdict? Verdict { get; init; }
+
+    /// <summary>The verdict the run deserves, from its truth; null when it failed.</summary>
+    public ExpectedVerdict? Expected { get; init; }
 
     /// <summary>False when the decoder split the record into a different number of runs.</summary>
     public bool RunsAsExpected { get; init; } = true;

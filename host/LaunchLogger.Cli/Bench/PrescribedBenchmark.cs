@@ -53,10 +53,23 @@ public static class PrescribedBenchmark
             {
                 StandingFigureOnRollingStart = !truth.Standing && FigureReading.HasStandingFigure(ours.Figures),
                 RunsAsExpected = asExpected,
+                Verdict = ours.Verdict,
+                Expected = Expected(truth),
             });
         }
 
         return outcomes;
+    }
+
+    /// <summary>The verdict a generated run deserves, from the generator's truth: every record
+    /// has working sensors and an undriven pickup, so a standing start (after any idle, or either
+    /// run of a stop-and-go record) is clean; a run that opens moving (a rolling start, cruise then
+    /// a stop) has no standstill for its standing-start figures, which the judge's rule makes
+    /// invalid with <c>rolling_start</c>.</summary>
+    public static ExpectedVerdict Expected(TruthRun truth)
+    {
+        ArgumentNullException.ThrowIfNull(truth);
+        return truth.Standing ? ExpectedVerdict.Clean("standing start, sane sensors") : ExpectedVerdict.RollingStart("opens moving");
     }
 
     /// <summary>Decodes <paramref name="record"/> (<paramref name="c"/>'s) as the benchmark does:

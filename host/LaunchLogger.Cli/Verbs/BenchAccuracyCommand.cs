@@ -96,6 +96,26 @@ public static class BenchAccuracyCommand
         _ => group.ToString(),
     };
 
+    /// <summary>The verdict each group's runs deserve, decided from what was simulated or
+    /// generated (<see cref="AccuracyBenchmark.Expected"/>, <see cref="PrescribedBenchmark.Expected"/>
+    /// decide it per run from the truth); a group added later is clean unless it says otherwise.</summary>
+    private static string Expectation(BenchGroup group) => group switch
+    {
+        // A standing start with working sensors and an undriven pickup: nothing to doubt, at any
+        // poll period (the σ carries the brackets).
+        BenchGroup.SimulatedAccelUndriven or BenchGroup.SimulatedAccelUndrivenPoll1Ms or BenchGroup.SimulatedAccelUndrivenPollCoarse or BenchGroup.SimulatedPulsesUndriven
+            => "valid (a standing start, working sensors, undriven pickup)",
+        // The pickup wheel sees the drive: a wheel that spun past the tyre's friction peak runs
+        // off on its own, which the judge's rule makes doubtful; drive slip short of it is normal.
+        BenchGroup.SimulatedAccelDriven or BenchGroup.SimulatedPulsesDriven
+            => "valid, or doubtful with wheelspin alone where the driven slip went past the tyre's friction peak",
+        // No standstill: the standing-start figures cannot be supported.
+        BenchGroup.GeneratedRolling or BenchGroup.GeneratedCruiseStop or BenchGroup.GeneratedCruiseStopSwitch
+            => "invalid with rolling_start alone (the record opens moving)",
+        BenchGroup.GeneratedStopAndGo => "two runs, each valid (two standing starts, working sensors)",
+        _ => "valid (a standing start, working sensors, undriven pickup)",
+    };
+
     /// <summary>The figures the truth has where the decoder reported none (a speed it did not
     /// clearly pass, a mark after the acceleration ended): each with how many of the runs that
     /// have it in truth.</summary>
@@ -149,8 +169,11 @@ public static class BenchAccuracyCommand
 
         AccelFirstFootLine(runs, output);
         MissedLine(runs, output);
+        VerdictTally verdicts = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
+        output.WriteLine($"  verdicts (expected: {Expectation(group)}): {verdicts.Describe()}");
         output.WriteLine("  goals:");
         output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {CoverageVerdict(coverageShort)}"));
+        VerdictGoals(verdicts, output);
         switch (group)
         {
             case BenchGroup.SimulatedAccelUndriven or BenchGroup.GeneratedStanding or BenchGroup.GeneratedLongIdle or BenchGroup.GeneratedStandingSmooth:
@@ -192,6 +215,20 @@ public static class BenchAccuracyCommand
         Goal(runs, BenchFigure.ZeroTo60AfterRollout, 5 * factor, Text($"0-60 mph after rollout p95 ≤ {5 * factor:0.###} ms"), output);
         Goal(runs, BenchFigure.Quarter, 5 * factor, Text($"1/4 mile ET p95 ≤ {5 * factor:0.###} ms"), output);
         Goal(runs, BenchFigure.Trap, 0.05 * factor, Text($"1/4 mile trap speed p95 ≤ {0.05 * factor:0.###} m/s"), output);
+    }
+
+    /// <summary>A verdict must be right both ways: every clean run valid, no flawed run valid.</summary>
+    private static void VerdictGoals(VerdictTally t, TextWriter output)
+    {
+        if (t.Clean > 0)
+        {
+            output.WriteLine($"    clean runs called valid: {t.CleanCalledValid} of {t.Clean} (goal: all) — {(t.CleanCalledValid == t.Clean ? "met" : "NOT met")}");
+        }
+
+        if (t.Flawed > 0)
+        {
+            output.WriteLine($"    flawed runs called valid: {t.FlawedCalledValid} of {t.Flawed} (goal: 0) — {(t.FlawedCalledValid == 0 ? "met" : "NOT met")}");
+        }
     }
 
     private static void Goal(List<CaseOutcome> runs, int m, double limit, string text, TextWriter output)
@@ -252,6 +289,9 @@ public static class BenchAccuracyCommand
         }
 
         output.WriteLine(Text($"  goal: truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs over the bench, every figure: {CoverageVerdict(coverageShort)}"));
+        VerdictTally verdicts = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
+        output.WriteLine($"  verdicts: {verdicts.Describe()}");
+        VerdictGoals(verdicts, output);
     }
 
     /// <summary>Adds a figure to <paramref name="shortfalls"/> when its coverage misses the σ goal
@@ -300,8 +340,23 @@ public static class BenchAccuracyCommand
                 cells.Add(Text($"acc 1 ft {foot.Value * 1000:+0.0;-0.0} mm ({foot.Value / foot.Sigma:+0.0;-0.0}σ)"));
             }
 
-            output.WriteLine($"  {o.Index,4} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
+            output.WriteLine($"  {o.Index,4} {VerdictCell(o)} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
         }
+    }
+
+    /// <summary>The run's verdict with its reason codes, and "(expected …)" when it deserved another.</summary>
+    private static string VerdictCell(CaseOutcome o)
+    {
+        if (o.Verdict is not { } v)
+        {
+            return "[no verdict]";
+        }
+
+        string codes = v.Reasons.Count == 0 ? "" : ": " + string.Join(",", v.Reasons.Select(r => r.Code));
+        string expected = o.Expected is { } e && !e.Matches(v)
+            ? $" (expected {VerdictTally.Name(e.Level)}{(e.Codes.Count == 0 ? "" : ": " + string.Join(",", e.Codes))})"
+            : "";
+        return $"[{VerdictTally.Name(v.Level)}{codes}{expected}]";
     }
 
     private static string Text(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
