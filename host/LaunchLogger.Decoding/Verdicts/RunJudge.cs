@@ -60,9 +60,12 @@ public static class RunJudge
             reasons.Add(new(VerdictLevel.Doubtful, "frames_lost", Invariant($"{run.FramesLost} frame(s) of this run were lost or damaged in the log")));
         }
 
-        // A wheel sliding under firm braking (ABS at work) is expected and carried by the
-        // accelerometer; only a wheel running off on its own counts against the run.
-        double spin = rec.WheelspinWindows.Sum(w => w.EndS - w.StartS);
+        // A wheel sliding under braking (ABS at work, or a braked tyre's slip, which the spin
+        // finder sees as the wheel parting from the car) is expected and carried by the
+        // accelerometer; only a wheel running off on its own before the brakes come on counts
+        // against the run.
+        double driveEndsS = analysis.Braking?.OnsetS.Value ?? double.PositiveInfinity;
+        double spin = rec.WheelspinWindows.Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
         if (spin > limits.WheelspinS)
         {
             reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: distance and speed there lean on the accelerometer")));

@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
@@ -97,6 +98,25 @@ public class RunJudgeTests
         // does not count against the run.
         RunAnalysis run = JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, slides: [new(20.0, 22.5)]));
         Assert.Equal(VerdictLevel.Valid, Judge(run).Level);
+    }
+
+    [Fact]
+    public void OnlyThePickupWheelsSpinBeforeBrakeOnsetIsWheelspin()
+    {
+        // A braked tyre slips (the wheel turns slower than the road): the spin finder sees the
+        // wheel part from the car after brake onset, which is no wheel running off on its own.
+        BrakingResult stop = JudgedRun.Stop(8, 8, 9, onsetS: 20);
+        RunAnalysis braked = JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(20.01, 22.5)]), braking: stop);
+        Assert.Equal(VerdictLevel.Valid, Judge(braked).Level);
+
+        // A window reaching back before onset counts for its part before it: 0.04 s is within the
+        // 0.05 s limit, 0.2 s is beyond it.
+        Assert.Empty(Judge(JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(19.96, 21.0)]), braking: stop)).Reasons);
+        Verdict spun = AssertOnly(JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(19.8, 21.0)]), braking: stop), "wheelspin", VerdictLevel.Doubtful);
+        Assert.Contains("0.20 s", spun.Reasons[0].Text);
+
+        // Without a stop, every window counts.
+        AssertOnly(JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(20.01, 22.5)])), "wheelspin", VerdictLevel.Doubtful);
     }
 
     [Fact]
