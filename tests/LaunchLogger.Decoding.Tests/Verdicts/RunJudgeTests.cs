@@ -70,6 +70,24 @@ public class RunJudgeTests
     }
 
     [Fact]
+    public void ALoopSteadilySlowerThanTheBoxsBracketLimitIsNoFaultButItsStallsAre()
+    {
+        // The box counts every bracket over its 2 ms limit as wide; a loop that polls every 5 ms
+        // (jitter ±1 ms) makes all 1000 wide, which the reconstruction models: no doubt.
+        PulseRecord[] steady = Enumerable.Range(1, 1000).Select(i => new PulseRecord(i, i * 0.01, (i * 0.01) + 0.005 + (0.001 * ((i % 3) - 1)))).ToArray();
+        RunAnalysis slowLoop = JudgedRun.Clean(run: r => JudgedRun.Copy(r, configuration: r.Configuration with { BracketLimitS = 0.002 }, pulses: steady, health: new Dictionary<string, long> { [HealthCounterNames.WideBrackets] = 1000 }));
+        Assert.Empty(Judge(slowLoop).Reasons);
+
+        // The same loop stalling 20 ms (over 3 × its 5 ms median) in 21 of 1000 observations,
+        // beyond the 2 % share: doubtful; in 20, at the share: not.
+        PulseRecord[] Stalled(int n) => steady.Select((p, i) => i < n ? p with { HiS = p.LoS + 0.02 } : p).ToArray();
+        RunAnalysis stalls = JudgedRun.Clean(run: r => JudgedRun.Copy(r, configuration: r.Configuration with { BracketLimitS = 0.002 }, pulses: Stalled(21), health: new Dictionary<string, long> { [HealthCounterNames.WideBrackets] = 1000 }));
+        Verdict verdict = AssertOnly(stalls, "wide_brackets", VerdictLevel.Doubtful);
+        Assert.StartsWith("21 of 1000", verdict.Reasons[0].Text);
+        Assert.Empty(Judge(JudgedRun.Clean(run: r => JudgedRun.Copy(r, configuration: r.Configuration with { BracketLimitS = 0.002 }, pulses: Stalled(20), health: new Dictionary<string, long> { [HealthCounterNames.WideBrackets] = 1000 }))).Reasons);
+    }
+
+    [Fact]
     public void LostFramesMakeARunDoubtful()
     {
         Verdict verdict = AssertOnly(JudgedRun.Clean(run: r => JudgedRun.Copy(r, framesLost: 2)), "frames_lost", VerdictLevel.Doubtful);
