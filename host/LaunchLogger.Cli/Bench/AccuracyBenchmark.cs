@@ -70,23 +70,35 @@ public static class AccuracyBenchmark
         }
 
         return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Grade, ours.Reconstruction.Staged), FigureReading.FromFigures(naive))
-            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth), Verdict = ours.Verdict, Expected = Expected(c, simulation.Events) }];
+            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth), Verdict = ours.Verdict, Expected = Expected(c, simulation.Events, truth) }];
     }
 
     /// <summary>The verdict a simulated run deserves, from the simulation's truth. Every bench
-    /// scenario is a standing start with working sensors (no dropped pulses, no lost frames),
-    /// so it is clean, unless its pickup turns with a driven wheel that really spun: the driven
-    /// slip ratio went past the tyre's friction peak (<see cref="Simulation.Scenarios.TyreSpec.PeakSlip"/>;
-    /// past the peak of a Magic-Formula curve the tyre is sliding, not gripping — Pacejka,
-    /// <i>Tyre and Vehicle Dynamics</i>, ch. 4, from memory). The judge's rule for a pickup wheel
-    /// running off on its own is doubtful with <c>wheelspin</c>.</summary>
-    public static ExpectedVerdict Expected(AccuracyCase c, Simulation.Truth.TruthEvents events)
+    /// scenario is a standing start with working sensors (no dropped pulses, no lost frames), so
+    /// it is clean, but for what the judge's rules say of two things the truth shows: the pickup's
+    /// own wheel slipping past the tyre's friction peak (<see cref="Simulation.Scenarios.TyreSpec.PeakSlip"/>;
+    /// past the peak of a Magic-Formula curve the tyre slides rather than grips — Pacejka, "Tire
+    /// and Vehicle Dynamics", ch. 4, from memory) for longer than the judge's
+    /// <see cref="VerdictLimits.WheelspinS"/> before the brakes come on is doubtful with
+    /// <c>wheelspin</c>; a run whose truth never reached 60 mph is doubtful with
+    /// <c>target_not_reached</c>.</summary>
+    public static ExpectedVerdict Expected(AccuracyCase c, Simulation.Truth.TruthEvents events, FigureSet truth)
     {
         ArgumentNullException.ThrowIfNull(c);
         ArgumentNullException.ThrowIfNull(events);
-        return c.DrivenPickup && events.PeakDrivenSlip > c.Scenario.Tyre.PeakSlip
-            ? ExpectedVerdict.Wheelspin(FormattableString.Invariant($"driven pickup, slip {events.PeakDrivenSlip:0.00} past the tyre's peak {c.Scenario.Tyre.PeakSlip:0.00}"))
-            : ExpectedVerdict.Clean(c.DrivenPickup ? "driven pickup, slip short of the tyre's peak" : "standing start, undriven pickup");
+        ArgumentNullException.ThrowIfNull(truth);
+        ExpectedVerdict expected = ExpectedVerdict.Clean(c.DrivenPickup ? "standing start, driven pickup" : "standing start, undriven pickup");
+        if (events.PickupSpinS > VerdictLimits.Default.WheelspinS)
+        {
+            expected = expected.And(VerdictLevel.Doubtful, ExpectedVerdict.WheelspinCode, FormattableString.Invariant($"the pickup wheel slipped past the tyre's peak for {events.PickupSpinS:0.00} s"));
+        }
+
+        if (truth.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph")?.FromStandstillS is null)
+        {
+            expected = expected.And(VerdictLevel.Doubtful, ExpectedVerdict.TargetNotReachedCode, "60 mph not reached");
+        }
+
+        return expected;
     }
 
     /// <summary>The accelerometer's own distance at the first foot less the true distance then,

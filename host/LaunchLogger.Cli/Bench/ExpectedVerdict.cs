@@ -15,8 +15,23 @@ public sealed record ExpectedVerdict(VerdictLevel Level, IReadOnlyList<string> C
     /// <summary>The reason code of a pickup wheel that ran off on its own (<see cref="RunJudge"/>).</summary>
     public const string WheelspinCode = "wheelspin";
 
+    /// <summary>The reason code of a standing run that never reached 60 mph (<see cref="RunJudge"/>).</summary>
+    public const string TargetNotReachedCode = "target_not_reached";
+
+    /// <summary>Codes the run may carry besides <see cref="Codes"/>, at any level: faults the
+    /// case injected on purpose whose effect the truth does not say (a stalled loop's wide
+    /// brackets, an accelerometer FIFO that may overflow during the stall).</summary>
+    public IReadOnlyList<string> Allowed { get; init; } = [];
+
     /// <summary>A clean run: nothing the data cannot support, so valid with no reason at all.</summary>
-    public bool IsClean => Level == VerdictLevel.Valid;
+    public bool IsClean => Level == VerdictLevel.Valid && Codes.Count == 0;
+
+    /// <summary>This expectation and one more reason the run deserves.</summary>
+    public ExpectedVerdict And(VerdictLevel level, string code, string why) =>
+        new((VerdictLevel)Math.Max((int)Level, (int)level), [.. Codes, code], IsClean ? why : $"{Why}; {why}") { Allowed = Allowed };
+
+    /// <summary>This expectation, allowing <paramref name="codes"/> besides.</summary>
+    public ExpectedVerdict Allowing(string why, params string[] codes) => this with { Allowed = [.. Allowed, .. codes], Why = $"{Why}; may carry {string.Join(", ", codes)}: {why}" };
 
     /// <summary>A standing start with sane sensors: valid.</summary>
     public static ExpectedVerdict Clean(string why) => new(VerdictLevel.Valid, [], why);
@@ -29,20 +44,22 @@ public sealed record ExpectedVerdict(VerdictLevel Level, IReadOnlyList<string> C
     /// the judge's rule makes it doubtful with <c>wheelspin</c>, and nothing else.</summary>
     public static ExpectedVerdict Wheelspin(string why) => new(VerdictLevel.Doubtful, [WheelspinCode], why);
 
-    /// <summary>True when <paramref name="verdict"/> has this level, every expected code and no other.</summary>
+    /// <summary>True when <paramref name="verdict"/> carries every expected code and no other
+    /// but the allowed ones, at this level (or an allowed reason's, when worse).</summary>
     public bool Matches(Verdict verdict)
     {
         ArgumentNullException.ThrowIfNull(verdict);
-        var codes = verdict.Reasons.Select(r => r.Code).ToHashSet(StringComparer.Ordinal);
-        return verdict.Level == Level && codes.SetEquals(Codes);
+        VerdictLevel level = verdict.Reasons.Where(r => Allowed.Contains(r.Code, StringComparer.Ordinal))
+            .Select(r => r.Level).Append(Level).Max();
+        return verdict.Level == level && !MissingCodes(verdict).Any() && !UnexpectedCodes(verdict).Any();
     }
 
-    /// <summary>The reason codes of <paramref name="verdict"/> this expectation does not hold
-    /// (all of them for a clean run).</summary>
+    /// <summary>The reason codes of <paramref name="verdict"/> this expectation neither asks for
+    /// nor allows (all of them for a clean run).</summary>
     public IEnumerable<string> UnexpectedCodes(Verdict verdict)
     {
         ArgumentNullException.ThrowIfNull(verdict);
-        return verdict.Reasons.Select(r => r.Code).Where(c => !Codes.Contains(c, StringComparer.Ordinal));
+        return verdict.Reasons.Select(r => r.Code).Where(c => !Codes.Contains(c, StringComparer.Ordinal) && !Allowed.Contains(c, StringComparer.Ordinal));
     }
 
     /// <summary>The expected codes <paramref name="verdict"/> lacks.</summary>
