@@ -37,6 +37,26 @@ public class VerdictTallyTests
     }
 
     [Fact]
+    public void Reasons_add_up_to_the_worst_level_and_allowed_codes_may_come_or_not()
+    {
+        ExpectedVerdict shortRun = CleanRun.And(VerdictLevel.Doubtful, "target_not_reached", "60 mph not reached");
+        Assert.False(shortRun.IsClean);
+        Assert.True(shortRun.Matches(V((VerdictLevel.Doubtful, "target_not_reached"))));
+        Assert.False(shortRun.Matches(V()));
+
+        ExpectedVerdict both = Rolling.And(VerdictLevel.Doubtful, "target_not_reached", "short");
+        Assert.Equal(VerdictLevel.Invalid, both.Level);
+        Assert.True(both.Matches(V((VerdictLevel.Invalid, "rolling_start"), (VerdictLevel.Doubtful, "target_not_reached"))));
+
+        // A stalled loop may leave its marks; the level follows the worst reason present.
+        ExpectedVerdict stalled = CleanRun.Allowing("the loop stalls", "wide_brackets", "accel_overflow");
+        Assert.True(stalled.Matches(V()));
+        Assert.True(stalled.Matches(V((VerdictLevel.Doubtful, "wide_brackets"))));
+        Assert.False(stalled.Matches(V((VerdictLevel.Doubtful, "wheelspin"))));
+        Assert.True(Rolling.Allowing("the loop stalls", "accel_overflow").Matches(V((VerdictLevel.Invalid, "rolling_start"), (VerdictLevel.Doubtful, "accel_overflow"))));
+    }
+
+    [Fact]
     public void The_tally_counts_levels_both_ways_and_names_the_reasons_of_the_unexpected()
     {
         // By hand: six runs judged, one failed (no verdict) and left out.
