@@ -81,14 +81,19 @@ public static class AccuracyBenchmark
     /// and Vehicle Dynamics", ch. 4, from memory) for longer than the judge's
     /// <see cref="VerdictLimits.WheelspinS"/> before the brakes come on is doubtful with
     /// <c>wheelspin</c>; a run whose truth never reached 60 mph is doubtful with
-    /// <c>target_not_reached</c>.</summary>
+    /// <c>target_not_reached</c>. A spin on the first pickup weakens nothing when a second
+    /// pickup turns with an undriven wheel (it carries the distance).</summary>
     public static ExpectedVerdict Expected(AccuracyCase c, Simulation.Truth.TruthEvents events, FigureSet truth)
     {
         ArgumentNullException.ThrowIfNull(c);
         ArgumentNullException.ThrowIfNull(events);
         ArgumentNullException.ThrowIfNull(truth);
         ExpectedVerdict expected = ExpectedVerdict.Clean(c.DrivenPickup ? "standing start, driven pickup" : "standing start, undriven pickup");
-        if (events.PickupSpinS > VerdictLimits.Default.WheelspinS)
+        // A second pickup on an undriven wheel carries the distance when the first spins: then
+        // the spin weakens nothing.
+        bool undrivenSecond = c.Scenario.SecondPickup is { } second && c.Scenario.Vehicle.DrivenAxle != Simulation.Scenarios.DrivenAxle.All
+            && (c.Scenario.Vehicle.DrivenAxle == Simulation.Scenarios.DrivenAxle.Front) != (second.Axle == Simulation.Scenarios.Axle.Front);
+        if (events.PickupSpinS > VerdictLimits.Default.WheelspinS && !undrivenSecond)
         {
             expected = expected.And(VerdictLevel.Doubtful, ExpectedVerdict.WheelspinCode, FormattableString.Invariant($"the pickup wheel slipped past the tyre's peak for {events.PickupSpinS:0.00} s"));
         }

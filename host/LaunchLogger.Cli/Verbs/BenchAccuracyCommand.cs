@@ -18,13 +18,14 @@ public static class BenchAccuracyCommand
         var calibrated = new Option<bool>("--calibrated-tyre") { Description = "Take the tyre as calibrated at speed (true rolling circumference told, no growth; the decoder told it with the 0.1 % σ of a roll over a measured 100 m); by default the box is told the static circumference and the tyre grows with speed." };
         var calibratedAccel = new Option<bool>("--calibrated-accel") { Description = "Tell the decoder the accelerometer's forward scale as a calibration against gravity gives it (truth plus a drawn 0.2 % error); the tyre stays as --calibrated-tyre says." };
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
-        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only };
-        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel))));
+        var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables." };
+        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, json };
+        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(json))));
         return command;
     }
 
     /// <summary>Runs the benchmark.</summary>
-    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false)
+    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, bool json = false)
     {
         if (runs < 2 || runs > 100_000)
         {
@@ -47,6 +48,12 @@ public static class BenchAccuracyCommand
         {
             error.WriteLine("bench accuracy: cancelled");
             return ExitCode.Cancelled;
+        }
+
+        if (json)
+        {
+            WriteJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seed, simulatedRuns, runs - simulatedRuns, output);
+            return ExitCode.Ok;
         }
 
         string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
@@ -345,6 +352,41 @@ public static class BenchAccuracyCommand
 
             output.WriteLine($"  {o.Index,4} {VerdictCell(o)} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
         }
+    }
+
+    /// <summary>The verdict accounting as JSON: per group and over the bench, with the runs that
+    /// failed to decode counted apart.</summary>
+    private static void WriteJson(List<CaseOutcome> all, IEnumerable<BenchGroup> groups, int seed, int simulated, int generated, TextWriter output)
+    {
+        List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
+        object Tally(List<CaseOutcome> runs)
+        {
+            VerdictTally t = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
+            return new
+            {
+                judged = t.Judged,
+                as_expected = t.AsExpected,
+                valid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Valid],
+                doubtful = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Doubtful],
+                invalid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Invalid],
+                clean = t.Clean,
+                clean_called_valid = t.CleanCalledValid,
+                flawed = t.Flawed,
+                flawed_called_valid = t.FlawedCalledValid,
+                not_as_expected = t.Unexpected.Select(u => new { level = VerdictTally.Name(u.Level), runs = u.Runs, codes = u.Codes.ToDictionary(c => c.Code, c => c.Count) }),
+            };
+        }
+
+        var document = new
+        {
+            seed,
+            simulated_runs = simulated,
+            generated_records = generated,
+            failed = all.Count(o => o.Failure != null),
+            groups = groups.Select(g => new { group = g.ToString(), expected = Expectation(g), verdicts = Tally(decoded.Where(o => o.Group == g).ToList()) }),
+            whole_bench = Tally(decoded),
+        };
+        output.WriteLine(System.Text.Json.JsonSerializer.Serialize(document, new System.Text.Json.JsonSerializerOptions { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }));
     }
 
     /// <summary>The run's verdict with its reason codes, and "(expected …)" when it deserved another.</summary>
