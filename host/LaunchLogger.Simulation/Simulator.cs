@@ -122,6 +122,7 @@ public static class Simulator
         private double peakSpeed;
         private double peakAccel;
         private double peakSlip;
+        private double pickupSpinS;
         private long pulsesAtFirstMotion = -1;
 
         internal SimulationRun(Scenario scenario, int seed)
@@ -350,6 +351,8 @@ public static class Simulator
             if (phase == Phase.Accelerating)
             {
                 peakSlip = Math.Max(peakSlip, DrivenSlip());
+                double pickupSlip = scenario.Pickup.Axle == Axle.Front ? vehicle.SlipFront : vehicle.SlipRear;
+                pickupSpinS += pickupSlip > scenario.Tyre.PeakSlip ? t1 - t0 : 0;
                 if ((plan.TargetSpeedMps is { } vt && vehicle.SpeedMps >= vt) || (plan.TargetDistanceM is { } xt && vehicle.DistanceM >= xt))
                 {
                     vehicle.Coast();
@@ -463,6 +466,7 @@ public static class Simulator
                 PeakSpeedMps = peakSpeed,
                 PeakAccelMps2 = peakAccel,
                 PeakDrivenSlip = peakSlip,
+                PickupSpinS = pickupSpinS,
                 GradePercent = scenario.Environment.GradePercent,
                 HeadwindMps = scenario.Environment.HeadwindMps,
             };

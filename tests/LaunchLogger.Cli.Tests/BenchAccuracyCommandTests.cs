@@ -115,6 +115,36 @@ public class BenchAccuracyCommandTests
     }
 
     [Fact]
+    public void The_json_verdict_accounting_adds_up_per_group_and_over_the_bench()
+    {
+        var output = new StringWriter();
+        ExitCode code = BenchAccuracyCommand.Run(16, 2, list: false, calibratedTyre: false, output, new StringWriter(), groups: [LaunchLogger.Cli.Bench.BenchGroup.GeneratedStanding, LaunchLogger.Cli.Bench.BenchGroup.GeneratedRolling], json: true);
+
+        Assert.Equal(ExitCode.Ok, code);
+        using var document = System.Text.Json.JsonDocument.Parse(output.ToString());
+        System.Text.Json.JsonElement root = document.RootElement;
+        Assert.Equal(2, root.GetProperty("groups").GetArrayLength());
+        int judged = 0;
+        foreach (System.Text.Json.JsonElement g in root.GetProperty("groups").EnumerateArray())
+        {
+            System.Text.Json.JsonElement v = g.GetProperty("verdicts");
+            int n = v.GetProperty("judged").GetInt32();
+            judged += n;
+            // Every run judged has one level, and is either clean or flawed, as expected or not.
+            Assert.Equal(n, v.GetProperty("valid").GetInt32() + v.GetProperty("doubtful").GetInt32() + v.GetProperty("invalid").GetInt32());
+            Assert.Equal(n, v.GetProperty("clean").GetInt32() + v.GetProperty("flawed").GetInt32());
+            Assert.Equal(n, v.GetProperty("as_expected").GetInt32() + v.GetProperty("not_as_expected").EnumerateArray().Sum(u => u.GetProperty("runs").GetInt32()));
+        }
+
+        Assert.True(judged > 0);
+        Assert.Equal(judged, root.GetProperty("whole_bench").GetProperty("judged").GetInt32());
+        // Records that open moving are flawed by their truth: the rolling group has no clean run.
+        System.Text.Json.JsonElement rolling = root.GetProperty("groups").EnumerateArray().Single(g => g.GetProperty("group").GetString() == "GeneratedRolling").GetProperty("verdicts");
+        Assert.Equal(0, rolling.GetProperty("clean").GetInt32());
+        Assert.Equal(rolling.GetProperty("judged").GetInt32(), rolling.GetProperty("flawed").GetInt32());
+    }
+
+    [Fact]
     public void Every_figure_the_report_prints_with_a_sigma_has_a_coverage_line()
     {
         // The report prints first motion, the rollout mark after first motion and its speed, the

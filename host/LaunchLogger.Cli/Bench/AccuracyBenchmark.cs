@@ -3,6 +3,7 @@ using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
+using LaunchLogger.Decoding.Verdicts;
 using LaunchLogger.Simulation;
 
 namespace LaunchLogger.Cli.Bench;
@@ -38,11 +39,19 @@ public static class AccuracyBenchmark
             return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, "the box logged no run")];
         }
 
+        // Analysed and judged as `report` does a log's run (a log's run is never split again),
+        // so the bench sees the verdict a user would.
         RunAnalysis ours;
         FigureSet naive;
         try
         {
-            ours = RunAnalyzer.Analyze(run, AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM));
+            SessionAnalysis session = SessionAnalyzer.Analyze([run], AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM), cancel: cancel);
+            if (session.Runs.Count != 1)
+            {
+                return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, session.Failures.FirstOrDefault() ?? $"the box's run was read as {session.Runs.Count} runs")];
+            }
+
+            ours = session.Runs[0];
             naive = NaiveFigures(run);
         }
         catch (Exception e) when (e is AnalysisException or InvalidOperationException)
@@ -61,7 +70,40 @@ public static class AccuracyBenchmark
         }
 
         return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Grade, ours.Reconstruction.Staged), FigureReading.FromFigures(naive))
-            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth) }];
+            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth), Verdict = ours.Verdict, Expected = Expected(c, simulation.Events, truth) }];
+    }
+
+    /// <summary>The verdict a simulated run deserves, from the simulation's truth. Every bench
+    /// scenario is a standing start with working sensors (no dropped pulses, no lost frames), so
+    /// it is clean, but for what the judge's rules say of two things the truth shows: the pickup's
+    /// own wheel slipping past the tyre's friction peak (<see cref="Simulation.Scenarios.TyreSpec.PeakSlip"/>;
+    /// past the peak of a Magic-Formula curve the tyre slides rather than grips — Pacejka, "Tire
+    /// and Vehicle Dynamics", ch. 4, from memory) for longer than the judge's
+    /// <see cref="VerdictLimits.WheelspinS"/> before the brakes come on is doubtful with
+    /// <c>wheelspin</c>; a run whose truth never reached 60 mph is doubtful with
+    /// <c>target_not_reached</c>. A spin on the first pickup weakens nothing when a second
+    /// pickup turns with an undriven wheel (it carries the distance).</summary>
+    public static ExpectedVerdict Expected(AccuracyCase c, Simulation.Truth.TruthEvents events, FigureSet truth)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        ArgumentNullException.ThrowIfNull(events);
+        ArgumentNullException.ThrowIfNull(truth);
+        ExpectedVerdict expected = ExpectedVerdict.Clean(c.DrivenPickup ? "standing start, driven pickup" : "standing start, undriven pickup");
+        // A second pickup on an undriven wheel carries the distance when the first spins: then
+        // the spin weakens nothing.
+        bool undrivenSecond = c.Scenario.SecondPickup is { } second && c.Scenario.Vehicle.DrivenAxle != Simulation.Scenarios.DrivenAxle.All
+            && (c.Scenario.Vehicle.DrivenAxle == Simulation.Scenarios.DrivenAxle.Front) != (second.Axle == Simulation.Scenarios.Axle.Front);
+        if (events.PickupSpinS > VerdictLimits.Default.WheelspinS && !undrivenSecond)
+        {
+            expected = expected.And(VerdictLevel.Doubtful, ExpectedVerdict.WheelspinCode, FormattableString.Invariant($"the pickup wheel slipped past the tyre's peak for {events.PickupSpinS:0.00} s"));
+        }
+
+        if (truth.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph")?.FromStandstillS is null)
+        {
+            expected = expected.And(VerdictLevel.Doubtful, ExpectedVerdict.TargetNotReachedCode, "60 mph not reached");
+        }
+
+        return expected;
     }
 
     /// <summary>The accelerometer's own distance at the first foot less the true distance then,
@@ -100,6 +142,12 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
     /// <summary>Per figure: true when the truth has it and the decoder reported none (it may
     /// rightly decline one it cannot support; the count shows how often).</summary>
     public bool[] Missed { get; init; } = new bool[BenchFigure.All.Count];
+
+    /// <summary>The verdict the decoder gave the run; null when it failed.</summary>
+    public Verdict? Verdict { get; init; }
+
+    /// <summary>The verdict the run deserves, from its truth; null when it failed.</summary>
+    public ExpectedVerdict? Expected { get; init; }
 
     /// <summary>False when the decoder split the record into a different number of runs.</summary>
     public bool RunsAsExpected { get; init; } = true;

@@ -53,10 +53,35 @@ public static class PrescribedBenchmark
             {
                 StandingFigureOnRollingStart = !truth.Standing && FigureReading.HasStandingFigure(ours.Figures),
                 RunsAsExpected = asExpected,
+                Verdict = ours.Verdict,
+                Expected = Expected(c, truth),
             });
         }
 
         return outcomes;
+    }
+
+    /// <summary>The verdict a generated run deserves, from the generator's truth: every record
+    /// has working sensors and an undriven pickup, so a standing start (after any idle, or either
+    /// run of a stop-and-go record) is clean; a run that opens moving (a rolling start, cruise then
+    /// a stop) has no standstill for its standing-start figures, which the judge's rule makes
+    /// invalid with <c>rolling_start</c>; a standing run that never reaches 60 mph is doubtful with
+    /// <c>target_not_reached</c>, as the judge's rule says. A polled loop made to stall 20 ms (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>) may carry
+    /// <c>wide_brackets</c> (brackets a stall wide) and <c>accel_overflow</c> (the accelerometer's
+    /// FIFO unread through the stall).</summary>
+    public static ExpectedVerdict Expected(PrescribedBenchCase c, TruthRun truth)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        ArgumentNullException.ThrowIfNull(truth);
+        ExpectedVerdict expected = truth.Standing ? ExpectedVerdict.Clean("standing start, sane sensors") : ExpectedVerdict.RollingStart("opens moving");
+        if (truth.Standing && truth.Interval(TruthSpeedSpan.Mph(0, 60))?.FromStandstillS is null)
+        {
+            expected = expected.And(LaunchLogger.Decoding.Verdicts.VerdictLevel.Doubtful, ExpectedVerdict.TargetNotReachedCode, "60 mph not reached");
+        }
+
+        return c.Group == BenchGroup.GeneratedCruiseStopSwitch && c.Spec.Polled is not null
+            ? expected.Allowing("the loop stalls 20 ms", "wide_brackets", "accel_overflow")
+            : expected;
     }
 
     /// <summary>Decodes <paramref name="record"/> (<paramref name="c"/>'s) as the benchmark does:

@@ -19,13 +19,14 @@ public static class BenchAccuracyCommand
         var calibratedAccel = new Option<bool>("--calibrated-accel") { Description = "Tell the decoder the accelerometer's forward scale as a calibration against gravity gives it (truth plus a drawn 0.2 % error); the tyre stays as --calibrated-tyre says." };
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
         var errorsCsv = new Option<FileInfo?>("--errors-csv") { Description = "Also write every run's error, σ and error/σ per figure to this CSV file (for pooling seeds)." };
-        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv };
-        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName)));
+        var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables." };
+        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json };
+        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName, parse.GetValue(json))));
         return command;
     }
 
     /// <summary>Runs the benchmark.</summary>
-    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null)
+    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null, bool json = false)
     {
         if (runs < 2 || runs > 100_000)
         {
@@ -48,6 +49,12 @@ public static class BenchAccuracyCommand
         {
             error.WriteLine("bench accuracy: cancelled");
             return ExitCode.Cancelled;
+        }
+
+        if (json)
+        {
+            WriteJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seed, simulatedRuns, runs - simulatedRuns, output);
+            return ExitCode.Ok;
         }
 
         string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
@@ -112,6 +119,29 @@ public static class BenchAccuracyCommand
         _ => group.ToString(),
     };
 
+    /// <summary>The verdict each group's runs deserve, decided from what was simulated or
+    /// generated (any run whose truth stays under 60 mph: doubtful with target_not_reached) (<see cref="AccuracyBenchmark.Expected"/>, <see cref="PrescribedBenchmark.Expected"/>
+    /// decide it per run from the truth); a group added later is clean unless it says otherwise.</summary>
+    private static string Expectation(BenchGroup group) => group switch
+    {
+        // A standing start with working sensors and an undriven pickup: nothing to doubt, at any
+        // poll period (the σ carries the brackets).
+        BenchGroup.SimulatedAccelUndriven or BenchGroup.SimulatedAccelUndrivenPoll1Ms or BenchGroup.SimulatedAccelUndrivenPollCoarse or BenchGroup.SimulatedPulsesUndriven
+            => "valid (a standing start, working sensors, undriven pickup)",
+        // The pickup wheel sees the drive: a wheel that spun past the tyre's friction peak runs
+        // off on its own, which the judge's rule makes doubtful; drive slip short of it is normal.
+        BenchGroup.SimulatedAccelDriven or BenchGroup.SimulatedPulsesDriven
+            => "valid, or doubtful with wheelspin where the pickup wheel slipped past the tyre's friction peak for over 0.05 s before braking",
+        // No standstill: the standing-start figures cannot be supported.
+        BenchGroup.GeneratedRolling or BenchGroup.GeneratedCruiseStop
+            => "invalid with rolling_start alone (the record opens moving)",
+        // The same, and a stalled loop's own marks.
+        BenchGroup.GeneratedCruiseStopSwitch => "invalid with rolling_start (the record opens moving); a polled loop that stalls may add wide_brackets, accel_overflow",
+        // Each run is judged on its own; the judge's rule doubts a run that stops short of 60 mph.
+        BenchGroup.GeneratedStopAndGo => "two runs, each valid (two standing starts, working sensors), or doubtful with target_not_reached where the truth stays under 60 mph",
+        _ => "valid (a standing start, working sensors, undriven pickup)",
+    };
+
     /// <summary>The figures the truth has where the decoder reported none (a speed it did not
     /// clearly pass, a mark after the acceleration ended): each with how many of the runs that
     /// have it in truth.</summary>
@@ -165,8 +195,11 @@ public static class BenchAccuracyCommand
 
         AccelFirstFootLine(runs, output);
         MissedLine(runs, output);
+        VerdictTally verdicts = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
+        output.WriteLine($"  verdicts (expected: {Expectation(group)}): {verdicts.Describe()}");
         output.WriteLine("  goals:");
         output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {CoverageVerdict(coverageShort)}"));
+        VerdictGoals(verdicts, output);
         switch (group)
         {
             case BenchGroup.SimulatedAccelUndriven or BenchGroup.GeneratedStanding or BenchGroup.GeneratedLongIdle or BenchGroup.GeneratedStandingSmooth or BenchGroup.GeneratedStandingLagged:
@@ -208,6 +241,20 @@ public static class BenchAccuracyCommand
         Goal(runs, BenchFigure.ZeroTo60AfterRollout, 5 * factor, Text($"0-60 mph after rollout p95 ≤ {5 * factor:0.###} ms"), output);
         Goal(runs, BenchFigure.Quarter, 5 * factor, Text($"1/4 mile ET p95 ≤ {5 * factor:0.###} ms"), output);
         Goal(runs, BenchFigure.Trap, 0.05 * factor, Text($"1/4 mile trap speed p95 ≤ {0.05 * factor:0.###} m/s"), output);
+    }
+
+    /// <summary>A verdict must be right both ways: every clean run valid, no flawed run valid.</summary>
+    private static void VerdictGoals(VerdictTally t, TextWriter output)
+    {
+        if (t.Clean > 0)
+        {
+            output.WriteLine($"    clean runs called valid: {t.CleanCalledValid} of {t.Clean} (goal: all) — {(t.CleanCalledValid == t.Clean ? "met" : "NOT met")}");
+        }
+
+        if (t.Flawed > 0)
+        {
+            output.WriteLine($"    flawed runs called valid: {t.FlawedCalledValid} of {t.Flawed} (goal: 0) — {(t.FlawedCalledValid == 0 ? "met" : "NOT met")}");
+        }
     }
 
     private static void Goal(List<CaseOutcome> runs, int m, double limit, string text, TextWriter output)
@@ -275,6 +322,9 @@ public static class BenchAccuracyCommand
         }
 
         output.WriteLine(Text($"  goal: truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs over the bench, every figure: {CoverageVerdict(coverageShort)}"));
+        VerdictTally verdicts = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
+        output.WriteLine($"  verdicts: {verdicts.Describe()}");
+        VerdictGoals(verdicts, output);
     }
 
     /// <summary>Adds a figure to <paramref name="shortfalls"/> when its coverage misses the σ goal.</summary>
@@ -361,8 +411,58 @@ public static class BenchAccuracyCommand
                 cells.Add(Text($"acc 1 ft {foot.Value * 1000:+0.0;-0.0} mm ({foot.Value / foot.Sigma:+0.0;-0.0}σ)"));
             }
 
-            output.WriteLine($"  {o.Index,4} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
+            output.WriteLine($"  {o.Index,4} {VerdictCell(o)} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
         }
+    }
+
+    /// <summary>The verdict accounting as JSON: per group and over the bench, with the runs that
+    /// failed to decode counted apart.</summary>
+    private static void WriteJson(List<CaseOutcome> all, IEnumerable<BenchGroup> groups, int seed, int simulated, int generated, TextWriter output)
+    {
+        List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
+        object Tally(List<CaseOutcome> runs)
+        {
+            VerdictTally t = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
+            return new
+            {
+                judged = t.Judged,
+                as_expected = t.AsExpected,
+                valid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Valid],
+                doubtful = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Doubtful],
+                invalid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Invalid],
+                clean = t.Clean,
+                clean_called_valid = t.CleanCalledValid,
+                flawed = t.Flawed,
+                flawed_called_valid = t.FlawedCalledValid,
+                not_as_expected = t.Unexpected.Select(u => new { level = VerdictTally.Name(u.Level), runs = u.Runs, codes = u.Codes.ToDictionary(c => c.Code, c => c.Count) }),
+            };
+        }
+
+        var document = new
+        {
+            seed,
+            simulated_runs = simulated,
+            generated_records = generated,
+            failed = all.Count(o => o.Failure != null),
+            groups = groups.Select(g => new { group = g.ToString(), expected = Expectation(g), verdicts = Tally(decoded.Where(o => o.Group == g).ToList()) }),
+            whole_bench = Tally(decoded),
+        };
+        output.WriteLine(System.Text.Json.JsonSerializer.Serialize(document, new System.Text.Json.JsonSerializerOptions { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }));
+    }
+
+    /// <summary>The run's verdict with its reason codes, and "(expected …)" when it deserved another.</summary>
+    private static string VerdictCell(CaseOutcome o)
+    {
+        if (o.Verdict is not { } v)
+        {
+            return "[no verdict]";
+        }
+
+        string codes = v.Reasons.Count == 0 ? "" : ": " + string.Join(",", v.Reasons.Select(r => r.Code));
+        string expected = o.Expected is { } e && !e.Matches(v)
+            ? $" (expected {VerdictTally.Name(e.Level)}{(e.Codes.Count == 0 ? "" : ": " + string.Join(",", e.Codes))})"
+            : "";
+        return $"[{VerdictTally.Name(v.Level)}{codes}{expected}]";
     }
 
     private static string Text(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);

@@ -49,7 +49,7 @@ public static class RunJudge
         Count(HealthCounterNames.FramesRefused, VerdictLevel.Doubtful, "frames_refused", "the box's storage or serial link refused frames");
         Count(HealthCounterNames.AccelSamplesClipped, VerdictLevel.Doubtful, "accel_clipped", "accelerometer samples reached full scale (clipped)");
 
-        if (run.Health.TryGetValue(HealthCounterNames.WideBrackets, out long wide) && run.Pulses.Count > 0
+        if (WideBrackets(run, limits) is { } wide && run.Pulses.Count > 0
             && (double)wide / run.Pulses.Count > limits.WideBracketFraction)
         {
             reasons.Add(new(VerdictLevel.Doubtful, "wide_brackets", Invariant($"{wide} of {run.Pulses.Count} pulse observations have wide time brackets")));
@@ -60,9 +60,12 @@ public static class RunJudge
             reasons.Add(new(VerdictLevel.Doubtful, "frames_lost", Invariant($"{run.FramesLost} frame(s) of this run were lost or damaged in the log")));
         }
 
-        // A wheel sliding under firm braking (ABS at work) is expected and carried by the
-        // accelerometer; only a wheel running off on its own counts against the run.
-        double spin = rec.WheelspinWindows.Sum(w => w.EndS - w.StartS);
+        // A wheel sliding under braking (ABS at work, or a braked tyre's slip, which the spin
+        // finder sees as the wheel parting from the car) is expected and carried by the
+        // accelerometer; only a wheel running off on its own before the brakes come on counts
+        // against the run.
+        double driveEndsS = analysis.Braking?.OnsetS.Value ?? double.PositiveInfinity;
+        double spin = rec.WheelspinWindows.Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
         if (spin > limits.WheelspinS)
         {
             reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: distance and speed there lean on the accelerometer")));
@@ -112,6 +115,27 @@ public static class RunJudge
                 reasons.Add(new(level, code, Invariant($"{text} ({n})")));
             }
         }
+    }
+
+    /// <summary>Pulse observations whose time brackets are wide, or null when none is counted.
+    /// The box counts brackets wider than its limit; a loop steadily slower than that limit (its
+    /// median bracket more than <see cref="VerdictLimits.WideBracketOverMedian"/> times short of
+    /// it) makes every bracket "wide", which the reconstruction models and σ carries: then only
+    /// brackets that stand out from the run's own loop (a stall) are wide. Without a known limit
+    /// the box's count stands.</summary>
+    private static long? WideBrackets(DecodedRun run, VerdictLimits limits)
+    {
+        long? counted = run.Health.TryGetValue(HealthCounterNames.WideBrackets, out long n) ? n : null;
+        if (counted is null or 0 || run.Pulses.Count == 0)
+        {
+            return counted;
+        }
+
+        double[] widths = run.Pulses.Select(p => p.HiS - p.LoS).Order().ToArray();
+        double medianS = widths[widths.Length / 2];
+        double steadyS = limits.WideBracketOverMedian * medianS;
+        double limitS = run.Configuration.BracketLimitS;
+        return limitS <= 0 || steadyS <= limitS ? counted : widths.LongCount(w => w > steadyS);
     }
 
     /// <summary>The verdict from a run's own reasons (<see cref="OwnReasons"/>) and the session's

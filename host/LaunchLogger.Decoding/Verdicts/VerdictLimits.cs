@@ -16,6 +16,11 @@ public sealed record VerdictLimits
     /// <summary>Share of wide-bracket observations above which a run is doubtful.</summary>
     public double WideBracketFraction { get; init; } = 0.02;
 
+    /// <summary>A bracket this many times the run's median bracket stands out from its loop (a
+    /// stall): our choice, as a polled loop's bracket is one period and its jitter, under half a
+    /// period, while a stall spans several periods.</summary>
+    public double WideBracketOverMedian { get; init; } = 3;
+
     /// <summary>Difference between the box's rollout mark and ours above which a run is doubtful, s.</summary>
     public double RolloutDisagreementS { get; init; } = 0.010;
 

@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace LaunchLogger.Simulation.Truth;
 
 /// <summary>The true moments of a simulated run. Times are seconds on the box's clock (the same
@@ -55,6 +57,12 @@ public sealed record TruthEvents
 
     /// <summary>Highest driven-wheel slip ratio while accelerating.</summary>
     public double PeakDrivenSlip { get; init; }
+
+    /// <summary>Time while accelerating that the pickup's own wheel slipped past the tyre's
+    /// friction peak (<c>TyreSpec.PeakSlip</c>): the wheel ran off on its own, s. Kept out of the
+    /// truth file, whose fields are fixed.</summary>
+    [JsonIgnore]
+    public double PickupSpinS { get; init; }
 
     /// <summary>Road grade, percent (positive uphill).</summary>
     public double GradePercent { get; init; }

@@ -1,4 +1,5 @@
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Corrections;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Runs;
@@ -69,6 +70,24 @@ public class RunJudgeTests
     }
 
     [Fact]
+    public void ALoopSteadilySlowerThanTheBoxsBracketLimitIsNoFaultButItsStallsAre()
+    {
+        // The box counts every bracket over its 2 ms limit as wide; a loop that polls every 5 ms
+        // (jitter ±1 ms) makes all 1000 wide, which the reconstruction models: no doubt.
+        PulseRecord[] steady = Enumerable.Range(1, 1000).Select(i => new PulseRecord(i, i * 0.01, (i * 0.01) + 0.005 + (0.001 * ((i % 3) - 1)))).ToArray();
+        RunAnalysis slowLoop = JudgedRun.Clean(run: r => JudgedRun.Copy(r, configuration: r.Configuration with { BracketLimitS = 0.002 }, pulses: steady, health: new Dictionary<string, long> { [HealthCounterNames.WideBrackets] = 1000 }));
+        Assert.Empty(Judge(slowLoop).Reasons);
+
+        // The same loop stalling 20 ms (over 3 × its 5 ms median) in 21 of 1000 observations,
+        // beyond the 2 % share: doubtful; in 20, at the share: not.
+        PulseRecord[] Stalled(int n) => steady.Select((p, i) => i < n ? p with { HiS = p.LoS + 0.02 } : p).ToArray();
+        RunAnalysis stalls = JudgedRun.Clean(run: r => JudgedRun.Copy(r, configuration: r.Configuration with { BracketLimitS = 0.002 }, pulses: Stalled(21), health: new Dictionary<string, long> { [HealthCounterNames.WideBrackets] = 1000 }));
+        Verdict verdict = AssertOnly(stalls, "wide_brackets", VerdictLevel.Doubtful);
+        Assert.StartsWith("21 of 1000", verdict.Reasons[0].Text);
+        Assert.Empty(Judge(JudgedRun.Clean(run: r => JudgedRun.Copy(r, configuration: r.Configuration with { BracketLimitS = 0.002 }, pulses: Stalled(20), health: new Dictionary<string, long> { [HealthCounterNames.WideBrackets] = 1000 }))).Reasons);
+    }
+
+    [Fact]
     public void LostFramesMakeARunDoubtful()
     {
         Verdict verdict = AssertOnly(JudgedRun.Clean(run: r => JudgedRun.Copy(r, framesLost: 2)), "frames_lost", VerdictLevel.Doubtful);
@@ -97,6 +116,25 @@ public class RunJudgeTests
         // does not count against the run.
         RunAnalysis run = JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, slides: [new(20.0, 22.5)]));
         Assert.Equal(VerdictLevel.Valid, Judge(run).Level);
+    }
+
+    [Fact]
+    public void OnlyThePickupWheelsSpinBeforeBrakeOnsetIsWheelspin()
+    {
+        // A braked tyre slips (the wheel turns slower than the road): the spin finder sees the
+        // wheel part from the car after brake onset, which is no wheel running off on its own.
+        BrakingResult stop = JudgedRun.Stop(8, 8, 9, onsetS: 20);
+        RunAnalysis braked = JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(20.01, 22.5)]), braking: stop);
+        Assert.Equal(VerdictLevel.Valid, Judge(braked).Level);
+
+        // A window reaching back before onset counts for its part before it: 0.04 s is within the
+        // 0.05 s limit, 0.2 s is beyond it.
+        Assert.Empty(Judge(JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(19.96, 21.0)]), braking: stop)).Reasons);
+        Verdict spun = AssertOnly(JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(19.8, 21.0)]), braking: stop), "wheelspin", VerdictLevel.Doubtful);
+        Assert.Contains("0.20 s", spun.Reasons[0].Text);
+
+        // Without a stop, every window counts.
+        AssertOnly(JudgedRun.Clean(reconstruction: r => JudgedRun.Copy(r, wheelspin: [new(20.01, 22.5)])), "wheelspin", VerdictLevel.Doubtful);
     }
 
     [Fact]
