@@ -339,6 +339,11 @@ internal sealed class WheelWindowFinder
     /// are set aside from where the shortfall first passed 1 % and 0.1 m/s to the window's end
     /// (the margin widens as the speed falls, while ABS keeps cycling and the wheel may lock at
     /// the end).
+    /// Only the shortfall the pulses' brackets cannot explain counts against the margin: each
+    /// span at the fastest speed its brackets allow, the first span (the reference, lengthened up
+    /// to 0.25 s until its brackets leave it within 2 %) at its slowest; on exact edges that is
+    /// the span itself, on a coarse ring read by a slow loop it keeps bracket noise from reading
+    /// as a slide over a whole ordinary stop.
     /// Under ABS a braked wheel slips by 5–20 %; a wheel that keeps up keeps its pulses.</summary>
     private List<TimeWindow> SlidingUnderBraking(List<TimeWindow> braking, out double largestBehind)
     {
@@ -386,12 +391,18 @@ internal sealed class WheelWindowFinder
             double firstBehindS = double.NaN;
             double slightSinceS = double.NaN;
             double? first = null;
+            double firstSlowBy = 0;
             double from = double.NaN;
             int i = i1;
             while (i < pulses.Length && pulses.MidS(i) < w.EndS)
             {
                 int j = i + 1;
-                while (j < pulses.Length && pulses.MidS(j) < pulses.MidS(i) + 0.04)
+                // The first span is every later one's reference, so its brackets count against
+                // all of them: it runs on (up to 0.25 s, at 0.5 g a 1.2 m/s fall the integrated
+                // input follows) until they leave it uncertain by no more than 2 %.
+                while (j < pulses.Length
+                    && (pulses.MidS(j) < pulses.MidS(i) + 0.04
+                        || (first is null && pulses.MidS(j) < pulses.MidS(i) + 0.25 && pulses.HiS[j] - pulses.LoS[i] > 1.02 * (pulses.MidS(j) - pulses.MidS(i)))))
                 {
                     j++;
                 }
@@ -410,14 +421,29 @@ internal sealed class WheelWindowFinder
 
                 double fromAccel = speed + cumulative;
                 double fromPulses = (pulses.Counts[j] - pulses.Counts[i]) * mpp / (pulses.MidS(j) - pulses.MidS(i));
+                // Each count was reached somewhere in its bracket, so a span may have lasted from
+                // the first bracket's end to the last one's start, or from the first one's start to
+                // the last one's end: on a coarse ring read by a slow loop (12 teeth, a 5 ms poll:
+                // one pulse a poll at speed) a tenth of a 40 ms span either way.
+                double shortest = pulses.LoS[j] - pulses.HiS[i];
+                double fastest = shortest > 0 ? (pulses.Counts[j] - pulses.Counts[i]) * mpp / shortest : double.PositiveInfinity;
+                double slowest = (pulses.Counts[j] - pulses.Counts[i]) * mpp / (pulses.HiS[j] - pulses.LoS[i]);
                 // Measured from the first span's difference, which the anchor's own error shares.
-                first ??= fromAccel - fromPulses;
+                if (first is null)
+                {
+                    first = fromAccel - fromPulses;
+                    firstSlowBy = fromPulses - slowest;
+                }
+
                 double deficit = fromAccel - fromPulses - first.Value;
+                // Only what the brackets cannot explain is the wheel's own: the span at the fastest
+                // speed they allow, the first span (every deficit's reference) at its slowest.
+                double deficitBeyondBrackets = fromAccel - fastest - first.Value - firstSlowBy;
                 bool slight = deficit > (0.01 * fromAccel) + 0.1;
                 slightSinceS = !slight ? double.NaN : double.IsNaN(slightSinceS) ? pulses.MidS(i) : slightSinceS;
                 // The integrated input drifts by up to about 0.1 m/s² (what pitch compensation and
                 // the bias leave), so the margin grows with the time since the anchor.
-                if (fromAccel > 1 && deficit > (0.04 * fromAccel) + 0.3 + (0.1 * (mid - anchor)))
+                if (fromAccel > 1 && deficitBeyondBrackets > (0.04 * fromAccel) + 0.3 + (0.1 * (mid - anchor)))
                 {
                     behind++;
                     worst = Math.Max(worst, deficit / fromAccel);
