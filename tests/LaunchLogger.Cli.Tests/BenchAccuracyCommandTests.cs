@@ -176,4 +176,16 @@ public class BenchAccuracyCommandTests
         Assert.Equal(ExitCode.Usage, BenchAccuracyCommand.Run(1, 1, false, false, new StringWriter(), error));
         Assert.Contains("--runs", error.ToString());
     }
+
+    [Fact]
+    public void An_errors_csv_in_a_missing_folder_is_refused_before_any_decoding()
+    {
+        string missing = Path.Combine(Path.GetTempPath(), "launchlogger-no-such-folder-" + Guid.NewGuid().ToString("N"), "errors.csv");
+        var output = new StringWriter();
+        var error = new StringWriter();
+        Assert.Equal(ExitCode.BadInput, BenchAccuracyCommand.Run(4, 1, false, false, output, error, errorsCsvPath: missing));
+        Assert.Contains("cannot write", error.ToString());
+        Assert.Equal(string.Empty, output.ToString());
+        Assert.False(File.Exists(missing));
+    }
 }

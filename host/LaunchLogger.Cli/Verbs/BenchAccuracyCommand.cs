@@ -34,6 +34,13 @@ public static class BenchAccuracyCommand
             return ExitCode.Usage;
         }
 
+        // Say so before minutes of decoding, not after: the CSV's folder must exist.
+        if (errorsCsvPath is not null && Path.GetDirectoryName(Path.GetFullPath(errorsCsvPath)) is { } folder && !Directory.Exists(folder))
+        {
+            error.WriteLine($"launchlogger bench accuracy: cannot write {errorsCsvPath}: no folder {folder}");
+            return ExitCode.BadInput;
+        }
+
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
         IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();

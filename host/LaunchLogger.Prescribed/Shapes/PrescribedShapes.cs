@@ -34,23 +34,12 @@ public static class PrescribedShapes
     /// <param name="brakeG">The stop's deceleration in g, instead of the drawn one.</param>
     /// <param name="launchRiseS">The launch's rise time instead of the drawn one (0 = a step).</param>
     /// <param name="brakeRiseS">The stop's rise time instead of the drawn one (0 = a step).</param>
-    /// <param name="smoothLaunch">Rise as a raised cosine (<see cref="SmoothRise"/>) instead of
-    /// a linear ramp; the draws are the same, so a seed gives the same car either way. The same
-    /// as <paramref name="takeUp"/> = <see cref="LaunchTakeUp.RaisedCosine"/>.</param>
     /// <param name="takeUp">How the launch rises to its peak. The draws above are the same for
     /// every take-up, so a seed gives the same car; the lagged one then draws its lag, 0.02–0.15 s,
     /// last (after the gear changes), so nothing else moves.</param>
-    /// <exception cref="ArgumentException"><paramref name="smoothLaunch"/> and another
-    /// <paramref name="takeUp"/> than the ramp or the raised cosine.</exception>
-    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null, bool smoothLaunch = false, LaunchTakeUp takeUp = LaunchTakeUp.Ramp)
+    public static Shape StandingStart(Random random, double idleS = IdleS, double? brakeG = null, double? launchRiseS = null, double? brakeRiseS = null, LaunchTakeUp takeUp = LaunchTakeUp.Ramp)
     {
         ArgumentNullException.ThrowIfNull(random);
-        if (smoothLaunch && takeUp is not (LaunchTakeUp.Ramp or LaunchTakeUp.RaisedCosine))
-        {
-            throw new ArgumentException("a smooth launch is the raised-cosine take-up", nameof(takeUp));
-        }
-
-        takeUp = smoothLaunch ? LaunchTakeUp.RaisedCosine : takeUp;
         double peak = G * Uniform(random, 0.25, 1.1);
         double rise = Uniform(random, 0.05, 0.4);
         rise = launchRiseS ?? rise;

@@ -29,7 +29,7 @@ public class SlowTakeUpFirstMotionTests
         for (int seed = 1; seed <= 10; seed++)
         {
             PrescribedRecordSpec spec = Records.Standing(seed);
-            PrescribedRecord r = (spec with { Shape = PrescribedShapes.StandingStart(new Random(seed), launchRiseS: RiseS, smoothLaunch: true) }).Generate();
+            PrescribedRecord r = (spec with { Shape = PrescribedShapes.StandingStart(new Random(seed), launchRiseS: RiseS, takeUp: LaunchTakeUp.RaisedCosine) }).Generate();
             RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeText(r).Runs);
             TruthRun t = Assert.Single(r.Truth);
             FigureCheck check = new("first motion", a.Figures.FirstMotionS.Value, a.Figures.FirstMotionS.Sigma, t.FirstMotionS!.Value, 5e-3, 2e-4);

@@ -23,7 +23,7 @@ public class SmoothLaunchOnsetTests
     public void A_smooth_take_up_has_its_first_motion_within_its_sigma(int seed)
     {
         PrescribedRecordSpec spec = Records.Standing(seed, spinUp: seed % 2 == 0);
-        PrescribedRecord r = (spec with { Shape = PrescribedShapes.StandingStart(new Random(seed), smoothLaunch: true) }).Generate();
+        PrescribedRecord r = (spec with { Shape = PrescribedShapes.StandingStart(new Random(seed), takeUp: LaunchTakeUp.RaisedCosine) }).Generate();
         RunAnalysis a = Assert.Single(DecoderHarness.AnalyzeText(r).Runs);
         TruthRun t = Assert.Single(r.Truth);
         FigureCheck check = new("first motion", a.Figures.FirstMotionS.Value, a.Figures.FirstMotionS.Sigma, t.FirstMotionS!.Value, 8e-3, 2e-4);

@@ -91,7 +91,7 @@ public class SmoothLaunchTests
     public void A_smooth_standing_start_draws_the_same_car_as_the_linear_one(int seed)
     {
         Shape linear = PrescribedShapes.StandingStart(new Random(seed));
-        Shape smooth = PrescribedShapes.StandingStart(new Random(seed), smoothLaunch: true);
+        Shape smooth = PrescribedShapes.StandingStart(new Random(seed), takeUp: LaunchTakeUp.RaisedCosine);
         TruthRun lt = Assert.Single(TruthCalculator.Compute(linear.Profile));
         TruthRun st = Assert.Single(TruthCalculator.Compute(smooth.Profile));
 
