@@ -70,7 +70,7 @@ public static class AccuracyBenchmark
         }
 
         return [CaseOutcome.Compare(c.Index, c.Summary, c.Group, truthValues, FigureReading.FromFigures(ours.Figures, ours.Braking, ours.Grade, ours.Reconstruction.Staged), FigureReading.FromFigures(naive))
-            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth), Verdict = ours.Verdict, Expected = Expected(c, simulation.Events, truth) }];
+            with { AccelFirstFoot = AccelFirstFootError(ours.Reconstruction, simulation.Truth), Verdict = ours.Verdict, Expected = Expected(c, simulation.Events, truth, simulation.Truth.SpeedMps.Max(), TargetEdge.TopSpeedSigmaMps(ours)) }];
     }
 
     /// <summary>The verdict a simulated run deserves, from the simulation's truth. Every bench
@@ -82,8 +82,11 @@ public static class AccuracyBenchmark
     /// <see cref="VerdictLimits.WheelspinS"/> before the brakes come on is doubtful with
     /// <c>wheelspin</c>; a run whose truth never reached 60 mph is doubtful with
     /// <c>target_not_reached</c>. A spin on the first pickup weakens nothing when a second
-    /// pickup turns with an undriven wheel (it carries the distance).</summary>
-    public static ExpectedVerdict Expected(AccuracyCase c, Simulation.Truth.TruthEvents events, FigureSet truth)
+    /// pickup turns with an undriven wheel (it carries the distance). A run whose true top speed
+    /// <paramref name="truthTopMps"/> passed 60 mph by less than the data resolves (the decoder's
+    /// σ of its top speed, <paramref name="topSpeedSigmaMps"/>; <see cref="TargetEdge"/>) may
+    /// carry <c>target_not_reached</c> or not.</summary>
+    public static ExpectedVerdict Expected(AccuracyCase c, Simulation.Truth.TruthEvents events, FigureSet truth, double truthTopMps = double.PositiveInfinity, double? topSpeedSigmaMps = null)
     {
         ArgumentNullException.ThrowIfNull(c);
         ArgumentNullException.ThrowIfNull(events);
@@ -101,6 +104,10 @@ public static class AccuracyBenchmark
         if (truth.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph")?.FromStandstillS is null)
         {
             expected = expected.And(VerdictLevel.Doubtful, ExpectedVerdict.TargetNotReachedCode, "60 mph not reached");
+        }
+        else if (TargetEdge.EitherVerdict(truthTopMps, topSpeedSigmaMps))
+        {
+            expected = expected.AtTargetEdge(truthTopMps, topSpeedSigmaMps!.Value);
         }
 
         return expected;
@@ -148,6 +155,9 @@ public sealed record CaseOutcome(int Index, string Summary, BenchGroup Group, do
 
     /// <summary>The verdict the run deserves, from its truth; null when it failed.</summary>
     public ExpectedVerdict? Expected { get; init; }
+
+    /// <summary>The seed the run was drawn at, when the bench pools seeds (0 otherwise).</summary>
+    public int Seed { get; init; }
 
     /// <summary>False when the decoder split the record into a different number of runs.</summary>
     public bool RunsAsExpected { get; init; } = true;

@@ -24,7 +24,12 @@ public sealed record ExpectedVerdict(VerdictLevel Level, IReadOnlyList<string> C
     public IReadOnlyList<string> Allowed { get; init; } = [];
 
     /// <summary>A clean run: nothing the data cannot support, so valid with no reason at all.</summary>
-    public bool IsClean => Level == VerdictLevel.Valid && Codes.Count == 0;
+    public bool IsClean => Level == VerdictLevel.Valid && Codes.Count == 0 && Allowed.Count == 0;
+
+    /// <summary>A run the data cannot judge one way: valid is right, and so is a verdict carrying
+    /// only the allowed codes (e.g. a top speed within what the data resolves of 60 mph,
+    /// <see cref="TargetEdge"/>). Neither clean nor flawed: it is counted apart.</summary>
+    public bool EitherWay => Level == VerdictLevel.Valid && Codes.Count == 0 && Allowed.Count > 0;
 
     /// <summary>This expectation and one more reason the run deserves.</summary>
     public ExpectedVerdict And(VerdictLevel level, string code, string why) =>
@@ -32,6 +37,13 @@ public sealed record ExpectedVerdict(VerdictLevel Level, IReadOnlyList<string> C
 
     /// <summary>This expectation, allowing <paramref name="codes"/> besides.</summary>
     public ExpectedVerdict Allowing(string why, params string[] codes) => this with { Allowed = [.. Allowed, .. codes], Why = $"{Why}; may carry {string.Join(", ", codes)}: {why}" };
+
+    /// <summary>This expectation for a run whose true top speed <paramref name="truthTopMps"/>
+    /// passed 60 mph by less than the data resolves (<paramref name="sigmaMps"/>, <see cref="TargetEdge"/>):
+    /// <c>target_not_reached</c> may come or not.</summary>
+    public ExpectedVerdict AtTargetEdge(double truthTopMps, double sigmaMps) => Allowing(
+        FormattableString.Invariant($"top speed {truthTopMps / Decoding.Metrics.Units.MpsPerMph:0.00} mph, within {TargetEdge.BandSigmas:0}σ ({sigmaMps / Decoding.Metrics.Units.MpsPerMph:0.00} mph) above 60 mph"),
+        TargetNotReachedCode);
 
     /// <summary>A standing start with sane sensors: valid.</summary>
     public static ExpectedVerdict Clean(string why) => new(VerdictLevel.Valid, [], why);

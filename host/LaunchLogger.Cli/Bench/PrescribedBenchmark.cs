@@ -54,7 +54,7 @@ public static class PrescribedBenchmark
                 StandingFigureOnRollingStart = !truth.Standing && FigureReading.HasStandingFigure(ours.Figures),
                 RunsAsExpected = asExpected,
                 Verdict = ours.Verdict,
-                Expected = Expected(c, truth),
+                Expected = Expected(c, truth, TargetEdge.TopSpeedSigmaMps(ours)),
             });
         }
 
@@ -68,8 +68,10 @@ public static class PrescribedBenchmark
     /// invalid with <c>rolling_start</c>; a standing run that never reaches 60 mph is doubtful with
     /// <c>target_not_reached</c>, as the judge's rule says. A polled loop made to stall 20 ms (<see cref="BenchGroup.GeneratedCruiseStopSwitch"/>) may carry
     /// <c>wide_brackets</c> (brackets a stall wide) and <c>accel_overflow</c> (the accelerometer's
-    /// FIFO unread through the stall).</summary>
-    public static ExpectedVerdict Expected(PrescribedBenchCase c, TruthRun truth)
+    /// FIFO unread through the stall). A standing run whose true top speed passed 60 mph by less
+    /// than the data resolves (the decoder's σ of its top speed, <paramref name="topSpeedSigmaMps"/>;
+    /// <see cref="TargetEdge"/>) may carry <c>target_not_reached</c> or not.</summary>
+    public static ExpectedVerdict Expected(PrescribedBenchCase c, TruthRun truth, double? topSpeedSigmaMps = null)
     {
         ArgumentNullException.ThrowIfNull(c);
         ArgumentNullException.ThrowIfNull(truth);
@@ -77,6 +79,10 @@ public static class PrescribedBenchmark
         if (truth.Standing && truth.Interval(TruthSpeedSpan.Mph(0, 60))?.FromStandstillS is null)
         {
             expected = expected.And(LaunchLogger.Decoding.Verdicts.VerdictLevel.Doubtful, ExpectedVerdict.TargetNotReachedCode, "60 mph not reached");
+        }
+        else if (truth.Standing && TargetEdge.EitherVerdict(truth.PeakSpeedMps, topSpeedSigmaMps))
+        {
+            expected = expected.AtTargetEdge(truth.PeakSpeedMps, topSpeedSigmaMps!.Value);
         }
 
         return c.Group == BenchGroup.GeneratedCruiseStopSwitch && c.Spec.Polled is not null

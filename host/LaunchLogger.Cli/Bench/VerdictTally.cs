@@ -28,6 +28,12 @@ public sealed record VerdictTally
     /// <summary>Flawed runs called valid: the verdict's worst error.</summary>
     public int FlawedCalledValid { get; init; }
 
+    /// <summary>Runs either verdict fits (<see cref="ExpectedVerdict.EitherWay"/>): neither clean nor flawed.</summary>
+    public int EitherWay { get; init; }
+
+    /// <summary>Of those, called valid.</summary>
+    public int EitherWayCalledValid { get; init; }
+
     /// <summary>For runs judged otherwise than expected: per verdict level they got, the reason
     /// codes the expectation does not hold ("code" ×n) and the expected codes missing
     /// ("no code" ×n), most frequent first.</summary>
@@ -63,8 +69,10 @@ public sealed record VerdictTally
             ByLevel = byLevel,
             Clean = judged.Count(r => r.Expected.IsClean),
             CleanCalledValid = judged.Count(r => r.Expected.IsClean && r.Actual.Level == VerdictLevel.Valid),
-            Flawed = judged.Count(r => !r.Expected.IsClean),
-            FlawedCalledValid = judged.Count(r => !r.Expected.IsClean && r.Actual.Level == VerdictLevel.Valid),
+            Flawed = judged.Count(r => !r.Expected.IsClean && !r.Expected.EitherWay),
+            FlawedCalledValid = judged.Count(r => !r.Expected.IsClean && !r.Expected.EitherWay && r.Actual.Level == VerdictLevel.Valid),
+            EitherWay = judged.Count(r => r.Expected.EitherWay),
+            EitherWayCalledValid = judged.Count(r => r.Expected.EitherWay && r.Actual.Level == VerdictLevel.Valid),
             Unexpected = unexpected,
         };
     }

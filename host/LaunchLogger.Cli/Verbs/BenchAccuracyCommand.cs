@@ -19,18 +19,49 @@ public static class BenchAccuracyCommand
         var calibratedAccel = new Option<bool>("--calibrated-accel") { Description = "Tell the decoder the accelerometer's forward scale as a calibration against gravity gives it (truth plus a drawn 0.2 % error); the tyre stays as --calibrated-tyre says." };
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
         var errorsCsv = new Option<FileInfo?>("--errors-csv") { Description = "Also write every run's error, σ and error/σ per figure to this CSV file (for pooling seeds)." };
-        var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables." };
-        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json };
-        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName, parse.GetValue(json))));
+        var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables; with --seeds, each group's pooled figures and goals too." };
+
+        // Pooling seeds: a block of its own.
+        var seeds = new Option<string?>("--seeds") { Description = "Run the bench at each of these seeds (1-4, or 1,3,7) and judge every group's figures, coverage and goals over all their runs pooled, each goal with every seed's own p95 beside it: for the small groups, whose p95 at one seed is one run. Not with --seed." };
+        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json, seeds };
+        command.SetAction((parse, cancel) =>
+        {
+            IReadOnlyList<int>? pooled = null;
+            if (parse.GetValue(seeds) is { } seedsText)
+            {
+                TextWriter error = parse.InvocationConfiguration.Error;
+                if (parse.GetResult(seed) is { Implicit: false })
+                {
+                    error.WriteLine("launchlogger bench accuracy: give --seed or --seeds, not both");
+                    return Task.FromResult((int)ExitCode.Usage);
+                }
+
+                pooled = SeedList.Parse(seedsText, out string? problem);
+                if (pooled is null)
+                {
+                    error.WriteLine($"launchlogger bench accuracy: --seeds {seedsText}: {problem}");
+                    return Task.FromResult((int)ExitCode.Usage);
+                }
+            }
+
+            return Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName, parse.GetValue(json), pooled));
+        });
         return command;
     }
 
-    /// <summary>Runs the benchmark.</summary>
-    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null, bool json = false)
+    /// <summary>Runs the benchmark at <paramref name="seed"/>, or at each of
+    /// <paramref name="seeds"/> with every group judged over all their runs pooled.</summary>
+    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null, bool json = false, IReadOnlyList<int>? seeds = null)
     {
         if (runs < 2 || runs > 100_000)
         {
             error.WriteLine("launchlogger bench accuracy: --runs must be from 2 to 100000");
+            return ExitCode.Usage;
+        }
+
+        if (seeds is { Count: 0 })
+        {
+            error.WriteLine("launchlogger bench accuracy: --seeds names no seed");
             return ExitCode.Usage;
         }
 
@@ -43,14 +74,19 @@ public static class BenchAccuracyCommand
 
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
-        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();
-        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, Wanted(BenchGroup.GeneratedStandingSmooth), Wanted(BenchGroup.GeneratedStandingLagged)).Where(c => Wanted(c.Group)).ToList();
         var started = System.Diagnostics.Stopwatch.StartNew();
-        List<CaseOutcome> all;
+        var all = new List<CaseOutcome>();
+        int decodedCases = 0;
         try
         {
-            all = ParallelCases.Run(simulated, AccuracyBenchmark.Run, "bench accuracy: simulated runs decoded", error, cancel).SelectMany(o => o).ToList();
-            all.AddRange(ParallelCases.Run(generated, PrescribedBenchmark.Run, "bench accuracy: generated records decoded", error, cancel).SelectMany(o => o));
+            IReadOnlyList<int> drawn = seeds ?? [seed];
+            for (int k = 0; k < drawn.Count; k++)
+            {
+                string label = seeds is null ? "bench accuracy" : Text($"bench accuracy: seed {drawn[k]} ({k + 1} of {drawn.Count}, {started.Elapsed.TotalSeconds:0} s so far)");
+                (List<CaseOutcome> outcomes, int cases) = Decode(runs, drawn[k], calibratedTyre, calibratedAccel, Wanted, label, error, cancel);
+                all.AddRange(seeds is null ? outcomes : outcomes.Select(o => o with { Seed = drawn[k] }));
+                decodedCases += cases;
+            }
         }
         catch (OperationCanceledException)
         {
@@ -60,34 +96,48 @@ public static class BenchAccuracyCommand
 
         if (json)
         {
-            WriteJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seed, simulatedRuns, runs - simulatedRuns, output);
+            if (seeds is null)
+            {
+                WriteJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seed, simulatedRuns, runs - simulatedRuns, output);
+            }
+            else
+            {
+                WritePooledJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seeds, simulatedRuns, runs - simulatedRuns, calibratedTyre, output);
+            }
+
             return ExitCode.Ok;
         }
 
         string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
             + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)");
-        output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up, every other one again with a lagged take-up), seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
+        string drawnAt = seeds is null ? Text($"seed {seed}") : Text($"at each of the {seeds.Count} seeds {SeedList.Describe(seeds)}, pooled");
+        output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up, every other one again with a lagged take-up), {drawnAt}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
+        if (seeds is not null)
+        {
+            output.WriteLine(Text($"pooled: every group's table, coverage and goals are over the runs of all {seeds.Count} seeds together (each seed draws its own cars, sensors and noise); each coverage has its exact 95 % interval, each goal is judged on the pooled p95, with every seed's own p95 after it (✗ where that seed alone misses the goal)"));
+        }
+
         if (groups is { Count: > 0 })
         {
-            output.WriteLine($"only the groups {string.Join(", ", groups)}: {simulated.Count + generated.Count} of those runs decoded");
+            output.WriteLine($"only the groups {string.Join(", ", groups)}: {decodedCases} of those runs decoded");
         }
 
         output.WriteLine("naive = first pulse as the start, speed from pulses counted over a sliding 0.1 s window, crossings interpolated linearly (same figure code)");
         foreach (CaseOutcome failed in all.Where(o => o.Failure != null))
         {
-            output.WriteLine($"  run {failed.Index} failed: {failed.Failure} ({failed.Summary})");
+            output.WriteLine($"  run {RunName(failed, seeds)} failed: {failed.Failure} ({failed.Summary})");
         }
 
         List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
         foreach (BenchGroup group in Enum.GetValues<BenchGroup>().Where(Wanted))
         {
-            WriteGroup(group, decoded.Where(o => o.Group == group).ToList(), all.Count(o => o.Group == group && !o.RunsAsExpected), calibratedTyre, output);
+            WriteGroup(group, decoded.Where(o => o.Group == group).ToList(), all.Count(o => o.Group == group && !o.RunsAsExpected), calibratedTyre, output, seeds);
         }
 
         WholeBench(decoded, output);
         if (list)
         {
-            WriteList(all, output);
+            WriteList(all, output, seeds);
         }
 
         if (errorsCsvPath is not null)
@@ -95,7 +145,7 @@ public static class BenchAccuracyCommand
             try
             {
                 using var csv = new StreamWriter(errorsCsvPath);
-                ErrorTable.Write(all, csv);
+                ErrorTable.Write(all, csv, withSeed: seeds is not null);
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
@@ -106,6 +156,24 @@ public static class BenchAccuracyCommand
 
         return ExitCode.Ok;
     }
+
+    /// <summary>Builds and decodes one seed's bench (the wanted groups' cases only), with progress
+    /// on <paramref name="error"/> under <paramref name="label"/>: every run's outcome, and how
+    /// many cases were decoded.</summary>
+    /// <exception cref="OperationCanceledException">Cancelled.</exception>
+    private static (List<CaseOutcome> Outcomes, int Cases) Decode(int runs, int seed, bool calibratedTyre, bool calibratedAccel, Func<BenchGroup, bool> wanted, string label, TextWriter error, CancellationToken cancel)
+    {
+        int simulatedRuns = runs / 2;
+        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => wanted(c.Group)).ToList();
+        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, wanted(BenchGroup.GeneratedStandingSmooth), wanted(BenchGroup.GeneratedStandingLagged)).Where(c => wanted(c.Group)).ToList();
+        List<CaseOutcome> outcomes = ParallelCases.Run(simulated, AccuracyBenchmark.Run, $"{label}: simulated runs decoded", error, cancel).SelectMany(o => o).ToList();
+        outcomes.AddRange(ParallelCases.Run(generated, PrescribedBenchmark.Run, $"{label}: generated records decoded", error, cancel).SelectMany(o => o));
+        return (outcomes, simulated.Count + generated.Count);
+    }
+
+    /// <summary>A run as the output names it: its index, and its seed when seeds are pooled.</summary>
+    private static string RunName(CaseOutcome o, IReadOnlyList<int>? seeds) =>
+        seeds is null ? o.Index.ToString(CultureInfo.InvariantCulture) : Text($"{o.Index} of seed {o.Seed}");
 
     private static string Title(BenchGroup group) => group switch
     {
@@ -170,7 +238,7 @@ public static class BenchAccuracyCommand
         }
     }
 
-    private static void WriteGroup(BenchGroup group, List<CaseOutcome> runs, int runsSplitWrongly, bool calibratedTyre, TextWriter output)
+    private static void WriteGroup(BenchGroup group, List<CaseOutcome> runs, int runsSplitWrongly, bool calibratedTyre, TextWriter output, IReadOnlyList<int>? seeds = null)
     {
         output.WriteLine();
         output.WriteLine($"{Title(group)}: {runs.Count} runs");
@@ -179,7 +247,7 @@ public static class BenchAccuracyCommand
             return;
         }
 
-        output.WriteLine("  figure                           unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n");
+        output.WriteLine("  figure                           unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n" + (seeds is null ? "" : " | ±2σ 95 % interval  ±3σ 95 % interval"));
         var coverageShort = new List<string>();
         for (int m = 0; m < BenchFigure.All.Count; m++)
         {
@@ -197,57 +265,44 @@ public static class BenchAccuracyCommand
             double cover3 = Coverage(runs, m, 3);
             NoteCoverageShort(coverageShort, figure.Name, runs, m);
 
-            output.WriteLine(Text($"  {figure.Name,-32} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}"));
+            string intervals = seeds is null ? "" : " | " + CoverageIntervalCell(runs, m, 2) + "  " + CoverageIntervalCell(runs, m, 3);
+            output.WriteLine(Text($"  {figure.Name,-32} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}{intervals}"));
         }
 
         AccelFirstFootLine(runs, output);
         MissedLine(runs, output);
         VerdictTally verdicts = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
         output.WriteLine($"  verdicts (expected: {Expectation(group)}): {verdicts.Describe()}");
-        output.WriteLine("  goals:");
+        output.WriteLine(seeds is null ? "  goals:" : Text($"  goals, judged on the {seeds.Count} seeds' runs pooled:"));
         output.WriteLine(Text($"    truth within ±2σ in ≥ 95 % and ±3σ in ≥ 99 % of runs, every figure: {CoverageVerdict(coverageShort)}"));
         VerdictGoals(verdicts, output);
         switch (group)
         {
-            case BenchGroup.SimulatedAccelUndriven or BenchGroup.GeneratedStanding or BenchGroup.GeneratedLongIdle or BenchGroup.GeneratedStandingSmooth or BenchGroup.GeneratedStandingLagged:
-                AccuracyGoals(runs, 1, calibratedTyre, output);
-                break;
-            case BenchGroup.SimulatedAccelUndrivenPoll1Ms:
-                AccuracyGoals(runs, 1.5, calibratedTyre, output);
-                break;
             case BenchGroup.GeneratedRolling:
                 int reported = runs.Count(o => o.StandingFigureOnRollingStart);
                 output.WriteLine(Text($"    no standing-start figure reported, ever: {reported} of {runs.Count} runs had one — {(reported == 0 ? "met" : "NOT met")}"));
-                Goal(runs, BenchFigure.Passing30To50, 5, "30-50 mph p95 ≤ 5 ms", output);
-                Goal(runs, BenchFigure.Passing80To120, 5, "80-120 km/h p95 ≤ 5 ms", output);
-                break;
-            case BenchGroup.GeneratedCruiseStop or BenchGroup.GeneratedCruiseStopSwitch:
-                Goal(runs, BenchFigure.StoppingDistance, 0.3, "stopping distance p95 ≤ 0.3 m", output);
-                Goal(runs, BenchFigure.BrakeOnset, 15, "brake onset p95 ≤ 15 ms (rise times up to 2 s)", output);
                 break;
             case BenchGroup.GeneratedStopAndGo:
                 output.WriteLine(Text($"    every record split into its two runs: {runsSplitWrongly} runs in records split otherwise — {(runsSplitWrongly == 0 ? "met" : "NOT met")}"));
                 break;
         }
-    }
 
-    /// <summary>The issue's accuracy goals for an undriven pickup with an accelerometer, widened
-    /// by <paramref name="factor"/>; the figures that need a calibrated tyre are judged only with one.</summary>
-    private static void AccuracyGoals(List<CaseOutcome> runs, double factor, bool calibratedTyre, TextWriter output)
-    {
-        string times = factor == 1 ? "" : Text($" ({factor:0.0}× the goal)");
-        Goal(runs, BenchFigure.FirstMotion, 5 * factor, Text($"first motion p95 ≤ {5 * factor:0.###} ms{times}"), output);
-        Goal(runs, BenchFigure.Rollout, 2 * factor, Text($"rollout mark p95 ≤ {2 * factor:0.###} ms{times}"), output);
-        if (!calibratedTyre)
+        foreach (BenchGoal goal in BenchGoal.Of(group, calibratedTyre))
         {
-            output.WriteLine("    0-60 mph, 1/4 mile ET and trap goals apply with a calibrated tyre: run with --calibrated-tyre");
-            return;
+            Goal(runs, goal, output, seeds);
         }
 
-        Goal(runs, BenchFigure.ZeroTo60, 5 * factor, Text($"0-60 mph from standstill p95 ≤ {5 * factor:0.###} ms"), output);
-        Goal(runs, BenchFigure.ZeroTo60AfterRollout, 5 * factor, Text($"0-60 mph after rollout p95 ≤ {5 * factor:0.###} ms"), output);
-        Goal(runs, BenchFigure.Quarter, 5 * factor, Text($"1/4 mile ET p95 ≤ {5 * factor:0.###} ms"), output);
-        Goal(runs, BenchFigure.Trap, 0.05 * factor, Text($"1/4 mile trap speed p95 ≤ {0.05 * factor:0.###} m/s"), output);
+        if (!calibratedTyre && BenchGoal.HasTyreBoundGoals(group))
+        {
+            output.WriteLine("    0-60 mph, 1/4 mile ET and trap goals apply with a calibrated tyre: run with --calibrated-tyre");
+        }
+    }
+
+    /// <summary>The exact 95 % interval (<see cref="CoverageInterval"/>) of a figure's coverage at ±kσ, as a table cell.</summary>
+    private static string CoverageIntervalCell(List<CaseOutcome> runs, int m, int k)
+    {
+        (double low, double high) = CoverageInterval.ClopperPearson(Covered(runs, m, k), runs.Count(o => o.Ours[m] is not null));
+        return Text($"{100 * low,9:0.0}–{100 * high,5:0.0} %");
     }
 
     /// <summary>A verdict must be right both ways: every clean run valid, no flawed run valid.</summary>
@@ -262,19 +317,32 @@ public static class BenchAccuracyCommand
         {
             output.WriteLine($"    flawed runs called valid: {t.FlawedCalledValid} of {t.Flawed} (goal: 0) — {(t.FlawedCalledValid == 0 ? "met" : "NOT met")}");
         }
+
+        // Counted apart: a run whose top speed passed 60 mph by less than the data resolves
+        // (TargetEdge) deserves valid and doubtful alike, so it proves neither goal.
+        if (t.EitherWay > 0)
+        {
+            output.WriteLine(Text($"    runs either verdict fits (true top speed less than {TargetEdge.BandSigmas:0}σ of the run's speed above 60 mph): {t.EitherWay}, {t.EitherWayCalledValid} called valid"));
+        }
     }
 
-    private static void Goal(List<CaseOutcome> runs, int m, double limit, string text, TextWriter output)
+    /// <summary>One goal's line: the p95 over <paramref name="runs"/> against its limit; pooled,
+    /// each seed's own p95 (and its runs) after it.</summary>
+    private static void Goal(List<CaseOutcome> runs, BenchGoal goal, TextWriter output, IReadOnlyList<int>? seeds)
     {
-        BenchFigure figure = BenchFigure.All[m];
-        double[] ours = Percentiles.AbsSorted(runs.Select(o => o.Ours[m]), figure.Scale);
-        double p95 = Percentiles.Of(ours, 0.95);
-        string verdict = ours.Length == 0 ? "no runs" : p95 <= limit ? "met" : "NOT met";
+        BenchFigure figure = BenchFigure.All[goal.Figure];
+        (double p95, int n) = goal.P95Of(runs);
+        string verdict = n == 0 ? "no runs" : p95 <= goal.Limit ? "met" : "NOT met";
 
         // Nearest rank: under 20 runs the p95 is the largest, which lies beyond the true p95 with
         // probability 1 − 0.95ⁿ (54 % at 15 runs; order statistics, distribution-free).
-        string largest = ours.Length is > 0 and < 20 ? Text($" (the largest of {ours.Length}: beyond the true p95 in {100 * (1 - Math.Pow(0.95, ours.Length)):0} % of draws)") : "";
-        output.WriteLine(Text($"    {text}: {p95:0.000} {figure.Unit} over {ours.Length} runs — {verdict}{largest}"));
+        string largest = n is > 0 and < 20 ? Text($" (the largest of {n}: beyond the true p95 in {100 * (1 - Math.Pow(0.95, n)):0} % of draws)") : "";
+        string perSeed = seeds is null ? "" : "; per seed " + string.Join(" / ", seeds.Select(s => goal.P95Of(runs.Where(o => o.Seed == s)) switch
+        {
+            (_, 0) => "–",
+            var (own, ownRuns) => Text($"{own:0.000}{(own > goal.Limit ? "✗" : "")} ({ownRuns})"),
+        }));
+        output.WriteLine(Text($"    {goal.Text}: {p95:0.000} {figure.Unit} over {n} runs — {verdict}{largest}{perSeed}"));
     }
 
     /// <summary>The accelerometer's own distance at the first foot (what the launch-slip allowance
@@ -394,10 +462,10 @@ public static class BenchAccuracyCommand
     private static int Covered(List<CaseOutcome> runs, int m, double k) =>
         runs.Count(o => o.Ours[m] is { } e && o.OurSigmas[m] is { } s && Math.Abs(e) <= k * s);
 
-    private static void WriteList(List<CaseOutcome> all, TextWriter output)
+    private static void WriteList(List<CaseOutcome> all, TextWriter output, IReadOnlyList<int>? seeds)
     {
         output.WriteLine();
-        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m; ours beyond ±2σ shows its error in σ and the figure):");
+        output.WriteLine("Per run (ours / naive; ms, trap speed in m/s, stopping distance in m; ours beyond ±2σ shows its error in σ and the figure):" + (seeds is null ? "" : " each run as seed:index"));
         foreach (CaseOutcome o in all)
         {
             var cells = new List<string>();
@@ -418,7 +486,8 @@ public static class BenchAccuracyCommand
                 cells.Add(Text($"acc 1 ft {foot.Value * 1000:+0.0;-0.0} mm ({foot.Value / foot.Sigma:+0.0;-0.0}σ)"));
             }
 
-            output.WriteLine($"  {o.Index,4} {VerdictCell(o)} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
+            string run = seeds is null ? Text($"{o.Index,4}") : Text($"{o.Seed}:{o.Index,-4}");
+            output.WriteLine($"  {run} {VerdictCell(o)} {string.Join("  ", cells)}  {o.Summary}{(o.Failure is null ? "" : " FAILED: " + o.Failure)}");
         }
     }
 
@@ -427,34 +496,100 @@ public static class BenchAccuracyCommand
     private static void WriteJson(List<CaseOutcome> all, IEnumerable<BenchGroup> groups, int seed, int simulated, int generated, TextWriter output)
     {
         List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
-        object Tally(List<CaseOutcome> runs)
-        {
-            VerdictTally t = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
-            return new
-            {
-                judged = t.Judged,
-                as_expected = t.AsExpected,
-                valid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Valid],
-                doubtful = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Doubtful],
-                invalid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Invalid],
-                clean = t.Clean,
-                clean_called_valid = t.CleanCalledValid,
-                flawed = t.Flawed,
-                flawed_called_valid = t.FlawedCalledValid,
-                not_as_expected = t.Unexpected.Select(u => new { level = VerdictTally.Name(u.Level), runs = u.Runs, codes = u.Codes.ToDictionary(c => c.Code, c => c.Count) }),
-            };
-        }
-
         var document = new
         {
             seed,
             simulated_runs = simulated,
             generated_records = generated,
             failed = all.Count(o => o.Failure != null),
-            groups = groups.Select(g => new { group = g.ToString(), expected = Expectation(g), verdicts = Tally(decoded.Where(o => o.Group == g).ToList()) }),
-            whole_bench = Tally(decoded),
+            groups = groups.Select(g => new { group = g.ToString(), expected = Expectation(g), verdicts = TallyJson(decoded.Where(o => o.Group == g).ToList()) }),
+            whole_bench = TallyJson(decoded),
         };
-        output.WriteLine(System.Text.Json.JsonSerializer.Serialize(document, new System.Text.Json.JsonSerializerOptions { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }));
+        output.WriteLine(System.Text.Json.JsonSerializer.Serialize(document, JsonOptions));
+    }
+
+    private static readonly System.Text.Json.JsonSerializerOptions JsonOptions = new() { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+
+    /// <summary>A verdict tally as the JSON documents write it.</summary>
+    private static object TallyJson(List<CaseOutcome> runs)
+    {
+        VerdictTally t = VerdictTally.Of(runs.Select(o => (o.Expected, o.Verdict)));
+        return new
+        {
+            judged = t.Judged,
+            as_expected = t.AsExpected,
+            valid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Valid],
+            doubtful = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Doubtful],
+            invalid = t.ByLevel[(int)Decoding.Verdicts.VerdictLevel.Invalid],
+            clean = t.Clean,
+            clean_called_valid = t.CleanCalledValid,
+            flawed = t.Flawed,
+            flawed_called_valid = t.FlawedCalledValid,
+            either_way = t.EitherWay,
+            either_way_called_valid = t.EitherWayCalledValid,
+            not_as_expected = t.Unexpected.Select(u => new { level = VerdictTally.Name(u.Level), runs = u.Runs, codes = u.Codes.ToDictionary(c => c.Code, c => c.Count) }),
+        };
+    }
+
+    /// <summary>The pooled bench as JSON: per group, every figure's pooled |error| p50, p95 and
+    /// max (the figure's unit), its coverage at ±2σ and ±3σ with the exact 95 % intervals, and n;
+    /// each goal judged on the pooled p95 with every seed's own; the verdict accounting.</summary>
+    private static void WritePooledJson(List<CaseOutcome> all, IEnumerable<BenchGroup> groups, IReadOnlyList<int> seeds, int simulated, int generated, bool calibratedTyre, TextWriter output)
+    {
+        List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
+        object CoverageJson(List<CaseOutcome> runs, int m, int k)
+        {
+            int n = runs.Count(o => o.Ours[m] is not null);
+            int covered = Covered(runs, m, k);
+            (double low, double high) = CoverageInterval.ClopperPearson(covered, n);
+            return new { covered, percent = 100.0 * covered / n, interval_low_percent = 100 * low, interval_high_percent = 100 * high };
+        }
+
+        object GroupJson(BenchGroup g)
+        {
+            List<CaseOutcome> runs = decoded.Where(o => o.Group == g).ToList();
+            var figures = new List<object>();
+            for (int m = 0; m < BenchFigure.All.Count; m++)
+            {
+                BenchFigure figure = BenchFigure.All[m];
+                double[] ours = Percentiles.AbsSorted(runs.Select(o => o.Ours[m]), figure.Scale);
+                if (ours.Length > 0)
+                {
+                    figures.Add(new { figure = figure.Name, unit = figure.Unit, n = ours.Length, p50 = Percentiles.Of(ours, 0.5), p95 = Percentiles.Of(ours, 0.95), max = Percentiles.Max(ours), within_2_sigma = CoverageJson(runs, m, 2), within_3_sigma = CoverageJson(runs, m, 3) });
+                }
+            }
+
+            var goals = BenchGoal.Of(g, calibratedTyre).Select(goal =>
+            {
+                (double pooled, int pooledRuns) = goal.P95Of(runs);
+                return new
+                {
+                    goal = goal.Text,
+                    limit = goal.Limit,
+                    unit = BenchFigure.All[goal.Figure].Unit,
+                    runs = pooledRuns,
+                    p95 = pooledRuns > 0 ? pooled : (double?)null,
+                    met = pooledRuns > 0 ? pooled <= goal.Limit : (bool?)null,
+                    per_seed = seeds.Select(s =>
+                    {
+                        (double own, int ownRuns) = goal.P95Of(runs.Where(o => o.Seed == s));
+                        return new { seed = s, runs = ownRuns, p95 = ownRuns > 0 ? own : (double?)null, met = ownRuns > 0 ? own <= goal.Limit : (bool?)null };
+                    }).ToList(),
+                };
+            }).ToList();
+            return new { group = g.ToString(), expected = Expectation(g), runs = runs.Count, figures, goals, verdicts = TallyJson(runs) };
+        }
+
+        var document = new
+        {
+            seeds,
+            simulated_runs_per_seed = simulated,
+            generated_records_per_seed = generated,
+            failed = all.Count(o => o.Failure != null),
+            groups = groups.Select(GroupJson).ToList(),
+            whole_bench = TallyJson(decoded),
+        };
+        output.WriteLine(System.Text.Json.JsonSerializer.Serialize(document, JsonOptions));
     }
 
     /// <summary>The run's verdict with its reason codes, and "(expected …)" when it deserved another.</summary>
