@@ -88,10 +88,15 @@ public static class RunJudge
             }
         }
 
-        // A rolling start has no 0-60 by nature: rolling_start already says why.
+        // A rolling start has no 0-60 by nature: rolling_start already says why. A top speed that
+        // crossed 60 mph by less than 2σ (FigureCalculator.ClearPassSigmas) is as doubtful, but
+        // "not reached" would be untrue of it: the data cannot show it either way.
         if (rec.Staged && figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph") is { FromStandstillS: null } && figures.MaxSpeedMps > 5)
         {
-            reasons.Add(new(VerdictLevel.Doubtful, "target_not_reached", Invariant($"60 mph was not reached (top speed {figures.MaxSpeedMps / Units.MpsPerMph:0.0} mph)")));
+            string text = figures.NotClearlyReached.FirstOrDefault(d => d.Interval.Label == "0-60 mph") is { Interval: not null } near
+                ? Invariant($"60 mph not clearly reached: the top speed, {near.TopMps / Units.MpsPerMph:0.0} mph, is within {FigureCalculator.ClearPassSigmas:0}σ (σ {near.SigmaMps / Units.MpsPerMph:0.0} mph) of it, so the data cannot show 60 mph was passed")
+                : Invariant($"60 mph was not reached (top speed {figures.MaxSpeedMps / Units.MpsPerMph:0.0} mph)");
+            reasons.Add(new(VerdictLevel.Doubtful, "target_not_reached", text));
         }
 
         if (run.FirmwareRolloutS is { } boxMark && figures.RolloutTimeS is not null

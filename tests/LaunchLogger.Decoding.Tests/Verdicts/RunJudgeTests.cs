@@ -167,6 +167,24 @@ public class RunJudgeTests
         Assert.Empty(RunJudge.Judge(JudgedRun.Clean(), Grade(8.0, 0.1, calibrated: false), null).Reasons);
     }
 
+    /// <summary>A top speed that crossed 60 mph by less than 2σ gets no 0-60 mph time
+    /// (FigureCalculator's clear-pass rule); the verdict is as doubtful but must not say 60 mph
+    /// was not reached, which the data cannot show either.</summary>
+    [Fact]
+    public void ARunThatCrossesSixtyMphByLessThanTwoSigmaSaysItWasNotClearlyReached()
+    {
+        RunAnalysis run = JudgedRun.Clean(topSpeedMps: 20);
+        var sixty = run.Figures.SpeedIntervals.First(i => i.Interval.Label == "0-60 mph").Interval;
+        RunAnalysis near = run with { Figures = run.Figures with { MaxSpeedMps = 27.0, NotClearlyReached = [(sixty, 27.0, 0.2)] } };
+
+        Verdict verdict = AssertOnly(near, "target_not_reached", VerdictLevel.Doubtful);
+
+        Assert.Contains("not clearly reached", verdict.Reasons[0].Text);
+        Assert.Contains("60.4 mph", verdict.Reasons[0].Text); // 27.0 m/s ÷ 0.44704 = 60.40 mph (exact mph definition)
+        Assert.Contains("σ 0.4 mph", verdict.Reasons[0].Text); // 0.2 m/s ÷ 0.44704 = 0.45 → 0.4
+        Assert.DoesNotContain("was not reached", verdict.Reasons[0].Text);
+    }
+
     [Fact]
     public void ARunThatStopsShortOfSixtyMphSaysSo()
     {
