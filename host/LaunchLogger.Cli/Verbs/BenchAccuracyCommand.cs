@@ -20,13 +20,14 @@ public static class BenchAccuracyCommand
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
         var errorsCsv = new Option<FileInfo?>("--errors-csv") { Description = "Also write every run's error, σ and error/σ per figure to this CSV file (for pooling seeds)." };
         var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables." };
-        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json };
-        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName, parse.GetValue(json))));
+        var pickupWheelTold = new Option<bool>("--pickup-wheel-told") { Description = "Tell the decoder which wheel carries each simulated run's pickup (the settings' pickup_wheel: driven or undriven), as a user who knows the car would; by default not said. Only runs with pulses alone change." };
+        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json, pickupWheelTold };
+        command.SetAction((parse, cancel) => Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName, parse.GetValue(json), parse.GetValue(pickupWheelTold))));
         return command;
     }
 
     /// <summary>Runs the benchmark.</summary>
-    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null, bool json = false)
+    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null, bool json = false, bool pickupWheelTold = false)
     {
         if (runs < 2 || runs > 100_000)
         {
@@ -43,7 +44,8 @@ public static class BenchAccuracyCommand
 
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
-        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group)).ToList();
+        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => Wanted(c.Group))
+            .Select(c => pickupWheelTold ? c with { PickupWheelTold = c.DrivenPickup ? Decoding.Reconstruction.PickupWheel.Driven : Decoding.Reconstruction.PickupWheel.Undriven } : c).ToList();
         IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, Wanted(BenchGroup.GeneratedStandingSmooth), Wanted(BenchGroup.GeneratedStandingLagged)).Where(c => Wanted(c.Group)).ToList();
         var started = System.Diagnostics.Stopwatch.StartNew();
         List<CaseOutcome> all;
@@ -65,7 +67,8 @@ public static class BenchAccuracyCommand
         }
 
         string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
-            + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)");
+            + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)")
+            + (pickupWheelTold ? "; each simulated pickup's wheel told (driven or undriven)" : "");
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up, every other one again with a lagged take-up), seed {seed}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (groups is { Count: > 0 })
         {
