@@ -22,6 +22,7 @@ public class BadInputMatrixTests
         Add("edges at 1e300 s", ExitCode.BadInput, "report", "--edges", "{edges-huge}", "--metres-per-pulse", "0.04");
         Add("edges 1e-12 s apart", ExitCode.BadInput, "report", "--edges", "{edges-close}", "--metres-per-pulse", "0.04");
         Add("log and edges together", ExitCode.Usage, "report", "{log}", "--edges", "{edges}");
+        Add("pickup wheel neither driven nor undriven", ExitCode.Usage, "report", "--edges", "{edges}", "--metres-per-pulse", "0.04", "--pickup-wheel", "rear");
         Add("settings file missing", ExitCode.BadInput, "report", "{log}", "--settings", "{missing}");
         Add("brake reference not a log", ExitCode.BadInput, "report", "{log}", "--brake-reference", "{text}");
         Add("a folder as the log", ExitCode.BadInput, "report", "{folder}");

@@ -31,8 +31,9 @@ public static class AccelScaleDraw
     /// <summary>The analysis options that tell the calibrations a user would have: the forward
     /// axis' scale (<paramref name="accel"/>) and a measured rolling circumference
     /// (<paramref name="tyre"/>, metres, as <see cref="TyreCalibrationTold"/> gives it), or else the
-    /// static circumference the box holds, told as such (<paramref name="staticTyreM"/>); null for none.</summary>
-    public static Decoding.Analysis.AnalysisOptions? Options(Estimate? accel, Estimate? tyre = null, double? staticTyreM = null) => accel is null && tyre is null && staticTyreM is null
+    /// static circumference the box holds, told as such (<paramref name="staticTyreM"/>), and the
+    /// pickup's wheel (<paramref name="pickupWheel"/>); null for none.</summary>
+    public static Decoding.Analysis.AnalysisOptions? Options(Estimate? accel, Estimate? tyre = null, double? staticTyreM = null, Decoding.Reconstruction.PickupWheel? pickupWheel = null) => accel is null && tyre is null && staticTyreM is null && pickupWheel is null
         ? null
         : new Decoding.Analysis.AnalysisOptions
         {
@@ -43,6 +44,7 @@ public static class AccelScaleDraw
                 CircumferenceM = tyre?.Value,
                 CircumferenceSigmaM = tyre?.Sigma,
                 StaticCircumferenceM = tyre is null ? staticTyreM : null,
+                PickupWheel = pickupWheel,
             },
         };
 

@@ -45,7 +45,7 @@ public static class AccuracyBenchmark
         FigureSet naive;
         try
         {
-            SessionAnalysis session = SessionAnalyzer.Analyze([run], AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM), cancel: cancel);
+            SessionAnalysis session = SessionAnalyzer.Analyze([run], AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM, c.PickupWheelTold), cancel: cancel);
             if (session.Runs.Count != 1)
             {
                 return [CaseOutcome.Failed(c.Index, c.Summary, c.Group, session.Failures.FirstOrDefault() ?? $"the box's run was read as {session.Runs.Count} runs")];

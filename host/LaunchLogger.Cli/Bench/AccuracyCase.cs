@@ -19,6 +19,10 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
     /// <summary>The static circumference told as such (the settings' <c>static_circumference_m</c>), metres, when the tyre is not calibrated.</summary>
     public double? StaticTyreM { get; init; }
 
+    /// <summary>Which wheel carries the pickup as the settings tell it (<c>pickup_wheel</c>), or
+    /// null when not said (<c>bench accuracy --pickup-wheel-told</c>).</summary>
+    public Decoding.Reconstruction.PickupWheel? PickupWheelTold { get; init; }
+
     /// <summary>The group the case is reported in.</summary>
     public BenchGroup Group => (HasAccelerometer, DrivenPickup, PollPeriodS) switch
     {

@@ -20,10 +20,11 @@ public static class BenchAccuracyCommand
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
         var errorsCsv = new Option<FileInfo?>("--errors-csv") { Description = "Also write every run's error, σ and error/σ per figure to this CSV file (for pooling seeds)." };
         var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables; with --seeds, each group's pooled figures and goals too." };
+        var pickupWheelTold = new Option<bool>("--pickup-wheel-told") { Description = "Tell the decoder which wheel carries each simulated run's pickup (the settings' pickup_wheel: driven or undriven), as a user who knows the car would; by default not said. Only runs with pulses alone change." };
 
         // Pooling seeds: a block of its own.
         var seeds = new Option<string?>("--seeds") { Description = "Run the bench at each of these seeds (1-4, or 1,3,7) and judge every group's figures, coverage and goals over all their runs pooled, each goal with every seed's own p95 beside it: for the small groups, whose p95 at one seed is one run. Not with --seed." };
-        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json, seeds };
+        var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json, seeds, pickupWheelTold };
         command.SetAction((parse, cancel) =>
         {
             IReadOnlyList<int>? pooled = null;
@@ -44,14 +45,14 @@ public static class BenchAccuracyCommand
                 }
             }
 
-            return Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName, parse.GetValue(json), pooled));
+            return Task.FromResult((int)Run(parse.GetValue(runs), parse.GetValue(seed), parse.GetValue(list), parse.GetValue(calibrated), parse.InvocationConfiguration.Output, parse.InvocationConfiguration.Error, cancel, parse.GetValue(only), parse.GetValue(calibratedAccel), parse.GetValue(errorsCsv)?.FullName, parse.GetValue(json), pooled, parse.GetValue(pickupWheelTold)));
         });
         return command;
     }
 
     /// <summary>Runs the benchmark at <paramref name="seed"/>, or at each of
     /// <paramref name="seeds"/> with every group judged over all their runs pooled.</summary>
-    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null, bool json = false, IReadOnlyList<int>? seeds = null)
+    public static ExitCode Run(int runs, int seed, bool list, bool calibratedTyre, TextWriter output, TextWriter error, CancellationToken cancel = default, IReadOnlyCollection<BenchGroup>? groups = null, bool calibratedAccel = false, string? errorsCsvPath = null, bool json = false, IReadOnlyList<int>? seeds = null, bool pickupWheelTold = false)
     {
         if (runs < 2 || runs > 100_000)
         {
@@ -83,7 +84,7 @@ public static class BenchAccuracyCommand
             for (int k = 0; k < drawn.Count; k++)
             {
                 string label = seeds is null ? "bench accuracy" : Text($"bench accuracy: seed {drawn[k]} ({k + 1} of {drawn.Count}, {started.Elapsed.TotalSeconds:0} s so far)");
-                (List<CaseOutcome> outcomes, int cases) = Decode(runs, drawn[k], calibratedTyre, calibratedAccel, Wanted, label, error, cancel);
+                (List<CaseOutcome> outcomes, int cases) = Decode(runs, drawn[k], calibratedTyre, calibratedAccel, pickupWheelTold, Wanted, label, error, cancel);
                 all.AddRange(seeds is null ? outcomes : outcomes.Select(o => o with { Seed = drawn[k] }));
                 decodedCases += cases;
             }
@@ -109,7 +110,8 @@ public static class BenchAccuracyCommand
         }
 
         string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
-            + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)");
+            + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)")
+            + (pickupWheelTold ? "; each simulated pickup's wheel told (driven or undriven)" : "");
         string drawnAt = seeds is null ? Text($"seed {seed}") : Text($"at each of the {seeds.Count} seeds {SeedList.Describe(seeds)}, pooled");
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up, every other one again with a lagged take-up), {drawnAt}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (seeds is not null)
@@ -161,10 +163,11 @@ public static class BenchAccuracyCommand
     /// on <paramref name="error"/> under <paramref name="label"/>: every run's outcome, and how
     /// many cases were decoded.</summary>
     /// <exception cref="OperationCanceledException">Cancelled.</exception>
-    private static (List<CaseOutcome> Outcomes, int Cases) Decode(int runs, int seed, bool calibratedTyre, bool calibratedAccel, Func<BenchGroup, bool> wanted, string label, TextWriter error, CancellationToken cancel)
+    private static (List<CaseOutcome> Outcomes, int Cases) Decode(int runs, int seed, bool calibratedTyre, bool calibratedAccel, bool pickupWheelTold, Func<BenchGroup, bool> wanted, string label, TextWriter error, CancellationToken cancel)
     {
         int simulatedRuns = runs / 2;
-        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => wanted(c.Group)).ToList();
+        IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => wanted(c.Group))
+            .Select(c => pickupWheelTold ? c with { PickupWheelTold = c.DrivenPickup ? Decoding.Reconstruction.PickupWheel.Driven : Decoding.Reconstruction.PickupWheel.Undriven } : c).ToList();
         IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, wanted(BenchGroup.GeneratedStandingSmooth), wanted(BenchGroup.GeneratedStandingLagged)).Where(c => wanted(c.Group)).ToList();
         List<CaseOutcome> outcomes = ParallelCases.Run(simulated, AccuracyBenchmark.Run, $"{label}: simulated runs decoded", error, cancel).SelectMany(o => o).ToList();
         outcomes.AddRange(ParallelCases.Run(generated, PrescribedBenchmark.Run, $"{label}: generated records decoded", error, cancel).SelectMany(o => o));

@@ -56,6 +56,10 @@ public sealed record ReportRequest
     /// <summary>Calibration settings file (from <c>launchlogger calibrate</c>) to apply to every run.</summary>
     public FileInfo? Settings { get; init; }
 
+    /// <summary>Which wheel carries the pickup, as told on the command line (<c>--pickup-wheel</c>);
+    /// it takes the place of the settings file's <c>pickup_wheel</c>. Null: as the settings say.</summary>
+    public LaunchLogger.Decoding.Reconstruction.PickupWheel? PickupWheel { get; init; }
+
     /// <summary>The pickup tyre's slip stiffness under braking; car tyres unless a caller knows
     /// better (a closed-form input whose edges are the car's own positions: <c>BrakeSlipPrior.None</c>).</summary>
     public LaunchLogger.Decoding.Braking.BrakeSlipPrior BrakeSlip { get; init; } = LaunchLogger.Decoding.Braking.BrakeSlipPrior.CarTyres;

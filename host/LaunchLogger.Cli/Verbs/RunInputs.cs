@@ -74,8 +74,11 @@ public static class RunInputs
 
     /// <summary>Loads the calibration settings file the request names, or null for none.</summary>
     /// <exception cref="InputException">The file is missing or not a settings file.</exception>
-    public static CalibrationSettings? LoadSettings(ReportRequest request) =>
-        request.Settings is { } file ? CalibrationFile.Load(file.FullName) : null;
+    public static CalibrationSettings? LoadSettings(ReportRequest request)
+    {
+        CalibrationSettings? settings = request.Settings is { } file ? CalibrationFile.Load(file.FullName) : null;
+        return request.PickupWheel is { } wheel ? (settings ?? new CalibrationSettings()) with { PickupWheel = wheel } : settings;
+    }
 
     /// <summary>The run with the settings applied (<see cref="CalibrationApplier"/>); as it is without settings.</summary>
     public static DecodedRun Calibrate(DecodedRun run, CalibrationSettings? settings) =>

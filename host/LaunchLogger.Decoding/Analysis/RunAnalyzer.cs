@@ -42,6 +42,12 @@ public static class RunAnalyzer
             reconstructionOptions = reconstructionOptions with { AccelScaleCalibration = new Estimate(accelScale, accelScaleSigma) };
         }
 
+        if (options.Calibration is { PickupWheel: { } pickupWheel })
+        {
+            // The user said which wheel carries the pickup (pulses only: the launch slip).
+            reconstructionOptions = reconstructionOptions with { PickupWheel = pickupWheel };
+        }
+
         if (options.Calibration is { } settings && ToothGaps.From(settings) is { } gaps && gaps.Spacing.Count == run.Configuration.PulsesPerRevolution)
         {
             // A saved map of the ring: the reconstruction turns it to the run and says whether it could.

@@ -14,7 +14,8 @@ namespace LaunchLogger.Decoding.Calibration;
 /// here: the accelerometer's forward scale (<see cref="CalibrationSettings.AccelForwardScale"/>),
 /// which divides the forward input and lets a standing start measure the pulses' scale; and the
 /// brake switch's measured delay (<see cref="CalibrationSettings.BrakeSwitchDelayS"/>), which
-/// times each stop's onset from the switch alone.</para>
+/// times each stop's onset from the switch alone; and which wheel carries the pickup
+/// (<see cref="CalibrationSettings.PickupWheel"/>), which decides a pulses-only launch's slip.</para>
 /// <para>Not applied here: the mounting pitch, which the grade estimate subtracts from the
 /// resting pitch (<see cref="CalibrationSettings.MountingPitchRad"/>), and the yaw. The
 /// tooth-spacing map goes to the reconstruction (<see cref="ToothGaps"/>), which turns it to the

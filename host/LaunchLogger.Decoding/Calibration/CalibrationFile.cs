@@ -16,6 +16,7 @@ public static class CalibrationFile
         DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
         WriteIndented = true,
         UnmappedMemberHandling = JsonUnmappedMemberHandling.Disallow,
+        Converters = { new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower, allowIntegerValues: false) },
     };
 
     /// <summary>Loads a settings file.</summary>
@@ -158,6 +159,11 @@ public static class CalibrationFile
             {
                 return Invariant($"brake_switch_delay_sigma_s must be more than 0 and less than 0.05 s (was {delaySigma})");
             }
+        }
+
+        if (settings.PickupWheel is { } wheel && wheel is not (Reconstruction.PickupWheel.Driven or Reconstruction.PickupWheel.Undriven))
+        {
+            return "pickup_wheel must be driven or undriven (leave it out when not known)";
         }
 
         return CheckToothSpacing(settings.ToothSpacing, settings.ToothSpacingSigma);

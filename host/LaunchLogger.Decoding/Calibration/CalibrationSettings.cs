@@ -73,6 +73,12 @@ public sealed record CalibrationSettings
     /// the rig's own resolution); 1 ms when not given.</summary>
     public double? BrakeSwitchDelaySigmaS { get; init; }
 
+    /// <summary>Which wheel carries the distance pickup: <c>driven</c> or <c>undriven</c>
+    /// (<see cref="Reconstruction.PickupWheel"/>); absent, not said. With pulses only it decides
+    /// how a standing start's launch slip is taken: moved off the estimate (driven), left out
+    /// (undriven) or carried in σ (not said). Nothing in the log says it; the user knows it.</summary>
+    public Reconstruction.PickupWheel? PickupWheel { get; init; }
+
     /// <summary>Relative length of each tooth gap of the distance channel, in pulse order from
     /// a reference tooth (mean 1.0); null when not mapped.</summary>
     /// <remarks>Entry k is the gap that ends at the edge where the box's hardware pulse counter

@@ -115,6 +115,40 @@ internal static class LaunchSlipAllowance
         return allowanceM > 0 && reach > 0 ? allowanceM / reach * Math.Exp(-d / fadeM) * speedMps : 0;
     }
 
+    /// <summary>The car's distance d from first motion when a wheel slipping ahead of it by the
+    /// fading launch slip x(d) = F·L·(1 − e^(−d/L)) has counted <paramref name="countedM"/>:
+    /// the root of d + x(d) = counted, m. Newton's method from the counted distance; x' ≤ F, so
+    /// a few steps reach the double's precision.</summary>
+    /// <param name="countedM">The distance the wheel counted, m.</param>
+    /// <param name="fraction">F, the slip at the start as a fraction.</param>
+    /// <param name="fadeM">L, the distance it fades over, m.</param>
+    public static double WithoutSlip(double countedM, double fraction, double fadeM)
+    {
+        if (countedM <= 0 || fraction <= 0)
+        {
+            return countedM;
+        }
+
+        double d = countedM;
+        for (int i = 0; i < 8; i++)
+        {
+            double fading = Math.Exp(-d / fadeM);
+            double step = (d + (fraction * fadeM * (1 - fading)) - countedM) / (1 + (fraction * fading));
+            d -= step;
+            if (Math.Abs(step) < 1e-12 * (1 + countedM))
+            {
+                break;
+            }
+        }
+
+        return Math.Max(d, 0);
+    }
+
+    /// <summary>The car's speed when the wheel, slipping by F·e^(−d/L) at the car's distance
+    /// <paramref name="distanceM"/>, reads <paramref name="countedMps"/>: counted ÷ (1 + slip), m/s.</summary>
+    public static double SpeedWithoutSlip(double countedMps, double distanceM, double fraction, double fadeM) =>
+        countedMps / (1 + (fraction * Math.Exp(-Math.Max(distanceM, 0) / fadeM)));
+
     /// <summary>The accelerometer's own distance from first motion at each grid point, m (zeros
     /// before <paramref name="k0"/>): the input integrated twice from rest.</summary>
     public static double[] AccelDistance(double[] grid, int k0, double startSpeedM, double startDistanceM, double[] stepSpeedM, double[] stepDistanceM)

@@ -184,6 +184,26 @@ public sealed record ReconstructionOptions
     /// <summary>Distance over which a launch slip fades, m (ours: the first couple of feet).</summary>
     public double LaunchSlipFadeM { get; init; } = 0.5;
 
+    /// <summary>Which wheel carries the pickup, when told (<see cref="Reconstruction.PickupWheel"/>);
+    /// <see cref="PickupWheel.NotSaid"/> keeps <see cref="PulsesOnlyLaunchSlip"/> about an unmoved
+    /// estimate. Used only with pulses alone on a standing start.</summary>
+    public PickupWheel PickupWheel { get; init; } = PickupWheel.NotSaid;
+
+    /// <summary>Expected launch slip of a wheel told to be driven, as a fraction of the distance
+    /// (fading over <see cref="LaunchSlipFadeM"/>), with pulses only: the slip is one-signed (the
+    /// wheel is ahead), so the distance is moved back by it. A driven tyre launching near its grip
+    /// limit works near the peak of its longitudinal force–slip curve, which on a dry road lies at
+    /// a slip ratio of about 0.1–0.15 (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1, the
+    /// longitudinal characteristic; T. D. Gillespie, "Fundamentals of Vehicle Dynamics", ch. 2,
+    /// tractive coefficient against slip; both figures from memory); a launch held a little short
+    /// of the peak slips less. 10 %, with <see cref="DrivenLaunchSlipSigma"/>, spans 5–15 % at ±2σ
+    /// (the range <see cref="PulsesOnlyLaunchSlip"/> names).</summary>
+    public double DrivenLaunchSlip { get; init; } = 0.10;
+
+    /// <summary>1-σ of <see cref="DrivenLaunchSlip"/>, a fraction: what is not known about the
+    /// slip's size on a wheel told to be driven (5–15 % at ±2σ).</summary>
+    public double DrivenLaunchSlipSigma { get; init; } = 0.025;
+
     /// <summary>Share of a driven wheel's estimated slip correction taken as 1-σ model error: the
     /// slip law is linear, and real tyres slip more near their grip limit, as in a hard launch
     /// (sized on simulated launches so that the rollout mark stays within ±2 σ).</summary>

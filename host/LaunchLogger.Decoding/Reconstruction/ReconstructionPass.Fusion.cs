@@ -218,8 +218,18 @@ internal sealed partial class ReconstructionPass
                 }
 
                 double fade = options.LaunchSlipFadeM;
-                slipDistance = (options.WheelSlipSigma * pulsesOnlySlip) + (Staged ? options.PulsesOnlyLaunchSlip * fade * (1 - Math.Exp(-d / fade)) : 0);
-                slipSpeed = options.WheelSlipSigma * speed[k] * drive;
+                (double launchMean, double launchSigma) = Staged ? PulsesOnlyLaunchSlip() : (0, 0);
+                if (launchMean > 0)
+                {
+                    // A wheel told to be driven is ahead of the car by its launch slip: the
+                    // distance and speed are moved back by its expected value.
+                    d = LaunchSlipAllowance.WithoutSlip(d, launchMean, fade);
+                    distance[k] = d;
+                    speed[k] = LaunchSlipAllowance.SpeedWithoutSlip(speed[k], d, launchMean, fade);
+                }
+
+                slipDistance = (options.WheelSlipSigma * pulsesOnlySlip) + (launchSigma * fade * (1 - Math.Exp(-d / fade)));
+                slipSpeed = (options.WheelSlipSigma * speed[k] * drive) + (launchMean > 0 ? launchSigma * Math.Exp(-d / fade) * speed[k] : 0);
             }
 
             double dSys = (scale * d) + slipDistance;
@@ -320,6 +330,17 @@ internal sealed partial class ReconstructionPass
             fused.DistanceM, fused.DistanceSigmaM, LaunchBiasSigma(accelRest!), options.ForwardScaleSigma, pulseScale,
             driven ? (options.PulsesOnlyLaunchSlip, options.LaunchSlipFadeM) : null);
     }
+
+    /// <summary>The launch slip's expected value and 1-σ with pulses only, fractions of the
+    /// distance: by what the user told of the pickup's wheel (<see cref="ReconstructionOptions.PickupWheel"/>).
+    /// Not told, the slip's size is in σ about an unmoved estimate; driven, the estimate is moved
+    /// by the slip's expected value and σ keeps its spread; undriven, there is none.</summary>
+    private (double Mean, double Sigma) PulsesOnlyLaunchSlip() => options.PickupWheel switch
+    {
+        PickupWheel.Driven => (options.DrivenLaunchSlip, options.DrivenLaunchSlipSigma),
+        PickupWheel.Undriven => (0, 0),
+        _ => (0, options.PulsesOnlyLaunchSlip),
+    };
 
     /// <summary>True when the fused slip coefficient lies beyond 3σ (its own and the undriven
     /// wheel's prior combined) of an undriven wheel's, kept or not: the pulses show a wheel that

@@ -25,6 +25,7 @@ public sealed class CalibrationFileTests : IDisposable
         ToothSpacingSigma = [0.0001, 0.0001, 0.0002, 0.0001],
         BrakeSwitchDelayS = 0.012,
         BrakeSwitchDelaySigmaS = 0.0015,
+        PickupWheel = Decoding.Reconstruction.PickupWheel.Driven,
     };
 
     [Fact]
@@ -52,6 +53,19 @@ public sealed class CalibrationFileTests : IDisposable
         Assert.DoesNotContain("rad", json, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("driven", Decoding.Reconstruction.PickupWheel.Driven)]
+    [InlineData("undriven", Decoding.Reconstruction.PickupWheel.Undriven)]
+    public void ThePickupWheelIsOneOfTwoWords(string word, Decoding.Reconstruction.PickupWheel wheel)
+    {
+        string path = Path.Combine(folder, "wheel.json");
+        File.WriteAllText(path, $"{{ \"pickup_wheel\": \"{word}\" }}");
+
+        Assert.Equal(wheel, CalibrationFile.Load(path).PickupWheel);
+        Assert.Contains($"\"pickup_wheel\": \"{word}\"", CalibrationFile.ToJson(new CalibrationSettings { PickupWheel = wheel }), StringComparison.Ordinal);
+        Assert.DoesNotContain("pickup_wheel", CalibrationFile.ToJson(new CalibrationSettings()), StringComparison.Ordinal);
+    }
+
     [Fact]
     public void AnglesAreOfferedInRadiansForTheGradeEstimate()
     {
@@ -76,6 +90,9 @@ public sealed class CalibrationFileTests : IDisposable
     [InlineData("switch delay negative", "{ \"brake_switch_delay_s\": -0.01 }", "brake_switch_delay_s")]
     [InlineData("switch delay in ms by mistake", "{ \"brake_switch_delay_s\": 12 }", "brake_switch_delay_s")]
     [InlineData("switch delay's σ alone", "{ \"brake_switch_delay_sigma_s\": 0.001 }", "without brake_switch_delay_s")]
+    [InlineData("pickup wheel not one of the two", "{ \"pickup_wheel\": \"rear\" }", "not a settings file")]
+    [InlineData("pickup wheel as a number", "{ \"pickup_wheel\": 1 }", "not a settings file")]
+    [InlineData("pickup wheel written as not said", "{ \"pickup_wheel\": \"not_said\" }", "pickup_wheel must be driven or undriven")]
     [InlineData("switch delay's σ zero", "{ \"brake_switch_delay_s\": 0.01, \"brake_switch_delay_sigma_s\": 0 }", "brake_switch_delay_sigma_s")]
     public void UnusableFilesAreRefusedInOneLine(string name, string text, string expected)
     {
