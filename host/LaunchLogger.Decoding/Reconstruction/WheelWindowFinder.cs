@@ -155,15 +155,26 @@ internal sealed class WheelWindowFinder
         double startS = input.StartS;
         List<TimeWindow> windows = WheelspinDetector.Find(
             pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.AccelTimeS!, input.AccelInputMps2, startS, input.EndS, braking, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
+        List<TimeWindow> slid = windows.Except(spinning).ToList();
         if (spinning.Count > 0)
         {
             string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
             notes.Add($"wheelspin suspected (pulses up to {ahead * 100:F0} % ahead of the accelerometer) at {list} after first motion; the pulses there were not used for distance");
         }
 
-        if (windows.Count > spinning.Count)
+        List<TimeWindow> atLaunch = WheelspinDetector.FindAtLaunch(
+            pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.AccelTimeS!, input.AccelInputMps2, startS, input.EndS, options, out double launchSlip);
+        if (atLaunch.Count > 0)
         {
-            string list = string.Join(", ", windows.Except(spinning).Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            string list = string.Join(", ", atLaunch.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            notes.Add($"wheelspin at the launch suspected (the pulses counted up to {launchSlip * 100:F0} % more than the accelerometer's distance, beyond the {options.LaunchSpinSlip * 100:F0} % a tyre slips at its grip peak) at {list} after first motion; the pulses there were not used for distance");
+            spinning = WheelspinDetector.Union([.. spinning, .. atLaunch]);
+            windows = WheelspinDetector.Union([.. windows, .. atLaunch]);
+        }
+
+        if (slid.Count > 0)
+        {
+            string list = string.Join(", ", slid.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
             notes.Add($"the wheel slid (pulses up to {behind * 100:F0} % behind the accelerometer) at {list} after first motion; the pulses there were not used for distance");
         }
 
