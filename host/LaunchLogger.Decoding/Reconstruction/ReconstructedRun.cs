@@ -108,6 +108,12 @@ public sealed class ReconstructedRun
     /// not trusted for distance.</summary>
     public IReadOnlyList<TimeWindow> WheelspinWindows { get; init; } = [];
 
+    /// <summary>Stretches near standstill where the pulses counted more than the accelerometer's
+    /// distance by more than a tyre slips at its grip peak (spin at the launch,
+    /// <see cref="WheelspinDetector.FindAtLaunch"/>). The pulses there were kept: this weighs on
+    /// the verdict, not on the figures.</summary>
+    public IReadOnlyList<TimeWindow> LaunchSpinWindows { get; init; } = [];
+
     /// <summary>Stretches of firm braking where the pickup wheel slid behind the car (as under
     /// ABS) and the accelerometer carried distance and speed instead.</summary>
     public IReadOnlyList<TimeWindow> BrakingSlideWindows { get; init; } = [];

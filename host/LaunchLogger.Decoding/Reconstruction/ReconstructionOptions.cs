@@ -115,6 +115,13 @@ public sealed record ReconstructionOptions
     /// <summary>The smallest excess that counts as wheelspin, as a fraction of the speed.</summary>
     public double WheelspinFraction { get; init; } = 0.04;
 
+    /// <summary>The largest slip ratio a clean launch's driven tyre shows, at the peak of its
+    /// force–slip curve (about 0.1–0.2 on dry roads: J. Y. Wong, "Theory of Ground Vehicles",
+    /// ch. 1; H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1; from memory): near standstill the
+    /// pulses counting more than the accelerometer's distance by this share, beyond their σ, is
+    /// spin (<see cref="WheelspinDetector.FindAtLaunch"/>).</summary>
+    public double LaunchSpinSlip { get; init; } = 0.2;
+
     /// <summary>Take the body's pitch under acceleration and braking out of the forward axis,
     /// using the vertical axis, when all three axes were measured.</summary>
     public bool CompensateBodyPitch { get; init; } = true;

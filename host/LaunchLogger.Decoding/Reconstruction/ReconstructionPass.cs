@@ -262,6 +262,7 @@ internal sealed partial class ReconstructionPass
             AccelOnlyFirstFoot = AccelFirstFoot(steps, firstMotion.Value),
             AccelClockShiftS = accelClockShiftS,
             WheelspinWindows = spin,
+            LaunchSpinWindows = windows.LaunchSpin,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             BrakeSlipPerMps2 = windows.BrakeSlipSignal is null ? null : fused.BrakeSlip,

@@ -54,8 +54,13 @@ internal sealed class WheelWindows
     /// wheelspin detector found.</summary>
     public required List<TimeWindow> Spin { get; init; }
 
-    /// <summary>The notes on <see cref="Spin"/> (one for spin, one for slides, when there are any).</summary>
+    /// <summary>The notes on <see cref="Spin"/> (one for spin, one for slides, when there are
+    /// any) and on <see cref="LaunchSpin"/>.</summary>
     public required List<string> SpinWarnings { get; init; }
+
+    /// <summary>Spin at the launch (<see cref="WheelspinDetector.FindAtLaunch"/>): for the
+    /// verdict; the pulses there are kept.</summary>
+    public required List<TimeWindow> LaunchSpin { get; init; }
 
     /// <summary>The drive slip signal S(t) on the grid, or null when no drive slip is fitted.</summary>
     public double[]? DriveSlipSignal { get; init; }
@@ -103,7 +108,7 @@ internal sealed class WheelWindowFinder
     {
         var finder = new WheelWindowFinder(input);
         List<TimeWindow> slides = finder.SlidingUnderBraking(finder.SlideSearchWindows(), out double behind);
-        List<TimeWindow> spin = finder.FindWheelspin(slides, out List<string> spinWarnings);
+        List<TimeWindow> spin = finder.FindWheelspin(slides, out List<string> spinWarnings, out List<TimeWindow> launchSpin);
         double[]? slipSignal = finder.SlipSignal();
         List<TimeWindow> firm = finder.FirmBraking();
         double[]? brakeSlipSignal = finder.BrakeSlipSignal(firm);
@@ -113,6 +118,7 @@ internal sealed class WheelWindowFinder
             LargestBehindFraction = behind,
             Spin = spin,
             SpinWarnings = spinWarnings,
+            LaunchSpin = launchSpin,
             DriveSlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,
             FirmBraking = brakeSlipSignal is null ? [] : firm.Where(w => !slides.Any(s => s.StartS < w.EndS && s.EndS > w.StartS)).ToList(),
@@ -144,9 +150,10 @@ internal sealed class WheelWindowFinder
         return forces.FirmBraking(input.StartS, input.StopS, input.StartSpeedMps);
     }
 
-    private List<TimeWindow> FindWheelspin(List<TimeWindow> braking, out List<string> notes)
+    private List<TimeWindow> FindWheelspin(List<TimeWindow> braking, out List<string> notes, out List<TimeWindow> atLaunch)
     {
         notes = [];
+        atLaunch = [];
         if (!options.DetectWheelspin || pulses is null || !WithAccelerometer || !input.Staged)
         {
             return [];
@@ -155,15 +162,24 @@ internal sealed class WheelWindowFinder
         double startS = input.StartS;
         List<TimeWindow> windows = WheelspinDetector.Find(
             pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.AccelTimeS!, input.AccelInputMps2, startS, input.EndS, braking, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
+        List<TimeWindow> slid = windows.Except(spinning).ToList();
         if (spinning.Count > 0)
         {
             string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
             notes.Add($"wheelspin suspected (pulses up to {ahead * 100:F0} % ahead of the accelerometer) at {list} after first motion; the pulses there were not used for distance");
         }
 
-        if (windows.Count > spinning.Count)
+        atLaunch = WheelspinDetector.FindAtLaunch(
+            pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.AccelTimeS!, input.AccelInputMps2, startS, input.EndS, options, out double launchSlip);
+        if (atLaunch.Count > 0)
         {
-            string list = string.Join(", ", windows.Except(spinning).Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            string list = string.Join(", ", atLaunch.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            notes.Add($"wheelspin at the launch suspected (the pulses counted up to {launchSlip * 100:F0} % more than the accelerometer's distance, beyond the {options.LaunchSpinSlip * 100:F0} % a tyre slips at its grip peak) at {list} after first motion: the launch marks may read early");
+        }
+
+        if (slid.Count > 0)
+        {
+            string list = string.Join(", ", slid.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
             notes.Add($"the wheel slid (pulses up to {behind * 100:F0} % behind the accelerometer) at {list} after first motion; the pulses there were not used for distance");
         }
 

@@ -155,6 +155,127 @@ internal static class WheelspinDetector
         return found;
     }
 
+    /// <summary>Finds spin at the launch, where <see cref="Find"/>'s windows do not reach (they
+    /// start at 1 m/s, and near standstill a spinning wheel runs ahead by only centimetres a second):
+    /// over every stretch between two edges from first motion until the car passes
+    /// <see cref="LaunchSpeedMps"/> (or <see cref="LaunchLongestS"/>), the distance the pulses
+    /// count against the accelerometer's own over the same time.</summary>
+    /// <remarks>The pulses' distance over the accelerometer's is one plus the wheel's slip ratio
+    /// averaged over the stretch (weighted by speed). A clean launch slips at most as much as its
+    /// tyre does at the peak of its force–slip curve: a slip ratio of about 0.1–0.2 on dry roads
+    /// (J. Y. Wong, "Theory of Ground Vehicles", ch. 1; H. B. Pacejka, "Tire and Vehicle
+    /// Dynamics", ch. 1; from memory) — beyond the peak the force falls and the wheel runs away.
+    /// So a stretch is spin only when its pulses exceed (1 + <see cref="ReconstructionOptions.LaunchSpinSlip"/>)
+    /// times the accelerometer's distance by more than four times the σ of that difference: the
+    /// two teeth's spacing, the told circumference (<see cref="ReconstructionOptions.CircumferenceSigmaFraction"/>
+    /// of the count), the two edges' times at the car's speed there, the accelerometer's scale
+    /// (<see cref="ReconstructionOptions.AccelScaleCalibration"/> or <see cref="ReconstructionOptions.AccelScaleSigma"/>)
+    /// and a bias of <see cref="ReconstructionOptions.BiasPriorMps2"/> integrated twice from the
+    /// start. Nothing here is fitted to a simulated tyre: a launch held at its tyre's peak never
+    /// trips it. The accelerometer's distance is integrated from <see cref="LaunchLeadInS"/> before
+    /// first motion, so a first motion placed a little late loses none of the launch.</remarks>
+    public static List<TimeWindow> FindAtLaunch(
+        PulseChannel pulses, double mpp, double toothSigmaM, double[] accelT, double[] input, double startS, double endS, ReconstructionOptions options, out double largestSlip)
+    {
+        largestSlip = 0;
+        var found = new List<TimeWindow>();
+        double fromS = startS - LaunchLeadInS;
+        var integral = new RunningDistance(accelT, input, fromS);
+        var times = new List<double>();
+        var counts = new List<long>();
+        var timeSigmas = new List<double>();
+        var distances = new List<double>();
+        var speeds = new List<double>();
+        double lastS = Math.Min(endS, startS + LaunchLongestS);
+        for (int i = 0; i < pulses.Length; i++)
+        {
+            double t = pulses.EdgeS(i);
+            if (t <= startS)
+            {
+                continue;
+            }
+
+            if (t > lastS)
+            {
+                break;
+            }
+
+            double d = integral.At(t, out double v);
+            times.Add(t);
+            counts.Add(pulses.Counts[i]);
+            timeSigmas.Add(pulses.EdgeSigmaS(i));
+            distances.Add(d);
+            speeds.Add(Math.Max(v, 0));
+            if (v > LaunchSpeedMps)
+            {
+                break;
+            }
+        }
+
+        double clean = 1 + options.LaunchSpinSlip;
+        double scaleSigma = options.ForwardScaleSigma;
+        double circumferenceSigma = options.CircumferenceSigmaFraction;
+        double biasSigma = options.BiasPriorMps2;
+        for (int a = 0; a < times.Count; a++)
+        {
+            double ta = times[a] - fromS;
+            double edgeA = speeds[a] * timeSigmas[a];
+            for (int b = a + 1; b < times.Count; b++)
+            {
+                double byPulses = (counts[b] - counts[a]) * mpp;
+                double byAccel = distances[b] - distances[a];
+                double excess = byPulses - (clean * byAccel);
+                if (excess <= 0 || byAccel <= 0)
+                {
+                    continue;
+                }
+
+                double tb = times[b] - fromS;
+                double edgeB = speeds[b] * timeSigmas[b];
+                double bias = 0.5 * biasSigma * ((tb * tb) - (ta * ta));
+                double variance = (2 * toothSigmaM * toothSigmaM) + Square(circumferenceSigma * byPulses) + (edgeA * edgeA) + (edgeB * edgeB)
+                    + Square(clean * scaleSigma * byAccel) + Square(clean * bias);
+                if (excess > 4 * Math.Sqrt(variance))
+                {
+                    largestSlip = Math.Max(largestSlip, (byPulses / byAccel) - 1);
+                    found.Add(new TimeWindow(times[a], times[b]));
+                }
+            }
+        }
+
+        return Union(found);
+    }
+
+    /// <summary>Where a launch spin is looked for: until the car passes this speed, m/s — beyond
+    /// it <see cref="Find"/>'s windows (from 1 m/s) see a spinning wheel's excess of speed.</summary>
+    public const double LaunchSpeedMps = 3;
+
+    /// <summary>Where a launch spin is looked for at the longest, s after first motion.</summary>
+    public const double LaunchLongestS = 1.5;
+
+    /// <summary>How far before first motion the launch's accelerometer distance is integrated
+    /// from, s.</summary>
+    public const double LaunchLeadInS = 0.05;
+
+    /// <summary>The union of <paramref name="windows"/>, sorted, overlapping ones merged.</summary>
+    public static List<TimeWindow> Union(IEnumerable<TimeWindow> windows)
+    {
+        var result = new List<TimeWindow>();
+        foreach (TimeWindow w in windows.OrderBy(w => w.StartS))
+        {
+            if (result.Count > 0 && w.StartS <= result[^1].EndS)
+            {
+                result[^1] = new TimeWindow(result[^1].StartS, Math.Max(result[^1].EndS, w.EndS));
+            }
+            else
+            {
+                result.Add(w);
+            }
+        }
+
+        return result;
+    }
+
     private static double Square(double x) => x * x;
 
     private static bool Overlaps(List<TimeWindow> windows, double from, double to)
@@ -218,7 +339,10 @@ internal static class WheelspinDetector
         private double speed;
         private double distance;
 
-        public double At(double when)
+        public double At(double when) => At(when, out _);
+
+        /// <summary>The distance at <paramref name="when"/>, and the speed there.</summary>
+        public double At(double when, out double speedThere)
         {
             while (next < t.Length && t[next] <= when)
             {
@@ -228,12 +352,14 @@ internal static class WheelspinDetector
 
             if (when <= time)
             {
+                speedThere = speed;
                 return distance;
             }
 
             double u = next < t.Length ? Interpolate(t, input, when) : value;
             double h = when - time;
             double v = speed + (0.5 * (value + u) * h);
+            speedThere = v;
             return distance + (0.5 * (speed + v) * h);
         }
 

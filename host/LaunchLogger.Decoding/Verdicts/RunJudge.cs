@@ -63,12 +63,15 @@ public static class RunJudge
         // A wheel sliding under braking (ABS at work, or a braked tyre's slip, which the spin
         // finder sees as the wheel parting from the car) is expected and carried by the
         // accelerometer; only a wheel running off on its own before the brakes come on counts
-        // against the run.
+        // against the run. Spin at the launch (the pulses kept) counts with it, once where both saw it.
         double driveEndsS = analysis.Braking?.OnsetS.Value ?? double.PositiveInfinity;
-        double spin = rec.WheelspinWindows.Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
+        double spin = WheelspinDetector.Union([.. rec.WheelspinWindows, .. rec.LaunchSpinWindows]).Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
         if (spin > limits.WheelspinS)
         {
-            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: distance and speed there lean on the accelerometer")));
+            string where = rec.LaunchSpinWindows.Count == 0
+                ? "distance and speed there lean on the accelerometer"
+                : "at the launch the pulses ran ahead of the car by more than a tyre slips at its grip peak, and the launch marks may read early";
+            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: {where}")));
         }
 
         if (grade is { MountingCalibrated: true } g)

@@ -26,7 +26,10 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// <param name="Brake">The wheel's slip while the car slows (its rate is then v·(1 − s_b) / C(v));
 /// null for a wheel that rolls freely under braking, as the closed-form tests take it. Goes with
 /// either of the above: every wheel is braked.</param>
-public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null, SpinUpLag? SpinUp = null, BrakeSlip? Brake = null)
+/// <param name="Spin">A driven wheel's spin past its tyre's friction peak (its rate then gains
+/// v·κ_spin / C(v), κ_spin counted from the car's first motion); null for none. Not with
+/// <paramref name="SpinUp"/>: an undriven wheel cannot spin.</param>
+public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null, SpinUpLag? SpinUp = null, BrakeSlip? Brake = null, WheelSpin? Spin = null)
 {
     /// <summary>Longest span integrated in one piece, s.</summary>
     public const double ChunkS = 0.05;
@@ -56,7 +59,12 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
             throw new ArgumentException("a driven wheel's slip and an undriven wheel's spin-up lag do not go together", nameof(profile));
         }
 
-        return Tyre.Rigid && Slip is null && SpinUp is null && Brake is null ? RigidEdges(profile) : GrowingEdges(profile);
+        if (Spin != null && SpinUp != null)
+        {
+            throw new ArgumentException("an undriven wheel (one with a spin-up lag) cannot spin", nameof(profile));
+        }
+
+        return Tyre.Rigid && Slip is null && SpinUp is null && Brake is null && Spin is null ? RigidEdges(profile) : GrowingEdges(profile);
     }
 
     private double[] RigidEdges(MotionProfile profile)
@@ -88,6 +96,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         var edges = new List<double>();
         double revs = 0;
         double next = PhaseFraction / Teeth;
+        double motionS = profile.Segments.FirstOrDefault(s => !s.AtRest)?.StartS ?? 0;
         foreach (PlacedSegment s in profile.Segments)
         {
             if (s.AtRest)
@@ -100,12 +109,12 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
             {
                 double a = s.StartS + (s.DurationS * c / chunks);
                 double b = c == chunks - 1 ? s.EndS : s.StartS + (s.DurationS * (c + 1) / chunks);
-                double gained = Revolutions(s, a, b);
+                double gained = Revolutions(s, a, b, motionS);
                 double baseRevs = revs;
                 while (next <= baseRevs + gained)
                 {
                     double target = next - baseRevs;
-                    double t = Brent.FindRoot(x => Revolutions(s, a, x) - target, a, b, MotionProfile.RootToleranceS, 200);
+                    double t = Brent.FindRoot(x => Revolutions(s, a, x, motionS) - target, a, b, MotionProfile.RootToleranceS, 200);
                     edges.Add(t);
                     next += 1.0 / Teeth;
                 }
@@ -118,8 +127,9 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
     }
 
     /// <summary>Revolutions turned between <paramref name="a"/> and <paramref name="b"/> within
-    /// segment <paramref name="s"/>, to within <see cref="RevolutionTolerance"/>.</summary>
-    private double Revolutions(PlacedSegment s, double a, double b)
+    /// segment <paramref name="s"/>, to within <see cref="RevolutionTolerance"/>; the car first
+    /// moved at <paramref name="motionS"/>.</summary>
+    private double Revolutions(PlacedSegment s, double a, double b, double motionS)
     {
         if (b <= a)
         {
@@ -131,7 +141,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         {
             double tau = t - s.StartS;
             (double v, double accel) = s.SpeedAndAccelAt(tau);
-            double slip = (Slip?.At(s.StateAt(tau).DistanceM, accel) ?? 0) - (SpinUp?.At(accel) ?? 0) - (Brake?.At(accel) ?? 0);
+            double slip = (Slip?.At(s.StateAt(tau).DistanceM, accel) ?? 0) - (SpinUp?.At(accel) ?? 0) - (Brake?.At(accel) ?? 0) + (Spin?.At(t - motionS) ?? 0);
             return v * (1 + slip) / Tyre.CircumferenceAt(v);
         }
 
@@ -143,6 +153,6 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         }
 
         double m = 0.5 * (a + b);
-        return Revolutions(s, a, m) + Revolutions(s, m, b);
+        return Revolutions(s, a, m, motionS) + Revolutions(s, m, b, motionS);
     }
 }

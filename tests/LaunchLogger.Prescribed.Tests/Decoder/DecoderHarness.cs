@@ -73,7 +73,7 @@ public static class DecoderHarness
             result = (result ?? new AnalysisOptions()) with { BrakeSlip = BrakeSlipPrior.None };
         }
 
-        if (record.Spec.Pickup.SpinUp is not null || record.Spec.Pickup.Slip is not null)
+        if (record.Spec.Pickup.SpinUp is not null || record.Spec.Pickup.Slip is not null || record.Spec.Pickup.Spin is not null)
         {
             return result;
         }
