@@ -6,8 +6,8 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <param name="Shape">The onset shape that fitted best.</param>
 /// <param name="DetectedS">When the smoothed acceleration first clearly rose, seconds.</param>
 /// <param name="SmoothStartShare">How likely the rise starts like τ² (with zero slope: the
-/// shapes <see cref="OnsetShape.Quadratic"/>, <see cref="OnsetShape.SmoothTakeUp"/> and
-/// <see cref="OnsetShape.EvenTakeUp"/>) rather than with a slope or a step, by the shapes'
+/// shapes <see cref="OnsetShape.Quadratic"/>, <see cref="OnsetShape.SmoothTakeUp"/>,
+/// <see cref="OnsetShape.EvenTakeUp"/> and <see cref="OnsetShape.LaggedRamp"/>) rather than with a slope or a step, by the shapes'
 /// odds exp(−ΔBIC/2), 0–1.</param>
 internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare);
 
@@ -40,11 +40,20 @@ internal enum OnsetShape
     /// c₂τ² + c₃τ³ follows such a take-up only with its onset moved late (by about 1 % of the rise
     /// time over its first 60 %, a least-squares fit to the closed form), this one within 0.2 %.</summary>
     EvenTakeUp,
+
+    /// <summary>c·(τ − λ·(1 − e^(−τ/λ))), λ on a grid: a ramp seen through a first-order lag of
+    /// time constant λ (a torque ramp through the driveline's or the mount's compliance). It starts
+    /// as c·τ²/(2λ) − c·τ³/(6λ²) + c·τ⁴/(24λ³) − … (Taylor) and eases into the straight
+    /// c·(τ − λ): a τ² start that turns straight within the window, which neither take-up shape
+    /// follows (c₂τ² + c₃τ³ keeps bending, c₂τ² + c₄τ⁴ bends the other way), so both fitted it
+    /// with their onsets moved early by 1.5–4.5 ms, outside their σ (the fit alone on the closed
+    /// form, ACCURACY-NOTES).</summary>
+    LaggedRamp,
 }
 
 /// <summary>Finds the onset of acceleration as a change point: zero before t₀, one of the
 /// <see cref="OnsetShape"/>s after it (a ramp, a τ², both, a jump, or a smooth take-up
-/// c₂τ² + c₃τ³ or c₂τ² + c₄τ⁴), fitted by least squares over a window that ends where the
+/// c₂τ² + c₃τ³ or c₂τ² + c₄τ⁴, or a ramp through a first-order lag), fitted by least squares over a window that ends where the
 /// rise has reached <see cref="WindowHeightShare"/> of its early height, with t₀ on a grid of a quarter sample (a jump's
 /// fit is flat between two samples: its t₀ is the best gap's middle). The shape is chosen by the
 /// Bayesian information criterion, each shape at its own least residual; where a curved shape is
@@ -59,7 +68,7 @@ internal enum OnsetShape
 /// G. Schwarz (1978), "Estimating the dimension of a model", Ann. Statist. 6(2).</remarks>
 internal static class AccelOnsetFit
 {
-    private const int Shapes = 6;
+    private const int Shapes = 7;
 
     /// <summary>A sample this close after a candidate onset counts as before it, seconds. A box that
     /// times its samples evenly in whole microseconds puts the coarse candidates (whole periods from a
@@ -85,6 +94,14 @@ internal static class AccelOnsetFit
     /// 0.4 s (the slowest the generator draws; a clutch or a motor's torque ramp builds up within
     /// about 0.3 s, common practice) reaches 0.6 of its height about 0.2 s after it is first seen.</summary>
     private const double WindowAfterCrossS = 0.25;
+
+    /// <summary>The lagged ramp's time constants, s: 10 ms to 160 ms by factors of √2 (a lag
+    /// shorter than a few samples is a ramp; one longer than the window is a τ²).</summary>
+    private static readonly double[] LagsS = [0.01, 0.01414, 0.02, 0.02828, 0.04, 0.05657, 0.08, 0.1131, 0.16];
+
+    /// <summary>Golden-section steps on ln λ between two grid neighbours (a factor of 2): 0.618^10
+    /// leaves the lag within about 0.6 % of its best.</summary>
+    private const int LagRefineSteps = 10;
 
     /// <summary>Samples after the crossing that the window must hold for a fit.</summary>
     private const int MinAfterCross = 3;
@@ -186,7 +203,7 @@ internal static class AccelOnsetFit
         Span<double> reduction = stackalloc double[Shapes];
         for (int c = 0; c < coarseCount; c++)
         {
-            Reductions(t, y, start, end, first + (c * period), reduction);
+            Reductions(t, y, start, end, first + (c * period), reduction, lagged: true);
             for (int m = 0; m < Shapes; m++)
             {
                 coarse[m][c] = total - reduction[m];
@@ -276,7 +293,7 @@ internal static class AccelOnsetFit
     }
 
     /// <summary>True for the shapes that start with zero value and zero slope (like τ²).</summary>
-    private static bool StartsSmooth(OnsetShape shape) => shape is OnsetShape.Quadratic or OnsetShape.SmoothTakeUp or OnsetShape.EvenTakeUp;
+    private static bool StartsSmooth(OnsetShape shape) => shape is OnsetShape.Quadratic or OnsetShape.SmoothTakeUp or OnsetShape.EvenTakeUp or OnsetShape.LaggedRamp;
 
     private readonly record struct Fine(double TimeS, double HalfWidthS, double Sse);
 
@@ -306,7 +323,7 @@ internal static class AccelOnsetFit
         for (int g = 0; g < gaps; g++)
         {
             int k = kFirst + g;
-            Reductions(t, y, start, end, 0.5 * (t[k - 1] + t[k]), reduction);
+            Reductions(t, y, start, end, 0.5 * (t[k - 1] + t[k]), reduction, lagged: false);
             sse[g] = total - reduction[(int)OnsetShape.Jump];
             if (sse[g] < sse[best])
             {
@@ -363,7 +380,7 @@ internal static class AccelOnsetFit
         Span<double> reduction = stackalloc double[Shapes];
         for (int c = 0; c < candidates; c++)
         {
-            Reductions(t, y, start, end, fineFirst + (c * step), reduction);
+            Reductions(t, y, start, end, fineFirst + (c * step), reduction, lagged: shape == (int)OnsetShape.LaggedRamp);
             sse[c] = total - reduction[shape];
         }
 
@@ -435,7 +452,7 @@ internal static class AccelOnsetFit
 
         double Sse(double t0, Span<double> r)
         {
-            Reductions(t, y, start, end, t0, r);
+            Reductions(t, y, start, end, t0, r, lagged: shape == (int)OnsetShape.LaggedRamp);
             return total - r[shape];
         }
     }
@@ -499,8 +516,9 @@ internal static class AccelOnsetFit
     }
 
     /// <summary>Sum-of-squares reductions of each shape with the change at <paramref name="t0"/>;
-    /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit.</summary>
-    private static void Reductions(double[] t, Shifted y, int start, int end, double t0, Span<double> reduction)
+    /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit. The
+    /// lagged ramp's (its best lag, <see cref="LaggedRampReduction"/>) only when <paramref name="lagged"/>.</summary>
+    private static void Reductions(double[] t, Shifted y, int start, int end, double t0, Span<double> reduction, bool lagged)
     {
         double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s8 = 0, y0 = 0, y1 = 0, y2 = 0, y3 = 0, y4 = 0;
         double tauEnd = 0;
@@ -577,6 +595,115 @@ internal static class AccelOnsetFit
             bool valid = c2 >= 0 && (2 * c2) + (4 * c4 * tauEnd * tauEnd) >= 0;
             reduction[(int)OnsetShape.EvenTakeUp] = valid ? (c2 * y2) + (c4 * y4) : reduction[(int)OnsetShape.Quadratic];
         }
+
+        if (lagged)
+        {
+            reduction[(int)OnsetShape.LaggedRamp] = LaggedRampReduction(t, y, start, end, t0);
+        }
+    }
+
+    /// <summary>The lagged ramp's reduction (Σy·g)²/Σg² at its best time constant, g(τ) =
+    /// τ − λ·(1 − e^(−τ/λ)) (≥ 0 and rising, so c ≥ 0 is its only condition): the best of
+    /// <see cref="LagsS"/>, then refined by golden-section search on ln λ between its grid
+    /// neighbours (Kiefer 1953). On the grid alone a lag between two grid points was fitted
+    /// with the nearer one and its onset moved to make up the difference.</summary>
+    private static double LaggedRampReduction(double[] t, Shifted y, int start, int end, double t0)
+    {
+        Span<double> gg = stackalloc double[LagsS.Length];
+        Span<double> yg = stackalloc double[LagsS.Length];
+        gg.Clear();
+        yg.Clear();
+        for (int i = start; i <= end; i++)
+        {
+            double tau = t[i] - t0;
+            if (tau <= TieS)
+            {
+                continue;
+            }
+
+            double yi = y[i];
+            for (int j = 0; j < LagsS.Length; j++)
+            {
+                double g = LaggedRamp(tau, LagsS[j]);
+                gg[j] += g * g;
+                yg[j] += yi * g;
+            }
+        }
+
+        double best = 0;
+        int bestLag = -1;
+        for (int j = 0; j < LagsS.Length; j++)
+        {
+            double r = yg[j] > 0 && gg[j] > 0 ? yg[j] * yg[j] / gg[j] : 0;
+            if (r > best)
+            {
+                best = r;
+                bestLag = j;
+            }
+        }
+
+        if (bestLag < 0)
+        {
+            return 0;
+        }
+
+        const double R = 0.6180339887498949;
+        double a = Math.Log(LagsS[Math.Max(bestLag - 1, 0)]);
+        double b = Math.Log(LagsS[Math.Min(bestLag + 1, LagsS.Length - 1)]);
+        double c = b - (R * (b - a));
+        double d = a + (R * (b - a));
+        double fc = LaggedRampReductionAt(t, y, start, end, t0, Math.Exp(c));
+        double fd = LaggedRampReductionAt(t, y, start, end, t0, Math.Exp(d));
+        for (int k = 0; k < LagRefineSteps; k++)
+        {
+            if (fc > fd)
+            {
+                b = d;
+                d = c;
+                fd = fc;
+                c = b - (R * (b - a));
+                fc = LaggedRampReductionAt(t, y, start, end, t0, Math.Exp(c));
+            }
+            else
+            {
+                a = c;
+                c = d;
+                fc = fd;
+                d = a + (R * (b - a));
+                fd = LaggedRampReductionAt(t, y, start, end, t0, Math.Exp(d));
+            }
+        }
+
+        return Math.Max(best, Math.Max(fc, fd));
+    }
+
+    /// <summary>The lagged ramp's reduction at one time constant <paramref name="lag"/>.</summary>
+    private static double LaggedRampReductionAt(double[] t, Shifted y, int start, int end, double t0, double lag)
+    {
+        double gg = 0;
+        double yg = 0;
+        for (int i = start; i <= end; i++)
+        {
+            double tau = t[i] - t0;
+            if (tau <= TieS)
+            {
+                continue;
+            }
+
+            double g = LaggedRamp(tau, lag);
+            gg += g * g;
+            yg += y[i] * g;
+        }
+
+        return yg > 0 && gg > 0 ? yg * yg / gg : 0;
+    }
+
+    /// <summary>τ − λ·(1 − e^(−τ/λ)) = λ·(x − 1 + e^(−x)), x = τ/λ; its Maclaurin series
+    /// λ·x²·(1/2 − x/6 + x²/24) where the difference would lose its digits.</summary>
+    internal static double LaggedRamp(double tau, double lag)
+    {
+        double x = tau / lag;
+        return x < 1e-3 ? lag * x * x * (0.5 - (x / 6) + (x * x / 24)) : tau - (lag * (1 - Math.Exp(-x)));
     }
 
     /// <summary>Readings less a level, read as if they were an array.</summary>
