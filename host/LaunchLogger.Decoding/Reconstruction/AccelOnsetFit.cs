@@ -6,10 +6,14 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <param name="Shape">The onset shape that fitted best.</param>
 /// <param name="DetectedS">When the smoothed acceleration first clearly rose, seconds.</param>
 /// <param name="SmoothStartShare">How likely the rise starts like τ² (with zero slope: the
-/// shapes <see cref="OnsetShape.Quadratic"/>, <see cref="OnsetShape.SmoothTakeUp"/>,
-/// <see cref="OnsetShape.EvenTakeUp"/> and <see cref="OnsetShape.LaggedRamp"/>) rather than with a slope or a step, by the shapes'
+/// shapes <see cref="OnsetShape.Quadratic"/>, <see cref="OnsetShape.SmoothTakeUp"/> and
+/// <see cref="OnsetShape.EvenTakeUp"/>) rather than with a slope or a step, by the shapes'
 /// odds exp(−ΔBIC/2), 0–1.</param>
-internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare);
+/// <param name="LaggedShare">How likely the rise is a ramp through a lag
+/// (<see cref="OnsetShape.LaggedRamp"/>), by the same odds, 0–1: it too starts like τ², but
+/// turns straight within a few lags, so the pulses read it as neither a ramp nor a smooth take-up.</param>
+/// <param name="LagS">That shape's fitted lag at its onset, s (0 where it had no fit).</param>
+internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare, double LaggedShare = 0, double LagS = 0);
 
 /// <summary>Shapes of the acceleration just after first motion (τ = t − t₀ ≥ 0).</summary>
 internal enum OnsetShape
@@ -282,14 +286,17 @@ internal static class AccelOnsetFit
         for (int m = 0; m < Shapes; m++)
         {
             allOdds += odds[m];
-            smoothOdds += StartsSmooth((OnsetShape)m) ? odds[m] : 0;
+            smoothOdds += StartsSmooth((OnsetShape)m) && m != (int)OnsetShape.LaggedRamp ? odds[m] : 0;
         }
+
+        int lagged = (int)OnsetShape.LaggedRamp;
+        LaggedRampReduction(t, y, start, end, fine[lagged].TimeS, out double lagS);
 
         // What lies below the noise cannot be seen: the longer the fitted onset stays under the
         // detection level, the more the unseen part of its shape matters.
         double hidden = 0.25 * Math.Max(0, tCross - mean);
         double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + spreadSquared + (hidden * hidden) + (period * period / 192));
-        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds);
+        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds, odds[lagged] / allOdds, lagS);
     }
 
     /// <summary>True for the shapes that start with zero value and zero slope (like τ²).</summary>
@@ -598,7 +605,7 @@ internal static class AccelOnsetFit
 
         if (lagged)
         {
-            reduction[(int)OnsetShape.LaggedRamp] = LaggedRampReduction(t, y, start, end, t0);
+            reduction[(int)OnsetShape.LaggedRamp] = LaggedRampReduction(t, y, start, end, t0, out _);
         }
     }
 
@@ -607,8 +614,9 @@ internal static class AccelOnsetFit
     /// <see cref="LagsS"/>, then refined by golden-section search on ln λ between its grid
     /// neighbours (Kiefer 1953). On the grid alone a lag between two grid points was fitted
     /// with the nearer one and its onset moved to make up the difference.</summary>
-    private static double LaggedRampReduction(double[] t, Shifted y, int start, int end, double t0)
+    private static double LaggedRampReduction(double[] t, Shifted y, int start, int end, double t0, out double lagS)
     {
+        lagS = 0;
         Span<double> gg = stackalloc double[LagsS.Length];
         Span<double> yg = stackalloc double[LagsS.Length];
         gg.Clear();
@@ -647,6 +655,7 @@ internal static class AccelOnsetFit
             return 0;
         }
 
+        lagS = LagsS[bestLag];
         const double R = 0.6180339887498949;
         double a = Math.Log(LagsS[Math.Max(bestLag - 1, 0)]);
         double b = Math.Log(LagsS[Math.Min(bestLag + 1, LagsS.Length - 1)]);
@@ -674,7 +683,14 @@ internal static class AccelOnsetFit
             }
         }
 
-        return Math.Max(best, Math.Max(fc, fd));
+        double refined = Math.Max(fc, fd);
+        if (refined > best)
+        {
+            lagS = Math.Exp(fc > fd ? c : d);
+            return refined;
+        }
+
+        return best;
     }
 
     /// <summary>The lagged ramp's reduction at one time constant <paramref name="lag"/>.</summary>
