@@ -11,7 +11,11 @@ namespace LaunchLogger.Decoding.Tests.Reconstruction;
 /// Gaussian σ is 95.4 % within ±2σ and 99.7 % within ±3σ (any statistics text); over 200 onsets
 /// per case we ask 93 % and 98.5 %, as the smooth take-up's test does. The cases are the long
 /// ramps with short lags that the five shapes without a lag placed late by 11–16 ms at 3.7σ on
-/// the generator's records (ACCURACY-NOTES), and a long lag on a short ramp.</summary>
+/// the generator's records (ACCURACY-NOTES), and a long lag on a short ramp. The lagged ramp is
+/// chosen only on strong evidence against a plain ramp, so a low peak behind a short lag (0.25–0.42 g
+/// at 21 ms) whose foot is lost in the noise is still read as a ramp 10–17 ms late: there its σ
+/// carries the lag's spread and covers it, and the 95 % bound of that case is 11 ms, not the
+/// 8 ms the lag chosen on any evidence met.</summary>
 public class LaggedTakeUpOnsetTests
 {
     private const double Gravity = 9.80665;
@@ -25,7 +29,7 @@ public class LaggedTakeUpOnsetTests
         { 400, 0.39, 0.054, 13e-3 },
         { 400, 0.15, 0.1, 8e-3 },
         { 1600, 0.30, 0.04, 6e-3 },
-        { 1600, 0.39, 0.021, 8e-3 },
+        { 1600, 0.39, 0.021, 11e-3 },
     };
 
     /// <summary>a(τ) of the ramp through the lag, closed form.</summary>
