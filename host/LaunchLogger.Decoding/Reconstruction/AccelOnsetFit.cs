@@ -9,7 +9,11 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// shapes <see cref="OnsetShape.Quadratic"/>, <see cref="OnsetShape.SmoothTakeUp"/> and
 /// <see cref="OnsetShape.EvenTakeUp"/>) rather than with a slope or a step, by the shapes'
 /// odds exp(−ΔBIC/2), 0–1.</param>
-internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare);
+/// <param name="LaggedShare">How likely the rise is a ramp through a lag
+/// (<see cref="OnsetShape.LaggedRamp"/>), by the same odds, 0–1: it too starts like τ², but
+/// turns straight within a few lags, so the pulses read it as neither a ramp nor a smooth take-up.</param>
+/// <param name="LagS">That shape's fitted lag at its onset, s (0 where it had no fit).</param>
+internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare, double LaggedShare = 0, double LagS = 0);
 
 /// <summary>Shapes of the acceleration just after first motion (τ = t − t₀ ≥ 0).</summary>
 internal enum OnsetShape
@@ -40,11 +44,20 @@ internal enum OnsetShape
     /// c₂τ² + c₃τ³ follows such a take-up only with its onset moved late (by about 1 % of the rise
     /// time over its first 60 %, a least-squares fit to the closed form), this one within 0.2 %.</summary>
     EvenTakeUp,
+
+    /// <summary>c·(τ − λ·(1 − e^(−τ/λ))), λ on a grid: a ramp seen through a first-order lag of
+    /// time constant λ (a torque ramp through the driveline's or the mount's compliance). It starts
+    /// as c·τ²/(2λ) − c·τ³/(6λ²) + c·τ⁴/(24λ³) − … (Taylor) and eases into the straight
+    /// c·(τ − λ): a τ² start that turns straight within the window, which neither take-up shape
+    /// follows (c₂τ² + c₃τ³ keeps bending, c₂τ² + c₄τ⁴ bends the other way), so both fitted it
+    /// with their onsets moved early by 1.5–4.5 ms, outside their σ (the fit alone on the closed
+    /// form, ACCURACY-NOTES).</summary>
+    LaggedRamp,
 }
 
 /// <summary>Finds the onset of acceleration as a change point: zero before t₀, one of the
 /// <see cref="OnsetShape"/>s after it (a ramp, a τ², both, a jump, or a smooth take-up
-/// c₂τ² + c₃τ³ or c₂τ² + c₄τ⁴), fitted by least squares over a window that ends where the
+/// c₂τ² + c₃τ³ or c₂τ² + c₄τ⁴, or a ramp through a first-order lag), fitted by least squares over a window that ends where the
 /// rise has reached <see cref="WindowHeightShare"/> of its early height, with t₀ on a grid of a quarter sample (a jump's
 /// fit is flat between two samples: its t₀ is the best gap's middle). The shape is chosen by the
 /// Bayesian information criterion, each shape at its own least residual; where a curved shape is
@@ -59,7 +72,7 @@ internal enum OnsetShape
 /// G. Schwarz (1978), "Estimating the dimension of a model", Ann. Statist. 6(2).</remarks>
 internal static class AccelOnsetFit
 {
-    private const int Shapes = 6;
+    private const int Shapes = 7;
 
     /// <summary>A sample this close after a candidate onset counts as before it, seconds. A box that
     /// times its samples evenly in whole microseconds puts the coarse candidates (whole periods from a
@@ -85,6 +98,17 @@ internal static class AccelOnsetFit
     /// 0.4 s (the slowest the generator draws; a clutch or a motor's torque ramp builds up within
     /// about 0.3 s, common practice) reaches 0.6 of its height about 0.2 s after it is first seen.</summary>
     private const double WindowAfterCrossS = 0.25;
+
+    /// <summary>The lagged ramp's time constants, s: 10 ms to 160 ms by factors of 2^(1/4) (a lag
+    /// shorter than a few samples is a ramp; one longer than the window is a τ²). The grid is fine
+    /// enough that a parabola in ln λ through its best three points finds the best lag (between
+    /// grid points by √2 the onset moved by 1–2 ms to make up the lag; ACCURACY-NOTES).</summary>
+    private static readonly double[] LagsS = [.. Enumerable.Range(0, 17).Select(j => 0.01 * Math.Pow(2, j / 4.0))];
+
+    /// <summary>The lagged ramp is chosen only where its information criterion beats the plain
+    /// ramp's by this much: 2·ln B ≥ 6, "strong" evidence on Kass and Raftery's scale (R. E. Kass
+    /// and A. E. Raftery 1995, "Bayes factors", JASA 90(430)).</summary>
+    private const double StrongEvidence = 6;
 
     /// <summary>Samples after the crossing that the window must hold for a fit.</summary>
     private const int MinAfterCross = 3;
@@ -183,10 +207,11 @@ internal static class AccelOnsetFit
             coarse[m] = new double[coarseCount];
         }
 
+        var lags = new LagBasis(t, start, end);
         Span<double> reduction = stackalloc double[Shapes];
         for (int c = 0; c < coarseCount; c++)
         {
-            Reductions(t, y, start, end, first + (c * period), reduction);
+            Reductions(t, y, start, end, first + (c * period), reduction, lags);
             for (int m = 0; m < Shapes; m++)
             {
                 coarse[m][c] = total - reduction[m];
@@ -214,9 +239,43 @@ internal static class AccelOnsetFit
         int bestShape = 0;
         for (int m = 0; m < Shapes; m++)
         {
-            fine[m] = FineFit(t, y, start, end, total, first, period, coarse[m], m, rise);
+            fine[m] = FineFit(t, y, start, end, total, first, period, coarse[m], m, rise, lags);
             int parameters = m is (int)OnsetShape.Ramp or (int)OnsetShape.Quadratic ? 2 : 3;
             bic[m] = (fine[m].Sse / noiseVar) + (parameters * logN);
+        }
+
+        // The lagged ramp with a lag long beside the window is c·τ²/(2λ) − c·τ³/(6λ²) + … there,
+        // the smooth take-up c₂τ² + c₃τ³ again: two shapes saying one thing would count that
+        // thing twice in the average. They share one prior weight in the measure that they
+        // coincide (a dilution prior: E. I. George 2010, "Dilution priors: compensating for model
+        // space redundancy", IMS Collections 6): with δ the part of the fitted lagged ramp that
+        // the take-up's two terms cannot follow, in noise variances (the log-likelihood ratio
+        // 2·ln(L₁/L₂) the data would show between them were the lagged ramp true), each has prior
+        // 1 − e^(−δ/2)/2: ½ where no record could tell them apart, 1 where any would.
+        int lagged = (int)OnsetShape.LaggedRamp;
+        lags.Reduction(t, y, fine[lagged].TimeS, refine: true, out double lagS);
+        if (lagS > 0)
+        {
+            double shared = 1 - (0.5 * Math.Exp(-0.5 * lags.TakeUpShortfall(t, y, fine[lagged].TimeS, lagS, noiseVar)));
+            bic[lagged] -= 2 * Math.Log(shared);
+            bic[(int)OnsetShape.SmoothTakeUp] -= 2 * Math.Log(shared);
+        }
+
+        // The lagged ramp is chosen or averaged in only on strong evidence against the plain ramp,
+        // 2·ln B ≥ 6 (R. E. Kass and A. E. Raftery 1995, "Bayes factors", JASA 90(430)): its lag
+        // is scanned over four octaves, and the best of a scan overstates its evidence (R. B.
+        // Davies 1987, Biometrika 74(1)), so on a straight ramp a short chance lag wins the
+        // criterion on a few records in a hundred and moves the onset early by about the lag.
+        // A true lag behind a long ramp mostly has a foot well above the noise.
+        double laggedBic = bic[lagged];
+        bool lagBarred = bic[(int)OnsetShape.Ramp] - laggedBic < StrongEvidence;
+        if (lagBarred)
+        {
+            bic[lagged] = double.PositiveInfinity;
+        }
+
+        for (int m = 1; m < Shapes; m++)
+        {
             if (bic[m] < bic[bestShape])
             {
                 bestShape = m;
@@ -259,31 +318,44 @@ internal static class AccelOnsetFit
             }
         }
 
-        double spreadSquared = moment / weightSum;
+        // A lagged ramp barred by the gate above still says where the onset may be: the reported
+        // onset stays the gate's, but its σ is the root-mean-square distance from it under the
+        // mixture of all the shapes with the lag's evidence restored. For weights wₘ (the odds
+        // exp(−ΔBIC/2) normalised over the shapes) and onsets tₘ, the mixture's second moment
+        // about a reported t̂ is Σ wₘ·(tₘ − t̂)² (the variance about its own mean plus the squared
+        // bias of t̂; any probability text), so the lag adds w_lag·(t_lag − t̂)² at its own odds
+        // and takes its share of the normalisation from the others. Without it a low peak whose
+        // true lag falls short of strong evidence is read as a ramp 10–17 ms late with a σ of a
+        // few milliseconds (ACCURACY-NOTES).
+        double barredOdds = lagBarred ? Math.Exp(-0.5 * (laggedBic - bic[bestShape])) : 0;
+        barredOdds = barredOdds > 1e-4 ? barredOdds : 0;
+        moment += barredOdds * (fine[lagged].TimeS - mean) * (fine[lagged].TimeS - mean);
+
+        double spreadSquared = moment / (weightSum + barredOdds);
         double smoothOdds = 0;
         double allOdds = 0;
         for (int m = 0; m < Shapes; m++)
         {
             allOdds += odds[m];
-            smoothOdds += StartsSmooth((OnsetShape)m) ? odds[m] : 0;
+            smoothOdds += StartsSmooth((OnsetShape)m) && m != (int)OnsetShape.LaggedRamp ? odds[m] : 0;
         }
 
         // What lies below the noise cannot be seen: the longer the fitted onset stays under the
         // detection level, the more the unseen part of its shape matters.
         double hidden = 0.25 * Math.Max(0, tCross - mean);
         double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + spreadSquared + (hidden * hidden) + (period * period / 192));
-        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds);
+        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds, odds[lagged] / allOdds, lagS);
     }
 
     /// <summary>True for the shapes that start with zero value and zero slope (like τ²).</summary>
-    private static bool StartsSmooth(OnsetShape shape) => shape is OnsetShape.Quadratic or OnsetShape.SmoothTakeUp or OnsetShape.EvenTakeUp;
+    private static bool StartsSmooth(OnsetShape shape) => shape is OnsetShape.Quadratic or OnsetShape.SmoothTakeUp or OnsetShape.EvenTakeUp or OnsetShape.LaggedRamp;
 
     private readonly record struct Fine(double TimeS, double HalfWidthS, double Sse);
 
-    private static Fine FineFit(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise) =>
+    private static Fine FineFit(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise, LagBasis lags) =>
         shape == (int)OnsetShape.Jump
             ? JumpInGap(t, y, start, end, total, first, period, coarse, rise)
-            : Refine(t, y, start, end, total, first, period, coarse, shape, rise);
+            : Refine(t, y, start, end, total, first, period, coarse, shape, rise, lags);
 
     /// <summary>A jump's fit depends only on which samples lie after the onset, so its residual
     /// is flat across each gap between two samples: the onset lies anywhere in the best gap, evenly
@@ -296,7 +368,7 @@ internal static class AccelOnsetFit
         int kLast = Math.Min(end, IndexAtOrAfter(t, first + ((hi + 1) * period)) + 1);
         if (kLast < kFirst)
         {
-            return Refine(t, y, start, end, total, first, period, coarse, (int)OnsetShape.Jump, rise);
+            return Refine(t, y, start, end, total, first, period, coarse, (int)OnsetShape.Jump, rise, null);
         }
 
         int gaps = kLast - kFirst + 1;
@@ -306,7 +378,7 @@ internal static class AccelOnsetFit
         for (int g = 0; g < gaps; g++)
         {
             int k = kFirst + g;
-            Reductions(t, y, start, end, 0.5 * (t[k - 1] + t[k]), reduction);
+            Reductions(t, y, start, end, 0.5 * (t[k - 1] + t[k]), reduction, null);
             sse[g] = total - reduction[(int)OnsetShape.Jump];
             if (sse[g] < sse[best])
             {
@@ -351,7 +423,7 @@ internal static class AccelOnsetFit
     }
 
     /// <summary>Quarter-sample profile of one shape around its coarse minimum.</summary>
-    private static Fine Refine(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise)
+    private static Fine Refine(double[] t, Shifted y, int start, int end, double total, double first, double period, double[] coarse, int shape, double rise, LagBasis? lags)
     {
         (int lo, int hi) = Stretch(coarse, 2 * rise);
         lo = Math.Max(0, lo - 1);
@@ -363,8 +435,7 @@ internal static class AccelOnsetFit
         Span<double> reduction = stackalloc double[Shapes];
         for (int c = 0; c < candidates; c++)
         {
-            Reductions(t, y, start, end, fineFirst + (c * step), reduction);
-            sse[c] = total - reduction[shape];
+            sse[c] = ShapeSse(t, y, start, end, total, fineFirst + (c * step), shape, lags, reduction);
         }
 
         int best = ArgMin(sse);
@@ -397,13 +468,13 @@ internal static class AccelOnsetFit
         // The least residual near the grid's best (the profile is smooth there).
         double a0 = fineFirst + (Math.Max(best - 1, 0) * step);
         double b0 = fineFirst + (Math.Min(best + 1, candidates - 1) * step);
-        double least = Math.Min(sse[best], LeastSse(t, y, start, end, total, shape, a0, b0));
+        double least = Math.Min(sse[best], LeastSse(t, y, start, end, total, shape, a0, b0, lags));
         return new Fine(refined, 0.5 * (right - left + 1) * step, least);
     }
 
     /// <summary>The least residual of one shape with its onset in [a, b], by golden-section search
     /// (J. Kiefer, 1953, "Sequential minimax search for a maximum", Proc. AMS 4(3)).</summary>
-    private static double LeastSse(double[] t, Shifted y, int start, int end, double total, int shape, double a, double b)
+    private static double LeastSse(double[] t, Shifted y, int start, int end, double total, int shape, double a, double b, LagBasis? lags)
     {
         const double R = 0.6180339887498949;
         Span<double> reduction = stackalloc double[Shapes];
@@ -435,9 +506,21 @@ internal static class AccelOnsetFit
 
         double Sse(double t0, Span<double> r)
         {
-            Reductions(t, y, start, end, t0, r);
-            return total - r[shape];
+            return ShapeSse(t, y, start, end, total, t0, shape, lags, r);
         }
+    }
+
+    /// <summary>One shape's residual with the change at <paramref name="t0"/>; the lagged ramp's at
+    /// its refined lag, the others' from <see cref="Reductions"/> (without the lagged ramp).</summary>
+    private static double ShapeSse(double[] t, Shifted y, int start, int end, double total, double t0, int shape, LagBasis? lags, Span<double> reduction)
+    {
+        if (shape == (int)OnsetShape.LaggedRamp)
+        {
+            return total - lags!.Reduction(t, y, t0, refine: true, out _);
+        }
+
+        Reductions(t, y, start, end, t0, reduction, null);
+        return total - reduction[shape];
     }
 
     private static int LastRise(int from, int to, int limit, double threshold, Func<int, double> smoothed)
@@ -499,8 +582,9 @@ internal static class AccelOnsetFit
     }
 
     /// <summary>Sum-of-squares reductions of each shape with the change at <paramref name="t0"/>;
-    /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit.</summary>
-    private static void Reductions(double[] t, Shifted y, int start, int end, double t0, Span<double> reduction)
+    /// a fit that breaks its shape's sign (falling below zero in the window) counts as no fit. The
+    /// lagged ramp's (its best lag on the grid, <see cref="LagBasis"/>) only where <paramref name="lags"/> is given.</summary>
+    private static void Reductions(double[] t, Shifted y, int start, int end, double t0, Span<double> reduction, LagBasis? lags)
     {
         double s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, s5 = 0, s6 = 0, s8 = 0, y0 = 0, y1 = 0, y2 = 0, y3 = 0, y4 = 0;
         double tauEnd = 0;
@@ -577,6 +661,171 @@ internal static class AccelOnsetFit
             bool valid = c2 >= 0 && (2 * c2) + (4 * c4 * tauEnd * tauEnd) >= 0;
             reduction[(int)OnsetShape.EvenTakeUp] = valid ? (c2 * y2) + (c4 * y4) : reduction[(int)OnsetShape.Quadratic];
         }
+
+        if (lags is not null)
+        {
+            reduction[(int)OnsetShape.LaggedRamp] = lags.Reduction(t, y, t0, refine: false, out _);
+        }
+    }
+
+    /// <summary>The lagged ramp's basis over one window: e^(−(tᵢ − t_s)/λⱼ) for every sample and
+    /// grid lag, computed once, so that a candidate onset t₀ costs one exponential a lag
+    /// (e^(−τ/λ) = e^(−(tᵢ − t_s)/λ)·e^((t₀ − t_s)/λ)) rather than one a sample and lag.</summary>
+    private sealed class LagBasis
+    {
+        private readonly int start;
+        private readonly int end;
+        private readonly double origin;
+        private readonly double[][] decay;
+
+        public LagBasis(double[] t, int start, int end)
+        {
+            this.start = start;
+            this.end = end;
+            origin = t[start];
+            decay = new double[LagsS.Length][];
+            for (int j = 0; j < LagsS.Length; j++)
+            {
+                decay[j] = new double[end - start + 1];
+                for (int i = start; i <= end; i++)
+                {
+                    decay[j][i - start] = Math.Exp(-(t[i] - origin) / LagsS[j]);
+                }
+            }
+        }
+
+        /// <summary>The lagged ramp's reduction (Σy·g)²/Σg² at its best lag, g(τ) = τ − λ·(1 − e^(−τ/λ))
+        /// (≥ 0 and rising, so c ≥ 0 is its only condition): the best of <see cref="LagsS"/>; with
+        /// <paramref name="refine"/>, then at the vertex of the parabola in ln λ through the best
+        /// and its two neighbours, where that is better.</summary>
+        public double Reduction(double[] t, Shifted y, double t0, bool refine, out double lagS)
+        {
+            Span<double> r = stackalloc double[LagsS.Length];
+            int bestLag = -1;
+            for (int j = 0; j < LagsS.Length; j++)
+            {
+                double lag = LagsS[j];
+                double shift = Math.Exp((t0 - origin) / lag);
+                double[] d = decay[j];
+                double gg = 0;
+                double yg = 0;
+                for (int i = start; i <= end; i++)
+                {
+                    double tau = t[i] - t0;
+                    if (tau <= TieS)
+                    {
+                        continue;
+                    }
+
+                    double x = tau / lag;
+                    double g = x < 1e-3 ? lag * x * x * (0.5 - (x / 6) + (x * x / 24)) : tau - (lag * (1 - (d[i - start] * shift)));
+                    gg += g * g;
+                    yg += y[i] * g;
+                }
+
+                r[j] = yg > 0 && gg > 0 ? yg * yg / gg : 0;
+                if (r[j] > 0 && (bestLag < 0 || r[j] > r[bestLag]))
+                {
+                    bestLag = j;
+                }
+            }
+
+            if (bestLag < 0)
+            {
+                lagS = 0;
+                return 0;
+            }
+
+            lagS = LagsS[bestLag];
+            double best = r[bestLag];
+            if (!refine || bestLag == 0 || bestLag == LagsS.Length - 1)
+            {
+                return best;
+            }
+
+            double curvature = r[bestLag - 1] - (2 * best) + r[bestLag + 1];
+            if (!(curvature < 0))
+            {
+                return best;
+            }
+
+            double offset = Math.Clamp(0.5 * (r[bestLag - 1] - r[bestLag + 1]) / curvature, -0.5, 0.5);
+            double refinedLag = LagsS[bestLag] * Math.Pow(2, offset / 4);
+            double refined = ReductionAt(t, y, t0, refinedLag);
+            if (refined > best)
+            {
+                lagS = refinedLag;
+                return refined;
+            }
+
+            return best;
+        }
+
+        /// <summary>How far the smooth take-up's two terms τ² and τ³ fall short of the lagged ramp
+        /// c·g(τ) fitted at <paramref name="t0"/> and <paramref name="lag"/>, over the window's
+        /// samples after t₀, in noise variances: ‖(I − P)·c·g‖² / σ², P the least-squares
+        /// projection on the two (0 where there is nothing to project: the two coincide).</summary>
+        public double TakeUpShortfall(double[] t, Shifted y, double t0, double lag, double noiseVar)
+        {
+            double s4 = 0, s5 = 0, s6 = 0, g2 = 0, g3 = 0, gg = 0, yg = 0;
+            for (int i = start; i <= end; i++)
+            {
+                double tau = t[i] - t0;
+                if (tau <= TieS)
+                {
+                    continue;
+                }
+
+                double tau2 = tau * tau;
+                double g = LaggedRamp(tau, lag);
+                s4 += tau2 * tau2;
+                s5 += tau2 * tau2 * tau;
+                s6 += tau2 * tau2 * tau2;
+                g2 += g * tau2;
+                g3 += g * tau2 * tau;
+                gg += g * g;
+                yg += y[i] * g;
+            }
+
+            double det = (s4 * s6) - (s5 * s5);
+            if (!(det > 0) || !(gg > 0))
+            {
+                return 0;
+            }
+
+            double a = ((g2 * s6) - (g3 * s5)) / det;
+            double b = ((s4 * g3) - (s5 * g2)) / det;
+            double c = yg / gg;
+            return c * c * Math.Max(0, gg - ((a * g2) + (b * g3))) / noiseVar;
+        }
+
+        private double ReductionAt(double[] t, Shifted y, double t0, double lag)
+        {
+            double gg = 0;
+            double yg = 0;
+            for (int i = start; i <= end; i++)
+            {
+                double tau = t[i] - t0;
+                if (tau <= TieS)
+                {
+                    continue;
+                }
+
+                double g = LaggedRamp(tau, lag);
+                gg += g * g;
+                yg += y[i] * g;
+            }
+
+            return yg > 0 && gg > 0 ? yg * yg / gg : 0;
+        }
+    }
+
+    /// <summary>τ − λ·(1 − e^(−τ/λ)) = λ·(x − 1 + e^(−x)), x = τ/λ; its Maclaurin series
+    /// λ·x²·(1/2 − x/6 + x²/24) where the difference would lose its digits.</summary>
+    internal static double LaggedRamp(double tau, double lag)
+    {
+        double x = tau / lag;
+        return x < 1e-3 ? lag * x * x * (0.5 - (x / 6) + (x * x / 24)) : tau - (lag * (1 - Math.Exp(-x)));
     }
 
     /// <summary>Readings less a level, read as if they were an array.</summary>

@@ -18,6 +18,11 @@ internal enum KinematicTakeUp
     /// <summary>A raised cosine of length T up to a plateau A: a(τ) = A·(1 − cos(πτ/T))/2 for
     /// τ ≤ T, then A (a take-up whose jerk starts from zero, so it begins like τ²).</summary>
     RaisedCosine,
+
+    /// <summary>The ramp of <see cref="Ramp"/> seen through a first-order lag of a given time
+    /// constant λ (λ·a′ + a = A·min(τ/T, 1)): it begins like τ² and after a few λ moves as the ramp
+    /// started λ later, so the ramps put t₀ late by about λ on it.</summary>
+    LaggedRamp,
 }
 
 /// <summary>Back-extrapolates the first pulse observations to zero distance.</summary>
@@ -71,8 +76,9 @@ internal static class KinematicStartFit
     /// whose ramps are in the family, lost little (p50 31 → 37 ms, p95 105 → 106 ms).</summary>
     private const double RampLikelihoodTemper = 10;
 
-    /// <summary>Fits the start with the <paramref name="takeUp"/> family (the ramps by default).</summary>
-    public static KinematicStart? Fit(PulseChannel pulses, double mpp, double toothSigma, double jitterS, double earliestS, KinematicTakeUp takeUp = KinematicTakeUp.Ramp)
+    /// <summary>Fits the start with the <paramref name="takeUp"/> family (the ramps by default;
+    /// <paramref name="lagS"/> is the lag's time constant, s, for <see cref="KinematicTakeUp.LaggedRamp"/>).</summary>
+    public static KinematicStart? Fit(PulseChannel pulses, double mpp, double toothSigma, double jitterS, double earliestS, KinematicTakeUp takeUp = KinematicTakeUp.Ramp, double lagS = 0)
     {
         if (pulses.Length < 3 || mpp <= 0)
         {
@@ -93,9 +99,9 @@ internal static class KinematicStartFit
             count++;
         }
 
-        Data data = Prepare(pulses, count, mpp, toothSigma, jitterS, takeUp);
+        Data data = Prepare(pulses, count, mpp, toothSigma, jitterS, takeUp, lagS);
         var fits = new List<Profile>();
-        double longest = takeUp == KinematicTakeUp.RaisedCosine ? LongestRaisedCosineS : LongestRampS;
+        double longest = takeUp == KinematicTakeUp.Ramp ? LongestRampS : LongestRaisedCosineS;
         for (double ramp = 0; ramp <= longest + 1e-9; ramp += RampStepS)
         {
             if (ProfileFit(data, mpp, ramp, earliestS, firstS) is { } fit)
@@ -139,11 +145,11 @@ internal static class KinematicStartFit
         return new KinematicStart(mean, sigma, best.A, best.Ramp, phiMean, Math.Sqrt(phiVar + phiStatVar));
     }
 
-    private sealed record Data(double[] T, double[] Y, double[] W, KinematicTakeUp TakeUp);
+    private sealed record Data(double[] T, double[] Y, double[] W, KinematicTakeUp TakeUp, double LagS);
 
     private readonly record struct Profile(double Ramp, double T0, double Sigma, double Chi2, double A, double Phi, double PhiSigma);
 
-    private static Data Prepare(PulseChannel pulses, int count, double mpp, double toothSigma, double jitterS, KinematicTakeUp takeUp)
+    private static Data Prepare(PulseChannel pulses, int count, double mpp, double toothSigma, double jitterS, KinematicTakeUp takeUp, double lagS)
     {
         var t = new double[count];
         var y = new double[count];
@@ -164,7 +170,7 @@ internal static class KinematicStartFit
             w[i] = 1 / variance;
         }
 
-        return new Data(t, y, w, takeUp);
+        return new Data(t, y, w, takeUp, lagS);
     }
 
     /// <summary>Profile over t₀ for one ramp length.</summary>
@@ -242,8 +248,71 @@ internal static class KinematicStartFit
 
     /// <summary>Distance covered τ after the start under the family's take-up of length T to a
     /// unit plateau.</summary>
-    internal static double UnitDistance(double tau, double ramp, KinematicTakeUp takeUp) =>
-        takeUp == KinematicTakeUp.RaisedCosine ? RaisedCosineDistance(tau, ramp) : RampDistance(tau, ramp);
+    internal static double UnitDistance(double tau, double ramp, KinematicTakeUp takeUp, double lagS = 0) => takeUp switch
+    {
+        KinematicTakeUp.RaisedCosine => RaisedCosineDistance(tau, ramp),
+        KinematicTakeUp.LaggedRamp when lagS > 0 => LaggedRampDistance(tau, ramp, lagS),
+        _ => RampDistance(tau, ramp),
+    };
+
+    /// <summary>Distance covered τ after the start when a(τ) follows the unit ramp min(τ/T, 1)
+    /// through a first-order lag λ from rest (λ·a′ + a = min(τ/T, 1), a(0) = 0). On the ramp
+    /// a = (τ − λ·(1 − e^(−τ/λ)))/T (the lag's response to a ramp, any linear-systems text), twice
+    /// integrated from rest P(τ)/T with
+    /// <code>
+    /// P(u) = u³/6 − λu²/2 + λ²u − λ³·(1 − e^(−u/λ)) = λ³·(x³/6 − x²/2 + x − 1 + e^(−x)), x = u/λ
+    /// </code>
+    /// and, the ramp being a unit slope less the same slope from T on (superposition),
+    /// d(τ) = (P(τ) − P(τ − T))/T; for T = 0 (a step through the lag) its limit P′(τ). Near the
+    /// start P loses its digits to cancellation (it is λ³·x⁴/24 there): below x = 0.1 its Maclaurin
+    /// series is used instead.</summary>
+    private static double LaggedRampDistance(double tau, double ramp, double lag)
+    {
+        if (tau <= 0)
+        {
+            return 0;
+        }
+
+        if (ramp <= 0)
+        {
+            return LagStep(tau, lag);
+        }
+
+        return (LagRamp(tau, lag) - LagRamp(tau - ramp, lag)) / ramp;
+    }
+
+    /// <summary>P(u) of <see cref="LaggedRampDistance"/>: a unit-slope ramp's distance through the lag.</summary>
+    private static double LagRamp(double u, double lag)
+    {
+        if (u <= 0)
+        {
+            return 0;
+        }
+
+        double x = u / lag;
+        double cube = lag * lag * lag;
+        if (x < 0.1)
+        {
+            // e^(−x) − 1 + x − x²/2 + x³/6 = x⁴/24 − x⁵/120 + x⁶/720 − x⁷/5040 + …
+            return cube * x * x * x * x * ((1.0 / 24) - (x / 120) + (x * x / 720) - (x * x * x / 5040));
+        }
+
+        return cube * ((x * x * x / 6) - (x * x / 2) + x - 1 + Math.Exp(-x));
+    }
+
+    /// <summary>P′(u): a unit step's distance through the lag, λ²·(x²/2 − x + 1 − e^(−x)).</summary>
+    private static double LagStep(double u, double lag)
+    {
+        double x = u / lag;
+        double square = lag * lag;
+        if (x < 0.1)
+        {
+            // x²/2 − x + 1 − e^(−x) = x³/6 − x⁴/24 + x⁵/120 − x⁶/720 + …
+            return square * x * x * x * ((1.0 / 6) - (x / 24) + (x * x / 120) - (x * x * x / 720));
+        }
+
+        return square * ((x * x / 2) - x + 1 - Math.Exp(-x));
+    }
 
     /// <summary>Distance covered τ after the start under a(τ) = (1 − cos(πτ/T))/2 up to T, then 1:
     /// <code>
@@ -314,7 +383,7 @@ internal static class KinematicStartFit
             }
 
             double w = data.W[i];
-            double c = UnitDistance(tau, ramp, data.TakeUp);
+            double c = UnitDistance(tau, ramp, data.TakeUp, data.LagS);
             s00 += w;
             s01 += w * c;
             s11 += w * c * c;
@@ -339,7 +408,7 @@ internal static class KinematicStartFit
         chi2 = (phi - phiMean) * (phi - phiMean) / phiVar;
         for (int i = 0; i < t.Length; i++)
         {
-            double e = data.Y[i] - (phi + (a * UnitDistance(t[i] - t0, ramp, data.TakeUp)));
+            double e = data.Y[i] - (phi + (a * UnitDistance(t[i] - t0, ramp, data.TakeUp, data.LagS)));
             chi2 += data.W[i] * e * e;
         }
 

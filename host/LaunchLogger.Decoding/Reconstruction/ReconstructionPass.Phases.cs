@@ -41,7 +41,7 @@ internal sealed partial class ReconstructionPass
             }
         }
 
-        Estimate? fromPulses = PulsesStart(fromAccel is null ? 0 : onset!.Value.SmoothStartShare);
+        Estimate? fromPulses = PulsesStart(fromAccel is null ? null : onset);
         if (fromAccel is { } a && fromPulses is { } p)
         {
             double gap = a.Value - p.Value;
@@ -92,27 +92,50 @@ internal sealed partial class ReconstructionPass
     }
 
     /// <summary>First motion as the first pulses imply it (<see cref="KinematicStartFit"/>), with
-    /// the take-up the accelerometer saw: the pulses cannot tell a ramp from a smooth take-up, and a
-    /// ramp fitted to a smooth one puts t₀ late by 0.12 of its rise time and more (the fit's
-    /// remarks). With <paramref name="smoothShare"/> the accelerometer's odds that the rise starts
-    /// like τ², the two families' starts are mixed by those odds: mean Σ wᵢ·tᵢ, variance
-    /// Σ wᵢ·(σᵢ² + (tᵢ − mean)²) (a mixture's moments; Bayesian model averaging as in the onset
-    /// fit).</summary>
-    private Estimate? PulsesStart(double smoothShare)
+    /// the take-up the accelerometer saw: the pulses cannot tell a ramp from a smooth take-up or
+    /// from a ramp through a lag, and a ramp fitted to a smooth one puts t₀ late by 0.12 of its
+    /// rise time and more, to a lagged one by about the lag (the fit's remarks). With the
+    /// accelerometer's odds that the rise starts like τ² (<see cref="AccelOnset.SmoothStartShare"/>)
+    /// or is a lagged ramp (<see cref="AccelOnset.LaggedShare"/>, at its fitted lag), the
+    /// families' starts are mixed by those odds: mean Σ wᵢ·tᵢ, variance Σ wᵢ·(σᵢ² + (tᵢ − mean)²)
+    /// (a mixture's moments; Bayesian model averaging as in the onset fit).</summary>
+    private Estimate? PulsesStart(AccelOnset? seen)
     {
         if (kinematic is not { } ramp)
         {
             return null;
         }
 
-        var fromRamp = new Estimate(ramp.TimeS, ramp.SigmaS);
-        if (smoothShare < 1e-3 || KinematicStartFit.Fit(pulses!, mpp, options.ToothSpacingErrorFraction * mpp, options.EdgeJitterS, pulses!.MidS(0) - 3.0, KinematicTakeUp.RaisedCosine) is not { } smooth)
+        Span<double> share = [0, seen?.SmoothStartShare ?? 0, seen?.LaggedShare ?? 0];
+        Span<double> times = [ramp.TimeS, 0, 0];
+        Span<double> sigmas = [ramp.SigmaS, 0, 0];
+        KinematicTakeUp[] families = [KinematicTakeUp.Ramp, KinematicTakeUp.RaisedCosine, KinematicTakeUp.LaggedRamp];
+        for (int f = 1; f < families.Length; f++)
         {
-            return fromRamp;
+            if (share[f] < 1e-3 || KinematicStartFit.Fit(pulses!, mpp, options.ToothSpacingErrorFraction * mpp, options.EdgeJitterS, pulses!.MidS(0) - 3.0, families[f], seen!.Value.LagS) is not { } fit)
+            {
+                share[f] = 0;
+                continue;
+            }
+
+            times[f] = fit.TimeS;
+            sigmas[f] = fit.SigmaS;
         }
 
-        double mean = ((1 - smoothShare) * ramp.TimeS) + (smoothShare * smooth.TimeS);
-        double variance = ((1 - smoothShare) * (Square(ramp.SigmaS) + Square(ramp.TimeS - mean))) + (smoothShare * (Square(smooth.SigmaS) + Square(smooth.TimeS - mean)));
+        share[0] = Math.Max(0, 1 - share[1] - share[2]);
+        double sum = share[0] + share[1] + share[2];
+        double mean = 0;
+        for (int f = 0; f < 3; f++)
+        {
+            mean += share[f] * times[f] / sum;
+        }
+
+        double variance = 0;
+        for (int f = 0; f < 3; f++)
+        {
+            variance += share[f] * (Square(sigmas[f]) + Square(times[f] - mean)) / sum;
+        }
+
         return new Estimate(mean, Math.Sqrt(variance));
     }
 
