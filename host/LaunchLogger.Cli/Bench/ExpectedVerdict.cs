@@ -23,13 +23,17 @@ public sealed record ExpectedVerdict(VerdictLevel Level, IReadOnlyList<string> C
     /// brackets, an accelerometer FIFO that may overflow during the stall).</summary>
     public IReadOnlyList<string> Allowed { get; init; } = [];
 
-    /// <summary>A clean run: nothing the data cannot support, so valid with no reason at all.</summary>
-    public bool IsClean => Level == VerdictLevel.Valid && Codes.Count == 0 && Allowed.Count == 0;
+    /// <summary>A clean run: nothing the data cannot support, so valid with no reason at all (an
+    /// injected fault's allowed codes aside), and not <see cref="EitherWay"/>.</summary>
+    public bool IsClean => Level == VerdictLevel.Valid && Codes.Count == 0 && !AtEdge;
 
-    /// <summary>A run the data cannot judge one way: valid is right, and so is a verdict carrying
-    /// only the allowed codes (e.g. a top speed within what the data resolves of 60 mph,
-    /// <see cref="TargetEdge"/>). Neither clean nor flawed: it is counted apart.</summary>
-    public bool EitherWay => Level == VerdictLevel.Valid && Codes.Count == 0 && Allowed.Count > 0;
+    /// <summary>A run whose top speed is within what the data resolves of 60 mph
+    /// (<see cref="TargetEdge"/>): valid is right, and so is doubtful with
+    /// <c>target_not_reached</c>. Neither clean nor flawed: it is counted apart. Only that edge makes
+    /// a run either-way; another allowed code (a stalled loop's) leaves a valid run clean.</summary>
+    public bool EitherWay => Level == VerdictLevel.Valid && Codes.Count == 0 && AtEdge;
+
+    private bool AtEdge => Allowed.Contains(TargetNotReachedCode);
 
     /// <summary>This expectation and one more reason the run deserves.</summary>
     public ExpectedVerdict And(VerdictLevel level, string code, string why) =>

@@ -23,6 +23,20 @@ public class TargetEdgeTests
     }
 
     [Fact]
+    public void Only_the_edge_makes_a_run_either_way_and_a_stall_allowance_leaves_it_clean()
+    {
+        ExpectedVerdict clean = ExpectedVerdict.Clean("standing start, sane sensors");
+        ExpectedVerdict stalled = clean.Allowing("the loop stalls 20 ms", "wide_brackets", "accel_overflow");
+        ExpectedVerdict edge = clean.AtTargetEdge(TargetEdge.TargetMps + 0.1, 0.2);
+
+        Assert.True(stalled.IsClean);
+        Assert.False(stalled.EitherWay);
+        Assert.False(edge.IsClean);
+        Assert.True(edge.EitherWay);
+        Assert.Contains(ExpectedVerdict.TargetNotReachedCode, edge.Allowed);
+    }
+
+    [Fact]
     public void The_band_lies_above_the_target_only_and_is_four_sigma_wide()
     {
         double target = TargetEdge.TargetMps;
