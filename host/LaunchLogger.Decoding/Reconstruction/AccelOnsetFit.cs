@@ -717,8 +717,7 @@ internal static class AccelOnsetFit
                         continue;
                     }
 
-                    double x = tau / lag;
-                    double g = x < 1e-3 ? lag * x * x * (0.5 - (x / 6) + (x * x / 24)) : tau - (lag * (1 - (d[i - start] * shift)));
+                    double g = LaggedRamp(tau, lag, d[i - start] * shift);
                     gg += g * g;
                     yg += y[i] * g;
                 }
@@ -822,10 +821,14 @@ internal static class AccelOnsetFit
 
     /// <summary>τ − λ·(1 − e^(−τ/λ)) = λ·(x − 1 + e^(−x)), x = τ/λ; its Maclaurin series
     /// λ·x²·(1/2 − x/6 + x²/24) where the difference would lose its digits.</summary>
-    internal static double LaggedRamp(double tau, double lag)
+    internal static double LaggedRamp(double tau, double lag) => LaggedRamp(tau, lag, Math.Exp(-tau / lag));
+
+    /// <summary><see cref="LaggedRamp(double, double)"/> with e^(−τ/λ) given
+    /// (<paramref name="decay"/>; <see cref="LagBasis"/> has it from its table).</summary>
+    private static double LaggedRamp(double tau, double lag, double decay)
     {
         double x = tau / lag;
-        return x < 1e-3 ? lag * x * x * (0.5 - (x / 6) + (x * x / 24)) : tau - (lag * (1 - Math.Exp(-x)));
+        return x < 1e-3 ? lag * x * x * (0.5 - (x / 6) + (x * x / 24)) : tau - (lag * (1 - decay));
     }
 
     /// <summary>Readings less a level, read as if they were an array.</summary>
