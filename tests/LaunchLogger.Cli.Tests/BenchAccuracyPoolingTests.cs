@@ -58,6 +58,7 @@ public class BenchAccuracyPoolingTests
             Assert.Equal(NearestRank(abs, 0.95), f.GetProperty("p95").GetDouble(), 9);
             Assert.Equal(NearestRank(abs, 0.5), f.GetProperty("p50").GetDouble(), 9);
             Assert.Equal(abs.Max(), f.GetProperty("max").GetDouble(), 9);
+            AssertP95Interval(abs, f.GetProperty("p95_interval"));
 
             JsonElement two = f.GetProperty("within_2_sigma");
             int covered = mine.Count(r => r.Sigma is { } s && Math.Abs(r.Error) <= 2 * s);
@@ -83,11 +84,51 @@ public class BenchAccuracyPoolingTests
             double Judged(IEnumerable<Row> of) => NearestRank(of.Where(r => r.Figure == figure.Name).Select(r => Math.Abs(r.Error) * figure.Scale), 0.95);
             Assert.Equal(Judged(rows), goal.GetProperty("p95").GetDouble(), 9);
             Assert.Equal(Judged(rows) <= goal.GetProperty("limit").GetDouble(), goal.GetProperty("met").GetBoolean());
+            double[] pooled = rows.Where(r => r.Figure == figure.Name).Select(r => Math.Abs(r.Error) * figure.Scale).ToArray();
+            JsonElement interval = goal.GetProperty("p95_interval");
+            AssertP95Interval(pooled, interval);
+            double limit = goal.GetProperty("limit").GetDouble();
+            string side = interval.GetProperty("high").ValueKind != JsonValueKind.Null && interval.GetProperty("high").GetDouble() <= limit ? "wholly within"
+                : interval.GetProperty("low").ValueKind != JsonValueKind.Null && interval.GetProperty("low").GetDouble() > limit ? "wholly outside" : "goal inside";
+            Assert.Equal(side, goal.GetProperty("interval_against_goal").GetString());
+            Assert.StartsWith(goal.GetProperty("met").GetBoolean() ? "met" : "NOT met", goal.GetProperty("verdict").GetString(), StringComparison.Ordinal);
             foreach (JsonElement own in goal.GetProperty("per_seed").EnumerateArray())
             {
                 int seed = own.GetProperty("seed").GetInt32();
                 Assert.Equal(Judged(rows.Where(r => r.Seed == seed)), own.GetProperty("p95").GetDouble(), 9);
             }
+        }
+    }
+
+    /// <summary>The p95's distribution-free interval from the runs' own |errors|: the order
+    /// statistics at the ranks a scan of MathNet.Numerics' binomial CDF (a reference library)
+    /// gives (Conover, "Practical Nonparametric Statistics", §3.2, from memory); null where the
+    /// runs are too few for a bound.</summary>
+    private static void AssertP95Interval(double[] errors, JsonElement interval)
+    {
+        double[] sorted = errors.Order().ToArray();
+        int n = sorted.Length;
+        double Cdf(int k) => k >= n ? 1 : MathNet.Numerics.Distributions.Binomial.CDF(0.95, n, k);
+        int lower = Enumerable.Range(1, n).Where(r => Cdf(r - 1) <= 0.025).DefaultIfEmpty(0).Max();
+        int upper = Enumerable.Range(1, n).Where(s => Cdf(s - 1) >= 0.975).DefaultIfEmpty(n + 1).Min();
+        Assert.Equal(lower, interval.GetProperty("low_rank").GetInt32());
+        Assert.Equal(upper, interval.GetProperty("high_rank").GetInt32());
+        if (lower == 0)
+        {
+            Assert.Equal(JsonValueKind.Null, interval.GetProperty("low").ValueKind);
+        }
+        else
+        {
+            Assert.Equal(sorted[lower - 1], interval.GetProperty("low").GetDouble(), 9);
+        }
+
+        if (upper > n)
+        {
+            Assert.Equal(JsonValueKind.Null, interval.GetProperty("high").ValueKind);
+        }
+        else
+        {
+            Assert.Equal(sorted[upper - 1], interval.GetProperty("high").GetDouble(), 9);
         }
     }
 
@@ -105,7 +146,8 @@ public class BenchAccuracyPoolingTests
         Assert.Contains("at each of the 2 seeds 3-4, pooled", text);
         Assert.Contains("goals, judged on the 2 seeds' runs pooled:", text);
         Assert.Contains("±2σ 95 % interval  ±3σ 95 % interval", text);
-        Assert.Matches(@"rollout mark p95 ≤ 2 ms: [\d.]+ ms over \d+ runs — (met|NOT met).*; per seed [\d.]+✗? \(\d+\) / [\d.]+✗? \(\d+\)", text);
+        Assert.Matches(@"rollout mark p95 ≤ 2 ms: [\d.]+ ms over \d+ runs, 95 % interval [\d.]+–(∞|[\d.]+) ms \(ranks? .*\) — (met|NOT met)[,;] (interval wholly within|interval wholly outside|the goal lies inside the interval).*; per seed [\d.]+✗? \(\d+\) / [\d.]+✗? \(\d+\)", text);
+        Assert.Contains("| ours p95's 95 % interval", text);
         Assert.Contains("\n  3:", text);
         Assert.Contains("\n  4:", text);
         Assert.Contains("seed 3 (1 of 2", progress.ToString());
@@ -124,6 +166,9 @@ public class BenchAccuracyPoolingTests
         Assert.DoesNotContain("pooled", output.ToString());
         Assert.DoesNotContain("per seed", output.ToString());
         Assert.DoesNotContain("±3σ 95 % interval", output.ToString());
+        Assert.DoesNotContain("p95's 95 % interval", output.ToString());
+        Assert.DoesNotContain("interval wholly", output.ToString());
+        Assert.DoesNotContain("the goal lies inside", output.ToString());
     }
 
     [Theory]

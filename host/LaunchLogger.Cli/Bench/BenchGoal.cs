@@ -30,9 +30,30 @@ public sealed record BenchGoal(int Figure, double Limit, string Text)
     /// figure's unit, and how many runs have it (NaN and 0 when none).</summary>
     public (double P95, int Runs) P95Of(IEnumerable<CaseOutcome> runs)
     {
-        ArgumentNullException.ThrowIfNull(runs);
-        double[] sorted = Percentiles.AbsSorted(runs.Select(o => o.Ours[Figure]), BenchFigure.All[Figure].Scale);
+        double[] sorted = ErrorsOf(runs);
         return (Percentiles.Of(sorted, 0.95), sorted.Length);
+    }
+
+    /// <summary>The figure's |error| over <paramref name="runs"/>, in its unit, ascending.</summary>
+    public double[] ErrorsOf(IEnumerable<CaseOutcome> runs)
+    {
+        ArgumentNullException.ThrowIfNull(runs);
+        return Percentiles.AbsSorted(runs.Select(o => o.Ours[Figure]), BenchFigure.All[Figure].Scale);
+    }
+
+    /// <summary>The p95's verdict against the limit (met / NOT met, as the single-seed bench says
+    /// it) and where the p95's distribution-free interval (<paramref name="interval"/>,
+    /// <see cref="QuantileInterval"/>) lies against the limit.</summary>
+    public string Verdict(double p95, QuantileInterval.Bracket interval)
+    {
+        ArgumentNullException.ThrowIfNull(interval);
+        return (p95 <= Limit, interval.Against(Limit)) switch
+        {
+            (true, QuantileInterval.GoalSide.WhollyWithin) => "met, interval wholly within",
+            (true, _) => "met; the goal lies inside the interval",
+            (false, QuantileInterval.GoalSide.WhollyOutside) => "NOT met, interval wholly outside",
+            (false, _) => "NOT met; the goal lies inside the interval",
+        };
     }
 
     /// <summary>True when <paramref name="group"/> has the accuracy goals for an undriven

@@ -23,7 +23,7 @@ public static class BenchAccuracyCommand
         var pickupWheelTold = new Option<bool>("--pickup-wheel-told") { Description = "Tell the decoder which wheel carries each simulated run's pickup (the settings' pickup_wheel: driven or undriven), as a user who knows the car would; by default not said. Only runs with pulses alone change." };
 
         // Pooling seeds: a block of its own.
-        var seeds = new Option<string?>("--seeds") { Description = "Run the bench at each of these seeds (1-4, or 1,3,7) and judge every group's figures, coverage and goals over all their runs pooled, each goal with every seed's own p95 beside it: for the small groups, whose p95 at one seed is one run. Not with --seed." };
+        var seeds = new Option<string?>("--seeds") { Description = "Run the bench at each of these seeds (1-4, or 1,3,7) and judge every group's figures, coverage and goals over all their runs pooled, each pooled p95 with its distribution-free 95 % interval and each goal with every seed's own p95 beside it: for the small groups, whose p95 at one seed is one run. Not with --seed." };
         var command = new Command("accuracy", "Errors of our estimator and of the naive method against simulated and generated truth.") { runs, seed, list, calibrated, calibratedAccel, only, errorsCsv, json, seeds, pickupWheelTold };
         command.SetAction((parse, cancel) =>
         {
@@ -116,7 +116,7 @@ public static class BenchAccuracyCommand
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up, every other one again with a lagged take-up), {drawnAt}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (seeds is not null)
         {
-            output.WriteLine(Text($"pooled: every group's table, coverage and goals are over the runs of all {seeds.Count} seeds together (each seed draws its own cars, sensors and noise); each coverage has its exact 95 % interval, each goal is judged on the pooled p95, with every seed's own p95 after it (✗ where that seed alone misses the goal)"));
+            output.WriteLine(Text($"pooled: every group's table, coverage and goals are over the runs of all {seeds.Count} seeds together (each seed draws its own cars, sensors and noise); each coverage has its exact 95 % interval, each goal is judged on the pooled p95 with its distribution-free 95 % interval (order statistics bracketed by binomial ranks, Conover §3.2) and whether that interval lies wholly within the goal, wholly outside it or around it, with every seed's own p95 after it (✗ where that seed alone misses the goal)"));
         }
 
         if (groups is { Count: > 0 })
@@ -250,7 +250,7 @@ public static class BenchAccuracyCommand
             return;
         }
 
-        output.WriteLine("  figure                           unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n" + (seeds is null ? "" : " | ±2σ 95 % interval  ±3σ 95 % interval"));
+        output.WriteLine("  figure                           unit |  ours p50     p95     max |  naive p50     p95     max | naive/ours p95 | ±2σ cover  ±3σ cover |   n" + (seeds is null ? "" : " | ±2σ 95 % interval  ±3σ 95 % interval | ours p95's 95 % interval"));
         var coverageShort = new List<string>();
         for (int m = 0; m < BenchFigure.All.Count; m++)
         {
@@ -268,7 +268,7 @@ public static class BenchAccuracyCommand
             double cover3 = Coverage(runs, m, 3);
             NoteCoverageShort(coverageShort, figure.Name, runs, m);
 
-            string intervals = seeds is null ? "" : " | " + CoverageIntervalCell(runs, m, 2) + "  " + CoverageIntervalCell(runs, m, 3);
+            string intervals = seeds is null ? "" : " | " + CoverageIntervalCell(runs, m, 2) + "  " + CoverageIntervalCell(runs, m, 3) + " | " + P95IntervalCell(ours);
             output.WriteLine(Text($"  {figure.Name,-32} {figure.Unit,4} | {Percentiles.Of(ours, 0.5),8:0.000} {oursP95,7:0.000} {Percentiles.Max(ours),7:0.000} | {Percentiles.Of(naive, 0.5),9:0.000} {naiveP95,7:0.000} {Percentiles.Max(naive),7:0.000} | {(oursP95 > 0 ? naiveP95 / oursP95 : double.NaN),14:0.0} | {cover2,7:0.0} %  {cover3,7:0.0} % | {ours.Length,3}{intervals}"));
         }
 
@@ -308,6 +308,16 @@ public static class BenchAccuracyCommand
         return Text($"{100 * low,9:0.0}–{100 * high,5:0.0} %");
     }
 
+    /// <summary>The distribution-free 95 % interval (<see cref="QuantileInterval"/>) of a figure's
+    /// pooled |error| p95, as a table cell: ∞ where the runs are too few to bound it from above.</summary>
+    private static string P95IntervalCell(double[] sorted)
+    {
+        QuantileInterval.Bracket b = QuantileInterval.Of(sorted, 0.95);
+        string lower = double.IsNegativeInfinity(b.Lower) ? "0" : Text($"{b.Lower:0.000}");
+        string upper = double.IsPositiveInfinity(b.Upper) ? "∞" : Text($"{b.Upper:0.000}");
+        return Text($"{lower,9}–{upper,-8}");
+    }
+
     /// <summary>A verdict must be right both ways: every clean run valid, no flawed run valid.</summary>
     private static void VerdictGoals(VerdictTally t, TextWriter output)
     {
@@ -334,8 +344,19 @@ public static class BenchAccuracyCommand
     private static void Goal(List<CaseOutcome> runs, BenchGoal goal, TextWriter output, IReadOnlyList<int>? seeds)
     {
         BenchFigure figure = BenchFigure.All[goal.Figure];
-        (double p95, int n) = goal.P95Of(runs);
+        double[] errors = goal.ErrorsOf(runs);
+        (double p95, int n) = (Percentiles.Of(errors, 0.95), errors.Length);
         string verdict = n == 0 ? "no runs" : p95 <= goal.Limit ? "met" : "NOT met";
+
+        // Pooled, the p95 has its distribution-free interval beside it, and the verdict says
+        // whether the whole interval lies on the verdict's side of the goal.
+        string interval = "";
+        if (seeds is not null && n > 0)
+        {
+            QuantileInterval.Bracket bracket = QuantileInterval.Of(errors, 0.95);
+            interval = ", " + IntervalText(bracket, figure.Unit);
+            verdict = goal.Verdict(p95, bracket);
+        }
 
         // Nearest rank: under 20 runs the p95 is the largest, which lies beyond the true p95 with
         // probability 1 − 0.95ⁿ (54 % at 15 runs; order statistics, distribution-free).
@@ -345,7 +366,19 @@ public static class BenchAccuracyCommand
             (_, 0) => "–",
             var (own, ownRuns) => Text($"{own:0.000}{(own > goal.Limit ? "✗" : "")} ({ownRuns})"),
         }));
-        output.WriteLine(Text($"    {goal.Text}: {p95:0.000} {figure.Unit} over {n} runs — {verdict}{largest}{perSeed}"));
+        output.WriteLine(Text($"    {goal.Text}: {p95:0.000} {figure.Unit} over {n} runs{interval} — {verdict}{largest}{perSeed}"));
+    }
+
+    /// <summary>A p95's interval (<see cref="QuantileInterval"/>) as the pooled bench prints it:
+    /// its bounds, their ranks among the n runs and the interval's own coverage; a bound the runs
+    /// cannot give (too few of them) is said so.</summary>
+    private static string IntervalText(QuantileInterval.Bracket b, string unit)
+    {
+        string lower = double.IsNegativeInfinity(b.Lower) ? "0" : Text($"{b.Lower:0.000}");
+        string lowerRank = b.LowerRank == 0 ? "none" : Text($"{b.LowerRank}");
+        return double.IsPositiveInfinity(b.Upper)
+            ? Text($"95 % interval {lower}–∞ {unit} (rank {lowerRank} up; {b.UpperRank - 1} runs bound no p95 from above, {QuantileInterval.RunsForUpperBound(0.95)} would; coverage {100 * b.Coverage:0.0} %)")
+            : Text($"95 % interval {lower}–{b.Upper:0.000} {unit} (ranks {lowerRank}–{b.UpperRank}, coverage {100 * b.Coverage:0.0} %)");
     }
 
     /// <summary>The accelerometer's own distance at the first foot (what the launch-slip allowance
@@ -558,13 +591,15 @@ public static class BenchAccuracyCommand
                 double[] ours = Percentiles.AbsSorted(runs.Select(o => o.Ours[m]), figure.Scale);
                 if (ours.Length > 0)
                 {
-                    figures.Add(new { figure = figure.Name, unit = figure.Unit, n = ours.Length, p50 = Percentiles.Of(ours, 0.5), p95 = Percentiles.Of(ours, 0.95), max = Percentiles.Max(ours), within_2_sigma = CoverageJson(runs, m, 2), within_3_sigma = CoverageJson(runs, m, 3) });
+                    figures.Add(new { figure = figure.Name, unit = figure.Unit, n = ours.Length, p50 = Percentiles.Of(ours, 0.5), p95 = Percentiles.Of(ours, 0.95), p95_interval = P95IntervalJson(QuantileInterval.Of(ours, 0.95)), max = Percentiles.Max(ours), within_2_sigma = CoverageJson(runs, m, 2), within_3_sigma = CoverageJson(runs, m, 3) });
                 }
             }
 
             var goals = BenchGoal.Of(g, calibratedTyre).Select(goal =>
             {
-                (double pooled, int pooledRuns) = goal.P95Of(runs);
+                double[] errors = goal.ErrorsOf(runs);
+                (double pooled, int pooledRuns) = (Percentiles.Of(errors, 0.95), errors.Length);
+                QuantileInterval.Bracket? bracket = pooledRuns > 0 ? QuantileInterval.Of(errors, 0.95) : null;
                 return new
                 {
                     goal = goal.Text,
@@ -573,6 +608,15 @@ public static class BenchAccuracyCommand
                     runs = pooledRuns,
                     p95 = pooledRuns > 0 ? pooled : (double?)null,
                     met = pooledRuns > 0 ? pooled <= goal.Limit : (bool?)null,
+                    p95_interval = bracket is null ? null : P95IntervalJson(bracket),
+                    verdict = bracket is null ? null : goal.Verdict(pooled, bracket),
+                    interval_against_goal = bracket?.Against(goal.Limit) switch
+                    {
+                        QuantileInterval.GoalSide.WhollyWithin => "wholly within",
+                        QuantileInterval.GoalSide.WhollyOutside => "wholly outside",
+                        QuantileInterval.GoalSide.GoalInside => "goal inside",
+                        _ => null,
+                    },
                     per_seed = seeds.Select(s =>
                     {
                         (double own, int ownRuns) = goal.P95Of(runs.Where(o => o.Seed == s));
@@ -594,6 +638,18 @@ public static class BenchAccuracyCommand
         };
         output.WriteLine(System.Text.Json.JsonSerializer.Serialize(document, JsonOptions));
     }
+
+    /// <summary>A p95's interval (<see cref="QuantileInterval"/>) as the pooled JSON writes it:
+    /// a bound the runs cannot give is null (its rank 0 or n + 1).</summary>
+    private static object P95IntervalJson(QuantileInterval.Bracket b) => new
+    {
+        low = double.IsNegativeInfinity(b.Lower) ? (double?)null : b.Lower,
+        high = double.IsPositiveInfinity(b.Upper) ? (double?)null : b.Upper,
+        low_rank = b.LowerRank,
+        high_rank = b.UpperRank,
+        coverage = b.Coverage,
+        confidence = QuantileInterval.Confidence,
+    };
 
     /// <summary>The run's verdict with its reason codes, and "(expected …)" when it deserved another.</summary>
     private static string VerdictCell(CaseOutcome o)
