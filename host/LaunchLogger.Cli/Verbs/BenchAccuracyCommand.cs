@@ -313,10 +313,13 @@ public static class BenchAccuracyCommand
     private static string P95IntervalCell(double[] sorted)
     {
         QuantileInterval.Bracket b = QuantileInterval.Of(sorted, 0.95);
-        string lower = double.IsNegativeInfinity(b.Lower) ? "0" : Text($"{b.Lower:0.000}");
-        string upper = double.IsPositiveInfinity(b.Upper) ? "∞" : Text($"{b.Upper:0.000}");
-        return Text($"{lower,9}–{upper,-8}");
+        return Text($"{BoundText(b.Lower),9}–{BoundText(b.Upper),-8}");
     }
+
+    /// <summary>A bound of an |error| p95's interval: 0 for none below (an |error| is never
+    /// less), ∞ for none above.</summary>
+    private static string BoundText(double bound) =>
+        double.IsNegativeInfinity(bound) ? "0" : double.IsPositiveInfinity(bound) ? "∞" : Text($"{bound:0.000}");
 
     /// <summary>A verdict must be right both ways: every clean run valid, no flawed run valid.</summary>
     private static void VerdictGoals(VerdictTally t, TextWriter output)
@@ -374,11 +377,11 @@ public static class BenchAccuracyCommand
     /// cannot give (too few of them) is said so.</summary>
     private static string IntervalText(QuantileInterval.Bracket b, string unit)
     {
-        string lower = double.IsNegativeInfinity(b.Lower) ? "0" : Text($"{b.Lower:0.000}");
         string lowerRank = b.LowerRank == 0 ? "none" : Text($"{b.LowerRank}");
-        return double.IsPositiveInfinity(b.Upper)
-            ? Text($"95 % interval {lower}–∞ {unit} (rank {lowerRank} up; {b.UpperRank - 1} runs bound no p95 from above, {QuantileInterval.RunsForUpperBound(0.95)} would; coverage {100 * b.Coverage:0.0} %)")
-            : Text($"95 % interval {lower}–{b.Upper:0.000} {unit} (ranks {lowerRank}–{b.UpperRank}, coverage {100 * b.Coverage:0.0} %)");
+        string ranks = double.IsPositiveInfinity(b.Upper)
+            ? Text($"rank {lowerRank} up; {b.UpperRank - 1} runs bound no p95 from above, {QuantileInterval.RunsForUpperBound(0.95)} would;")
+            : Text($"ranks {lowerRank}–{b.UpperRank},");
+        return Text($"95 % interval {BoundText(b.Lower)}–{BoundText(b.Upper)} {unit} ({ranks} coverage {100 * b.Coverage:0.0} %)");
     }
 
     /// <summary>The accelerometer's own distance at the first foot (what the launch-slip allowance
