@@ -13,7 +13,9 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// (<see cref="OnsetShape.LaggedRamp"/>), by the same odds, 0–1: it too starts like τ², but
 /// turns straight within a few lags, so the pulses read it as neither a ramp nor a smooth take-up.</param>
 /// <param name="LagS">That shape's fitted lag at its onset, s (0 where it had no fit).</param>
-internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare, double LaggedShare = 0, double LagS = 0);
+/// <param name="LagStatistic">The scanned lag's likelihood-ratio statistic against the plain ramp,
+/// 2·ln Λ = (RSS_ramp − RSS_lagged)/σ², each at its own best onset (and the lag at its best).</param>
+internal readonly record struct AccelOnset(double TimeS, double SigmaS, OnsetShape Shape, double DetectedS, double SmoothStartShare, double LaggedShare = 0, double LagS = 0, double LagStatistic = 0);
 
 /// <summary>Shapes of the acceleration just after first motion (τ = t − t₀ ≥ 0).</summary>
 internal enum OnsetShape
@@ -344,7 +346,8 @@ internal static class AccelOnsetFit
         // detection level, the more the unseen part of its shape matters.
         double hidden = 0.25 * Math.Max(0, tCross - mean);
         double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + spreadSquared + (hidden * hidden) + (period * period / 192));
-        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds, odds[lagged] / allOdds, lagS);
+        double lagStatistic = (fine[(int)OnsetShape.Ramp].Sse - fine[lagged].Sse) / noiseVar;
+        return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds, odds[lagged] / allOdds, lagS, lagStatistic);
     }
 
     /// <summary>True for the shapes that start with zero value and zero slope (like τ²).</summary>
