@@ -181,6 +181,7 @@ internal sealed partial class ReconstructionPass
         double growthDistance = 0;
         double pulsesOnlySlip = 0;
         double lawSlip = 0;
+        double toldSlip = 0;
         double carDistance = 0;
         double circumferenceSigma = pulses is null ? 0 : this.circumferenceSigma;
         double growthSigma = pulses is null ? 0 : this.growthSigma;
@@ -221,13 +222,14 @@ internal sealed partial class ReconstructionPass
                 // Where a launch slip is expected, the tyre works at its peak at the start and its
                 // linear slip law takes over as the launch slip fades (the launch's F is the
                 // whole slip there, not an addition to the law's): the law's expected slip is
-                // weighed by 1 − e^(−d/L). Its spread is kept from the start, as when not told:
+                // weighed by 1 − e^(−d/L), and it runs with the car's speed (the count's over the
+                // slip at the last step). Its spread is kept from the start, as when not told:
                 // where the law takes over is known only as well as L, which is ours.
                 double linear = launchMean > 0 ? 1 - Math.Exp(-carDistance / fade) : 1;
                 if (k > k0)
                 {
                     pulsesOnlySlip += speed[k] * drive * (grid[k] - grid[k - 1]);
-                    lawSlip += speed[k] * drive * linear * (grid[k] - grid[k - 1]);
+                    lawSlip += speed[k] / (1 + toldSlip) * drive * linear * (grid[k] - grid[k - 1]);
                 }
 
                 if (launchMean > 0 || driveMean > 0)
@@ -238,7 +240,8 @@ internal sealed partial class ReconstructionPass
                     distance[k] = d;
                     carDistance = d;
                     double launchShare = launchMean > 0 ? Math.Exp(-d / fade) : 0;
-                    speed[k] /= 1 + (launchMean * launchShare) + (driveMean * drive * (1 - launchShare));
+                    toldSlip = (launchMean * launchShare) + (driveMean * drive * (1 - launchShare));
+                    speed[k] /= 1 + toldSlip;
                 }
 
                 slipDistance = (driveSigma * pulsesOnlySlip) + (launchSigma * fade * (1 - Math.Exp(-d / fade)));
