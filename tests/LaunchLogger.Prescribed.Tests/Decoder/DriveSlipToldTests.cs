@@ -1,29 +1,24 @@
-using LaunchLogger.Decoding.Analysis;
-using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reconstruction;
-using LaunchLogger.Prescribed.Motion;
 using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Truth;
 
 namespace LaunchLogger.Prescribed.Tests.Decoder;
 
-/// <summary>Pulses only on a standing start, the pickup's wheel told driven: past the launch a
-/// driven tyre keeps slipping by its slip law, κ = k·a (<see cref="DriveSlip"/>, the generator's,
-/// so independent of the decoder), and the decoder takes k's expected value off the distance and
-/// speed (<see cref="ReconstructionOptions.DrivenSlip"/>, <see cref="ReconstructionOptions.AllWheelsDrivenSlip"/>).</summary>
-/// <remarks>The slip laws tried are those of real tyres, not the decoder's prior read back: k =
-/// share/(C·g0) with a car tyre's slip stiffness C of 15–30 per unit slip (H. B. Pacejka, "Tire and
-/// Vehicle Dynamics", ch. 1; from memory) and a driven pair's share of 1.4–2.3 (its axle's load
-/// while accelerating; T. D. Gillespie, "Fundamentals of Vehicle Dynamics", ch. 2; from memory),
-/// applied to the tyre's force (the car's acceleration, its drag and its rolling resistance):
-/// 0.0047 (C 30, share 1.4) to 0.0156 (C 15, share 2.3) s²/m; with all four wheels driven, share
-/// 0.8–1.2: 0.0027–0.0082 s²/m. Seeds 1–6 cover every ring of <see cref="Records.Standing"/>
-/// (8–100 teeth); the tyre is calibrated, so what is left is the slip's.</remarks>
-public class DriveSlipToldTests
+// Pulses only on a standing start, the pickup's wheel told driven: past the launch a
+// driven tyre keeps slipping by its slip law, κ = k·a (DriveSlip, the generator's,
+// so independent of the decoder), and the decoder takes k's expected value off the distance and
+// speed (ReconstructionOptions.DrivenSlip, ReconstructionOptions.AllWheelsDrivenSlip).
+// The slip laws tried are those of real tyres, not the decoder's prior read back: k =
+// share/(C·g0) with a car tyre's slip stiffness C of 15–30 per unit slip (H. B. Pacejka, "Tire and
+// Vehicle Dynamics", ch. 1; from memory) and a driven pair's share of 1.4–2.3 (its axle's load
+// while accelerating; T. D. Gillespie, "Fundamentals of Vehicle Dynamics", ch. 2; from memory),
+// applied to the tyre's force (the car's acceleration, its drag and its rolling resistance):
+// 0.0047 (C 30, share 1.4) to 0.0156 (C 15, share 2.3) s²/m; with all four wheels driven, share
+// 0.8–1.2: 0.0027–0.0082 s²/m. Seeds 1–6 cover every ring of Records.Standing
+// (8–100 teeth); the tyre is calibrated, so what is left is the slip's.
+public partial class PickupWheelToldTests
 {
-    private static readonly int[] Seeds = [1, 2, 3, 4, 5, 6];
-
     /// <summary>The slip follows the tyre's force, which also overcomes the air and the rolling
     /// resistance: ½·ρ·Cd·A / m for a 1,400 kg car with Cd·A 0.62 m² in air of 1.2 kg/m³, and a
     /// rolling coefficient of 0.010 (common practice; a car of our own, not the decoder's figures).</summary>
@@ -45,14 +40,7 @@ public class DriveSlipToldTests
         // inside ±3σ. A launch at a slip of 10 % (the peak of the force–slip curve) first.
         foreach (int seed in Seeds)
         {
-            PrescribedRecordSpec spec = WithSlip(PulsesOnly(seed), k, 0.10);
-            PrescribedRecord r = spec.Generate();
-            TruthRun t = Assert.Single(r.Truth);
-            FigureSet f = Analyse(r, PickupWheel.Driven).Figures;
-            foreach (FigureCheck c in FigureChecks.Standing(f, t).Where(c => c.Error is not null && c.Name != "first motion"))
-            {
-                Assert.True(Math.Abs(c.Error!.Value) <= sigmas * c.Sigma!.Value, $"{spec}, k {k}: {c.Name} error {c.Error:G4}, σ {c.Sigma:G4} (s, m/s) ({c.Error / c.Sigma:F2}σ)");
-            }
+            AssertStandingCovered(WithSlip(PulsesOnly(seed), Law(k), 0.10), PickupWheel.Driven, sigmas);
         }
     }
 
@@ -73,7 +61,7 @@ public class DriveSlipToldTests
         {
             PrescribedRecordSpec spec = PulsesOnly(seed);
             (double et0, double trap0, _, _) = QuarterMile(spec.Generate(), null);
-            PrescribedRecord r = WithSlip(spec, 0.0087, 0.10).Generate();
+            PrescribedRecord r = WithSlip(spec, Law(0.0087), 0.10).Generate();
             (double et, double trap, double sEt, double sTrap) = QuarterMile(r, PickupWheel.Driven);
             (double etNotSaid, _, _, _) = QuarterMile(r, null);
             saidEt.Add(et - et0);
@@ -104,34 +92,26 @@ public class DriveSlipToldTests
         {
             foreach (double launch in new[] { 0.0, 0.10 })
             {
-                PrescribedRecordSpec spec = WithSlip(PulsesOnly(seed), k, launch);
-                PrescribedRecord r = spec.Generate();
-                TruthRun t = Assert.Single(r.Truth);
-                FigureSet f = Analyse(r, PickupWheel.DrivenAllWheels).Figures;
-                foreach (FigureCheck c in FigureChecks.Standing(f, t).Where(c => c.Error is not null && c.Name != "first motion"))
-                {
-                    Assert.True(Math.Abs(c.Error!.Value) <= sigmas * c.Sigma!.Value, $"{spec}, k {k}, launch {launch:P0}: {c.Name} error {c.Error:G4}, σ {c.Sigma:G4} (s, m/s) ({c.Error / c.Sigma:F2}σ)");
-                }
+                AssertStandingCovered(WithSlip(PulsesOnly(seed), Law(k), launch), PickupWheel.DrivenAllWheels, sigmas);
             }
         }
     }
 
-    /// <summary>A generated standing start read by pulses alone (its take-up a 0.1 s ramp).</summary>
-    private static PrescribedRecordSpec PulsesOnly(int seed) => Records.Standing(seed, launchRiseS: 0.1) with { Accel = null };
+    /// <summary>The slip law k·(a + c_d·v² + c_r) of this class's car.</summary>
+    private static DriveSlip Law(double k) => new(PerMps2: k, DragPerSpeedSquared: DragPerSpeedSquared, RollingMps2: RollingMps2);
 
-    /// <summary><paramref name="spec"/> on a driven wheel slipping by k·a, and at the start by
-    /// <paramref name="launchSlip"/> in all (at the acceleration the car has 0.15 m from the start;
-    /// 0 for none beyond the law), fading over 0.5 m.</summary>
-    private static PrescribedRecordSpec WithSlip(PrescribedRecordSpec spec, double k, double launchSlip)
+    /// <summary>Every standing figure of <paramref name="spec"/> but first motion, decoded with
+    /// <paramref name="wheel"/> told, within <paramref name="sigmas"/> of its σ.</summary>
+    private static void AssertStandingCovered(PrescribedRecordSpec spec, PickupWheel wheel, double sigmas)
     {
-        MotionProfile profile = spec.Shape.Profile;
-        double accel = profile.StateAt(profile.TimeAtDistance(0.15)!.Value).AccelMps2;
-        var slip = new DriveSlip(PerMps2: k, LaunchPerMps2: Math.Max((launchSlip / accel) - k, 0), DragPerSpeedSquared: DragPerSpeedSquared, RollingMps2: RollingMps2);
-        return spec with { Pickup = spec.Pickup with { Slip = slip } };
+        PrescribedRecord r = spec.Generate();
+        TruthRun t = Assert.Single(r.Truth);
+        FigureSet f = Analyse(r, wheel).Figures;
+        foreach (FigureCheck c in FigureChecks.Standing(f, t).Where(c => c.Error is not null && c.Name != "first motion"))
+        {
+            Assert.True(Math.Abs(c.Error!.Value) <= sigmas * c.Sigma!.Value, $"{spec}, {spec.Pickup.Slip}: {c.Name} error {c.Error:G4}, σ {c.Sigma:G4} (s, m/s) ({c.Error / c.Sigma:F2}σ)");
+        }
     }
-
-    private static RunAnalysis Analyse(PrescribedRecord r, PickupWheel? wheel) =>
-        Assert.Single(DecoderHarness.AnalyzeText(r, wheel is null ? null : new AnalysisOptions { Calibration = new CalibrationSettings { PickupWheel = wheel } }).Runs);
 
     /// <summary>The quarter mile's ET after the rollout and trap speed: their errors and σ.</summary>
     private static (double Et, double Trap, double EtSigma, double TrapSigma) QuarterMile(PrescribedRecord r, PickupWheel? wheel)
