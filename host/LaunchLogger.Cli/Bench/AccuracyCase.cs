@@ -42,6 +42,12 @@ public sealed record AccuracyCase(int Index, int Seed, Scenario Scenario, string
     public bool DrivenPickup => Scenario.Vehicle.DrivenAxle == DrivenAxle.All
         || (Scenario.Vehicle.DrivenAxle == DrivenAxle.Front) == (Scenario.Pickup.Axle == Axle.Front);
 
+    /// <summary>The pickup's wheel as a user who knows the car would tell it (the settings'
+    /// <c>pickup_wheel</c>): undriven, driven, or driven with all four wheels.</summary>
+    public Decoding.Reconstruction.PickupWheel PickupWheelKnown => !DrivenPickup ? Decoding.Reconstruction.PickupWheel.Undriven
+        : Scenario.Vehicle.DrivenAxle == DrivenAxle.All ? Decoding.Reconstruction.PickupWheel.DrivenAllWheels
+        : Decoding.Reconstruction.PickupWheel.Driven;
+
     /// <summary>Builds the benchmark's cases from one seed: the acceleration scenarios in turn,
     /// with 12–100 teeth, exact edge timestamps or a counter polled every 0.1–10 ms (log-uniform,
     /// a third of the polled runs near 1 ms), accelerometer noise and mounting tilt, a pickup on

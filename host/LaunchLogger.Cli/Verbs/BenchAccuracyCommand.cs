@@ -20,7 +20,7 @@ public static class BenchAccuracyCommand
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
         var errorsCsv = new Option<FileInfo?>("--errors-csv") { Description = "Also write every run's error, σ and error/σ per figure to this CSV file (for pooling seeds)." };
         var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables; with --seeds, each group's pooled figures and goals too." };
-        var pickupWheelTold = new Option<bool>("--pickup-wheel-told") { Description = "Tell the decoder which wheel carries each simulated run's pickup (the settings' pickup_wheel: driven or undriven), as a user who knows the car would; by default not said. Only runs with pulses alone change." };
+        var pickupWheelTold = new Option<bool>("--pickup-wheel-told") { Description = "Tell the decoder which wheel carries each simulated run's pickup (the settings' pickup_wheel: driven, driven_all_wheels or undriven), as a user who knows the car would; by default not said. Only runs with pulses alone change." };
 
         // Pooling seeds: a block of its own.
         var seeds = new Option<string?>("--seeds") { Description = "Run the bench at each of these seeds (1-4, or 1,3,7) and judge every group's figures, coverage and goals over all their runs pooled, each pooled p95 with its distribution-free 95 % interval and each goal with every seed's own p95 beside it: for the small groups, whose p95 at one seed is one run. Not with --seed." };
@@ -167,7 +167,7 @@ public static class BenchAccuracyCommand
     {
         int simulatedRuns = runs / 2;
         IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => wanted(c.Group))
-            .Select(c => pickupWheelTold ? c with { PickupWheelTold = c.DrivenPickup ? Decoding.Reconstruction.PickupWheel.Driven : Decoding.Reconstruction.PickupWheel.Undriven } : c).ToList();
+            .Select(c => pickupWheelTold ? c with { PickupWheelTold = c.PickupWheelKnown } : c).ToList();
         IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, wanted(BenchGroup.GeneratedStandingSmooth), wanted(BenchGroup.GeneratedStandingLagged)).Where(c => wanted(c.Group)).ToList();
         List<CaseOutcome> outcomes = ParallelCases.Run(simulated, AccuracyBenchmark.Run, $"{label}: simulated runs decoded", error, cancel).SelectMany(o => o).ToList();
         outcomes.AddRange(ParallelCases.Run(generated, PrescribedBenchmark.Run, $"{label}: generated records decoded", error, cancel).SelectMany(o => o));

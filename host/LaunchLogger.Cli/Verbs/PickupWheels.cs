@@ -12,12 +12,16 @@ internal static class PickupWheels
     /// <summary>The pickup is on an undriven wheel.</summary>
     public const string Undriven = "undriven";
 
+    /// <summary>The pickup is on a wheel of a car whose four wheels are all driven.</summary>
+    public const string DrivenAllWheels = "driven_all_wheels";
+
     /// <summary>The wheel a word names; null for none.</summary>
     public static PickupWheel? Parse(string? word) => word switch
     {
         null => null,
         Driven => PickupWheel.Driven,
         Undriven => PickupWheel.Undriven,
+        DrivenAllWheels => PickupWheel.DrivenAllWheels,
         _ => throw new ArgumentOutOfRangeException(nameof(word), word, "not a pickup wheel"),
     };
 }

@@ -34,8 +34,8 @@ public static class ReportCommand
         var brakeReference = new Option<FileInfo?>("--brake-reference") { Description = "A log with a stop made at the grip limit, whose braking grip bounds every launch (without it, only stops among the runs reported that show the limit bound them: a sliding wheel or a deceleration plateau)." };
         var stopFrom = new Option<string[]>("--stop-from") { Description = "Extra nominal speed to correct stopping distances to, e.g. 50mph (repeatable; 60 mph and 100 km/h always)." };
         var settings = new Option<FileInfo?>("--settings") { Description = "Calibration settings file from launchlogger calibrate: its circumference replaces the logs' and its mounting pitch feeds the grade estimate." };
-        var pickupWheel = new Option<string?>("--pickup-wheel") { Description = "Which wheel carries the distance pickup: driven or undriven (the settings file's pickup_wheel; without either, not said). With pulses only, a driven wheel's launch slip is taken off the figures, an undriven one has none." };
-        pickupWheel.AcceptOnlyFromAmong(PickupWheels.Driven, PickupWheels.Undriven);
+        var pickupWheel = new Option<string?>("--pickup-wheel") { Description = "Which wheel carries the distance pickup: driven, driven_all_wheels (a car with all four wheels driven) or undriven (the settings file's pickup_wheel; without either, not said). With pulses only, a driven wheel's launch and drive slip are taken off the figures, an undriven one has none." };
+        pickupWheel.AcceptOnlyFromAmong(PickupWheels.Driven, PickupWheels.Undriven, PickupWheels.DrivenAllWheels);
         var plot = new Option<FileInfo?>("--plot") { Description = "Also draw each run's speed, distance and acceleration to this file (.svg or .png); with several runs, NAME-run1.svg, NAME-run2.svg…" };
         var command = new Command("report", "Rebuild each run and report its figures from standstill and after the rollout.")
         {

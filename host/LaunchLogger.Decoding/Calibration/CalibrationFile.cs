@@ -161,9 +161,9 @@ public static class CalibrationFile
             }
         }
 
-        if (settings.PickupWheel is { } wheel && wheel is not (Reconstruction.PickupWheel.Driven or Reconstruction.PickupWheel.Undriven))
+        if (settings.PickupWheel is { } wheel && wheel is not (Reconstruction.PickupWheel.Driven or Reconstruction.PickupWheel.Undriven or Reconstruction.PickupWheel.DrivenAllWheels))
         {
-            return "pickup_wheel must be driven or undriven (leave it out when not known)";
+            return "pickup_wheel must be driven, driven_all_wheels or undriven (leave it out when not known)";
         }
 
         return CheckToothSpacing(settings.ToothSpacing, settings.ToothSpacingSigma);

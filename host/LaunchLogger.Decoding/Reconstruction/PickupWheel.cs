@@ -10,10 +10,17 @@ public enum PickupWheel
     /// (<see cref="ReconstructionOptions.PulsesOnlyLaunchSlip"/>).</summary>
     NotSaid = 0,
 
-    /// <summary>A driven wheel: with pulses only, the estimate is moved back by the launch slip's
-    /// expected value and σ keeps its spread.</summary>
+    /// <summary>A driven wheel, one of the pair of the car's one driven axle: with pulses only,
+    /// the estimate is moved back by the launch slip's and the drive slip's expected values and σ
+    /// keeps their spread.</summary>
     Driven,
 
     /// <summary>An undriven wheel: no launch slip (it lags only by its spin-up, modelled apart).</summary>
     Undriven,
+
+    /// <summary>A wheel of a car whose four wheels are all driven: each tyre passes about a quarter
+    /// of the drive on a quarter of the load, half the force over load of a driven pair's, so its
+    /// drive slip is about half theirs and a launch need not take it to its grip peak
+    /// (<see cref="ReconstructionOptions.AllWheelsDrivenSlip"/>).</summary>
+    DrivenAllWheels,
 }

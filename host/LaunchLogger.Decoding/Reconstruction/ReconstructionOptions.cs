@@ -211,6 +211,30 @@ public sealed record ReconstructionOptions
     /// slip's size on a wheel told to be driven (5–15 % at ±2σ).</summary>
     public double DrivenLaunchSlipSigma { get; init; } = 0.025;
 
+    /// <summary>What is known of a driven pickup tyre's slip under drive past the launch, on a wheel
+    /// told to be one of the car's one driven pair with pulses only (<see cref="PickupWheel.Driven"/>):
+    /// the wheel turns faster than the road by slip = (its drive force ÷ its load) ÷ C, the linear
+    /// part of its force–slip curve (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1), the same law
+    /// and the same car tyres' C of 15–30 per unit slip as under braking
+    /// (<see cref="Braking.BrakeSlipPrior.CarTyres"/>; from memory). The share, the wheel's drive
+    /// force over its load as a multiple of the car's drive per unit mass over g0, is 1 / w for a
+    /// wheel of the driven pair whose axle carries the share w of the car's weight while it
+    /// accelerates, w = ψ − χ·a/g0 at the front and 1 − ψ + χ·a/g0 at the rear (static front weight
+    /// ψ, centre-of-mass height over wheelbase χ; T. D. Gillespie, "Fundamentals of Vehicle
+    /// Dynamics", ch. 2): for road cars (from memory: ψ 0.58–0.65 with the front axle driven,
+    /// 0.45–0.55 with the rear, χ 0.15–0.25, a 0.2–0.6 g) w is 0.43–0.70, a share of 1.4–2.3. The
+    /// slip per m/s² of drive, share/(C·g0), is then 0.0087 ± 0.0022 s²/m
+    /// (<see cref="Braking.BrakeSlipPrior.MeanWheelSlip"/>, <see cref="Braking.BrakeSlipPrior.WheelSlipSigma"/>
+    /// over g0): 1.3–3.1 % at 3 m/s².</summary>
+    public Braking.BrakeSlipPrior DrivenSlip { get; init; } = new(15, 30, 1.4, 2.3);
+
+    /// <summary>The same for a wheel of a car whose four wheels are all driven
+    /// (<see cref="PickupWheel.DrivenAllWheels"/>): the drive split between the axles near their
+    /// loads (a fixed split of 0.35–0.5 to the front against a front load of 0.42–0.55 while the
+    /// car accelerates; from memory), each wheel works at 0.8–1.2 of the car's drive over its
+    /// load: 0.0047 ± 0.0011 s²/m.</summary>
+    public Braking.BrakeSlipPrior AllWheelsDrivenSlip { get; init; } = new(15, 30, 0.8, 1.2);
+
     /// <summary>Share of a driven wheel's estimated slip correction taken as 1-σ model error: the
     /// slip law is linear, and real tyres slip more near their grip limit, as in a hard launch
     /// (sized on simulated launches so that the rollout mark stays within ±2 σ).</summary>

@@ -141,7 +141,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         {
             double tau = t - s.StartS;
             (double v, double accel) = s.SpeedAndAccelAt(tau);
-            double slip = (Slip?.At(s.StateAt(tau).DistanceM, accel) ?? 0) - (SpinUp?.At(accel) ?? 0) - (Brake?.At(accel) ?? 0) + (Spin?.At(t - motionS) ?? 0);
+            double slip = (Slip?.At(s.StateAt(tau).DistanceM, accel, v) ?? 0) - (SpinUp?.At(accel) ?? 0) - (Brake?.At(accel) ?? 0) + (Spin?.At(t - motionS) ?? 0);
             return v * (1 + slip) / Tyre.CircumferenceAt(v);
         }
 

@@ -56,7 +56,8 @@ public sealed class CalibrationFileTests : IDisposable
     [Theory]
     [InlineData("driven", Decoding.Reconstruction.PickupWheel.Driven)]
     [InlineData("undriven", Decoding.Reconstruction.PickupWheel.Undriven)]
-    public void ThePickupWheelIsOneOfTwoWords(string word, Decoding.Reconstruction.PickupWheel wheel)
+    [InlineData("driven_all_wheels", Decoding.Reconstruction.PickupWheel.DrivenAllWheels)]
+    public void ThePickupWheelIsOneOfThreeWords(string word, Decoding.Reconstruction.PickupWheel wheel)
     {
         string path = Path.Combine(folder, "wheel.json");
         File.WriteAllText(path, $"{{ \"pickup_wheel\": \"{word}\" }}");
@@ -92,7 +93,7 @@ public sealed class CalibrationFileTests : IDisposable
     [InlineData("switch delay's σ alone", "{ \"brake_switch_delay_sigma_s\": 0.001 }", "without brake_switch_delay_s")]
     [InlineData("pickup wheel not one of the two", "{ \"pickup_wheel\": \"rear\" }", "not a settings file")]
     [InlineData("pickup wheel as a number", "{ \"pickup_wheel\": 1 }", "not a settings file")]
-    [InlineData("pickup wheel written as not said", "{ \"pickup_wheel\": \"not_said\" }", "pickup_wheel must be driven or undriven")]
+    [InlineData("pickup wheel written as not said", "{ \"pickup_wheel\": \"not_said\" }", "pickup_wheel must be driven, driven_all_wheels or undriven")]
     [InlineData("switch delay's σ zero", "{ \"brake_switch_delay_s\": 0.01, \"brake_switch_delay_sigma_s\": 0 }", "brake_switch_delay_sigma_s")]
     public void UnusableFilesAreRefusedInOneLine(string name, string text, string expected)
     {

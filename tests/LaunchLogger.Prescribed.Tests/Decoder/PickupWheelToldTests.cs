@@ -16,7 +16,7 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 /// <remarks>The launch slips span the 5–15 % a driven tyre near the peak of its force–slip curve
 /// works at (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1; from memory). Seeds 1–6 cover
 /// every ring of <see cref="Records.Standing"/> (8–100 teeth).</remarks>
-public class PickupWheelToldTests
+public partial class PickupWheelToldTests
 {
     private static readonly int[] Seeds = [1, 2, 3, 4, 5, 6];
 
@@ -114,13 +114,20 @@ public class PickupWheelToldTests
     private static PrescribedRecordSpec PulsesOnly(int seed) => Records.Standing(seed, launchRiseS: 0.1) with { Accel = null };
 
     /// <summary><paramref name="spec"/> on a driven wheel that slips by <paramref name="launchSlip"/>
-    /// at the launch: DriveSlip's linear part (k 0.003 s²/m) and a launch part that makes up the rest
-    /// at the acceleration the car has 0.15 m from the start.</summary>
-    private static PrescribedRecordSpec WithLaunchSlip(PrescribedRecordSpec spec, double launchSlip)
+    /// at the launch: a driven pair's slip law at the centre of real tyres' range (k 0.0087 s²/m,
+    /// <see cref="Law"/>; the generator's default 0.003 is stiffer than a driven pair's tyres, whose
+    /// law a wheel told driven now takes off) and a launch part that makes up the rest at the
+    /// acceleration the car has 0.15 m from the start.</summary>
+    private static PrescribedRecordSpec WithLaunchSlip(PrescribedRecordSpec spec, double launchSlip) => WithSlip(spec, Law(0.0087), launchSlip);
+
+    /// <summary><paramref name="spec"/> on a driven wheel slipping by <paramref name="law"/>, its
+    /// launch part set so that the slip at the start is <paramref name="launchSlip"/> in all at the
+    /// acceleration the car has 0.15 m from the start (none beyond the law for 0).</summary>
+    private static PrescribedRecordSpec WithSlip(PrescribedRecordSpec spec, DriveSlip law, double launchSlip)
     {
         MotionProfile profile = spec.Shape.Profile;
         double accel = profile.StateAt(profile.TimeAtDistance(0.15)!.Value).AccelMps2;
-        var slip = new DriveSlip(LaunchPerMps2: (launchSlip / accel) - new DriveSlip().PerMps2);
+        DriveSlip slip = law with { LaunchPerMps2 = Math.Max((launchSlip / accel) - law.PerMps2, 0) };
         return spec with { Pickup = spec.Pickup with { Slip = slip } };
     }
 
