@@ -321,7 +321,7 @@ internal static class RollingScaleFit
     /// a Brownian bridge: ∫∫ (min(s,t) − s·t/Δ) ds dt over [0, Δ]² = Δ³/12; any text on
     /// stochastic processes, e.g. Karlin, Taylor (1981), ch. 15). That speed step enters every
     /// later speed with weight 1 and every later distance with the time since the gap.</remarks>
-    private static (double MidS, double Variance) Gap(double fromS, double toS, double originS, double jerkDensity)
+    internal static (double MidS, double Variance) Gap(double fromS, double toS, double originS, double jerkDensity)
     {
         double length = toS - fromS;
         return ((0.5 * (fromS + toS)) - originS, jerkDensity * length * length * length / 12);
