@@ -155,6 +155,12 @@ internal static class RollingScaleFit
             last = k + 1;
         }
 
+        if (!double.IsNaN(gapFrom) && gridS[last] > gapFrom)
+        {
+            // The integral ended inside a gap: what it bridged so far counts too.
+            gaps.Add(Gap(gapFrom, gridS[last], gridS[0], noise.GapJerkDensity));
+        }
+
         double windowEnd = Math.Min(Math.Min(gridS[last], endS), startS + noise.WindowS);
         var candidates = new List<int>();
         for (int i = 0; i < pulses.Length; i++)
