@@ -114,15 +114,37 @@ internal static class RollingScaleFit
 
         // Speed V, distance A and growth integral Γ of the input at the grid points, from rest
         // (or, moving, from the speed guessed at grid[0], for Γ) at grid[0].
+        // A gap in the samples (a polled loop stalled past the accelerometer's FIFO) is bridged by
+        // the input taken as linear across it, its error counted (Gaps); where the input ends
+        // for good, so does the integral.
         var speed = new double[n];
         var distance = new double[n];
         var growth = new double[n];
+        var gaps = new List<(double MidS, double Variance)>();
+        int lastInput = n - 2;
+        while (lastInput >= 0 && noInput != null && noInput[lastInput])
+        {
+            lastInput--;
+        }
+
         int last = 0;
+        double gapFrom = double.NaN;
         for (int k = 0; k + 1 < n; k++)
         {
-            if ((noInput != null && noInput[k]) || gridS[k + 1] > integrateTo || v0 + speed[k] > noise.TopSpeedMps)
+            if (k > lastInput || gridS[k + 1] > integrateTo || v0 + speed[k] > noise.TopSpeedMps)
             {
                 break;
+            }
+
+            bool gap = noInput != null && noInput[k];
+            if (gap && double.IsNaN(gapFrom))
+            {
+                gapFrom = gridS[k];
+            }
+            else if (!gap && !double.IsNaN(gapFrom))
+            {
+                gaps.Add(Gap(gapFrom, gridS[k], gridS[0], noise.GapJerkDensity));
+                gapFrom = double.NaN;
             }
 
             double dt = gridS[k + 1] - gridS[k];
@@ -131,6 +153,12 @@ internal static class RollingScaleFit
             double v = v0 + (0.5 * (speed[k] + speed[k + 1]));
             growth[k + 1] = growth[k] + (Square(v / GrowthReferenceMps) * v * dt);
             last = k + 1;
+        }
+
+        if (!double.IsNaN(gapFrom) && gridS[last] > gapFrom)
+        {
+            // The integral ended inside a gap: what it bridged so far counts too.
+            gaps.Add(Gap(gapFrom, gridS[last], gridS[0], noise.GapJerkDensity));
         }
 
         double windowEnd = Math.Min(Math.Min(gridS[last], endS), startS + noise.WindowS);
@@ -207,6 +235,7 @@ internal static class RollingScaleFit
             for (int b = 0; b <= a; b++)
             {
                 double e = ErrorCovariance(tau[a], isSpeed[a], tau[b], isSpeed[b], noise.InputDensity, noise.BiasWanderDensity)
+                    + GapCovariance(gaps, tau[a], isSpeed[a], tau[b], isSpeed[b])
                     + (isSpeed[a] && isSpeed[b] ? brakeStep : 0);
                 r[a, b] = e;
                 r[b, a] = e;
@@ -289,6 +318,37 @@ internal static class RollingScaleFit
             : (inputDensity * ((s * t) - (t * t / 2))) + (wanderDensity * ((t * t * t * t / 8) + (c * t * t * t / 3) + (c * c * t * t / 4)));
     }
 
+    /// <summary>A gap in the samples from <paramref name="fromS"/> to <paramref name="toS"/>: where
+    /// it lies (τ of its middle) and the variance of the speed the line across it misses.</summary>
+    /// <remarks>Over a gap of length Δ the input is taken as the line between the samples on
+    /// either side. With the acceleration a random walk of density j (white jerk,
+    /// <see cref="RollingScaleNoise.GapJerkDensity"/>), what it does between them is that line
+    /// plus a Brownian bridge, whose integral over the gap has variance j·Δ³/12 (the integral of
+    /// a Brownian bridge: ∫∫ (min(s,t) − s·t/Δ) ds dt over [0, Δ]² = Δ³/12; from memory, checked
+    /// by a Monte Carlo in <c>RollingScaleFitTests</c>). That speed step enters every
+    /// later speed with weight 1 and every later distance with the time since the gap.</remarks>
+    internal static (double MidS, double Variance) Gap(double fromS, double toS, double originS, double jerkDensity)
+    {
+        double length = toS - fromS;
+        return ((0.5 * (fromS + toS)) - originS, jerkDensity * length * length * length / 12);
+    }
+
+    /// <summary>Covariance the gaps add to two observations (a distance or a speed at τ): the
+    /// speed each gap missed, counted where the gap lies before both.</summary>
+    internal static double GapCovariance(List<(double MidS, double Variance)> gaps, double tauA, bool speedA, double tauB, bool speedB)
+    {
+        double sum = 0;
+        foreach ((double mid, double variance) in gaps)
+        {
+            if (mid < tauA && mid < tauB)
+            {
+                sum += variance * (speedA ? 1 : tauA - mid) * (speedB ? 1 : tauB - mid);
+            }
+        }
+
+        return sum;
+    }
+
     private static int GridIndex(double[] gridS, double t, int last)
     {
         int found = Array.BinarySearch(gridS, t);
@@ -318,6 +378,9 @@ internal readonly record struct RollingScaleNoise
 
     /// <summary>Prior σ of the growth at 30 m/s, a fraction.</summary>
     public required double GrowthSigma { get; init; }
+
+    /// <summary>Density of the jerk taken across a gap in the samples, m²/s⁵ (0: a gap costs nothing).</summary>
+    public double GapJerkDensity { get; init; }
 
     /// <summary>σ of the accelerometer's calibrated scale, a fraction.</summary>
     public required double AccelScaleSigma { get; init; }

@@ -68,6 +68,7 @@ internal static class RollingScaleMeasure
             CircumferenceSigma = options.CircumferenceSigmaFraction,
             Growth = options.TyreGrowthAt30Mps,
             GrowthSigma = options.TyreGrowthSigmaAt30Mps,
+            GapJerkDensity = options.JerkDensity,
             AccelScaleSigma = calibration.Sigma,
             ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
             EdgeJitterS = options.EdgeJitterS,

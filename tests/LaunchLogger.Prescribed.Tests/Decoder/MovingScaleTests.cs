@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding;
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Prescribed.Sensors;
 using LaunchLogger.Prescribed.Shapes;
 using LaunchLogger.Prescribed.Truth;
 
@@ -32,6 +33,25 @@ public class MovingScaleTests
         Check(seed, asLog, shape, random, passing: false);
     }
 
+    /// <summary>A stop from cruise logged by a loop polled every 0.3 ms that stalls 20 ms once a
+    /// second: a 1600-Hz accelerometer's buffer overflows in each stall and its samples have gaps.
+    /// The scale is still measured across them (before, the fit's integral stopped at the first
+    /// gap, nothing was measured, and the told circumference's 1–2 % stayed in the distance).</summary>
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void A_stop_logged_through_a_stalling_loop_measures_the_scale_across_the_accelerometers_gaps(int seed)
+    {
+        var random = new Random(seed * 43);
+        Shape shape = PrescribedShapes.CruiseThenStop((30 + (50 * random.NextDouble())) * TruthUnits.MpsPerMph, 0.05 + (1.95 * random.NextDouble()), 9.80665 * (0.5 + (0.5 * random.NextDouble())));
+        Check(seed, true, shape, random, passing: false, stalled: spec => spec with
+        {
+            Accel = spec.Accel! with { RateHz = 1600 },
+            Polled = new PolledCounter(3e-4, 0.1, 1, 0.02),
+        });
+    }
+
     [Fact]
     public void Without_an_accelerometer_calibration_a_rolling_start_measures_nothing()
     {
@@ -47,13 +67,19 @@ public class MovingScaleTests
     /// distance and, for a rolling start, the passing times within 3σ of the truth and at most
     /// half as far from it as with the circumference told (a static circumference 1–2 % off:
     /// the error the calibration is there to remove; the bench carries the spread).</summary>
-    private static void Check(int seed, bool asLog, Shape shape, Random random, bool passing)
+    private static void Check(int seed, bool asLog, Shape shape, Random random, bool passing, Func<PrescribedRecordSpec, PrescribedRecordSpec>? stalled = null)
     {
         (PrescribedRecordSpec spec, AnalysisOptions options, double truth) = Draw(seed, shape, random);
+        spec = stalled?.Invoke(spec) ?? spec;
         PrescribedRecord record = spec.Generate();
         TruthRun t = Assert.Single(record.Truth);
         RunAnalysis told = Assert.Single((asLog ? DecoderHarness.AnalyzeLog(record) : DecoderHarness.AnalyzeText(record)).Runs);
         RunAnalysis measured = Assert.Single((asLog ? DecoderHarness.AnalyzeLog(record, options) : DecoderHarness.AnalyzeText(record, options)).Runs);
+        if (stalled is not null)
+        {
+            // The record has the gaps it is meant to have.
+            Assert.Contains(measured.Verdict!.Reasons, r => r.Code == "accel_overflow");
+        }
 
         Estimate scale = measured.Reconstruction.RollingScale ?? throw new Xunit.Sdk.XunitException($"{spec}: no rolling scale measured");
         string what = FormattableString.Invariant($"{spec}: rolling/told {scale.Value:0.00000} ± {scale.Sigma:0.00000} against {truth:0.00000}");
