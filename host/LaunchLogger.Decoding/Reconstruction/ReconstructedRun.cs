@@ -108,6 +108,12 @@ public sealed class ReconstructedRun
     /// not trusted for distance.</summary>
     public IReadOnlyList<TimeWindow> WheelspinWindows { get; init; } = [];
 
+    /// <summary>The part of <see cref="WheelspinWindows"/> the verdict counts: where the pulses ran
+    /// ahead by more than a tyre slips at its grip peak, beyond their σ
+    /// (<see cref="WheelspinDetector.BeyondPeak"/>), or fell behind; a lead within the peak's slip
+    /// sets the pulses aside for distance but is no spin.</summary>
+    public IReadOnlyList<TimeWindow> SpinPastPeakWindows { get; init; } = [];
+
     /// <summary>Stretches near standstill where the pulses counted more than the accelerometer's
     /// distance by more than a tyre slips at its grip peak (spin at the launch,
     /// <see cref="WheelspinDetector.FindAtLaunch"/>). The pulses there were kept: this weighs on

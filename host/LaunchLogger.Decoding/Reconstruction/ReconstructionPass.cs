@@ -161,6 +161,7 @@ internal sealed partial class ReconstructionPass
         double brakeSlide = windows.LargestBehindFraction;
         int warningsBeforeSpin = warnings.Count;
         List<TimeWindow> spin = windows.Spin;
+        List<TimeWindow> spinPastPeak = windows.PastPeak;
         warnings.AddRange(windows.SpinWarnings);
         int spinWarnings = windows.SpinWarnings.Count;
         if (channelNote != null)
@@ -179,6 +180,8 @@ internal sealed partial class ReconstructionPass
             warnings.RemoveRange(warningsBeforeSpin, spinWarnings);
             warnings.Add("the pulses run far ahead of the accelerometer for much of the run (sustained wheelspin on a driven wheel?): distance under drive comes from the accelerometer, the pulses are used only while coasting and braking");
             spin = new DriveForceWindows(steps, options).DriveWindows(firstMotion.Value, stopS);
+            // Slip beyond the slip model for much of the run counts against the run as a whole.
+            spinPastPeak = spin;
             slipSignal = null;
             fused = FusionSmoother.Run(Settings(steps, firstMotion.Value, stopS, spin, windows, slipSignal));
         }
@@ -263,6 +266,7 @@ internal sealed partial class ReconstructionPass
             AccelClockShiftS = accelClockShiftS,
             WheelspinWindows = spin,
             LaunchSpinWindows = windows.LaunchSpin,
+            SpinPastPeakWindows = spinPastPeak,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             BrakeSlipPerMps2 = windows.BrakeSlipSignal is null ? null : fused.BrakeSlip,

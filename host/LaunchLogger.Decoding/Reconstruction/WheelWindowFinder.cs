@@ -62,6 +62,10 @@ internal sealed class WheelWindows
     /// verdict; the pulses there are kept.</summary>
     public required List<TimeWindow> LaunchSpin { get; init; }
 
+    /// <summary>The part of <see cref="Spin"/> the verdict counts: spin past a tyre's grip peak
+    /// (<see cref="WheelspinDetector.BeyondPeak"/>) and the slides the wheelspin detector found.</summary>
+    public required List<TimeWindow> PastPeak { get; init; }
+
     /// <summary>The drive slip signal S(t) on the grid, or null when no drive slip is fitted.</summary>
     public double[]? DriveSlipSignal { get; init; }
 
@@ -108,7 +112,7 @@ internal sealed class WheelWindowFinder
     {
         var finder = new WheelWindowFinder(input);
         List<TimeWindow> slides = finder.SlidingUnderBraking(finder.SlideSearchWindows(), out double behind);
-        List<TimeWindow> spin = finder.FindWheelspin(slides, out List<string> spinWarnings, out List<TimeWindow> launchSpin);
+        List<TimeWindow> spin = finder.FindWheelspin(slides, out List<string> spinWarnings, out List<TimeWindow> launchSpin, out List<TimeWindow> pastPeak);
         double[]? slipSignal = finder.SlipSignal();
         List<TimeWindow> firm = finder.FirmBraking();
         double[]? brakeSlipSignal = finder.BrakeSlipSignal(firm);
@@ -119,6 +123,7 @@ internal sealed class WheelWindowFinder
             Spin = spin,
             SpinWarnings = spinWarnings,
             LaunchSpin = launchSpin,
+            PastPeak = pastPeak,
             DriveSlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,
             FirmBraking = brakeSlipSignal is null ? [] : firm.Where(w => !slides.Any(s => s.StartS < w.EndS && s.EndS > w.StartS)).ToList(),
@@ -150,10 +155,11 @@ internal sealed class WheelWindowFinder
         return forces.FirmBraking(input.StartS, input.StopS, input.StartSpeedMps);
     }
 
-    private List<TimeWindow> FindWheelspin(List<TimeWindow> braking, out List<string> notes, out List<TimeWindow> atLaunch)
+    private List<TimeWindow> FindWheelspin(List<TimeWindow> braking, out List<string> notes, out List<TimeWindow> atLaunch, out List<TimeWindow> pastPeak)
     {
         notes = [];
         atLaunch = [];
+        pastPeak = [];
         if (!options.DetectWheelspin || pulses is null || !WithAccelerometer || !input.Staged)
         {
             return [];
@@ -161,13 +167,20 @@ internal sealed class WheelWindowFinder
 
         double startS = input.StartS;
         List<TimeWindow> windows = WheelspinDetector.Find(
-            pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.AccelTimeS!, input.AccelInputMps2, startS, input.EndS, braking, options.WheelspinMinExcessMps, options.WheelspinFraction, out double ahead, out double behind, out List<TimeWindow> spinning);
+            pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.AccelTimeS!, input.AccelInputMps2, startS, input.EndS, braking, options, out double ahead, out double behind, out List<TimeWindow> spinning, out List<TimeWindow> spunPastPeak);
         List<TimeWindow> slid = windows.Except(spinning).ToList();
-        if (spinning.Count > 0)
+        if (spunPastPeak.Count > 0)
         {
             string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
-            notes.Add($"wheelspin suspected (pulses up to {ahead * 100:F0} % ahead of the accelerometer) at {list} after first motion; the pulses there were not used for distance");
+            notes.Add($"wheelspin suspected (pulses up to {ahead * 100:F0} % ahead of the accelerometer, beyond the {options.LaunchSpinSlip * 100:F0} % a tyre slips at its grip peak) at {list} after first motion; the pulses there were not used for distance");
         }
+        else if (spinning.Count > 0)
+        {
+            string list = string.Join(", ", spinning.Select(w => $"{w.StartS - startS:F2}–{w.EndS - startS:F2} s"));
+            notes.Add($"the driven wheel ran up to {ahead * 100:F0} % ahead of the accelerometer at {list} after first motion: wheelspin or a tyre at its grip peak, not clearly past the {options.LaunchSpinSlip * 100:F0} % a tyre slips there, so not held against the run; the pulses there were not used for distance");
+        }
+
+        pastPeak = WheelspinDetector.Union([.. spunPastPeak, .. slid]);
 
         atLaunch = WheelspinDetector.FindAtLaunch(
             pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.AccelTimeS!, input.AccelInputMps2, startS, input.EndS, options, out double launchSlip);

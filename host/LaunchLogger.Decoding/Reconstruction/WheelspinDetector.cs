@@ -12,18 +12,26 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// the fit. A window's pulse speed is only as good as its two edge times (a coarse pickup's edge
 /// polled across a loop stall is known to a bracket of tens of ms, <see cref="PulseChannel.EdgeSigmaS"/>)
 /// and the two teeth's spacing: a window is flagged only when it stands above the baseline by four
-/// times the spread of the rest and its own σ together — a gap the brackets explain is no spin.</remarks>
+/// times the spread of the rest and its own σ together — a gap the brackets explain is no spin.
+/// Flagged windows (over <see cref="ReconstructionOptions.WheelspinFraction"/> of the speed) are
+/// set aside for distance; they are spin for the verdict only where the lead passes what a tyre
+/// slips at its grip peak (<see cref="BeyondPeak"/>, <see cref="ReconstructionOptions.LaunchSpinSlip"/>
+/// of the speed) by four times the same σ: a clean hard launch held near its tyre's peak past
+/// 1 m/s runs 4–20 % ahead, which is no reason to trust its pulses and no reason to doubt the run.</remarks>
 internal static class WheelspinDetector
 {
     private const double WindowS = 0.04;
 
     public static List<TimeWindow> Find(
         PulseChannel pulses, double mpp, double toothSigmaM, double[] accelT, double[] input, double startS, double endS, List<TimeWindow> skip,
-        double minExcessMps, double fraction, out double largestAhead, out double largestBehind, out List<TimeWindow> spinning)
+        ReconstructionOptions options, out double largestAhead, out double largestBehind, out List<TimeWindow> spinning, out List<TimeWindow> pastPeak)
     {
         largestAhead = 0;
         largestBehind = 0;
         spinning = [];
+        pastPeak = [];
+        double minExcessMps = options.WheelspinMinExcessMps;
+        double fraction = options.WheelspinFraction;
         var found = new List<TimeWindow>();
         var integral = new RunningDistance(accelT, input, startS);
 
@@ -138,17 +146,20 @@ internal static class WheelspinDetector
 
         var spin = new bool[n];
         var slide = new bool[n];
+        var beyondPeak = new bool[n];
         for (int k = 0; k < n; k++)
         {
             double limit = Math.Max(Math.Max(minExcessMps, fraction * Math.Max(accelSpeeds[k], 0)), 4 * Math.Sqrt((scale * scale) + (sigmas[k] * sigmas[k])));
             spin[k] = residual[k] > limit;
             slide[k] = residual[k] < -limit;
+            beyondPeak[k] = spin[k] && BeyondPeak(residual[k], Math.Max(accelSpeeds[k], 0), (scale * scale) + (sigmas[k] * sigmas[k]), options);
             double share = residual[k] / Math.Max(accelSpeeds[k], 1);
             largestAhead = spin[k] ? Math.Max(largestAhead, share) : largestAhead;
             largestBehind = slide[k] ? Math.Max(largestBehind, -share) : largestBehind;
         }
 
         spinning = Group(spin, starts, ends, startS);
+        pastPeak = Group(beyondPeak, starts, ends, startS);
         found.AddRange(spinning);
         found.AddRange(Group(slide, starts, ends, startS));
         found.Sort((a, b) => a.StartS.CompareTo(b.StartS));
@@ -224,8 +235,7 @@ internal static class WheelspinDetector
             {
                 double byPulses = (counts[b] - counts[a]) * mpp;
                 double byAccel = distances[b] - distances[a];
-                double excess = byPulses - (clean * byAccel);
-                if (excess <= 0 || byAccel <= 0)
+                if (byPulses <= clean * byAccel || byAccel <= 0)
                 {
                     continue;
                 }
@@ -235,7 +245,7 @@ internal static class WheelspinDetector
                 double bias = 0.5 * biasSigma * ((tb * tb) - (ta * ta));
                 double variance = (2 * toothSigmaM * toothSigmaM) + Square(circumferenceSigma * byPulses) + (edgeA * edgeA) + (edgeB * edgeB)
                     + Square(clean * scaleSigma * byAccel) + Square(clean * bias);
-                if (excess > 4 * Math.Sqrt(variance))
+                if (BeyondPeak(byPulses - byAccel, byAccel, variance, options))
                 {
                     largestSlip = Math.Max(largestSlip, (byPulses / byAccel) - 1);
                     found.Add(new TimeWindow(times[a], times[b]));
@@ -245,6 +255,18 @@ internal static class WheelspinDetector
 
         return Union(found);
     }
+
+    /// <summary>True when the pulses' lead over the car, <paramref name="lead"/> (a distance or a
+    /// speed), passes <see cref="ReconstructionOptions.LaunchSpinSlip"/> times the car's own
+    /// <paramref name="byCar"/> — the most a tyre slips at the peak of its force–slip curve — by
+    /// more than <see cref="SpinSigmas"/> times the σ of that difference (√<paramref name="variance"/>).
+    /// A wheel held at its tyre's grip peak never passes it; a wheel that ran away past the peak
+    /// does once the data resolve it.</summary>
+    internal static bool BeyondPeak(double lead, double byCar, double variance, ReconstructionOptions options) =>
+        lead - (options.LaunchSpinSlip * byCar) > SpinSigmas * Math.Sqrt(variance);
+
+    /// <summary>How many σ a lead must pass a tyre's peak slip by to be spin.</summary>
+    public const double SpinSigmas = 4;
 
     /// <summary>Where a launch spin is looked for: until the car passes this speed, m/s — beyond
     /// it <see cref="Find"/>'s windows (from 1 m/s) see a spinning wheel's excess of speed.</summary>

@@ -63,9 +63,11 @@ public static class RunJudge
         // A wheel sliding under braking (ABS at work, or a braked tyre's slip, which the spin
         // finder sees as the wheel parting from the car) is expected and carried by the
         // accelerometer; only a wheel running off on its own before the brakes come on counts
-        // against the run. Spin at the launch (the pulses kept) counts with it, once where both saw it.
+        // against the run, and only past what a tyre slips at its grip peak (a clean hard launch
+        // runs its driven wheel up to that far ahead). Spin at the launch (the pulses kept) counts
+        // with it, once where both saw it.
         double driveEndsS = analysis.Braking?.OnsetS.Value ?? double.PositiveInfinity;
-        double spin = WheelspinDetector.Union([.. rec.WheelspinWindows, .. rec.LaunchSpinWindows]).Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
+        double spin = WheelspinDetector.Union([.. rec.SpinPastPeakWindows, .. rec.LaunchSpinWindows]).Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
         if (spin > limits.WheelspinS)
         {
             string where = rec.LaunchSpinWindows.Count == 0

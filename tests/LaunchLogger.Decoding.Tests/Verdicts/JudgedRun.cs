@@ -92,6 +92,7 @@ internal static class JudgedRun
         Staged = staged ?? rec.Staged,
         StartSpeedMps = rec.StartSpeedMps,
         WheelspinWindows = wheelspin ?? rec.WheelspinWindows,
+        SpinPastPeakWindows = wheelspin ?? rec.SpinPastPeakWindows,
         BrakingSlideWindows = slides ?? rec.BrakingSlideWindows,
     };
 

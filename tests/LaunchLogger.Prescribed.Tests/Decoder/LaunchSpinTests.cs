@@ -15,13 +15,21 @@ namespace LaunchLogger.Prescribed.Tests.Decoder;
 public class LaunchSpinTests
 {
     /// <summary>A driven tyre that slips by <paramref name="peakSlip"/> at the launch's peak
-    /// acceleration, fading over 1 m (a launch held near the tyre's grip peak over its first metres), on top of
-    /// <see cref="DriveSlip"/>'s default linear part.</summary>
-    private static DriveSlip AtThePeak(PrescribedRecordSpec spec, double peakSlip)
+    /// acceleration, fading over <paramref name="fadeM"/> (1 m: a launch held near the tyre's grip
+    /// peak over its first metres), on top of <see cref="DriveSlip"/>'s default linear part.</summary>
+    internal static DriveSlip AtThePeak(PrescribedRecordSpec spec, double peakSlip, double fadeM = 1)
     {
         double peak = PeakAccelMps2(spec.Shape.Profile);
         const double linear = 0.003;
-        return new DriveSlip(PerMps2: linear, LaunchPerMps2: (peakSlip / peak) - linear, LaunchFadeM: 1);
+        return new DriveSlip(PerMps2: linear, LaunchPerMps2: (peakSlip / peak) - linear, LaunchFadeM: fadeM);
+    }
+
+    /// <summary>The standing start of <paramref name="seed"/> on a driven wheel (the default drive
+    /// slip) that spins as <paramref name="spin"/> says.</summary>
+    internal static PrescribedRecordSpec Spun(int seed, WheelSpin spin)
+    {
+        PrescribedRecordSpec spec = Records.Standing(seed);
+        return spec with { Pickup = spec.Pickup with { Slip = new DriveSlip(), Spin = spin } };
     }
 
     /// <summary>The largest acceleration over the first 3 s of motion, m/s².</summary>
@@ -48,7 +56,7 @@ public class LaunchSpinTests
 
     private static string Describe(Verdict verdict) => string.Join("; ", verdict.Reasons.Select(r => $"{r.Code}: {r.Text}"));
 
-    private static string Describe(RunAnalysis run) => Describe(run.Verdict!) + " | " + string.Join(" | ", run.Reconstruction.Warnings.Where(w => w.Contains("spin") || w.Contains("slid")));
+    internal static string Describe(RunAnalysis run) => Describe(run.Verdict!) + " | " + string.Join(" | ", run.Reconstruction.Warnings.Where(w => w.Contains("spin") || w.Contains("slid")));
 
     [Theory]
     [InlineData(1, 0.10)]
@@ -105,9 +113,8 @@ public class LaunchSpinTests
     [MemberData(nameof(EarlySpins))]
     public void A_spin_near_standstill_makes_the_run_doubtful_for_wheelspin(int seed, double afterS, double slip, double holdS)
     {
-        PrescribedRecordSpec spec = Records.Standing(seed);
         var spin = new WheelSpin(afterS, slip, 0.03, holdS, 0.05);
-        spec = spec with { Pickup = spec.Pickup with { Slip = new DriveSlip(), Spin = spin } };
+        PrescribedRecordSpec spec = Spun(seed, spin);
         Assert.True(TeethGained(spec) >= 2, $"{spec}, {spin}: the spin gained {TeethGained(spec)} teeth");
         PrescribedRecord record = spec.Generate();
         RunAnalysis run = Assert.Single(DecoderHarness.AnalyzeText(record).Runs);
@@ -128,9 +135,8 @@ public class LaunchSpinTests
     {
         // Found by the 40-ms windows or by the launch test: most of these spins run on past
         // 1 m/s, where the windows see them (they did before the launch test too).
-        PrescribedRecordSpec spec = Records.Standing(seed);
         WheelSpin spin = WheelSpin.Draw(new Random(seed));
-        spec = spec with { Pickup = spec.Pickup with { Slip = new DriveSlip(), Spin = spin } };
+        PrescribedRecordSpec spec = Spun(seed, spin);
 
         Assert.True(TeethGained(spec) >= 2, $"{spec}, {spin}: the spin gained {TeethGained(spec)} teeth");
         RunAnalysis run = Assert.Single(DecoderHarness.AnalyzeText(spec.Generate()).Runs);
