@@ -59,12 +59,7 @@ public class BentUpOnsetTests
             }
         }
 
-        errors.Sort();
-        double p95 = errors[(int)(0.95 * trials) - 1];
-        string detail = string.Join("; ", misses.Take(8));
-        Assert.True(within2 >= 0.93 * trials, $"±2σ: {within2} of {trials}: {detail}");
-        Assert.True(within3 >= 0.985 * trials, $"±3σ: {within3} of {trials}: {detail}");
-        Assert.True(p95 <= toleranceS, $"95 % within {p95 * 1e3:F2} ms, asked {toleranceS * 1e3:0.#} ms: {detail}");
-        Assert.True(late <= 0.01 * trials, $"{late} of {trials} more than 8 ms late: {detail}");
+        AccelOnsetFitTests.AssertOnsets(errors, within2, within3, trials, toleranceS, misses);
+        Assert.True(late <= 0.01 * trials, $"{late} of {trials} more than 8 ms late: {string.Join("; ", misses.Take(8))}");
     }
 }
