@@ -26,7 +26,8 @@ internal enum OnsetShape
     /// <summary>c₂·τ²: a smooth rise.</summary>
     Quadratic,
 
-    /// <summary>c₁·τ + c₂·τ².</summary>
+    /// <summary>c₁·τ + c₂·τ²; chosen only where it bends over (c₂ ≤ 0): one that bends up is a τ²
+    /// rise seen late (<see cref="AccelOnsetFit"/>) and counts only in the onset's σ.</summary>
     RampQuadratic,
 
     /// <summary>c₀ + c₁·τ: a jump (a dropped clutch, a released brake).</summary>
@@ -62,7 +63,9 @@ internal enum OnsetShape
 /// c₂τ² + c₃τ³ or c₂τ² + c₄τ⁴, or a ramp through a first-order lag), fitted by least squares over a window that ends where the
 /// rise has reached <see cref="WindowHeightShare"/> of its early height, with t₀ on a grid of a quarter sample (a jump's
 /// fit is flat between two samples: its t₀ is the best gap's middle). The shape is chosen by the
-/// Bayesian information criterion, each shape at its own least residual; where a curved shape is
+/// Bayesian information criterion, each shape at its own least residual (a lagged ramp only on strong
+/// evidence against the plain ramp, a ramp-plus-quadratic only where it bends over; either set aside
+/// still widens the σ); where a curved shape is
 /// chosen the onset is the shapes' onsets averaged by their odds (a ramp or a jump chosen keeps its
 /// own); the σ of t₀ is the half-width of the chosen shape's
 /// profile where the residual sum of squares stays within one noise variance of its minimum (a
@@ -276,6 +279,22 @@ internal static class AccelOnsetFit
             bic[lagged] = double.PositiveInfinity;
         }
 
+        // A ramp-plus-quadratic that bends up (c₁, c₂ > 0) is c₂·(τ + h)² − c₂·h², h = c₁/(2c₂):
+        // the τ² rise begun h earlier, less a step of c₂h² that lies under the noise wherever the
+        // criterion cannot tell the two apart. Its onset is that rise's seen late: on a ramp through
+        // a lag it read 17–19 ms late within 1–2 of the lagged ramp's criterion, whose onset was
+        // within 3 ms, and the average put the onset halfway (ACCURACY-NOTES). A driveline's
+        // compliance starts any torque rise as τ² (the lagged ramp's Taylor series above), so the
+        // shapes that start smooth place the onset; the bent-up one, like the barred lag, stays in
+        // its σ. One that bends over (c₂ ≤ 0, a ramp easing off) is no τ² seen late and is kept.
+        int rq = (int)OnsetShape.RampQuadratic;
+        double convexBic = bic[rq];
+        bool convexBarred = RampQuadraticCurvature(t, y, start, end, fine[rq].TimeS) > 0;
+        if (convexBarred)
+        {
+            bic[rq] = double.PositiveInfinity;
+        }
+
         for (int m = 1; m < Shapes; m++)
         {
             if (bic[m] < bic[bestShape])
@@ -329,11 +348,13 @@ internal static class AccelOnsetFit
         // and takes its share of the normalisation from the others. Without it a low peak whose
         // true lag falls short of strong evidence is read as a ramp 10–17 ms late with a σ of a
         // few milliseconds (ACCURACY-NOTES).
-        double barredOdds = lagBarred ? Math.Exp(-0.5 * (laggedBic - bic[bestShape])) : 0;
-        barredOdds = barredOdds > 1e-4 ? barredOdds : 0;
-        moment += barredOdds * (fine[lagged].TimeS - mean) * (fine[lagged].TimeS - mean);
+        // The bent-up ramp-plus-quadratic set aside above counts the same way.
+        double lagOdds = BarredOdds(lagBarred, laggedBic, bic[bestShape]);
+        double convexOdds = BarredOdds(convexBarred, convexBic, bic[bestShape]);
+        moment += lagOdds * (fine[lagged].TimeS - mean) * (fine[lagged].TimeS - mean);
+        moment += convexOdds * (fine[rq].TimeS - mean) * (fine[rq].TimeS - mean);
 
-        double spreadSquared = moment / (weightSum + barredOdds);
+        double spreadSquared = moment / (weightSum + lagOdds + convexOdds);
         double smoothOdds = 0;
         double allOdds = 0;
         for (int m = 0; m < Shapes; m++)
@@ -348,6 +369,39 @@ internal static class AccelOnsetFit
         double sigmaT = Math.Sqrt((best.HalfWidthS * best.HalfWidthS) + spreadSquared + (hidden * hidden) + (period * period / 192));
         double lagStatistic = (fine[(int)OnsetShape.Ramp].Sse - fine[lagged].Sse) / noiseVar;
         return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds, odds[lagged] / allOdds, lagS, lagStatistic);
+    }
+
+    /// <summary>A shape set aside from the choice: its odds exp(−ΔBIC/2) against the chosen one,
+    /// 0 where it was not set aside or the data all but rule it out.</summary>
+    private static double BarredOdds(bool barred, double shapeBic, double bestBic)
+    {
+        double odds = barred ? Math.Exp(-0.5 * (shapeBic - bestBic)) : 0;
+        return odds > 1e-4 ? odds : 0;
+    }
+
+    /// <summary>The ramp-plus-quadratic's c₂ fitted with its onset at <paramref name="t0"/> (0 where
+    /// the window cannot fit it).</summary>
+    private static double RampQuadraticCurvature(double[] t, Shifted y, int start, int end, double t0)
+    {
+        double s2 = 0, s3 = 0, s4 = 0, y1 = 0, y2 = 0;
+        for (int i = start; i <= end; i++)
+        {
+            double tau = t[i] - t0;
+            if (tau <= TieS)
+            {
+                continue;
+            }
+
+            double tau2 = tau * tau;
+            s2 += tau2;
+            s3 += tau2 * tau;
+            s4 += tau2 * tau2;
+            y1 += y[i] * tau;
+            y2 += y[i] * tau2;
+        }
+
+        double det = (s2 * s4) - (s3 * s3);
+        return det > 0 ? ((s2 * y2) - (s3 * y1)) / det : 0;
     }
 
     /// <summary>True for the shapes that start with zero value and zero slope (like τ²).</summary>

@@ -134,6 +134,19 @@ public class AccelOnsetFitTests
         return (error, Math.Abs(error) / found.Value.SigmaS);
     }
 
+    /// <summary>Asks of a case's onsets what a Gaussian σ promises (95.4 % within ±2σ, 99.7 % within
+    /// ±3σ; of <paramref name="trials"/> we ask 93 % and 98.5 %) and 95 % of the |errors| within
+    /// <paramref name="toleranceS"/>; <paramref name="misses"/> name the worst in the message.</summary>
+    internal static void AssertOnsets(List<double> errors, int within2, int within3, int trials, double toleranceS, List<string> misses)
+    {
+        errors.Sort();
+        double p95 = errors[(int)(0.95 * trials) - 1];
+        string detail = string.Join("; ", misses.Take(8));
+        Assert.True(within2 >= 0.93 * trials, $"±2σ: {within2} of {trials}: {detail}");
+        Assert.True(within3 >= 0.985 * trials, $"±3σ: {within3} of {trials}: {detail}");
+        Assert.True(p95 <= toleranceS, $"95 % within {p95 * 1e3:F2} ms, asked {toleranceS * 1e3:0.#} ms: {detail}");
+    }
+
     // Box–Muller (G. E. P. Box, M. E. Muller, 1958).
     internal static double Gaussian(Random random) =>
         Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());

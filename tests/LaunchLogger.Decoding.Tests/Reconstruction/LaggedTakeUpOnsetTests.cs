@@ -71,11 +71,6 @@ public class LaggedTakeUpOnsetTests
             }
         }
 
-        errors.Sort();
-        double p95 = errors[(int)(0.95 * trials) - 1];
-        string detail = string.Join("; ", misses.Take(8));
-        Assert.True(within2 >= 0.93 * trials, $"±2σ: {within2} of {trials}: {detail}");
-        Assert.True(within3 >= 0.985 * trials, $"±3σ: {within3} of {trials}: {detail}");
-        Assert.True(p95 <= toleranceS, $"95 % within {p95 * 1e3:F2} ms, asked {toleranceS * 1e3:0.#} ms");
+        AccelOnsetFitTests.AssertOnsets(errors, within2, within3, trials, toleranceS, misses);
     }
 }
