@@ -1,3 +1,5 @@
+using MathNet.Numerics.Distributions;
+
 namespace LaunchLogger.Cli.Bench;
 
 /// <summary>How sure a pooled p95 is: a distribution-free confidence interval for a quantile from
@@ -42,22 +44,14 @@ public static class QuantileInterval
             throw new ArgumentOutOfRangeException(nameof(confidence), confidence, "the confidence must lie between 0 and 1");
         }
 
-        double[] cdf = BinomialCdf(n, p);
+        // B is non-decreasing in k, so each rank is the edge of a bisection over 0…n.
         double half = (1 - confidence) / 2;
-        int lower = 0;
-        for (int r = 1; r <= n && cdf[r - 1] <= half; r++)
-        {
-            lower = r;
-        }
+        double Cdf(int k) => k >= n ? 1 : Binomial.CDF(p, n, k);
+        int lower = LastAtOrBelow(n, r => Cdf(r - 1) <= half);
+        int upper = n + 1 - LastAtOrBelow(n, j => Cdf(n - j) >= 1 - half);
 
-        int upper = n + 1;
-        for (int s = n; s >= 1 && cdf[s - 1] >= 1 - half; s--)
-        {
-            upper = s;
-        }
-
-        double below = lower == 0 ? 0 : cdf[lower - 1];
-        double atOrBelow = upper == n + 1 ? 1 : cdf[upper - 1];
+        double below = lower == 0 ? 0 : Cdf(lower - 1);
+        double atOrBelow = upper == n + 1 ? 1 : Cdf(upper - 1);
         return (lower, upper, atOrBelow - below);
     }
 
@@ -86,27 +80,25 @@ public static class QuantileInterval
     public static int RunsForUpperBound(double p, double confidence = Confidence) =>
         (int)Math.Ceiling(Math.Log((1 - confidence) / 2) / Math.Log(p));
 
-    /// <summary>P(Y ≤ k) for k = 0…n, Y ~ Binomial(n, p): each term from log-factorials (sums of
-    /// logarithms, exact to rounding), so no power of p underflows before it is summed.</summary>
-    internal static double[] BinomialCdf(int n, double p)
+    /// <summary>The largest i in 1…<paramref name="n"/> for which <paramref name="holds"/>(i), 0 for
+    /// none, where <paramref name="holds"/> is true up to some i and false beyond it.</summary>
+    private static int LastAtOrBelow(int n, Func<int, bool> holds)
     {
-        var logFactorial = new double[n + 1];
-        for (int i = 1; i <= n; i++)
+        int low = 0, high = n;
+        while (low < high)
         {
-            logFactorial[i] = logFactorial[i - 1] + Math.Log(i);
+            int mid = (low + high + 1) / 2;
+            if (holds(mid))
+            {
+                low = mid;
+            }
+            else
+            {
+                high = mid - 1;
+            }
         }
 
-        double logP = Math.Log(p);
-        double logQ = Math.Log(1 - p);
-        var cdf = new double[n + 1];
-        double sum = 0;
-        for (int k = 0; k <= n; k++)
-        {
-            sum += Math.Exp(logFactorial[n] - logFactorial[k] - logFactorial[n - k] + (k * logP) + ((n - k) * logQ));
-            cdf[k] = Math.Min(sum, 1);
-        }
-
-        return cdf;
+        return low;
     }
 
     /// <summary>A quantile's interval.</summary>

@@ -144,11 +144,6 @@ internal static class LaunchSlipAllowance
         return Math.Max(d, 0);
     }
 
-    /// <summary>The car's speed when the wheel, slipping by F·e^(−d/L) at the car's distance
-    /// <paramref name="distanceM"/>, reads <paramref name="countedMps"/>: counted ÷ (1 + slip), m/s.</summary>
-    public static double SpeedWithoutSlip(double countedMps, double distanceM, double fraction, double fadeM) =>
-        countedMps / (1 + (fraction * Math.Exp(-Math.Max(distanceM, 0) / fadeM)));
-
     /// <summary>The accelerometer's own distance from first motion at each grid point, m (zeros
     /// before <paramref name="k0"/>): the input integrated twice from rest.</summary>
     public static double[] AccelDistance(double[] grid, int k0, double startSpeedM, double startDistanceM, double[] stepSpeedM, double[] stepDistanceM)
