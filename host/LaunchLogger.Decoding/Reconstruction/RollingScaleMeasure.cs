@@ -4,7 +4,9 @@ namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <summary>The rolling-scale stage: when the accelerometer's scale is calibrated, the pulses'
 /// scale measured over the launch of a standing start (<see cref="RollingScaleFit"/>), or over a
-/// record that opens moving (its changes of speed, and the rest it may end in).</summary>
+/// record that opens moving (its changes of speed, and the rest it may end in); when it is not,
+/// only a record that opens moving is fitted, and only the tyre's growth with speed is taken
+/// from it.</summary>
 internal static class RollingScaleMeasure
 {
     /// <summary>Braking force per unit mass from which a wheel no longer rolls freely for the
@@ -28,12 +30,21 @@ internal static class RollingScaleMeasure
     /// <summary>Measures the pulses' scale (<see cref="RollingScaleFit"/>); when it is known better
     /// than the circumference's prior, gives the distance per pulse rescaled by it and its σ in
     /// place of the prior's. The caller applies it and runs the filter again.</summary>
-    /// <returns>The measurement, or null when there is nothing to apply (no calibration, no
-    /// accelerometer or pulses, a slipping wheel, a fit no better than the prior).</returns>
+    /// <returns>The measurement, or null when there is nothing to apply (a launch without a
+    /// calibration, no accelerometer or pulses, a slipping wheel, a fit no better than the prior).</returns>
     public static RollingScaleMeasurement? Measure(RollingScaleInputs input)
     {
         ReconstructionOptions options = input.Options;
-        if (options.AccelScaleCalibration is not { Value: > 0 } calibration || input.AccelEndS is null || input.Pulses is not { } pulses || input.SlipKept || (!input.Staged && input.Opening is null))
+        if (input.AccelEndS is null || input.Pulses is not { } pulses || input.SlipKept || (!input.Staged && input.Opening is null))
+        {
+            return null;
+        }
+
+        // Without a calibration the accelerometer's scale is known to its data sheet's σ, no
+        // better than the tyre's prior: a launch measures nothing worth applying; a record that
+        // opens moving still measures the tyre's growth (below).
+        bool calibrated = options.AccelScaleCalibration is { Value: > 0 };
+        if (!calibrated && input.Staged)
         {
             return null;
         }
@@ -69,7 +80,7 @@ internal static class RollingScaleMeasure
             Growth = options.TyreGrowthAt30Mps,
             GrowthSigma = options.TyreGrowthSigmaAt30Mps,
             GapJerkDensity = options.JerkDensity,
-            AccelScaleSigma = calibration.Sigma,
+            AccelScaleSigma = options.ForwardScaleSigma,
             ToothSigmaM = options.ToothSpacingErrorFraction * mpp,
             EdgeJitterS = options.EdgeJitterS,
             WindowS = options.RollingScaleWindowS,
@@ -77,7 +88,12 @@ internal static class RollingScaleMeasure
         };
         RollingScale? measured = input.Staged
             ? RollingScaleFit.Fit(steps.TimeS, steps.StepSpeedMps, steps.StepDistanceM, steps.NoInput, pulses, mpp, input.StartS, end, noise)
-            : MeasureMovingScale(input, pulses, end, noise);
+            : MeasureMovingScale(input, pulses, end, calibrated ? noise : noise with { CircumferenceSigma = Math.Sqrt(Square(noise.CircumferenceSigma) + Square(noise.AccelScaleSigma)) });
+        if (!calibrated)
+        {
+            return measured is { } growthFit ? GrowthOnly(growthFit, pulses, mpp, input) : null;
+        }
+
         if (measured is not { } fit || !(fit.Scale.Sigma < options.CircumferenceSigmaFraction) || !(Math.Abs(fit.Scale.Value - 1) < LargestScaleChange))
         {
             return null;
@@ -98,6 +114,33 @@ internal static class RollingScaleMeasure
             CircumferenceSigma = fit.Scale.Sigma / fit.Scale.Value,
             Growth = growth,
             Note = Invariant($"the pulses' scale was measured over {over} against the calibrated accelerometer ({fit.Checkpoints} pulse observations, {fit.WindowEndS - input.StartS:0.0} s): the tyre rolls {((fit.Scale.Value * options.RollingOverToldCircumference) - 1) * 100:+0.00;-0.00} % ± {fit.Scale.Sigma * options.RollingOverToldCircumference * 100:0.00} % from the circumference told; distances and speeds use it"),
+        };
+    }
+
+    /// <summary>What a record that opens moving measures against an accelerometer whose scale is
+    /// not calibrated: the tyre's growth with speed alone. The accelerometer's unknown scale s
+    /// multiplies every distance it gives, so the fit's scale ρ reads (1 + s) times the tyre's and
+    /// is no better than the circumference's prior (both about 1 %; the fit's ρ prior is widened
+    /// by s's σ so that it does not hold the growth back); the growth G is a change of the
+    /// tyre's scale with speed, which a constant s leaves as it is to within s·G (a hundredth of
+    /// it). So the distance per pulse and its σ stay the prior's, and the growth takes the fit's
+    /// value and σ (uncorrelated with the prior's scale) where it is known better than its prior.</summary>
+    private static RollingScaleMeasurement? GrowthOnly(RollingScale fit, PulseChannel pulses, double mpp, RollingScaleInputs input)
+    {
+        ReconstructionOptions options = input.Options;
+        if (!(fit.Growth.Sigma < options.TyreGrowthSigmaAt30Mps) || !(Math.Abs(fit.Scale.Value - 1) < LargestScaleChange))
+        {
+            return null;
+        }
+
+        return new RollingScaleMeasurement
+        {
+            Fit = fit,
+            ScaleMeasured = false,
+            MetresPerPulse = mpp,
+            CircumferenceSigma = options.CircumferenceSigmaFraction,
+            Growth = new MeasuredGrowth(fit.Growth.Sigma, 0, GrowthDistances(pulses, mpp, input.Steps.TimeS, input.FirstPassSpeedMps, fit.Growth.Value)),
+            Note = Invariant($"the tyre's growth with speed was measured over the record's changes of speed against the accelerometer ({fit.Checkpoints} pulse observations, {fit.WindowEndS - input.StartS:0.0} s): {fit.Growth.Value * 100:0.00} % ± {fit.Growth.Sigma * 100:0.00} % at 30 m/s; its scale is not calibrated, so the circumference stays the one told"),
         };
     }
 

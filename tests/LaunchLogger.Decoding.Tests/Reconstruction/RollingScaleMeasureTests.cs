@@ -96,6 +96,60 @@ public class RollingScaleMeasureTests
     }
 
     [Theory]
+    [InlineData(0.015)]
+    [InlineData(-0.012)]
+    public void AnUncalibratedAccelerometerMeasuresAMovingRecordsGrowthButNotItsScale(double accelScaleError)
+    {
+        // The record of the test above, read by an accelerometer whose scale is (1 + s) and not
+        // calibrated: it reads the motion of a car (1 + s) times as fast. Written in that car's
+        // speeds v' = (1 + s)·v, the pulses count the true distance v'/(1 + s) over the tyre's
+        // circumference. The fit's scale then reads (1 + s) times the tyre's (a uniform scale of
+        // every distance the accelerometer gives) and is not applied; the growth, a change of
+        // the tyre's scale with speed, is the same in either car's terms to within (1 + s)²
+        // (G·(v / 30)² = G / (1 + s)²·(v' / 30)²).
+        const double Scale = 1.01;
+        const double Growth = 0.008;
+        double read = 1 + accelScaleError;
+        double stop = 11.5 + (32 / 6.0);
+        var scene = new WindowScene
+        {
+            CarAccelMps2 = t => read * (t < 1 ? 0 : t < 11 ? 2 : t < 11.5 ? 0 : t < stop ? -6 : 0),
+            WheelSpeedMps = (_, v) => v / read / (Scale * (1 + (Growth * (v / read / 30) * (v / read / 30)))),
+            InitialSpeedMps = 12 * read,
+            PreRollS = 0,
+            EndS = 19,
+            MetresPerPulse = MetresPerPulse,
+        };
+        PulseChannel pulses = scene.Pulses();
+        var options = new ReconstructionOptions { TyreGrowthSigmaAt30Mps = 0.01 };
+        RollingScaleInputs inputs = StandingInputs(scene, options) with
+        {
+            StartS = pulses.MidS(0),
+            StopS = stop,
+            Pulses = pulses,
+            Staged = false,
+            Opening = StartMotion.Estimate(pulses, MetresPerPulse, 1e-4),
+            FirstPassSpeedMps = SpeedOnGrid(scene),
+        };
+
+        RollingScaleMeasurement measured = RollingScaleMeasure.Measure(inputs)!;
+
+        Estimate scale = measured.Fit.Scale;
+        Assert.InRange(Scale * read, scale.Value - (3 * scale.Sigma), scale.Value + (3 * scale.Sigma));
+        Assert.False(measured.ScaleMeasured);
+        Assert.Equal(MetresPerPulse, measured.MetresPerPulse);
+        Assert.Equal(options.CircumferenceSigmaFraction, measured.CircumferenceSigma);
+
+        Estimate growth = measured.Fit.Growth;
+        Assert.InRange(Growth, growth.Value - (3 * growth.Sigma), growth.Value + (3 * growth.Sigma));
+        Assert.True(growth.Sigma < options.TyreGrowthSigmaAt30Mps);
+        MeasuredGrowth applied = measured.Growth!;
+        Assert.Equal(growth.Sigma, applied.Sigma);
+        Assert.Equal(0, applied.ScaleCorrelation);
+        Assert.StartsWith("the tyre's growth with speed was measured", measured.Note);
+    }
+
+    [Theory]
     [InlineData("no calibration")]
     [InlineData("no accelerometer")]
     [InlineData("slip kept")]
