@@ -121,7 +121,8 @@ public class RollingScaleMeasureTests
             MetresPerPulse = MetresPerPulse,
         };
         PulseChannel pulses = scene.Pulses();
-        var options = new ReconstructionOptions { TyreGrowthSigmaAt30Mps = 0.01 };
+        // A static circumference told: the typical growth (0.35 % at 30 m/s) comes with it.
+        var options = new ReconstructionOptions { TyreGrowthAt30Mps = 0.0035, TyreGrowthSigmaAt30Mps = 0.01 };
         RollingScaleInputs inputs = StandingInputs(scene, options) with
         {
             StartS = pulses.MidS(0),
@@ -147,6 +148,9 @@ public class RollingScaleMeasureTests
         Assert.Equal(growth.Sigma, applied.Sigma);
         Assert.Equal(0, applied.ScaleCorrelation);
         Assert.StartsWith("the tyre's growth with speed was measured", measured.Note);
+
+        // A circumference measured by rolling (no typical growth told) is left as told.
+        Assert.Null(RollingScaleMeasure.Measure(inputs with { Options = options with { TyreGrowthAt30Mps = 0 } }));
     }
 
     [Theory]

@@ -52,8 +52,8 @@ public class MovingScaleTests
         });
     }
 
-    /// <summary>Without a calibration the accelerometer's scale (1 % off here at most by the
-    /// draw's σ) is no better than the tyre's prior: the scale is neither measured nor reported,
+    /// <summary>Without a calibration the accelerometer's scale (drawn with σ 1 %) is no better
+    /// than the tyre's prior (a static circumference told): the scale is neither measured nor reported,
     /// but the tyre's growth with speed, a change of scale over the record's speeds that a
     /// constant accelerometer scale leaves as it is, is measured within 3σ of the generator's.</summary>
     [Theory]
@@ -65,7 +65,8 @@ public class MovingScaleTests
         var random = new Random(seed);
         Shape shape = PrescribedShapes.RollingStart(30 * TruthUnits.MpsPerMph, random);
         (PrescribedRecordSpec spec, _, _) = Draw(seed, shape, random);
-        RunAnalysis plain = Assert.Single(DecoderHarness.AnalyzeText(spec.Generate()).Runs);
+        var staticTold = new AnalysisOptions { Calibration = new LaunchLogger.Decoding.Calibration.CalibrationSettings { StaticCircumferenceM = spec.Pickup.Tyre.StatedCircumferenceM } };
+        RunAnalysis plain = Assert.Single(DecoderHarness.AnalyzeText(spec.Generate(), staticTold).Runs);
         Assert.Null(plain.Reconstruction.RollingScale);
         Assert.DoesNotContain(plain.Reconstruction.Warnings, w => w.Contains("scale was measured", StringComparison.Ordinal));
         string note = Assert.Single(plain.Reconstruction.Warnings, w => w.StartsWith("the tyre's growth with speed was measured", StringComparison.Ordinal));
