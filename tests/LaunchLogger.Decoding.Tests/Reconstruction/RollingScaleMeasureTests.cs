@@ -13,6 +13,9 @@ public class RollingScaleMeasureTests
     /// <summary>Noise of the accelerometer's input the fit is told, m/s², at 1 kHz.</summary>
     private const double NoiseMps2 = 0.02;
 
+    /// <summary>The stop of <see cref="MovingScene"/>, s.</summary>
+    private const double MovingStopS = 11.5 + (32 / 6.0);
+
     private static readonly ReconstructionOptions Calibrated = new() { AccelScaleCalibration = new Estimate(1, 0.002) };
 
     /// <summary>3 m/s² from rest for 6 s (18 m/s), then steady to 7 s.</summary>
@@ -53,27 +56,10 @@ public class RollingScaleMeasureTests
         // G·(v / 30 m/s)² with G = 0.8 %.
         const double Scale = 1.01;
         const double Growth = 0.008;
-        double stop = 11.5 + (32 / 6.0);
-        var scene = new WindowScene
-        {
-            CarAccelMps2 = t => t < 1 ? 0 : t < 11 ? 2 : t < 11.5 ? 0 : t < stop ? -6 : 0,
-            WheelSpeedMps = (_, v) => v / (Scale * (1 + (Growth * (v / 30) * (v / 30)))),
-            InitialSpeedMps = 12,
-            PreRollS = 0,
-            EndS = 19,
-            MetresPerPulse = MetresPerPulse,
-        };
+        WindowScene scene = MovingScene(Scale, Growth, 1);
         PulseChannel pulses = scene.Pulses();
         var options = Calibrated with { TyreGrowthSigmaAt30Mps = 0.01 };
-        RollingScaleInputs inputs = StandingInputs(scene, options) with
-        {
-            StartS = pulses.MidS(0),
-            StopS = stop,
-            Pulses = pulses,
-            Staged = false,
-            Opening = StartMotion.Estimate(pulses, MetresPerPulse, 1e-4),
-            FirstPassSpeedMps = SpeedOnGrid(scene),
-        };
+        RollingScaleInputs inputs = MovingInputs(scene, options);
 
         RollingScaleMeasurement measured = RollingScaleMeasure.Measure(inputs)!;
 
@@ -110,28 +96,11 @@ public class RollingScaleMeasureTests
         const double Scale = 1.01;
         const double Growth = 0.008;
         double read = 1 + accelScaleError;
-        double stop = 11.5 + (32 / 6.0);
-        var scene = new WindowScene
-        {
-            CarAccelMps2 = t => read * (t < 1 ? 0 : t < 11 ? 2 : t < 11.5 ? 0 : t < stop ? -6 : 0),
-            WheelSpeedMps = (_, v) => v / read / (Scale * (1 + (Growth * (v / read / 30) * (v / read / 30)))),
-            InitialSpeedMps = 12 * read,
-            PreRollS = 0,
-            EndS = 19,
-            MetresPerPulse = MetresPerPulse,
-        };
-        PulseChannel pulses = scene.Pulses();
+        WindowScene scene = MovingScene(Scale, Growth, read);
+
         // A static circumference told: the typical growth (0.35 % at 30 m/s) comes with it.
         var options = new ReconstructionOptions { TyreGrowthAt30Mps = 0.0035, TyreGrowthSigmaAt30Mps = 0.01 };
-        RollingScaleInputs inputs = StandingInputs(scene, options) with
-        {
-            StartS = pulses.MidS(0),
-            StopS = stop,
-            Pulses = pulses,
-            Staged = false,
-            Opening = StartMotion.Estimate(pulses, MetresPerPulse, 1e-4),
-            FirstPassSpeedMps = SpeedOnGrid(scene),
-        };
+        RollingScaleInputs inputs = MovingInputs(scene, options);
 
         RollingScaleMeasurement measured = RollingScaleMeasure.Measure(inputs)!;
 
@@ -170,6 +139,36 @@ public class RollingScaleMeasureTests
         };
 
         Assert.Null(RollingScaleMeasure.Measure(inputs));
+    }
+
+    /// <summary>Opens at 12 m/s; 2 m/s² from 1 s to 11 s (32 m/s); a coast to 11.5 s; 6 m/s²
+    /// to rest at 11.5 + 32/6 s; at rest to 19 s. The tyre rolls <paramref name="scale"/> times
+    /// the circumference told and grows by G·(v / 30 m/s)², G = <paramref name="growth"/>; the
+    /// accelerometer reads <paramref name="read"/> times the true force, so the scene is written
+    /// in the speeds it reads, v' = read·v, and the wheel turns at the true v = v' / read.</summary>
+    private static WindowScene MovingScene(double scale, double growth, double read) => new()
+    {
+        CarAccelMps2 = t => read * (t < 1 ? 0 : t < 11 ? 2 : t < 11.5 ? 0 : t < MovingStopS ? -6 : 0),
+        WheelSpeedMps = (_, v) => v / read / (scale * (1 + (growth * (v / read / 30) * (v / read / 30)))),
+        InitialSpeedMps = 12 * read,
+        PreRollS = 0,
+        EndS = 19,
+        MetresPerPulse = MetresPerPulse,
+    };
+
+    /// <summary>The inputs of a <see cref="MovingScene"/>: it opens moving at its first pulse and stops.</summary>
+    private static RollingScaleInputs MovingInputs(WindowScene scene, ReconstructionOptions options)
+    {
+        PulseChannel pulses = scene.Pulses();
+        return StandingInputs(scene, options) with
+        {
+            StartS = pulses.MidS(0),
+            StopS = MovingStopS,
+            Pulses = pulses,
+            Staged = false,
+            Opening = StartMotion.Estimate(pulses, MetresPerPulse, 1e-4),
+            FirstPassSpeedMps = SpeedOnGrid(scene),
+        };
     }
 
     private static RollingScaleInputs StandingInputs(WindowScene scene, ReconstructionOptions options) => new()
