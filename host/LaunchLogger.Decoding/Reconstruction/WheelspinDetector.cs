@@ -353,7 +353,7 @@ internal static class WheelspinDetector
 
     /// <summary>Distance from integrating the input twice from rest at the start, read at
     /// times that never go back (the input taken as linear between samples).</summary>
-    private sealed class RunningDistance(double[] t, double[] input, double startS)
+    internal sealed class RunningDistance(double[] t, double[] input, double startS)
     {
         private int next = FirstAfter(t, startS);
         private double time = startS;

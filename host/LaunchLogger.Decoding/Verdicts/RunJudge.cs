@@ -75,6 +75,12 @@ public static class RunJudge
                 : "at the launch the pulses ran ahead of the car by more than a tyre slips at its grip peak, and the launch marks may read early";
             reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: {where}")));
         }
+        else if (rec.SlipSwing is { Swings: true } swing)
+        {
+            // A slip that swings to and fro through the launch crosses the tyre's grip peak
+            // (SlipSwingTest): the wheel runs ahead in bursts no slip threshold sees.
+            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the driven wheel's slip swung to and fro through the launch ({swing.Swinging} of {swing.Blocks} blocks of {SlipSwingTest.BlockS:0.0} s beyond what its teeth and edges explain): a tyre crossing its grip peak, and the launch marks lean on pulses that ran ahead in bursts")));
+        }
 
         if (grade is { MountingCalibrated: true } g)
         {
