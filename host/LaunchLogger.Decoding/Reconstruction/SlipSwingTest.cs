@@ -64,19 +64,9 @@ public static class SlipSwingTest
         var speeds = new List<double>();
         long firstCount = 0;
         bool first = true;
-        for (int i = 0; i < pulses.Length; i++)
+        foreach (int i in WheelspinDetector.EdgesIn(pulses, startS, lastS))
         {
             double t = pulses.EdgeS(i);
-            if (t <= startS)
-            {
-                continue;
-            }
-
-            if (t > lastS)
-            {
-                break;
-            }
-
             double d = integral.At(t, out double v);
             if (v < FromSpeedMps)
             {
