@@ -170,7 +170,7 @@ internal sealed class WheelWindowFinder
         }
 
         return SlipSwingTest.Measure(
-            pulses, mpp, options.ToothSpacingErrorFraction * mpp, options.EdgeJitterS, input.AccelTimeS!, input.AccelInputMps2, input.StartS, input.EndS);
+            pulses, mpp, options.ToothSpacingErrorFraction * mpp, options.EdgeJitterS, input.AccelTimeS!, input.AccelInputMps2, input.StartS, input.EndS, options.LaunchSpinSlip);
     }
 
     private List<TimeWindow> FindWheelspin(List<TimeWindow> braking, out List<string> notes, out List<TimeWindow> atLaunch, out List<TimeWindow> pastPeak)
