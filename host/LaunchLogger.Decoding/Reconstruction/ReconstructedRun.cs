@@ -114,6 +114,10 @@ public sealed class ReconstructedRun
     /// sets the pulses aside for distance but is no spin.</summary>
     public IReadOnlyList<TimeWindow> SpinPastPeakWindows { get; init; } = [];
 
+    /// <summary>Whether the driven wheel's slip swung to and fro through the launch
+    /// (<see cref="SlipSwingTest"/>); null where it was not looked for.</summary>
+    public SlipSwing? SlipSwing { get; init; }
+
     /// <summary>Stretches near standstill where the pulses counted more than the accelerometer's
     /// distance by more than a tyre slips at its grip peak (spin at the launch,
     /// <see cref="WheelspinDetector.FindAtLaunch"/>). The pulses there were kept: this weighs on

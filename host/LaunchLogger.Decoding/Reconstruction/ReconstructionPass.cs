@@ -267,6 +267,7 @@ internal sealed partial class ReconstructionPass
             WheelspinWindows = spin,
             LaunchSpinWindows = windows.LaunchSpin,
             SpinPastPeakWindows = spinPastPeak,
+            SlipSwing = windows.Swing,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
             BrakeSlipPerMps2 = windows.BrakeSlipSignal is null ? null : fused.BrakeSlip,

@@ -66,6 +66,9 @@ internal sealed class WheelWindows
     /// (<see cref="WheelspinDetector.BeyondPeak"/>) and the slides the wheelspin detector found.</summary>
     public required List<TimeWindow> PastPeak { get; init; }
 
+    /// <summary>The launch's slip swing (<see cref="SlipSwingTest"/>); null where it is not looked for.</summary>
+    public SlipSwing? Swing { get; init; }
+
     /// <summary>The drive slip signal S(t) on the grid, or null when no drive slip is fitted.</summary>
     public double[]? DriveSlipSignal { get; init; }
 
@@ -113,6 +116,7 @@ internal sealed class WheelWindowFinder
         var finder = new WheelWindowFinder(input);
         List<TimeWindow> slides = finder.SlidingUnderBraking(finder.SlideSearchWindows(), out double behind);
         List<TimeWindow> spin = finder.FindWheelspin(slides, out List<string> spinWarnings, out List<TimeWindow> launchSpin, out List<TimeWindow> pastPeak);
+        SlipSwing? swing = finder.SlipSwing();
         double[]? slipSignal = finder.SlipSignal();
         List<TimeWindow> firm = finder.FirmBraking();
         double[]? brakeSlipSignal = finder.BrakeSlipSignal(firm);
@@ -124,6 +128,7 @@ internal sealed class WheelWindowFinder
             SpinWarnings = spinWarnings,
             LaunchSpin = launchSpin,
             PastPeak = pastPeak,
+            Swing = swing,
             DriveSlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,
             FirmBraking = brakeSlipSignal is null ? [] : firm.Where(w => !slides.Any(s => s.StartS < w.EndS && s.EndS > w.StartS)).ToList(),
@@ -153,6 +158,19 @@ internal sealed class WheelWindowFinder
         }
 
         return forces.FirmBraking(input.StartS, input.StopS, input.StartSpeedMps);
+    }
+
+    /// <summary>The launch's slip swing (<see cref="SlipSwingTest.Measure"/>), where the spin
+    /// finder looks: a staged run with both sensors.</summary>
+    private SlipSwing? SlipSwing()
+    {
+        if (!options.DetectWheelspin || pulses is null || !WithAccelerometer || !input.Staged)
+        {
+            return null;
+        }
+
+        return SlipSwingTest.Measure(
+            pulses, mpp, options.ToothSpacingErrorFraction * mpp, options.EdgeJitterS, input.AccelTimeS!, input.AccelInputMps2, input.StartS, input.EndS, options.LaunchSpinSlip);
     }
 
     private List<TimeWindow> FindWheelspin(List<TimeWindow> braking, out List<string> notes, out List<TimeWindow> atLaunch, out List<TimeWindow> pastPeak)

@@ -198,19 +198,9 @@ internal static class WheelspinDetector
         var distances = new List<double>();
         var speeds = new List<double>();
         double lastS = Math.Min(endS, startS + LaunchLongestS);
-        for (int i = 0; i < pulses.Length; i++)
+        foreach (int i in EdgesIn(pulses, startS, lastS))
         {
             double t = pulses.EdgeS(i);
-            if (t <= startS)
-            {
-                continue;
-            }
-
-            if (t > lastS)
-            {
-                break;
-            }
-
             double d = integral.At(t, out double v);
             times.Add(t);
             counts.Add(pulses.Counts[i]);
@@ -278,6 +268,24 @@ internal static class WheelspinDetector
     /// <summary>How far before first motion the launch's accelerometer distance is integrated
     /// from, s.</summary>
     public const double LaunchLeadInS = 0.05;
+
+    /// <summary>The indices of the edges after <paramref name="afterS"/> up to <paramref name="untilS"/>, in order.</summary>
+    internal static IEnumerable<int> EdgesIn(PulseChannel pulses, double afterS, double untilS)
+    {
+        for (int i = 0; i < pulses.Length; i++)
+        {
+            double t = pulses.EdgeS(i);
+            if (t > untilS)
+            {
+                yield break;
+            }
+
+            if (t > afterS)
+            {
+                yield return i;
+            }
+        }
+    }
 
     /// <summary>The union of <paramref name="windows"/>, sorted, overlapping ones merged.</summary>
     public static List<TimeWindow> Union(IEnumerable<TimeWindow> windows)
@@ -353,7 +361,7 @@ internal static class WheelspinDetector
 
     /// <summary>Distance from integrating the input twice from rest at the start, read at
     /// times that never go back (the input taken as linear between samples).</summary>
-    private sealed class RunningDistance(double[] t, double[] input, double startS)
+    internal sealed class RunningDistance(double[] t, double[] input, double startS)
     {
         private int next = FirstAfter(t, startS);
         private double time = startS;

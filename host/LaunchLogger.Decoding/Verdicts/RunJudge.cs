@@ -75,6 +75,14 @@ public static class RunJudge
                 : "at the launch the pulses ran ahead of the car by more than a tyre slips at its grip peak, and the launch marks may read early";
             reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: {where}")));
         }
+        else if (rec.SlipSwing is { Swings: true } swing && rec.WheelSlipPerMps2 is { } driveSlip && driveSlip.Value > 2 * driveSlip.Sigma && driveSlip.Value > 0)
+        {
+            // A slip that swings to and fro through the launch crosses the tyre's grip peak
+            // (SlipSwingTest): the wheel runs ahead in bursts no slip threshold sees. Only on a
+            // wheel the fusion found driven (its drive slip positive beyond 2σ): an undriven wheel
+            // passes no drive force and has no peak to cross — a swing there follows the car.
+            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the driven wheel's slip swung to and fro through the launch ({swing.Swinging} of {swing.Blocks} blocks of {SlipSwingTest.BlockS:0.0} s beyond what its teeth and edges explain): a tyre crossing its grip peak, and the launch marks lean on pulses that ran ahead in bursts")));
+        }
 
         if (grade is { MountingCalibrated: true } g)
         {

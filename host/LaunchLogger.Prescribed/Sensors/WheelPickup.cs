@@ -29,7 +29,10 @@ namespace LaunchLogger.Prescribed.Sensors;
 /// <param name="Spin">A driven wheel's spin past its tyre's friction peak (its rate then gains
 /// v·κ_spin / C(v), κ_spin counted from the car's first motion); null for none. Not with
 /// <paramref name="SpinUp"/>: an undriven wheel cannot spin.</param>
-public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null, SpinUpLag? SpinUp = null, BrakeSlip? Brake = null, WheelSpin? Spin = null)
+/// <param name="Wobble">A driven wheel's slip swinging across its tyre's grip peak (its rate then
+/// gains v·κ_w / C(v), κ_w counted from the car's first motion); null for none. Not with
+/// <paramref name="SpinUp"/>.</param>
+public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction = 0.5, DriveSlip? Slip = null, SpinUpLag? SpinUp = null, BrakeSlip? Brake = null, WheelSpin? Spin = null, SlipWobble? Wobble = null)
 {
     /// <summary>Longest span integrated in one piece, s.</summary>
     public const double ChunkS = 0.05;
@@ -59,12 +62,12 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
             throw new ArgumentException("a driven wheel's slip and an undriven wheel's spin-up lag do not go together", nameof(profile));
         }
 
-        if (Spin != null && SpinUp != null)
+        if ((Spin != null || Wobble != null) && SpinUp != null)
         {
             throw new ArgumentException("an undriven wheel (one with a spin-up lag) cannot spin", nameof(profile));
         }
 
-        return Tyre.Rigid && Slip is null && SpinUp is null && Brake is null && Spin is null ? RigidEdges(profile) : GrowingEdges(profile);
+        return Tyre.Rigid && Slip is null && SpinUp is null && Brake is null && Spin is null && Wobble is null ? RigidEdges(profile) : GrowingEdges(profile);
     }
 
     private double[] RigidEdges(MotionProfile profile)
@@ -141,7 +144,7 @@ public sealed record WheelPickup(int Teeth, TyreModel Tyre, double PhaseFraction
         {
             double tau = t - s.StartS;
             (double v, double accel) = s.SpeedAndAccelAt(tau);
-            double slip = (Slip?.At(s.StateAt(tau).DistanceM, accel, v) ?? 0) - (SpinUp?.At(accel) ?? 0) - (Brake?.At(accel) ?? 0) + (Spin?.At(t - motionS) ?? 0);
+            double slip = (Slip?.At(s.StateAt(tau).DistanceM, accel, v) ?? 0) - (SpinUp?.At(accel) ?? 0) - (Brake?.At(accel) ?? 0) + (Spin?.At(t - motionS) ?? 0) + (Wobble?.At(t - motionS) ?? 0);
             return v * (1 + slip) / Tyre.CircumferenceAt(v);
         }
 
