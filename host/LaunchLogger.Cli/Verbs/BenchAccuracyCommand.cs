@@ -75,6 +75,10 @@ public static class BenchAccuracyCommand
 
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
+
+        // The pulses-only driven copies of the rolling starts are made only when told or named.
+        bool Named(BenchGroup group) => groups?.Contains(group) == true;
+        bool Shown(BenchGroup group) => Wanted(group) && (group != BenchGroup.GeneratedRollingPulsesDriven || pickupWheelTold || Named(group));
         var started = System.Diagnostics.Stopwatch.StartNew();
         var all = new List<CaseOutcome>();
         int decodedCases = 0;
@@ -84,7 +88,7 @@ public static class BenchAccuracyCommand
             for (int k = 0; k < drawn.Count; k++)
             {
                 string label = seeds is null ? "bench accuracy" : Text($"bench accuracy: seed {drawn[k]} ({k + 1} of {drawn.Count}, {started.Elapsed.TotalSeconds:0} s so far)");
-                (List<CaseOutcome> outcomes, int cases) = Decode(runs, drawn[k], calibratedTyre, calibratedAccel, pickupWheelTold, Wanted, label, error, cancel, g => groups?.Contains(g) == true);
+                (List<CaseOutcome> outcomes, int cases) = Decode(runs, drawn[k], calibratedTyre, calibratedAccel, pickupWheelTold, Wanted, label, error, cancel, Named);
                 all.AddRange(seeds is null ? outcomes : outcomes.Select(o => o with { Seed = drawn[k] }));
                 decodedCases += cases;
             }
@@ -99,11 +103,11 @@ public static class BenchAccuracyCommand
         {
             if (seeds is null)
             {
-                WriteJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seed, simulatedRuns, runs - simulatedRuns, output);
+                WriteJson(all, Enum.GetValues<BenchGroup>().Where(Shown), seed, simulatedRuns, runs - simulatedRuns, output);
             }
             else
             {
-                WritePooledJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seeds, simulatedRuns, runs - simulatedRuns, calibratedTyre, output);
+                WritePooledJson(all, Enum.GetValues<BenchGroup>().Where(Shown), seeds, simulatedRuns, runs - simulatedRuns, calibratedTyre, output);
             }
 
             return ExitCode.Ok;
@@ -131,7 +135,7 @@ public static class BenchAccuracyCommand
         }
 
         List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
-        foreach (BenchGroup group in Enum.GetValues<BenchGroup>().Where(Wanted))
+        foreach (BenchGroup group in Enum.GetValues<BenchGroup>().Where(Shown))
         {
             WriteGroup(group, decoded.Where(o => o.Group == group).ToList(), all.Count(o => o.Group == group && !o.RunsAsExpected), calibratedTyre, output, seeds);
         }
