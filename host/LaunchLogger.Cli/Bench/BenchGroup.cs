@@ -50,4 +50,10 @@ public enum BenchGroup
     /// car, sensors and draws, with the launch's ramp taken up through a first-order lag of 0.02–0.15 s (the acceleration
     /// starting like τ² and easing into the ramp, reaching the peak later by up to the lag).</summary>
     GeneratedStandingLagged,
+
+    /// <summary>Generator: the records that open moving above again, pulses only, the pickup on a
+    /// wheel of the car's one driven pair slipping by a drawn slip law (the same car, tyre, pickup
+    /// and noise otherwise); told driven with <c>--pickup-wheel-told</c>. Made only with that option
+    /// or when named by <c>--group</c>, so the default bench is as it was.</summary>
+    GeneratedRollingPulsesDriven,
 }

@@ -22,6 +22,10 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// <summary>The static circumference told as such (the settings' <c>static_circumference_m</c>), metres, when the tyre is not calibrated.</summary>
     public double? StaticTyreM { get; init; }
 
+    /// <summary>Which wheel carries the pickup as the settings tell it (<c>pickup_wheel</c>), or
+    /// null when not said.</summary>
+    public LaunchLogger.Decoding.Reconstruction.PickupWheel? PickupWheelTold { get; init; }
+
     private const double Mph = 0.44704;
 
     private static readonly (BenchGroup Group, double Share)[] Shares =
@@ -61,7 +65,10 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
     /// to build when their group is not wanted).</param>
     /// <param name="laggedLaunches">False to leave out the lagged-launch copies (they come after
     /// the smooth ones and keep their indices whether those are made or not).</param>
-    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false, bool smoothLaunches = true, bool laggedLaunches = true)
+    /// <param name="rollingPulsesDriven">True to add, after all those, every record that opens
+    /// moving once more with pulses only on a driven wheel (<see cref="AddRollingPulsesDriven"/>).</param>
+    /// <param name="pickupWheelTold">True to tell those copies' wheel driven.</param>
+    public static IReadOnlyList<PrescribedBenchCase> Build(int runs, int seed, int firstIndex, bool calibratedTyre, bool calibratedAccel = false, bool smoothLaunches = true, bool laggedLaunches = true, bool rollingPulsesDriven = false, bool pickupWheelTold = false)
     {
         int[] teeth = [8, 12, 16, 24, 36, 48, 60, 80, 100];
         double[] rates = [100, 200, 400, 800, 1600];
@@ -141,7 +148,48 @@ public sealed record PrescribedBenchCase(int Index, PrescribedRecordSpec Spec, B
         int smoothFirst = firstIndex + cases.Count;
         AddTakeUps(cases, standingShapeSeeds, smoothLaunches, LaunchTakeUp.RaisedCosine, BenchGroup.GeneratedStandingSmooth, smoothFirst, 1);
         AddTakeUps(cases, standingShapeSeeds, laggedLaunches, LaunchTakeUp.Lagged, BenchGroup.GeneratedStandingLagged, smoothFirst + standingShapeSeeds.Count, 2);
+        if (rollingPulsesDriven)
+        {
+            int rollingFirst = smoothFirst + standingShapeSeeds.Count + ((standingShapeSeeds.Count + 1) / 2);
+            AddRollingPulsesDriven(cases, seed, rollingFirst, pickupWheelTold);
+        }
+
         return cases;
+    }
+
+    /// <summary>Adds every record that opens moving once more, numbered from
+    /// <paramref name="firstIndex"/>: pulses only, the pickup on a wheel of the car's one driven
+    /// pair, which slips by κ = k·(a + c_d·v² + c_r) (<see cref="DriveSlip"/>; no launch part, the
+    /// record opens cruising) and is not spun up by the road. Drawn from a stream of their own, so
+    /// the records above stay as they are: k = share/(C·g0) with a car tyre's slip stiffness C of
+    /// 15–30 per unit slip (H. B. Pacejka, "Tire and Vehicle Dynamics", ch. 1; from memory) and a
+    /// driven pair's share 1.4–2.3 (T. D. Gillespie, "Fundamentals of Vehicle Dynamics", ch. 2;
+    /// from memory), both uniform; the drag ½·ρ·Cd·A/m of a car of 1,100–1,900 kg with Cd·A
+    /// 0.5–0.8 m² in air of 1.2 kg/m³ and a rolling coefficient of 0.008–0.015 (common practice).</summary>
+    private static void AddRollingPulsesDriven(List<PrescribedBenchCase> cases, int seed, int firstIndex, bool told)
+    {
+        var slipRandom = new Random(unchecked((seed * 43) + 19));
+        PrescribedBenchCase[] rolling = cases.Where(c => c.Group == BenchGroup.GeneratedRolling).ToArray();
+        for (int i = 0; i < rolling.Length; i++)
+        {
+            PrescribedBenchCase c = rolling[i];
+            double stiffness = 15 + (15 * slipRandom.NextDouble());
+            double share = 1.4 + (0.9 * slipRandom.NextDouble());
+            double drag = 0.5 * 1.2 * (0.5 + (0.3 * slipRandom.NextDouble())) / (1100 + (800 * slipRandom.NextDouble()));
+            double rollingCoefficient = 0.008 + (0.007 * slipRandom.NextDouble());
+            var law = new DriveSlip(PerMps2: share / (stiffness * 9.80665), LaunchPerMps2: 0, DragPerSpeedSquared: drag, RollingMps2: rollingCoefficient * 9.80665);
+            PrescribedRecordSpec spec = c.Spec with { Accel = null, Pickup = c.Spec.Pickup with { SpinUp = null, Slip = law } };
+            string summary = Invariant($"{c.Summary[..c.Summary.IndexOf("; accelerometer", StringComparison.Ordinal)]}; pulses only; driven wheel, k {law.PerMps2:0.0000} s²/m (C {stiffness:0.0}, share {share:0.00}){(told ? ", told driven" : "")}; {(c.AsLog ? "log" : "CSV")}");
+            cases.Add(c with
+            {
+                Index = firstIndex + i,
+                Spec = spec,
+                Group = BenchGroup.GeneratedRollingPulsesDriven,
+                Summary = summary,
+                AccelCalibration = null,
+                PickupWheelTold = told ? LaunchLogger.Decoding.Reconstruction.PickupWheel.Driven : null,
+            });
+        }
     }
 
     /// <summary>Adds every <paramref name="every"/>-th standing start (from the first) once more

@@ -96,7 +96,7 @@ public static class PrescribedBenchmark
     {
         ArgumentNullException.ThrowIfNull(c);
         ArgumentNullException.ThrowIfNull(record);
-        AnalysisOptions? options = AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM);
+        AnalysisOptions? options = AccelScaleDraw.Options(c.AccelCalibration, c.TyreCalibration, c.StaticTyreM, c.PickupWheelTold);
         return c.AsLog ? SessionAnalyzer.Analyze(LogReader.Read(record.ToLog(), c.Spec.Shape.Name).Runs, options, cancel: cancel) : AnalyzeFiles(record, options, cancel);
     }
 

@@ -20,7 +20,7 @@ public static class BenchAccuracyCommand
         var only = new Option<BenchGroup[]>("--group") { Description = "Decode only these groups (the same runs as in the whole benchmark, for working on one group).", AllowMultipleArgumentsPerToken = true };
         var errorsCsv = new Option<FileInfo?>("--errors-csv") { Description = "Also write every run's error, σ and error/σ per figure to this CSV file (for pooling seeds)." };
         var json = new Option<bool>("--json") { Description = "Write the verdict accounting as JSON (per group and over the bench: runs judged, as expected, each level, the unexpected runs' reason codes, the two verdict goals) instead of the tables; with --seeds, each group's pooled figures and goals too." };
-        var pickupWheelTold = new Option<bool>("--pickup-wheel-told") { Description = "Tell the decoder which wheel carries each simulated run's pickup (the settings' pickup_wheel: driven, driven_all_wheels or undriven), as a user who knows the car would; by default not said. Only runs with pulses alone change." };
+        var pickupWheelTold = new Option<bool>("--pickup-wheel-told") { Description = "Tell the decoder which wheel carries each simulated run's pickup (the settings' pickup_wheel: driven, driven_all_wheels or undriven), as a user who knows the car would; by default not said. Only runs with pulses alone change; the generated records that open moving are decoded once more, pulses only on a driven wheel told driven (the group GeneratedRollingPulsesDriven, which --group names without this option to decode them not told)." };
 
         // Pooling seeds: a block of its own.
         var seeds = new Option<string?>("--seeds") { Description = "Run the bench at each of these seeds (1-4, or 1,3,7) and judge every group's figures, coverage and goals over all their runs pooled, each pooled p95 with its distribution-free 95 % interval and each goal with every seed's own p95 beside it: for the small groups, whose p95 at one seed is one run. Not with --seed." };
@@ -75,6 +75,10 @@ public static class BenchAccuracyCommand
 
         int simulatedRuns = runs / 2;
         bool Wanted(BenchGroup group) => groups == null || groups.Count == 0 || groups.Contains(group);
+
+        // The pulses-only driven copies of the rolling starts are made only when told or named.
+        bool Named(BenchGroup group) => groups?.Contains(group) == true;
+        bool Shown(BenchGroup group) => Wanted(group) && (group != BenchGroup.GeneratedRollingPulsesDriven || pickupWheelTold || Named(group));
         var started = System.Diagnostics.Stopwatch.StartNew();
         var all = new List<CaseOutcome>();
         int decodedCases = 0;
@@ -84,7 +88,7 @@ public static class BenchAccuracyCommand
             for (int k = 0; k < drawn.Count; k++)
             {
                 string label = seeds is null ? "bench accuracy" : Text($"bench accuracy: seed {drawn[k]} ({k + 1} of {drawn.Count}, {started.Elapsed.TotalSeconds:0} s so far)");
-                (List<CaseOutcome> outcomes, int cases) = Decode(runs, drawn[k], calibratedTyre, calibratedAccel, pickupWheelTold, Wanted, label, error, cancel);
+                (List<CaseOutcome> outcomes, int cases) = Decode(runs, drawn[k], calibratedTyre, calibratedAccel, pickupWheelTold, Wanted, label, error, cancel, Named);
                 all.AddRange(seeds is null ? outcomes : outcomes.Select(o => o with { Seed = drawn[k] }));
                 decodedCases += cases;
             }
@@ -99,11 +103,11 @@ public static class BenchAccuracyCommand
         {
             if (seeds is null)
             {
-                WriteJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seed, simulatedRuns, runs - simulatedRuns, output);
+                WriteJson(all, Enum.GetValues<BenchGroup>().Where(Shown), seed, simulatedRuns, runs - simulatedRuns, output);
             }
             else
             {
-                WritePooledJson(all, Enum.GetValues<BenchGroup>().Where(Wanted), seeds, simulatedRuns, runs - simulatedRuns, calibratedTyre, output);
+                WritePooledJson(all, Enum.GetValues<BenchGroup>().Where(Shown), seeds, simulatedRuns, runs - simulatedRuns, calibratedTyre, output);
             }
 
             return ExitCode.Ok;
@@ -111,7 +115,7 @@ public static class BenchAccuracyCommand
 
         string tyre = (calibratedTyre ? "tyre taken as calibrated at speed (true rolling circumference told with a 0.1 % σ, no growth)" : "tyre NOT calibrated (static circumference told, and said to be static in the settings; the tyre rolls on 0-2 % less and grows with speed)")
             + (calibratedAccel ? "; accelerometer's forward scale calibrated (told to 0.2 %, drawn errors 1 % σ)" : "; accelerometer's scale NOT calibrated (errors 1 % σ)")
-            + (pickupWheelTold ? "; each simulated pickup's wheel told (driven or undriven)" : "");
+            + (pickupWheelTold ? "; each simulated pickup's wheel told (driven or undriven), and the generated rolling starts' pulses-only copies on a driven wheel told driven" : "");
         string drawnAt = seeds is null ? Text($"seed {seed}") : Text($"at each of the {seeds.Count} seeds {SeedList.Describe(seeds)}, pooled");
         output.WriteLine(Text($"bench accuracy: {simulatedRuns} simulated runs + {runs - simulatedRuns} generated records (their stops from cruise again with a brake switch, their standing starts again with a smooth take-up, every other one again with a lagged take-up), {drawnAt}, {started.Elapsed.TotalSeconds:0} s on {Environment.ProcessorCount} cores; error = estimate − truth; {tyre}"));
         if (seeds is not null)
@@ -131,7 +135,7 @@ public static class BenchAccuracyCommand
         }
 
         List<CaseOutcome> decoded = all.Where(o => o.Failure == null).ToList();
-        foreach (BenchGroup group in Enum.GetValues<BenchGroup>().Where(Wanted))
+        foreach (BenchGroup group in Enum.GetValues<BenchGroup>().Where(Shown))
         {
             WriteGroup(group, decoded.Where(o => o.Group == group).ToList(), all.Count(o => o.Group == group && !o.RunsAsExpected), calibratedTyre, output, seeds);
         }
@@ -163,12 +167,13 @@ public static class BenchAccuracyCommand
     /// on <paramref name="error"/> under <paramref name="label"/>: every run's outcome, and how
     /// many cases were decoded.</summary>
     /// <exception cref="OperationCanceledException">Cancelled.</exception>
-    private static (List<CaseOutcome> Outcomes, int Cases) Decode(int runs, int seed, bool calibratedTyre, bool calibratedAccel, bool pickupWheelTold, Func<BenchGroup, bool> wanted, string label, TextWriter error, CancellationToken cancel)
+    private static (List<CaseOutcome> Outcomes, int Cases) Decode(int runs, int seed, bool calibratedTyre, bool calibratedAccel, bool pickupWheelTold, Func<BenchGroup, bool> wanted, string label, TextWriter error, CancellationToken cancel, Func<BenchGroup, bool>? named = null)
     {
+        named ??= _ => false;
         int simulatedRuns = runs / 2;
         IReadOnlyList<AccuracyCase> simulated = AccuracyCase.Build(simulatedRuns, seed, calibratedTyre, calibratedAccel).Where(c => wanted(c.Group))
             .Select(c => pickupWheelTold ? c with { PickupWheelTold = c.PickupWheelKnown } : c).ToList();
-        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, wanted(BenchGroup.GeneratedStandingSmooth), wanted(BenchGroup.GeneratedStandingLagged)).Where(c => wanted(c.Group)).ToList();
+        IReadOnlyList<PrescribedBenchCase> generated = PrescribedBenchCase.Build(runs - simulatedRuns, seed, simulatedRuns, calibratedTyre, calibratedAccel, wanted(BenchGroup.GeneratedStandingSmooth), wanted(BenchGroup.GeneratedStandingLagged), pickupWheelTold || named(BenchGroup.GeneratedRollingPulsesDriven), pickupWheelTold).Where(c => wanted(c.Group)).ToList();
         List<CaseOutcome> outcomes = ParallelCases.Run(simulated, AccuracyBenchmark.Run, $"{label}: simulated runs decoded", error, cancel).SelectMany(o => o).ToList();
         outcomes.AddRange(ParallelCases.Run(generated, PrescribedBenchmark.Run, $"{label}: generated records decoded", error, cancel).SelectMany(o => o));
         return (outcomes, simulated.Count + generated.Count);
@@ -194,6 +199,7 @@ public static class BenchAccuracyCommand
         BenchGroup.GeneratedStopAndGo => "Generated, stop-and-go: two standing runs in one record",
         BenchGroup.GeneratedStandingSmooth => "Generated, the standing starts above again with a smooth take-up (raised-cosine rise, same car and sensors)",
         BenchGroup.GeneratedStandingLagged => "Generated, every other standing start above again with a lagged take-up (the ramp through a 0.02-0.15 s lag, same car and sensors)",
+        BenchGroup.GeneratedRollingPulsesDriven => "Generated, the records that open moving above again, pulses only, on a driven wheel slipping by a drawn slip law (k 0.0048-0.0156 s²/m)",
         _ => group.ToString(),
     };
 
@@ -211,7 +217,7 @@ public static class BenchAccuracyCommand
         BenchGroup.SimulatedAccelDriven or BenchGroup.SimulatedPulsesDriven
             => "valid, or doubtful with wheelspin where the pickup wheel slipped past the tyre's friction peak for over 0.05 s before braking",
         // No standstill: the standing-start figures cannot be supported.
-        BenchGroup.GeneratedRolling or BenchGroup.GeneratedCruiseStop
+        BenchGroup.GeneratedRolling or BenchGroup.GeneratedCruiseStop or BenchGroup.GeneratedRollingPulsesDriven
             => "invalid with rolling_start alone (the record opens moving)",
         // The same, and a stalled loop's own marks.
         BenchGroup.GeneratedCruiseStopSwitch => "invalid with rolling_start (the record opens moving); a polled loop that stalls may add wide_brackets, accel_overflow",
@@ -281,7 +287,7 @@ public static class BenchAccuracyCommand
         VerdictGoals(verdicts, output);
         switch (group)
         {
-            case BenchGroup.GeneratedRolling:
+            case BenchGroup.GeneratedRolling or BenchGroup.GeneratedRollingPulsesDriven:
                 int reported = runs.Count(o => o.StandingFigureOnRollingStart);
                 output.WriteLine(Text($"    no standing-start figure reported, ever: {reported} of {runs.Count} runs had one — {(reported == 0 ? "met" : "NOT met")}"));
                 break;

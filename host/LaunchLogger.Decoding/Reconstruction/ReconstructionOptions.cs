@@ -193,7 +193,8 @@ public sealed record ReconstructionOptions
 
     /// <summary>Which wheel carries the pickup, when told (<see cref="Reconstruction.PickupWheel"/>);
     /// <see cref="PickupWheel.NotSaid"/> keeps <see cref="PulsesOnlyLaunchSlip"/> about an unmoved
-    /// estimate. Used only with pulses alone on a standing start.</summary>
+    /// estimate. Used only with pulses alone: the launch slip on a standing start, the drive slip
+    /// (<see cref="DrivenSlip"/>) on it and on a record that opens moving.</summary>
     public PickupWheel PickupWheel { get; init; } = PickupWheel.NotSaid;
 
     /// <summary>Expected launch slip of a wheel told to be driven, as a fraction of the distance

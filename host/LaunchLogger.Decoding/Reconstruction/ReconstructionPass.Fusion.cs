@@ -216,8 +216,12 @@ internal sealed partial class ReconstructionPass
                 // for the accelerometer), and so is the launch slip near the tyre's grip limit.
                 double drive = Math.Max(fused.Third[k] + (options.DragPerMassPerSpeedSquared * speed[k] * speed[k]) + (options.RollingResistance * Units.StandardGravity), 0);
                 double fade = options.LaunchSlipFadeM;
+                // A record that opens moving has no launch, but a told driven wheel slips by its
+                // law wherever it passes drive (a rolling start's pull, a second run's launch past
+                // its first metres): its law's mean and spread apply from the first observation,
+                // where the distance counts from.
                 (double launchMean, double launchSigma) = Staged ? PulsesOnlyLaunchSlip() : (0, 0);
-                (double driveMean, double driveSigma) = Staged ? PulsesOnlyDriveSlip() : (0, options.WheelSlipSigma);
+                (double driveMean, double driveSigma) = PulsesOnlyDriveSlip();
 
                 // Where a launch slip is expected, the tyre works at its peak at the start and its
                 // linear slip law takes over as the launch slip fades (the launch's F is the
