@@ -21,14 +21,14 @@ public sealed partial class SessionArchive
         name = CheckName(kind, name);
         if (FindId(kind, name) is not null)
         {
-            throw new ArchiveException($"a {kind.Noun} named '{name}' exists already; change it with `{kind.Noun} edit`");
+            throw new ArchiveException($"{kind.WithArticle} named '{name}' exists already; change it with `{kind.Noun} edit`");
         }
 
         foreach (RecordField required in kind.Fields.Where(f => f.Required))
         {
             if (!fields.TryGetValue(required.Name, out string? v) || string.IsNullOrWhiteSpace(v))
             {
-                throw new ArchiveException($"a {kind.Noun} needs --{required.Name}");
+                throw new ArchiveException($"{kind.WithArticle} needs --{required.Name}");
             }
         }
 
@@ -54,7 +54,7 @@ public sealed partial class SessionArchive
             rename = CheckName(kind, rename);
             if (FindId(kind, rename) is { } other && other != id)
             {
-                throw new ArchiveException($"a {kind.Noun} named '{rename}' exists already");
+                throw new ArchiveException($"{kind.WithArticle} named '{rename}' exists already");
             }
 
             values.Insert(0, ("name", rename));
@@ -261,7 +261,7 @@ public sealed partial class SessionArchive
             }
 
             RecordField field = kind.Fields.FirstOrDefault(f => f.Name == key)
-                ?? throw new ArchiveException($"a {kind.Noun} has no field '{key}'");
+                ?? throw new ArchiveException($"{kind.WithArticle} has no field '{key}'");
             string text = raw.Trim();
             values.Add((field.Column, text.Length == 0 ? null : field.Kind switch
             {
@@ -280,7 +280,7 @@ public sealed partial class SessionArchive
         string trimmed = (name ?? "").Trim();
         if (trimmed.Length == 0 || trimmed.Length > 200)
         {
-            throw new ArchiveException($"a {kind.Noun} needs a name of 1 to 200 characters");
+            throw new ArchiveException($"{kind.WithArticle} needs a name of 1 to 200 characters");
         }
 
         return trimmed;

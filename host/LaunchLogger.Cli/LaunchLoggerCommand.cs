@@ -38,8 +38,9 @@ public static class LaunchLoggerCommand
 
     /// <summary>Parses and runs <paramref name="args"/>; returns the process exit code.</summary>
     /// <remarks>System.CommandLine reports a parse error (unknown option, missing or unparsable
-    /// value) with exit code 1; here it becomes <see cref="ExitCode.Usage"/> (3), as ExitCode.cs
-    /// and the README promise. When <paramref name="cancel"/> fires (Ctrl+C) and the verb does not
+    /// value) with exit code 1 and the whole help text; here it becomes <see cref="ExitCode.Usage"/>
+    /// (3), as ExitCode.cs and the README promise, and each error one line in the user's words
+    /// (<see cref="ParseErrorMessages"/>); `launchlogger` alone still prints the whole help. When <paramref name="cancel"/> fires (Ctrl+C) and the verb does not
     /// finish cleanly, the code is <see cref="ExitCode.Cancelled"/> (130): a verb that gives up
     /// with OperationCanceledException would otherwise end with 1. The caller handles the
     /// signals (Program.cs); System.CommandLine's own handler, which is set up only after a
@@ -47,6 +48,12 @@ public static class LaunchLoggerCommand
     public static async Task<int> InvokeAsync(string[] args, TextWriter output, TextWriter error, CancellationToken cancel = default)
     {
         ParseResult parsed = Create().Parse(args);
+        if (parsed.Errors.Count > 0 && args.Length > 0 && parsed.Action is not System.CommandLine.Help.HelpAction)
+        {
+            ParseErrorMessages.Write(parsed, error);
+            return (int)ExitCode.Usage;
+        }
+
         int code = await parsed.InvokeAsync(new InvocationConfiguration { Output = output, Error = error, ProcessTerminationTimeout = null }, cancel);
         if (parsed.Errors.Count > 0)
         {

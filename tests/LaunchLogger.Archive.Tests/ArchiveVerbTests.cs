@@ -63,6 +63,14 @@ public class ArchiveVerbTests
         (int code, string error) = await Run("event", "add", "Spring", "--date", "2026-04-12");
         Assert.Equal(((int)ExitCode.Ok, ""), (code, error));
         Assert.Equal((int)ExitCode.BadInput, (await Run("event", "add", "spring", "--date", "2026-04-12")).Code);
+        Assert.Equal(((int)ExitCode.BadInput, "launchlogger event add: an event named 'Spring' exists already; change it with `event edit`"), await Run("event", "add", "Spring", "--date", "2026-04-12"));
+        Assert.Equal(((int)ExitCode.BadInput, "launchlogger event add: an event needs --date"), await Run("event", "add", "Summer"));
+        Assert.Equal((int)ExitCode.Ok, (await Run("car", "add", "Blue")).Code);
+        Assert.Equal(((int)ExitCode.BadInput, "launchlogger car add: a car named 'Blue' exists already; change it with `car edit`"), await Run("car", "add", "Blue"));
+        var help = new StringWriter();
+        Assert.Equal(0, await LaunchLoggerCommand.InvokeAsync(["event", "--help"], help, new StringWriter()));
+        Assert.Contains("Add an event.", help.ToString());
+        Assert.Contains("Change an event's fields", help.ToString());
     }
 
     [Fact]

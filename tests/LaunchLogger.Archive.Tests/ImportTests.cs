@@ -12,6 +12,37 @@ namespace LaunchLogger.Archive.Tests;
 public class ImportTests
 {
     [Fact]
+    public void A_file_that_is_not_a_log_is_refused_by_name_and_not_filed()
+    {
+        // A new user's slip: a text file and an empty file named on the command line beside a
+        // real log. Before, both were filed as "new … 0 run(s)" with exit 0; they are not logs.
+        using var temp = new TempFolder();
+        string text = temp.File("notes.log");
+        File.WriteAllText(text, "hello world\n");
+        string empty = temp.File("empty.log");
+        File.WriteAllBytes(empty, []);
+        string real = temp.File("run.log");
+        File.WriteAllBytes(real, TestLogs.Hatch);
+        string archive = temp.File("a.db");
+
+        var output = new StringWriter();
+        var error = new StringWriter();
+        Assert.Equal(ExitCode.Partial, ImportCommand.Run(archive, [text, empty, real], RunAssignment.None, false, output, error));
+        Assert.Contains("notes.log: not filed: no runs in it", error.ToString());
+        Assert.Contains("not a log", error.ToString());
+        Assert.Contains("empty.log: not filed: no runs in it (the file is empty)", error.ToString());
+        Assert.Contains("1 new log(s), 1 run(s) filed", output.ToString());
+
+        var alone = new StringWriter();
+        Assert.Equal(ExitCode.BadInput, ImportCommand.Run(archive, [text], RunAssignment.None, false, new StringWriter(), alone));
+        Assert.Contains("notes.log: not filed", alone.ToString());
+
+        using SessionArchive opened = SessionArchive.Open(archive);
+        Assert.Single(opened.ListRuns().Rows);
+        Assert.Null(opened.FindLog(LogAnalyzer.HashFile(text)));
+    }
+
+    [Fact]
     public void Importing_the_same_logs_twice_adds_nothing_the_second_time()
     {
         using var temp = new TempFolder();

@@ -46,6 +46,9 @@ public sealed class RecordKind
     /// <summary>The verb, e.g. "event".</summary>
     public string Noun { get; }
 
+    /// <summary>The noun with its indefinite article, for messages: "an event", "a car".</summary>
+    public string WithArticle => ("aeiou".Contains(Noun[0], StringComparison.Ordinal) ? "an " : "a ") + Noun;
+
     /// <summary>The archive table.</summary>
     public string Table { get; }
 

@@ -4,6 +4,7 @@ using System.Text.Json;
 using LaunchLogger.Decoding.Analysis;
 using LaunchLogger.Decoding.CrossCheck;
 using LaunchLogger.Decoding.Import;
+using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Reporting;
 using LaunchLogger.Decoding.Runs;
 using LaunchLogger.Cli.Output;
@@ -96,6 +97,10 @@ public static class CrossCheckCommand
             };
             ours = RunAnalyzer.Analyze(runs[runNumber - 1]);
             result = CrossChecker.Compare(ours, theirs, speedSigma);
+            if (map is not null && SpeedUnitProblem(ours, theirs, result.Alignment, map) is { } problem)
+            {
+                throw new InputException(with.FullName, 0, problem);
+            }
         }
         catch (InputException e)
         {
@@ -133,6 +138,47 @@ public static class CrossCheckCommand
         }
 
         return result.Rows.All(r => r.WithinUncertainty) ? ExitCode.Ok : ExitCode.Partial;
+    }
+
+    /// <summary>The CSV speed units a user picks from, m/s per unit (as --speed-unit reads them).</summary>
+    private static readonly (string Name, double MpsPer)[] SpeedUnits = new[] { "mps", "kmh", "mph", "knots" }
+        .Select(name => (name, TraceColumns.Parse("time=t,speed=v", name).MpsPerSpeedUnit)).ToArray();
+
+    /// <summary>Why a CSV record's speeds cannot be compared with ours, or null. Their top speed
+    /// over our run (their samples within 5 s of it, on our clock) must lie within 15 % of ours:
+    /// no instrument of the same drive reads further off, but a speed column in km/h read as m/s
+    /// reads 3.6 times ours, and its "figures" are then quietly wrong by seconds. Neither the
+    /// alignment's speed scale (its cubic term takes up part of the factor) nor a fit over the run
+    /// (the clock offset found for wrong speeds is itself off by seconds) shows the factor; the two
+    /// top speeds do.</summary>
+    public static string? SpeedUnitProblem(RunAnalysis ours, SpeedTrace theirs, TraceAlignment alignment, TraceColumns map)
+    {
+        ArgumentNullException.ThrowIfNull(ours);
+        ArgumentNullException.ThrowIfNull(theirs);
+        ArgumentNullException.ThrowIfNull(alignment);
+        ArgumentNullException.ThrowIfNull(map);
+        const double MarginS = 5;
+        Trajectory trajectory = ours.Reconstruction.Trajectory;
+        double ourTop = trajectory.SpeedMps.Where(double.IsFinite).DefaultIfEmpty(0).Max();
+        double theirTop = Enumerable.Range(0, theirs.Count)
+            .Where(i => theirs.TimeS[i] + alignment.OffsetS >= trajectory.TimeS[0] - MarginS && theirs.TimeS[i] + alignment.OffsetS <= trajectory.TimeS[^1] + MarginS)
+            .Select(i => theirs.SpeedMps[i])
+            .Where(double.IsFinite)
+            .DefaultIfEmpty(0)
+            .Max();
+        double ratio = theirTop / ourTop;
+        if (!(ourTop > 3 && theirTop > 0) || (ratio > 1 / 1.15 && ratio < 1.15))
+        {
+            return null;
+        }
+
+        string given = SpeedUnits.MinBy(u => Math.Abs(u.MpsPer - map.MpsPerSpeedUnit)).Name;
+        double implied = map.MpsPerSpeedUnit / ratio;
+        (string Name, double MpsPer) nearest = SpeedUnits.MinBy(u => Math.Abs(Math.Log(implied / u.MpsPer)));
+        string hint = nearest.Name != given && Math.Abs(Math.Log(implied / nearest.MpsPer)) < Math.Log(1.12)
+            ? $"; they agree if the column is in {nearest.Name}: try --speed-unit {nearest.Name}"
+            : "; is it the same drive, and the right --columns speed column?";
+        return string.Create(CultureInfo.InvariantCulture, $"its top speed over our run, read as {given}, is {ratio:0.00} times ours (an instrument of the same drive reads within 15 %){hint}");
     }
 
     private static string FormatFromExtension(string name) => Path.GetExtension(name).ToLowerInvariant() switch

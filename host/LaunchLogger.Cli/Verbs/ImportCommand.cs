@@ -138,12 +138,32 @@ public static class ImportCommand
     {
         try
         {
-            return (LogAnalyzer.AnalyzeFile(file, hash, Path.GetFileName(file), ToolInfo.Version, resolved.Calibration, resolved.Weather, cancel), null);
+            AnalysedLog log = LogAnalyzer.AnalyzeFile(file, hash, Path.GetFileName(file), ToolInfo.Version, resolved.Calibration, resolved.Weather, cancel);
+            return NotALog(log) is { } why ? (null, $"{file}: not filed: no runs in it ({why})") : (log, null);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
             return (null, $"{file}: cannot read: {e.Message}");
         }
+    }
+
+    /// <summary>Why <paramref name="log"/> is not a log to file, or null: a file without runs that
+    /// is empty, or whose reading found damage (a text file, a photo, a file cut short), is not
+    /// filed as a "new log with 0 runs". A clean log without runs (a power-up that only holds bench
+    /// rests) is filed as before: its bytes are the box's.</summary>
+    private static string? NotALog(AnalysedLog log)
+    {
+        if (log.Runs.Count > 0)
+        {
+            return null;
+        }
+
+        if (log.ByteCount == 0)
+        {
+            return "the file is empty";
+        }
+
+        return log.Warnings.Count > 0 ? string.Join("; ", log.Warnings) : null;
     }
 
     private static void Report(List<ImportOutcome> outcomes, List<string> problems, bool json, TextWriter output, TextWriter error)

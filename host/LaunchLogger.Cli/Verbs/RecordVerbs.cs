@@ -117,7 +117,7 @@ internal static class RecordVerbs
         var json = ArchiveSupport.JsonOption();
         var fields = FieldOptions(kind);
         var settings = kind == RecordKind.Car ? new SettingsOptions() : null;
-        var command = new Command("add", $"Add a {kind.Noun}.") { name, archive, json };
+        var command = new Command("add", $"Add {kind.WithArticle}.") { name, archive, json };
         AddAll(command, fields.Values, settings);
         command.SetAction((parse, _) => Task.FromResult((int)Run(parse, settings, error =>
             Add(parse.GetValue(archive)?.FullName, kind, parse.GetValue(name)!, Values(parse, fields), settings?.Read(parse), parse.GetValue(json), parse.InvocationConfiguration.Output, error))));
@@ -131,7 +131,7 @@ internal static class RecordVerbs
         var archive = ArchiveSupport.ArchiveOption();
         var fields = FieldOptions(kind);
         var settings = kind == RecordKind.Car ? new SettingsOptions() : null;
-        var command = new Command("edit", $"Change a {kind.Noun}'s fields (an empty value clears one).") { name, rename, archive };
+        var command = new Command("edit", $"Change {kind.WithArticle}'s fields (an empty value clears one).") { name, rename, archive };
         AddAll(command, fields.Values, settings);
         command.SetAction((parse, _) => Task.FromResult((int)Run(parse, settings, error =>
         {

@@ -41,7 +41,7 @@ public static class CalibrationFile
         }
         catch (JsonException e)
         {
-            throw new InputException(path, (int)(e.LineNumber ?? -1) + 1, $"not a settings file: {OneLine(e.Message)}", e);
+            throw new InputException(path, (int)(e.LineNumber ?? -1) + 1, $"not a settings file: {SettingsJsonProblem.Describe<CalibrationSettings>(e, Options)}", e);
         }
 
         if (settings is null)
