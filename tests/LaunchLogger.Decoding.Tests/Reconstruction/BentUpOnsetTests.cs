@@ -1,5 +1,3 @@
-using LaunchLogger.Decoding.Reconstruction;
-
 namespace LaunchLogger.Decoding.Tests.Reconstruction;
 
 /// <summary>The accelerometer onset where a ramp-plus-quadratic bending up would read a τ² start
@@ -15,8 +13,6 @@ namespace LaunchLogger.Decoding.Tests.Reconstruction;
 /// statistics text); over 200 onsets we ask 93 % and 98.5 %, as the other onset tests do.</summary>
 public class BentUpOnsetTests
 {
-    private const double Gravity = 9.80665;
-
     /// <summary>Rate (Hz) and the most the onset may be off in 95 % of trials (s).</summary>
     public static TheoryData<double, double> Cases => new()
     {
@@ -29,36 +25,13 @@ public class BentUpOnsetTests
     [MemberData(nameof(Cases))]
     public void A_lagged_take_up_is_not_read_late_as_a_slope_start(double rateHz, double toleranceS)
     {
-        var random = new Random((int)rateHz + 7);
-        double period = 1 / rateHz;
         const int trials = 200;
-        int within2 = 0;
-        int within3 = 0;
-        int late = 0;
-        var errors = new List<double>();
-        var misses = new List<string>();
-        for (int trial = 0; trial < trials; trial++)
-        {
-            double noise = (100e-6 + (200e-6 * random.NextDouble())) * Gravity * Math.Sqrt(rateHz / 2.0);
-            double peak = Gravity * (0.25 + (0.85 * random.NextDouble()));
-            double riseS = 0.25 + (0.15 * random.NextDouble());
-            double lagS = 0.03 + (0.07 * random.NextDouble());
-            double onsetS = 2.0 + (random.NextDouble() * period);
-            double level = 0.1 + (0.4 * random.NextDouble());
-            (double[] t, double[] reading) = AccelOnsetFitTests.Sampled(rateHz, 3, onsetS, level, noise, tau => LaggedTakeUpOnsetTests.Lagged(tau, peak, riseS, lagS), random);
-            int to = (int)Math.Ceiling((onsetS + riseS) * rateHz);
-            AccelOnset? found = AccelOnsetFit.Find(t, reading, level, noise, 1, period, 0, to, lastRise: true);
-            (double error, double z) = AccelOnsetFitTests.Judged(found, onsetS);
-            within2 += z <= 2 ? 1 : 0;
-            within3 += z <= 3 ? 1 : 0;
-            late += error > 8e-3 ? 1 : 0;
-            errors.Add(Math.Abs(error));
-            if (z > 2 || error > 8e-3)
-            {
-                misses.Add($"{found!.Value.Shape} {error * 1e3:F2} ms ({z:F1}σ, lag {lagS * 1e3:F0} ms, peak {peak / Gravity:F2} g)");
-            }
-        }
-
+        var results = LaggedTakeUpOnsetTests.DrawnTakeUps(rateHz, (int)rateHz + 7, trials, (0.25, 0.4), (0.03, 0.1));
+        int within2 = results.Count(r => r.Z <= 2);
+        int within3 = results.Count(r => r.Z <= 3);
+        int late = results.Count(r => r.Error > 8e-3);
+        var errors = results.Select(r => Math.Abs(r.Error)).ToList();
+        var misses = results.Where(r => r.Z > 2 || r.Error > 8e-3).Select(r => r.Detail).ToList();
         AccelOnsetFitTests.AssertOnsets(errors, within2, within3, trials, toleranceS, misses);
         Assert.True(late <= 0.01 * trials, $"{late} of {trials} more than 8 ms late: {string.Join("; ", misses.Take(8))}");
     }

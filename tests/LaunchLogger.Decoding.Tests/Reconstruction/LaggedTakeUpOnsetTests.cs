@@ -41,6 +41,35 @@ public class LaggedTakeUpOnsetTests
             : peak - (k * lagS * (Math.Exp(riseS / lagS) - 1) * Math.Exp(-tau / lagS));
     }
 
+    /// <summary>One onset a trial on take-ups drawn at random: ramps of
+    /// <paramref name="riseS"/> through lags of <paramref name="lagS"/> (each drawn evenly over its
+    /// range, closed form <see cref="Lagged"/>), peaks 0.25–1.1 g, white noise of 100–300 µg/√Hz
+    /// over the Nyquist band, a level of 0.1–0.5 m/s², the onset anywhere within a sample; the search
+    /// ends where the ramp does. Each trial's signed error (found less true, s), its |error|/σ and
+    /// how it was read.</summary>
+    internal static List<(double Error, double Z, string Detail)> DrawnTakeUps(double rateHz, int seed, int trials, (double Low, double High) riseS, (double Low, double High) lagS)
+    {
+        var random = new Random(seed);
+        double period = 1 / rateHz;
+        var results = new List<(double Error, double Z, string Detail)>();
+        for (int trial = 0; trial < trials; trial++)
+        {
+            double noise = (100e-6 + (200e-6 * random.NextDouble())) * Gravity * Math.Sqrt(rateHz / 2.0);
+            double peak = Gravity * (0.25 + (0.85 * random.NextDouble()));
+            double rise = riseS.Low + ((riseS.High - riseS.Low) * random.NextDouble());
+            double lag = lagS.Low + ((lagS.High - lagS.Low) * random.NextDouble());
+            double onsetS = 2.0 + (random.NextDouble() * period);
+            double level = 0.1 + (0.4 * random.NextDouble());
+            (double[] t, double[] reading) = AccelOnsetFitTests.Sampled(rateHz, 3, onsetS, level, noise, tau => Lagged(tau, peak, rise, lag), random);
+            int to = (int)Math.Ceiling((onsetS + rise) * rateHz);
+            AccelOnset? found = AccelOnsetFit.Find(t, reading, level, noise, 1, period, 0, to, lastRise: true);
+            (double error, double z) = AccelOnsetFitTests.Judged(found, onsetS);
+            results.Add((error, z, $"{found!.Value.Shape} {error * 1e3:F2} ms ({z:F1}σ, lag {lag * 1e3:F0} ms, peak {peak / Gravity:F2} g)"));
+        }
+
+        return results;
+    }
+
     [Theory]
     [MemberData(nameof(Cases))]
     public void A_lagged_take_up_has_its_onset_within_its_sigma(double rateHz, double riseS, double lagS, double toleranceS)
