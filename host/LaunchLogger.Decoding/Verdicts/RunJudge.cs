@@ -168,7 +168,7 @@ public static class RunJudge
         var reasons = new List<VerdictReason>(ownReasons);
         if (bound is { } b && figures.SpeedIntervals.FirstOrDefault(i => i.Interval.Label == "0-60 mph")?.FromStandstillS is { } zeroTo60 && zeroTo60 < b.Bound0To60S)
         {
-            reasons.Add(new(VerdictLevel.Doubtful, "beats_braking_grip", Invariant($"0-60 mph in {zeroTo60:0.000} s is faster than the braking grip allows ({b.Bound0To60S:0.000} s from {b.Source}): check calibration, slope, wheel size")));
+            reasons.Add(new(VerdictLevel.Doubtful, "beats_braking_grip", Invariant($"0-60 mph in {zeroTo60:0.000} s is faster than the braking grip allows ({b.Bound0To60S:0.000} s from {b.Source}, taken as a stop at the grip limit because {b.Why}): check calibration, slope, wheel size; if that stop was firm but short of the grip limit, the bound does not hold (name a stop at the limit with --brake-reference)")));
         }
 
         reasons.Sort((x, y) => y.Level.CompareTo(x.Level));

@@ -219,6 +219,12 @@ public class RunJudgeTests
         Assert.Equal(6.7056, zeroTo60, 3);
         Verdict verdict = AssertOnly(run, "beats_braking_grip", VerdictLevel.Doubtful, bound: Bound(6.9));
         Assert.Contains("brake.log run 1", verdict.Reasons[0].Text);
+        // The words say why the stop was taken as at the grip limit, and that a firm stop short of
+        // it sets no bound: a clean run whose flat-topped stop was only firm is not to be read as flawed.
+        TractionBound plateau = new("brake.log run 1", 7.99, 3.357, 3.357 * 27.7778 / 26.8224, GripLimit.DecelerationPlateau, "the deceleration held a plateau of 7.99 m/s² (peak 8.00 m/s²)");
+        string words = RunJudge.Judge(run, null, plateau with { Bound0To60S = 6.9 }).Reasons.Single().Text;
+        Assert.Contains("because the deceleration held a plateau of 7.99 m/s²", words);
+        Assert.Contains("short of the grip limit, the bound does not hold", words);
         Assert.Empty(RunJudge.Judge(run, null, Bound(6.5)).Reasons);
         Assert.Empty(RunJudge.Judge(run, null, Bound(zeroTo60)).Reasons); // equal is not faster
         Assert.DoesNotContain(RunJudge.Judge(JudgedRun.Clean(topSpeedMps: 26), null, Bound(20)).Reasons, r => r.Code == "beats_braking_grip"); // no 0-60 to hold
