@@ -349,12 +349,20 @@ internal static class AccelOnsetFit
         // true lag falls short of strong evidence is read as a ramp 10–17 ms late with a σ of a
         // few milliseconds (ACCURACY-NOTES).
         // The bent-up ramp-plus-quadratic set aside above counts the same way.
-        double lagOdds = BarredOdds(lagBarred, laggedBic, bic[bestShape]);
-        double convexOdds = BarredOdds(convexBarred, convexBic, bic[bestShape]);
+        // A barred shape may fit better than the chosen one, its odds above 1: against a noise
+        // read near zero (an ideal sensor's rest) by thousands of noise variances, where exp
+        // overflows. The weights are taken relative to the largest (the same ratio, in range).
+        double lagLog = BarredLogOdds(lagBarred, laggedBic, bic[bestShape]);
+        double convexLog = BarredLogOdds(convexBarred, convexBic, bic[bestShape]);
+        double topLog = Math.Max(0, Math.Max(lagLog, convexLog));
+        double lagOdds = Math.Exp(lagLog - topLog);
+        double convexOdds = Math.Exp(convexLog - topLog);
+        double shownOdds = Math.Exp(-topLog);
+        moment *= shownOdds;
         moment += lagOdds * (fine[lagged].TimeS - mean) * (fine[lagged].TimeS - mean);
         moment += convexOdds * (fine[rq].TimeS - mean) * (fine[rq].TimeS - mean);
 
-        double spreadSquared = moment / (weightSum + lagOdds + convexOdds);
+        double spreadSquared = moment / ((weightSum * shownOdds) + lagOdds + convexOdds);
         double smoothOdds = 0;
         double allOdds = 0;
         for (int m = 0; m < Shapes; m++)
@@ -371,12 +379,12 @@ internal static class AccelOnsetFit
         return new AccelOnset(mean, sigmaT, (OnsetShape)bestShape, tCross, smoothOdds / allOdds, odds[lagged] / allOdds, lagS, lagStatistic);
     }
 
-    /// <summary>A shape set aside from the choice: its odds exp(−ΔBIC/2) against the chosen one,
-    /// 0 where it was not set aside or the data all but rule it out.</summary>
-    private static double BarredOdds(bool barred, double shapeBic, double bestBic)
+    /// <summary>A shape set aside from the choice: the log of its odds exp(−ΔBIC/2) against the
+    /// chosen one, −∞ where it was not set aside or the data all but rule it out (odds 1e-4).</summary>
+    private static double BarredLogOdds(bool barred, double shapeBic, double bestBic)
     {
-        double odds = barred ? Math.Exp(-0.5 * (shapeBic - bestBic)) : 0;
-        return odds > 1e-4 ? odds : 0;
+        double log = barred ? -0.5 * (shapeBic - bestBic) : double.NegativeInfinity;
+        return log > Math.Log(1e-4) ? log : double.NegativeInfinity;
     }
 
     /// <summary>The ramp-plus-quadratic's c₂ fitted with its onset at <paramref name="t0"/> (0 where
