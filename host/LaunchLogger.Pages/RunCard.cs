@@ -139,7 +139,9 @@ public static class RunCard
             ? "from standstill after staging"
             : "rolling: the run opened with the car already moving, so it has no standing-start figure");
         Fact(html, "Rebuilt from", HtmlPage.Encode(run.Method));
-        Fact(html, "First motion", Seconds("first_motion_s", run.FirstMotionS, "first_motion_uncertainty_s", run.FirstMotionUncertaintyS) + " on the input's clock");
+        Fact(html, "First motion", run.FirstMotionS is { } firstMotion && !double.IsFinite(firstMotion)
+            ? "not found"
+            : Seconds("first_motion_s", run.FirstMotionS, "first_motion_uncertainty_s", run.FirstMotionUncertaintyS) + " on the input's clock");
         RolloutReport r = run.Rollout;
         string rollout = r.AfterFirstMotionS is { } after
             ? Seconds("rollout/after_first_motion_s", after, "rollout/after_first_motion_uncertainty_s", r.AfterFirstMotionUncertaintyS) + " after first motion, at "

@@ -87,9 +87,12 @@ public static class ReportTableWriter
         string verdictMark = run.Verdict is { } v ? $" · {VerdictMarkup(v.Level)}" : "";
         console.Write(new Rule($"[bold]#{run.Index}: run {run.Run}[/] · {Markup.Escape(Path.GetFileName(run.Source))} · {Markup.Escape(run.Method)}{(run.Staged ? "" : " · rolling start")}{verdictMark}").LeftJustified());
         var facts = new Grid().AddColumn().AddColumn();
-        facts.AddRow("First motion", run.FirstMotionS is { } firstMotion
-            ? $"{Format.SecondsWithSigma(firstMotion, run.FirstMotionUncertaintyS)} on the input's clock"
-            : "none: the run opened moving");
+        facts.AddRow("First motion", run.FirstMotionS switch
+        {
+            { } firstMotion when double.IsFinite(firstMotion) => $"{Format.SecondsWithSigma(firstMotion, run.FirstMotionUncertaintyS)} on the input's clock",
+            { } => "not found",
+            null => "none: the run opened moving",
+        });
         RolloutReport r = run.Rollout;
         facts.AddRow(
             $"Rollout ({Format.Distance(r.DistanceM, units)})",

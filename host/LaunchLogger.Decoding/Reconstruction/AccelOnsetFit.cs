@@ -356,15 +356,31 @@ internal static class AccelOnsetFit
         // true lag falls short of strong evidence is read as a ramp 10–17 ms late with a σ of a
         // few milliseconds (ACCURACY-NOTES).
         // The bent-up ramp-plus-quadratic set aside above counts the same way.
+        // A shape set aside may fit better than the chosen one, its odds above 1: against a noise
+        // read near zero (an ideal sensor's rest) by thousands of noise variances, where exp
+        // overflows. The weights are taken relative to the largest (the same ratios, in range).
+        Span<double> asideLog = stackalloc double[Shapes];
+        double topLog = 0;
+        for (int m = 0; m < Shapes; m++)
+        {
+            asideLog[m] = BarredLogOdds(asideBic[m], bic[bestShape]);
+            topLog = Math.Max(topLog, asideLog[m]);
+        }
+
+        double shownOdds = Math.Exp(-topLog);
+        moment *= shownOdds;
         double asideOdds = 0;
         for (int m = 0; m < Shapes; m++)
         {
-            double o = BarredOdds(asideBic[m], bic[bestShape]);
-            asideOdds += o;
-            moment += o * (fine[m].TimeS - mean) * (fine[m].TimeS - mean);
+            double o = Math.Exp(asideLog[m] - topLog);
+            if (o > 0)
+            {
+                asideOdds += o;
+                moment += o * (fine[m].TimeS - mean) * (fine[m].TimeS - mean);
+            }
         }
 
-        double spreadSquared = moment / (weightSum + asideOdds);
+        double spreadSquared = moment / ((weightSum * shownOdds) + asideOdds);
         double smoothOdds = 0;
         double allOdds = 0;
         for (int m = 0; m < Shapes; m++)
@@ -393,12 +409,13 @@ internal static class AccelOnsetFit
         }
     }
 
-    /// <summary>A shape set aside from the choice: its odds exp(−ΔBIC/2) against the chosen one,
-    /// 0 where it was not set aside (its criterion +∞ here) or the data all but rule it out.</summary>
-    private static double BarredOdds(double shapeBic, double bestBic)
+    /// <summary>A shape set aside from the choice: the log of its odds exp(−ΔBIC/2) against the
+    /// chosen one, −∞ where it was not set aside (its criterion +∞ here) or the data all but rule
+    /// it out (odds below 1e-4).</summary>
+    private static double BarredLogOdds(double shapeBic, double bestBic)
     {
-        double odds = Math.Exp(-0.5 * (shapeBic - bestBic));
-        return odds > 1e-4 ? odds : 0;
+        double log = -0.5 * (shapeBic - bestBic);
+        return log > Math.Log(1e-4) ? log : double.NegativeInfinity;
     }
 
     /// <summary>The ramp-plus-quadratic's c₂ fitted with its onset at <paramref name="t0"/> (0 where

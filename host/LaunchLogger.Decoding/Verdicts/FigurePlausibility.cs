@@ -92,11 +92,52 @@ public static class FigurePlausibility
         }
     }
 
+    /// <summary>A figure's path in the reader's words: its group, its last name with the unit suffix
+    /// dropped, split at capitals ("figures.FirstMotionS uncertainty" → "first motion uncertainty",
+    /// "braking.StoppingDistanceM" → "stop's stopping distance").</summary>
+    internal static string Words(string path)
+    {
+        string tail = path[(path.LastIndexOf('.') + 1)..];
+        string qualifier = tail.Contains(' ', StringComparison.Ordinal) ? tail[tail.IndexOf(' ', StringComparison.Ordinal)..] : "";
+        string name = qualifier.Length > 0 ? tail[..tail.IndexOf(' ', StringComparison.Ordinal)] : tail;
+        int bracket = name.IndexOf('[', StringComparison.Ordinal);
+        name = bracket >= 0 ? name[..bracket] : name;
+        foreach (string unit in new[] { "Mps2", "Mps", "S", "M", "Rad" })
+        {
+            if (name.Length > unit.Length && name.EndsWith(unit, StringComparison.Ordinal) && char.IsLower(name[^(unit.Length + 1)]))
+            {
+                name = name[..^unit.Length];
+                break;
+            }
+        }
+
+        var words = new System.Text.StringBuilder();
+        foreach (char c in name)
+        {
+            if (char.IsUpper(c) && words.Length > 0)
+            {
+                words.Append(' ');
+            }
+
+            words.Append(char.ToLowerInvariant(c));
+        }
+
+        string group = path[..Math.Max(0, path.IndexOf('.', StringComparison.Ordinal))] switch
+        {
+            "braking" => "stop's ",
+            "grade" => "grade's ",
+            "level" => "level-road ",
+            "standard_air" => "standard-air ",
+            _ => "",
+        };
+        return group + words + qualifier;
+    }
+
     private static void CheckNumber(double value, string path, List<string> problems)
     {
         if (!double.IsFinite(value))
         {
-            problems.Add(Invariant($"{path} is {value}"));
+            problems.Add(Invariant($"the {Words(path)} could not be computed"));
         }
         else if (path.EndsWith("Mps", StringComparison.Ordinal) && Math.Abs(value) > InputLimits.MaxPlausibleSpeedMps)
         {

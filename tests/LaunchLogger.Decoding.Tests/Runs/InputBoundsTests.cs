@@ -85,7 +85,7 @@ public class InputBoundsTests
         }
 
         Assert.Contains("MaxSpeedMps", FigurePlausibility.Check(fast)!.Text);
-        Assert.Contains("DistanceM is NaN", FigurePlausibility.Check(undefined)!.Text);
+        Assert.Contains("distance could not be computed", FigurePlausibility.Check(undefined)!.Text);
     }
 
     [Theory]

@@ -64,13 +64,15 @@ public class FigurePlausibilityTests
         RunAnalysis run = Full();
         IntervalFigure[] intervals = [.. run.Figures.SpeedIntervals];
         intervals[1] = intervals[1] with { FromStandstillS = double.PositiveInfinity };
-        Assert.Contains("figures.SpeedIntervals[1].FromStandstillS is Infinity", Text(run with { Figures = run.Figures with { SpeedIntervals = intervals } }));
+        Assert.Contains("the from standstill could not be computed", Text(run with { Figures = run.Figures with { SpeedIntervals = intervals } }));
 
-        Assert.Contains("braking.StoppingDistanceM uncertainty is NaN", Text(run with { Braking = run.Braking! with { StoppingDistanceM = new Estimate(40, double.NaN) } }));
-        Assert.Contains("braking.StoppingDistanceM is NaN", Text(run with { Braking = run.Braking! with { StoppingDistanceM = new Estimate(double.NaN, 0.1) } }));
-        Assert.Contains("grade.AngleRad is NaN", Text(run with { Grade = new GradeEstimate(double.NaN, 0.001, true) }));
-        Assert.Contains("level.DistanceM is NaN", Text(run with { LevelFigures = run.Figures with { DistanceM = double.NaN } }));
-        Assert.Contains("standard_air.DistanceM is NaN", Text(run with { StandardAirFigures = run.Figures with { DistanceM = double.NaN } }));
+        Assert.Contains("the stop's stopping distance uncertainty could not be computed", Text(run with { Braking = run.Braking! with { StoppingDistanceM = new Estimate(40, double.NaN) } }));
+        Assert.Contains("the stop's stopping distance could not be computed", Text(run with { Braking = run.Braking! with { StoppingDistanceM = new Estimate(double.NaN, 0.1) } }));
+        Assert.Contains("the grade's angle could not be computed", Text(run with { Grade = new GradeEstimate(double.NaN, 0.001, true) }));
+        Assert.Contains("the level-road distance could not be computed", Text(run with { LevelFigures = run.Figures with { DistanceM = double.NaN } }));
+        Assert.DoesNotContain("FirstMotionS", Text(run with { Figures = run.Figures with { FirstMotionS = new Estimate(double.NaN, double.NaN) } }), StringComparison.Ordinal);
+        Assert.Contains("the first motion could not be computed", Text(run with { Figures = run.Figures with { FirstMotionS = new Estimate(double.NaN, double.NaN) } }));
+        Assert.Contains("the standard-air distance could not be computed", Text(run with { StandardAirFigures = run.Figures with { DistanceM = double.NaN } }));
     }
 
     [Fact]
@@ -82,9 +84,9 @@ public class FigurePlausibilityTests
         VerdictReason reason = Assert.Single(verdict.Reasons);
         Assert.Equal(VerdictLevel.Invalid, verdict.Level);
         Assert.Equal("impossible_figure", reason.Code);
-        Assert.StartsWith("a figure no car can produce: figures.", reason.Text, StringComparison.Ordinal);
+        Assert.StartsWith("a figure no car can produce: the ", reason.Text, StringComparison.Ordinal);
         Assert.Contains(" (and 1 more); the input is damaged or its settings are wrong", reason.Text);
-        Assert.Equal("a figure no car can produce: figures.DistanceM is NaN; the input is damaged or its settings are wrong", FigurePlausibility.Check(run with { Figures = run.Figures with { DistanceM = double.NaN } })!.Text);
+        Assert.Equal("a figure no car can produce: the distance could not be computed; the input is damaged or its settings are wrong", FigurePlausibility.Check(run with { Figures = run.Figures with { DistanceM = double.NaN } })!.Text);
     }
 
     private static string Text(RunAnalysis run) => FigurePlausibility.Check(run)?.Text ?? "(plausible)";
