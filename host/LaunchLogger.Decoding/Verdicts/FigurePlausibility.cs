@@ -1,6 +1,8 @@
 using System.Collections;
+using System.Globalization;
 using System.Reflection;
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Runs;
 using static System.FormattableString;
 
@@ -69,7 +71,9 @@ public static class FigurePlausibility
                 int i = 0;
                 foreach (object? item in items)
                 {
-                    Walk(item, Invariant($"{path}[{i++}]"), problems, depth + 1);
+                    string index = ItemLabel(item) ?? Invariant($"{i}");
+                    i++;
+                    Walk(item, Invariant($"{path}[{index}]"), problems, depth + 1);
                 }
 
                 return;
@@ -97,7 +101,25 @@ public static class FigurePlausibility
     /// "braking.StoppingDistanceM" → "stop's stopping distance").</summary>
     internal static string Words(string path)
     {
-        string tail = path[(path.LastIndexOf('.') + 1)..];
+        // A list's item is named by its label ("figures.SpeedIntervals[0-60 mph].FromStandstillS" →
+        // "0-60 mph from standstill"); a label may hold a full stop, so the last name starts after
+        // the last full stop outside brackets.
+        int depth = 0;
+        int dot = -1;
+        for (int k = 0; k < path.Length; k++)
+        {
+            depth += path[k] switch { '[' => 1, ']' => -1, _ => 0 };
+            dot = path[k] == '.' && depth == 0 ? k : dot;
+        }
+
+        string label = "";
+        if (dot > 0 && path[dot - 1] == ']')
+        {
+            string inside = path[(path.LastIndexOf('[', dot - 1) + 1)..(dot - 1)];
+            label = int.TryParse(inside, NumberStyles.None, CultureInfo.InvariantCulture, out _) ? "" : inside + " ";
+        }
+
+        string tail = path[(dot + 1)..];
         string qualifier = tail.Contains(' ', StringComparison.Ordinal) ? tail[tail.IndexOf(' ', StringComparison.Ordinal)..] : "";
         string name = qualifier.Length > 0 ? tail[..tail.IndexOf(' ', StringComparison.Ordinal)] : tail;
         int bracket = name.IndexOf('[', StringComparison.Ordinal);
@@ -130,8 +152,19 @@ public static class FigurePlausibility
             "standard_air" => "standard-air ",
             _ => "",
         };
-        return group + words + qualifier;
+        return group + label + words + qualifier;
     }
+
+    /// <summary>A list item's own label (a speed interval's or a distance mark's, "0-60 mph",
+    /// "60 ft"), or null.</summary>
+    private static string? ItemLabel(object? item) => item switch
+    {
+        IntervalFigure f => f.Interval.Label,
+        MarkFigure f => f.Mark.Label,
+        SpeedInterval i => i.Label,
+        DistanceMark m => m.Label,
+        _ => null,
+    };
 
     private static void CheckNumber(double value, string path, List<string> problems)
     {

@@ -64,7 +64,7 @@ public class FigurePlausibilityTests
         RunAnalysis run = Full();
         IntervalFigure[] intervals = [.. run.Figures.SpeedIntervals];
         intervals[1] = intervals[1] with { FromStandstillS = double.PositiveInfinity };
-        Assert.Contains("the from standstill could not be computed", Text(run with { Figures = run.Figures with { SpeedIntervals = intervals } }));
+        Assert.Contains("the " + intervals[1].Interval.Label + " from standstill could not be computed", Text(run with { Figures = run.Figures with { SpeedIntervals = intervals } }));
 
         Assert.Contains("the stop's stopping distance uncertainty could not be computed", Text(run with { Braking = run.Braking! with { StoppingDistanceM = new Estimate(40, double.NaN) } }));
         Assert.Contains("the stop's stopping distance could not be computed", Text(run with { Braking = run.Braking! with { StoppingDistanceM = new Estimate(double.NaN, 0.1) } }));
