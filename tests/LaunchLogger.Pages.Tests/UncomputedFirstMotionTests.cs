@@ -1,7 +1,6 @@
 using System.Text;
-using LaunchLogger.Decoding;
-using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reporting;
+using LaunchLogger.Tests.Shared;
 
 namespace LaunchLogger.Pages.Tests;
 
@@ -12,17 +11,7 @@ public class UncomputedFirstMotionTests
     [Fact]
     public void The_card_says_not_found_for_a_first_motion_that_is_not_a_number()
     {
-        var figures = new FigureSet
-        {
-            FirstMotionS = new Estimate(double.NaN, double.NaN),
-            RolloutDistanceM = 0.3048,
-            SpeedIntervals = [],
-            DistanceMarks = [],
-            PeakAccelMps2 = 0,
-            MaxSpeedMps = 0,
-            DistanceM = 0,
-        };
-        RunReport run = RunReportBuilder.Build(1, "pulses and accelerometer", true, figures, null, []);
+        RunReport run = UncomputedRun.FirstMotionNotANumber();
         var html = new StringBuilder();
         RunCard.Append(html, new CardInput { Run = run, ToolVersion = "test" });
 

@@ -1,7 +1,7 @@
 using LaunchLogger.Cli.Output;
-using LaunchLogger.Decoding;
 using LaunchLogger.Decoding.Metrics;
 using LaunchLogger.Decoding.Reporting;
+using LaunchLogger.Tests.Shared;
 
 namespace LaunchLogger.Cli.Tests.Output;
 
@@ -12,17 +12,7 @@ public class UncomputedFirstMotionTests
     [Fact]
     public void The_table_says_not_found_for_a_first_motion_that_is_not_a_number()
     {
-        var figures = new FigureSet
-        {
-            FirstMotionS = new Estimate(double.NaN, double.NaN),
-            RolloutDistanceM = 0.3048,
-            SpeedIntervals = [],
-            DistanceMarks = [],
-            PeakAccelMps2 = 0,
-            MaxSpeedMps = 0,
-            DistanceM = 0,
-        };
-        RunReport run = RunReportBuilder.Build(1, "pulses and accelerometer", true, figures, null, []);
+        RunReport run = UncomputedRun.FirstMotionNotANumber();
         using var output = new StringWriter();
         ReportTableWriter.Write(new ReportDocument { ToolVersion = "test", Source = "test", Runs = [run] }, output, DisplayUnits.Imperial);
 
