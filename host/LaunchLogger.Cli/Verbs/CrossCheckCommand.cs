@@ -145,8 +145,9 @@ public static class CrossCheckCommand
         .Select(name => (name, TraceColumns.Parse("time=t,speed=v", name).MpsPerSpeedUnit)).ToArray();
 
     /// <summary>Why a CSV record's speeds cannot be compared with ours, or null. Their top speed
-    /// over our run (their samples within 5 s of it, on our clock) must lie within 15 % of ours:
-    /// no instrument of the same drive reads further off, but a speed column in km/h read as m/s
+    /// over our run (their samples within 5 s of it, on our clock) must lie within 15 % of ours —
+    /// our own margin: a satellite receiver's or another wheel's speed over the same drive differs
+    /// by a tyre's growth and slip, a few per cent (from memory), while a speed column in km/h read as m/s
     /// reads 3.6 times ours, and its "figures" are then quietly wrong by seconds. Neither the
     /// alignment's speed scale (its cubic term takes up part of the factor) nor a fit over the run
     /// (the clock offset found for wrong speeds is itself off by seconds) shows the factor; the two

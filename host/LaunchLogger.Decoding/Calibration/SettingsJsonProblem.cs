@@ -1,6 +1,7 @@
 using System.Text.Json;
 using System.Text.Json.Serialization.Metadata;
 using System.Text.RegularExpressions;
+using Quickenshtein;
 
 namespace LaunchLogger.Decoding.Calibration;
 
@@ -63,25 +64,8 @@ public static partial class SettingsJsonProblem
         return reason.Length > 0 ? char.ToLowerInvariant(reason[0]) + reason[1..] : "unreadable";
     }
 
-    // Levenshtein distance (insertions, deletions, substitutions), two rows.
-    private static int Distance(string a, string b)
-    {
-        int[] previous = Enumerable.Range(0, b.Length + 1).ToArray();
-        int[] current = new int[b.Length + 1];
-        for (int i = 1; i <= a.Length; i++)
-        {
-            current[0] = i;
-            for (int j = 1; j <= b.Length; j++)
-            {
-                int substitute = previous[j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1);
-                current[j] = Math.Min(substitute, Math.Min(previous[j], current[j - 1]) + 1);
-            }
-
-            (previous, current) = (current, previous);
-        }
-
-        return previous[b.Length];
-    }
+    // The edit distance (insertions, deletions, substitutions: Levenshtein's) from Quickenshtein.
+    private static int Distance(string a, string b) => Levenshtein.GetDistance(a, b);
 
     [GeneratedRegex(@"^The JSON property '(?<name>[^']*)' could not be mapped")]
     private static partial Regex Unmapped();
