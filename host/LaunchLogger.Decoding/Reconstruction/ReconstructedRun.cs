@@ -124,6 +124,12 @@ public sealed class ReconstructedRun
     /// the verdict, not on the figures.</summary>
     public IReadOnlyList<TimeWindow> LaunchSpinWindows { get; init; } = [];
 
+    /// <summary>Stretches of the launch where, with pulses alone, the wheel's speed ran up or fell
+    /// back faster than a car can move it with its tyre at or below its grip peak
+    /// (<see cref="PulseSpinBound"/>). The pulses there were kept: this weighs on the verdict,
+    /// not on the figures.</summary>
+    public IReadOnlyList<TimeWindow> PulseSpinWindows { get; init; } = [];
+
     /// <summary>Stretches of firm braking where the pickup wheel slid behind the car (as under
     /// ABS) and the accelerometer carried distance and speed instead.</summary>
     public IReadOnlyList<TimeWindow> BrakingSlideWindows { get; init; } = [];

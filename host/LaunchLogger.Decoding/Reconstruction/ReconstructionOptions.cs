@@ -122,6 +122,14 @@ public sealed record ReconstructionOptions
     /// spin (<see cref="WheelspinDetector.FindAtLaunch"/>).</summary>
     public double LaunchSpinSlip { get; init; } = 0.2;
 
+    /// <summary>The most grip a tyre gives on the road or track, as a friction coefficient μ:
+    /// about 0.8–1.0 for road tyres on dry asphalt (J. Y. Wong, "Theory of Ground Vehicles", ch. 1;
+    /// from memory) and up to about 1.3 for track tyres (from memory); 1.5 leaves room above both.
+    /// With pulses alone, a wheel gaining speed faster than (1 + <see cref="LaunchSpinSlip"/>)·μ·g
+    /// allows is spin (<see cref="PulseSpinBound"/>). Drag slicks on a prepared strip grip more:
+    /// raise it for them.</summary>
+    public double LargestGripMu { get; init; } = 1.5;
+
     /// <summary>Take the body's pitch under acceleration and braking out of the forward axis,
     /// using the vertical axis, when all three axes were measured.</summary>
     public bool CompensateBodyPitch { get; init; } = true;

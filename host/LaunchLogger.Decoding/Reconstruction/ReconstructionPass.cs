@@ -266,6 +266,7 @@ internal sealed partial class ReconstructionPass
             AccelClockShiftS = accelClockShiftS,
             WheelspinWindows = spin,
             LaunchSpinWindows = windows.LaunchSpin,
+            PulseSpinWindows = windows.PulseSpin,
             SpinPastPeakWindows = spinPastPeak,
             SlipSwing = windows.Swing,
             BrakingSlideWindows = braking,

@@ -69,6 +69,10 @@ internal sealed class WheelWindows
     /// <summary>The launch's slip swing (<see cref="SlipSwingTest"/>); null where it is not looked for.</summary>
     public SlipSwing? Swing { get; init; }
 
+    /// <summary>Spin at the launch seen in the pulses alone (<see cref="PulseSpinBound"/>), on a
+    /// staged run without an accelerometer: for the verdict; the pulses there are kept.</summary>
+    public List<TimeWindow> PulseSpin { get; init; } = [];
+
     /// <summary>The drive slip signal S(t) on the grid, or null when no drive slip is fitted.</summary>
     public double[]? DriveSlipSignal { get; init; }
 
@@ -117,6 +121,7 @@ internal sealed class WheelWindowFinder
         List<TimeWindow> slides = finder.SlidingUnderBraking(finder.SlideSearchWindows(), out double behind);
         List<TimeWindow> spin = finder.FindWheelspin(slides, out List<string> spinWarnings, out List<TimeWindow> launchSpin, out List<TimeWindow> pastPeak);
         SlipSwing? swing = finder.SlipSwing();
+        List<TimeWindow> pulseSpin = finder.PulseSpin(spinWarnings);
         double[]? slipSignal = finder.SlipSignal();
         List<TimeWindow> firm = finder.FirmBraking();
         double[]? brakeSlipSignal = finder.BrakeSlipSignal(firm);
@@ -129,6 +134,7 @@ internal sealed class WheelWindowFinder
             LaunchSpin = launchSpin,
             PastPeak = pastPeak,
             Swing = swing,
+            PulseSpin = pulseSpin,
             DriveSlipSignal = slipSignal,
             BrakeSlipSignal = brakeSlipSignal,
             FirmBraking = brakeSlipSignal is null ? [] : firm.Where(w => !slides.Any(s => s.StartS < w.EndS && s.EndS > w.StartS)).ToList(),
@@ -171,6 +177,26 @@ internal sealed class WheelWindowFinder
 
         return SlipSwingTest.Measure(
             pulses, mpp, options.ToothSpacingErrorFraction * mpp, options.EdgeJitterS, input.AccelTimeS!, input.AccelInputMps2, input.StartS, input.EndS, options.LaunchSpinSlip);
+    }
+
+    /// <summary>Spin at the launch from the pulses alone (<see cref="PulseSpinBound"/>), where the
+    /// spin finder cannot look: a staged run without an accelerometer. Its note goes to
+    /// <paramref name="notes"/>.</summary>
+    private List<TimeWindow> PulseSpin(List<string> notes)
+    {
+        if (!options.DetectWheelspin || pulses is null || WithAccelerometer || !input.Staged)
+        {
+            return [];
+        }
+
+        List<TimeWindow> found = PulseSpinBound.Find(pulses, mpp, options.ToothSpacingErrorFraction * mpp, input.StartS, input.EndS, options, out double excess);
+        if (found.Count > 0)
+        {
+            string list = string.Join(", ", found.Select(w => FormattableString.Invariant($"{w.StartS - input.StartS:F2}–{w.EndS - input.StartS:F2} s")));
+            notes.Add(FormattableString.Invariant($"wheelspin at the launch suspected: the wheel's speed ran up or fell back faster than a car can move it with its tyre at or below its grip peak (by up to {excess:F2} m/s beyond that bound) at {list} after first motion; the launch marks may read early"));
+        }
+
+        return found;
     }
 
     private List<TimeWindow> FindWheelspin(List<TimeWindow> braking, out List<string> notes, out List<TimeWindow> atLaunch, out List<TimeWindow> pastPeak)

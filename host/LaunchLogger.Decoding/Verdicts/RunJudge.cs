@@ -67,10 +67,14 @@ public static class RunJudge
         // runs its driven wheel up to that far ahead). Spin at the launch (the pulses kept) counts
         // with it, once where both saw it.
         double driveEndsS = analysis.Braking?.OnsetS.Value ?? double.PositiveInfinity;
-        double spin = WheelspinDetector.Union([.. rec.SpinPastPeakWindows, .. rec.LaunchSpinWindows]).Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
+        // With pulses alone, the wheel's own run-up or fall-back past what a car can do with its
+        // tyre at or below its grip peak (PulseSpinBound) counts the same way.
+        double spin = WheelspinDetector.Union([.. rec.SpinPastPeakWindows, .. rec.LaunchSpinWindows, .. rec.PulseSpinWindows]).Sum(w => Math.Max(0, Math.Min(w.EndS, driveEndsS) - w.StartS));
         if (spin > limits.WheelspinS)
         {
-            string where = rec.LaunchSpinWindows.Count == 0
+            string where = rec.PulseSpinWindows.Count > 0
+                ? "with pulses alone, the wheel's speed ran up or fell back at the launch faster than a car can move it with its tyre at or below its grip peak, and the launch marks may read early"
+                : rec.LaunchSpinWindows.Count == 0
                 ? "distance and speed there lean on the accelerometer"
                 : "at the launch the pulses ran ahead of the car by more than a tyre slips at its grip peak, and the launch marks may read early";
             reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: {where}")));
