@@ -195,6 +195,11 @@ internal sealed class WheelWindowFinder
             string list = string.Join(", ", found.Select(w => FormattableString.Invariant($"{w.StartS - input.StartS:F2}–{w.EndS - input.StartS:F2} s")));
             notes.Add(FormattableString.Invariant($"wheelspin at the launch suspected: the wheel's speed ran up or fell back faster than a car can move it with its tyre at or below its grip peak (by up to {excess:F2} m/s beyond that bound) at {list} after first motion; the launch marks may read early"));
         }
+        else if (options.PickupWheel != PickupWheel.Undriven)
+        {
+            // What the data cannot show, said where it matters: a wheel that may be driven.
+            notes.Add(FormattableString.Invariant($"no accelerometer: wheelspin is seen only where the wheel's speed runs up or falls back past what a car can do with its tyre at its grip peak (a slip of {options.LaunchSpinSlip:0.0#}); a wheel that slipped just past its peak, or spun below a few m/s, leaves no sign in the pulses"));
+        }
 
         return found;
     }
