@@ -35,19 +35,10 @@ public class PulseSpinBoundTests
 
     /// <summary>Seeds 1–12: the standing starts of <see cref="Records.Standing"/> (their profiles,
     /// shifts and 8–100 teeth), held at a slip of 0.10–0.20 fading over 3 m.</summary>
+    public static TheoryData<int> Seeds => new(Enumerable.Range(1, 12));
+
     [Theory]
-    [InlineData(1)]
-    [InlineData(2)]
-    [InlineData(3)]
-    [InlineData(4)]
-    [InlineData(5)]
-    [InlineData(6)]
-    [InlineData(7)]
-    [InlineData(8)]
-    [InlineData(9)]
-    [InlineData(10)]
-    [InlineData(11)]
-    [InlineData(12)]
+    [MemberData(nameof(Seeds))]
     public void A_clean_launch_held_at_its_tyres_peak_is_valid_with_pulses_alone(int seed)
     {
         PrescribedRecordSpec standing = Records.Standing(seed);
