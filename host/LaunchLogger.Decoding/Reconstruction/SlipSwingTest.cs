@@ -15,10 +15,13 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <param name="DegreesOfFreedom">Its degrees of freedom: the blocks' n − 4 less the one k's.</param>
 public sealed record SlipSwing(int Blocks, int Swinging, double ExcessSlip, double SlipPerMps2 = 0, double ChiSquare = 0, double DegreesOfFreedom = 0)
 {
-    /// <summary>True when the slip swings through most of the launch — at least
-    /// <see cref="SlipSwingTest.LeastBlocks"/> blocks judged and at least half of them swinging —
-    /// or through the launch as a whole (<see cref="SwingsAsAWhole"/>).</summary>
-    public bool Swings => (Blocks >= SlipSwingTest.LeastBlocks && 2 * Swinging >= Blocks) || SwingsAsAWhole;
+    /// <summary>True when the slip swings through most of the launch block by block
+    /// (<see cref="SwingsByBlocks"/>) or through the launch as a whole (<see cref="SwingsAsAWhole"/>).</summary>
+    public bool Swings => SwingsByBlocks || SwingsAsAWhole;
+
+    /// <summary>True when at least <see cref="SlipSwingTest.LeastBlocks"/> blocks are judged and
+    /// at least half of them swing.</summary>
+    public bool SwingsByBlocks => Blocks >= SlipSwingTest.LeastBlocks && 2 * Swinging >= Blocks;
 
     /// <summary>True when the blocks' χ² together passes its law's 1 − <see cref="SlipSwingTest.LaunchFalseRate"/>
     /// quantile on their degrees of freedom together: a swing that no block shows alone (too few
