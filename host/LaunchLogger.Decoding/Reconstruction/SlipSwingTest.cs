@@ -10,11 +10,23 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// beyond what the teeth and edges explain, over the car's speed (0 where they explain it all).</param>
 /// <param name="SlipPerMps2">k of the tyre's slip k·a that the launch's leads follow (the
 /// regression <see cref="SlipSwingTest.Measure"/> takes out before its χ²), s²/m; 0 where none is found.</param>
-public sealed record SlipSwing(int Blocks, int Swinging, double ExcessSlip, double SlipPerMps2 = 0)
+/// <param name="ChiSquare">The χ² of every judged block together (each block's residuals about its
+/// cubic and the launch's k, each edge over its own σ).</param>
+/// <param name="DegreesOfFreedom">Its degrees of freedom: the blocks' n − 4 less the one k's.</param>
+public sealed record SlipSwing(int Blocks, int Swinging, double ExcessSlip, double SlipPerMps2 = 0, double ChiSquare = 0, double DegreesOfFreedom = 0)
 {
-    /// <summary>True when the slip swings through most of the launch: at least
-    /// <see cref="SlipSwingTest.LeastBlocks"/> blocks judged and at least half of them swinging.</summary>
-    public bool Swings => Blocks >= SlipSwingTest.LeastBlocks && 2 * Swinging >= Blocks;
+    /// <summary>True when the slip swings through most of the launch block by block
+    /// (<see cref="SwingsByBlocks"/>) or through the launch as a whole (<see cref="SwingsAsAWhole"/>).</summary>
+    public bool Swings => SwingsByBlocks || SwingsAsAWhole;
+
+    /// <summary>True when at least <see cref="SlipSwingTest.LeastBlocks"/> blocks are judged and
+    /// at least half of them swing.</summary>
+    public bool SwingsByBlocks => Blocks >= SlipSwingTest.LeastBlocks && 2 * Swinging >= Blocks;
+
+    /// <summary>True when the blocks' χ² together passes its law's 1 − <see cref="SlipSwingTest.LaunchFalseRate"/>
+    /// quantile on their degrees of freedom together: a swing that no block shows alone (too few
+    /// edges a block, or brackets wide enough to hide it in each) but every block carries.</summary>
+    public bool SwingsAsAWhole => DegreesOfFreedom > 0 && ChiSquare > ChiSquared.InvCDF(DegreesOfFreedom, 1 - SlipSwingTest.LaunchFalseRate);
 }
 
 /// <summary>Finds a driven wheel whose slip swings to and fro across its tyre's grip peak — a
@@ -47,7 +59,12 @@ public sealed record SlipSwing(int Blocks, int Swinging, double ExcessSlip, doub
 /// a weighted least-squares fit: W. H. Press et al., "Numerical Recipes", 3rd ed., §15.1–15.2).
 /// A block swings when its χ² passes the law's 1 − <see cref="BlockFalseRate"/> quantile; the
 /// launch swings when half its blocks do (at least <see cref="LeastBlocks"/>): a clean launch does
-/// that with a chance below C(6,3)·10⁻⁹. A cubic over 0.2 s cannot follow a swing of 30–60 ms
+/// that with a chance below C(6,3)·10⁻⁹. The blocks' χ² summed is χ² on their degrees of
+/// freedom summed (a sum of independent χ² variables; Press et al., §6.2, and any statistics
+/// text), so the launch also swings when that sum passes its 1 − <see cref="LaunchFalseRate"/>
+/// quantile: a swing of a few edges' σ in every block — a 12-tooth wheel's two or three blocks,
+/// or a ring polled every 1–3 ms whose brackets hide the swing in each block alone — adds up
+/// over the launch where no block passes its own quantile. A cubic over 0.2 s cannot follow a swing of 30–60 ms
 /// (3–7 cycles a block), and a gear change or a slip that fades bends only the block it falls
 /// in. Nothing here is tuned on a simulated run.</remarks>
 public static class SlipSwingTest
@@ -61,7 +78,12 @@ public static class SlipSwingTest
     /// <summary>The chance a block the teeth and brackets explain passes its quantile.</summary>
     public const double BlockFalseRate = 1e-3;
 
-    /// <summary>Fewest blocks a launch is judged on.</summary>
+    /// <summary>The chance a launch whose blocks the teeth and brackets explain passes the
+    /// quantile of its blocks' χ² together (<see cref="SlipSwing.SwingsAsAWhole"/>): one test of
+    /// the whole launch, so one clean launch in 10,000 doubted by chance where the σ are honest.</summary>
+    public const double LaunchFalseRate = 1e-4;
+
+    /// <summary>Fewest blocks a launch is judged on by its blocks one by one.</summary>
     public const int LeastBlocks = 3;
 
     /// <summary>Fewest edges a block is judged on (a cubic takes 4).</summary>
@@ -127,7 +149,7 @@ public static class SlipSwingTest
         double meanAccel = times.Count > 1 && times[^1] > times[0] ? (speeds[^1] - speeds[0]) / (times[^1] - times[0]) : 0;
         double slipPerMps2 = SlipPerMps2(fits, meanAccel > 0 ? peakSlip / meanAccel : 0, out double sxx, out bool free);
         int blocks = fits.Count, swinging = 0;
-        double excess = 0, speedSum = 0;
+        double excess = 0, speedSum = 0, chi2Sum = 0, dofSum = 0;
         int excessCount = 0;
         foreach (BlockResiduals fit in fits)
         {
@@ -146,6 +168,8 @@ public static class SlipSwingTest
             // leverage on it (each block's share of Σ x̃²); its χ² has n − 4 − share. A k held
             // at a bound is fixed, not fitted, and takes none.
             double dof = n - 4 - share;
+            chi2Sum += chi2;
+            dofSum += dof;
             if (chi2 > ChiSquared.InvCDF(dof, 1 - BlockFalseRate))
             {
                 swinging++;
@@ -164,7 +188,7 @@ public static class SlipSwingTest
         }
 
         double meanSpeed = excessCount > 0 ? speedSum / excessCount : 0;
-        return new SlipSwing(blocks, swinging, blocks > 0 && meanSpeed > 0 ? excess / blocks / meanSpeed : 0, slipPerMps2);
+        return new SlipSwing(blocks, swinging, blocks > 0 && meanSpeed > 0 ? excess / blocks / meanSpeed : 0, slipPerMps2, chi2Sum, dofSum);
     }
 
     /// <summary>One block's weighted residuals (each over its edge's σ) about its cubic: of the

@@ -85,7 +85,10 @@ public static class RunJudge
             // (SlipSwingTest): the wheel runs ahead in bursts no slip threshold sees. Only on a
             // wheel the fusion found driven (its drive slip positive beyond 2σ): an undriven wheel
             // passes no drive force and has no peak to cross — a swing there follows the car.
-            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the driven wheel's slip swung to and fro through the launch ({swing.Swinging} of {swing.Blocks} blocks of {SlipSwingTest.BlockS:0.0} s beyond what its teeth and edges explain): a tyre crossing its grip peak, and the launch marks lean on pulses that ran ahead in bursts")));
+            string beyond = swing.SwingsByBlocks
+                ? Invariant($"{swing.Swinging} of {swing.Blocks} blocks of {SlipSwingTest.BlockS:0.0} s beyond what its teeth and edges explain")
+                : Invariant($"χ² {swing.ChiSquare:0} on {swing.DegreesOfFreedom:0} degrees of freedom over its {swing.Blocks} block{(swing.Blocks == 1 ? "" : "s")} of {SlipSwingTest.BlockS:0.0} s, beyond what its teeth and edges explain");
+            reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the driven wheel's slip swung to and fro through the launch ({beyond}): a tyre crossing its grip peak, and the launch marks lean on pulses that ran ahead in bursts")));
         }
 
         if (grade is { MountingCalibrated: true } g)
