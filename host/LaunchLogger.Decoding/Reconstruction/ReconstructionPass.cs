@@ -219,7 +219,7 @@ internal sealed partial class ReconstructionPass
         if (scaled is not null)
         {
             // The distance per pulse rescaled, σ the fit's in place of the prior's.
-            rollingScale = scaled.Fit;
+            rollingScale = scaled.ScaleMeasured ? scaled.Fit : rollingScale;
             mpp = scaled.MetresPerPulse;
             circumferenceSigma = scaled.CircumferenceSigma;
             if (scaled.Growth is { } growth)

@@ -5,8 +5,9 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <summary>The rolling-scale stage: the pulses' scale measured against the accelerometer's over
 /// the launch of a standing start (<see cref="RollingScaleFit"/>), or over a record that opens
 /// moving (its changes of speed, and the rest it may end in), and the tyre's own scale drawn from
-/// that ratio and the two priors (<see cref="CombineScales"/>): a calibrated accelerometer's scale
-/// nearly alone, an uncalibrated one's weighed equally with the tyre's.</summary>
+/// that ratio and the two priors (<see cref="CombineScales"/>): with a calibrated accelerometer
+/// nearly its scale alone; with one not calibrated, on a launch, both priors weighed equally, and
+/// on a record that opens moving only the growth with speed (<see cref="GrowthOnly"/>).</summary>
 internal static class RollingScaleMeasure
 {
     /// <summary>Braking force per unit mass from which a wheel no longer rolls freely for the
@@ -98,6 +99,11 @@ internal static class RollingScaleMeasure
             return null;
         }
 
+        if (!calibrated && !input.Staged)
+        {
+            return GrowthOnly(measuredRatio, pulses, mpp, input);
+        }
+
         RollingScale fit = CombineScales(measuredRatio, options.CircumferenceSigmaFraction, options.ForwardScaleSigma);
         if (!(fit.Scale.Sigma < options.CircumferenceSigmaFraction))
         {
@@ -122,6 +128,36 @@ internal static class RollingScaleMeasure
             CircumferenceSigma = fit.Scale.Sigma / fit.Scale.Value,
             Growth = growth,
             Note = Invariant($"the pulses' scale was measured over {over} {against} ({fit.Checkpoints} pulse observations, {fit.WindowEndS - input.StartS:0.0} s): the tyre rolls {((fit.Scale.Value * options.RollingOverToldCircumference) - 1) * 100:+0.00;-0.00} % ± {fit.Scale.Sigma * options.RollingOverToldCircumference * 100:0.00} % from the circumference told; distances and speeds use it"),
+        };
+    }
+
+    /// <summary>What a record that opens moving measures against an accelerometer whose scale is
+    /// not calibrated: the tyre's growth with speed alone. The accelerometer's unknown scale s
+    /// multiplies every distance it gives, so the fit's scale ρ reads (1 + s) times the tyre's and
+    /// is read to about 0.5 % here (the changes of speed alone; a launch reads it to 0.1 %), so
+    /// weighed with the two priors (<see cref="CombineScales"/>) it would bring the tyre's σ only
+    /// from 1 % to about 0.75 %; and on the bench's tyres (rolling 0–2 % below static, narrower
+    /// than the 1 % prior) it cost the stops and rolling starts a third at p95 (ACCURACY-NOTES,
+    /// 2026-12-05 late night). The growth G is a change of the tyre's scale with speed, which a
+    /// constant s leaves as it is to within s·G (a hundredth of it). So the distance per pulse
+    /// and its σ stay the prior's, and the growth takes the fit's value and σ (uncorrelated with
+    /// the prior's scale) where it is known better than its prior.</summary>
+    private static RollingScaleMeasurement? GrowthOnly(RollingScale fit, PulseChannel pulses, double mpp, RollingScaleInputs input)
+    {
+        ReconstructionOptions options = input.Options;
+        if (!(fit.Growth.Sigma < options.TyreGrowthSigmaAt30Mps) || !(Math.Abs(fit.Scale.Value - 1) < LargestScaleChange))
+        {
+            return null;
+        }
+
+        return new RollingScaleMeasurement
+        {
+            Fit = fit,
+            ScaleMeasured = false,
+            MetresPerPulse = mpp,
+            CircumferenceSigma = options.CircumferenceSigmaFraction,
+            Growth = new MeasuredGrowth(fit.Growth.Sigma, 0, GrowthDistances(pulses, mpp, input.Steps.TimeS, input.FirstPassSpeedMps, fit.Growth.Value)),
+            Note = Invariant($"the tyre's growth with speed was measured over the record's changes of speed against the accelerometer ({fit.Checkpoints} pulse observations, {fit.WindowEndS - input.StartS:0.0} s): {fit.Growth.Value * 100:0.00} % ± {fit.Growth.Sigma * 100:0.00} % at 30 m/s; its scale is not calibrated, so the circumference stays the one told"),
         };
     }
 

@@ -7,6 +7,11 @@ internal sealed class RollingScaleMeasurement
     /// and, for a record that opens moving, the growth.</summary>
     public required RollingScale Fit { get; init; }
 
+    /// <summary>False when only the growth was measured (a record that opens moving, the
+    /// accelerometer not calibrated): the fit's scale is then not the tyre's and is neither
+    /// applied nor reported.</summary>
+    public bool ScaleMeasured { get; init; } = true;
+
     /// <summary>Distance per pulse rescaled by the measured scale, m.</summary>
     public double MetresPerPulse { get; init; }
 
