@@ -55,39 +55,6 @@ public class RollingScaleTests
     }
 
     [Fact]
-    public void Without_an_accelerometer_calibration_a_static_circumference_is_weighed_with_the_accelerometers_scale()
-    {
-        // The same records told the static circumference the generator's tyre was stated with
-        // and no accelerometer calibration: the pulses measure the ratio of the tyre's scale to
-        // the accelerometer's (1 % σ off here, as the data sheet says), and the tyre's own comes
-        // from that ratio and the two priors together, its σ near 1 %/√2 (the product of two
-        // Gaussians; C. M. Bishop, "Pattern Recognition and Machine Learning", 2006, §2.3.3).
-        // The truth is the generator's tyre.
-        var random = new Random(20261205);
-        int within2 = 0;
-        var lines = new List<string>();
-        for (int i = 0; i < Records; i++)
-        {
-            (PrescribedRecordSpec spec, _, double truth) = Draw(i, random);
-            var options = new AnalysisOptions { Calibration = new CalibrationSettings { StaticCircumferenceM = spec.Pickup.Tyre.StatedCircumferenceM } };
-            PrescribedRecord record = spec.Generate();
-            SessionAnalysis session = i % 2 == 0 ? DecoderHarness.AnalyzeLog(record, options) : DecoderHarness.AnalyzeText(record, options);
-            RunAnalysis run = Assert.Single(session.Runs);
-            Estimate? scale = run.Reconstruction.RollingScale;
-            Assert.True(scale.HasValue, $"{spec}: no rolling scale measured");
-            double z = (scale!.Value.Value - truth) / scale.Value.Sigma;
-            string what = FormattableString.Invariant($"{spec}: rolling/static {scale.Value.Value:0.00000} ± {scale.Value.Sigma:0.00000} against {truth:0.00000} ({z:+0.0;-0.0}σ)");
-            lines.Add(what);
-            Assert.True(Math.Abs(z) <= 3, what);
-            Assert.InRange(scale.Value.Sigma, 0.99 * 0.01 / Math.Sqrt(2), 0.008);
-            within2 += Math.Abs(z) <= 2 ? 1 : 0;
-        }
-
-        // ±2σ holds 95 % of a normal error: at most one of 16 outside (binomial, 81 % likely).
-        Assert.True(within2 >= Records - 1, string.Join("\n", lines));
-    }
-
-    [Fact]
     public void The_measured_scale_brings_distance_and_its_sigma_to_the_truth()
     {
         (PrescribedRecordSpec spec, AnalysisOptions options, _) = Draw(5, new Random(11));
