@@ -140,8 +140,8 @@ internal static class RollingScaleMeasure
     /// is read to about 0.5 % here (the changes of speed alone; a launch reads it to 0.1 %), so
     /// weighed with the two priors (<see cref="CombineScales"/>) it would bring the tyre's σ only
     /// from 1 % to about 0.75 %; and on the bench's tyres (rolling 0–2 % below static, narrower
-    /// than the 1 % prior) it cost the stops and rolling starts a third at p95 (ACCURACY-NOTES,
-    /// 2026-12-05 late night). The growth G is a change of the tyre's scale with speed, which a
+    /// than the 1 % prior) it cost the stops a third at p95 while the rolling starts gained a
+    /// fifth (seeds 1–4; ACCURACY-NOTES, 2026-12-05 late night). The growth G is a change of the tyre's scale with speed, which a
     /// constant s leaves as it is to within s·G (a hundredth of it). So the distance per pulse
     /// and its σ stay the prior's, and the growth takes the fit's value and σ (uncorrelated with
     /// the prior's scale) where it is known better than its prior.</summary>
