@@ -4,8 +4,8 @@ namespace LaunchLogger.Decoding.Reconstruction;
 
 /// <summary>What <see cref="RollingScaleFit.Fit"/> found: the rolling distance per pulse over the
 /// one told, and how much of the launch it read.</summary>
-/// <param name="Scale">Rolling over told distance per pulse with its 1 σ (the calibrated
-/// accelerometer's own scale σ included).</param>
+/// <param name="Scale">Rolling over told distance per pulse, against the accelerometer's own
+/// scale, with its 1 σ (the accelerometer's scale is left to <see cref="RollingScaleMeasure.CombineScales"/>).</param>
 /// <param name="Checkpoints">Pulse observations compared.</param>
 /// <param name="WindowEndS">Time of the last one, seconds.</param>
 /// <param name="ResidualRatio">χ² of the residuals over their degrees of freedom (σ was widened
@@ -31,12 +31,12 @@ internal readonly record struct RollingScale(Estimate Scale, int Checkpoints, do
 internal readonly record struct MovingWindow(Estimate InitialSpeedMps, double[] RestS, double BrakeSpanS, double BrakeStepSigmaMps2);
 
 /// <summary>The pulses' scale (the tyre's rolling circumference over the one the box was told)
-/// measured from a standing start against an accelerometer whose scale is calibrated: the
+/// measured from a standing start against the accelerometer's scale: the
 /// distance the accelerometer gives over the launch against the pulses counted, with the bias,
 /// the pulse ring's phase and the tyre's growth with speed fitted beside it.</summary>
 /// <remarks>
 /// <para>From a rest at τ = 0 (a little before first motion) the input u = a + b + w (the
-/// accelerometer's forward reading, resting level removed, divided by its calibrated scale; b
+/// accelerometer's forward reading, resting level removed, divided by its calibrated scale when it has one; b
 /// what is left of the bias, w noise) integrates twice to A(τ) = x(τ) + ½·b·τ² + e(τ). The count
 /// N of pulses is reached at x = ρ·N·m − φ (m the distance per pulse told, ρ the unknown scale, φ
 /// the ring's phase at rest), and a tyre that grows by G·(v / 30 m/s)² adds G·Γ(τ),
@@ -52,8 +52,9 @@ internal readonly record struct MovingWindow(Estimate InitialSpeedMps, double[] 
 /// c = t − s (both by integrating the white noise's kernels, (t − u) and (t − u)²/2, over
 /// the common span). The pulse's own error pⱼ is its bracket (v²·w²/12 plus edge jitter) and the
 /// tooth's place on the ring, independent from pulse to pulse.</para>
-/// <para>The accelerometer's scale is known only to its calibration's σ: A and with it ρ move by
-/// that fraction, added to ρ's σ. A bias that stays constant reads like a scale error when the
+/// <para>The accelerometer's scale is known only to its calibration's or its data sheet's σ: A
+/// and with it ρ move by that fraction, so the fit reads ρ·(1 + s), its prior both scales' (the
+/// caller draws the tyre's own from it). A bias that stays constant reads like a scale error when the
 /// acceleration does too (½·b·τ² against ½·a·τ²): σ stays near b/a unless the acceleration
 /// changes over the launch, as it does as speed builds.</para>
 /// </remarks>
@@ -276,7 +277,7 @@ internal static class RollingScaleFit
         double ratio = chi2 / Math.Max(rows - columns, 1);
         double widen = Math.Max(1, ratio);
         double scale = theta[0];
-        double sigma = Math.Sqrt((covariance[0, 0] * widen) + Square(scale * noise.AccelScaleSigma));
+        double sigma = Math.Sqrt(covariance[0, 0] * widen);
         double growthSigma = Math.Sqrt(covariance[3, 3] * widen);
         return new RollingScale(new Estimate(scale, sigma), count, pulses.MidS(candidates[^1]), ratio)
         {
@@ -370,7 +371,8 @@ internal readonly record struct RollingScaleNoise
     /// <summary>Prior σ of the input's error at the launch, m/s².</summary>
     public required double BiasSigmaMps2 { get; init; }
 
-    /// <summary>Prior σ of the scale, a fraction.</summary>
+    /// <summary>Prior σ of the scale, a fraction: of the pulses' scale against the accelerometer's,
+    /// the tyre's and the accelerometer's priors together.</summary>
     public required double CircumferenceSigma { get; init; }
 
     /// <summary>Prior centre of the growth at 30 m/s, a fraction (0 unless a typical growth is told).</summary>
@@ -381,9 +383,6 @@ internal readonly record struct RollingScaleNoise
 
     /// <summary>Density of the jerk taken across a gap in the samples, m²/s⁵ (0: a gap costs nothing).</summary>
     public double GapJerkDensity { get; init; }
-
-    /// <summary>σ of the accelerometer's calibrated scale, a fraction.</summary>
-    public required double AccelScaleSigma { get; init; }
 
     /// <summary>σ of a tooth's place on the ring, m.</summary>
     public required double ToothSigmaM { get; init; }

@@ -3,11 +3,13 @@ namespace LaunchLogger.Decoding.Reconstruction;
 /// <summary>The pulses' scale as the rolling-scale stage measured it, to be applied.</summary>
 internal sealed class RollingScaleMeasurement
 {
-    /// <summary>The fit: the rolling over told scale (and, for a record that opens moving, the growth).</summary>
+    /// <summary>The fit: the rolling over told scale, the tyre's own (<see cref="RollingScaleMeasure.CombineScales"/>),
+    /// and, for a record that opens moving, the growth.</summary>
     public required RollingScale Fit { get; init; }
 
-    /// <summary>False when only the growth was measured (an accelerometer not calibrated): the
-    /// fit's scale is then not the tyre's and is neither applied nor reported.</summary>
+    /// <summary>False when only the growth was measured (a record that opens moving, the
+    /// accelerometer not calibrated): the fit's scale is then not the tyre's and is neither
+    /// applied nor reported.</summary>
     public bool ScaleMeasured { get; init; } = true;
 
     /// <summary>Distance per pulse rescaled by the measured scale, m.</summary>

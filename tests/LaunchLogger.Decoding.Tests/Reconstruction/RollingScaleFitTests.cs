@@ -160,7 +160,6 @@ public class RollingScaleFitTests
         BiasSigmaMps2 = 0.02,
         CircumferenceSigma = 0.01,
         GrowthSigma = 1e-6,
-        AccelScaleSigma = 0,
         ToothSigmaM = 1e-5,
         EdgeJitterS = 1e-6,
         WindowS = 40,
