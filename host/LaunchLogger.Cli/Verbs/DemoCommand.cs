@@ -23,7 +23,7 @@ public static class DemoCommand
         var outDir = new Option<DirectoryInfo>("--out") { Description = "Folder for the log, truth and report.", DefaultValueFactory = _ => new DirectoryInfo("launchlogger-out") };
         var scenario = new Option<string>("--scenario") { Description = $"Built-in scenario ({string.Join(", ", BuiltInScenarios.Names)}).", DefaultValueFactory = _ => BuiltInScenarios.DefaultName };
         var seed = new Option<int>("--seed") { Description = "Seed for the simulated sensors' noise.", DefaultValueFactory = _ => 1 };
-        var units = new Option<DisplayUnits>("--units") { Description = "Units for tables: imperial or metric.", DefaultValueFactory = _ => DisplayUnits.Imperial };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units for tables: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var command = new Command("demo", "Simulate a run through the real firmware core, decode its log and report it.") { outDir, scenario, seed, units };
         command.SetAction(parse => (int)Run(
             parse.GetValue(scenario)!,
