@@ -147,7 +147,7 @@ public static class DemoCommand
         if (growth > 0)
         {
             output.WriteLine(FormattableString.Invariant(
-                $"  (This car's tyre grows {growth * 100:0.0#} % at 30 m/s, as real tyres do: at speed each pulse covers a little\n   more road than the box's static circumference says, so times to high speeds and long distances come\n   out late. Until the tyre is calibrated at speed that is part of σ; `launchlogger bench accuracy` shows\n   the estimator both ways.)"));
+                $"  (This car's tyre grows {growth * 100:0.0#} % at 30 m/s ({units.Speed(30):0} {units.SpeedUnit()}), as real tyres do: at speed each pulse covers a little\n   more road than the box's static circumference says, so times to high speeds and long distances come\n   out late. Until the tyre is calibrated at speed that is part of σ; `launchlogger bench accuracy` shows\n   the estimator both ways.)"));
         }
 
         void Row(string label, double? estimate, double? real, double? sigma, Func<double, string> show)
