@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using LaunchLogger.Archive.Records;
 using LaunchLogger.Cli.Output;
+using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Reporting;
 using static LaunchLogger.Pages.Cells;
 
@@ -265,11 +266,11 @@ public static class RunCard
                 CorrectedStopReport c = b.CorrectedStops[i];
                 Fact(html, "&nbsp;&nbsp;" + HtmlPage.Encode(c.Label), c.CorrectedDistanceM is { } d
                     ? Distance($"braking/corrected_stops/{i}/corrected_distance_m", d, units) + " <span class=\"note\">scaled by (nominal ÷ actual speed)²</span>"
-                    : "<span class=\"note\">" + HtmlPage.Encode(c.Method) + "</span>");
+                    : "<span class=\"note\">" + HtmlPage.Encode(Format.StopNotCorrected(b.FromMps, c.NominalMps, units)) + "</span>");
             }
 
             Fact(html, "Mean deceleration", Accel("braking/mean_decel_mps2", b.MeanDecelMps2));
-            Fact(html, "MFDD (UN R13)", Accel("braking/mfdd_mps2", b.MfddMps2));
+            Fact(html, BrakingFormulas.MfddLabel, Accel("braking/mfdd_mps2", b.MfddMps2));
             Fact(html, "Peak deceleration", Accel("braking/peak_decel_mps2", b.PeakDecelMps2));
             html.Append("</dl>\n");
             if (b.GripLimit is { } grip)

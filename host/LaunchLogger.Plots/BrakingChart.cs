@@ -13,9 +13,6 @@ internal static class BrakingChart
     /// <summary>Seconds shown before onset and after standstill.</summary>
     private const double BeforeS = 0.5, AfterS = 0.3;
 
-    /// <summary>Name of the mean fully developed deceleration's line (UN R13-H).</summary>
-    public const string MfddText = "MFDD";
-
     public static Chart Draw(RunAnalysis run, ChartOptions options)
     {
         BrakingResult stop = run.Braking ?? throw new ArgumentException("the run has no stop to draw", nameof(run));
@@ -62,7 +59,7 @@ internal static class BrakingChart
             foreach (Plot panel in new[] { decelT, decelX })
             {
                 var line = panel.Add.HorizontalLine(mfdd, 1.2f, Palette.Rollout);
-                line.LegendText = panel == decelT ? MfddText + " (UN R13-H)" : "";
+                line.LegendText = panel == decelT ? BrakingFormulas.MfddLabel : "";
             }
         }
 

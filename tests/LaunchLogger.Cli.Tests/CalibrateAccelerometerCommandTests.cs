@@ -90,6 +90,43 @@ public class CalibrateAccelerometerCommandTests
         Assert.Contains("record it again", error.ToString(), StringComparison.Ordinal);
     }
 
+    /// <summary>One CSV where two rests are needed: before, the CSV was read as a log ("no readable
+    /// frames", "the log ends inside a frame", "holds 0 bench rest(s) … (1-0, in log order)");
+    /// now one line says the second rest is missing, which way it points and how to give both.</summary>
+    [Fact]
+    public void One_csv_rest_says_the_down_rest_is_missing_and_how_to_give_it()
+    {
+        using var folder = new TempFolder();
+        string up = folder.Write("up.csv", Rest(9.81, seed: 1));
+        var error = new StringWriter();
+
+        ExitCode code = CalibrateAccelerometerCommand.Run(new CalibrateAccelerometerRequest { Rests = [new FileInfo(up)] }, new StringWriter(), error);
+
+        Assert.Equal(ExitCode.Usage, code);
+        string message = Assert.Single(error.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries));
+        Assert.Contains("up.csv is one accelerometer record", message, StringComparison.Ordinal);
+        Assert.Contains("pointing UP and then pointing DOWN", message, StringComparison.Ordinal);
+        Assert.Contains("UP.csv DOWN.csv", message, StringComparison.Ordinal);
+        Assert.DoesNotContain("frame", message, StringComparison.Ordinal);
+    }
+
+    /// <summary>A log holding one bench rest, given alone: before, "give the two rests as --rest UP
+    /// --rest DOWN (1-1, in log order)", a choice that cannot be made; now it says a rest is
+    /// missing and to record it.</summary>
+    [Fact]
+    public void A_log_with_one_rest_says_a_rest_is_missing()
+    {
+        using var folder = new TempFolder();
+        string log = folder.File("one.bin");
+        File.WriteAllBytes(log, BenchRestLogs.Write(12, new BenchRestLogs.Rest(9.8)));
+        var error = new StringWriter();
+
+        Assert.Equal(ExitCode.Usage, CalibrateAccelerometerCommand.Run(new CalibrateAccelerometerRequest { Rests = [new FileInfo(log)] }, new StringWriter(), error));
+        Assert.Contains("one.bin holds 1 bench rest(s); the scale needs two", error.ToString(), StringComparison.Ordinal);
+        Assert.Contains("Record the missing rest(s)", error.ToString(), StringComparison.Ordinal);
+        Assert.DoesNotContain("(1-1, in log order)", error.ToString(), StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Several_rests_in_a_log_need_rest_numbers()
     {

@@ -28,6 +28,40 @@ public class DemoCommandTests
         Assert.Empty(Directory.GetFiles(folder.Path, "*.part"));
     }
 
+    /// <summary>The demo's comparison with the truth gives speeds and distances in --units, as
+    /// the report above it does; before, it gave m/s and m whatever was asked, and its "in σ"
+    /// column wrote '-' where the error column beside it writes '−'.</summary>
+    [Theory]
+    [InlineData(DisplayUnits.Imperial, "mph", "ft", 0.44704, 0.3048)] // exact (international yard and pound agreement, 1959)
+    [InlineData(DisplayUnits.Metric, "km/h", "m", 1 / 3.6, 1.0)] // SI
+    public void TheTruthComparisonFollowsTheUnitsAsked(DisplayUnits units, string speedUnit, string distanceUnit, double mpsPerSpeedUnit, double metresPerDistanceUnit)
+    {
+        using var folder = new TempFolder();
+        var output = new StringWriter();
+        Assert.Equal(ExitCode.Ok, DemoCommand.Run("roadster-launch", 1, folder.Path, units, output, new StringWriter()));
+        JsonElement truth = JsonDocument.Parse(File.ReadAllText(folder.File("roadster-launch-truth.json"))).RootElement;
+        string[] comparison = output.ToString().Split('\n').SkipWhile(l => !l.StartsWith("Against the simulator's truth", StringComparison.Ordinal)).ToArray();
+
+        double trueTrapMps = truth.GetProperty("figures").GetProperty("distance_marks").EnumerateArray()
+            .Single(m => m.GetProperty("label").GetString() == "1320 ft (1/4 mile)").GetProperty("trap_speed_mps").GetDouble();
+        Assert.Equal(trueTrapMps / mpsPerSpeedUnit, TruthColumn(comparison, "1320 ft (1/4 mile) trap speed", speedUnit), 0.002);
+        double trueStopM = truth.GetProperty("events").GetProperty("stopping_distance_m").GetDouble();
+        Assert.Equal(trueStopM / metresPerDistanceUnit, TruthColumn(comparison, "stopping distance", distanceUnit), 0.002);
+        string[] rows = comparison.Skip(2).TakeWhile(l => l.StartsWith("  ", StringComparison.Ordinal) && !l.StartsWith("  (", StringComparison.Ordinal)).ToArray();
+        Assert.True(rows.Length > 10, string.Join('\n', comparison));
+        Assert.DoesNotContain(rows, l => l.Contains(" m/s", StringComparison.Ordinal));
+        Assert.DoesNotContain(rows, l => System.Text.RegularExpressions.Regex.IsMatch(l, @"\s-\d"));
+    }
+
+    /// <summary>The truth column (the second number with its unit) of the comparison's row.</summary>
+    private static double TruthColumn(string[] comparison, string label, string unit)
+    {
+        string row = comparison.Single(l => l.TrimStart().StartsWith(label + " ", StringComparison.Ordinal));
+        var numbers = System.Text.RegularExpressions.Regex.Matches(row, @"([0-9]+\.[0-9]+) " + System.Text.RegularExpressions.Regex.Escape(unit) + @"(\s|$)");
+        Assert.True(numbers.Count >= 2, row);
+        return double.Parse(numbers[1].Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture);
+    }
+
     [Fact]
     public void TheDemosJsonIsValidAndWithinItsStatedSigmaOfTheTruthItWrote()
     {

@@ -72,6 +72,24 @@ public sealed class PlotCommandTests
     }
 
     [Fact]
+    public void Plot_overlay_of_two_logs_names_each_line_by_its_log_and_run()
+    {
+        using var folder = new TempFolder();
+        string first = Log(folder, "morning.log", SimulatedLogs.Default.LogBytes);
+        string second = Log(folder, "evening.log", SimulatedLogs.BrakeTest.LogBytes);
+        var error = new StringWriter();
+
+        ExitCode code = PlotCommand.Run(new PlotRequest { Logs = [new FileInfo(first), new FileInfo(second)], Out = folder.File("both.svg"), Kind = "overlay" }, new StringWriter(), error);
+
+        // Before, the legend read "run 1" and "run 2": nothing said which log either line was.
+        Assert.True(code == ExitCode.Ok, $"exit {code}: {error}");
+        string[] texts = XDocument.Load(folder.File("both.svg")).Descendants(Svg + "text").Select(t => t.Value.Trim()).ToArray();
+        Assert.Contains("morning.log run 1", texts);
+        Assert.Contains("evening.log run 1", texts);
+        Assert.DoesNotContain("run 2", texts);
+    }
+
+    [Fact]
     public void Plot_braking_draws_the_stop_and_trace_draws_the_chosen_run()
     {
         using var folder = new TempFolder();

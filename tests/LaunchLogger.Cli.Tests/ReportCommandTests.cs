@@ -113,6 +113,25 @@ public class ReportCommandTests
         Assert.InRange(zeroTo60.GetProperty("from_rollout_s").GetDouble() - 5.1177, -0.0015, 0.0015);
     }
 
+    /// <summary>A plain-text table given where a log goes: before, three lines of a damaged log
+    /// ("no readable frames", "the log ends inside a frame", "no runs in the input"); now one line
+    /// that says what it is and which option reads it.</summary>
+    [Fact]
+    public void A_csv_given_as_a_log_says_which_option_reads_it()
+    {
+        using var folder = new TempFolder();
+        string csv = folder.Write("accel.csv", "t_s,ax_mps2\n0,0.1\n0.01,4.9\n");
+        var error = new StringWriter();
+
+        ExitCode code = ReportCommand.Run(new ReportRequest { Logs = [new FileInfo(csv)] }, new StringWriter(), error);
+
+        Assert.Equal(ExitCode.Usage, code);
+        string message = error.ToString().Trim();
+        Assert.DoesNotContain("\n", message);
+        Assert.Contains("accel.csv is a plain-text table, not a log from the box: give it with --edges", message, StringComparison.Ordinal);
+        Assert.Contains("--accel", message, StringComparison.Ordinal);
+    }
+
     [Theory]
     [InlineData("missing.log", "missing.log")]
     public void AMissingLogIsOneClearLine(string name, string expected)

@@ -24,6 +24,10 @@ public sealed record CaptureOptions
     /// <summary>True to rewrite one status line in place (an interactive terminal).</summary>
     public bool Overwrite { get; init; }
 
+    /// <summary>Lists this machine's serial ports, named when the port cannot be opened so a
+    /// mistyped or wrong port shows; null: none are listed (a test's own link).</summary>
+    public Func<IReadOnlyList<string>>? PortNames { get; init; }
+
     /// <summary>How long to wait between attempts to reopen a lost port.</summary>
     public TimeSpan ReopenEvery { get; init; } = TimeSpan.FromMilliseconds(250);
 

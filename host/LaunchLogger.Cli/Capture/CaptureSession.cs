@@ -163,7 +163,9 @@ public sealed class CaptureSession
             {
                 if (!said)
                 {
-                    Say($"waiting for {link.Name}: {e.Message}", new { @event = "waiting", port = link.Name });
+                    IReadOnlyList<string>? found = options.PortNames?.Invoke();
+                    string hint = found is null ? "" : $"; {PortHint.Found(found)}. If the box is on another port, stop with Ctrl+C and {PortHint.HowToName}";
+                    Say($"waiting for {link.Name}: {e.Message}{hint}", new { @event = "waiting", port = link.Name, ports_found = found });
                     said = true;
                 }
 

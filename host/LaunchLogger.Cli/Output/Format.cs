@@ -1,4 +1,5 @@
 using System.Globalization;
+using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Metrics;
 
 // Compiled into LaunchLogger.Pages (linked from there), which the command line references: the
@@ -43,6 +44,12 @@ public static class Format
     public static string Accel(double? mps2) => mps2 is { } a
         ? a.ToString("0.00", Invariant) + " m/s² (" + (a / Units.StandardGravity).ToString("0.00", Invariant) + " g)"
         : "—";
+
+    /// <summary>Why a stop's distance was not corrected to a nominal speed, in the reader's units,
+    /// e.g. "not corrected: onset speed 95.6 mph is more than 10 % from 60.0 mph" (the decoder's own
+    /// note gives the speeds in m/s).</summary>
+    public static string StopNotCorrected(double fromMps, double nominalMps, DisplayUnits units) =>
+        $"not corrected: onset speed {Speed(fromMps, units)} is more than {(BrakingAnalyzer.CorrectionTolerance * 100).ToString("0", Invariant)} % from {Speed(nominalMps, units)}";
 
     /// <summary>A board's figure in its unit ("s", "m/s" or "m", SI), e.g. "5.472 s",
     /// "98.41 mph", "36.1 ft"; the bare number for a σ; empty when missing.</summary>

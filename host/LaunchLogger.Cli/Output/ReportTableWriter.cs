@@ -1,3 +1,4 @@
+using LaunchLogger.Decoding.Braking;
 using LaunchLogger.Decoding.Reporting;
 using Spectre.Console;
 using Spectre.Console.Rendering;
@@ -144,11 +145,11 @@ public static class ReportTableWriter
         grid.AddRow("Stopping distance", FormattableString.Invariant($"{Format.Distance(b.StoppingDistanceM, units)} ± {Format.Distance(b.StoppingDistanceUncertaintyM, units)}"));
         foreach (CorrectedStopReport c in b.CorrectedStops)
         {
-            grid.AddRow($"  {c.Label}", c.CorrectedDistanceM is { } d ? $"{Format.Distance(d, units)} [dim](scaled by (nominal/actual speed)²)[/]" : $"[dim]{Markup.Escape(c.Method)}[/]");
+            grid.AddRow($"  {c.Label}", c.CorrectedDistanceM is { } d ? $"{Format.Distance(d, units)} [dim](scaled by (nominal/actual speed)²)[/]" : $"[dim]{Markup.Escape(Format.StopNotCorrected(b.FromMps, c.NominalMps, units))}[/]");
         }
 
         grid.AddRow("Mean deceleration", Format.Accel(b.MeanDecelMps2));
-        grid.AddRow("MFDD (UN R13)", Format.Accel(b.MfddMps2));
+        grid.AddRow(BrakingFormulas.MfddLabel, Format.Accel(b.MfddMps2));
         grid.AddRow("Peak deceleration", Format.Accel(b.PeakDecelMps2));
         grid.AddRow("Grip bound", b.GripLimit is { } grip
             ? Markup.Escape(FormattableString.Invariant($"0-60 mph ≥ {b.TractionBound060S:0.000} s, 0-100 km/h ≥ {b.TractionBound0100KmhS:0.000} s (at the grip limit: {grip.Why})"))

@@ -102,6 +102,12 @@ public static class CalibrateAccelerometerCommand
                 throw new UsageException("give --rest at most once per log (twice for one log holding both rests)");
             }
 
+            if (request.Rests.Count == 1 && IsCsv(request.Rests[0]))
+            {
+                throw new UsageException($"{request.Rests[0].Name} is one accelerometer record, so one rest; the scale needs two, the forward axis pointing UP and then pointing DOWN. " +
+                    "Record the other rest the same way (box on its other end, still, 20 s) and give both files, up first: launchlogger calibrate accelerometer UP.csv DOWN.csv");
+            }
+
             CalibrationSettings? existing = LoadExisting(request.Settings);
             (Estimate up, string upName, Estimate down, string downName) = request.Rests.Count == 1
                 ? ReadBothRests(request.Rests[0], request.BenchRests, error, cancel)
@@ -181,9 +187,14 @@ public static class CalibrateAccelerometerCommand
             up = log.BenchRests[0];
             down = log.BenchRests[1];
         }
+        else if (log.BenchRests.Count < 2)
+        {
+            throw new UsageException($"{file.Name} holds {log.BenchRests.Count} bench rest(s); the scale needs two, the forward axis pointing UP and then pointing DOWN. " +
+                "Record the missing rest(s) with the mark button (see launchlogger calibrate accelerometer --help) and give this log again, or give two files, up first");
+        }
         else
         {
-            throw new UsageException($"{file.Name} holds {log.BenchRests.Count} bench rest(s); with one log give the two rests as --rest UP --rest DOWN (1-{log.BenchRests.Count}, in log order), or give two files");
+            throw new UsageException($"{file.Name} holds {log.BenchRests.Count} bench rest(s); give the two to use as --rest UP --rest DOWN (1-{log.BenchRests.Count}, in log order)");
         }
 
         return (RestLevel(up, error), up.Source, RestLevel(down, error), down.Source);
@@ -195,7 +206,7 @@ public static class CalibrateAccelerometerCommand
     {
         cancel.ThrowIfCancellationRequested();
         AccelSeries? series;
-        if (file.Extension.Equals(".csv", StringComparison.OrdinalIgnoreCase))
+        if (IsCsv(file))
         {
             series = AccelFile.Read(file.FullName);
         }
@@ -224,6 +235,9 @@ public static class CalibrateAccelerometerCommand
 
         return (AccelerometerScaleCalibration.RestLevel(series.TimeS, series.ForwardMps2, file.ToString()), file.Name);
     }
+
+    /// <summary>Whether a rest is given as an accelerometer CSV file (by its extension) rather than a log.</summary>
+    private static bool IsCsv(FileInfo file) => file.Extension.Equals(".csv", StringComparison.OrdinalIgnoreCase);
 
     /// <summary>The log's only bench rest.</summary>
     private static BenchRestRecord OnlyRest(CalibrationLog log)

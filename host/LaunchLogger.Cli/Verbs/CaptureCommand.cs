@@ -26,7 +26,7 @@ public static class CaptureCommand
             Description = "File each closed run in the archive: this file, or the default archive when no file is given.",
             Arity = ArgumentArity.ZeroOrOne,
         };
-        var units = new Option<DisplayUnits>("--units") { Description = "Units on the status line: imperial or metric.", DefaultValueFactory = _ => DisplayUnits.Imperial };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units on the status line: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var json = new Option<bool>("--json") { Description = "Print one JSON object per line (link events, closed runs with their figures) instead of the status line." };
         var assignment = new RunAssignmentOptions();
         var command = new Command("capture", "Record the box's serial stream live: raw bytes to disk first, a status line, each closed run's figures and verdict; --archive files each run.")
@@ -62,11 +62,8 @@ public static class CaptureCommand
     {
         if (string.IsNullOrWhiteSpace(port))
         {
-            IReadOnlyList<string> ports = SerialLink.PortNames();
-            output.WriteLine(ports.Count == 0
-                ? "no serial ports found (plug the box in; pseudo-terminals are not listed but work with --port)"
-                : "serial ports: " + string.Join(", ", ports));
-            output.WriteLine("give one with --port PORT");
+            output.WriteLine(PortHint.Found(SerialLink.PortNames()));
+            output.WriteLine(PortHint.HowToName);
             return ExitCode.Ok;
         }
 
@@ -76,12 +73,13 @@ public static class CaptureCommand
             return ExitCode.Usage;
         }
 
-        return Run(new SerialLink(port, baud), outPath, archivePath, assignment, units, json, output, error, cancel);
+        return Run(new SerialLink(port, baud), outPath, archivePath, assignment, units, json, output, error, cancel, SerialLink.PortNames);
     }
 
-    /// <summary>Runs the verb on any link (tests pass their own).</summary>
+    /// <summary>Runs the verb on any link (tests pass their own). <paramref name="portNames"/>
+    /// lists the machine's ports for the message when the link cannot be opened.</summary>
     public static ExitCode Run(ILink link, string? outPath, string? archivePath, RunAssignment assignment, DisplayUnits units, bool json,
-        TextWriter output, TextWriter error, CancellationToken cancel = default)
+        TextWriter output, TextWriter error, CancellationToken cancel = default, Func<IReadOnlyList<string>>? portNames = null)
     {
         ArgumentNullException.ThrowIfNull(link);
         outPath ??= Path.GetFullPath(string.Create(CultureInfo.InvariantCulture, $"capture-{DateTime.UtcNow:yyyyMMdd-HHmmss}.log"));
@@ -99,6 +97,7 @@ public static class CaptureCommand
             Units = units,
             Json = json,
             Overwrite = ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected,
+            PortNames = portNames,
         };
         try
         {

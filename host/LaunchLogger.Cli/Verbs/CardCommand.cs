@@ -20,7 +20,7 @@ public static class CardCommand
         var archived = new Option<long?>("--archived") { Description = "The archive's run id (launchlogger run list) instead of logs." };
         var index = new Option<int?>("--index") { Description = "Only this run, by its index in the report (1 first); default: every run, one card each." };
         var output = new Option<FileInfo>("--out") { Description = "The HTML file to write.", Required = true };
-        var units = new Option<DisplayUnits>("--units") { Description = "imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units on the page: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var settings = new Option<FileInfo?>("--settings") { Description = "Calibration settings file, as for report." };
         var weather = new Option<string?>("--weather") { Description = "Weather during the runs: T_C,P_hPa,RH_pct, as for report." };
         var brakeReference = new Option<FileInfo?>("--brake-reference") { Description = "A log with a stop at the grip limit, as for report." };

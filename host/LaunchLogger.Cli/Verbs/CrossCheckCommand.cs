@@ -21,7 +21,7 @@ public static class CrossCheckCommand
     public static Command Create()
     {
         var log = new Argument<FileInfo>("log") { Description = "Our log of the drive." };
-        var with = new Option<FileInfo>("--with") { Description = "The other instrument's record (required).", Required = true };
+        var with = new Option<FileInfo>("--with") { Description = "The other instrument's record.", Required = true };
         var format = new Option<string>("--format") { Description = "Its format: nmea, gpx or csv (default: from the file's extension).", DefaultValueFactory = _ => "auto" };
         var columns = new Option<string?>("--columns") { Description = "For csv: which columns hold what, e.g. time=t,speed=v_kmh or time=t,lat=lat,lon=lon." };
         var speedUnit = new Option<string>("--speed-unit") { Description = "For csv: the speed column's unit, mph, kmh, mps or knots.", DefaultValueFactory = _ => "mps" };
@@ -30,7 +30,7 @@ public static class CrossCheckCommand
         var run = new Option<int>("--run") { Description = "Which of the log's runs, from 1.", DefaultValueFactory = _ => 1 };
         var json = new Option<bool>("--json") { Description = "Write the comparison as JSON." };
         var plot = new Option<FileInfo?>("--plot") { Description = "Also draw both speed traces and their difference to this file (.svg or .png)." };
-        var units = new Option<DisplayUnits>("--units") { Description = "Units on the plot's axes: imperial (mph) or metric (km/h).", DefaultValueFactory = _ => DisplayUnits.Imperial };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units for the table's speeds and the plot's axes: imperial (mph) or metric (km/h).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var command = new Command("crosscheck", "Compare one of our runs with another instrument's record of it: clock offset, every figure from both, their difference and whether it lies within the combined uncertainty.")
         {
             log, with, format, columns, speedUnit, timeUnit, speedSigma, run, json, plot, units,
@@ -44,8 +44,9 @@ public static class CrossCheckCommand
 
     /// <summary>Runs the verb. Exit 0 when every figure agrees within ±2 combined σ, 1 when some
     /// do not. With <paramref name="plot"/>, also draws both speed traces and their difference
-    /// there (.svg or .png).</summary>
-    public static ExitCode Run(FileInfo log, FileInfo with, string format, string? columns, string speedUnit, string timeUnit, double speedSigma, int runNumber, bool json, TextWriter output, TextWriter error, CancellationToken cancel = default, string? plot = null, DisplayUnits plotUnits = DisplayUnits.Imperial)
+    /// there (.svg or .png). <paramref name="units"/> picks the table's speed unit and the plot's
+    /// axes, as in <c>report</c>; the JSON stays SI.</summary>
+    public static ExitCode Run(FileInfo log, FileInfo with, string format, string? columns, string speedUnit, string timeUnit, double speedSigma, int runNumber, bool json, TextWriter output, TextWriter error, CancellationToken cancel = default, string? plot = null, DisplayUnits units = DisplayUnits.Imperial)
     {
         const string Verb = "launchlogger crosscheck";
         if (plot != null && ChartFormats.FromPath(plot) is null)
@@ -117,7 +118,7 @@ public static class CrossCheckCommand
         {
             try
             {
-                PlotFiles.Write([(plot, () => RunCharts.CrossCheck(ours, result, new ChartOptions { Units = plotUnits }))], cancel);
+                PlotFiles.Write([(plot, () => RunCharts.CrossCheck(ours, result, new ChartOptions { Units = units }))], cancel);
             }
             catch (Exception e) when (e is IOException or UnauthorizedAccessException)
             {
@@ -134,7 +135,7 @@ public static class CrossCheckCommand
         }
         else
         {
-            Write(result, output);
+            Write(result, output, units);
         }
 
         return result.Rows.All(r => r.WithinUncertainty) ? ExitCode.Ok : ExitCode.Partial;
@@ -190,7 +191,7 @@ public static class CrossCheckCommand
         _ => "unknown",
     };
 
-    private static void Write(CrossCheckResult result, TextWriter output)
+    private static void Write(CrossCheckResult result, TextWriter output, DisplayUnits units)
     {
         var c = CultureInfo.InvariantCulture;
         output.WriteLine(string.Create(c, $"Other record: {result.Source}, {result.SampleRateHz:0.#} Hz, speeds {(result.SpeedMeasured ? "measured" : "from positions")}, {result.RecordsRejected} of {result.RecordsRead} records refused"));
@@ -212,9 +213,9 @@ public static class CrossCheckCommand
             table.AddRow(
                 new Text(row.Figure),
                 new Text(row.Convention == "n/a" ? "" : row.Convention == "rollout" ? "after rollout" : "from standstill"),
-                new Text(Value(row.Ours, row.OursSigma, row.Unit)),
-                new Text(Value(row.Theirs, row.TheirsSigma, row.Unit)),
-                new Text(Value(row.Difference, row.CombinedSigma, row.Unit)),
+                new Text(Value(row.Ours, row.OursSigma, row.Unit, units)),
+                new Text(Value(row.Theirs, row.TheirsSigma, row.Unit, units)),
+                new Text(Value(row.Difference, row.CombinedSigma, row.Unit, units)),
                 new Text(row.WithinUncertainty ? "yes" : "NO"));
         }
 
@@ -223,9 +224,14 @@ public static class CrossCheckCommand
         console.Write(table);
     }
 
-    private static string Value(double value, double sigma, string unit) => unit == "s"
-        ? string.Create(CultureInfo.InvariantCulture, $"{value:0.000} s ± {sigma * 1000:0} ms")
-        : string.Create(CultureInfo.InvariantCulture, $"{value:0.00} ± {sigma:0.00} {unit}");
+    /// <summary>A row's value with its σ: times in s with ms, speeds ("m/s" rows) in the chosen
+    /// display unit, as the report and the board show them.</summary>
+    private static string Value(double value, double sigma, string unit, DisplayUnits units) => unit switch
+    {
+        "s" => string.Create(CultureInfo.InvariantCulture, $"{value:0.000} s ± {sigma * 1000:0} ms"),
+        "m/s" => $"{Format.BoardValue(unit, value, units, sigma: true)} ± {Format.BoardValue(unit, sigma, units)}",
+        _ => string.Create(CultureInfo.InvariantCulture, $"{value:0.00} ± {sigma:0.00} {unit}"),
+    };
 
     private static object ToDocument(CrossCheckResult r) => new
     {

@@ -23,7 +23,7 @@ public static class DemoCommand
         var outDir = new Option<DirectoryInfo>("--out") { Description = "Folder for the log, truth and report.", DefaultValueFactory = _ => new DirectoryInfo("launchlogger-out") };
         var scenario = new Option<string>("--scenario") { Description = $"Built-in scenario ({string.Join(", ", BuiltInScenarios.Names)}).", DefaultValueFactory = _ => BuiltInScenarios.DefaultName };
         var seed = new Option<int>("--seed") { Description = "Seed for the simulated sensors' noise.", DefaultValueFactory = _ => 1 };
-        var units = new Option<DisplayUnits>("--units") { Description = "Units for tables: imperial or metric.", DefaultValueFactory = _ => DisplayUnits.Imperial };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units for tables: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var command = new Command("demo", "Simulate a run through the real firmware core, decode its log and report it.") { outDir, scenario, seed, units };
         command.SetAction(parse => (int)Run(
             parse.GetValue(scenario)!,
@@ -80,14 +80,14 @@ public static class DemoCommand
         }
 
         ReportTableWriter.Write(document, output, units, colour: ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
-        WriteTruthComparison(simulation, session.Runs[0], output);
+        WriteTruthComparison(simulation, session.Runs[0], units, output);
         output.WriteLine();
         output.WriteLine($"Wrote {stem}.log, {stem}-truth.json, {stem}-report.json and {stem}-report.txt");
         output.WriteLine($"Decode the log yourself: launchlogger report {stem}.log");
         return ExitCode.Ok;
     }
 
-    private static void WriteTruthComparison(SimulationResult simulation, RunAnalysis analysis, TextWriter output)
+    private static void WriteTruthComparison(SimulationResult simulation, RunAnalysis analysis, DisplayUnits units, TextWriter output)
     {
         FigureSet? truth = simulation.Figures;
         TruthEvents events = simulation.Events;
@@ -147,7 +147,7 @@ public static class DemoCommand
         if (growth > 0)
         {
             output.WriteLine(FormattableString.Invariant(
-                $"  (This car's tyre grows {growth * 100:0.0#} % at 30 m/s, as real tyres do: at speed each pulse covers a little\n   more road than the box's static circumference says, so times to high speeds and long distances come\n   out late. Until the tyre is calibrated at speed that is part of σ; `launchlogger bench accuracy` shows\n   the estimator both ways.)"));
+                $"  (This car's tyre grows {growth * 100:0.0#} % at 30 m/s ({units.Speed(30):0} {units.SpeedUnit()}), as real tyres do: at speed each pulse covers a little\n   more road than the box's static circumference says, so times to high speeds and long distances come\n   out late. Until the tyre is calibrated at speed that is part of σ; `launchlogger bench accuracy` shows\n   the estimator both ways.)"));
         }
 
         void Row(string label, double? estimate, double? real, double? sigma, Func<double, string> show)
@@ -157,14 +157,15 @@ public static class DemoCommand
                 return;
             }
 
-            string inSigma = sigma is { } s && s > 0 ? FormattableString.Invariant($"{(e - r) / s,7:+0.0;-0.0;0.0}") : "      —";
+            string inSigma = sigma is { } s && s > 0 ? FormattableString.Invariant($"{(e - r) / s,7:+0.0;−0.0;0.0}") : "      —";
             output.WriteLine(FormattableString.Invariant($"  {label,-32}{show(e),12} {show(r),12} {Signed(show, e - r),12} {(sigma is { } sg ? show(sg) : "—"),9} {inSigma}"));
         }
 
         static string Signed(Func<double, string> show, double value) => (value >= 0 ? "+" : "−") + show(Math.Abs(value));
         static string Time(double s) => FormattableString.Invariant($"{s:0.0000} s");
-        static string Speed(double mps) => FormattableString.Invariant($"{mps:0.000} m/s");
-        static string Length(double m) => FormattableString.Invariant($"{m:0.000} m");
+        // Speeds and distances in the tables' units, as the report above gives them.
+        string Speed(double mps) => FormattableString.Invariant($"{units.Speed(mps):0.000} {units.SpeedUnit()}");
+        string Length(double m) => FormattableString.Invariant($"{units.Distance(m):0.000} {units.DistanceUnit()}");
         static string Grade(double rad) => FormattableString.Invariant($"{Math.Tan(rad) * 100:0.00} %");
     }
 }

@@ -155,7 +155,10 @@ public static class PlotCommand
             {
                 if (overlaid.Count > 0)
                 {
-                    files.Write(request.Out, stream => RunCharts.Overlay(overlaid.Select(o => o.Run).ToList(), alignment, chart, overlaid.Select(o => $"run {o.Number}").ToList())
+                    // Each line named by the log and the run in it ("drag.log run 2"), as the
+                    // reader names the run: the report's running number alone does not say which
+                    // log a line came from once several are overlaid.
+                    files.Write(request.Out, stream => RunCharts.Overlay(overlaid.Select(o => o.Run).ToList(), alignment, chart, overlaid.Select(o => o.Run.Run.Source).ToList())
                         .Write(stream, PlotFiles.FormatOf(request.Out, "--out")));
                     targets.Add(request.Out);
                 }

@@ -16,7 +16,7 @@ public static class ResultsCommand
         var figure = new Option<string>("--figure") { Description = $"Figure the board ranks by: {BoardFigures.Codes}.", DefaultValueFactory = _ => "0-60mph" };
         var from = new Option<string>("--from") { Description = "standstill or rollout.", DefaultValueFactory = _ => "standstill" };
         var accept = new Option<string>("--accept") { Description = "Verdicts that count on the board: valid, doubtful or all.", DefaultValueFactory = _ => "valid" };
-        var units = new Option<DisplayUnits>("--units") { Description = "imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units on the page: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var file = new Option<FileInfo>("--out") { Description = "The HTML file to write.", Required = true };
         var archive = ArchiveSupport.ArchiveOption();
         var command = new Command("results", "Write an event's results as one HTML file (print it from a browser): the board per class, then every run's card.")

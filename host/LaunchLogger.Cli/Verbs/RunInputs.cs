@@ -121,6 +121,13 @@ public static class RunInputs
             throw new UsageException("--metres-per-pulse, --pulses-per-rev and --circumference-m are for plain-text inputs; a log carries its own");
         }
 
+        // A plain-text table named as a log would be read as damaged frames ("no readable frames",
+        // "the log ends inside a frame", "no runs"): say what it is and where it goes instead.
+        if (request.Logs.FirstOrDefault(l => l.Extension.Equals(".csv", StringComparison.OrdinalIgnoreCase)) is { } table)
+        {
+            throw new UsageException($"{table.Name} is a plain-text table, not a log from the box: give it with --edges (t_s), --counts (t_lo_s,t_hi_s,count) or --accel (t_s,ax_mps2…)");
+        }
+
         foreach (FileInfo log in request.Logs)
         {
             inputs.Add(new Input(log.FullName, settings, cancel));

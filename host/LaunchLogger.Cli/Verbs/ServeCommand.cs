@@ -17,7 +17,7 @@ public static class ServeCommand
         var port = new Option<int>("--port") { Description = $"TCP port (0: any free port; the address is printed).", DefaultValueFactory = _ => BoardServerOptions.DefaultPort };
         var lan = new Option<bool>("--lan") { Description = "Listen on every network interface, not only this machine; every request must then carry the key printed at start-up." };
         var eventName = new Option<string?>("--event") { Description = "The event the board shows when the page names none (default: every run)." };
-        var units = new Option<DisplayUnits>("--units") { Description = "imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
+        var units = new Option<DisplayUnits>("--units") { Description = "Units on the page: imperial (mph, ft) or metric (km/h, m).", DefaultValueFactory = _ => DisplayUnits.Imperial };
         var command = new Command("serve", "Serve the live board: per class, redrawn as runs are filed, each run's card a click away. Read-only; this machine only unless --lan. Ctrl+C stops it.")
         {
             archive, port, lan, eventName, units,

@@ -16,7 +16,13 @@ public static class BrakingFormulas
     /// <summary>Where the MFDD window ends, as a fraction of the initial speed (UN R13-H: v_e = 0.1·v0).</summary>
     public const double MfddWindowEndFraction = 0.1;
 
-    /// <summary>Mean fully developed deceleration, m/s², by UN Regulation No. 13 / 13-H:
+    /// <summary>The name every table, card and plot gives <see cref="Mfdd"/>: the formula and
+    /// window are UN Regulation No. 13-H's (braking of passenger cars, Annex 3), the regulation
+    /// for the cars this tool times; UN R13, for heavier vehicles, uses the same formula (from
+    /// memory).</summary>
+    public const string MfddLabel = "MFDD (UN R13-H)";
+
+    /// <summary>Mean fully developed deceleration, m/s², by UN Regulation No. 13-H (13 alike):
     /// d_m = (v_b² − v_e²) / (25.92 · (s_e − s_b)), speeds in km/h, v_b = 0.8·v0, v_e = 0.1·v0,
     /// s_b and s_e the distances (m) travelled from v0 to v_b and to v_e.</summary>
     public static double Mfdd(double initialSpeedKmh, double distanceToVbM, double distanceToVeM)

@@ -7,14 +7,21 @@ namespace LaunchLogger.Decoding.Import;
 /// <summary>One plain-text input table: comma separated, header required, '#' comment lines and
 /// blank lines allowed, numbers in the invariant culture. Every problem becomes an
 /// <see cref="InputException"/> naming the file and line.</summary>
-/// <remarks>Tokenising is CsvHelper's (quoting, trimming, comments, byte order marks and line
-/// counting that includes comment and blank lines); cell checks are ours, so that each message can
-/// name the column and say exactly what is wrong.</remarks>
+/// <remarks>Tokenising is CsvHelper's (quoting, trimming, comments, byte order marks, line
+/// counting that includes comment and blank lines, and the separator found from the first lines);
+/// cell checks are ours, so that each message can name the column and say exactly what is wrong.
+/// <para>A spreadsheet set to a language that writes a decimal comma exports ';' between cells
+/// and "12,5" for twelve and a half. Such a file is read as it means: with ';' as the separator a
+/// number's decimal mark may be a comma or a point, but one file uses one (the first number with
+/// either decides), and a number holding both, or the other mark, is refused by name — so no
+/// thousands separator is ever taken for a decimal mark. A tab- or '|'-separated table is read
+/// with decimal points. In a comma-separated file a decimal comma cannot be told from a cell
+/// boundary; the cell-count and number messages then say so.</para></remarks>
 internal sealed class CsvTable : IDisposable
 {
     private static readonly CsvReaderOptions Options = CsvReaderOptions.Default with
     {
-        Separator = ',',
+        Separator = null,
         HasHeader = true,
         CommentPrefix = '#',
         SkipEmptyLines = true,
@@ -24,12 +31,23 @@ internal sealed class CsvTable : IDisposable
         FormatProvider = CultureInfo.InvariantCulture,
     };
 
+    private static readonly NumberFormatInfo DecimalComma = new() { NumberDecimalSeparator = ",", NumberGroupSeparator = "\u00A0" };
+
+    /// <summary>What a cell count or a number refused in a comma-separated file may mean.</summary>
+    private const string DecimalCommaHint = "if the numbers are written with a decimal comma, write them with a decimal point, or separate the columns with ';' (a spreadsheet's own export does)";
+
     private readonly CsvReader reader;
     private double? firstTimeS;
+
+    /// <summary>The decimal mark the file's numbers use: '.' unless the table is ';'-separated,
+    /// where the first number with a mark decides; '\0' until then.</summary>
+    private char decimalMark;
 
     private CsvTable(CsvReader reader, string file, IReadOnlyList<string> columns, int headerLine)
     {
         this.reader = reader;
+        Separator = reader.Separator;
+        decimalMark = Separator == ';' ? '\0' : '.';
         File = file;
         Columns = columns;
         HeaderLine = headerLine;
@@ -40,6 +58,9 @@ internal sealed class CsvTable : IDisposable
 
     /// <summary>The header's column names, as the file spells them.</summary>
     public IReadOnlyList<string> Columns { get; }
+
+    /// <summary>The separator between cells, as found from the file's first lines.</summary>
+    public char Separator { get; }
 
     /// <summary>The header's line.</summary>
     public int HeaderLine { get; }
@@ -131,7 +152,7 @@ internal sealed class CsvTable : IDisposable
         Rows++;
         if (reader.FieldCount != Columns.Count)
         {
-            throw Error($"expected {Columns.Count} cell(s) ({string.Join(',', Columns)}), found {reader.FieldCount}");
+            throw Error($"expected {Columns.Count} cell(s) ({string.Join(Separator, Columns)}), found {reader.FieldCount}" + (Separator == ',' && reader.FieldCount > Columns.Count ? $"; {DecimalCommaHint}" : ""));
         }
 
         return true;
@@ -142,9 +163,9 @@ internal sealed class CsvTable : IDisposable
     public double Number(int column)
     {
         string text = Cell(column);
-        if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double value))
+        if (!double.TryParse(text, NumberStyles.Float, MarkOf(text, column), out double value))
         {
-            throw Error($"column '{Columns[column]}': '{text}' is not a number");
+            throw Error($"column '{Columns[column]}': '{text}' is not a number" + (Separator == ',' && text.Contains(',', StringComparison.Ordinal) ? $"; {DecimalCommaHint}" : ""));
         }
 
         if (!double.IsFinite(value))
@@ -218,6 +239,36 @@ internal sealed class CsvTable : IDisposable
 
     /// <inheritdoc/>
     public void Dispose() => reader.Dispose();
+
+    /// <summary>How to read <paramref name="text"/>'s decimal mark: the invariant culture's
+    /// point, or in a ';'-separated table the file's own mark, fixed by its first number that has one.</summary>
+    /// <exception cref="InputException">The number holds both marks, or the mark the file does not use.</exception>
+    private NumberFormatInfo MarkOf(string text, int column)
+    {
+        if (Separator != ';')
+        {
+            return NumberFormatInfo.InvariantInfo;
+        }
+
+        bool comma = text.Contains(',', StringComparison.Ordinal);
+        bool point = text.Contains('.', StringComparison.Ordinal);
+        if (comma && point)
+        {
+            throw Error($"column '{Columns[column]}': '{text}' holds both a point and a comma; write numbers without a thousands separator");
+        }
+
+        char mark = comma ? ',' : point ? '.' : decimalMark;
+        if (decimalMark == '\0')
+        {
+            decimalMark = mark;
+        }
+        else if (mark != decimalMark)
+        {
+            throw Error($"column '{Columns[column]}': '{text}' has a decimal {(comma ? "comma" : "point")} where the numbers above have a decimal {(comma ? "point" : "comma")}; one file uses one mark");
+        }
+
+        return mark == ',' ? DecimalComma : NumberFormatInfo.InvariantInfo;
+    }
 
     private string Cell(int column)
     {
