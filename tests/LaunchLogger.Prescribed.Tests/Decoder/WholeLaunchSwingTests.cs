@@ -1,5 +1,6 @@
 using LaunchLogger.Decoding;
 using LaunchLogger.Decoding.Analysis;
+using LaunchLogger.Decoding.Calibration;
 using LaunchLogger.Decoding.Reconstruction;
 using LaunchLogger.Decoding.Verdicts;
 using LaunchLogger.Prescribed.Sensors;
@@ -159,5 +160,25 @@ public class WholeLaunchSwingTests
 
         Assert.False(run.Reconstruction.DrivenWheel, $"{spec}: {LaunchSpinTests.Describe(run)}");
         Assert.True(run.Verdict!.Level == VerdictLevel.Valid, $"{spec}: {LaunchSpinTests.Describe(run)}");
+    }
+
+    /// <summary>The user's word on the wheel decides before the estimate: a launch held at its
+    /// peak with its slip swinging (seed 4, 60 teeth, polled every 1 ms; doubted when not told) is
+    /// not held against the run when told undriven, and a wheel with no drive slip told driven is
+    /// taken as driven.</summary>
+    [Fact]
+    public void The_told_wheel_decides_the_gate()
+    {
+        static AnalysisOptions Told(PickupWheel wheel) => new() { Calibration = new CalibrationSettings { PickupWheel = wheel } };
+
+        PrescribedRecordSpec swinging = Launch(4, shunted: false, 60, 1e-3, swinging: true);
+        RunAnalysis undriven = Assert.Single(DecoderHarness.AnalyzeText(swinging.Generate(), Told(PickupWheel.Undriven)).Runs);
+        Assert.False(undriven.Reconstruction.DrivenWheel);
+        Assert.True(undriven.Reconstruction.SlipSwing!.Swings, $"{swinging}: {undriven.Reconstruction.SlipSwing}");
+        Assert.DoesNotContain(undriven.Verdict!.Reasons, r => r.Code == "wheelspin");
+
+        PrescribedRecordSpec plain = Records.Standing(4);
+        RunAnalysis driven = Assert.Single(DecoderHarness.AnalyzeText(plain.Generate(), Told(PickupWheel.Driven)).Runs);
+        Assert.True(driven.Reconstruction.DrivenWheel);
     }
 }
