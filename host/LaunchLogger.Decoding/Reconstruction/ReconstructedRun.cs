@@ -60,6 +60,13 @@ public sealed class ReconstructedRun
     /// estimated (no accelerometer or no pulses).</summary>
     public Estimate? WheelSlipPerMps2 { get; init; }
 
+    /// <summary>True when the distance's wheel is taken as one that passes drive: told driven
+    /// (<see cref="ReconstructionOptions.PickupWheel"/>), or, not told undriven, its slip
+    /// coefficient found above an undriven wheel's, whether or not the filter kept it (where
+    /// <see cref="WheelSlipPerMps2"/> reads 0, σ 0). Only such a wheel has a grip peak for a slip
+    /// swing to cross (<see cref="SlipSwing"/>). False without an accelerometer and pulses.</summary>
+    public bool DrivenWheel { get; init; }
+
     /// <summary>The pickup wheel's slip under braking per m/s² of deceleration, 1/(g0·C), s²/m,
     /// as the fusion estimated it from the pulses against the accelerometer (prior: the tyres'
     /// stiffness range). Null when not modelled (no accelerometer or no pulses, or told that the

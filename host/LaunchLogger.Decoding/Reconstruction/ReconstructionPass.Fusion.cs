@@ -408,6 +408,22 @@ internal sealed partial class ReconstructionPass
         return apart * apart > 9 * (Square(fused.Slip.Sigma) + Square(options.UndrivenSlipSigma));
     }
 
+    /// <summary>Whether the distance's wheel is taken as one that passes drive, for the slip
+    /// swing's verdict (<see cref="ReconstructedRun.DrivenWheel"/>): told driven, yes; told
+    /// undriven, no; not told, when the fused slip coefficient is kept positive beyond 2σ, or,
+    /// kept or not, lies above an undriven wheel's by <see cref="SlipToldApart"/>. A slip not kept
+    /// is reported as 0 (σ 0), the slip the filter then used, not the one it found: a launch held
+    /// at its tyre's peak slips by more than k·a at the start and less later, so the evidence test
+    /// may not keep the law while its coefficient still lies many σ from an undriven wheel's.</summary>
+    private bool TakenAsDriven(FusionResult fused) => DistanceWheel switch
+    {
+        PickupWheel.Driven or PickupWheel.DrivenAllWheels => true,
+        PickupWheel.Undriven => false,
+        _ => fused.SlipKept
+            ? fused.Slip.Value > 0 && fused.Slip.Value > 2 * fused.Slip.Sigma
+            : fused.Slip.Value > options.UndrivenSlipPerMps2 && SlipToldApart(fused),
+    };
+
     /// <summary>σ of the input's bias over the launch, m/s²: its resting level's σ and the drift
     /// since staging.</summary>
     private double LaunchBiasSigma(AccelRest rest) => Math.Sqrt(Square(rest.LevelSigmaMps2) + Square(options.BiasPriorMps2));

@@ -271,6 +271,7 @@ internal sealed partial class ReconstructionPass
             SlipSwing = windows.Swing,
             BrakingSlideWindows = braking,
             WheelSlipPerMps2 = slipSignal is null ? null : fused.SlipKept ? fused.Slip : new Estimate(0, 0),
+            DrivenWheel = slipSignal is not null && TakenAsDriven(fused),
             BrakeSlipPerMps2 = windows.BrakeSlipSignal is null ? null : fused.BrakeSlip,
             BrakeSlipDistanceM = SlipDistanceWherePulsesCount(grid, windows.BrakeSlipSignal, fused.BrakeSlip.Value, [.. spin, .. braking]),
             DistanceChannel = channel,

@@ -79,12 +79,13 @@ public static class RunJudge
                 : "at the launch the pulses ran ahead of the car by more than a tyre slips at its grip peak, and the launch marks may read early";
             reasons.Add(new(VerdictLevel.Doubtful, "wheelspin", Invariant($"the pickup wheel's speed parted from the car's (spin or slide) for {spin:0.00} s: {where}")));
         }
-        else if (rec.SlipSwing is { Swings: true } swing && rec.WheelSlipPerMps2 is { } driveSlip && driveSlip.Value > 2 * driveSlip.Sigma && driveSlip.Value > 0)
+        else if (rec.SlipSwing is { Swings: true } swing && rec.DrivenWheel)
         {
             // A slip that swings to and fro through the launch crosses the tyre's grip peak
             // (SlipSwingTest): the wheel runs ahead in bursts no slip threshold sees. Only on a
-            // wheel the fusion found driven (its drive slip positive beyond 2σ): an undriven wheel
-            // passes no drive force and has no peak to cross — a swing there follows the car.
+            // wheel taken as driven (ReconstructedRun.DrivenWheel: told so, or its slip found
+            // above an undriven wheel's, kept or not): an undriven wheel passes no drive force and
+            // has no peak to cross.
             string beyond = swing.SwingsByBlocks
                 ? Invariant($"{swing.Swinging} of {swing.Blocks} blocks of {SlipSwingTest.BlockS:0.0} s beyond what its teeth and edges explain")
                 : Invariant($"χ² {swing.ChiSquare:0} on {swing.DegreesOfFreedom:0} degrees of freedom over its {swing.Blocks} block{(swing.Blocks == 1 ? "" : "s")} of {SlipSwingTest.BlockS:0.0} s, beyond what its teeth and edges explain");

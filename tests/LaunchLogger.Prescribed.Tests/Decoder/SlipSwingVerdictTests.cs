@@ -52,14 +52,15 @@ public class SlipSwingVerdictTests
         Assert.True(run.Verdict!.Level == VerdictLevel.Valid, $"{spec}, slip {slip}: {LaunchSpinTests.Describe(run)}");
     }
 
-    /// <summary>24–100 teeth with edge timestamps, and 60 teeth polled every 1 ms. What the
-    /// verdict does not yet see: seeds 4, 5 and 11 polled every 1 ms (60–100 teeth) swing by the
-    /// test, but the fusion does not find their wheel driven beyond 2σ, which the judge asks before
-    /// it holds a swing against the run; they are called valid.</summary>
+    /// <summary>24–100 teeth with edge timestamps, and 60–100 teeth polled every 1 ms. Seeds 4, 5
+    /// and 11 polled: the filter does not keep their slip (it reads 0, σ 0), yet its coefficient
+    /// lies many σ above an undriven wheel's, so the wheel is taken as driven
+    /// (<see cref="ReconstructedRun.DrivenWheel"/>) and the swing counts; before, they were called
+    /// valid.</summary>
     public static TheoryData<int, bool> Swinging => new()
     {
         { 2, false }, { 3, false }, { 4, false }, { 5, false }, { 8, false }, { 9, false }, { 10, false }, { 11, false },
-        { 10, true },
+        { 4, true }, { 5, true }, { 10, true }, { 11, true },
     };
 
     [Theory]
