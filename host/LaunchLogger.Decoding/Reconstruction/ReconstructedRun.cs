@@ -60,10 +60,10 @@ public sealed class ReconstructedRun
     /// estimated (no accelerometer or no pulses).</summary>
     public Estimate? WheelSlipPerMps2 { get; init; }
 
-    /// <summary>True when the distance's wheel is taken as one that passes drive: told driven
-    /// (<see cref="ReconstructionOptions.PickupWheel"/>), or, not told undriven, its slip
-    /// coefficient found above an undriven wheel's, whether or not the filter kept it (where
-    /// <see cref="WheelSlipPerMps2"/> reads 0, σ 0). Only such a wheel has a grip peak for a slip
+    /// <summary>True when the distance's wheel is taken as one that passes drive: not told
+    /// undriven (<see cref="ReconstructionOptions.PickupWheel"/>) and its slip coefficient found
+    /// above an undriven wheel's, whether or not the filter kept it (where
+    /// <see cref="WheelSlipPerMps2"/> reads 0, σ 0); a wheel told driven needs the same evidence. Only such a wheel has a grip peak for a slip
     /// swing to cross (<see cref="SlipSwing"/>). False without an accelerometer and pulses.</summary>
     public bool DrivenWheel { get; init; }
 

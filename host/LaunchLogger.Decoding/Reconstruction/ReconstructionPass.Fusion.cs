@@ -409,15 +409,18 @@ internal sealed partial class ReconstructionPass
     }
 
     /// <summary>Whether the distance's wheel is taken as one that passes drive, for the slip
-    /// swing's verdict (<see cref="ReconstructedRun.DrivenWheel"/>): told driven, yes; told
-    /// undriven, no; not told, when the fused slip coefficient is kept positive beyond 2σ, or,
-    /// kept or not, lies above an undriven wheel's by <see cref="SlipToldApart"/>. A slip not kept
+    /// swing's verdict (<see cref="ReconstructedRun.DrivenWheel"/>): told undriven, no; otherwise
+    /// when the fused slip coefficient is kept positive beyond 2σ, or, kept or not, lies above an
+    /// undriven wheel's by <see cref="SlipToldApart"/>. A wheel told driven still needs its slip
+    /// to show it: the simulator's clean undriven launches swing in 15 of 62 (most likely the body's
+    /// pitch, which the accelerometer sees and the wheel does not — not yet traced; ACCURACY-NOTES,
+    /// branch drivengate), and a driven wheel that slips that little would swing the same way. A
+    /// slip not kept
     /// is reported as 0 (σ 0), the slip the filter then used, not the one it found: a launch held
     /// at its tyre's peak slips by more than k·a at the start and less later, so the evidence test
     /// may not keep the law while its coefficient still lies many σ from an undriven wheel's.</summary>
     private bool TakenAsDriven(FusionResult fused) => DistanceWheel switch
     {
-        PickupWheel.Driven or PickupWheel.DrivenAllWheels => true,
         PickupWheel.Undriven => false,
         _ => fused.SlipKept
             ? fused.Slip.Value > 0 && fused.Slip.Value > 2 * fused.Slip.Sigma

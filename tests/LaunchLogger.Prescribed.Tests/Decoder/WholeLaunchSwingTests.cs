@@ -164,8 +164,9 @@ public class WholeLaunchSwingTests
 
     /// <summary>The user's word on the wheel decides before the estimate: a launch held at its
     /// peak with its slip swinging (seed 4, 60 teeth, polled every 1 ms; doubted when not told) is
-    /// not held against the run when told undriven, and a wheel with no drive slip told driven is
-    /// taken as driven.</summary>
+    /// not held against the run when told undriven; told driven, the same launch is doubted, and a
+    /// wheel with no drive slip told driven is not taken as driven (its slip must show it: a swing
+    /// that follows the body's pitch is no spin).</summary>
     [Fact]
     public void The_told_wheel_decides_the_gate()
     {
@@ -177,8 +178,13 @@ public class WholeLaunchSwingTests
         Assert.True(undriven.Reconstruction.SlipSwing!.Swings, $"{swinging}: {undriven.Reconstruction.SlipSwing}");
         Assert.DoesNotContain(undriven.Verdict!.Reasons, r => r.Code == "wheelspin");
 
+        RunAnalysis toldDriven = Assert.Single(DecoderHarness.AnalyzeText(swinging.Generate(), Told(PickupWheel.Driven)).Runs);
+        Assert.True(toldDriven.Reconstruction.DrivenWheel);
+        Assert.Contains(toldDriven.Verdict!.Reasons, r => r.Code == "wheelspin");
+
         PrescribedRecordSpec plain = Records.Standing(4);
         RunAnalysis driven = Assert.Single(DecoderHarness.AnalyzeText(plain.Generate(), Told(PickupWheel.Driven)).Runs);
-        Assert.True(driven.Reconstruction.DrivenWheel);
+        Assert.False(driven.Reconstruction.DrivenWheel);
+        Assert.Equal(VerdictLevel.Valid, driven.Verdict!.Level);
     }
 }
